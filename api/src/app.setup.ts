@@ -1,0 +1,50 @@
+import type { NestExpressApplication } from '@nestjs/platform-express';
+import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
+import helmet from 'helmet';
+
+import { HttpExceptionFilter } from './common/http-exception.filter.js';
+import { serveWebApp } from './common/web-app.js';
+import { APP_VERSION, type Env } from './config/env.schema.js';
+
+/**
+ * Everything that shapes the HTTP surface, shared by `main.ts` and the integration tests so that the
+ * tests exercise exactly what production serves.
+ */
+export function configureApp(app: NestExpressApplication, env: Env): void {
+  app.setGlobalPrefix('api');
+  app.useGlobalFilters(new HttpExceptionFilter());
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          // Fluent UI (Griffel) inserts its atomic CSS at run time.
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'"],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          frameAncestors: ["'none'"],
+          baseUri: ["'self'"],
+          formAction: ["'self'"],
+          upgradeInsecureRequests: null,
+        },
+      },
+    }),
+  );
+
+  const document = SwaggerModule.createDocument(
+    app,
+    new DocumentBuilder()
+      .setTitle('Loamline API')
+      .setDescription('As-built records, cable and load computation, and handover packets.')
+      .setVersion(APP_VERSION)
+      .build(),
+  );
+  SwaggerModule.setup('api/docs', app, document, { jsonDocumentUrl: 'api/docs-json' });
+
+  if (env.WEB_DIST_DIR) serveWebApp(app, env.WEB_DIST_DIR);
+}

@@ -1,0 +1,107 @@
+import {
+  type ArgumentsHost,
+  Catch,
+  type ExceptionFilter,
+  HttpException,
+  HttpStatus,
+  Logger,
+} from '@nestjs/common';
+import type { Response } from 'express';
+
+import { ConflictError, DomainError, NotFoundError, RuleViolationError } from '../domain/errors.js';
+
+export interface ErrorBody {
+  statusCode: number;
+  error: string;
+  message: string;
+  code?: string;
+  issues?: { path: string; message: string }[];
+}
+
+const DOMAIN_STATUS = new Map<Function, HttpStatus>([
+  [NotFoundError, HttpStatus.NOT_FOUND],
+  [ConflictError, HttpStatus.CONFLICT],
+  [RuleViolationError, HttpStatus.UNPROCESSABLE_ENTITY],
+]);
+
+const STATUS_TEXT: Record<number, string> = {
+  400: 'Bad Request',
+  401: 'Unauthorized',
+  403: 'Forbidden',
+  404: 'Not Found',
+  409: 'Conflict',
+  413: 'Payload Too Large',
+  415: 'Unsupported Media Type',
+  422: 'Unprocessable Entity',
+  429: 'Too Many Requests',
+  500: 'Internal Server Error',
+  503: 'Service Unavailable',
+};
+
+/** Postgres error classes that mean "the database is not reachable right now". */
+function isDatabaseUnavailable(error: unknown): boolean {
+  const code = (error as { code?: unknown } | null)?.code;
+  const message = error instanceof Error ? error.message : '';
+  return (
+    code === 'ECONNREFUSED' ||
+    code === '57P01' || // admin_shutdown
+    code === '57P03' || // cannot_connect_now
+    /Connection terminated|timeout exceeded when trying to connect|ECONNREFUSED/.test(message)
+  );
+}
+
+/**
+ * One shape for every error the API returns: `{ statusCode, error, message, code?, issues? }`.
+ * Domain errors map to 404/409/422; unknown errors become a generic 500 whose stack goes only to the log.
+ */
+@Catch()
+export class HttpExceptionFilter implements ExceptionFilter {
+  private readonly logger = new Logger(HttpExceptionFilter.name);
+
+  catch(exception: unknown, host: ArgumentsHost): void {
+    const res = host.switchToHttp().getResponse<Response>();
+    const body = this.toBody(exception);
+    if (body.statusCode >= 500 && body.statusCode !== HttpStatus.SERVICE_UNAVAILABLE) {
+      this.logger.error(exception instanceof Error ? exception.stack : String(exception));
+    }
+    if (!res.headersSent) res.status(body.statusCode).json(body);
+  }
+
+  private toBody(exception: unknown): ErrorBody {
+    if (exception instanceof HttpException) {
+      const statusCode = exception.getStatus();
+      const response = exception.getResponse();
+      const fields = typeof response === 'object' && response !== null ? (response as Record<string, unknown>) : {};
+      const message = Array.isArray(fields.message)
+        ? fields.message.join('; ')
+        : typeof fields.message === 'string'
+          ? fields.message
+          : exception.message;
+      return {
+        statusCode,
+        error: STATUS_TEXT[statusCode] ?? (typeof fields.error === 'string' ? fields.error : 'Error'),
+        message,
+        ...(typeof fields.code === 'string' ? { code: fields.code } : {}),
+        ...(Array.isArray(fields.issues) ? { issues: fields.issues as ErrorBody['issues'] } : {}),
+      };
+    }
+    if (exception instanceof DomainError) {
+      const statusCode =
+        [...DOMAIN_STATUS].find(([type]) => exception instanceof type)?.[1] ?? HttpStatus.UNPROCESSABLE_ENTITY;
+      return { statusCode, error: STATUS_TEXT[statusCode] ?? 'Error', message: exception.message, code: exception.code };
+    }
+    if (isDatabaseUnavailable(exception)) {
+      return {
+        statusCode: HttpStatus.SERVICE_UNAVAILABLE,
+        error: STATUS_TEXT[503]!,
+        message: 'The database is not reachable right now; try again shortly.',
+        code: 'DATABASE_UNAVAILABLE',
+      };
+    }
+    return {
+      statusCode: HttpStatus.INTERNAL_SERVER_ERROR,
+      error: STATUS_TEXT[500]!,
+      message: 'Something went wrong on our side; it has been logged.',
+    };
+  }
+}

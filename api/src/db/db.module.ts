@@ -1,0 +1,48 @@
+import { Global, Inject, Logger, Module, type OnApplicationShutdown } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+import { drizzle, type NodePgDatabase } from 'drizzle-orm/node-postgres';
+import pg from 'pg';
+
+import type { Env } from '../config/env.schema.js';
+import * as schema from './schema/index.js';
+
+export const DB = Symbol('DB');
+export const PG_POOL = Symbol('PG_POOL');
+
+export type Db = NodePgDatabase<typeof schema>;
+export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
+
+@Global()
+@Module({
+  providers: [
+    {
+      provide: PG_POOL,
+      inject: [ConfigService],
+      useFactory: (config: ConfigService<Env, true>) => {
+        const pool = new pg.Pool({
+          connectionString: config.get('DATABASE_URL', { infer: true }),
+          max: 10,
+          // Fail fast when the database is unreachable, so requests answer 503 instead of hanging.
+          connectionTimeoutMillis: 3_000,
+          statement_timeout: 15_000,
+        });
+        // An idle client's connection dropping (database restart) must not crash the process.
+        pool.on('error', (error) => new Logger('Database').warn(`idle client error: ${error.message}`));
+        return pool;
+      },
+    },
+    {
+      provide: DB,
+      inject: [PG_POOL],
+      useFactory: (pool: pg.Pool): Db => drizzle(pool, { schema }),
+    },
+  ],
+  exports: [DB, PG_POOL],
+})
+export class DbModule implements OnApplicationShutdown {
+  constructor(@Inject(PG_POOL) private readonly pool: pg.Pool) {}
+
+  async onApplicationShutdown(): Promise<void> {
+    await this.pool.end();
+  }
+}

@@ -1,0 +1,11 @@
+import { Module } from '@nestjs/common';
+
+import { HealthController } from './health.controller.js';
+import { HealthRepository } from './health.repository.js';
+import { HealthService } from './health.service.js';
+
+@Module({
+  controllers: [HealthController],
+  providers: [HealthService, HealthRepository],
+})
+export class HealthModule {}

@@ -1,0 +1,49 @@
+import type { Browser } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+
+import { launchChromium } from '../support/browser.js';
+
+describe('the served app shell', () => {
+  const baseUrl = inject('baseUrl');
+  let browser: Browser;
+
+  beforeAll(async () => {
+    browser = await launchChromium();
+  });
+
+  afterAll(async () => {
+    await browser.close();
+  });
+
+  it.each([
+    { name: 'phone', width: 375, height: 812 },
+    { name: 'desktop', width: 1280, height: 800 },
+  ])('should show the Loamline heading and a healthy API on a $name', async ({ width, height }) => {
+    const page = await browser.newPage({ viewport: { width, height } });
+    const failed: string[] = [];
+    page.on('requestfailed', (req) => failed.push(req.url()));
+    page.on('pageerror', (error) => failed.push(error.message));
+    await page.goto(`${baseUrl}/`);
+    await expect(page.getByRole('heading', { name: 'Loamline' }).first().isVisible()).resolves.toBe(true);
+    await page.goto(`${baseUrl}/status`);
+    await page.getByText(/database/i).first().waitFor();
+    await page.getByText(/\bup\b/i).first().waitFor();
+    // Our own fonts, not a fallback: Inter is loaded from the app's assets.
+    const interLoaded = await page.evaluate(async () => {
+      await document.fonts.ready;
+      return [...document.fonts].some((f) => /inter/i.test(f.family) && f.status === 'loaded');
+    });
+    expect(interLoaded).toBe(true);
+    expect(failed).toEqual([]);
+    await page.close();
+  });
+
+  it('should serve client-side routes on reload and a 404 page for unknown ones', async () => {
+    const page = await browser.newPage();
+    const res = await page.goto(`${baseUrl}/no/such/page`);
+    expect(res?.status()).toBe(200);
+    await page.getByRole('link', { name: /home/i }).first().waitFor();
+    await expect(page.getByText(/not found|can.t find|doesn.t exist/i).first().isVisible()).resolves.toBe(true);
+    await page.close();
+  });
+});

@@ -1,0 +1,64 @@
+import { type ChildProcess, spawn } from 'node:child_process';
+import { createServer } from 'node:net';
+import { join } from 'node:path';
+
+import type { TestProject } from 'vitest/node';
+
+// @ts-expect-error -- plain ESM script shared with `npm start`; no type declarations.
+import { ensureApiBuilt, ensureWebBuilt, root } from '../../scripts/lib/setup.mjs';
+
+declare module 'vitest' {
+  export interface ProvidedContext {
+    baseUrl: string;
+  }
+}
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const server = createServer();
+    server.once('error', reject);
+    server.listen(0, '127.0.0.1', () => {
+      const address = server.address();
+      server.close(() => resolve(typeof address === 'object' && address ? address.port : 0));
+    });
+  });
+}
+
+/**
+ * Starts the built server (API + web app on one port, as `npm start` does) against this project's
+ * database, for the browser tests.
+ */
+export default async function setup(project: TestProject): Promise<() => Promise<void>> {
+  ensureApiBuilt();
+  ensureWebBuilt();
+  const port = await freePort();
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const server: ChildProcess = spawn(process.execPath, [join(root, 'api/dist/main.js')], {
+    stdio: ['ignore', 'ignore', 'inherit'],
+    env: {
+      ...process.env,
+      NODE_ENV: 'test',
+      DATABASE_URL: project.getProvidedContext().databaseUrl,
+      PORT: String(port),
+      HOST: '127.0.0.1',
+      WEB_DIST_DIR: join(root, 'web/dist'),
+      LOG_LEVEL: 'warn',
+    },
+  });
+  const deadline = Date.now() + 30_000;
+  for (;;) {
+    if (server.exitCode !== null) throw new Error(`the server exited with ${server.exitCode}`);
+    try {
+      if ((await fetch(`${baseUrl}/api/health`)).ok) break;
+    } catch {
+      // not listening yet
+    }
+    if (Date.now() > deadline) throw new Error('the server did not become healthy within 30 s');
+    await new Promise((resolve) => setTimeout(resolve, 150));
+  }
+  project.provide('baseUrl', baseUrl);
+  return async () => {
+    server.kill('SIGTERM');
+    await new Promise((resolve) => (server.exitCode === null ? server.once('exit', resolve) : resolve(null)));
+  };
+}
