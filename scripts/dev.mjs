@@ -9,6 +9,7 @@ import {
   ensureDebianPackages,
   ensureNpmDependencies,
   ensurePostgres,
+  localSecrets,
   log,
   migrate,
   root,
@@ -46,7 +47,7 @@ ensureApiBuilt();
 start('npx', ['tsc', '-p', 'api/tsconfig.build.json', '--watch', '--preserveWatchOutput'], { cwd: root });
 start(process.execPath, ['--watch-path', join(root, 'api/dist'), join(root, 'api/dist/main.js')], {
   cwd: root,
-  env: { ...process.env, NODE_ENV: 'development', DATABASE_URL: databaseUrl, PORT: apiPort, LOG_FORMAT: 'text' },
+  env: { ...process.env, ...localSecrets(), NODE_ENV: 'development', DATABASE_URL: databaseUrl, PORT: apiPort, LOG_FORMAT: 'text' },
 });
 start('npx', ['vite', '--port', webPort, '--strictPort', '--host', '127.0.0.1'], {
   cwd: join(root, 'web'),

@@ -10,6 +10,7 @@ import {
   ensureNpmDependencies,
   ensurePostgres,
   ensureWebBuilt,
+  localSecrets,
   log,
   migrate,
   redact,
@@ -54,6 +55,7 @@ try {
     stdio: 'inherit',
     env: {
       ...process.env,
+      ...localSecrets(),
       NODE_ENV: process.env.NODE_ENV ?? 'production',
       DATABASE_URL: databaseUrl,
       PORT: port,

@@ -1,5 +1,6 @@
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
+import cookieParser from 'cookie-parser';
 import helmet from 'helmet';
 
 import { HttpExceptionFilter } from './common/http-exception.filter.js';
@@ -14,7 +15,7 @@ export function configureApp(app: NestExpressApplication, env: Env): void {
   app.setGlobalPrefix('api');
   app.useGlobalFilters(new HttpExceptionFilter());
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  app.use(cookieParser());
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -42,6 +43,7 @@ export function configureApp(app: NestExpressApplication, env: Env): void {
       .setTitle('Loamline API')
       .setDescription('As-built records, cable and load computation, and handover packets.')
       .setVersion(APP_VERSION)
+      .addBearerAuth()
       .build(),
   );
   SwaggerModule.setup('api/docs', app, document, { jsonDocumentUrl: 'api/docs-json' });

@@ -1,4 +1,5 @@
 import { type ChildProcess, spawn } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
 import { createServer } from 'node:net';
 import { join } from 'node:path';
 
@@ -43,6 +44,8 @@ export default async function setup(project: TestProject): Promise<() => Promise
       HOST: '127.0.0.1',
       WEB_DIST_DIR: join(root, 'web/dist'),
       LOG_LEVEL: 'warn',
+      JWT_ACCESS_SECRET: randomBytes(32).toString('hex'),
+      LOCAL_SMTP_PORT: '0',
     },
   });
   const deadline = Date.now() + 30_000;

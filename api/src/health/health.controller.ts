@@ -2,6 +2,7 @@ import { Controller, Get, HttpStatus, Res } from '@nestjs/common';
 import { ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 
+import { Public } from '../common/decorators/public.decorator.js';
 import type { HealthResponse } from '../domain/health/health.schema.js';
 import { HealthService } from './health.service.js';
 
@@ -10,6 +11,7 @@ import { HealthService } from './health.service.js';
 export class HealthController {
   constructor(private readonly healthService: HealthService) {}
 
+  @Public()
   @Get()
   @ApiOperation({ summary: 'Liveness of the API and reachability of its database' })
   @ApiResponse({

@@ -1,0 +1,269 @@
+import { randomUUID } from 'node:crypto';
+
+import { ConflictException, Injectable, Logger, NotFoundException, UnauthorizedException } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+import { JwtService } from '@nestjs/jwt';
+
+import { AuditService } from '../audit/audit.service.js';
+import type { Tx } from '../db/db.module.js';
+import type { AuthUser } from '../common/decorators/current-user.decorator.js';
+import type { Env } from '../config/env.schema.js';
+import type {
+  AcceptInvitationInput,
+  InvitationPreviewResponse,
+  MeResponse,
+  ResetPasswordInput,
+  SessionResponse,
+} from '../domain/auth/auth.schema.js';
+import { LinkBuilder } from '../mail/link-builder.js';
+import { MailService } from '../mail/mail.service.js';
+import { AuthRepository, type UserWithCompany } from './auth.repository.js';
+import { PasswordHasher } from './password-hasher.js';
+import { hashToken, newOpaqueToken } from './tokens.js';
+
+export interface ClientMeta {
+  ip: string | undefined;
+  userAgent: string | undefined;
+}
+
+/** A session as issued: the body for the client plus the refresh token for the cookie. */
+export interface IssuedSession {
+  body: SessionResponse;
+  refreshToken: string;
+  refreshExpiresAt: Date;
+}
+
+export interface AccessTokenPayload {
+  sub: string;
+  cid: string;
+  role: AuthUser['role'];
+}
+
+const SIGN_IN_FAILED = { message: 'E-mail or password is incorrect.', code: 'SIGN_IN_FAILED' };
+
+function toMe(user: UserWithCompany): MeResponse {
+  return {
+    id: user.id,
+    email: user.email,
+    name: user.name,
+    role: user.role,
+    companyId: user.companyId,
+    companyName: user.companyName,
+  };
+}
+
+@Injectable()
+export class AuthService {
+  private readonly logger = new Logger(AuthService.name);
+
+  constructor(
+    private readonly repository: AuthRepository,
+    private readonly hasher: PasswordHasher,
+    private readonly jwt: JwtService,
+    private readonly config: ConfigService<Env, true>,
+    private readonly audit: AuditService,
+    private readonly mail: MailService,
+    private readonly links: LinkBuilder,
+  ) {}
+
+  /**
+   * The local strategy's check. Unknown e-mail, wrong password and disabled account all give the same
+   * answer in about the same time, so sign-in cannot be used to learn who has an account.
+   */
+  async validateCredentials(email: string, password: string): Promise<UserWithCompany> {
+    const user = await this.repository.findUserByEmail(email.trim().toLowerCase());
+    const ok = await this.hasher.verify(user?.passwordHash, password);
+    if (!user || !ok || user.isDisabled) throw new UnauthorizedException(SIGN_IN_FAILED);
+    return user;
+  }
+
+  /** The JWT strategy's check on every request: the account must still exist and be enabled. */
+  async validateAccessToken(payload: AccessTokenPayload): Promise<AuthUser> {
+    const user = await this.repository.findUserById(payload.sub);
+    if (!user || user.isDisabled) {
+      throw new UnauthorizedException({ message: 'Your session has ended; sign in again.', code: 'SESSION_ENDED' });
+    }
+    return { id: user.id, companyId: user.companyId, role: user.role, email: user.email, name: user.name };
+  }
+
+  async signIn(user: UserWithCompany, meta: ClientMeta): Promise<IssuedSession> {
+    await this.repository.touchLastSignIn(user.id);
+    await this.audit.record({
+      companyId: user.companyId,
+      actorUserId: user.id,
+      action: 'user.sign_in',
+      targetType: 'user',
+      targetId: user.id,
+      details: { ip: meta.ip },
+    });
+    return this.issueSession(user, meta, randomUUID());
+  }
+
+  /**
+   * Rotates a refresh token. A token that was already rotated is evidence of theft (the legitimate
+   * client and an attacker both hold it): the whole family is revoked and both must sign in again.
+   */
+  async refresh(refreshToken: string | undefined, meta: ClientMeta): Promise<IssuedSession> {
+    const invalid = new UnauthorizedException({ message: 'Your session has ended; sign in again.', code: 'SESSION_ENDED' });
+    if (!refreshToken) throw invalid;
+    const session = await this.repository.findRefreshSession(hashToken(refreshToken));
+    if (!session || session.revokedAt || session.expiresAt <= new Date()) throw invalid;
+    const user = await this.repository.findUserById(session.userId);
+    if (!user || user.isDisabled) throw invalid;
+
+    const rotated = await this.repository.transaction(async (tx) => {
+      if (!(await this.repository.claimRefreshSession(session.id, tx))) return undefined;
+      return this.issueSession(user, meta, session.familyId, tx);
+    });
+    if (rotated) return rotated;
+
+    await this.repository.revokeFamily(session.familyId);
+    await this.audit.record({
+      companyId: user.companyId,
+      actorUserId: user.id,
+      action: 'session.reuse_detected',
+      targetType: 'user',
+      targetId: user.id,
+      details: { ip: meta.ip },
+    });
+    this.logger.warn(`refresh token reuse detected for user ${user.id}; family revoked`);
+    throw new UnauthorizedException({
+      message: 'This session was used from somewhere else and has been closed; sign in again.',
+      code: 'REFRESH_TOKEN_REUSED',
+    });
+  }
+
+  async signOut(refreshToken: string | undefined): Promise<void> {
+    if (!refreshToken) return;
+    const session = await this.repository.findRefreshSession(hashToken(refreshToken));
+    if (session) await this.repository.revokeFamily(session.familyId);
+  }
+
+  async me(userId: string): Promise<MeResponse> {
+    const user = await this.repository.findUserById(userId);
+    if (!user) throw new NotFoundException();
+    return toMe(user);
+  }
+
+  async previewInvitation(token: string): Promise<InvitationPreviewResponse> {
+    const invitation = await this.repository.findOpenInvitation(hashToken(token));
+    if (!invitation) throw this.linkNotValid();
+    return { email: invitation.email, name: invitation.name, role: invitation.role, companyName: invitation.companyName };
+  }
+
+  /** Creates the account from a single-use invitation and signs the new user in. */
+  async acceptInvitation(input: AcceptInvitationInput, meta: ClientMeta): Promise<IssuedSession> {
+    const invitation = await this.repository.findOpenInvitation(hashToken(input.token));
+    if (!invitation) throw this.linkNotValid();
+    if (await this.repository.findUserByEmail(invitation.email)) {
+      throw new ConflictException({ message: 'An account with this e-mail already exists.', code: 'EMAIL_TAKEN' });
+    }
+    const passwordHash = await this.hasher.hash(input.password);
+    const userId = await this.repository.transaction(async (tx) => {
+      if (!(await this.repository.claimInvitation(invitation.id, tx))) return undefined;
+      const user = await this.repository.insertUser(
+        { companyId: invitation.companyId, email: invitation.email, name: input.name, role: invitation.role, passwordHash },
+        tx,
+      );
+      await this.audit.record(
+        {
+          companyId: invitation.companyId,
+          actorUserId: user.id,
+          action: 'invitation.accept',
+          targetType: 'invitation',
+          targetId: invitation.id,
+        },
+        tx,
+      );
+      return user.id;
+    });
+    if (!userId) throw this.linkNotValid();
+    const user = await this.repository.findUserById(userId);
+    return this.signIn(user!, meta);
+  }
+
+  /**
+   * Sends a reset link when the address belongs to an enabled account. The answer is the same either
+   * way, so the form cannot be used to learn who has an account.
+   */
+  async requestPasswordReset(email: string): Promise<void> {
+    const user = await this.repository.findUserByEmail(email);
+    if (!user || user.isDisabled) return;
+    const token = newOpaqueToken();
+    const minutes = this.config.get('PASSWORD_RESET_TTL_MINUTES', { infer: true });
+    await this.repository.insertPasswordReset(user.id, hashToken(token), new Date(Date.now() + minutes * 60_000));
+    await this.audit.record({
+      companyId: user.companyId,
+      actorUserId: null,
+      action: 'password_reset.request',
+      targetType: 'user',
+      targetId: user.id,
+    });
+    await this.mail.send({
+      template: 'password-reset',
+      to: user.email,
+      companyId: user.companyId,
+      data: {
+        name: user.name,
+        companyName: user.companyName,
+        link: this.links.to('/reset-password', { token }),
+        minutes,
+      },
+    });
+  }
+
+  /** Sets a new password from a single-use reset link and ends every session of that account. */
+  async resetPassword(input: ResetPasswordInput): Promise<void> {
+    const passwordHash = await this.hasher.hash(input.password);
+    const userId = await this.repository.transaction(async (tx) => {
+      const id = await this.repository.consumePasswordReset(hashToken(input.token), tx);
+      if (!id) return undefined;
+      await this.repository.setPassword(id, passwordHash, tx);
+      await this.repository.revokeAllForUser(id, tx);
+      return id;
+    });
+    if (!userId) throw this.linkNotValid();
+    const user = await this.repository.findUserById(userId);
+    if (user) {
+      await this.audit.record({
+        companyId: user.companyId,
+        actorUserId: user.id,
+        action: 'password_reset.complete',
+        targetType: 'user',
+        targetId: user.id,
+      });
+    }
+  }
+
+  private async issueSession(
+    user: UserWithCompany,
+    meta: ClientMeta,
+    familyId: string,
+    tx?: Tx,
+  ): Promise<IssuedSession> {
+    const expiresInSeconds = this.config.get('ACCESS_TOKEN_TTL_SECONDS', { infer: true });
+    const payload: AccessTokenPayload = { sub: user.id, cid: user.companyId, role: user.role };
+    const accessToken = await this.jwt.signAsync(payload, { expiresIn: expiresInSeconds });
+    const refreshToken = newOpaqueToken();
+    const refreshExpiresAt = new Date(Date.now() + this.config.get('REFRESH_TOKEN_TTL_DAYS', { infer: true }) * 86_400_000);
+    await this.repository.insertRefreshSession(
+      {
+        userId: user.id,
+        familyId,
+        tokenHash: hashToken(refreshToken),
+        expiresAt: refreshExpiresAt,
+        userAgent: meta.userAgent?.slice(0, 300) ?? null,
+        ip: meta.ip ?? null,
+      },
+      tx,
+    );
+    return { body: { accessToken, expiresInSeconds, user: toMe(user) }, refreshToken, refreshExpiresAt };
+  }
+
+  private linkNotValid() {
+    return new NotFoundException({
+      message: 'This link has expired or has already been used. Ask for a new one.',
+      code: 'LINK_NOT_VALID',
+    });
+  }
+}

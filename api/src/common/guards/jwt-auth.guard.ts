@@ -1,0 +1,24 @@
+import { type ExecutionContext, Injectable, UnauthorizedException } from '@nestjs/common';
+import { Reflector } from '@nestjs/core';
+import { AuthGuard } from '@nestjs/passport';
+
+import { IS_PUBLIC_KEY } from '../decorators/public.decorator.js';
+
+/** Global default-deny guard: every route needs a valid access token unless marked @Public(). */
+@Injectable()
+export class JwtAuthGuard extends AuthGuard('jwt') {
+  constructor(private readonly reflector: Reflector) {
+    super();
+  }
+
+  override canActivate(context: ExecutionContext) {
+    const isPublic = this.reflector.getAllAndOverride<boolean>(IS_PUBLIC_KEY, [context.getHandler(), context.getClass()]);
+    return isPublic ? true : super.canActivate(context);
+  }
+
+  override handleRequest<T>(error: unknown, user: T | false): T {
+    if (error) throw error;
+    if (!user) throw new UnauthorizedException({ message: 'Sign in to continue.', code: 'NOT_SIGNED_IN' });
+    return user;
+  }
+}

@@ -1,0 +1,57 @@
+import { Injectable, Logger } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+import nodemailer, { type Transporter } from 'nodemailer';
+
+import type { Env } from '../config/env.schema.js';
+import { LocalSmtpServer } from './local-smtp.server.js';
+import { type MailTemplateName, MailTemplates } from './mail-templates.js';
+
+export interface OutgoingMail {
+  template: MailTemplateName;
+  to: string;
+  cc?: string[];
+  /** Tags the message so the local Outbox shows it only to that company. */
+  companyId: string;
+  data: Record<string, unknown>;
+  attachments?: { filename: string; content: Buffer; contentType: string }[];
+}
+
+/** Sends templated mail over SMTP: to SMTP_URL when set, otherwise to the local capture server. */
+@Injectable()
+export class MailService {
+  private readonly logger = new Logger(MailService.name);
+  private transport: Promise<Transporter> | undefined;
+
+  constructor(
+    private readonly config: ConfigService<Env, true>,
+    private readonly templates: MailTemplates,
+    private readonly localServer: LocalSmtpServer,
+  ) {}
+
+  async send(mail: OutgoingMail): Promise<void> {
+    const rendered = this.templates.render(mail.template, mail.data);
+    const transport = await this.getTransport();
+    const info = await transport.sendMail({
+      from: this.config.get('MAIL_FROM', { infer: true }),
+      to: mail.to,
+      cc: mail.cc,
+      subject: rendered.subject,
+      html: rendered.html,
+      text: rendered.text,
+      headers: { 'X-Loamline-Company': mail.companyId },
+      attachments: mail.attachments,
+    });
+    this.logger.log(`sent "${mail.template}" mail ${info.messageId}`);
+  }
+
+  private getTransport(): Promise<Transporter> {
+    this.transport ??= (async () => {
+      const url = this.config.get('SMTP_URL', { infer: true });
+      if (url) return nodemailer.createTransport(url);
+      if (!this.localServer.isEnabled) throw new Error('SMTP_URL is required in production');
+      const port = await this.localServer.port();
+      return nodemailer.createTransport({ host: '127.0.0.1', port, secure: false, ignoreTLS: true });
+    })();
+    return this.transport;
+  }
+}

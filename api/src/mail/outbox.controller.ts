@@ -1,0 +1,49 @@
+import { Controller, Get, Param, ParseUUIDPipe, Query, Res, StreamableFile } from '@nestjs/common';
+import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
+import type { Response } from 'express';
+
+import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
+import { Roles } from '../common/decorators/roles.decorator.js';
+import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
+import {
+  type OutboxListResponse,
+  type OutboxMessageResponse,
+  type OutboxQuery,
+  OutboxQuerySchema,
+} from '../domain/mail/outbox.schema.js';
+import { OutboxService } from './outbox.service.js';
+
+@ApiTags('outbox')
+@ApiBearerAuth()
+@Roles('admin')
+@Controller('outbox')
+export class OutboxController {
+  constructor(private readonly outboxService: OutboxService) {}
+
+  @Get()
+  @ApiOperation({ summary: "Messages captured by the local mail server for the admin's company (not in production)" })
+  list(
+    @CurrentUser() user: AuthUser,
+    @Query(new ZodValidationPipe(OutboxQuerySchema)) query: OutboxQuery,
+  ): Promise<OutboxListResponse> {
+    return this.outboxService.list(user, query);
+  }
+
+  @Get(':id')
+  get(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<OutboxMessageResponse> {
+    return this.outboxService.get(user, id);
+  }
+
+  @Get(':id/attachments/:attachmentId')
+  async attachment(
+    @CurrentUser() user: AuthUser,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Param('attachmentId', ParseUUIDPipe) attachmentId: string,
+    @Res({ passthrough: true }) res: Response,
+  ): Promise<StreamableFile> {
+    const attachment = await this.outboxService.attachment(user, id, attachmentId);
+    res.setHeader('Content-Type', attachment.contentType);
+    res.setHeader('Content-Disposition', `attachment; filename="${attachment.filename.replace(/["\\\r\n]/g, '_')}"`);
+    return new StreamableFile(attachment.content);
+  }
+}

@@ -1,0 +1,67 @@
+import { Injectable, NotFoundException } from '@nestjs/common';
+
+import type { AuthUser } from '../common/decorators/current-user.decorator.js';
+import type { OutboxListResponse, OutboxMessageResponse, OutboxQuery } from '../domain/mail/outbox.schema.js';
+import { LocalSmtpServer } from './local-smtp.server.js';
+import { MailCaptureRepository } from './mail-capture.repository.js';
+
+/** Reads what the local SMTP stand-in captured, for the company of the signed-in admin. */
+@Injectable()
+export class OutboxService {
+  constructor(
+    private readonly repository: MailCaptureRepository,
+    private readonly localServer: LocalSmtpServer,
+  ) {}
+
+  async list(user: AuthUser, query: OutboxQuery): Promise<OutboxListResponse> {
+    this.requireLocalMail();
+    const { rows, total } = await this.repository.listByCompany(
+      user.companyId,
+      query.pageSize,
+      (query.page - 1) * query.pageSize,
+    );
+    return {
+      items: rows.map((r) => ({
+        id: r.id,
+        from: r.fromAddress,
+        to: r.toAddresses,
+        subject: r.subject,
+        receivedAt: r.receivedAt.toISOString(),
+      })),
+      total,
+      page: query.page,
+      pageSize: query.pageSize,
+    };
+  }
+
+  async get(user: AuthUser, id: string): Promise<OutboxMessageResponse> {
+    this.requireLocalMail();
+    const mail = await this.repository.findInCompany(user.companyId, id);
+    if (!mail) throw new NotFoundException({ message: 'No such message.', code: 'MESSAGE_NOT_FOUND' });
+    return {
+      id: mail.id,
+      from: mail.fromAddress,
+      to: mail.toAddresses,
+      subject: mail.subject,
+      receivedAt: mail.receivedAt.toISOString(),
+      text: mail.text,
+      html: mail.html,
+      headers: mail.headers,
+      attachments: mail.attachments,
+    };
+  }
+
+  async attachment(user: AuthUser, mailId: string, attachmentId: string) {
+    this.requireLocalMail();
+    const attachment = await this.repository.findAttachmentInCompany(user.companyId, mailId, attachmentId);
+    if (!attachment) throw new NotFoundException({ message: 'No such attachment.', code: 'ATTACHMENT_NOT_FOUND' });
+    return attachment;
+  }
+
+  /** With a hosted mail service (or in production) there is nothing local to show. */
+  private requireLocalMail(): void {
+    if (!this.localServer.isEnabled) {
+      throw new NotFoundException({ message: 'The outbox exists only with the local mail server.', code: 'NO_LOCAL_MAIL' });
+    }
+  }
+}

@@ -1,0 +1,39 @@
+import { Body, Controller, Delete, Get, HttpCode, HttpStatus, Param, ParseUUIDPipe, Post } from '@nestjs/common';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+
+import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
+import { Roles } from '../common/decorators/roles.decorator.js';
+import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
+import {
+  type CreateInvitationInput,
+  CreateInvitationSchema,
+  type InvitationResponse,
+} from '../domain/auth/auth.schema.js';
+import { UsersService } from './users.service.js';
+
+@ApiTags('users')
+@ApiBearerAuth()
+@Roles('admin', 'office')
+@Controller('invitations')
+export class InvitationsController {
+  constructor(private readonly usersService: UsersService) {}
+
+  @Get()
+  list(@CurrentUser() user: AuthUser): Promise<InvitationResponse[]> {
+    return this.usersService.listInvitations(user);
+  }
+
+  @Post()
+  create(
+    @CurrentUser() user: AuthUser,
+    @Body(new ZodValidationPipe(CreateInvitationSchema)) body: CreateInvitationInput,
+  ): Promise<InvitationResponse> {
+    return this.usersService.invite(user, body);
+  }
+
+  @Delete(':id')
+  @HttpCode(HttpStatus.NO_CONTENT)
+  async revoke(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<void> {
+    await this.usersService.revokeInvitation(user, id);
+  }
+}

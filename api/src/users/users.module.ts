@@ -1,0 +1,12 @@
+import { Module } from '@nestjs/common';
+
+import { InvitationsController } from './invitations.controller.js';
+import { UsersController } from './users.controller.js';
+import { UsersRepository } from './users.repository.js';
+import { UsersService } from './users.service.js';
+
+@Module({
+  controllers: [UsersController, InvitationsController],
+  providers: [UsersService, UsersRepository],
+})
+export class UsersModule {}

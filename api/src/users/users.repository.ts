@@ -1,0 +1,82 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { and, asc, eq, gt, isNull } from 'drizzle-orm';
+
+import { DB, type Db, type Tx } from '../db/db.module.js';
+import { companies, invitations, type NewUser, type User, users } from '../db/schema/index.js';
+
+/** Every method takes the company id from the signed-in user: nothing here crosses companies. */
+@Injectable()
+export class UsersRepository {
+  constructor(@Inject(DB) private readonly db: Db) {}
+
+  listByCompany(companyId: string): Promise<User[]> {
+    return this.db.select().from(users).where(eq(users.companyId, companyId)).orderBy(asc(users.name));
+  }
+
+  async findInCompany(companyId: string, id: string): Promise<User | undefined> {
+    const [row] = await this.db.select().from(users).where(and(eq(users.companyId, companyId), eq(users.id, id)));
+    return row;
+  }
+
+  async updateInCompany(companyId: string, id: string, patch: Partial<NewUser>, tx: Tx): Promise<User | undefined> {
+    const [row] = await tx
+      .update(users)
+      .set({ ...patch, updatedAt: new Date() })
+      .where(and(eq(users.companyId, companyId), eq(users.id, id)))
+      .returning();
+    return row;
+  }
+
+  async companyName(companyId: string): Promise<string> {
+    const [row] = await this.db.select({ name: companies.name }).from(companies).where(eq(companies.id, companyId));
+    return row?.name ?? '';
+  }
+
+  async emailExists(email: string): Promise<boolean> {
+    const [row] = await this.db.select({ id: users.id }).from(users).where(eq(users.email, email));
+    return row !== undefined;
+  }
+
+  listOpenInvitations(companyId: string) {
+    return this.db
+      .select()
+      .from(invitations)
+      .where(
+        and(
+          eq(invitations.companyId, companyId),
+          isNull(invitations.acceptedAt),
+          isNull(invitations.revokedAt),
+          gt(invitations.expiresAt, new Date()),
+        ),
+      )
+      .orderBy(asc(invitations.createdAt));
+  }
+
+  /** Revokes any open invitation for the address (a new one replaces it). */
+  async revokeOpenInvitationsFor(email: string, tx: Tx): Promise<void> {
+    await tx
+      .update(invitations)
+      .set({ revokedAt: new Date() })
+      .where(and(eq(invitations.email, email), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)));
+  }
+
+  async insertInvitation(invitation: typeof invitations.$inferInsert, tx: Tx) {
+    const [row] = await tx.insert(invitations).values(invitation).returning();
+    return row!;
+  }
+
+  async revokeInvitationInCompany(companyId: string, id: string, tx: Tx) {
+    const [row] = await tx
+      .update(invitations)
+      .set({ revokedAt: new Date() })
+      .where(
+        and(eq(invitations.companyId, companyId), eq(invitations.id, id), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)),
+      )
+      .returning();
+    return row;
+  }
+
+  transaction<T>(work: (tx: Tx) => Promise<T>): Promise<T> {
+    return this.db.transaction(work);
+  }
+}
