@@ -15,6 +15,8 @@ export function configureApp(app: NestExpressApplication, env: Env): void {
   app.setGlobalPrefix('api');
   app.useGlobalFilters(new HttpExceptionFilter());
   app.disable('x-powered-by');
+  // A large job's as-built (hundreds of items and runs) is a few hundred kB of JSON.
+  app.useBodyParser('json', { limit: '5mb' });
   app.use(cookieParser());
   app.use(
     helmet({

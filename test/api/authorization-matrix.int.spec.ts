@@ -4,6 +4,7 @@ import type { NestExpressApplication } from '@nestjs/platform-express';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
+import { DEMO_AS_BUILT } from '../../api/src/domain/as-built/demo-as-built.js';
 import { ROLES, type Role } from '../../api/src/domain/auth/roles.js';
 import { createCompany, createUser, TEST_PASSWORD, type TestCompany, withDb } from '../support/fixtures.js';
 import { bearer, type Session, signIn } from '../support/session.js';
@@ -125,6 +126,10 @@ describe('authorization matrix', () => {
     'DELETE /api/invitations/:id': {
       expect: only(['admin', 'office'], 204, 404),
       call: async () => ({ path: `/api/invitations/${await invitationIn(a.id)}` }),
+    },
+    'POST /api/analysis': {
+      expect: only(['admin', 'office', 'lead', 'tech'], 200, 200),
+      call: () => ({ path: '/api/analysis', body: { asBuilt: DEMO_AS_BUILT } }),
     },
     'GET /api/outbox': { expect: only(['admin'], 200, 200), isList: true, call: () => ({ path: '/api/outbox' }) },
     'GET /api/outbox/:id': {

@@ -1,0 +1,32 @@
+import { Body, Controller, HttpCode, HttpStatus, Post } from '@nestjs/common';
+import { ApiBearerAuth, ApiBody, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
+
+import { Roles } from '../common/decorators/roles.decorator.js';
+import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
+import type { AsBuiltAnalysis } from '../domain/analysis/analyze.js';
+import { type AnalysisRequest, AnalysisRequestSchema } from '../domain/analysis/analysis-request.schema.js';
+import { DEMO_AS_BUILT } from '../domain/as-built/demo-as-built.js';
+import { AnalysisService } from './analysis.service.js';
+
+@ApiTags('analysis')
+@ApiBearerAuth()
+@Roles('admin', 'office', 'lead', 'tech')
+@Controller('analysis')
+export class AnalysisController {
+  constructor(private readonly analysisService: AnalysisService) {}
+
+  @Post()
+  @HttpCode(HttpStatus.OK)
+  @ApiOperation({
+    summary: 'Analyse an as-built: cable resistance and loss, channel loads, depth rules, positions, checks',
+    description:
+      'Stateless: nothing is stored. All values are SI (metres, ohms, watts, °C). Findings carry a severity, a ' +
+      'plain explanation and the path of the field they concern. Checks are engineering aids, not code approval.',
+  })
+  @ApiBody({ schema: { type: 'object' }, examples: { demo: { summary: 'The demo job', value: { asBuilt: DEMO_AS_BUILT } } } })
+  @ApiResponse({ status: 200, description: 'The full analysis (runs, channels, depth, positions, checks, GeoJSON, findings)' })
+  @ApiResponse({ status: 400, description: 'The as-built is malformed; `issues[].path` names each bad field' })
+  analyze(@Body(new ZodValidationPipe(AnalysisRequestSchema)) body: AnalysisRequest): AsBuiltAnalysis {
+    return this.analysisService.analyze(body);
+  }
+}
