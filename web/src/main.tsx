@@ -1,0 +1,24 @@
+import './fonts.css';
+import './global.css';
+
+import { StrictMode } from 'react';
+import { createRoot } from 'react-dom/client';
+
+import { AppProvider } from './app/provider';
+import { AppRouter } from './app/router';
+import { createQueryClient } from './lib/query-client';
+// Parsed at start-up so a bad build-time variable stops the app with a list of what is wrong.
+import './config/env';
+
+const container = document.getElementById('root');
+if (!container) throw new Error('index.html has no #root element');
+
+const queryClient = createQueryClient();
+
+createRoot(container).render(
+  <StrictMode>
+    <AppProvider queryClient={queryClient}>
+      <AppRouter queryClient={queryClient} />
+    </AppProvider>
+  </StrictMode>,
+);

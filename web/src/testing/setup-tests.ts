@@ -1,0 +1,30 @@
+import '@testing-library/jest-dom/vitest';
+
+import { cleanup, configure } from '@testing-library/react';
+import { afterEach, vi } from 'vitest';
+
+// Fluent inserts its styles on first render, which jsdom parses slowly; when every project runs at
+// once the default 1 s wait for findBy* is too tight.
+configure({ asyncUtilTimeout: 3_000 });
+
+afterEach(() => {
+  cleanup();
+  vi.restoreAllMocks();
+});
+
+// jsdom has no matchMedia; the theme follows it, so answer "light" and never change.
+if (typeof window.matchMedia !== 'function') {
+  Object.defineProperty(window, 'matchMedia', {
+    writable: true,
+    value: (query: string): MediaQueryList => ({
+      matches: false,
+      media: query,
+      onchange: null,
+      addEventListener: () => undefined,
+      removeEventListener: () => undefined,
+      addListener: () => undefined,
+      removeListener: () => undefined,
+      dispatchEvent: () => false,
+    }),
+  });
+}
