@@ -1,12 +1,15 @@
 // `npm test`: the same set-up as `npm start` (packages, dependencies, PostgreSQL, builds), then every
 // Vitest project. Each test project gets its own fresh database on the local cluster.
 import { spawnSync } from 'node:child_process';
+import { existsSync, readFileSync, rmSync } from 'node:fs';
+import { join } from 'node:path';
 
 import {
   ensureApiBuilt,
   ensureDebianPackages,
   ensureNpmDependencies,
   ensurePostgres,
+  dataDir,
   ensureWebBuilt,
   root,
   stopPostgres,
@@ -20,8 +23,19 @@ try {
   pg = ensurePostgres();
   ensureApiBuilt();
   ensureWebBuilt();
-  const result = spawnSync('npx', ['vitest', 'run', ...process.argv.slice(2)], { cwd: root, stdio: 'inherit' });
+  const report = join(dataDir, 'vitest-report.json');
+  rmSync(report, { force: true });
+  const result = spawnSync(
+    'npx',
+    ['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${report}`, ...process.argv.slice(2)],
+    { cwd: root, stdio: 'inherit' },
+  );
   status = result.status ?? 1;
+  if (existsSync(report)) {
+    // One plain closing line that any CI can read.
+    const { numPassedTests, numFailedTests, numPendingTests } = JSON.parse(readFileSync(report, 'utf8'));
+    console.log(`${numPassedTests} passed, ${numFailedTests} failed, ${numPendingTests} skipped`);
+  }
 } catch (error) {
   console.error(`[loamline] ${error instanceof Error ? error.message : error}`);
 } finally {
