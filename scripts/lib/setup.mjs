@@ -77,17 +77,21 @@ function hashFiles(paths) {
   return hash.digest('hex');
 }
 
+const manifests = ['package.json', 'package-lock.json', 'api/package.json', 'web/package.json'].map((p) => join(root, p));
+
 /** Installs npm dependencies with `npm ci` when node_modules is absent or older than the lockfile. */
 export function ensureNpmDependencies() {
-  const manifests = ['package.json', 'package-lock.json', 'api/package.json', 'web/package.json'].map((p) =>
-    join(root, p),
-  );
   const stampFile = join(root, 'node_modules', '.loamline-install-stamp');
   const wanted = hashFiles(manifests);
   if (existsSync(stampFile) && readFileSync(stampFile, 'utf8') === wanted) return;
   log('installing npm dependencies (npm ci)');
   run('npm', ['ci', '--no-audit', '--no-fund'], { cwd: root });
   writeFileSync(stampFile, wanted);
+}
+
+/** After `npm install <pkg>` by hand: record that node_modules matches the lockfile again. */
+export function markNpmDependenciesInstalled() {
+  writeFileSync(join(root, 'node_modules', '.loamline-install-stamp'), hashFiles(manifests));
 }
 
 function listFiles(dir) {
