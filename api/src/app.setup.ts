@@ -48,7 +48,11 @@ export function configureApp(app: NestExpressApplication, env: Env): void {
       .addBearerAuth()
       .build(),
   );
-  SwaggerModule.setup('api/docs', app, document, { jsonDocumentUrl: 'api/docs-json' });
+  SwaggerModule.setup('api/docs', app, document, {
+    jsonDocumentUrl: 'api/docs-json',
+    customSiteTitle: 'Loamline API',
+    customCss: '.swagger-ui .topbar { display: none }',
+  });
 
   if (env.WEB_DIST_DIR) serveWebApp(app, env.WEB_DIST_DIR);
 }
