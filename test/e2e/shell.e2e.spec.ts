@@ -23,8 +23,11 @@ describe('the served app shell', () => {
     const failed: string[] = [];
     page.on('requestfailed', (req) => failed.push(req.url()));
     page.on('pageerror', (error) => failed.push(error.message));
+    // Home needs a session, so a signed-out visitor lands on the sign-in page, which carries the name too.
     await page.goto(`${baseUrl}/`);
     await page.getByRole('heading', { name: 'Loamline', exact: true }).waitFor();
+    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+    // System status stays public: it holds no company data and helps when signing in fails.
     await page.goto(`${baseUrl}/status`);
     await page.getByText(/database/i).first().waitFor();
     await page.getByText(/\bup\b/i).first().waitFor();

@@ -1,15 +1,12 @@
-import { FluentProvider, makeStyles } from '@fluentui/react-components';
+import { FluentProvider } from '@fluentui/react-components';
 import { QueryClientProvider, type QueryClient } from '@tanstack/react-query';
 import type { ReactNode } from 'react';
 
 import { AppErrorBoundary } from '../components/errors/app-error-boundary';
+import { AppToaster } from '../components/notify';
 import { usePrefersDarkScheme } from '../lib/use-prefers-dark-scheme';
 
 import { darkTheme, lightTheme } from './theme';
-
-const useStyles = makeStyles({
-  root: { minHeight: '100dvh' },
-});
 
 type AppProviderProps = {
   queryClient: QueryClient;
@@ -17,12 +14,14 @@ type AppProviderProps = {
 };
 
 export function AppProvider({ queryClient, children }: AppProviderProps) {
-  const styles = useStyles();
   const prefersDark = usePrefersDarkScheme();
   return (
-    <FluentProvider theme={prefersDark ? darkTheme : lightTheme} className={styles.root}>
+    <FluentProvider theme={prefersDark ? darkTheme : lightTheme}>
       <AppErrorBoundary>
-        <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>
+        <QueryClientProvider client={queryClient}>
+          {children}
+          <AppToaster />
+        </QueryClientProvider>
       </AppErrorBoundary>
     </FluentProvider>
   );

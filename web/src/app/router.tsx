@@ -25,13 +25,32 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
   return [
     {
       path: paths.home.path,
-      lazy: () => import('./routes/app/root').then(load),
+      lazy: () => import('./routes/root').then(load),
       // Shown only for the moment the first route modules load; blank rather than a flashing spinner.
       HydrateFallback: () => null,
       children: [
-        { index: true, lazy: () => import('./routes/app/home').then(load) },
-        { path: paths.status.path, lazy: () => import('./routes/app/status').then(load) },
-        { path: '*', lazy: () => import('./routes/not-found').then(load) },
+        { path: paths.signIn.path, lazy: () => import('./routes/auth/sign-in').then(load) },
+        { path: paths.acceptInvitation.path, lazy: () => import('./routes/auth/accept-invitation').then(load) },
+        { path: paths.forgotPassword.path, lazy: () => import('./routes/auth/forgot-password').then(load) },
+        { path: paths.resetPassword.path, lazy: () => import('./routes/auth/reset-password').then(load) },
+        {
+          lazy: () => import('./routes/app/root').then(load),
+          children: [
+            // Public on purpose: it holds no company data, and "is the server up?" is worth asking
+            // when signing in does not work.
+            { path: paths.status.path, lazy: () => import('./routes/app/status').then(load) },
+            {
+              lazy: () => import('./routes/app/protected').then(load),
+              children: [
+                { index: true, lazy: () => import('./routes/app/home').then(load) },
+                { path: paths.users.path, lazy: () => import('./routes/app/users').then(load) },
+                { path: paths.outbox.path, lazy: () => import('./routes/app/outbox').then(load) },
+                { path: paths.outboxMessage.path, lazy: () => import('./routes/app/outbox-message').then(load) },
+              ],
+            },
+            { path: '*', lazy: () => import('./routes/not-found').then(load) },
+          ],
+        },
       ],
     },
   ];

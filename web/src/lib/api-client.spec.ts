@@ -1,11 +1,16 @@
-import { describe, expect, it, vi } from 'vitest';
+import { beforeEach, describe, expect, it, vi } from 'vitest';
 import { z } from 'zod';
 
+import { buildSessionResponse, buildSessionUser } from '../testing/data';
+import { apiErrorResponse, mockApi } from '../testing/mock-api';
 import { jsonResponse } from '../testing/render-app';
 
-import { ApiError, apiRequest } from './api-client';
+import { ApiError, apiRequest, refreshSession } from './api-client';
+import { getAccessToken, getSessionState, resetSession, setSession } from './session';
 
 describe('apiRequest', () => {
+  beforeEach(() => resetSession());
+
   it('should turn a 400 body into an ApiError with its issues', async () => {
     vi.spyOn(globalThis, 'fetch').mockResolvedValue(
       jsonResponse(
@@ -82,5 +87,86 @@ describe('apiRequest', () => {
       status: 200,
       code: 'UNEXPECTED_RESPONSE',
     });
+  });
+});
+
+describe('apiRequest with a session', () => {
+  const user = buildSessionUser('office');
+  const expired = () => apiErrorResponse(401, { message: 'Sign in again.', code: 'TOKEN_EXPIRED' });
+
+  beforeEach(() => {
+    setSession(buildSessionResponse(user, 'old-token'));
+  });
+
+  it('should send the access token as a Bearer header', async () => {
+    const fetchMock = mockApi({ 'GET /api/things': () => jsonResponse([]) });
+
+    await apiRequest('/api/things');
+
+    const [, init] = fetchMock.mock.calls[0] ?? [];
+    expect(new Headers(init?.headers).get('Authorization')).toBe('Bearer old-token');
+  });
+
+  it('should refresh once on a 401 and retry with the new token', async () => {
+    const seen: (string | null)[] = [];
+    const fetchMock = mockApi({
+      'GET /api/things': ({ headers }) => {
+        seen.push(headers.get('Authorization'));
+        return headers.get('Authorization') === 'Bearer new-token' ? jsonResponse({ id: 7 }) : expired();
+      },
+      'POST /api/auth/refresh': () => jsonResponse(buildSessionResponse(user, 'new-token')),
+    });
+
+    const result = await apiRequest('/api/things', z.object({ id: z.number() }));
+
+    expect(result).toEqual({ id: 7 });
+    expect(seen).toEqual(['Bearer old-token', 'Bearer new-token']);
+    expect(fetchMock.mock.calls.filter(([url]) => url === '/api/auth/refresh')).toHaveLength(1);
+    expect(getAccessToken()).toBe('new-token');
+  });
+
+  it('should share one refresh between requests that meet a 401 at the same time', async () => {
+    let refreshes = 0;
+    mockApi({
+      'GET /api/a': ({ headers }) => (headers.get('Authorization') === 'Bearer new-token' ? jsonResponse('a') : expired()),
+      'GET /api/b': ({ headers }) => (headers.get('Authorization') === 'Bearer new-token' ? jsonResponse('b') : expired()),
+      'POST /api/auth/refresh': async () => {
+        refreshes += 1;
+        await new Promise((resolve) => setTimeout(resolve, 10));
+        return jsonResponse(buildSessionResponse(user, 'new-token'));
+      },
+    });
+
+    const results = await Promise.all([apiRequest('/api/a'), apiRequest('/api/b'), refreshSession()]);
+
+    expect(results.slice(0, 2)).toEqual(['a', 'b']);
+    expect(refreshes).toBe(1);
+  });
+
+  it('should clear the session as expired and throw the 401 when the refresh is refused', async () => {
+    const fetchMock = mockApi({
+      'GET /api/things': expired,
+      'POST /api/auth/refresh': () => apiErrorResponse(401, { message: 'Session ended.', code: 'SESSION_ENDED' }),
+    });
+
+    await expect(apiRequest('/api/things')).rejects.toMatchObject({ status: 401 });
+
+    expect(getSessionState()).toEqual({ status: 'signed-out', reason: 'expired' });
+    // No second try after the refresh failed.
+    expect(fetchMock.mock.calls.filter(([url]) => url === '/api/things')).toHaveLength(1);
+  });
+
+  it('should not refresh for requests that opt out (sign-in itself)', async () => {
+    const fetchMock = mockApi({
+      'POST /api/auth/sign-in': () => apiErrorResponse(401, { message: 'No.', code: 'SIGN_IN_FAILED' }),
+    });
+
+    await expect(apiRequest('/api/auth/sign-in', undefined, { method: 'POST', auth: false })).rejects.toMatchObject({
+      code: 'SIGN_IN_FAILED',
+    });
+
+    expect(fetchMock).toHaveBeenCalledTimes(1);
+    expect(new Headers(fetchMock.mock.calls[0]?.[1]?.headers).get('Authorization')).toBeNull();
+    expect(getSessionState().status).toBe('signed-in');
   });
 });

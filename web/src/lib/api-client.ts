@@ -1,4 +1,7 @@
 import { z } from 'zod';
+import { SessionResponseSchema } from '@domain/auth/auth.schema';
+
+import { clearSession, getAccessToken, getSessionState, setSession, type Session } from './session';
 
 /** One problem with a request field, as the API's validation pipe reports it. */
 export type ApiIssue = { path: string; message: string };
@@ -52,6 +55,11 @@ export type ApiRequestOptions = Omit<RequestInit, 'body'> & {
   acceptStatuses?: readonly number[];
   /** Give up after this long; the request then fails with status 0. */
   timeoutMs?: number;
+  /**
+   * Send the access token, and on a 401 refresh the session once and retry (default). `false` for the
+   * sign-in endpoints themselves, which must never trigger a refresh.
+   */
+  auth?: boolean;
 };
 
 const DEFAULT_TIMEOUT_MS = 15_000;
@@ -59,6 +67,9 @@ const DEFAULT_TIMEOUT_MS = 15_000;
 /**
  * Calls our own API (`/api/...`). Returns the parsed JSON body (`undefined` for an empty body),
  * validated by `schema` when one is given; throws `ApiError` otherwise.
+ *
+ * A 401 ends in an `ApiError` with status 401 only after a refresh has failed too; the session is then
+ * cleared, and the signed-in area (not this client) takes the user to the sign-in page.
  */
 export async function apiRequest<T>(
   path: string,
@@ -71,10 +82,94 @@ export async function apiRequest<T>(
   schema?: z.ZodType<T>,
   options: ApiRequestOptions = {},
 ): Promise<T | unknown> {
-  const { body, acceptStatuses = [], timeoutMs = DEFAULT_TIMEOUT_MS, headers, signal, ...init } = options;
+  const { acceptStatuses = [] } = options;
+  const response = await authorizedFetch(path, options);
+  const payload = await readBody(response);
+
+  if (!response.ok && !acceptStatuses.includes(response.status)) {
+    throw toApiError(response, payload);
+  }
+  if (!schema) return payload;
+
+  const parsed = schema.safeParse(payload);
+  if (!parsed.success) {
+    throw new ApiError({
+      status: response.status,
+      code: 'UNEXPECTED_RESPONSE',
+      message: 'The server sent an answer this app does not understand.',
+    });
+  }
+  return parsed.data;
+}
+
+/** Like `apiRequest`, for endpoints that answer with a file (attachments): returns the bytes. */
+export async function apiBlob(path: string, options: ApiRequestOptions = {}): Promise<Blob> {
+  const response = await authorizedFetch(path, options);
+  if (!response.ok) throw toApiError(response, await readBody(response));
+  return response.blob();
+}
+
+let refreshInFlight: Promise<Session | null> | undefined;
+
+/**
+ * Trades the refresh cookie for a new access token. Resolves to the new session, or `null` when the
+ * server refuses (no cookie, session ended); throws `ApiError` only when the server cannot be reached.
+ *
+ * At most one refresh is in flight: the server treats a second use of the same cookie as theft and
+ * ends the whole session, so every caller shares the same promise.
+ */
+export function refreshSession(): Promise<Session | null> {
+  refreshInFlight ??= requestRefresh().finally(() => {
+    refreshInFlight = undefined;
+  });
+  return refreshInFlight;
+}
+
+async function requestRefresh(): Promise<Session | null> {
+  const wasSignedIn = getSessionState().status === 'signed-in';
+  try {
+    const body = await apiRequest('/api/auth/refresh', SessionResponseSchema, { method: 'POST', auth: false });
+    return setSession(body);
+  } catch (error) {
+    if (isApiError(error) && error.status === 401) {
+      clearSession(wasSignedIn ? 'expired' : 'signed-out');
+      return null;
+    }
+    throw error;
+  }
+}
+
+async function authorizedFetch(path: string, options: ApiRequestOptions): Promise<Response> {
+  const { auth = true } = options;
+  if (!auth) return send(path, options, undefined);
+
+  const sentToken = getAccessToken();
+  const response = await send(path, options, sentToken);
+  if (response.status !== 401 || getSessionState().status === 'signed-out') return response;
+
+  // Another request may have refreshed while this one was on its way; use that token rather than
+  // spending the refresh cookie again.
+  const currentToken = getAccessToken();
+  if (currentToken && currentToken !== sentToken) return send(path, options, currentToken);
+
+  const session = await refreshSession();
+  return session ? send(path, options, session.accessToken) : response;
+}
+
+async function send(path: string, options: ApiRequestOptions, accessToken: string | undefined): Promise<Response> {
+  const {
+    body,
+    acceptStatuses: _acceptStatuses,
+    auth: _auth,
+    timeoutMs = DEFAULT_TIMEOUT_MS,
+    headers,
+    signal,
+    ...init
+  } = options;
 
   const requestHeaders = new Headers(headers);
-  requestHeaders.set('Accept', 'application/json');
+  if (!requestHeaders.has('Accept')) requestHeaders.set('Accept', 'application/json');
+  if (accessToken) requestHeaders.set('Authorization', `Bearer ${accessToken}`);
   let requestBody: BodyInit | undefined;
   if (body === undefined || isNativeBody(body)) {
     requestBody = body;
@@ -88,9 +183,8 @@ export async function apiRequest<T>(
   const onCallerAbort = () => timeout.abort();
   signal?.addEventListener('abort', onCallerAbort, { once: true });
 
-  let response: Response;
   try {
-    response = await fetch(path, {
+    return await fetch(path, {
       ...init,
       headers: requestHeaders,
       body: requestBody,
@@ -109,23 +203,6 @@ export async function apiRequest<T>(
     clearTimeout(timer);
     signal?.removeEventListener('abort', onCallerAbort);
   }
-
-  const payload = await readBody(response);
-
-  if (!response.ok && !acceptStatuses.includes(response.status)) {
-    throw toApiError(response, payload);
-  }
-  if (!schema) return payload;
-
-  const parsed = schema.safeParse(payload);
-  if (!parsed.success) {
-    throw new ApiError({
-      status: response.status,
-      code: 'UNEXPECTED_RESPONSE',
-      message: 'The server sent an answer this app does not understand.',
-    });
-  }
-  return parsed.data;
 }
 
 function isNativeBody(body: unknown): body is BodyInit {

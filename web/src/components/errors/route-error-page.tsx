@@ -31,6 +31,9 @@ type ErrorDescription = { title: string; text: string; status?: number };
 
 function describeError(error: unknown): ErrorDescription {
   if (isApiError(error)) {
+    if (error.status === 403) {
+      return { title: 'No access to this page', text: error.message, status: error.status };
+    }
     if (error.status === 0) {
       return { title: 'Cannot reach the server', text: `${error.message} Check your connection and try again.` };
     }
@@ -41,6 +44,9 @@ function describeError(error: unknown): ErrorDescription {
     };
   }
   if (isRouteErrorResponse(error)) {
+    if (error.status === 403) {
+      return { title: 'No access to this page', text: error.statusText || 'Your role does not give access to this page.' };
+    }
     return {
       title: error.status === 404 ? 'Page not found' : 'This page could not be loaded',
       text: error.statusText || 'Something went wrong while opening this page.',

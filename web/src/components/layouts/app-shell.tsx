@@ -15,6 +15,7 @@ import { paths } from '../../config/paths';
 import { LogoMark } from '../logo';
 
 import { MainNav } from './main-nav';
+import type { NavItem } from './nav-items';
 
 // Below this width the side navigation folds into a menu drawer.
 const WIDE = '@media (min-width: 768px)';
@@ -53,6 +54,7 @@ const useStyles = makeStyles({
     borderBottom: `${tokens.strokeWidthThin} solid ${tokens.colorNeutralStroke2}`,
     [WIDE]: { paddingInline: tokens.spacingHorizontalXL },
   },
+  headerEnd: { marginInlineStart: 'auto', display: 'flex', alignItems: 'center' },
   menuButton: {
     minWidth: '48px',
     minHeight: '48px',
@@ -108,13 +110,18 @@ const useStyles = makeStyles({
   drawerClose: { minWidth: '48px', minHeight: '48px' },
 });
 
-type AppShellProps = { children: ReactNode };
+type AppShellProps = {
+  navItems: readonly NavItem[];
+  /** Shown at the end of the header: the user menu, or a way to sign in. */
+  headerEnd?: ReactNode;
+  children: ReactNode;
+};
 
 /**
  * The frame around every signed-in page: a header with the product name, the main navigation (a side
  * column on wide screens, a menu drawer on phones) and the page itself.
  */
-export function AppShell({ children }: AppShellProps) {
+export function AppShell({ navItems, headerEnd, children }: AppShellProps) {
   const styles = useStyles();
   const [isMenuOpen, setIsMenuOpen] = useState(false);
   const closeMenu = () => setIsMenuOpen(false);
@@ -139,11 +146,12 @@ export function AppShell({ children }: AppShellProps) {
             Loamline
           </Link>
         </h1>
+        {headerEnd && <div className={styles.headerEnd}>{headerEnd}</div>}
       </header>
 
       <div className={styles.body}>
         <nav aria-label="Main" className={styles.sideNav}>
-          <MainNav />
+          <MainNav items={navItems} />
         </nav>
         <main id="main-content" tabIndex={-1} className={styles.main}>
           {children}
@@ -174,7 +182,7 @@ export function AppShell({ children }: AppShellProps) {
         </DrawerHeader>
         <DrawerBody className={styles.drawerBody}>
           <nav aria-label="Main">
-            <MainNav onNavigate={closeMenu} />
+            <MainNav items={navItems} onNavigate={closeMenu} />
           </nav>
         </DrawerBody>
       </OverlayDrawer>

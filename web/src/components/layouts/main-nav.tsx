@@ -1,7 +1,7 @@
 import { makeStyles, mergeClasses, tokens } from '@fluentui/react-components';
 import { NavLink } from 'react-router';
 
-import { navItems } from './nav-items';
+import type { NavItem } from './nav-items';
 
 const useStyles = makeStyles({
   list: {
@@ -58,15 +58,16 @@ const useStyles = makeStyles({
 });
 
 type MainNavProps = {
+  items: readonly NavItem[];
   /** Called after a link is followed, e.g. to close the phone menu. */
   onNavigate?: () => void;
 };
 
-export function MainNav({ onNavigate }: MainNavProps) {
+export function MainNav({ items, onNavigate }: MainNavProps) {
   const styles = useStyles();
   return (
     <ul className={styles.list}>
-      {navItems.map(({ label, href, icon: Icon, end }) => (
+      {items.map(({ label, href, icon: Icon, end }) => (
         <li key={href}>
           <NavLink
             to={href}

@@ -1,5 +1,6 @@
 import type { FluentIcon } from '@fluentui/react-icons';
-import { HeartPulse24Regular, Home24Regular } from '@fluentui/react-icons';
+import { HeartPulse24Regular, Home24Regular, MailInbox24Regular, People24Regular } from '@fluentui/react-icons';
+import type { Role } from '@domain/auth/roles';
 
 import { paths } from '../../config/paths';
 
@@ -11,8 +12,23 @@ export type NavItem = {
   end?: boolean;
 };
 
-/** The main navigation, in order. Pages are added here as they are built. */
-export const navItems: readonly NavItem[] = [
-  { label: 'Home', href: paths.home.getHref(), icon: Home24Regular, end: true },
-  { label: 'System status', href: paths.status.getHref(), icon: HeartPulse24Regular },
-];
+type NavContext = {
+  /** The signed-in person's role; `undefined` when nobody is signed in. */
+  role: Role | undefined;
+  /** The server captures mail locally, so the Outbox page has something to show. */
+  hasOutbox?: boolean;
+};
+
+/** The main navigation, in order, for who is looking. Pages are added here as they are built. */
+export function buildNavItems({ role, hasOutbox = false }: NavContext): NavItem[] {
+  if (!role) return [{ label: 'System status', href: paths.status.getHref(), icon: HeartPulse24Regular }];
+  const items: NavItem[] = [{ label: 'Home', href: paths.home.getHref(), icon: Home24Regular, end: true }];
+  if (role === 'admin' || role === 'office') {
+    items.push({ label: 'Users', href: paths.users.getHref(), icon: People24Regular });
+  }
+  if (role === 'admin' && hasOutbox) {
+    items.push({ label: 'Outbox', href: paths.outbox.getHref(), icon: MailInbox24Regular });
+  }
+  items.push({ label: 'System status', href: paths.status.getHref(), icon: HeartPulse24Regular });
+  return items;
+}

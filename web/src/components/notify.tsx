@@ -1,0 +1,39 @@
+import {
+  Toast,
+  ToastBody,
+  Toaster,
+  ToastTitle,
+  useToastController,
+  type ToastIntent,
+} from '@fluentui/react-components';
+import { useCallback, useMemo } from 'react';
+
+const TOASTER_ID = 'loamline-toaster';
+
+/** Where toasts appear; rendered once, by the app provider. */
+export function AppToaster() {
+  return <Toaster toasterId={TOASTER_ID} position="bottom" pauseOnHover pauseOnWindowBlur />;
+}
+
+/** Short confirmations and failures of actions (saved, invited, could not save). */
+export function useNotify() {
+  const { dispatchToast } = useToastController(TOASTER_ID);
+  const show = useCallback(
+    (intent: ToastIntent, title: string, body?: string) =>
+      dispatchToast(
+        <Toast>
+          <ToastTitle>{title}</ToastTitle>
+          {body && <ToastBody>{body}</ToastBody>}
+        </Toast>,
+        { intent, timeout: intent === 'error' ? 8_000 : 4_000 },
+      ),
+    [dispatchToast],
+  );
+  return useMemo(
+    () => ({
+      success: (title: string, body?: string) => show('success', title, body),
+      error: (title: string, body?: string) => show('error', title, body),
+    }),
+    [show],
+  );
+}

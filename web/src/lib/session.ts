@@ -1,0 +1,80 @@
+import { useSyncExternalStore } from 'react';
+import type { MeResponse, SessionResponse } from '@domain/auth/auth.schema';
+
+export type SessionUser = MeResponse;
+
+/** A signed-in session. The access token lives in memory only; the refresh token is an httpOnly cookie. */
+export type Session = {
+  accessToken: string;
+  /** Epoch milliseconds at which the server stops accepting `accessToken`. */
+  expiresAt: number;
+  user: SessionUser;
+};
+
+/**
+ * - `unknown`: the app has just started and has not yet asked the server whether the refresh cookie
+ *   still holds a session.
+ * - `signed-out`: no session; `reason` says whether one just ended under the user (so the sign-in page
+ *   can explain why they are there).
+ */
+export type SessionState =
+  | { status: 'unknown' }
+  | { status: 'signed-in'; session: Session }
+  | { status: 'signed-out'; reason: 'signed-out' | 'expired' };
+
+let state: SessionState = { status: 'unknown' };
+const listeners = new Set<() => void>();
+
+function publish(next: SessionState): void {
+  state = next;
+  for (const listener of listeners) listener();
+}
+
+export function getSessionState(): SessionState {
+  return state;
+}
+
+export function getAccessToken(): string | undefined {
+  return state.status === 'signed-in' ? state.session.accessToken : undefined;
+}
+
+export function getSessionUser(): SessionUser | undefined {
+  return state.status === 'signed-in' ? state.session.user : undefined;
+}
+
+/** Stores a session the server has just issued (sign-in, refresh, accepted invitation). */
+export function setSession(response: SessionResponse, now = Date.now()): Session {
+  const session: Session = {
+    accessToken: response.accessToken,
+    expiresAt: now + response.expiresInSeconds * 1000,
+    user: response.user,
+  };
+  publish({ status: 'signed-in', session });
+  return session;
+}
+
+/** Forgets the session. `expired` when it ended without the user asking (refresh refused). */
+export function clearSession(reason: 'signed-out' | 'expired' = 'signed-out'): void {
+  publish({ status: 'signed-out', reason });
+}
+
+/** Back to "not yet asked the server": used by tests between renders. */
+export function resetSession(): void {
+  publish({ status: 'unknown' });
+}
+
+export function subscribeSession(listener: () => void): () => void {
+  listeners.add(listener);
+  return () => listeners.delete(listener);
+}
+
+/** The current session state; re-renders when someone signs in, out, or the session is refreshed. */
+export function useSessionState(): SessionState {
+  return useSyncExternalStore(subscribeSession, getSessionState, getSessionState);
+}
+
+/** The signed-in person, or `undefined`. */
+export function useSessionUser(): SessionUser | undefined {
+  const current = useSessionState();
+  return current.status === 'signed-in' ? current.session.user : undefined;
+}
