@@ -1,0 +1,62 @@
+import type { PlanPoint } from '../domain/as-built/common.schema.js';
+import type { UnitSystem } from './drawing-units.js';
+import type { Orientation, PaperSize } from './paper.js';
+import type { SvgCanvasFactory } from './svg-canvas.js';
+
+/** Text for the title block. Every field is the caller's, already formatted (e.g. the issue date). */
+export interface TitleBlockInfo {
+  /** Job or site title, e.g. "Rear-yard audio, 14 Larkspur Way". */
+  title?: string;
+  /** Second line, e.g. the customer or the address. */
+  subtitle?: string;
+  revision?: string;
+  /** Issue date as it should print (the drawing never reads the clock, so output stays deterministic). */
+  date?: string;
+  preparedBy?: string;
+}
+
+export interface PixelPoint {
+  x: number;
+  y: number;
+}
+
+/**
+ * A site-plan image drawn underneath the plan. The calibration is two points picked on the image (in
+ * image pixels, x right, y down) and the real distance between them; `planA` is where the first picked
+ * point lies in plan metres (default the plan origin). The image is taken to be drawn with plan +y up.
+ */
+export interface PlanImage {
+  /** A `data:` URL; anything else is refused so a printed packet never fetches from the network. */
+  href: string;
+  widthPx: number;
+  heightPx: number;
+  calibration: { imageA: PixelPoint; imageB: PixelPoint; distanceM: number; planA?: PlanPoint };
+}
+
+/** Which layers of the site plan are drawn. All default to on. */
+export interface SitePlanLayers {
+  /** Reference points and the ties taped from them (as dimension lines). */
+  referencePoints: boolean;
+  /** Item, run, reference-point and tie labels. */
+  labels: boolean;
+  /** Minimum depth in run labels and shallow-reading markers. */
+  depths: boolean;
+  /** Spare and abandoned runs. */
+  spareAndAbandoned: boolean;
+}
+
+export interface DrawingBaseOptions {
+  createCanvas: SvgCanvasFactory;
+  /** Label units; default: the as-built's display preference, else metric. */
+  units?: UnitSystem;
+}
+
+export interface SitePlanOptions extends DrawingBaseOptions {
+  paper?: PaperSize;
+  orientation?: Orientation;
+  layers?: Partial<SitePlanLayers>;
+  titleBlock?: TitleBlockInfo;
+  planImage?: PlanImage;
+}
+
+export const DEFAULT_LAYERS: SitePlanLayers = { referencePoints: true, labels: true, depths: true, spareAndAbandoned: true };

@@ -1,0 +1,67 @@
+import { metresToFeet, metresToInches, toFeetAndInches } from '../domain/as-built/units.js';
+
+/** Units for the labels on a drawing. Geometry is always computed in SI. */
+export type UnitSystem = 'metric' | 'imperial';
+
+/** Formats a number with at most `maxDecimals` decimals, trailing zeros trimmed, never "-0". */
+export function formatNumber(value: number, maxDecimals: number): string {
+  const fixed = Number(value.toFixed(maxDecimals));
+  return String(Object.is(fixed, -0) ? 0 : fixed);
+}
+
+/**
+ * A plan length (tie, run length, station): metric to the centimetre, e.g. `8.01 m`; imperial in
+ * feet and inches to the nearest inch in drafting form, e.g. `26'-3"`.
+ */
+export function formatLength(m: number, units: UnitSystem): string {
+  if (units === 'metric') return `${formatNumber(m, 2)} m`;
+  const { feet, inches } = toFeetAndInches(m);
+  const sign = m < 0 && (feet !== 0 || inches !== 0) ? '-' : '';
+  return `${sign}${Math.abs(feet)}'-${Math.abs(inches)}"`;
+}
+
+const QUARTERS = ['', ' 1/4', ' 1/2', ' 3/4'] as const;
+
+/**
+ * A burial depth (cover): metric in whole centimetres, e.g. `11 cm`; imperial in inches to the nearest
+ * quarter inch, e.g. `4 1/4 in` (0.15 m reads `6 in`, the usual 6-inch rule).
+ */
+export function formatDepth(m: number, units: UnitSystem): string {
+  if (units === 'metric') return `${formatNumber(m * 100, 0)} cm`;
+  const quarters = Math.round(metresToInches(m) * 4);
+  const whole = Math.floor(quarters / 4);
+  const rest = quarters - whole * 4;
+  if (whole === 0 && rest > 0) return `${QUARTERS[rest]!.trim()} in`;
+  return `${whole}${QUARTERS[rest]!} in`;
+}
+
+/** Value of a length in the unit an axis or scale bar counts in: metres or feet. */
+export function toAxisLengthUnit(m: number, units: UnitSystem): number {
+  return units === 'metric' ? m : metresToFeet(m);
+}
+
+/** Value of a depth in the unit a depth axis counts in: centimetres or inches. */
+export function toAxisDepthUnit(m: number, units: UnitSystem): number {
+  return units === 'metric' ? m * 100 : metresToInches(m);
+}
+
+export function lengthUnitSymbol(units: UnitSystem): string {
+  return units === 'metric' ? 'm' : 'ft';
+}
+
+export function depthUnitSymbol(units: UnitSystem): string {
+  return units === 'metric' ? 'cm' : 'in';
+}
+
+/**
+ * A "nice" step (1, 2, 2.5 or 5 × 10ⁿ) so that `span / step` is close to `targetCount` ticks. Used for
+ * axes and scale bars.
+ */
+export function niceStep(span: number, targetCount: number): number {
+  if (!(span > 0) || !(targetCount > 0)) return 1;
+  const raw = span / targetCount;
+  const power = 10 ** Math.floor(Math.log10(raw));
+  const fraction = raw / power;
+  const nice = fraction <= 1 ? 1 : fraction <= 2 ? 2 : fraction <= 2.5 ? 2.5 : fraction <= 5 ? 5 : 10;
+  return nice * power;
+}

@@ -1,0 +1,372 @@
+import fc from 'fast-check';
+import { beforeAll, describe, expect, it } from 'vitest';
+
+import { analyzeAsBuilt } from '../domain/analysis/analyze.js';
+import { AsBuiltSchema, type AsBuilt } from '../domain/as-built/as-built.schema.js';
+import { DEMO_AS_BUILT } from '../domain/as-built/demo-as-built.js';
+import type { Item } from '../domain/as-built/item.schema.js';
+import type { Run } from '../domain/as-built/run.schema.js';
+import { drawDepthProfile } from './depth-profile.js';
+import { createNodeSvgCanvas } from './node-svg-window.js';
+import { chooseScale, formatScale, IMPERIAL_SCALES, ptPerPlanMetre } from './paper.js';
+import { layoutSitePlan } from './site-plan-layout.js';
+import { drawSitePlan, SITE_PLAN_NOTE, sitePlanLegendKeys } from './site-plan.js';
+import { boxContains, boxesIntersect } from './text-box.js';
+import { drawWiringSchematic } from './wiring-schematic.js';
+
+interface XmlDocument {
+  documentElement: XmlElement;
+  getElementsByTagName(name: string): { length: number };
+  querySelectorAll(selector: string): ArrayLike<XmlElement>;
+  querySelector(selector: string): XmlElement | null;
+}
+interface XmlElement {
+  getAttribute(name: string): string | null;
+  textContent: string | null;
+  querySelectorAll(selector: string): ArrayLike<XmlElement>;
+  tagName: string;
+}
+
+let parseXml: (text: string) => XmlDocument;
+
+beforeAll(async () => {
+  // jsdom (a root dev dependency) has a strict XML DOMParser; svgdom 0.1.25 has none. Typed by hand:
+  // jsdom ships no types and none are installed.
+  const moduleName: string = 'jsdom';
+  const { JSDOM } = (await import(moduleName)) as { JSDOM: new (html: string) => { window: { DOMParser: new () => { parseFromString(t: string, type: string): XmlDocument } } } };
+  const parser = new new JSDOM('').window.DOMParser();
+  parseXml = (text) => parser.parseFromString(text, 'image/svg+xml');
+});
+
+function parseSvg(svg: string): XmlDocument {
+  const doc = parseXml(svg);
+  expect(doc.getElementsByTagName('parsererror').length, 'SVG is not well-formed XML').toBe(0);
+  expect(doc.documentElement.tagName).toBe('svg');
+  return doc;
+}
+
+function all(doc: XmlDocument | XmlElement, selector: string): XmlElement[] {
+  return Array.from(doc.querySelectorAll(selector));
+}
+
+function dataIds(doc: XmlDocument): Set<string> {
+  return new Set(all(doc, '[data-id]').map((e) => e.getAttribute('data-id')!));
+}
+
+const demo = DEMO_AS_BUILT;
+const demoAnalysis = analyzeAsBuilt(demo);
+const opts = { createCanvas: createNodeSvgCanvas };
+
+function withRuns(base: AsBuilt, change: (run: Run) => Run): AsBuilt {
+  return { ...base, runs: base.runs.map(change) };
+}
+
+describe('drawSitePlan', () => {
+  const svg = drawSitePlan(demo, demoAnalysis, { ...opts, titleBlock: { title: 'Demo <job> & "yard"', revision: '2', date: '2026-05-14' } });
+  const model = layoutSitePlan(demo, demoAnalysis, {});
+
+  it('should be well-formed SVG sized in real paper units with a viewBox', () => {
+    const doc = parseSvg(svg);
+    const root = doc.documentElement;
+    expect(root.getAttribute('width')).toBe('7.5in');
+    expect(root.getAttribute('height')).toBe('10in');
+    expect(root.getAttribute('viewBox')).toBe('0 0 540 720');
+  });
+
+  it('should fit A4 landscape in millimetres', () => {
+    const root = parseSvg(drawSitePlan(demo, demoAnalysis, { ...opts, paper: 'a4', orientation: 'landscape' })).documentElement;
+    expect(root.getAttribute('width')).toBe('271.6mm');
+    expect(root.getAttribute('height')).toBe('184.6mm');
+  });
+
+  it('should contain every item and run id and every item label', () => {
+    const doc = parseSvg(svg);
+    const ids = dataIds(doc);
+    for (const item of demo.items) expect(ids, item.id).toContain(item.id);
+    for (const run of demo.runs) expect(ids, run.id).toContain(run.id);
+    const labelTexts = all(doc, '[data-label-kind="item"]').map((g) => g.textContent);
+    for (const item of demo.items) expect(labelTexts).toContain(item.label);
+  });
+
+  it('should escape user text', () => {
+    expect(svg).toContain('Demo &lt;job&gt; &amp;');
+    expect(parseSvg(svg).querySelector('[data-role="title"]')?.textContent).toBe('Demo <job> & "yard"');
+  });
+
+  it('should state the scale it is drawn at, the largest standard scale that fits', () => {
+    // The demo is imperial. Its extent (x −0…22 m, y −3…16 m) fits 1/16" = 1'-0" but not 1" = 10'.
+    expect(model.scale).toEqual(IMPERIAL_SCALES.find((s) => s.ratio === 192));
+    const doc = parseSvg(svg);
+    expect(doc.querySelector('[data-role="scale"]')?.textContent).toBe(`Scale ${formatScale(model.scale!)}`);
+    expect(doc.querySelector('[data-role="scale"]')?.textContent).toBe(`Scale 1/16" = 1'-0" (1:192)`);
+    expect(model.ptPerMetre).toBeCloseTo(ptPerPlanMetre(192), 9);
+    // The scale bar is as long on paper as it says: value (ft) × 0.3048 m × pt per metre.
+    const bar = doc.querySelector('[data-role="scale-bar"]')!;
+    const feet = Number(bar.getAttribute('data-length'));
+    expect(Number(bar.getAttribute('data-width-pt'))).toBeCloseTo(feet * 0.3048 * ptPerPlanMetre(192), 1);
+    const metric = layoutSitePlan(demo, demoAnalysis, { units: 'metric' });
+    expect(metric.scale?.label).toBe('1:200');
+    expect(chooseScale(22, 19, 540 - 96, 720 - 152 - 60, 'metric')?.label).toBe('1:200');
+  });
+
+  it('should draw a run without a route as a dotted straight line with a note', () => {
+    const doc = parseSvg(svg);
+    const trunk = doc.querySelector('[data-id="run-trunk-in"]')!;
+    expect(trunk.getAttribute('data-route')).toBe('not-recorded');
+    expect(all(trunk, 'polyline')[0]!.getAttribute('stroke-dasharray')).toBeTruthy();
+    expect(doc.querySelector('[data-label-for="run-trunk-in"]')?.textContent).toContain('route not recorded');
+    expect(sitePlanLegendKeys(model)).toContain('route_not_recorded');
+  });
+
+  it('should draw spare and abandoned runs distinctly and name them in the legend', () => {
+    const ab = withRuns(demo, (r) => (r.id === 'run-s3' ? { ...r, isAbandoned: true } : r));
+    const doc = parseSvg(drawSitePlan(ab, analyzeAsBuilt(ab), opts));
+    const style = (id: string): string => {
+      const g = doc.querySelector(`[data-id="${id}"]`)!;
+      return all(g, 'polyline')
+        .map((p) => `${p.getAttribute('stroke')}|${p.getAttribute('stroke-width')}|${p.getAttribute('stroke-dasharray')}`)
+        .join(';');
+    };
+    expect(doc.querySelector('[data-id="run-spare"]')?.getAttribute('data-style')).toBe('spare');
+    expect(doc.querySelector('[data-id="run-s3"]')?.getAttribute('data-style')).toBe('abandoned');
+    const direct = style('run-p1');
+    expect(new Set([direct, style('run-spare'), style('run-s3')]).size).toBe(3);
+    // Abandoned runs carry crosses, so they differ in shape, not only colour.
+    expect(all(doc.querySelector('[data-id="run-s3"]')!, 'path').length).toBeGreaterThan(0);
+    const legend = all(doc, '[data-legend]').map((e) => e.getAttribute('data-legend'));
+    expect(legend).toContain('run:spare');
+    expect(legend).toContain('run:abandoned');
+    expect(doc.querySelector('[data-label-for="run-spare"]')?.textContent).toContain('SPARE');
+    expect(doc.querySelector('[data-label-for="run-s3"]')?.textContent).toContain('ABANDONED');
+  });
+
+  it('should list in the legend only what is on the drawing', () => {
+    const legend = all(parseSvg(svg), '[data-legend]').map((e) => e.getAttribute('data-legend'));
+    expect(legend).toEqual([
+      'amplifier',
+      'speaker',
+      'subwoofer',
+      'junction',
+      'spare_end',
+      'wall_entry',
+      'reference_point',
+      'tie',
+      'run:direct_burial',
+      'run:under_hardscape_sleeve',
+      'run:spare',
+      'route_not_recorded',
+      'shallow',
+    ]);
+    const bare = parseSvg(drawSitePlan(demo, demoAnalysis, { ...opts, layers: { referencePoints: false, spareAndAbandoned: false, depths: false } }));
+    const bareLegend = all(bare, '[data-legend]').map((e) => e.getAttribute('data-legend'));
+    expect(bareLegend).not.toContain('reference_point');
+    expect(bareLegend).not.toContain('tie');
+    expect(bareLegend).not.toContain('run:spare');
+    expect(bareLegend).not.toContain('shallow');
+    expect(bare.querySelector('[data-id="run-spare"]')).toBeNull();
+  });
+
+  it('should mark the shallow station on the plan', () => {
+    const marks = all(parseSvg(svg), '[data-shallow-run]');
+    expect(marks.map((m) => [m.getAttribute('data-shallow-run'), m.getAttribute('data-station-m')])).toEqual([['run-p2', '3']]);
+  });
+
+  it('should place no two labels on top of each other, all inside the frame', () => {
+    expect(model.omittedLabelCount).toBe(0);
+    // items, runs, reference points and ties: 13 + 11 + 3 + 27
+    expect(model.labels.length).toBe(13 + 11 + 3 + demo.items.reduce((s, i) => s + (i.ties?.length ?? 0), 0));
+    for (let i = 0; i < model.labels.length; i += 1) {
+      expect(boxContains(model.frame, model.labels[i]!.box)).toBe(true);
+      for (let j = i + 1; j < model.labels.length; j += 1) {
+        expect(boxesIntersect(model.labels[i]!.box, model.labels[j]!.box), `${model.labels[i]!.id} / ${model.labels[j]!.id}`).toBe(false);
+      }
+    }
+    // The drawn boxes are the model's boxes.
+    expect(all(parseSvg(svg), '[data-box]').length).toBe(model.labels.length);
+  });
+
+  it('should carry the north arrow, the dig note and no external references', () => {
+    const doc = parseSvg(svg);
+    // Plan +y is 12° east of true north, so the arrow turns 12° anticlockwise.
+    expect(doc.querySelector('[data-role="north-arrow"]')?.getAttribute('transform')).toMatch(/^rotate\(-12 /);
+    expect(all(doc, '[data-role="note"]').map((e) => e.textContent).join(' ')).toContain(SITE_PLAN_NOTE);
+    expect(svg).not.toMatch(/(href|src)="https?:/);
+    expect(svg).toContain('font-family="Inter, sans-serif"');
+  });
+
+  it('should be deterministic', () => {
+    expect(drawSitePlan(demo, demoAnalysis, { ...opts, titleBlock: { title: 'Demo <job> & "yard"', revision: '2', date: '2026-05-14' } })).toBe(svg);
+  });
+
+  it('should say "not to scale" and list the items when no position is known', () => {
+    const unplaced: AsBuilt = { ...demo, items: demo.items.map((i) => ({ ...i, position: undefined, ties: undefined }) as Item), runs: demo.runs.map((r) => ({ ...r, route: undefined })) };
+    const doc = parseSvg(drawSitePlan(unplaced, analyzeAsBuilt(unplaced), { ...opts, layers: { referencePoints: false } }));
+    expect(doc.querySelector('[data-role="not-to-scale"]')?.textContent).toBe('NOT TO SCALE');
+    expect(doc.querySelector('[data-role="scale"]')?.textContent).toBe('Scale: NOT TO SCALE');
+    expect(doc.querySelector('[data-role="scale-bar"]')).toBeNull();
+    const ids = dataIds(doc);
+    for (const item of demo.items) expect(ids).toContain(item.id);
+  });
+
+  it('should draw a calibrated data: plan image underneath and refuse any other URL', () => {
+    const planImage = {
+      href: 'data:image/png;base64,iVBORw0KGgo=',
+      widthPx: 1000,
+      heightPx: 800,
+      calibration: { imageA: { x: 100, y: 700 }, imageB: { x: 600, y: 700 }, distanceM: 10 },
+    };
+    const doc = parseSvg(drawSitePlan(demo, demoAnalysis, { ...opts, planImage }));
+    const image = doc.querySelector('image')!;
+    // 500 px = 10 m → the 1000 px image is 20 m wide on the plan.
+    expect(Number(image.getAttribute('width'))).toBeCloseTo(20 * ptPerPlanMetre(192), 1);
+    expect(image.getAttribute('href')).toBe(planImage.href);
+    expect(() => drawSitePlan(demo, demoAnalysis, { ...opts, planImage: { ...planImage, href: 'https://example.test/plan.png' } })).toThrow(/data: URL/);
+  });
+
+  it('should keep labels apart on a generated crowded job (property)', () => {
+    const job = fc.record({
+      n: fc.integer({ min: 2, max: 40 }),
+      spread: fc.double({ min: 0.5, max: 60, noNaN: true }),
+      seed: fc.integer({ min: 1, max: 1_000_000 }),
+      labelChars: fc.integer({ min: 3, max: 50 }),
+    });
+    fc.assert(
+      fc.property(job, ({ n, spread, seed, labelChars }) => {
+        let s = seed;
+        const rand = (): number => {
+          s = (s * 16807) % 2147483647;
+          return s / 2147483647;
+        };
+        const items: Item[] = Array.from({ length: n }, (_, i) => ({
+          id: `sp-${i}`,
+          kind: 'speaker',
+          label: `Speaker ${i} ${'x'.repeat(labelChars)}`.slice(0, 120),
+          nominalImpedanceOhm: 8,
+          position: { x: rand() * spread, y: rand() * spread * 0.7, source: 'manual' },
+        }));
+        const runs: Run[] = items.slice(1).map((item, i) => ({
+          id: `run-${i}`,
+          label: `Run ${i} to ${item.label}`.slice(0, 120),
+          fromItemId: items[i]!.id,
+          toItemId: item.id,
+          cableType: '14/2 direct burial',
+          gauge: { system: 'awg', awg: 14 },
+          conductors: 2,
+          pairs: [],
+          measuredLengthM: 5,
+          method: 'direct_burial',
+          route: i % 3 === 0 ? undefined : [items[i]!.position!, item.position!],
+          depthReadings: [{ stationM: 1, depthM: 0.1 }],
+        }));
+        const asBuilt = AsBuiltSchema.parse({ zones: [], referencePoints: [{ id: 'rp', label: 'Corner', x: 0, y: 0 }], items, runs, checks: [] });
+        const m = layoutSitePlan(asBuilt, analyzeAsBuilt(asBuilt), { units: 'metric' });
+        for (let i = 0; i < m.labels.length; i += 1) {
+          expect(boxContains(m.frame, m.labels[i]!.box)).toBe(true);
+          for (let j = i + 1; j < m.labels.length; j += 1) expect(boxesIntersect(m.labels[i]!.box, m.labels[j]!.box)).toBe(false);
+        }
+        expect(m.labels.length + m.omittedLabelCount).toBe(n + runs.length + 1);
+      }),
+      { numRuns: 40 },
+    );
+  });
+});
+
+describe('drawDepthProfile', () => {
+  it('should highlight exactly the shallow station of the demo run to P2', () => {
+    const doc = parseSvg(drawDepthProfile(demo, demoAnalysis, 'run-p2', opts));
+    const root = doc.documentElement;
+    expect(root.getAttribute('width')).toBe('3.5in');
+    expect(root.getAttribute('height')).toBe('1.6in');
+    expect(root.getAttribute('viewBox')).toBe('0 0 252 115.2');
+    expect(root.getAttribute('data-id')).toBe('run-p2');
+    const readings = all(doc, '[data-shallow]');
+    expect(readings.length).toBe(3);
+    const shallow = readings.filter((r) => r.getAttribute('data-shallow') === 'true');
+    expect(shallow.map((r) => r.getAttribute('data-station-m'))).toEqual(['3']);
+    // Shape and colour both differ: a red triangle against white circles.
+    expect(shallow[0]!.tagName).toBe('polygon');
+    expect(shallow[0]!.getAttribute('fill')).toBe('#c0392b');
+    expect(readings.filter((r) => r.getAttribute('data-shallow') === 'false').every((r) => r.tagName === 'circle')).toBe(true);
+    expect(doc.querySelector('[data-role="shallow-label"]')?.textContent).toBe('4 1/4 in shallow');
+  });
+
+  it('should draw the required cover from the analysis with its value and basis', () => {
+    const doc = parseSvg(drawDepthProfile(demo, demoAnalysis, 'run-spa-trunk', { ...opts, units: 'metric' }));
+    const cover = doc.querySelector('[data-role="required-cover"]')!;
+    expect(cover.getAttribute('data-min-cover-m')).toBe('0.1');
+    expect(doc.querySelector('[data-role="required-cover-label"]')?.textContent).toBe('required cover 10 cm(common practice)');
+    expect(all(cover, 'title')[0]!.textContent).toContain('Table 300.5');
+    expect(all(doc, '[data-shallow="true"]').length).toBe(0);
+  });
+
+  it('should say so when a run is indoor or has no readings, and refuse an unknown run', () => {
+    expect(parseSvg(drawDepthProfile(demo, demoAnalysis, 'run-trunk-in', opts)).querySelector('[data-role="no-profile"]')?.textContent).toContain('not buried');
+    expect(() => drawDepthProfile(demo, demoAnalysis, 'nope', opts)).toThrow(/no run/);
+  });
+
+  it('should draw every demo run deterministically', () => {
+    for (const run of demo.runs) {
+      const svg = drawDepthProfile(demo, demoAnalysis, run.id, opts);
+      parseSvg(svg);
+      expect(drawDepthProfile(demo, demoAnalysis, run.id, opts)).toBe(svg);
+    }
+  });
+});
+
+describe('drawWiringSchematic', () => {
+  let svg: string;
+  let doc: XmlDocument;
+  beforeAll(async () => {
+    svg = await drawWiringSchematic(demo, demoAnalysis, opts);
+    doc = parseSvg(svg);
+  });
+
+  it('should fit the page width in real units', () => {
+    const root = doc.documentElement;
+    expect(root.getAttribute('width')).toBe('7.5in');
+    expect(root.getAttribute('viewBox')).toMatch(/^0 0 540 [\d.]+$/);
+    expect(root.getAttribute('height')).toMatch(/^[\d.]+in$/);
+  });
+
+  it('should have one node per amplifier channel, speaker, subwoofer and junction', () => {
+    expect(all(doc, '[data-kind="channel"]').map((n) => n.getAttribute('data-id'))).toEqual(['amp-1/ch-patio', 'amp-1/ch-spa']);
+    const ofKind = (kind: string): string[] => all(doc, `[data-node][data-kind="${kind}"]`).map((n) => n.getAttribute('data-id')!).sort();
+    expect(ofKind('speaker')).toEqual(['sp-p1', 'sp-p2', 'sp-p3', 'sp-s1', 'sp-s2', 'sp-s3']);
+    expect(ofKind('subwoofer')).toEqual(['sub-1']);
+    expect(ofKind('junction')).toEqual(['j-patio', 'j-spa']);
+    const ids = dataIds(doc);
+    for (const run of demo.runs) expect(ids).toContain(run.id);
+  });
+
+  it('should show each channel load with and without cable and each speaker loss', () => {
+    const patio = doc.querySelector('[data-id="amp-1/ch-patio"]')!;
+    expect(patio.textContent).toContain('load 4 Ω nominal');
+    expect(patio.textContent).toContain('4.18 Ω with cable');
+    expect(patio.textContent).toContain('amp minimum 4 Ω');
+    expect(doc.querySelector('[data-id="amp-1/ch-spa"]')?.textContent).toContain('load 5.33 Ω nominal');
+    expect(doc.querySelector('[data-node][data-id="sp-p1"]')?.textContent).toContain('cable loss 0.38 dB');
+    expect(doc.querySelector('[data-node][data-id="sub-1"]')?.textContent).toContain('series = 16 Ω');
+  });
+
+  it('should mark the shallow-depth finding on its run and draw the spare run dashed', () => {
+    const badges = all(doc, '[data-layer="graph"] [data-severity]');
+    expect(badges.length).toBe(1);
+    expect(doc.querySelector('[data-id="run-p2"] [data-severity="warning"]')).not.toBeNull();
+    expect(doc.querySelector('[data-id="run-spare"]')?.getAttribute('data-dead')).toBe('true');
+    expect(all(doc.querySelector('[data-id="run-spare"]')!, 'polyline')[0]!.getAttribute('stroke-dasharray')).toBeTruthy();
+  });
+
+  it('should tell critical from warning by shape', async () => {
+    const strict: AsBuilt = { ...demo, items: demo.items.map((i) => (i.kind === 'amplifier' ? { ...i, minimumImpedanceOhm: 8 } : i)) };
+    const d = parseSvg(await drawWiringSchematic(strict, analyzeAsBuilt(strict), opts));
+    const critical = d.querySelector('[data-id="amp-1/ch-patio"] [data-severity="critical"] polygon')!;
+    expect(critical.getAttribute('points')!.split(' ').length).toBe(8);
+    const warning = d.querySelector('[data-id="run-p2"] [data-severity="warning"] polygon')!;
+    expect(warning.getAttribute('points')!.split(' ').length).toBe(3);
+  });
+
+  it('should be deterministic', async () => {
+    expect(await drawWiringSchematic(demo, demoAnalysis, opts)).toBe(svg);
+  });
+});
+

@@ -1,0 +1,168 @@
+import type { Container } from '@svgdotjs/svg.js';
+
+import type { ItemKind } from '../domain/as-built/item.schema.js';
+import type { InstallMethod } from '../domain/as-built/run.schema.js';
+import { pointsAttr, r2 } from './svg-canvas.js';
+import type { Point } from './text-box.js';
+
+/**
+ * Our own symbols, told apart by shape (not colour) so they survive greyscale printing. Each is drawn
+ * centred on `p` within a radius of about 5 pt.
+ */
+export function drawItemSymbol(parent: Container, kind: ItemKind, p: Point): Container {
+  const g = parent.group();
+  const x = p.x;
+  const y = p.y;
+  const line = { color: '#000000', width: 0.9 };
+  switch (kind) {
+    case 'amplifier': {
+      // A box with an amplifier triangle inside.
+      g.rect(12, 9).attr({ x: r2(x - 6), y: r2(y - 4.5) }).fill('#ffffff').stroke(line);
+      g.polygon(pointsAttr([{ x: x - 3, y: y - 3 }, { x: x + 3.5, y }, { x: x - 3, y: y + 3 }])).fill('#000000');
+      break;
+    }
+    case 'speaker': {
+      // A ring with a dot: a speaker seen from above.
+      g.circle(9).attr({ cx: r2(x), cy: r2(y) }).fill('#ffffff').stroke(line);
+      g.circle(3.6).attr({ cx: r2(x), cy: r2(y) }).fill('#000000');
+      break;
+    }
+    case 'subwoofer': {
+      // A square enclosure with a ring in it.
+      g.rect(10, 10).attr({ x: r2(x - 5), y: r2(y - 5) }).fill('#ffffff').stroke(line);
+      g.circle(7).attr({ cx: r2(x), cy: r2(y) }).fill('none').stroke(line);
+      g.circle(2.4).attr({ cx: r2(x), cy: r2(y) }).fill('#000000');
+      break;
+    }
+    case 'junction': {
+      // A filled diamond: a splice or junction box.
+      g.polygon(pointsAttr([{ x, y: y - 5 }, { x: x + 5, y }, { x, y: y + 5 }, { x: x - 5, y }])).fill('#000000').stroke({ color: '#ffffff', width: 0.6 });
+      break;
+    }
+    case 'spare_end': {
+      // An open triangle under a cap bar: a capped cable end.
+      g.polygon(pointsAttr([{ x: x - 4, y: y - 2 }, { x: x + 4, y: y - 2 }, { x, y: y + 4.5 }])).fill('#ffffff').stroke(line);
+      g.rect(10, 2).attr({ x: r2(x - 5), y: r2(y - 4.8) }).fill('#000000');
+      break;
+    }
+    case 'wall_entry': {
+      // A square half filled along its diagonal: a sleeve through a wall.
+      g.rect(9, 9).attr({ x: r2(x - 4.5), y: r2(y - 4.5) }).fill('#ffffff').stroke(line);
+      g.polygon(pointsAttr([{ x: x - 4.5, y: y - 4.5 }, { x: x - 4.5, y: y + 4.5 }, { x: x + 4.5, y: y + 4.5 }])).fill('#000000');
+      break;
+    }
+  }
+  return g;
+}
+
+/** A survey-style reference point: a ring with a cross through it. */
+export function drawReferenceSymbol(parent: Container, p: Point): Container {
+  const g = parent.group();
+  const stroke = { color: '#000000', width: 0.8 };
+  g.circle(7).attr({ cx: r2(p.x), cy: r2(p.y) }).fill('#ffffff').stroke(stroke);
+  g.line(r2(p.x - 6), r2(p.y), r2(p.x + 6), r2(p.y)).stroke(stroke);
+  g.line(r2(p.x), r2(p.y - 6), r2(p.x), r2(p.y + 6)).stroke(stroke);
+  return g;
+}
+
+/** Marks a shallow depth reading: an inverted filled triangle (shape and colour both say "warning"). */
+export function drawShallowMarker(parent: Container, p: Point): Container {
+  const g = parent.group();
+  g.polygon(pointsAttr([{ x: p.x - 4.5, y: p.y - 4 }, { x: p.x + 4.5, y: p.y - 4 }, { x: p.x, y: p.y + 4 }]))
+    .fill('#c0392b')
+    .stroke({ color: '#000000', width: 0.6 });
+  g.rect(0.9, 3).attr({ x: r2(p.x - 0.45), y: r2(p.y - 3.3) }).fill('#ffffff');
+  return g;
+}
+
+/** Utility-marking orange (APWA uniform colour code: communications / signal cable). */
+export const CABLE_ORANGE = '#d35400';
+const GREY = '#6b6b6b';
+
+/**
+ * Draws a run as one or more stacked strokes. Line style, not only colour, tells the kinds apart:
+ * direct burial solid; conduit a double line; sleeve under hardscape a double line with a dotted core;
+ * indoor a thin dash-dot; spare long dashes; abandoned thin grey with crosses; a run whose route was not
+ * recorded is dotted.
+ */
+export function drawRunLine(parent: Container, style: InstallMethod | 'spare' | 'abandoned', points: readonly Point[], isRouteRecorded: boolean): Container {
+  const g = parent.group();
+  const attr = pointsAttr(points);
+  const stroke = (color: string, width: number, dash?: string): void => {
+    const line = g.polyline(attr).fill('none').stroke({ color, width, linecap: 'butt', linejoin: 'round' });
+    if (dash !== undefined) line.attr('stroke-dasharray', dash);
+  };
+  if (!isRouteRecorded) {
+    const color = style === 'abandoned' || style === 'indoor' ? GREY : CABLE_ORANGE;
+    stroke(color, 1.2, '1.2 2.4');
+    return g;
+  }
+  switch (style) {
+    case 'direct_burial':
+      stroke(CABLE_ORANGE, 1.6);
+      break;
+    case 'conduit':
+      stroke(CABLE_ORANGE, 3.6);
+      stroke('#ffffff', 1.6);
+      break;
+    case 'under_hardscape_sleeve':
+      stroke(CABLE_ORANGE, 4.2);
+      stroke('#ffffff', 2.4);
+      stroke(CABLE_ORANGE, 0.8, '1.5 1.5');
+      break;
+    case 'indoor':
+      stroke(GREY, 0.9, '6 2 1.5 2');
+      break;
+    case 'spare':
+      stroke(CABLE_ORANGE, 1.4, '7 3');
+      break;
+    case 'abandoned': {
+      stroke(GREY, 0.8);
+      for (const c of crossesAlong(points, 14)) {
+        g.path(`M${r2(c.x - 2.2)} ${r2(c.y - 2.2)}L${r2(c.x + 2.2)} ${r2(c.y + 2.2)}M${r2(c.x - 2.2)} ${r2(c.y + 2.2)}L${r2(c.x + 2.2)} ${r2(c.y - 2.2)}`)
+          .fill('none')
+          .stroke({ color: GREY, width: 0.8 });
+      }
+      break;
+    }
+  }
+  return g;
+}
+
+function crossesAlong(points: readonly Point[], spacing: number): Point[] {
+  const out: Point[] = [];
+  let next = spacing / 2;
+  let travelled = 0;
+  for (let i = 0; i + 1 < points.length; i += 1) {
+    const a = points[i]!;
+    const b = points[i + 1]!;
+    const length = Math.hypot(b.x - a.x, b.y - a.y);
+    while (next <= travelled + length && length > 0) {
+      const f = (next - travelled) / length;
+      out.push({ x: a.x + (b.x - a.x) * f, y: a.y + (b.y - a.y) * f });
+      next += spacing;
+    }
+    travelled += length;
+  }
+  return out;
+}
+
+/** A tie drawn as a dimension line: thin, with an arrowhead at each end, stopping short of the symbols. */
+export function drawTieLine(parent: Container, from: Point, to: Point): Container {
+  const g = parent.group();
+  const length = Math.hypot(to.x - from.x, to.y - from.y);
+  if (length < 14) return g;
+  const ux = (to.x - from.x) / length;
+  const uy = (to.y - from.y) / length;
+  const a = { x: from.x + ux * 6.5, y: from.y + uy * 6.5 };
+  const b = { x: to.x - ux * 6.5, y: to.y - uy * 6.5 };
+  const color = '#3b5b8c';
+  g.line(r2(a.x), r2(a.y), r2(b.x), r2(b.y)).stroke({ color, width: 0.45 }).attr('stroke-dasharray', '5 1.5 1 1.5');
+  const head = (tip: Point, dx: number, dy: number): void => {
+    const back = { x: tip.x - dx * 4, y: tip.y - dy * 4 };
+    g.polygon(pointsAttr([tip, { x: back.x - dy * 1.4, y: back.y + dx * 1.4 }, { x: back.x + dy * 1.4, y: back.y - dx * 1.4 }])).fill(color);
+  };
+  head(a, -ux, -uy);
+  head(b, ux, uy);
+  return g;
+}

@@ -1,0 +1,420 @@
+import type { Container } from '@svgdotjs/svg.js';
+import ELKImport from 'elkjs/lib/elk.bundled.js';
+import type { ElkExtendedEdge, ElkNode } from 'elkjs/lib/elk.bundled.js';
+
+import type { AsBuiltAnalysis } from '../domain/analysis/analyze.js';
+import type { Finding, FindingSeverity } from '../domain/analysis/finding.js';
+import type { AsBuilt } from '../domain/as-built/as-built.schema.js';
+import type { Item } from '../domain/as-built/item.schema.js';
+import type { DrawingBaseOptions } from './drawing-options.js';
+import { formatNumber } from './drawing-units.js';
+import { printableArea, type Orientation, type PaperSize } from './paper.js';
+import { addText, pointsAttr, r2 } from './svg-canvas.js';
+import { BASELINE_EM, LINE_HEIGHT_EM, textWidth, wrapText } from './text-box.js';
+
+// Under `module: nodenext` the d.ts default import is typed as the namespace (VERSIONS.md).
+const ELK = ELKImport as unknown as typeof ELKImport.default;
+
+export interface WiringSchematicOptions extends DrawingBaseOptions {
+  paper?: PaperSize;
+  orientation?: Orientation;
+  /** Layer direction; 'auto' lays out both and keeps the one that needs less shrinking to fit the width. */
+  direction?: 'RIGHT' | 'DOWN' | 'auto';
+}
+
+const NODE_FONT = 7;
+const EDGE_FONT = 6;
+const NODE_PAD = 4;
+const BADGE = 9;
+/** Lines in boxes and edge labels are wrapped to keep the layout narrow enough for a page. */
+const NODE_MAX_CHARS = 24;
+const EDGE_MAX_CHARS = 20;
+const AUTO_DIRECTION_MAX_NODES = 150;
+
+interface SchematicNode {
+  id: string;
+  /** How many of `lines` are the (bold) name. */
+  boldCount: number;
+  /** Item id, or `<amplifierItemId>/<channelId>` for a channel. */
+  forId: string;
+  kind: 'channel' | Item['kind'];
+  lines: string[];
+  width: number;
+  height: number;
+}
+
+interface SchematicEdge {
+  id: string;
+  boldCount: number;
+  runId: string;
+  source: string;
+  target: string;
+  lines: string[];
+  isDead: boolean;
+}
+
+interface Badge {
+  number: number;
+  severity: FindingSeverity;
+}
+
+function ohms(value: number | null): string {
+  return value === null ? 'open' : `${formatNumber(value, 2)} Ω`;
+}
+
+function itemFacts(item: Item, lossDb: number | undefined): string[] {
+  const loss = lossDb === undefined ? [] : [`cable loss ${formatNumber(lossDb, 2)} dB`];
+  switch (item.kind) {
+    case 'speaker':
+      return [
+        item.constantVoltage !== undefined
+          ? `tap ${formatNumber(item.constantVoltage.tapWatts, 1)} W on ${item.constantVoltage.lineVoltage} line`
+          : `${formatNumber(item.nominalImpedanceOhm ?? 0, 2)} Ω speaker`,
+        ...loss,
+      ];
+    case 'subwoofer': {
+      const coils =
+        item.voiceCoils === 'single'
+          ? `single coil ${formatNumber(item.coilImpedanceOhm, 2)} Ω`
+          : `dual coil 2 × ${formatNumber(item.coilImpedanceOhm, 2)} Ω, ${item.coilWiring === 'separate_channels' ? 'separate channels' : `${item.coilWiring} = ${formatNumber(item.coilWiring === 'series' ? item.coilImpedanceOhm * 2 : item.coilImpedanceOhm / 2, 2)} Ω`}`;
+      return [coils, ...loss];
+    }
+    case 'junction':
+      return ['splice / junction'];
+    case 'wall_entry':
+      return ['wall entry'];
+    case 'spare_end':
+      return [item.isCapped ? 'spare end, capped' : 'spare end, NOT capped'];
+    case 'amplifier':
+      return ['amplifier'];
+  }
+}
+
+/** Wraps each line of a box to `maxChars`, keeping the first (bold) line's pieces first. */
+function wrapLines(lines: readonly string[], maxChars: number): { lines: string[]; boldCount: number } {
+  const head = wrapText(lines[0] ?? '', maxChars);
+  return { lines: [...head, ...lines.slice(1).flatMap((l) => wrapText(l, maxChars))], boldCount: head.length };
+}
+
+function nodeSize(lines: string[]): { width: number; height: number } {
+  const widest = Math.max(...lines.map((l) => textWidth(l, NODE_FONT)));
+  return { width: Math.ceil(widest + 2 * NODE_PAD + BADGE + 2), height: Math.ceil(lines.length * NODE_FONT * LINE_HEIGHT_EM + 2 * NODE_PAD) };
+}
+
+/** Builds the schematic graph: channel nodes, item nodes and one edge per run (per channel out of the amplifier). */
+function buildGraph(asBuilt: AsBuilt, analysis: AsBuiltAnalysis): { nodes: SchematicNode[]; edges: SchematicEdge[] } {
+  const itemById = new Map(asBuilt.items.map((i) => [i.id, i]));
+  const runResultById = new Map(analysis.runs.map((r) => [r.runId, r]));
+  const lossByItem = new Map<string, number>();
+  for (const ch of analysis.channels) for (const load of ch.loads) if (!lossByItem.has(load.itemId)) lossByItem.set(load.itemId, load.cableLossDb);
+  const nodes: SchematicNode[] = [];
+  const nodeIds = new Set<string>();
+  const channelNodeId = (ampId: string, channelId: string): string => `ch:${ampId}/${channelId}`;
+
+  for (const amp of asBuilt.items) {
+    if (amp.kind !== 'amplifier') continue;
+    for (const channel of amp.channels) {
+      const result = analysis.channels.find((c) => c.channel.amplifierItemId === amp.id && c.channel.channelId === channel.id);
+      const lines = [`${amp.label} — ${channel.name}`];
+      if (result === undefined || !result.isSolved) lines.push('load not computed');
+      else if (result.mode === 'constant_voltage' && result.cv !== undefined) {
+        lines.push(`${formatNumber(result.cv.lineVoltageV, 1)} V line, taps ${formatNumber(result.cv.totalTapWatts, 1)} W`, `amp rated ${formatNumber(result.cv.ratedWatts, 1)} W`);
+      } else {
+        lines.push(`load ${ohms(result.loadOhmNominal)} nominal`, `${ohms(result.loadOhmWithCable)} with cable`, `amp minimum ${ohms(result.minimumImpedanceOhm)}`);
+      }
+      const id = channelNodeId(amp.id, channel.id);
+      const wrapped = wrapLines(lines, NODE_MAX_CHARS);
+      nodes.push({ id, forId: `${amp.id}/${channel.id}`, kind: 'channel', ...wrapped, ...nodeSize(wrapped.lines) });
+      nodeIds.add(id);
+    }
+  }
+  const addItemNode = (itemId: string): void => {
+    const id = `item:${itemId}`;
+    const item = itemById.get(itemId);
+    if (nodeIds.has(id) || item === undefined || item.kind === 'amplifier') return;
+    const wrapped = wrapLines([item.label, ...itemFacts(item, lossByItem.get(item.id))], NODE_MAX_CHARS);
+    nodes.push({ id, forId: item.id, kind: item.kind, ...wrapped, ...nodeSize(wrapped.lines) });
+    nodeIds.add(id);
+  };
+
+  const edges: SchematicEdge[] = [];
+  for (const run of asBuilt.runs) {
+    const from = itemById.get(run.fromItemId);
+    const to = itemById.get(run.toItemId);
+    if (from === undefined || to === undefined) continue;
+    const result = runResultById.get(run.id);
+    const isDead = run.isSpare === true || run.isAbandoned === true || run.pairs.every((p) => p.channel === null);
+    const tag = run.isAbandoned === true ? 'ABANDONED · ' : run.isSpare === true ? 'SPARE · ' : isDead ? 'no channel · ' : '';
+    const gauge = result?.gaugeLabel ?? run.cableType;
+    const channelRefs = result?.channels ?? [];
+    // A run leaving the amplifier is drawn once per channel it carries, from that channel's node.
+    const ampEnd = from.kind === 'amplifier' ? from : to.kind === 'amplifier' ? to : null;
+    const otherEnd = ampEnd === from ? to : from;
+    if (ampEnd !== null && !isDead && channelRefs.length > 0) {
+      addItemNode(otherEnd.id);
+      for (const ref of channelRefs) {
+        const source = channelNodeId(ref.amplifierItemId, ref.channelId);
+        if (!nodeIds.has(source)) continue;
+        const pair = run.pairs.filter((p) => p.channel?.channelId === ref.channelId && p.channel.amplifierItemId === ref.amplifierItemId).map((p) => p.pairIndex);
+        edges.push({
+          id: `edge:${run.id}:${ref.channelId}`,
+          runId: run.id,
+          source,
+          target: `item:${otherEnd.id}`,
+          ...wrapLines([run.label, `${gauge} · pair ${pair.join('+')}`], EDGE_MAX_CHARS),
+          isDead,
+        });
+      }
+      continue;
+    }
+    if (from.kind === 'amplifier' || to.kind === 'amplifier') continue;
+    addItemNode(from.id);
+    addItemNode(to.id);
+    const names = channelRefs.length > 1 ? ` · ${channelRefs.map((c) => c.channelId.replace(/^ch-/, '')).join(' + ')}` : '';
+    edges.push({ id: `edge:${run.id}`, runId: run.id, source: `item:${from.id}`, target: `item:${to.id}`, ...wrapLines([run.label, `${tag}${gauge}${names}`], EDGE_MAX_CHARS), isDead });
+  }
+  // Speakers and subwoofers on no run at all still appear, unconnected.
+  for (const item of asBuilt.items) if (item.kind === 'speaker' || item.kind === 'subwoofer') addItemNode(item.id);
+  return { nodes, edges };
+}
+
+/** Ids of nodes joined (ignoring direction) to at least one channel node. */
+function connectedToChannels(nodes: readonly SchematicNode[], edges: readonly SchematicEdge[]): Set<string> {
+  const neighbours = new Map<string, string[]>();
+  for (const e of edges) {
+    neighbours.set(e.source, [...(neighbours.get(e.source) ?? []), e.target]);
+    neighbours.set(e.target, [...(neighbours.get(e.target) ?? []), e.source]);
+  }
+  const seen = new Set<string>(nodes.filter((n) => n.kind === 'channel').map((n) => n.id));
+  const queue = [...seen];
+  while (queue.length > 0) {
+    const id = queue.pop()!;
+    for (const next of neighbours.get(id) ?? []) {
+      if (!seen.has(next)) {
+        seen.add(next);
+        queue.push(next);
+      }
+    }
+  }
+  return seen;
+}
+
+/** Which node or edge a finding points at: its item, run or channel, else the first step of its path. */
+function findingTarget(f: Finding, asBuilt: AsBuilt): string | null {
+  // A channel finding names the amplifier item too; the amplifier is drawn as its channels.
+  if (f.channel !== undefined) return `ch:${f.channel.amplifierItemId}/${f.channel.channelId}`;
+  const amp = asBuilt.items.find((i) => i.id === f.itemId && i.kind === 'amplifier');
+  if (amp !== undefined && amp.kind === 'amplifier' && amp.channels[0] !== undefined) return `ch:${amp.id}/${amp.channels[0].id}`;
+  if (f.itemId !== undefined) return `item:${f.itemId}`;
+  if (f.runId !== undefined) return `run:${f.runId}`;
+  const [collection, index] = f.path;
+  if (collection === 'items' && typeof index === 'number' && asBuilt.items[index] !== undefined) return `item:${asBuilt.items[index].id}`;
+  if (collection === 'runs' && typeof index === 'number' && asBuilt.runs[index] !== undefined) return `run:${asBuilt.runs[index].id}`;
+  return null;
+}
+
+async function layout(nodes: SchematicNode[], edges: SchematicEdge[], direction: 'RIGHT' | 'DOWN'): Promise<ElkNode> {
+  const elk = new ELK();
+  const graph: ElkNode = {
+    id: 'root',
+    layoutOptions: {
+      'elk.algorithm': 'layered',
+      'elk.direction': direction,
+      'elk.edgeRouting': 'ORTHOGONAL',
+      'elk.spacing.nodeNode': '10',
+      'elk.layered.spacing.nodeNodeBetweenLayers': '22',
+      'elk.spacing.edgeLabel': '2',
+      'elk.spacing.edgeNode': '8',
+      'elk.layered.spacing.edgeNodeBetweenLayers': '8',
+      'elk.edgeLabels.placement': 'CENTER',
+      'elk.layered.considerModelOrder.strategy': 'NODES_AND_EDGES',
+      'elk.layered.nodePlacement.strategy': 'BRANDES_KOEPF',
+      'elk.layered.nodePlacement.bk.fixedAlignment': 'BALANCED',
+      'elk.padding': '[top=4,left=4,bottom=4,right=4]',
+    },
+    children: nodes.map((n) => ({ id: n.id, width: n.width, height: n.height })),
+    edges: edges.map(
+      (e): ElkExtendedEdge => ({
+        id: e.id,
+        sources: [e.source],
+        targets: [e.target],
+        labels: [
+          {
+            text: e.lines.join('\n'),
+            width: Math.ceil(Math.max(...e.lines.map((l) => textWidth(l, EDGE_FONT))) + 2),
+            height: Math.ceil(e.lines.length * EDGE_FONT * LINE_HEIGHT_EM + 2),
+          },
+        ],
+      }),
+    ),
+  };
+  return elk.layout(graph);
+}
+
+function drawBadge(parent: Container, badge: Badge, x: number, y: number): void {
+  const g = parent.group().attr({ 'data-finding': badge.number, 'data-severity': badge.severity });
+  const c = { x: x + BADGE / 2, y: y + BADGE / 2 };
+  const h = BADGE / 2;
+  if (badge.severity === 'critical') {
+    // Octagon, filled dark red: "stop".
+    const pts = Array.from({ length: 8 }, (_, i) => {
+      const a = ((i * 45 + 22.5) * Math.PI) / 180;
+      return { x: c.x + Math.cos(a) * h * 1.08, y: c.y + Math.sin(a) * h * 1.08 };
+    });
+    g.polygon(pointsAttr(pts)).fill('#a01c10').stroke({ color: '#000000', width: 0.5 });
+    addText(g, String(badge.number), c.x, c.y + 2.3, { size: 6, anchor: 'middle', weight: 'bold', fill: '#ffffff' });
+  } else if (badge.severity === 'warning') {
+    // Triangle, amber with a black outline.
+    g.polygon(pointsAttr([{ x: c.x, y: c.y - h - 0.8 }, { x: c.x + h + 0.8, y: c.y + h }, { x: c.x - h - 0.8, y: c.y + h }]))
+      .fill('#f3b61f')
+      .stroke({ color: '#000000', width: 0.6 });
+    addText(g, String(badge.number), c.x, c.y + 3, { size: 5.5, anchor: 'middle', weight: 'bold' });
+  } else {
+    g.circle(BADGE).attr({ cx: r2(c.x), cy: r2(c.y) }).fill('#ffffff').stroke({ color: '#000000', width: 0.6 });
+    addText(g, String(badge.number), c.x, c.y + 2.2, { size: 5.5, anchor: 'middle' });
+  }
+}
+
+const SEVERITY_WORD: Record<FindingSeverity, string> = { critical: 'CRITICAL', warning: 'Warning', info: 'Note' };
+
+/**
+ * Draws the wiring schematic: amplifier channels (with computed load, with and without cable, and the
+ * amplifier's minimum) → runs (labelled with run and gauge) → wall entries and splices → speakers and
+ * subwoofers (impedance or tap, cable loss). Laid out with elkjs `layered`, orthogonal edges; spare,
+ * abandoned and channel-less runs dashed. Each finding gets a numbered badge (octagon critical,
+ * triangle warning, circle note) on the node or edge it points at and a line in the list underneath.
+ * Scaled to fit the printable width of the sheet.
+ */
+export async function drawWiringSchematic(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, options: WiringSchematicOptions): Promise<string> {
+  const { nodes, edges } = buildGraph(asBuilt, analysis);
+  const area = printableArea(options.paper ?? 'letter', options.orientation ?? 'portrait');
+  const W = area.widthPt;
+  // 'auto' tries both directions on jobs of ordinary size; a very large graph (each layout takes seconds)
+  // goes DOWN, which suits wide trees of speakers.
+  const isAuto = options.direction === undefined || options.direction === 'auto';
+  const directions: ('RIGHT' | 'DOWN')[] = isAuto ? (nodes.length > AUTO_DIRECTION_MAX_NODES ? ['DOWN'] : ['RIGHT', 'DOWN']) : [options.direction as 'RIGHT' | 'DOWN'];
+
+  // Parts not connected to any channel (spare runs, abandoned runs, unassigned speakers) are laid out
+  // on their own and drawn underneath, so they do not widen the channel trees.
+  const live = connectedToChannels(nodes, edges);
+  const parts = [
+    { nodes: nodes.filter((n) => live.has(n.id)), edges: edges.filter((e) => live.has(e.source)) },
+    { nodes: nodes.filter((n) => !live.has(n.id)), edges: edges.filter((e) => !live.has(e.source)) },
+  ];
+  const laidOut: { graph: ElkNode; scale: number; direction: string }[] = [];
+  for (const part of parts) {
+    if (part.nodes.length === 0) continue;
+    let best: { graph: ElkNode; scale: number; direction: string } | undefined;
+    for (const direction of directions) {
+      const graph = await layout(part.nodes, part.edges, direction);
+      const scale = Math.min(1, W / (graph.width ?? 1));
+      if (best === undefined || scale > best.scale + 1e-9) best = { graph, scale, direction };
+    }
+    laidOut.push(best!);
+  }
+  // One scale for every part, so the text is the same size throughout.
+  const scale = Math.min(1, ...laidOut.map((l) => l.scale));
+  const direction = laidOut[0]?.direction ?? 'DOWN';
+  const hasUnconnected = parts[1]!.nodes.length > 0;
+
+  // Findings → numbered badges on their targets.
+  const badgesByTarget = new Map<string, Badge[]>();
+  const listed: { badge: Badge; finding: Finding }[] = [];
+  analysis.findings.forEach((f) => {
+    const target = findingTarget(f, asBuilt);
+    const badge: Badge = { number: listed.length + 1, severity: f.severity };
+    listed.push({ badge, finding: f });
+    if (target === null) return;
+    const list = badgesByTarget.get(target);
+    if (list === undefined) badgesByTarget.set(target, [badge]);
+    else list.push(badge);
+  });
+
+  const headerH = 16;
+  const unconnectedHeadH = 14;
+  const graphH = laidOut.reduce((sum, l) => sum + (l.graph.height ?? 0) * scale, 0) + (hasUnconnected ? unconnectedHeadH : 0);
+  const listLines = listed.map(({ badge, finding }) => wrapText(`${SEVERITY_WORD[badge.severity]}: ${finding.message}`, Math.floor((W - 20) / (6 * 0.6))));
+  const listH = listed.length === 0 ? 12 : 14 + listLines.reduce((s, l) => s + l.length * 7.5 + 2, 0);
+  const H = headerH + graphH + 8 + listH;
+
+  const canvas = options.createCanvas();
+  canvas.attr({ width: `${r2(W / 72)}in`, height: `${r2(H / 72)}in`, 'data-drawing': 'wiring-schematic', 'data-direction': direction, 'data-scale': r2(scale) });
+  canvas.viewbox(0, 0, r2(W), r2(H));
+  canvas.rect(r2(W), r2(H)).fill('#ffffff');
+  addText(canvas, 'WIRING SCHEMATIC — amplifier channels to speakers (not to scale)', 0, 10, { size: 8.5, weight: 'bold' });
+
+  const edgeById = new Map(edges.map((e) => [e.id, e]));
+  const nodeById = new Map(nodes.map((n) => [n.id, n]));
+  let top = headerH;
+  laidOut.forEach(({ graph }, partIndex) => {
+    if (partIndex === 1) {
+      addText(canvas, 'Not connected to an amplifier channel (spare, abandoned or unassigned):', 0, top + 10, { size: 7, weight: 'bold', italic: true });
+      top += unconnectedHeadH;
+    }
+    const root = canvas.group().attr({ transform: `translate(0 ${r2(top)}) scale(${r2(scale * 1000) / 1000})`, 'data-layer': partIndex === 0 ? 'graph' : 'unconnected' });
+    top += (graph.height ?? 0) * scale;
+    for (const elkEdge of graph.edges ?? []) {
+      const edge = edgeById.get(elkEdge.id)!;
+      const g = root.group().attr({ 'data-id': edge.runId, 'data-kind': 'run', 'data-edge': edge.id, 'data-dead': String(edge.isDead) });
+      for (const section of elkEdge.sections ?? []) {
+        const pts = [section.startPoint, ...(section.bendPoints ?? []), section.endPoint];
+        const line = g.polyline(pointsAttr(pts)).fill('none').stroke({ color: edge.isDead ? '#6b6b6b' : '#000000', width: 0.9 });
+        if (edge.isDead) line.attr('stroke-dasharray', '4 2.5');
+        const end = pts[pts.length - 1]!;
+        const prev = pts[pts.length - 2]!;
+        const len = Math.hypot(end.x - prev.x, end.y - prev.y) || 1;
+        const ux = (end.x - prev.x) / len;
+        const uy = (end.y - prev.y) / len;
+        g.polygon(pointsAttr([end, { x: end.x - ux * 4 - uy * 1.8, y: end.y - uy * 4 + ux * 1.8 }, { x: end.x - ux * 4 + uy * 1.8, y: end.y - uy * 4 - ux * 1.8 }])).fill(
+          edge.isDead ? '#6b6b6b' : '#000000',
+        );
+      }
+      const label = elkEdge.labels?.[0];
+      if (label !== undefined) {
+        const lx = label.x ?? 0;
+        const ly = label.y ?? 0;
+        edge.lines.forEach((line, i) => {
+          addText(g, line, lx + 1, ly + 1 + EDGE_FONT * (BASELINE_EM + i * LINE_HEIGHT_EM), { size: EDGE_FONT, halo: true, weight: i < edge.boldCount ? 'bold' : 'normal' });
+        });
+        (badgesByTarget.get(`run:${edge.runId}`) ?? []).forEach((badge, i) => drawBadge(g, badge, lx - BADGE - 1 - i * (BADGE + 1), ly));
+      }
+    }
+    for (const elkNode of graph.children ?? []) {
+      const node = nodeById.get(elkNode.id)!;
+      const x = elkNode.x ?? 0;
+      const y = elkNode.y ?? 0;
+      const g = root.group().attr({ 'data-id': node.forId, 'data-kind': node.kind, 'data-node': node.id });
+      const isChannel = node.kind === 'channel';
+      const rect = g.rect(node.width, node.height).attr({ x: r2(x), y: r2(y), rx: node.kind === 'junction' || node.kind === 'wall_entry' ? 0 : 3 });
+      rect.fill(isChannel ? '#fdf0e6' : '#ffffff').stroke({ color: '#000000', width: isChannel ? 1.3 : 0.8 });
+      if (node.kind === 'spare_end') rect.attr('stroke-dasharray', '3 2');
+      node.lines.forEach((line, i) => {
+        addText(g, line, x + NODE_PAD, y + NODE_PAD + NODE_FONT * (BASELINE_EM + i * LINE_HEIGHT_EM), {
+          size: i < node.boldCount ? NODE_FONT : NODE_FONT - 0.5,
+          weight: i < node.boldCount ? 'bold' : 'normal',
+        }).attr(isChannel && i === node.boldCount ? { 'data-role': 'channel-load' } : {});
+      });
+      const target = isChannel ? `ch:${node.forId}` : `item:${node.forId}`;
+      (badgesByTarget.get(target) ?? []).forEach((badge, i) => drawBadge(g, badge, x + node.width - BADGE - 1 - i * (BADGE + 1), y + 1));
+    }
+  });
+
+  // Findings list.
+  const list = canvas.group().attr('data-layer', 'findings');
+  let y = headerH + graphH + 8;
+  if (listed.length === 0) {
+    addText(list, 'No findings.', 0, y + 8, { size: 7, italic: true });
+  } else {
+    addText(list, 'Findings', 0, y + 8, { size: 7.5, weight: 'bold' });
+    y += 14;
+    listed.forEach(({ badge }, i) => {
+      drawBadge(list, badge, 0, y - 1);
+      for (const line of listLines[i]!) {
+        addText(list, line, BADGE + 5, y + 6, { size: 6 });
+        y += 7.5;
+      }
+      y += 2;
+    });
+  }
+  return canvas.svg();
+}
