@@ -8,9 +8,12 @@ import { AuthModule } from './auth/auth.module.js';
 import { JwtAuthGuard } from './common/guards/jwt-auth.guard.js';
 import { RolesGuard } from './common/guards/roles.guard.js';
 import { readEnv } from './config/env.schema.js';
+import { CustomersModule } from './customers/customers.module.js';
 import { DbModule } from './db/db.module.js';
 import { HealthModule } from './health/health.module.js';
+import { JobsModule } from './jobs/jobs.module.js';
 import { MailModule } from './mail/mail.module.js';
+import { SitesModule } from './sites/sites.module.js';
 import { UsersModule } from './users/users.module.js';
 
 @Module({
@@ -23,6 +26,9 @@ import { UsersModule } from './users/users.module.js';
     AuthModule,
     UsersModule,
     AnalysisModule,
+    CustomersModule,
+    SitesModule,
+    JobsModule,
   ],
   providers: [
     // Default-deny: every route needs a signed-in user unless marked @Public(); then @Roles() applies.

@@ -1,6 +1,9 @@
 // Demo data of our own invention (company, people, addresses), seeded into an empty database by
 // `npm start` and `npm run dev`. Running it again changes nothing.
-import { importProjectPackage } from './setup.mjs';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+
+import { importProjectPackage, root } from './setup.mjs';
 
 export const DEMO_COMPANY_NAME = 'Quillmoss Outdoor Audio';
 export const DEMO_PASSWORD = 'quillmoss-demo-2026';
@@ -47,4 +50,14 @@ export async function seedDemo(databaseUrl) {
       ...DEMO_USERS.map((u) => `  ${u.role.padEnd(9)} ${u.email}  (${u.name})`),
     ],
   };
+}
+
+/**
+ * Seeds the demo company's customers, sites and jobs (after `seedDemo` and `ensureApiBuilt()`: the
+ * seeding is TypeScript, compiled with the API, so it reuses the API's schema and as-built mapping).
+ * Returns lines to print.
+ */
+export async function seedDemoRecords(databaseUrl) {
+  const { seedDemoRecords: seed } = await import(pathToFileURL(join(root, 'api/dist/db/seed/demo-seed.js')).href);
+  return seed(databaseUrl);
 }

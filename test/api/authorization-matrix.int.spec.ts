@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_AS_BUILT } from '../../api/src/domain/as-built/demo-as-built.js';
 import { ROLES, type Role } from '../../api/src/domain/auth/roles.js';
 import { createCompany, createUser, TEST_PASSWORD, type TestCompany, withDb } from '../support/fixtures.js';
+import { type Api, apiAs, createJob, createSite, insertRecordedJob, moveJob } from '../support/records.js';
 import { bearer, type Session, signIn } from '../support/session.js';
 import { createTestApp } from '../support/test-app.js';
 
@@ -21,6 +22,7 @@ type Expectation = Record<Caller, number>;
 interface Call {
   path: string;
   body?: object;
+  headers?: Record<string, string>;
 }
 
 interface RouteCase {
@@ -77,6 +79,76 @@ describe('authorization matrix', () => {
       return rows[0].id as string;
     });
   }
+
+  /** Company A's office, arranging fresh records so that each call stands alone. */
+  let arrange: Api;
+  let siteA: string;
+
+  async function customerA(): Promise<string> {
+    return (await arrange.expectOk('post', '/api/customers', { name: 'Matrix customer' })).id;
+  }
+
+  async function referencePointA(siteId = siteA): Promise<string> {
+    return (await arrange.expectOk('post', `/api/sites/${siteId}/reference-points`, { label: 'Corner', x: 0, y: 0 })).id;
+  }
+
+  /** A draft job on site A led by A's lead with A's tech on the crew. */
+  async function draftJobA() {
+    return createJob(arrange, siteA, { crewLeadUserId: a.users.lead.id, technicianUserIds: [a.users.tech.id] });
+  }
+
+  /** A job in progress with a zone, an amplifier, a speaker, a spare junction, a run, a reading and a check. */
+  async function recordedJobA() {
+    const channelRef = { amplifierItemId: 'amp', channelId: 'ch' };
+    const runBody = {
+      label: 'Amp to satellite',
+      fromItemId: 'amp',
+      toItemId: 'speaker',
+      cableType: '14/2 direct burial',
+      gauge: { system: 'awg' as const, awg: 14 },
+      conductors: 2,
+      pairs: [{ pairIndex: 1, channel: channelRef }],
+      measuredLengthM: 10,
+      method: 'direct_burial' as const,
+    };
+    const checkBody = { channel: channelRef, quantity: 'dc_resistance' as const, measuredOhm: 6.8 };
+    const job = await insertRecordedJob(
+      a,
+      siteA,
+      { crewLeadUserId: a.users.lead.id, technicianUserIds: [a.users.tech.id] },
+      {
+        zones: [{ id: 'zone', name: 'Patio' }],
+        referencePoints: [],
+        items: [
+          { id: 'amp', kind: 'amplifier', label: 'Amp', channels: [{ id: 'ch', name: 'Patio' }], ratedWatts8Ohm: 100, minimumImpedanceOhm: 4 },
+          { id: 'speaker', kind: 'speaker', label: 'Satellite', nominalImpedanceOhm: 8 },
+          { id: 'junction', kind: 'junction', label: 'Spare splice' },
+        ],
+        runs: [{ id: 'run', ...runBody, depthReadings: [{ stationM: 2, depthM: 0.3 }] }],
+        checks: [{ id: 'check', ...checkBody }],
+      },
+    );
+    const id = (key: string) => job.ids.get(key)!;
+    const channel = { amplifierItemId: id('amp'), channelId: id('ch') };
+    return {
+      base: `/api/jobs/${job.id}`,
+      headers: { 'If-Match': String(job.version) },
+      zone: { id: id('zone') },
+      amp: { id: id('amp') },
+      speaker: { id: id('speaker') },
+      junction: { id: id('junction') },
+      channel,
+      run: { id: id('run') },
+      runBody: { ...runBody, fromItemId: id('amp'), toItemId: id('speaker'), pairs: [{ pairIndex: 1, channel }] },
+      reading: { id: job.depthReadingIds.get(id('run'))![0]! },
+      check: { id: id('check') },
+      checkBody: { ...checkBody, channel },
+    };
+  }
+
+  const staff = (ok: number, otherCompany = 404) => only(['admin', 'office', 'lead', 'tech'], ok, otherCompany);
+  const officeOnly = (ok: number, otherCompany = 404) => only(['admin', 'office'], ok, otherCompany);
+  const recorders = (ok: number) => only(['admin', 'office', 'lead'], ok, 404);
 
   const routes: Record<string, RouteCase> = {
     'GET /api/health': { expect: everyone(200), call: () => ({ path: '/api/health' }) },
@@ -143,6 +215,187 @@ describe('authorization matrix', () => {
         return { path: `/api/outbox/${mailId}/attachments/${attachmentId}` };
       },
     },
+    'GET /api/customers': { expect: staff(200, 200), isList: true, call: () => ({ path: '/api/customers' }) },
+    'POST /api/customers': { expect: officeOnly(201, 201), call: () => ({ path: '/api/customers', body: { name: 'New customer' } }) },
+    'GET /api/customers/:id': { expect: staff(200), call: async () => ({ path: `/api/customers/${await customerA()}` }) },
+    'PATCH /api/customers/:id': {
+      expect: officeOnly(200),
+      call: async () => ({ path: `/api/customers/${await customerA()}`, body: { phone: '555 0100' } }),
+    },
+    'DELETE /api/customers/:id': { expect: officeOnly(204), call: async () => ({ path: `/api/customers/${await customerA()}` }) },
+    'GET /api/sites': { expect: staff(200, 200), isList: true, call: () => ({ path: '/api/sites' }) },
+    // Another company naming A's customer is refused as a bad reference (400), never created.
+    'POST /api/sites': {
+      expect: officeOnly(201, 400),
+      call: async () => ({
+        path: '/api/sites',
+        body: { customerId: await customerA(), label: 'Yard', addressLine1: '1 Nowhere Way', city: 'Fableford', country: 'Testland' },
+      }),
+    },
+    'GET /api/sites/:id': { expect: staff(200), call: () => ({ path: `/api/sites/${siteA}` }) },
+    'PATCH /api/sites/:id': { expect: officeOnly(200), call: () => ({ path: `/api/sites/${siteA}`, body: { notes: 'Dog in the yard' } }) },
+    'DELETE /api/sites/:id': {
+      expect: officeOnly(204),
+      call: async () => ({ path: `/api/sites/${(await createSite(arrange)).siteId}` }),
+    },
+    'POST /api/sites/:siteId/reference-points': {
+      expect: recorders(201),
+      call: () => ({ path: `/api/sites/${siteA}/reference-points`, body: { label: 'Gate post', x: 3, y: 4 } }),
+    },
+    'PATCH /api/sites/:siteId/reference-points/:pointId': {
+      expect: recorders(200),
+      call: async () => ({ path: `/api/sites/${siteA}/reference-points/${await referencePointA()}`, body: { x: 1 } }),
+    },
+    'DELETE /api/sites/:siteId/reference-points/:pointId': {
+      expect: only(['admin', 'office', 'lead'], 204, 404),
+      call: async () => ({ path: `/api/sites/${siteA}/reference-points/${await referencePointA()}` }),
+    },
+    'POST /api/sites/:siteId/homeowners': {
+      expect: officeOnly(201),
+      call: () => ({ path: `/api/sites/${siteA}/homeowners`, body: { userId: a.users.homeowner.id } }),
+    },
+    'DELETE /api/sites/:siteId/homeowners/:userId': {
+      expect: officeOnly(204),
+      call: async () => {
+        const { siteId } = await createSite(arrange);
+        await arrange.expectOk('post', `/api/sites/${siteId}/homeowners`, { userId: a.users.homeowner.id });
+        return { path: `/api/sites/${siteId}/homeowners/${a.users.homeowner.id}` };
+      },
+    },
+    'GET /api/jobs': { expect: staff(200, 200), isList: true, call: () => ({ path: '/api/jobs' }) },
+    'POST /api/jobs': {
+      expect: officeOnly(201, 400),
+      call: () => ({ path: '/api/jobs', body: { siteId: siteA, title: 'Matrix job' } }),
+    },
+    'GET /api/jobs/:id': { expect: staff(200), call: async () => ({ path: `/api/jobs/${(await draftJobA()).id}` }) },
+    'GET /api/jobs/:id/as-built': { expect: staff(200), call: async () => ({ path: `/api/jobs/${(await draftJobA()).id}/as-built` }) },
+    'PATCH /api/jobs/:id': {
+      expect: officeOnly(200),
+      call: async () => ({ path: `/api/jobs/${(await draftJobA()).id}`, body: { title: 'Renamed' }, headers: { 'If-Match': '1' } }),
+    },
+    'DELETE /api/jobs/:id': {
+      expect: officeOnly(204),
+      call: async () => ({ path: `/api/jobs/${(await draftJobA()).id}`, headers: { 'If-Match': '1' } }),
+    },
+    'POST /api/jobs/:id/status': {
+      expect: recorders(200),
+      call: async () => {
+        const job = await moveJob(arrange, await draftJobA(), 'in_progress');
+        return { path: `/api/jobs/${job.id}/status`, body: { to: 'submitted', expectedVersion: job.version } };
+      },
+    },
+    'POST /api/jobs/:jobId/zones': {
+      expect: recorders(201),
+      call: async () => {
+        const r = await recordedJobA();
+        return { path: `${r.base}/zones`, body: { name: 'Spa' }, headers: r.headers };
+      },
+    },
+    'PATCH /api/jobs/:jobId/zones/:zoneId': {
+      expect: recorders(200),
+      call: async () => {
+        const r = await recordedJobA();
+        return { path: `${r.base}/zones/${r.zone.id}`, body: { name: 'Terrace' }, headers: r.headers };
+      },
+    },
+    'DELETE /api/jobs/:jobId/zones/:zoneId': {
+      expect: recorders(200),
+      call: async () => {
+        const r = await recordedJobA();
+        return { path: `${r.base}/zones/${r.zone.id}`, headers: r.headers };
+      },
+    },
+    'POST /api/jobs/:jobId/items': {
+      expect: recorders(201),
+      call: async () => {
+        const r = await recordedJobA();
+        return { path: `${r.base}/items`, body: { kind: 'spare_end', label: 'Spare end', isCapped: true }, headers: r.headers };
+      },
+    },
+    'PUT /api/jobs/:jobId/items/:itemId': {
+      expect: recorders(200),
+      call: async () => {
+        const r = await recordedJobA();
+        return { path: `${r.base}/items/${r.speaker.id}`, body: { kind: 'speaker', label: 'Satellite S1', nominalImpedanceOhm: 8 }, headers: r.headers };
+      },
+    },
+    'DELETE /api/jobs/:jobId/items/:itemId': {
+      expect: recorders(200),
+      call: async () => {
+        const r = await recordedJobA();
+        return { path: `${r.base}/items/${r.junction.id}`, headers: r.headers };
+      },
+    },
+    'PUT /api/jobs/:jobId/items/:itemId/channels/:channelId/setup': {
+      expect: recorders(200),
+      call: async () => {
+        const r = await recordedJobA();
+        return { path: `${r.base}/items/${r.amp.id}/channels/${r.channel.channelId}/setup`, body: { gain: '-6 dB' }, headers: r.headers };
+      },
+    },
+    'POST /api/jobs/:jobId/runs': {
+      expect: recorders(201),
+      call: async () => {
+        const r = await recordedJobA();
+        return { path: `${r.base}/runs`, body: { ...r.runBody, toItemId: r.junction.id, pairs: [{ pairIndex: 1, channel: null }], isSpare: true }, headers: r.headers };
+      },
+    },
+    'PUT /api/jobs/:jobId/runs/:runId': {
+      expect: recorders(200),
+      call: async () => {
+        const r = await recordedJobA();
+        return { path: `${r.base}/runs/${r.run.id}`, body: { ...r.runBody, measuredLengthM: 11 }, headers: r.headers };
+      },
+    },
+    'DELETE /api/jobs/:jobId/runs/:runId': {
+      expect: recorders(200),
+      call: async () => {
+        const r = await recordedJobA();
+        return { path: `${r.base}/runs/${r.run.id}`, headers: r.headers };
+      },
+    },
+    'POST /api/jobs/:jobId/runs/:runId/depth-readings': {
+      expect: staff(201),
+      call: async () => {
+        const r = await recordedJobA();
+        return { path: `${r.base}/runs/${r.run.id}/depth-readings`, body: { stationM: 4, depthM: 0.25 }, headers: r.headers };
+      },
+    },
+    'PATCH /api/jobs/:jobId/runs/:runId/depth-readings/:readingId': {
+      expect: staff(200),
+      call: async () => {
+        const r = await recordedJobA();
+        return { path: `${r.base}/runs/${r.run.id}/depth-readings/${r.reading.id}`, body: { depthM: 0.28 }, headers: r.headers };
+      },
+    },
+    'DELETE /api/jobs/:jobId/runs/:runId/depth-readings/:readingId': {
+      expect: staff(200),
+      call: async () => {
+        const r = await recordedJobA();
+        return { path: `${r.base}/runs/${r.run.id}/depth-readings/${r.reading.id}`, headers: r.headers };
+      },
+    },
+    'POST /api/jobs/:jobId/checks': {
+      expect: staff(201),
+      call: async () => {
+        const r = await recordedJobA();
+        return { path: `${r.base}/checks`, body: { ...r.checkBody, quantity: 'impedance', measuredOhm: 8.3 }, headers: r.headers };
+      },
+    },
+    'PUT /api/jobs/:jobId/checks/:checkId': {
+      expect: staff(200),
+      call: async () => {
+        const r = await recordedJobA();
+        return { path: `${r.base}/checks/${r.check.id}`, body: { ...r.checkBody, measuredOhm: 6.9 }, headers: r.headers };
+      },
+    },
+    'DELETE /api/jobs/:jobId/checks/:checkId': {
+      expect: staff(200),
+      call: async () => {
+        const r = await recordedJobA();
+        return { path: `${r.base}/checks/${r.check.id}`, headers: r.headers };
+      },
+    },
   };
 
   beforeAll(async () => {
@@ -153,6 +406,9 @@ describe('authorization matrix', () => {
     sessions.set('otherCompany', await signIn(app, b.users.admin));
     await invitationIn(a.id);
     await capturedMailWithAttachment(a.id);
+    arrange = apiAs(app, sessions.get('office')!);
+    siteA = (await createSite(arrange)).siteId;
+    await draftJobA();
   });
 
   afterAll(async () => {
@@ -169,10 +425,14 @@ describe('authorization matrix', () => {
 
   describe.each(Object.entries(routes))('%s', (route, spec) => {
     const method = route.split(' ')[0]!.toLowerCase() as 'get' | 'post' | 'patch' | 'delete' | 'put';
+    // A refused call changes nothing, so the refused callers of a route can share one arranged record.
+    let refusedCall: Promise<Call> | undefined;
 
     it.each(CALLERS)('as %s', async (caller) => {
-      const { path, body } = await spec.call();
+      const isRefused = spec.expect[caller] >= 400;
+      const { path, body, headers } = await (isRefused ? (refusedCall ??= Promise.resolve(spec.call())) : spec.call());
       let req = request(app.getHttpServer())[method](path);
+      for (const [name, value] of Object.entries(headers ?? {})) req = req.set(name, value);
       const session = sessions.get(caller);
       if (session) req = req.set(bearer(session));
       const res = body ? await req.send(body) : await req;

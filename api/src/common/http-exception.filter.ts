@@ -16,6 +16,8 @@ export interface ErrorBody {
   message: string;
   code?: string;
   issues?: { path: string; message: string }[];
+  /** With `VERSION_CONFLICT`: the job's version now, so the client can reload or merge. */
+  currentVersion?: number;
 }
 
 const DOMAIN_STATUS = new Map<Function, HttpStatus>([
@@ -33,6 +35,7 @@ const STATUS_TEXT: Record<number, string> = {
   413: 'Payload Too Large',
   415: 'Unsupported Media Type',
   422: 'Unprocessable Entity',
+  428: 'Precondition Required',
   429: 'Too Many Requests',
   500: 'Internal Server Error',
   503: 'Service Unavailable',
@@ -51,7 +54,7 @@ function isDatabaseUnavailable(error: unknown): boolean {
 }
 
 /**
- * One shape for every error the API returns: `{ statusCode, error, message, code?, issues? }`.
+ * One shape for every error the API returns: `{ statusCode, error, message, code?, issues?, currentVersion? }`.
  * Domain errors map to 404/409/422; unknown errors become a generic 500 whose stack goes only to the log.
  */
 @Catch()
@@ -83,6 +86,7 @@ export class HttpExceptionFilter implements ExceptionFilter {
         message,
         ...(typeof fields.code === 'string' ? { code: fields.code } : {}),
         ...(Array.isArray(fields.issues) ? { issues: fields.issues as ErrorBody['issues'] } : {}),
+        ...(typeof fields.currentVersion === 'number' ? { currentVersion: fields.currentVersion } : {}),
       };
     }
     if (exception instanceof DomainError) {

@@ -1,0 +1,58 @@
+import { Body, Controller, Delete, Get, HttpCode, HttpStatus, Param, ParseUUIDPipe, Patch, Post, Query } from '@nestjs/common';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+
+import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
+import { Roles } from '../common/decorators/roles.decorator.js';
+import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
+import {
+  type CreateCustomerInput,
+  CreateCustomerSchema,
+  type CustomerListQuery,
+  CustomerListQuerySchema,
+  type CustomerResponse,
+  type UpdateCustomerInput,
+  UpdateCustomerSchema,
+} from '../domain/customers/customer.schema.js';
+import { CustomersService } from './customers.service.js';
+
+/** Staff read customers (crews see whom they work for); the office creates and changes them. */
+@ApiTags('customers')
+@ApiBearerAuth()
+@Roles('admin', 'office', 'lead', 'tech')
+@Controller('customers')
+export class CustomersController {
+  constructor(private readonly customersService: CustomersService) {}
+
+  @Get()
+  list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(CustomerListQuerySchema)) query: CustomerListQuery): Promise<CustomerResponse[]> {
+    return this.customersService.list(user, query.q);
+  }
+
+  @Post()
+  @Roles('admin', 'office')
+  create(@CurrentUser() user: AuthUser, @Body(new ZodValidationPipe(CreateCustomerSchema)) body: CreateCustomerInput): Promise<CustomerResponse> {
+    return this.customersService.create(user, body);
+  }
+
+  @Get(':id')
+  get(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<CustomerResponse> {
+    return this.customersService.get(user, id);
+  }
+
+  @Patch(':id')
+  @Roles('admin', 'office')
+  update(
+    @CurrentUser() user: AuthUser,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Body(new ZodValidationPipe(UpdateCustomerSchema)) body: UpdateCustomerInput,
+  ): Promise<CustomerResponse> {
+    return this.customersService.update(user, id, body);
+  }
+
+  @Delete(':id')
+  @Roles('admin', 'office')
+  @HttpCode(HttpStatus.NO_CONTENT)
+  async remove(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<void> {
+    await this.customersService.remove(user, id);
+  }
+}

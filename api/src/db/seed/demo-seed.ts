@@ -1,0 +1,137 @@
+import { randomUUID } from 'node:crypto';
+
+import { and, eq, inArray } from 'drizzle-orm';
+import { drizzle } from 'drizzle-orm/node-postgres';
+import pg from 'pg';
+
+import { DEMO_AS_BUILT } from '../../domain/as-built/demo-as-built.js';
+import type { AsBuilt } from '../../domain/as-built/as-built.schema.js';
+import { toRecordRows } from '../../jobs/as-built-rows.js';
+import * as schema from '../schema/index.js';
+import { DEMO_COMPANY_NAME, DEMO_EMAILS, DEMO_SITES, type DemoSite, IN_PROGRESS_AS_BUILT } from './demo-records.js';
+
+type SeedDb = ReturnType<typeof drizzle<typeof schema>>;
+export type SeedTx = Parameters<Parameters<SeedDb['transaction']>[0]>[0];
+
+export const DEMO_JOB_TITLES = {
+  recorded: 'Back-yard sound: patio and spa',
+  inProgress: 'Pool deck satellites',
+  draft: 'Garden terrace sound (quote accepted)',
+} as const;
+
+async function insertSite(tx: SeedTx, companyId: string, demo: DemoSite): Promise<string> {
+  const [customer] = await tx
+    .insert(schema.customers)
+    .values({ companyId, ...demo.customer })
+    .returning({ id: schema.customers.id });
+  const [site] = await tx
+    .insert(schema.sites)
+    .values({ companyId, customerId: customer!.id, ...demo.site })
+    .returning({ id: schema.sites.id });
+  return site!.id;
+}
+
+/**
+ * Inserts a whole as-built on a job (site reference points included) without going through the API;
+ * ids are fresh uuids, arrays keep their order through the sequences. Returns the map from the
+ * as-built's ids to the uuids, and each run's depth reading ids (as-built readings have none).
+ */
+export async function insertRecord(
+  tx: SeedTx,
+  asBuilt: AsBuilt,
+  jobId: string,
+  siteId: string,
+): Promise<{ ids: Map<string, string>; depthReadingIds: Map<string, string[]> }> {
+  const ids = new Map<string, string>();
+  const rows = toRecordRows(asBuilt, {
+    jobId,
+    siteId,
+    idFor: (id) => ids.get(id) ?? (ids.set(id, randomUUID()), ids.get(id)!),
+    newId: randomUUID,
+  });
+  const insert = async <T extends object>(table: Parameters<SeedTx['insert']>[0], values: T[]) => {
+    // Guard against an empty VALUES list.
+    if (values.length > 0) await tx.insert(table).values(values as never);
+  };
+  await insert(schema.referencePoints, rows.referencePoints);
+  await insert(schema.zones, rows.zones);
+  await insert(schema.items, rows.items);
+  await insert(schema.amplifierChannels, rows.channels);
+  await insert(schema.itemTies, rows.ties);
+  await insert(schema.runs, rows.runs);
+  await insert(schema.runPairs, rows.pairs);
+  await insert(schema.runRoutePoints, rows.routePoints);
+  await insert(schema.depthReadings, rows.depthReadings);
+  await insert(schema.commissioningChecks, rows.checks);
+  const depthReadingIds = new Map<string, string[]>();
+  for (const reading of rows.depthReadings) depthReadingIds.set(reading.runId, [...(depthReadingIds.get(reading.runId) ?? []), reading.id]);
+  return { ids, depthReadingIds };
+}
+
+/**
+ * Seeds the demo company's customers, sites and jobs (the company and users come from
+ * scripts/lib/seed.mjs): a fully recorded, submitted job from DEMO_AS_BUILT (with its shallow station),
+ * one in progress and one draft; the demo homeowner is linked to the recorded job's site. Idempotent:
+ * when the company already has its demo customers, nothing is written.
+ */
+export async function seedDemoRecords(database: string | pg.Pool): Promise<{ lines: string[] }> {
+  const pool = typeof database === 'string' ? new pg.Pool({ connectionString: database, max: 1 }) : database;
+  const db = drizzle(pool, { schema });
+  try {
+    return await db.transaction(async (tx) => {
+      const [company] = await tx.select({ id: schema.companies.id }).from(schema.companies).where(eq(schema.companies.name, DEMO_COMPANY_NAME));
+      if (!company) return { lines: [] };
+      // Serialise concurrent seeds (two `npm start`s on one database) so both cannot insert.
+      await tx.select().from(schema.companies).where(eq(schema.companies.id, company.id)).for('update');
+      const [existing] = await tx
+        .select({ id: schema.customers.id })
+        .from(schema.customers)
+        .where(and(eq(schema.customers.companyId, company.id), eq(schema.customers.name, DEMO_SITES.recorded.customer.name)));
+      const lines = [
+        `demo jobs: "${DEMO_JOB_TITLES.recorded}" (submitted, fully recorded), "${DEMO_JOB_TITLES.inProgress}" (in progress), "${DEMO_JOB_TITLES.draft}" (draft)`,
+      ];
+      if (existing) return { lines };
+
+      const people = await tx
+        .select({ id: schema.users.id, email: schema.users.email })
+        .from(schema.users)
+        .where(and(eq(schema.users.companyId, company.id), inArray(schema.users.email, Object.values(DEMO_EMAILS))));
+      const userId = (email: string) => people.find((p) => p.email === email)?.id ?? null;
+      const lead = userId(DEMO_EMAILS.lead);
+      const tech = userId(DEMO_EMAILS.tech);
+
+      const recordedSite = await insertSite(tx, company.id, DEMO_SITES.recorded);
+      const inProgressSite = await insertSite(tx, company.id, DEMO_SITES.inProgress);
+      const draftSite = await insertSite(tx, company.id, DEMO_SITES.draft);
+
+      const job = async (siteId: string, title: string, status: schema.JobStatus, dates: [string, string]) => {
+        const [row] = await tx
+          .insert(schema.jobs)
+          .values({
+            companyId: company.id,
+            siteId,
+            title,
+            status,
+            crewLeadUserId: lead,
+            startDate: dates[0],
+            endDate: dates[1],
+            createdByUserId: userId(DEMO_EMAILS.office),
+          })
+          .returning({ id: schema.jobs.id });
+        if (tech) await tx.insert(schema.jobTechnicians).values({ jobId: row!.id, userId: tech });
+        return row!.id;
+      };
+      const recordedJob = await job(recordedSite, DEMO_JOB_TITLES.recorded, 'submitted', ['2026-05-11', '2026-05-14']);
+      await insertRecord(tx, DEMO_AS_BUILT, recordedJob, recordedSite);
+      const inProgressJob = await job(inProgressSite, DEMO_JOB_TITLES.inProgress, 'in_progress', ['2026-06-01', '2026-06-03']);
+      await insertRecord(tx, IN_PROGRESS_AS_BUILT, inProgressJob, inProgressSite);
+      await job(draftSite, DEMO_JOB_TITLES.draft, 'draft', ['2026-07-06', '2026-07-08']);
+
+      const homeowner = userId(DEMO_EMAILS.homeowner);
+      if (homeowner) await tx.insert(schema.siteHomeowners).values({ siteId: recordedSite, userId: homeowner });
+      return { lines };
+    });
+  } finally {
+    if (typeof database === 'string') await pool.end();
+  }
+}

@@ -1,0 +1,43 @@
+import { z } from 'zod';
+
+const NameSchema = z.string().trim().min(1, { error: 'is required' }).max(120);
+const OptionalEmailSchema = z
+  .string()
+  .trim()
+  .max(254)
+  .pipe(z.email({ error: 'must be an e-mail address' }))
+  .transform((email) => email.toLowerCase())
+  .nullable();
+const OptionalPhoneSchema = z
+  .string()
+  .trim()
+  .max(40)
+  .regex(/^[0-9+()\-.\s]*$/, { error: 'must contain digits, spaces and + ( ) - . only' })
+  .nullable();
+const NotesSchema = z.string().max(2000).nullable();
+
+export const CreateCustomerSchema = z.object({
+  name: NameSchema,
+  email: OptionalEmailSchema.optional(),
+  phone: OptionalPhoneSchema.optional(),
+  notes: NotesSchema.optional(),
+});
+export type CreateCustomerInput = z.infer<typeof CreateCustomerSchema>;
+
+export const UpdateCustomerSchema = CreateCustomerSchema.partial().refine((v) => Object.keys(v).length > 0, {
+  error: 'nothing to change',
+});
+export type UpdateCustomerInput = z.infer<typeof UpdateCustomerSchema>;
+
+export const CustomerListQuerySchema = z.object({ q: z.string().trim().max(120).optional() });
+export type CustomerListQuery = z.infer<typeof CustomerListQuerySchema>;
+
+export interface CustomerResponse {
+  id: string;
+  name: string;
+  email: string | null;
+  phone: string | null;
+  notes: string | null;
+  createdAt: string;
+  updatedAt: string;
+}

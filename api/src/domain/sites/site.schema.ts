@@ -1,0 +1,101 @@
+import { z } from 'zod';
+
+import { LabelSchema, PlanCoordinateSchema } from '../as-built/common.schema.js';
+
+const Text120 = z.string().trim().max(120);
+const Required120 = z.string().trim().min(1, { error: 'is required' }).max(120);
+const Pixel = z.number().finite().min(0).max(100_000);
+
+/** Two points on the site-plan image (pixels) and the real distance between them (metres). */
+export const PlanCalibrationSchema = z
+  .object({
+    a: z.object({ x: Pixel, y: Pixel }),
+    b: z.object({ x: Pixel, y: Pixel }),
+    distanceM: z.number().finite().positive().max(10_000),
+  })
+  .refine((c) => c.a.x !== c.b.x || c.a.y !== c.b.y, { error: 'the two calibration points must differ', path: ['b'] });
+export type PlanCalibration = z.infer<typeof PlanCalibrationSchema>;
+
+const siteFields = {
+  customerId: z.uuid(),
+  label: Required120,
+  addressLine1: Required120,
+  addressLine2: Text120.nullable().optional(),
+  city: Required120,
+  region: Text120.nullable().optional(),
+  postalCode: z.string().trim().max(20).nullable().optional(),
+  country: Required120,
+  /** True bearing of the plan's +y axis, degrees clockwise from true north. */
+  northAzimuthDeg: z.number().finite().min(-360).max(360).optional(),
+  origin: z
+    .object({ lat: z.number().finite().min(-89.9).max(89.9), lon: z.number().finite().min(-180).max(180) })
+    .nullable()
+    .optional(),
+  planImageRef: z.string().trim().min(1).max(500).nullable().optional(),
+  planCalibration: PlanCalibrationSchema.nullable().optional(),
+  notes: z.string().max(2000).nullable().optional(),
+};
+
+export const CreateSiteSchema = z.object(siteFields);
+export type CreateSiteInput = z.infer<typeof CreateSiteSchema>;
+
+export const UpdateSiteSchema = z
+  .object(siteFields)
+  .partial()
+  .refine((v) => Object.keys(v).length > 0, { error: 'nothing to change' });
+export type UpdateSiteInput = z.infer<typeof UpdateSiteSchema>;
+
+export const SiteListQuerySchema = z.object({
+  q: z.string().trim().max(120).optional(),
+  customerId: z.uuid().optional(),
+});
+export type SiteListQuery = z.infer<typeof SiteListQuerySchema>;
+
+export const CreateReferencePointSchema = z.object({
+  label: LabelSchema,
+  x: PlanCoordinateSchema,
+  y: PlanCoordinateSchema,
+  notes: z.string().max(2000).nullable().optional(),
+});
+export type CreateReferencePointInput = z.infer<typeof CreateReferencePointSchema>;
+
+export const UpdateReferencePointSchema = CreateReferencePointSchema.partial().refine((v) => Object.keys(v).length > 0, {
+  error: 'nothing to change',
+});
+export type UpdateReferencePointInput = z.infer<typeof UpdateReferencePointSchema>;
+
+export const LinkHomeownerSchema = z.object({ userId: z.uuid() });
+export type LinkHomeownerInput = z.infer<typeof LinkHomeownerSchema>;
+
+export interface ReferencePointResponse {
+  id: string;
+  label: string;
+  x: number;
+  y: number;
+  notes: string | null;
+}
+
+export interface SiteSummaryResponse {
+  id: string;
+  label: string;
+  customer: { id: string; name: string };
+  addressLine1: string;
+  addressLine2: string | null;
+  city: string;
+  region: string | null;
+  postalCode: string | null;
+  country: string;
+}
+
+export interface SiteResponse extends SiteSummaryResponse {
+  northAzimuthDeg: number;
+  origin: { lat: number; lon: number } | null;
+  planImageRef: string | null;
+  planCalibration: PlanCalibration | null;
+  notes: string | null;
+  referencePoints: ReferencePointResponse[];
+  homeowners: { id: string; name: string; email: string }[];
+  jobs: { id: string; title: string; status: string; revision: number; updatedAt: string }[];
+  createdAt: string;
+  updatedAt: string;
+}

@@ -1,0 +1,116 @@
+import { describe, expect, it } from 'vitest';
+
+import { AsBuiltSchema } from '../domain/as-built/as-built.schema.js';
+import { DEMO_AS_BUILT } from '../domain/as-built/demo-as-built.js';
+import type {
+  AmplifierChannelRow,
+  CommissioningCheckRow,
+  DepthReadingRow,
+  ItemRow,
+  ItemTieRow,
+  ReferencePointRow,
+  RunPairRow,
+  RunRoutePointRow,
+  RunRow,
+  ZoneRow,
+} from '../db/schema/index.js';
+import { depthReadingIdsByRun, type JobRecordRows, toAsBuilt, toRecordRows } from './as-built-rows.js';
+
+const now = new Date('2026-05-14T12:00:00Z');
+
+/** What the database would return for rows inserted in order: sequences, defaults and generated ids. */
+function asStored(asBuilt = DEMO_AS_BUILT): JobRecordRows {
+  let readingId = 0;
+  const rows = toRecordRows(asBuilt, {
+    jobId: 'job-1',
+    siteId: 'site-1',
+    idFor: (id) => `db:${id}`,
+    newId: () => `db:reading-${(readingId += 1)}`,
+  });
+  const seq = <T>(list: T[]) => list.map((row, i) => ({ ...row, seq: i + 1 }));
+  return {
+    site: { northAzimuthDeg: asBuilt.site?.northAzimuthDeg ?? 0, originLat: asBuilt.site?.origin?.lat ?? null, originLon: asBuilt.site?.origin?.lon ?? null },
+    zones: seq(rows.zones) as ZoneRow[],
+    referencePoints: seq(rows.referencePoints).map((p) => ({ ...p, notes: null, createdAt: now })) as ReferencePointRow[],
+    items: seq(rows.items).map((i) => ({ ...i, createdAt: now, updatedAt: now })) as ItemRow[],
+    channels: seq(rows.channels).map((c) => ({
+      ...c,
+      source: null,
+      gain: null,
+      volumeLimit: null,
+      eq: null,
+      crossover: null,
+      polarity: null,
+      firmware: null,
+      networkName: null,
+      setupNotes: null,
+    })) as AmplifierChannelRow[],
+    ties: rows.ties.map((t, i) => ({ ...t, id: `tie-${i}` })) as ItemTieRow[],
+    runs: seq(rows.runs).map((r) => ({ ...r, createdAt: now, updatedAt: now })) as RunRow[],
+    pairs: rows.pairs.map((p, i) => ({ ...p, id: `pair-${i}` })) as RunPairRow[],
+    routePoints: rows.routePoints.map((p, i) => ({ ...p, id: `point-${i}` })) as RunRoutePointRow[],
+    depthReadings: seq(rows.depthReadings).map((r) => ({ ...r, recordedByUserId: null, recordedAt: now })) as DepthReadingRow[],
+    checks: seq(rows.checks).map((c) => ({ ...c, recordedAt: now })) as CommissioningCheckRow[],
+  };
+}
+
+function withDbIds<T>(value: T): T {
+  const ids = new Set<string>();
+  const collect = (v: unknown, key?: string) => {
+    if (typeof v === 'string' && key && /^(id|.*Id)$/.test(key)) ids.add(v);
+    else if (Array.isArray(v)) v.forEach((x) => collect(x));
+    else if (v && typeof v === 'object') Object.entries(v).forEach(([k, x]) => collect(x, k));
+  };
+  collect(value);
+  return JSON.parse(JSON.stringify(value), (_k, v: unknown) => (typeof v === 'string' && ids.has(v) ? `db:${v}` : v)) as T;
+}
+
+describe('toAsBuilt', () => {
+  it('should rebuild the demo as-built from its rows, with database ids', () => {
+    const { units: _units, ...expected } = withDbIds(DEMO_AS_BUILT);
+    const asBuilt = toAsBuilt(asStored());
+    expect(asBuilt).toEqual(expected);
+    expect(AsBuiltSchema.parse(asBuilt)).toEqual(asBuilt);
+  });
+
+  it('should order arrays by sequence, ties and route points by ordinal, readings by station', () => {
+    const rows = asStored();
+    const shuffled: JobRecordRows = {
+      ...rows,
+      items: [...rows.items].reverse(),
+      ties: [...rows.ties].reverse(),
+      routePoints: [...rows.routePoints].reverse(),
+      depthReadings: [...rows.depthReadings].reverse(),
+      pairs: [...rows.pairs].reverse(),
+    };
+    expect(toAsBuilt(shuffled)).toEqual(toAsBuilt(rows));
+  });
+
+  it('should omit optional fields whose columns are null instead of returning null', () => {
+    const rows = asStored();
+    const bare = toAsBuilt({ ...rows, runs: rows.runs.map((r) => ({ ...r, location: null, notes: null })) });
+    for (const run of bare.runs) {
+      expect(run).not.toHaveProperty('location');
+      expect(run).not.toHaveProperty('notes');
+    }
+    expect(bare.runs.filter((r) => r.isSpare)).toHaveLength(1);
+    expect(bare.runs.every((r) => !('isAbandoned' in r))).toBe(true);
+  });
+
+  it('should leave out the GPS origin when the site has none', () => {
+    const rows = asStored();
+    expect(toAsBuilt({ ...rows, site: { northAzimuthDeg: 0, originLat: null, originLon: null } }).site).toEqual({ northAzimuthDeg: 0 });
+  });
+});
+
+describe('depthReadingIdsByRun', () => {
+  it('should list reading ids in the order of the as-built readings', () => {
+    const rows = asStored();
+    const ids = depthReadingIdsByRun(rows);
+    const asBuilt = toAsBuilt(rows);
+    for (const run of asBuilt.runs) {
+      const readings = ids[run.id] ?? [];
+      expect(readings.map((id) => rows.depthReadings.find((r) => r.id === id)!.stationM)).toEqual((run.depthReadings ?? []).map((r) => r.stationM));
+    }
+  });
+});

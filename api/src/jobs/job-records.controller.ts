@@ -1,0 +1,244 @@
+import { Body, Controller, Delete, Param, ParseUUIDPipe, Patch, Post, Put } from '@nestjs/common';
+import { ApiBearerAuth, ApiBody, ApiOperation, ApiTags } from '@nestjs/swagger';
+
+import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
+import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
+import { Roles } from '../common/decorators/roles.decorator.js';
+import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
+import {
+  type ChannelSetup,
+  ChannelSetupSchema,
+  type CheckInput,
+  CheckInputSchema,
+  type DepthReadingInput,
+  DepthReadingInputSchema,
+  type ItemInput,
+  ItemInputSchema,
+  type RunInput,
+  RunInputSchema,
+  type UpdateDepthReadingInput,
+  UpdateDepthReadingSchema,
+  type ZoneInput,
+  ZoneInputSchema,
+} from '../domain/jobs/job-record.schema.js';
+import { ApiJobVersion } from './api-job-version.decorator.js';
+import { JobRecordsService } from './job-records.service.js';
+
+const uuid = new ParseUUIDPipe();
+
+/**
+ * The parts of a job's as-built. Bodies are the as-built contract's shapes without `id` (the server
+ * assigns uuids); every write names the job version it builds on (If-Match or `expectedVersion`) and
+ * answers with the job's new version as `jobVersion`. Crew leads and the office record; technicians may
+ * also write depth readings and commissioning checks.
+ */
+@ApiTags('job records')
+@ApiBearerAuth()
+@ApiJobVersion()
+@Roles('admin', 'office', 'lead')
+@Controller('jobs/:jobId')
+export class JobRecordsController {
+  constructor(private readonly records: JobRecordsService) {}
+
+  @Post('zones')
+  @ApiBody({ schema: { type: 'object' }, examples: { zone: { value: { name: 'Patio', expectedVersion: 1 } } } })
+  createZone(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @ExpectedVersion() version: number,
+    @Body(new ZodValidationPipe(ZoneInputSchema)) body: ZoneInput,
+  ) {
+    return this.records.createZone(user, jobId, version, body);
+  }
+
+  @Patch('zones/:zoneId')
+  updateZone(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @Param('zoneId', uuid) zoneId: string,
+    @ExpectedVersion() version: number,
+    @Body(new ZodValidationPipe(ZoneInputSchema)) body: ZoneInput,
+  ) {
+    return this.records.updateZone(user, jobId, zoneId, version, body);
+  }
+
+  @Delete('zones/:zoneId')
+  @ApiOperation({ summary: 'Delete a zone; its items stay, without a zone' })
+  deleteZone(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @Param('zoneId', uuid) zoneId: string,
+    @ExpectedVersion() version: number,
+  ) {
+    return this.records.deleteZone(user, jobId, zoneId, version);
+  }
+
+  @Post('items')
+  @ApiOperation({ summary: 'Add an equipment item (any kind: amplifier with channels, speaker, subwoofer, junction, spare end, wall entry)' })
+  @ApiBody({
+    schema: { type: 'object' },
+    examples: {
+      speaker: {
+        value: {
+          kind: 'speaker',
+          label: 'Patio satellite P1',
+          nominalImpedanceOhm: 16,
+          ties: [{ referencePointId: '…uuid…', distanceM: 10.2 }],
+          sideHint: 'left',
+          expectedVersion: 4,
+        },
+      },
+    },
+  })
+  createItem(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @ExpectedVersion() version: number,
+    @Body(new ZodValidationPipe(ItemInputSchema)) body: ItemInput,
+  ) {
+    return this.records.createItem(user, jobId, version, body);
+  }
+
+  @Put('items/:itemId')
+  @ApiOperation({ summary: 'Replace an item; amplifier channels sent with their id are kept, channels left out are deleted' })
+  replaceItem(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @Param('itemId', uuid) itemId: string,
+    @ExpectedVersion() version: number,
+    @Body(new ZodValidationPipe(ItemInputSchema)) body: ItemInput,
+  ) {
+    return this.records.replaceItem(user, jobId, itemId, version, body);
+  }
+
+  @Delete('items/:itemId')
+  @ApiOperation({ summary: 'Delete an item (refused with 409 IN_USE while a run or check uses it)' })
+  deleteItem(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @Param('itemId', uuid) itemId: string,
+    @ExpectedVersion() version: number,
+  ) {
+    return this.records.deleteItem(user, jobId, itemId, version);
+  }
+
+  @Put('items/:itemId/channels/:channelId/setup')
+  @ApiOperation({ summary: 'Record how an amplifier channel was set up (source, gain, limits, EQ, crossover …; never passwords)' })
+  updateChannelSetup(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @Param('itemId', uuid) itemId: string,
+    @Param('channelId', uuid) channelId: string,
+    @ExpectedVersion() version: number,
+    @Body(new ZodValidationPipe(ChannelSetupSchema)) body: ChannelSetup,
+  ) {
+    return this.records.updateChannelSetup(user, jobId, itemId, channelId, version, body);
+  }
+
+  @Post('runs')
+  @ApiOperation({ summary: 'Add a run (cable between two items) with its pairs, route and optional depth readings' })
+  createRun(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @ExpectedVersion() version: number,
+    @Body(new ZodValidationPipe(RunInputSchema)) body: RunInput,
+  ) {
+    return this.records.createRun(user, jobId, version, body);
+  }
+
+  @Put('runs/:runId')
+  @ApiOperation({ summary: 'Replace a run; its depth readings are replaced only when the body lists them' })
+  replaceRun(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @Param('runId', uuid) runId: string,
+    @ExpectedVersion() version: number,
+    @Body(new ZodValidationPipe(RunInputSchema)) body: RunInput,
+  ) {
+    return this.records.replaceRun(user, jobId, runId, version, body);
+  }
+
+  @Delete('runs/:runId')
+  deleteRun(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @Param('runId', uuid) runId: string,
+    @ExpectedVersion() version: number,
+  ) {
+    return this.records.deleteRun(user, jobId, runId, version);
+  }
+
+  @Post('runs/:runId/depth-readings')
+  @Roles('admin', 'office', 'lead', 'tech')
+  @ApiOperation({ summary: 'Quick add: a depth reading (cover, metres) at a station (metres from the run’s from-end)' })
+  @ApiBody({ schema: { type: 'object' }, examples: { reading: { value: { stationM: 3, depthM: 0.11, expectedVersion: 9 } } } })
+  addDepthReading(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @Param('runId', uuid) runId: string,
+    @ExpectedVersion() version: number,
+    @Body(new ZodValidationPipe(DepthReadingInputSchema)) body: DepthReadingInput,
+  ) {
+    return this.records.addDepthReading(user, jobId, runId, version, body);
+  }
+
+  @Patch('runs/:runId/depth-readings/:readingId')
+  @Roles('admin', 'office', 'lead', 'tech')
+  updateDepthReading(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @Param('runId', uuid) runId: string,
+    @Param('readingId', uuid) readingId: string,
+    @ExpectedVersion() version: number,
+    @Body(new ZodValidationPipe(UpdateDepthReadingSchema)) body: UpdateDepthReadingInput,
+  ) {
+    return this.records.updateDepthReading(user, jobId, runId, readingId, version, body);
+  }
+
+  @Delete('runs/:runId/depth-readings/:readingId')
+  @Roles('admin', 'office', 'lead', 'tech')
+  deleteDepthReading(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @Param('runId', uuid) runId: string,
+    @Param('readingId', uuid) readingId: string,
+    @ExpectedVersion() version: number,
+  ) {
+    return this.records.deleteDepthReading(user, jobId, runId, readingId, version);
+  }
+
+  @Post('checks')
+  @Roles('admin', 'office', 'lead', 'tech')
+  @ApiOperation({ summary: 'Add a commissioning check (measured DC resistance or impedance of one channel)' })
+  createCheck(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @ExpectedVersion() version: number,
+    @Body(new ZodValidationPipe(CheckInputSchema)) body: CheckInput,
+  ) {
+    return this.records.createCheck(user, jobId, version, body);
+  }
+
+  @Put('checks/:checkId')
+  @Roles('admin', 'office', 'lead', 'tech')
+  replaceCheck(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @Param('checkId', uuid) checkId: string,
+    @ExpectedVersion() version: number,
+    @Body(new ZodValidationPipe(CheckInputSchema)) body: CheckInput,
+  ) {
+    return this.records.replaceCheck(user, jobId, checkId, version, body);
+  }
+
+  @Delete('checks/:checkId')
+  @Roles('admin', 'office', 'lead', 'tech')
+  deleteCheck(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @Param('checkId', uuid) checkId: string,
+    @ExpectedVersion() version: number,
+  ) {
+    return this.records.deleteCheck(user, jobId, checkId, version);
+  }
+}

@@ -1,0 +1,361 @@
+import { randomUUID } from 'node:crypto';
+
+import { Injectable } from '@nestjs/common';
+
+import type { AuthUser } from '../common/decorators/current-user.decorator.js';
+import type { AsBuilt, Zone } from '../domain/as-built/as-built.schema.js';
+import type { Item } from '../domain/as-built/item.schema.js';
+import type { DepthReading, Run } from '../domain/as-built/run.schema.js';
+import type { CommissioningCheck } from '../domain/checks/commissioning-check.schema.js';
+import {
+  type ChannelSetup,
+  type CheckInput,
+  type DepthReadingInput,
+  type ItemInput,
+  NEW_RECORD_ID,
+  type RunInput,
+  type UpdateDepthReadingInput,
+  type ZoneInput,
+} from '../domain/jobs/job-record.schema.js';
+import type { JobVersionResponse } from '../domain/jobs/job.schema.js';
+import { type FieldIssue, validateRecord } from '../domain/jobs/record-validation.js';
+import {
+  depthReadingIdsByRun,
+  toChannelRow,
+  toChannelSetup,
+  toCheckRow,
+  toItemRow,
+  toPairRows,
+  toRoutePointRows,
+  toRunRow,
+  toTieRows,
+} from './as-built-rows.js';
+import { inUse, invalid, recordNotFound } from './job-errors.js';
+import { JobWriter } from './job-writer.js';
+import { JobsRepository } from './jobs.repository.js';
+
+type WithVersion<T> = T & JobVersionResponse;
+
+function assertValid(asBuilt: AsBuilt, focus: (string | number)[]): void {
+  const issues = validateRecord(asBuilt, focus);
+  if (issues.length > 0) throw invalid(issues);
+}
+
+function replaceAt<T>(list: readonly T[], index: number, value: T): T[] {
+  return list.map((entry, i) => (i === index ? value : entry));
+}
+
+/**
+ * Gives an amplifier's channels their ids: a new channel (placeholder `new:<i>`) gets a fresh uuid, a
+ * channel sent with an id must be one of this item's existing channels.
+ */
+function assignChannelIds(
+  item: Item,
+  existing: ReadonlySet<string>,
+): { item: Item; channels: { id: string; isNew: boolean }[] } {
+  if (item.kind !== 'amplifier') return { item, channels: [] };
+  const issues: FieldIssue[] = [];
+  const channels = item.channels.map((channel, i) => {
+    if (channel.id.startsWith(`${NEW_RECORD_ID}:`)) return { ...channel, id: randomUUID(), isNew: true };
+    if (!existing.has(channel.id)) issues.push({ path: `channels.${i}.id`, message: 'no such channel on this amplifier; leave the id out for a new channel' });
+    return { ...channel, isNew: false };
+  });
+  if (issues.length > 0) throw invalid(issues);
+  return {
+    item: { ...item, channels: channels.map(({ isNew: _isNew, ...channel }) => channel) },
+    channels: channels.map((c) => ({ id: c.id, isNew: c.isNew })),
+  };
+}
+
+/**
+ * Writes to the parts of a job's as-built: zones, items (with ties and amplifier channels), channel
+ * setup, runs (with pairs, route and depth readings) and commissioning checks. Every write goes through
+ * JobWriter (company, rights, version, audit) and is validated against the whole as-built as it would
+ * be afterwards, so a stored record always passes AsBuiltSchema.
+ */
+@Injectable()
+export class JobRecordsService {
+  constructor(
+    private readonly repository: JobsRepository,
+    private readonly writer: JobWriter,
+  ) {}
+
+  // ---- zones ------------------------------------------------------------------------------------
+
+  createZone(actor: AuthUser, jobId: string, expectedVersion: number, input: ZoneInput): Promise<WithVersion<{ zone: Zone }>> {
+    return this.writer.write(actor, jobId, expectedVersion, 'record', async ({ tx }) => {
+      const row = await this.repository.insertZone(jobId, randomUUID(), input.name, tx);
+      return {
+        result: { zone: { id: row.id, name: row.name } },
+        audit: { action: 'job.zone.create', targetType: 'zone', targetId: row.id },
+      };
+    });
+  }
+
+  updateZone(actor: AuthUser, jobId: string, zoneId: string, expectedVersion: number, input: ZoneInput): Promise<WithVersion<{ zone: Zone }>> {
+    return this.writer.write(actor, jobId, expectedVersion, 'record', async ({ tx }) => {
+      const row = await this.repository.updateZone(jobId, zoneId, input.name, tx);
+      if (!row) throw recordNotFound('zone');
+      return { result: { zone: { id: row.id, name: row.name } }, audit: { action: 'job.zone.update', targetType: 'zone', targetId: zoneId } };
+    });
+  }
+
+  /** Deletes a zone; its items stay, without a zone. */
+  deleteZone(actor: AuthUser, jobId: string, zoneId: string, expectedVersion: number): Promise<JobVersionResponse> {
+    return this.writer.write(actor, jobId, expectedVersion, 'record', async ({ tx }) => {
+      if (!(await this.repository.deleteZone(jobId, zoneId, tx))) throw recordNotFound('zone');
+      return { result: {}, audit: { action: 'job.zone.delete', targetType: 'zone', targetId: zoneId } };
+    });
+  }
+
+  // ---- items ------------------------------------------------------------------------------------
+
+  createItem(actor: AuthUser, jobId: string, expectedVersion: number, input: ItemInput): Promise<WithVersion<{ item: Item }>> {
+    return this.writer.write(actor, jobId, expectedVersion, 'record', async ({ tx, job, record }) => {
+      const { asBuilt } = await record();
+      const id = randomUUID();
+      const { item, channels } = assignChannelIds({ ...input, id }, new Set());
+      assertValid({ ...asBuilt, items: [...asBuilt.items, item] }, ['items', asBuilt.items.length]);
+      await this.repository.insertItem(
+        toItemRow(item, job.id, id),
+        item.kind === 'amplifier' ? item.channels.map((c, i) => toChannelRow(c, id, channels[i]!.id)) : [],
+        toTieRows(item, id),
+        tx,
+      );
+      return { result: { item }, audit: { action: 'job.item.create', targetType: 'item', targetId: id, details: { kind: item.kind } } };
+    });
+  }
+
+  /**
+   * Replaces an item with the body (any kind). Amplifier channels sent with their id are kept (runs and
+   * checks point at them); channels left out are deleted, which is refused while something uses them.
+   */
+  replaceItem(
+    actor: AuthUser,
+    jobId: string,
+    itemId: string,
+    expectedVersion: number,
+    input: ItemInput,
+  ): Promise<WithVersion<{ item: Item }>> {
+    return this.writer.write(actor, jobId, expectedVersion, 'record', async ({ tx, job, record }) => {
+      const { rows, asBuilt } = await record();
+      const index = asBuilt.items.findIndex((i) => i.id === itemId);
+      if (index < 0) throw recordNotFound('item');
+      const existing = new Set(rows.channels.filter((c) => c.itemId === itemId).map((c) => c.id));
+      const { item, channels } = assignChannelIds({ ...input, id: itemId }, existing);
+      assertValid({ ...asBuilt, items: replaceAt(asBuilt.items, index, item) }, ['items', index]);
+      await this.repository.replaceItem(
+        job.id,
+        { ...toItemRow(item, job.id, itemId), id: itemId },
+        item.kind === 'amplifier'
+          ? item.channels.map((c, i) => ({ row: { ...toChannelRow(c, itemId, channels[i]!.id), id: channels[i]!.id }, isNew: channels[i]!.isNew }))
+          : [],
+        toTieRows(item, itemId),
+        tx,
+      );
+      return { result: { item }, audit: { action: 'job.item.update', targetType: 'item', targetId: itemId, details: { kind: item.kind } } };
+    });
+  }
+
+  deleteItem(actor: AuthUser, jobId: string, itemId: string, expectedVersion: number): Promise<JobVersionResponse> {
+    return this.writer.write(actor, jobId, expectedVersion, 'record', async ({ tx, job, record }) => {
+      const { asBuilt } = await record();
+      if (!asBuilt.items.some((i) => i.id === itemId)) throw recordNotFound('item');
+      const issues = validateRecord({ ...asBuilt, items: asBuilt.items.filter((i) => i.id !== itemId) });
+      if (issues.length > 0) throw inUse('item', issues);
+      await this.repository.deleteItem(job.id, itemId, tx);
+      return { result: {}, audit: { action: 'job.item.delete', targetType: 'item', targetId: itemId } };
+    });
+  }
+
+  /** Records how one amplifier channel was set up (never a password: only the network name). */
+  updateChannelSetup(
+    actor: AuthUser,
+    jobId: string,
+    itemId: string,
+    channelId: string,
+    expectedVersion: number,
+    input: ChannelSetup,
+  ): Promise<WithVersion<{ channelSetup: ChannelSetup }>> {
+    return this.writer.write(actor, jobId, expectedVersion, 'record', async ({ tx, record }) => {
+      const { rows } = await record();
+      if (!rows.channels.some((c) => c.id === channelId && c.itemId === itemId)) throw recordNotFound('channel');
+      const row = await this.repository.updateChannelSetup(
+        itemId,
+        channelId,
+        {
+          source: input.source ?? null,
+          gain: input.gain ?? null,
+          volumeLimit: input.volumeLimit ?? null,
+          eq: input.eq ?? null,
+          crossover: input.crossover ?? null,
+          polarity: input.polarity ?? null,
+          firmware: input.firmware ?? null,
+          networkName: input.networkName ?? null,
+          setupNotes: input.notes ?? null,
+        },
+        tx,
+      );
+      return {
+        result: { channelSetup: toChannelSetup(row!) },
+        audit: { action: 'job.channel_setup.update', targetType: 'amplifier_channel', targetId: channelId },
+      };
+    });
+  }
+
+  // ---- runs -------------------------------------------------------------------------------------
+
+  createRun(actor: AuthUser, jobId: string, expectedVersion: number, input: RunInput): Promise<WithVersion<{ run: Run }>> {
+    return this.writer.write(actor, jobId, expectedVersion, 'record', async ({ tx, job, record }) => {
+      const { asBuilt } = await record();
+      const id = randomUUID();
+      const run: Run = { ...input, id };
+      assertValid({ ...asBuilt, runs: [...asBuilt.runs, run] }, ['runs', asBuilt.runs.length]);
+      await this.repository.insertRun(
+        toRunRow(run, job.id, id),
+        toPairRows(run, id),
+        toRoutePointRows(run, id),
+        (run.depthReadings ?? []).map((r) => ({ id: randomUUID(), runId: id, ...r, recordedByUserId: actor.id })),
+        tx,
+      );
+      return { result: { run }, audit: { action: 'job.run.create', targetType: 'run', targetId: id } };
+    });
+  }
+
+  /** Replaces a run with the body; its depth readings are replaced only when the body lists them. */
+  replaceRun(actor: AuthUser, jobId: string, runId: string, expectedVersion: number, input: RunInput): Promise<WithVersion<{ run: Run }>> {
+    return this.writer.write(actor, jobId, expectedVersion, 'record', async ({ tx, job, record }) => {
+      const { asBuilt } = await record();
+      const index = asBuilt.runs.findIndex((r) => r.id === runId);
+      if (index < 0) throw recordNotFound('run');
+      const current = asBuilt.runs[index]!;
+      const keptReadings = input.depthReadings === undefined && current.depthReadings ? { depthReadings: current.depthReadings } : {};
+      const run: Run = { ...input, id: runId, ...keptReadings };
+      assertValid({ ...asBuilt, runs: replaceAt(asBuilt.runs, index, run) }, ['runs', index]);
+      await this.repository.replaceRun(
+        job.id,
+        { ...toRunRow(run, job.id, runId), id: runId },
+        toPairRows(run, runId),
+        toRoutePointRows(run, runId),
+        input.depthReadings?.map((r) => ({ id: randomUUID(), runId, ...r, recordedByUserId: actor.id })),
+        tx,
+      );
+      return { result: { run }, audit: { action: 'job.run.update', targetType: 'run', targetId: runId } };
+    });
+  }
+
+  deleteRun(actor: AuthUser, jobId: string, runId: string, expectedVersion: number): Promise<JobVersionResponse> {
+    return this.writer.write(actor, jobId, expectedVersion, 'record', async ({ tx, job, record }) => {
+      const { asBuilt } = await record();
+      if (!asBuilt.runs.some((r) => r.id === runId)) throw recordNotFound('run');
+      await this.repository.deleteRun(job.id, runId, tx);
+      return { result: {}, audit: { action: 'job.run.delete', targetType: 'run', targetId: runId } };
+    });
+  }
+
+  // ---- depth readings ---------------------------------------------------------------------------
+
+  /** The quick "add depth reading" of the field flow: a station along the run and the cover there. */
+  addDepthReading(
+    actor: AuthUser,
+    jobId: string,
+    runId: string,
+    expectedVersion: number,
+    input: DepthReadingInput,
+  ): Promise<WithVersion<{ depthReading: DepthReading & { id: string } }>> {
+    return this.writer.write(actor, jobId, expectedVersion, 'field', async ({ tx, record }) => {
+      const { asBuilt } = await record();
+      const index = asBuilt.runs.findIndex((r) => r.id === runId);
+      if (index < 0) throw recordNotFound('run');
+      const run = asBuilt.runs[index]!;
+      const readings = [...(run.depthReadings ?? []), input];
+      assertValid(
+        { ...asBuilt, runs: replaceAt(asBuilt.runs, index, { ...run, depthReadings: readings }) },
+        ['runs', index, 'depthReadings', readings.length - 1],
+      );
+      const row = await this.repository.insertReading({ id: randomUUID(), runId, ...input, recordedByUserId: actor.id }, tx);
+      return {
+        result: { depthReading: { id: row.id, stationM: row.stationM, depthM: row.depthM } },
+        audit: { action: 'job.depth_reading.create', targetType: 'depth_reading', targetId: row.id, details: { runId } },
+      };
+    });
+  }
+
+  updateDepthReading(
+    actor: AuthUser,
+    jobId: string,
+    runId: string,
+    readingId: string,
+    expectedVersion: number,
+    input: UpdateDepthReadingInput,
+  ): Promise<WithVersion<{ depthReading: DepthReading & { id: string } }>> {
+    return this.writer.write(actor, jobId, expectedVersion, 'field', async ({ tx, record }) => {
+      const { rows, asBuilt } = await record();
+      const index = asBuilt.runs.findIndex((r) => r.id === runId);
+      if (index < 0) throw recordNotFound('run');
+      const position = (depthReadingIdsByRun(rows)[runId] ?? []).indexOf(readingId);
+      if (position < 0) throw recordNotFound('depth reading');
+      const run = asBuilt.runs[index]!;
+      const readings = replaceAt(run.depthReadings ?? [], position, { ...run.depthReadings![position]!, ...input });
+      assertValid(
+        { ...asBuilt, runs: replaceAt(asBuilt.runs, index, { ...run, depthReadings: readings }) },
+        ['runs', index, 'depthReadings', position],
+      );
+      const row = await this.repository.updateReading(runId, readingId, input, tx);
+      return {
+        result: { depthReading: { id: readingId, stationM: row!.stationM, depthM: row!.depthM } },
+        audit: { action: 'job.depth_reading.update', targetType: 'depth_reading', targetId: readingId, details: { runId } },
+      };
+    });
+  }
+
+  deleteDepthReading(actor: AuthUser, jobId: string, runId: string, readingId: string, expectedVersion: number): Promise<JobVersionResponse> {
+    return this.writer.write(actor, jobId, expectedVersion, 'field', async ({ tx, record }) => {
+      const { rows } = await record();
+      if (!rows.runs.some((r) => r.id === runId)) throw recordNotFound('run');
+      if (!rows.depthReadings.some((r) => r.id === readingId && r.runId === runId)) throw recordNotFound('depth reading');
+      await this.repository.deleteReading(runId, readingId, tx);
+      return { result: {}, audit: { action: 'job.depth_reading.delete', targetType: 'depth_reading', targetId: readingId, details: { runId } } };
+    });
+  }
+
+  // ---- commissioning checks ---------------------------------------------------------------------
+
+  createCheck(actor: AuthUser, jobId: string, expectedVersion: number, input: CheckInput): Promise<WithVersion<{ check: CommissioningCheck }>> {
+    return this.writer.write(actor, jobId, expectedVersion, 'field', async ({ tx, job, record }) => {
+      const { asBuilt } = await record();
+      const id = randomUUID();
+      const check: CommissioningCheck = { ...input, id };
+      assertValid({ ...asBuilt, checks: [...asBuilt.checks, check] }, ['checks', asBuilt.checks.length]);
+      await this.repository.insertCheck(toCheckRow(check, job.id, id, actor.id), tx);
+      return { result: { check }, audit: { action: 'job.check.create', targetType: 'commissioning_check', targetId: id } };
+    });
+  }
+
+  replaceCheck(
+    actor: AuthUser,
+    jobId: string,
+    checkId: string,
+    expectedVersion: number,
+    input: CheckInput,
+  ): Promise<WithVersion<{ check: CommissioningCheck }>> {
+    return this.writer.write(actor, jobId, expectedVersion, 'field', async ({ tx, job, record }) => {
+      const { asBuilt } = await record();
+      const index = asBuilt.checks.findIndex((c) => c.id === checkId);
+      if (index < 0) throw recordNotFound('check');
+      const check: CommissioningCheck = { ...input, id: checkId };
+      assertValid({ ...asBuilt, checks: replaceAt(asBuilt.checks, index, check) }, ['checks', index]);
+      await this.repository.replaceCheck(job.id, { ...toCheckRow(check, job.id, checkId, actor.id), id: checkId }, tx);
+      return { result: { check }, audit: { action: 'job.check.update', targetType: 'commissioning_check', targetId: checkId } };
+    });
+  }
+
+  deleteCheck(actor: AuthUser, jobId: string, checkId: string, expectedVersion: number): Promise<JobVersionResponse> {
+    return this.writer.write(actor, jobId, expectedVersion, 'field', async ({ tx, job, record }) => {
+      const { asBuilt } = await record();
+      if (!asBuilt.checks.some((c) => c.id === checkId)) throw recordNotFound('check');
+      await this.repository.deleteCheck(job.id, checkId, tx);
+      return { result: {}, audit: { action: 'job.check.delete', targetType: 'commissioning_check', targetId: checkId } };
+    });
+  }
+}

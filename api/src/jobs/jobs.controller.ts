@@ -1,0 +1,124 @@
+import { Body, Controller, Delete, Get, HttpCode, HttpStatus, Param, ParseUUIDPipe, Patch, Post, Query } from '@nestjs/common';
+import { ApiBearerAuth, ApiBody, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
+
+import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
+import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
+import { Roles } from '../common/decorators/roles.decorator.js';
+import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
+import {
+  type ChangeJobStatusInput,
+  ChangeJobStatusSchema,
+  type CreateJobInput,
+  CreateJobSchema,
+  type JobAsBuiltResponse,
+  type JobListQuery,
+  JobListQuerySchema,
+  type JobListResponse,
+  type JobResponse,
+  type UpdateJobInput,
+  UpdateJobSchema,
+} from '../domain/jobs/job.schema.js';
+import { ApiJobVersion } from './api-job-version.decorator.js';
+import { JobsService } from './jobs.service.js';
+
+@ApiTags('jobs')
+@ApiBearerAuth()
+@Roles('admin', 'office', 'lead', 'tech')
+@Controller('jobs')
+export class JobsController {
+  constructor(private readonly jobsService: JobsService) {}
+
+  @Get()
+  @ApiOperation({
+    summary: 'List the company’s jobs, a page at a time',
+    description:
+      '`q` searches title, site label, address, city and customer name; `status` is one status or a comma-separated ' +
+      'list; `sort` is updatedAt|title|status|startDate|site|customer, prefixed with - for descending (default -updatedAt); ' +
+      '`page` from 1; `pageSize` up to 100 (default 25); `mine=true` keeps jobs you lead or are assigned to.',
+  })
+  list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(JobListQuerySchema)) query: JobListQuery): Promise<JobListResponse> {
+    return this.jobsService.list(user, query);
+  }
+
+  @Post()
+  @Roles('admin', 'office')
+  @ApiOperation({ summary: 'Create a draft job on a site' })
+  @ApiBody({
+    schema: { type: 'object' },
+    examples: { job: { value: { siteId: '…uuid…', title: 'Back-yard sound, phase 1', crewLeadUserId: '…uuid…', technicianUserIds: [] } } },
+  })
+  create(@CurrentUser() user: AuthUser, @Body(new ZodValidationPipe(CreateJobSchema)) body: CreateJobInput): Promise<JobResponse> {
+    return this.jobsService.create(user, body);
+  }
+
+  @Get(':id')
+  get(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<JobResponse> {
+    return this.jobsService.get(user, id);
+  }
+
+  @Get(':id/as-built')
+  @ApiOperation({
+    summary: 'The whole as-built of a job with its analysis, in one response',
+    description:
+      '`asBuilt` follows the as-built contract (ids are the database uuids); `analysis` is the engineering analysis of it; ' +
+      '`records` adds the ids of depth readings and the amplifier channel setups.',
+  })
+  asBuilt(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<JobAsBuiltResponse> {
+    return this.jobsService.asBuilt(user, id);
+  }
+
+  @Patch(':id')
+  @Roles('admin', 'office', 'lead')
+  @ApiJobVersion()
+  @ApiOperation({ summary: 'Change a job’s details (office); a crew lead on the job may change its notes' })
+  @ApiBody({ schema: { type: 'object' }, examples: { rename: { value: { title: 'Back-yard sound', expectedVersion: 3 } } } })
+  update(
+    @CurrentUser() user: AuthUser,
+    @Param('id', ParseUUIDPipe) id: string,
+    @ExpectedVersion() expectedVersion: number,
+    @Body(new ZodValidationPipe(UpdateJobSchema)) body: UpdateJobInput,
+  ): Promise<JobResponse> {
+    return this.jobsService.update(user, id, expectedVersion, body);
+  }
+
+  @Delete(':id')
+  @Roles('admin', 'office')
+  @HttpCode(HttpStatus.NO_CONTENT)
+  @ApiJobVersion()
+  @ApiOperation({ summary: 'Delete a draft job and its whole record' })
+  async remove(
+    @CurrentUser() user: AuthUser,
+    @Param('id', ParseUUIDPipe) id: string,
+    @ExpectedVersion() expectedVersion: number,
+  ): Promise<void> {
+    await this.jobsService.remove(user, id, expectedVersion);
+  }
+
+  @Post(':id/status')
+  @Roles('admin', 'office', 'lead')
+  @HttpCode(HttpStatus.OK)
+  @ApiJobVersion()
+  @ApiOperation({
+    summary: 'Move a job through its statuses',
+    description:
+      'Crew lead (on their job) or office: draft → in_progress → submitted. Office/admin: submitted → ready_to_issue; ' +
+      'submitted or ready_to_issue → in_progress (send back; `comment` required); issued → in_progress (reopen: the next ' +
+      'revision). `issued` is set by issuing a packet, not here.',
+  })
+  @ApiBody({
+    schema: { type: 'object' },
+    examples: {
+      submit: { value: { to: 'submitted', expectedVersion: 12 } },
+      sendBack: { value: { to: 'in_progress', comment: 'Add a depth reading at the spa splice.', expectedVersion: 13 } },
+    },
+  })
+  @ApiResponse({ status: 400, description: 'A send-back without `comment` (issues name the field)' })
+  changeStatus(
+    @CurrentUser() user: AuthUser,
+    @Param('id', ParseUUIDPipe) id: string,
+    @ExpectedVersion() expectedVersion: number,
+    @Body(new ZodValidationPipe(ChangeJobStatusSchema)) body: ChangeJobStatusInput,
+  ): Promise<JobResponse> {
+    return this.jobsService.changeStatus(user, id, expectedVersion, body);
+  }
+}

@@ -1,0 +1,454 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { and, asc, count, desc, eq, exists, ilike, inArray, notInArray, or, type SQL, sql } from 'drizzle-orm';
+import { alias } from 'drizzle-orm/pg-core';
+
+import { DB, type Db, type Tx } from '../db/db.module.js';
+import {
+  amplifierChannels,
+  commissioningChecks,
+  customers,
+  depthReadings,
+  itemTies,
+  items,
+  type Job,
+  jobs,
+  jobTechnicians,
+  type NewAmplifierChannelRow,
+  type NewCommissioningCheckRow,
+  type NewDepthReadingRow,
+  type NewItemRow,
+  type NewItemTieRow,
+  type NewJob,
+  type NewRunPairRow,
+  type NewRunRoutePointRow,
+  type NewRunRow,
+  referencePoints,
+  runPairs,
+  runRoutePoints,
+  runs,
+  sites,
+  users,
+  zones,
+} from '../db/schema/index.js';
+import type { JobListQuery, JobSortField } from '../domain/jobs/job.schema.js';
+import type { JobRecordRows } from './as-built-rows.js';
+
+/** Escapes LIKE wildcards so a search for "50%" finds the text "50%". */
+function likePattern(q: string): string {
+  return `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+}
+
+const crewLead = alias(users, 'crew_lead');
+
+const SORT_COLUMNS: Record<JobSortField, SQL | typeof jobs.title> = {
+  updatedAt: sql`${jobs.updatedAt}`,
+  title: jobs.title,
+  status: sql`${jobs.status}`,
+  startDate: sql`${jobs.startDate}`,
+  site: sql`${sites.label}`,
+  customer: sql`${customers.name}`,
+};
+
+/** A job with what its summary shows: site, customer and crew lead. */
+const jobViewColumns = {
+  job: jobs,
+  site: { id: sites.id, label: sites.label, city: sites.city },
+  customer: { id: customers.id, name: customers.name },
+  crewLeadName: crewLead.name,
+};
+
+export type JobView = {
+  job: Job;
+  site: { id: string; label: string; city: string };
+  customer: { id: string; name: string };
+  crewLeadName: string | null;
+};
+
+/**
+ * Jobs and their as-built rows. Methods that look a job up take the company id from the signed-in
+ * user; child rows are always addressed through their job id (checked by the service first), so nothing
+ * here crosses companies.
+ */
+@Injectable()
+export class JobsRepository {
+  constructor(@Inject(DB) private readonly db: Db) {}
+
+  transaction<T>(work: (tx: Tx) => Promise<T>): Promise<T> {
+    return this.db.transaction(work);
+  }
+
+  /** A consistent snapshot for reads that span many tables (the as-built). */
+  snapshot<T>(work: (tx: Tx) => Promise<T>): Promise<T> {
+    return this.db.transaction(work, { isolationLevel: 'repeatable read', accessMode: 'read only' });
+  }
+
+  // ---- jobs -------------------------------------------------------------------------------------
+
+  /** One page of the company's jobs matching the query, and the total count of matches. */
+  async list(companyId: string, userId: string, query: JobListQuery): Promise<{ rows: JobView[]; total: number }> {
+    const conditions: SQL[] = [eq(jobs.companyId, companyId)];
+    if (query.q) {
+      const pattern = likePattern(query.q);
+      conditions.push(
+        or(
+          ilike(jobs.title, pattern),
+          ilike(sites.label, pattern),
+          ilike(sites.addressLine1, pattern),
+          ilike(sites.city, pattern),
+          ilike(customers.name, pattern),
+        )!,
+      );
+    }
+    if (query.status && query.status.length > 0) conditions.push(inArray(jobs.status, query.status));
+    if (query.mine) {
+      conditions.push(
+        or(
+          eq(jobs.crewLeadUserId, userId),
+          exists(
+            this.db
+              .select({ one: sql`1` })
+              .from(jobTechnicians)
+              .where(and(eq(jobTechnicians.jobId, jobs.id), eq(jobTechnicians.userId, userId))),
+          ),
+        )!,
+      );
+    }
+    const where = and(...conditions);
+    const isDescending = query.sort.startsWith('-');
+    const column = SORT_COLUMNS[query.sort.replace(/^-/, '') as JobSortField];
+    const [rows, [total]] = await Promise.all([
+      this.db
+        .select(jobViewColumns)
+        .from(jobs)
+        .innerJoin(sites, eq(sites.id, jobs.siteId))
+        .innerJoin(customers, eq(customers.id, sites.customerId))
+        .leftJoin(crewLead, eq(crewLead.id, jobs.crewLeadUserId))
+        .where(where)
+        // The id breaks ties so that paging is stable.
+        .orderBy(isDescending ? desc(column) : asc(column), asc(jobs.id))
+        .limit(query.pageSize)
+        .offset((query.page - 1) * query.pageSize),
+      this.db
+        .select({ n: count() })
+        .from(jobs)
+        .innerJoin(sites, eq(sites.id, jobs.siteId))
+        .innerJoin(customers, eq(customers.id, sites.customerId))
+        .where(where),
+    ]);
+    return { rows, total: total?.n ?? 0 };
+  }
+
+  async findView(companyId: string, id: string, tx?: Tx): Promise<JobView | undefined> {
+    const [row] = await (tx ?? this.db)
+      .select(jobViewColumns)
+      .from(jobs)
+      .innerJoin(sites, eq(sites.id, jobs.siteId))
+      .innerJoin(customers, eq(customers.id, sites.customerId))
+      .leftJoin(crewLead, eq(crewLead.id, jobs.crewLeadUserId))
+      .where(and(eq(jobs.companyId, companyId), eq(jobs.id, id)));
+    return row;
+  }
+
+  /** Reads the job and locks its row until the transaction ends: writes to one job run one at a time. */
+  async lock(companyId: string, id: string, tx: Tx): Promise<Job | undefined> {
+    const [row] = await tx
+      .select()
+      .from(jobs)
+      .where(and(eq(jobs.companyId, companyId), eq(jobs.id, id)))
+      .for('update');
+    return row;
+  }
+
+  async technicians(jobId: string, tx?: Tx): Promise<{ id: string; name: string }[]> {
+    return (tx ?? this.db)
+      .select({ id: users.id, name: users.name })
+      .from(jobTechnicians)
+      .innerJoin(users, eq(users.id, jobTechnicians.userId))
+      .where(eq(jobTechnicians.jobId, jobId))
+      .orderBy(asc(users.name));
+  }
+
+  async insert(job: NewJob, tx: Tx): Promise<Job> {
+    const [row] = await tx.insert(jobs).values(job).returning();
+    return row!;
+  }
+
+  async update(id: string, patch: Partial<NewJob>, tx: Tx): Promise<void> {
+    await tx.update(jobs).set(patch).where(eq(jobs.id, id));
+  }
+
+  /** Bumps the optimistic-lock version (the row is locked by `lock`) and returns the new one. */
+  async bumpVersion(id: string, tx: Tx): Promise<number> {
+    const [row] = await tx
+      .update(jobs)
+      .set({ version: sql`${jobs.version} + 1`, updatedAt: new Date() })
+      .where(eq(jobs.id, id))
+      .returning({ version: jobs.version });
+    return row!.version;
+  }
+
+  async delete(id: string, tx: Tx): Promise<void> {
+    await tx.delete(jobs).where(eq(jobs.id, id));
+  }
+
+  async replaceTechnicians(jobId: string, userIds: readonly string[], tx: Tx): Promise<void> {
+    await tx.delete(jobTechnicians).where(eq(jobTechnicians.jobId, jobId));
+    // Guard against inserting an empty VALUES list.
+    if (userIds.length === 0) return;
+    await tx.insert(jobTechnicians).values(userIds.map((userId) => ({ jobId, userId })));
+  }
+
+  /** Staff users of the company among `ids`, with their roles (for crew assignments). */
+  async findUsers(companyId: string, ids: readonly string[], tx?: Tx) {
+    // Guard against an empty IN () list, which is a syntax error.
+    if (ids.length === 0) return [];
+    return (tx ?? this.db)
+      .select({ id: users.id, role: users.role, isDisabled: users.isDisabled })
+      .from(users)
+      .where(and(eq(users.companyId, companyId), inArray(users.id, [...ids])));
+  }
+
+  async siteInCompany(companyId: string, siteId: string, tx?: Tx): Promise<boolean> {
+    const [row] = await (tx ?? this.db)
+      .select({ id: sites.id })
+      .from(sites)
+      .where(and(eq(sites.companyId, companyId), eq(sites.id, siteId)));
+    return row !== undefined;
+  }
+
+  // ---- the as-built -----------------------------------------------------------------------------
+
+  /**
+   * Every row of one job's as-built, in a fixed number of queries (one per table) however large the job
+   * is. Run it inside `snapshot` (or the write's transaction) for a consistent view.
+   */
+  async loadRecord(job: Pick<Job, 'id' | 'siteId'>, tx: Tx): Promise<JobRecordRows> {
+    const [site] = await tx
+      .select({ northAzimuthDeg: sites.northAzimuthDeg, originLat: sites.originLat, originLon: sites.originLon })
+      .from(sites)
+      .where(eq(sites.id, job.siteId));
+    const zoneRows = await tx.select().from(zones).where(eq(zones.jobId, job.id)).orderBy(asc(zones.seq));
+    const pointRows = await tx
+      .select()
+      .from(referencePoints)
+      .where(eq(referencePoints.siteId, job.siteId))
+      .orderBy(asc(referencePoints.seq));
+    const itemRows = await tx.select().from(items).where(eq(items.jobId, job.id)).orderBy(asc(items.seq));
+    const channelRows = await tx
+      .select({ channel: amplifierChannels })
+      .from(amplifierChannels)
+      .innerJoin(items, eq(items.id, amplifierChannels.itemId))
+      .where(eq(items.jobId, job.id))
+      .orderBy(asc(amplifierChannels.seq));
+    const tieRows = await tx
+      .select({ tie: itemTies })
+      .from(itemTies)
+      .innerJoin(items, eq(items.id, itemTies.itemId))
+      .where(eq(items.jobId, job.id))
+      .orderBy(asc(itemTies.itemId), asc(itemTies.ordinal));
+    const runRows = await tx.select().from(runs).where(eq(runs.jobId, job.id)).orderBy(asc(runs.seq));
+    const pairRows = await tx
+      .select({ pair: runPairs })
+      .from(runPairs)
+      .innerJoin(runs, eq(runs.id, runPairs.runId))
+      .where(eq(runs.jobId, job.id));
+    const routeRows = await tx
+      .select({ point: runRoutePoints })
+      .from(runRoutePoints)
+      .innerJoin(runs, eq(runs.id, runRoutePoints.runId))
+      .where(eq(runs.jobId, job.id))
+      .orderBy(asc(runRoutePoints.runId), asc(runRoutePoints.ordinal));
+    const readingRows = await tx
+      .select({ reading: depthReadings })
+      .from(depthReadings)
+      .innerJoin(runs, eq(runs.id, depthReadings.runId))
+      .where(eq(runs.jobId, job.id))
+      .orderBy(asc(depthReadings.runId), asc(depthReadings.stationM), asc(depthReadings.seq));
+    const checkRows = await tx
+      .select()
+      .from(commissioningChecks)
+      .where(eq(commissioningChecks.jobId, job.id))
+      .orderBy(asc(commissioningChecks.seq));
+    return {
+      site: site!,
+      zones: zoneRows,
+      referencePoints: pointRows,
+      items: itemRows,
+      channels: channelRows.map((r) => r.channel),
+      ties: tieRows.map((r) => r.tie),
+      runs: runRows,
+      pairs: pairRows.map((r) => r.pair),
+      routePoints: routeRows.map((r) => r.point),
+      depthReadings: readingRows.map((r) => r.reading),
+      checks: checkRows,
+    };
+  }
+
+  // ---- zones ------------------------------------------------------------------------------------
+
+  async insertZone(jobId: string, id: string, name: string, tx: Tx) {
+    const [row] = await tx.insert(zones).values({ id, jobId, name }).returning();
+    return row!;
+  }
+
+  async updateZone(jobId: string, id: string, name: string, tx: Tx) {
+    const [row] = await tx
+      .update(zones)
+      .set({ name })
+      .where(and(eq(zones.jobId, jobId), eq(zones.id, id)))
+      .returning();
+    return row;
+  }
+
+  /** Deletes the zone; its items stay, without a zone (ON DELETE SET NULL). */
+  async deleteZone(jobId: string, id: string, tx: Tx): Promise<boolean> {
+    const rows = await tx
+      .delete(zones)
+      .where(and(eq(zones.jobId, jobId), eq(zones.id, id)))
+      .returning({ id: zones.id });
+    return rows.length > 0;
+  }
+
+  // ---- items ------------------------------------------------------------------------------------
+
+  async insertItem(
+    item: Omit<NewItemRow, 'seq'>,
+    channels: Omit<NewAmplifierChannelRow, 'seq'>[],
+    ties: NewItemTieRow[],
+    tx: Tx,
+  ): Promise<void> {
+    await tx.insert(items).values(item);
+    if (channels.length > 0) await tx.insert(amplifierChannels).values(channels);
+    if (ties.length > 0) await tx.insert(itemTies).values(ties);
+  }
+
+  /**
+   * Replaces an item's fields and ties. Channels listed in `channels` are updated when they exist and
+   * inserted when new; the item's other channels are deleted (which fails if a run or check uses them).
+   */
+  async replaceItem(
+    jobId: string,
+    item: Omit<NewItemRow, 'seq'> & { id: string },
+    channels: { row: Omit<NewAmplifierChannelRow, 'seq'> & { id: string }; isNew: boolean }[],
+    ties: NewItemTieRow[],
+    tx: Tx,
+  ): Promise<void> {
+    await tx
+      .update(items)
+      .set({ ...item, updatedAt: new Date() })
+      .where(and(eq(items.jobId, jobId), eq(items.id, item.id)));
+    const keptIds = channels.filter((c) => !c.isNew).map((c) => c.row.id);
+    await tx
+      .delete(amplifierChannels)
+      .where(
+        keptIds.length > 0
+          ? and(eq(amplifierChannels.itemId, item.id), notInArray(amplifierChannels.id, keptIds))
+          : eq(amplifierChannels.itemId, item.id),
+      );
+    for (const channel of channels.filter((c) => !c.isNew)) {
+      await tx
+        .update(amplifierChannels)
+        .set({ name: channel.row.name, cvLineVoltage: channel.row.cvLineVoltage, cvRatedWatts: channel.row.cvRatedWatts })
+        .where(eq(amplifierChannels.id, channel.row.id));
+    }
+    const added = channels.filter((c) => c.isNew).map((c) => c.row);
+    if (added.length > 0) await tx.insert(amplifierChannels).values(added);
+    await tx.delete(itemTies).where(eq(itemTies.itemId, item.id));
+    if (ties.length > 0) await tx.insert(itemTies).values(ties);
+  }
+
+  async deleteItem(jobId: string, id: string, tx: Tx): Promise<void> {
+    await tx.delete(items).where(and(eq(items.jobId, jobId), eq(items.id, id)));
+  }
+
+  async updateChannelSetup(itemId: string, channelId: string, setup: Partial<NewAmplifierChannelRow>, tx: Tx) {
+    const [row] = await tx
+      .update(amplifierChannels)
+      .set(setup)
+      .where(and(eq(amplifierChannels.itemId, itemId), eq(amplifierChannels.id, channelId)))
+      .returning();
+    return row;
+  }
+
+  // ---- runs -------------------------------------------------------------------------------------
+
+  async insertRun(
+    run: Omit<NewRunRow, 'seq'>,
+    pairs: NewRunPairRow[],
+    route: NewRunRoutePointRow[],
+    readings: Omit<NewDepthReadingRow, 'seq'>[],
+    tx: Tx,
+  ): Promise<void> {
+    await tx.insert(runs).values(run);
+    if (pairs.length > 0) await tx.insert(runPairs).values(pairs);
+    if (route.length > 0) await tx.insert(runRoutePoints).values(route);
+    if (readings.length > 0) await tx.insert(depthReadings).values(readings);
+  }
+
+  /** Replaces a run's fields, pairs and route; its readings too when `readings` is given. */
+  async replaceRun(
+    jobId: string,
+    run: Omit<NewRunRow, 'seq'> & { id: string },
+    pairs: NewRunPairRow[],
+    route: NewRunRoutePointRow[],
+    readings: Omit<NewDepthReadingRow, 'seq'>[] | undefined,
+    tx: Tx,
+  ): Promise<void> {
+    await tx
+      .update(runs)
+      .set({ ...run, updatedAt: new Date() })
+      .where(and(eq(runs.jobId, jobId), eq(runs.id, run.id)));
+    await tx.delete(runPairs).where(eq(runPairs.runId, run.id));
+    if (pairs.length > 0) await tx.insert(runPairs).values(pairs);
+    await tx.delete(runRoutePoints).where(eq(runRoutePoints.runId, run.id));
+    if (route.length > 0) await tx.insert(runRoutePoints).values(route);
+    if (readings !== undefined) {
+      await tx.delete(depthReadings).where(eq(depthReadings.runId, run.id));
+      if (readings.length > 0) await tx.insert(depthReadings).values(readings);
+    }
+  }
+
+  async deleteRun(jobId: string, id: string, tx: Tx): Promise<void> {
+    await tx.delete(runs).where(and(eq(runs.jobId, jobId), eq(runs.id, id)));
+  }
+
+  // ---- depth readings ---------------------------------------------------------------------------
+
+  async insertReading(reading: Omit<NewDepthReadingRow, 'seq'>, tx: Tx) {
+    const [row] = await tx.insert(depthReadings).values(reading).returning();
+    return row!;
+  }
+
+  async updateReading(runId: string, id: string, patch: { stationM?: number; depthM?: number }, tx: Tx) {
+    const [row] = await tx
+      .update(depthReadings)
+      .set(patch)
+      .where(and(eq(depthReadings.runId, runId), eq(depthReadings.id, id)))
+      .returning();
+    return row;
+  }
+
+  async deleteReading(runId: string, id: string, tx: Tx): Promise<void> {
+    await tx.delete(depthReadings).where(and(eq(depthReadings.runId, runId), eq(depthReadings.id, id)));
+  }
+
+  // ---- commissioning checks ---------------------------------------------------------------------
+
+  async insertCheck(check: Omit<NewCommissioningCheckRow, 'seq'>, tx: Tx): Promise<void> {
+    await tx.insert(commissioningChecks).values(check);
+  }
+
+  async replaceCheck(jobId: string, check: Omit<NewCommissioningCheckRow, 'seq'> & { id: string }, tx: Tx): Promise<void> {
+    // The original recorder and time stay: a correction is not a new measurement.
+    const { recordedByUserId: _recordedBy, ...fields } = check;
+    await tx
+      .update(commissioningChecks)
+      .set(fields)
+      .where(and(eq(commissioningChecks.jobId, jobId), eq(commissioningChecks.id, check.id)));
+  }
+
+  async deleteCheck(jobId: string, id: string, tx: Tx): Promise<void> {
+    await tx.delete(commissioningChecks).where(and(eq(commissioningChecks.jobId, jobId), eq(commissioningChecks.id, id)));
+  }
+}
+

@@ -1,0 +1,150 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { and, asc, desc, eq, ilike, or, type SQL } from 'drizzle-orm';
+
+import { DB, type Db, type Tx } from '../db/db.module.js';
+import {
+  customers,
+  jobs,
+  type NewReferencePointRow,
+  type NewSite,
+  type ReferencePointRow,
+  referencePoints,
+  type Site,
+  siteHomeowners,
+  sites,
+  users,
+} from '../db/schema/index.js';
+
+function likePattern(q: string): string {
+  return `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+}
+
+export type SiteWithCustomer = { site: Site; customer: { id: string; name: string } };
+
+/** Every method takes the company id from the signed-in user, or a site id the service checked first. */
+@Injectable()
+export class SitesRepository {
+  constructor(@Inject(DB) private readonly db: Db) {}
+
+  transaction<T>(work: (tx: Tx) => Promise<T>): Promise<T> {
+    return this.db.transaction(work);
+  }
+
+  list(companyId: string, query: { q?: string; customerId?: string }): Promise<SiteWithCustomer[]> {
+    const conditions: (SQL | undefined)[] = [eq(sites.companyId, companyId)];
+    if (query.customerId) conditions.push(eq(sites.customerId, query.customerId));
+    if (query.q) {
+      const p = likePattern(query.q);
+      conditions.push(or(ilike(sites.label, p), ilike(sites.addressLine1, p), ilike(sites.city, p), ilike(customers.name, p)));
+    }
+    return this.db
+      .select({ site: sites, customer: { id: customers.id, name: customers.name } })
+      .from(sites)
+      .innerJoin(customers, eq(customers.id, sites.customerId))
+      .where(and(...conditions))
+      .orderBy(asc(sites.label), asc(sites.id))
+      .limit(500);
+  }
+
+  async findInCompany(companyId: string, id: string, tx?: Tx): Promise<SiteWithCustomer | undefined> {
+    const [row] = await (tx ?? this.db)
+      .select({ site: sites, customer: { id: customers.id, name: customers.name } })
+      .from(sites)
+      .innerJoin(customers, eq(customers.id, sites.customerId))
+      .where(and(eq(sites.companyId, companyId), eq(sites.id, id)));
+    return row;
+  }
+
+  async customerInCompany(companyId: string, customerId: string, tx: Tx): Promise<boolean> {
+    const [row] = await tx
+      .select({ id: customers.id })
+      .from(customers)
+      .where(and(eq(customers.companyId, companyId), eq(customers.id, customerId)));
+    return row !== undefined;
+  }
+
+  referencePoints(siteId: string, tx?: Tx): Promise<ReferencePointRow[]> {
+    return (tx ?? this.db).select().from(referencePoints).where(eq(referencePoints.siteId, siteId)).orderBy(asc(referencePoints.seq));
+  }
+
+  homeowners(siteId: string, tx?: Tx) {
+    return (tx ?? this.db)
+      .select({ id: users.id, name: users.name, email: users.email })
+      .from(siteHomeowners)
+      .innerJoin(users, eq(users.id, siteHomeowners.userId))
+      .where(eq(siteHomeowners.siteId, siteId))
+      .orderBy(asc(users.name));
+  }
+
+  jobs(siteId: string, tx?: Tx) {
+    return (tx ?? this.db)
+      .select({ id: jobs.id, title: jobs.title, status: jobs.status, revision: jobs.revision, updatedAt: jobs.updatedAt })
+      .from(jobs)
+      .where(eq(jobs.siteId, siteId))
+      .orderBy(desc(jobs.updatedAt));
+  }
+
+  async insert(site: NewSite, tx: Tx): Promise<Site> {
+    const [row] = await tx.insert(sites).values(site).returning();
+    return row!;
+  }
+
+  async updateInCompany(companyId: string, id: string, patch: Partial<NewSite>, tx: Tx): Promise<Site | undefined> {
+    const [row] = await tx
+      .update(sites)
+      .set({ ...patch, updatedAt: new Date() })
+      .where(and(eq(sites.companyId, companyId), eq(sites.id, id)))
+      .returning();
+    return row;
+  }
+
+  async deleteInCompany(companyId: string, id: string, tx: Tx): Promise<boolean> {
+    const rows = await tx
+      .delete(sites)
+      .where(and(eq(sites.companyId, companyId), eq(sites.id, id)))
+      .returning({ id: sites.id });
+    return rows.length > 0;
+  }
+
+  async insertReferencePoint(point: NewReferencePointRow, tx: Tx): Promise<ReferencePointRow> {
+    const [row] = await tx.insert(referencePoints).values(point).returning();
+    return row!;
+  }
+
+  async updateReferencePoint(siteId: string, id: string, patch: Partial<NewReferencePointRow>, tx: Tx) {
+    const [row] = await tx
+      .update(referencePoints)
+      .set(patch)
+      .where(and(eq(referencePoints.siteId, siteId), eq(referencePoints.id, id)))
+      .returning();
+    return row;
+  }
+
+  async deleteReferencePoint(siteId: string, id: string, tx: Tx): Promise<boolean> {
+    const rows = await tx
+      .delete(referencePoints)
+      .where(and(eq(referencePoints.siteId, siteId), eq(referencePoints.id, id)))
+      .returning({ id: referencePoints.id });
+    return rows.length > 0;
+  }
+
+  async homeownerInCompany(companyId: string, userId: string, tx: Tx): Promise<boolean> {
+    const [row] = await tx
+      .select({ id: users.id })
+      .from(users)
+      .where(and(eq(users.companyId, companyId), eq(users.id, userId), eq(users.role, 'homeowner')));
+    return row !== undefined;
+  }
+
+  async linkHomeowner(siteId: string, userId: string, tx: Tx): Promise<void> {
+    await tx.insert(siteHomeowners).values({ siteId, userId }).onConflictDoNothing();
+  }
+
+  async unlinkHomeowner(siteId: string, userId: string, tx: Tx): Promise<boolean> {
+    const rows = await tx
+      .delete(siteHomeowners)
+      .where(and(eq(siteHomeowners.siteId, siteId), eq(siteHomeowners.userId, userId)))
+      .returning({ userId: siteHomeowners.userId });
+    return rows.length > 0;
+  }
+}

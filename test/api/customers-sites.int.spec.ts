@@ -1,0 +1,141 @@
+import type { NestExpressApplication } from '@nestjs/platform-express';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+import { createCompany, type TestCompany, withDb } from '../support/fixtures.js';
+import { type Api, apiAs, createJob, createSite } from '../support/records.js';
+import { signIn } from '../support/session.js';
+import { createTestApp } from '../support/test-app.js';
+
+describe('customers and sites', () => {
+  let app: NestExpressApplication;
+  let a: TestCompany;
+  let b: TestCompany;
+  let office: Api;
+  let lead: Api;
+  let otherAdmin: Api;
+
+  beforeAll(async () => {
+    app = await createTestApp();
+    a = await createCompany('Sites A');
+    b = await createCompany('Sites B');
+    office = apiAs(app, await signIn(app, a.users.office));
+    lead = apiAs(app, await signIn(app, a.users.lead));
+    otherAdmin = apiAs(app, await signIn(app, b.users.admin));
+  });
+
+  afterAll(async () => {
+    await app.close();
+  });
+
+  describe('customers', () => {
+    it('should create, read, search, update and delete a customer', async () => {
+      const created = await office.expectOk('post', '/api/customers', { name: 'Wrenna Moorcastle', email: 'Wrenna@Example.net', phone: '+1 (555) 010-0199' });
+      expect(created).toMatchObject({ name: 'Wrenna Moorcastle', email: 'wrenna@example.net' });
+      expect(await lead.expectOk('get', `/api/customers/${created.id}`)).toEqual(created);
+      expect((await lead.expectOk('get', '/api/customers?q=moorcastle')).map((c: { id: string }) => c.id)).toEqual([created.id]);
+      const updated = await office.expectOk('patch', `/api/customers/${created.id}`, { notes: 'Prefers texts' });
+      expect(updated.notes).toBe('Prefers texts');
+      expect((await office.send('delete', `/api/customers/${created.id}`)).status).toBe(204);
+      expect((await office.send('get', `/api/customers/${created.id}`)).status).toBe(404);
+    });
+
+    it('should answer 400 naming the field, 404 across companies and 409 for a customer with sites', async () => {
+      const bad = await office.send('post', '/api/customers', { name: 'X', email: 'not-an-address' });
+      expect(bad.status).toBe(400);
+      expect(bad.body.issues[0].path).toBe('email');
+      const { customerId } = await createSite(office);
+      expect((await otherAdmin.send('get', `/api/customers/${customerId}`)).status).toBe(404);
+      expect((await otherAdmin.send('patch', `/api/customers/${customerId}`, { name: 'Mine' })).status).toBe(404);
+      expect((await otherAdmin.send('delete', `/api/customers/${customerId}`)).status).toBe(404);
+      expect((await otherAdmin.expectOk('get', '/api/customers')).some((c: { id: string }) => c.id === customerId)).toBe(false);
+      const res = await office.send('delete', `/api/customers/${customerId}`);
+      expect(res.status).toBe(409);
+      expect(res.body.code).toBe('CUSTOMER_HAS_SITES');
+    });
+  });
+
+  describe('sites', () => {
+    it('should create a site with its frame and plan calibration, and read it back', async () => {
+      const customer = await office.expectOk('post', '/api/customers', { name: 'Hollis Fernwake' });
+      const site = await office.expectOk('post', '/api/sites', {
+        customerId: customer.id,
+        label: 'Fernwake back yard',
+        addressLine1: '42 Lanternmoss Court',
+        city: 'Briarholt',
+        region: 'Westmarch',
+        postalCode: '99999',
+        country: 'Testland',
+        northAzimuthDeg: 12,
+        origin: { lat: 40, lon: -105 },
+        planImageRef: 'plans/fernwake.png',
+        planCalibration: { a: { x: 100, y: 200 }, b: { x: 900, y: 200 }, distanceM: 20 },
+      });
+      expect(site).toMatchObject({
+        customer: { id: customer.id, name: 'Hollis Fernwake' },
+        northAzimuthDeg: 12,
+        origin: { lat: 40, lon: -105 },
+        planCalibration: { a: { x: 100, y: 200 }, b: { x: 900, y: 200 }, distanceM: 20 },
+        referencePoints: [],
+        jobs: [],
+      });
+      const updated = await office.expectOk('patch', `/api/sites/${site.id}`, { origin: null, planCalibration: null });
+      expect(updated).toMatchObject({ origin: null, planCalibration: null });
+      expect((await lead.expectOk('get', `/api/sites?customerId=${customer.id}`)).map((s: { id: string }) => s.id)).toEqual([site.id]);
+    });
+
+    it('should answer 400 naming the field', async () => {
+      const { customerId } = await createSite(office);
+      for (const [body, field] of [
+        [{ customerId, label: 'X', addressLine1: '1 A St', city: 'B', country: 'C', northAzimuthDeg: 400 }, 'northAzimuthDeg'],
+        [{ customerId, label: 'X', addressLine1: '1 A St', city: 'B', country: 'C', origin: { lat: 95, lon: 0 } }, 'origin.lat'],
+        [{ customerId, label: 'X', addressLine1: '1 A St', country: 'C' }, 'city'],
+        [{ customerId: '00000000-0000-4000-8000-000000000000', label: 'X', addressLine1: '1 A St', city: 'B', country: 'C' }, 'customerId'],
+      ] as const) {
+        const res = await office.send('post', '/api/sites', body);
+        expect(res.status, JSON.stringify(res.body)).toBe(400);
+        expect(res.body.issues[0].path).toBe(field);
+      }
+    });
+
+    it('should keep reference points on the site, reused by jobs, and refuse deleting one that is tied to', async () => {
+      const { siteId } = await createSite(office);
+      const point = await lead.expectOk('post', `/api/sites/${siteId}/reference-points`, { label: 'Meter base', x: 2, y: -0.5 });
+      const moved = await lead.expectOk('patch', `/api/sites/${siteId}/reference-points/${point.id}`, { x: 2.1 });
+      expect(moved).toMatchObject({ label: 'Meter base', x: 2.1, y: -0.5 });
+      const job = await createJob(office, siteId);
+      await office.expectOk('post', `/api/jobs/${job.id}/items`, { kind: 'junction', label: 'Splice', ties: [{ referencePointId: point.id, distanceM: 3 }] }, { 'If-Match': '1' });
+      const site = await lead.expectOk('get', `/api/sites/${siteId}`);
+      expect(site.referencePoints.map((p: { id: string }) => p.id)).toEqual([point.id]);
+      expect(site.jobs.map((j: { id: string }) => j.id)).toEqual([job.id]);
+      const refused = await office.send('delete', `/api/sites/${siteId}/reference-points/${point.id}`);
+      expect(refused.status).toBe(409);
+      expect((await otherAdmin.send('patch', `/api/sites/${siteId}/reference-points/${point.id}`, { x: 0 })).status).toBe(404);
+      const other = await lead.expectOk('post', `/api/sites/${siteId}/reference-points`, { label: 'Spare', x: 0, y: 0 });
+      expect((await lead.send('delete', `/api/sites/${siteId}/reference-points/${other.id}`)).status).toBe(204);
+      expect((await office.send('delete', `/api/sites/${siteId}`)).status).toBe(409);
+    });
+
+    it('should link and unlink homeowners of the company only', async () => {
+      const { siteId } = await createSite(office);
+      const linked = await office.expectOk('post', `/api/sites/${siteId}/homeowners`, { userId: a.users.homeowner.id });
+      expect(linked).toEqual([{ id: a.users.homeowner.id, name: a.users.homeowner.name, email: a.users.homeowner.email }]);
+      for (const userId of [a.users.tech.id, b.users.homeowner.id]) {
+        const res = await office.send('post', `/api/sites/${siteId}/homeowners`, { userId });
+        expect(res.status).toBe(400);
+        expect(res.body.issues[0].path).toBe('userId');
+      }
+      expect((await otherAdmin.send('delete', `/api/sites/${siteId}/homeowners/${a.users.homeowner.id}`)).status).toBe(404);
+      expect((await office.send('delete', `/api/sites/${siteId}/homeowners/${a.users.homeowner.id}`)).status).toBe(204);
+      const rows = await withDb((db) => db.query('select * from site_homeowners where site_id = $1', [siteId]));
+      expect(rows.rowCount).toBe(0);
+    });
+
+    it('should delete a site without jobs and 404 across companies', async () => {
+      const { siteId } = await createSite(office);
+      expect((await otherAdmin.send('get', `/api/sites/${siteId}`)).status).toBe(404);
+      expect((await otherAdmin.send('delete', `/api/sites/${siteId}`)).status).toBe(404);
+      expect((await office.send('delete', `/api/sites/${siteId}`)).status).toBe(204);
+      expect((await office.send('get', `/api/sites/${siteId}`)).status).toBe(404);
+    });
+  });
+});

@@ -1,0 +1,158 @@
+import type { NestExpressApplication } from '@nestjs/platform-express';
+import request from 'supertest';
+
+import type { AsBuilt } from '../../api/src/domain/as-built/as-built.schema.js';
+import type { Item } from '../../api/src/domain/as-built/item.schema.js';
+import { withDb } from './fixtures.js';
+import { bearer, type Session } from './session.js';
+
+/** A thin client for the API as one signed-in user; throws with the body on an unexpected status. */
+export function apiAs(app: NestExpressApplication, session: Session) {
+  const send = async (method: 'get' | 'post' | 'patch' | 'put' | 'delete', path: string, body?: object, headers: Record<string, string> = {}) => {
+    let req = request(app.getHttpServer())[method](path).set(bearer(session));
+    for (const [name, value] of Object.entries(headers)) req = req.set(name, value);
+    return body === undefined ? req : req.send(body);
+  };
+  const expectOk = async (method: Parameters<typeof send>[0], path: string, body?: object, headers?: Record<string, string>) => {
+    const res = await send(method, path, body, headers);
+    if (res.status >= 300) throw new Error(`${method.toUpperCase()} ${path} → ${res.status} ${JSON.stringify(res.body)}`);
+    return res.body;
+  };
+  return { send, expectOk };
+}
+
+export type Api = ReturnType<typeof apiAs>;
+
+let counter = 0;
+
+/** An invented customer and site (fictional street and town) with the site frame of `frame`. */
+export async function createSite(api: Api, frame?: AsBuilt['site']): Promise<{ customerId: string; siteId: string }> {
+  counter += 1;
+  const customer = await api.expectOk('post', '/api/customers', { name: `Fixture Customer ${counter}`, email: `customer${counter}@fixture.example` });
+  const site = await api.expectOk('post', '/api/sites', {
+    customerId: customer.id,
+    label: `Fixture yard ${counter}`,
+    addressLine1: `${counter} Imaginary Lane`,
+    city: 'Nowhereton',
+    postalCode: '00000',
+    country: 'Testland',
+    ...(frame?.northAzimuthDeg !== undefined ? { northAzimuthDeg: frame.northAzimuthDeg } : {}),
+    ...(frame?.origin ? { origin: { lat: frame.origin.lat, lon: frame.origin.lon } } : {}),
+  });
+  return { customerId: customer.id, siteId: site.id };
+}
+
+export interface JobFixture {
+  id: string;
+  siteId: string;
+  version: number;
+}
+
+export async function createJob(
+  api: Api,
+  siteId: string,
+  crew: { crewLeadUserId?: string; technicianUserIds?: string[] } = {},
+): Promise<JobFixture> {
+  counter += 1;
+  const job = await api.expectOk('post', '/api/jobs', { siteId, title: `Fixture job ${counter}`, ...crew });
+  return { id: job.id, siteId, version: job.version };
+}
+
+/** Moves a job along the status machine as `api`'s user; returns the new version. */
+export async function moveJob(api: Api, job: JobFixture, ...statuses: string[]): Promise<JobFixture> {
+  let version = job.version;
+  for (const to of statuses) {
+    version = (await api.expectOk('post', `/api/jobs/${job.id}/status`, { to, expectedVersion: version, comment: 'fixture' })).version;
+  }
+  return { ...job, version };
+}
+
+function strip<T extends { id: string }>(entry: T): Omit<T, 'id'> {
+  const { id: _id, ...rest } = entry;
+  return rest;
+}
+
+/**
+ * Records a whole as-built on a job through the API, the way a crew would: reference points on the
+ * site, then zones, items, runs and checks. Returns the map from the as-built's ids to the uuids the
+ * API gave, and the job's final version.
+ */
+export async function recordAsBuilt(api: Api, job: JobFixture, asBuilt: AsBuilt): Promise<{ ids: Map<string, string>; version: number }> {
+  const ids = new Map<string, string>();
+  let version = job.version;
+  const map = (id: string) => {
+    const mapped = ids.get(id);
+    if (!mapped) throw new Error(`no uuid yet for ${id}`);
+    return mapped;
+  };
+  const write = async (method: 'post', path: string, body: object) => {
+    const res = await api.expectOk(method, `/api/jobs/${job.id}${path}`, body, { 'If-Match': `"${version}"` });
+    version = res.jobVersion;
+    return res;
+  };
+  for (const point of asBuilt.referencePoints) {
+    const created = await api.expectOk('post', `/api/sites/${job.siteId}/reference-points`, strip(point));
+    ids.set(point.id, created.id);
+  }
+  for (const zone of asBuilt.zones) ids.set(zone.id, (await write('post', '/zones', strip(zone))).zone.id);
+  for (const item of asBuilt.items) {
+    const body: Record<string, unknown> = {
+      ...strip(item),
+      ...(item.zoneId ? { zoneId: map(item.zoneId) } : {}),
+      ...(item.ties ? { ties: item.ties.map((t) => ({ ...t, referencePointId: map(t.referencePointId) })) } : {}),
+      ...(item.kind === 'amplifier' ? { channels: item.channels.map(strip) } : {}),
+    };
+    const created = (await write('post', '/items', body)).item as Item;
+    ids.set(item.id, created.id);
+    if (item.kind === 'amplifier' && created.kind === 'amplifier') {
+      item.channels.forEach((channel, i) => ids.set(channel.id, created.channels[i]!.id));
+    }
+  }
+  const mapChannel = (c: { amplifierItemId: string; channelId: string }) => ({ amplifierItemId: map(c.amplifierItemId), channelId: map(c.channelId) });
+  for (const run of asBuilt.runs) {
+    const body = {
+      ...strip(run),
+      fromItemId: map(run.fromItemId),
+      toItemId: map(run.toItemId),
+      pairs: run.pairs.map((p) => ({ ...p, channel: p.channel ? mapChannel(p.channel) : null })),
+    };
+    ids.set(run.id, (await write('post', '/runs', body)).run.id);
+  }
+  for (const check of asBuilt.checks) {
+    ids.set(check.id, (await write('post', '/checks', { ...strip(check), channel: mapChannel(check.channel) })).check.id);
+  }
+  return { ids, version };
+}
+
+/** Rewrites every id in `value` (any string equal to a mapped id) through `ids`. */
+export function translateIds<T>(value: T, ids: ReadonlyMap<string, string>): T {
+  return JSON.parse(JSON.stringify(value), (_key, v: unknown) => (typeof v === 'string' && ids.has(v) ? ids.get(v) : v)) as T;
+}
+
+/**
+ * Arranges a job with a recorded as-built straight in the database (no API calls, so the authorization
+ * matrix stays fast): the job row in `status` at version 1, its crew, and every row of `asBuilt`.
+ */
+export async function insertRecordedJob(
+  company: { id: string },
+  siteId: string,
+  crew: { crewLeadUserId: string; technicianUserIds: string[] },
+  asBuilt: AsBuilt,
+  status: 'draft' | 'in_progress' = 'in_progress',
+): Promise<{ id: string; version: number; ids: Map<string, string>; depthReadingIds: Map<string, string[]> }> {
+  const { drizzle } = await import('drizzle-orm/node-postgres');
+  const schema = await import('../../api/src/db/schema/index.js');
+  const { insertRecord } = await import('../../api/src/db/seed/demo-seed.js');
+  return withDb(async (client) =>
+    drizzle(client, { schema }).transaction(async (tx) => {
+      const [job] = await tx
+        .insert(schema.jobs)
+        .values({ companyId: company.id, siteId, title: 'Arranged job', status, crewLeadUserId: crew.crewLeadUserId })
+        .returning({ id: schema.jobs.id, version: schema.jobs.version });
+      if (crew.technicianUserIds.length > 0) {
+        await tx.insert(schema.jobTechnicians).values(crew.technicianUserIds.map((userId) => ({ jobId: job!.id, userId })));
+      }
+      return { ...job!, ...(await insertRecord(tx, asBuilt, job!.id, siteId)) };
+    }),
+  );
+}
