@@ -11,7 +11,7 @@ import { drawWiringSchematic } from './wiring-schematic.js';
 // Update on purpose only: `npx vitest run --project api api/src/drawings -u`.
 const DIR = '../../../test/print/__snapshots__';
 const analysis = analyzeAsBuilt(DEMO_AS_BUILT);
-const titleBlock = { title: 'Rear-yard audio, 14 Larkspur Way', subtitle: 'Demo job (invented)', revision: '2', date: '2026-05-14', preparedBy: 'Fernbrook Sound & Light' };
+const titleBlock = { title: 'Rear-yard audio, 14 Larkspur Way', subtitle: 'Demo job (invented)', revision: '2', date: '2026-05-14', preparedBy: 'Quillmoss Outdoor Audio' };
 const createCanvas = createNodeSvgCanvas;
 
 describe('demo job drawings (file snapshots)', () => {
