@@ -15,7 +15,7 @@ import {
   root,
   stopPostgres,
 } from './lib/setup.mjs';
-import { seedDemo, seedDemoRecords } from './lib/seed.mjs';
+import { seedDemo } from './lib/seed.mjs';
 
 const apiPort = process.env.API_PORT ?? '3001';
 const webPort = process.env.PORT ?? '3000';
@@ -41,9 +41,8 @@ ensureNpmDependencies();
 pg = ensurePostgres();
 const databaseUrl = await ensureDatabase(pg, pg.external ? undefined : 'loamline');
 await migrate(databaseUrl);
-const demo = await seedDemo(databaseUrl);
 ensureApiBuilt();
-const demoRecords = await seedDemoRecords(databaseUrl);
+const demo = await seedDemo(databaseUrl);
 
 start('npx', ['tsc', '-p', 'api/tsconfig.build.json', '--watch', '--preserveWatchOutput'], { cwd: root });
 start(process.execPath, ['--watch-path', join(root, 'api/dist'), join(root, 'api/dist/main.js')], {
@@ -55,4 +54,4 @@ start('npx', ['vite', '--port', webPort, '--strictPort', '--host', '127.0.0.1'],
   env: { ...process.env, API_PORT: apiPort },
 });
 log(`dev server: http://127.0.0.1:${webPort} (API on ${apiPort})`);
-for (const line of [...demo.lines, ...demoRecords.lines]) log(line);
+for (const line of demo.lines) log(line);

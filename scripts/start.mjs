@@ -17,7 +17,7 @@ import {
   root,
   stopPostgres,
 } from './lib/setup.mjs';
-import { seedDemo, seedDemoRecords } from './lib/seed.mjs';
+import { seedDemo } from './lib/seed.mjs';
 
 const port = process.env.PORT ?? '3000';
 const host = process.env.HOST ?? '127.0.0.1';
@@ -47,9 +47,8 @@ try {
   const databaseUrl = await ensureDatabase(pg, pg.external ? undefined : 'loamline');
   log(`database ${redact(databaseUrl)}`);
   await migrate(databaseUrl);
-  const demo = await seedDemo(databaseUrl);
   ensureApiBuilt();
-  const demoRecords = await seedDemoRecords(databaseUrl);
+  const demo = await seedDemo(databaseUrl);
   ensureWebBuilt();
 
   server = spawn(process.execPath, [join(root, 'api/dist/main.js')], {
@@ -72,7 +71,7 @@ try {
   });
   await waitForHealth(`http://${host === '0.0.0.0' ? '127.0.0.1' : host}:${port}/api/health`);
   log(`Loamline is ready at http://${host}:${port}`);
-  for (const line of [...demo.lines, ...demoRecords.lines]) log(line);
+  for (const line of demo.lines) log(line);
   log('Press Ctrl-C to stop.');
 } catch (error) {
   console.error(`[loamline] ${error instanceof Error ? error.message : error}`);

@@ -1,10 +1,9 @@
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 
-import { seedDemoRecords } from '../../api/src/db/seed/demo-seed.js';
+import { DEMO_PASSWORD } from '../../api/src/db/seed/demo-records.js';
+import { seedDemo } from '../../api/src/db/seed/demo-seed.js';
 import { AsBuiltSchema } from '../../api/src/domain/as-built/as-built.schema.js';
-// @ts-expect-error -- plain ESM script shared with `npm start`; no type declarations.
-import { DEMO_PASSWORD, seedDemo } from '../../scripts/lib/seed.mjs';
 import { withDb } from '../support/fixtures.js';
 import { apiAs } from '../support/records.js';
 import { signIn } from '../support/session.js';
@@ -25,22 +24,23 @@ describe('demo seed', () => {
 
   beforeAll(async () => {
     app = await createTestApp();
-    await seedDemo(inject('databaseUrl'));
   });
 
   afterAll(async () => {
     await app.close();
   });
 
-  it('should seed three sites and jobs once, and change nothing when run again', async () => {
+  it('should seed the company, its people, three sites and jobs once, and change nothing when run again', async () => {
     const before = await counts();
-    const first = await seedDemoRecords(inject('databaseUrl'));
+    const first = await seedDemo(inject('databaseUrl'));
     const after = await counts();
     expect(after.jobs - before.jobs).toBe(3);
     expect(after.sites - before.sites).toBe(3);
     expect(after.site_homeowners - before.site_homeowners).toBe(1);
-    expect(first.lines.length).toBeGreaterThan(0);
-    await seedDemoRecords(inject('databaseUrl'));
+    expect(first.lines.join('\n')).toContain('lead@quillmoss.example');
+    const users = await withDb((db) => db.query(`select role from users where email like '%@quillmoss.example' order by role::text`));
+    expect(users.rows.map((r: { role: string }) => r.role)).toEqual(['admin', 'lead', 'office', 'tech']);
+    await seedDemo(inject('databaseUrl'));
     expect(await counts()).toEqual(after);
   });
 

@@ -1,17 +1,32 @@
 import type { AsBuilt } from '../../domain/as-built/as-built.schema.js';
 
+import type { Role } from '../../domain/auth/roles.js';
+
 /*
- * Invented demo data (people, streets, towns and postal codes do not exist). The company and its users
- * are seeded by scripts/lib/seed.mjs; this adds what they work on.
+ * Invented demo data: the company, its people, streets, towns and postal codes do not exist. E-mail
+ * domains are reserved example domains (RFC 2606).
  */
 
 export const DEMO_COMPANY_NAME = 'Quillmoss Outdoor Audio';
 
+/** Every demo account signs in with this password (printed by `npm start` and in the README). */
+export const DEMO_PASSWORD = 'quillmoss-demo-2026';
+
+export const DEMO_USERS: readonly { role: Role; name: string; email: string }[] = [
+  { role: 'admin', name: 'Maren Vell', email: 'admin@quillmoss.example' },
+  { role: 'office', name: 'Tobin Ashgrove', email: 'office@quillmoss.example' },
+  { role: 'lead', name: 'Rafe Linwood', email: 'lead@quillmoss.example' },
+  { role: 'tech', name: 'Ines Carrow', email: 'tech@quillmoss.example' },
+  { role: 'homeowner', name: 'Dara Penhallow', email: 'dara.penhallow@example.net' },
+];
+
+const emailOf = (role: Role) => DEMO_USERS.find((u) => u.role === role)!.email;
+
 export const DEMO_EMAILS = {
-  office: 'office@quillmoss.example',
-  lead: 'lead@quillmoss.example',
-  tech: 'tech@quillmoss.example',
-  homeowner: 'dara.penhallow@example.net',
+  office: emailOf('office'),
+  lead: emailOf('lead'),
+  tech: emailOf('tech'),
+  homeowner: emailOf('homeowner'),
 } as const;
 
 export interface DemoSite {

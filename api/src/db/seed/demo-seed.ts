@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 
+import { hash } from '@node-rs/argon2';
 import { and, eq, inArray } from 'drizzle-orm';
 import { drizzle } from 'drizzle-orm/node-postgres';
 import pg from 'pg';
@@ -8,7 +9,15 @@ import { DEMO_AS_BUILT } from '../../domain/as-built/demo-as-built.js';
 import type { AsBuilt } from '../../domain/as-built/as-built.schema.js';
 import { toRecordRows } from '../../jobs/as-built-rows.js';
 import * as schema from '../schema/index.js';
-import { DEMO_COMPANY_NAME, DEMO_EMAILS, DEMO_SITES, type DemoSite, IN_PROGRESS_AS_BUILT } from './demo-records.js';
+import {
+  DEMO_COMPANY_NAME,
+  DEMO_EMAILS,
+  DEMO_PASSWORD,
+  DEMO_SITES,
+  DEMO_USERS,
+  type DemoSite,
+  IN_PROGRESS_AS_BUILT,
+} from './demo-records.js';
 
 type SeedDb = ReturnType<typeof drizzle<typeof schema>>;
 export type SeedTx = Parameters<Parameters<SeedDb['transaction']>[0]>[0];
@@ -68,19 +77,30 @@ export async function insertRecord(
   return { ids, depthReadingIds };
 }
 
+/** The demo company and one user per role; existing rows are left as they are. Returns the company id. */
+async function seedCompanyAndUsers(tx: SeedTx): Promise<string> {
+  let [company] = await tx.select({ id: schema.companies.id }).from(schema.companies).where(eq(schema.companies.name, DEMO_COMPANY_NAME));
+  company ??= (await tx.insert(schema.companies).values({ name: DEMO_COMPANY_NAME }).returning({ id: schema.companies.id }))[0]!;
+  const passwordHash = await hash(DEMO_PASSWORD);
+  await tx
+    .insert(schema.users)
+    .values(DEMO_USERS.map((u) => ({ companyId: company.id, email: u.email, name: u.name, role: u.role, passwordHash })))
+    .onConflictDoNothing({ target: schema.users.email });
+  return company.id;
+}
+
 /**
- * Seeds the demo company's customers, sites and jobs (the company and users come from
- * scripts/lib/seed.mjs): a fully recorded, submitted job from DEMO_AS_BUILT (with its shallow station),
- * one in progress and one draft; the demo homeowner is linked to the recorded job's site. Idempotent:
- * when the company already has its demo customers, nothing is written.
+ * Seeds the demo: the invented company with one user per role, then its customers, sites and jobs —
+ * a fully recorded, submitted job from DEMO_AS_BUILT (with its shallow station), one in progress and
+ * one draft; the demo homeowner is linked to the recorded job's site. Idempotent: when the company
+ * already has its demo customers, no records are written. Returns lines to print (the sign-ins).
  */
-export async function seedDemoRecords(database: string | pg.Pool): Promise<{ lines: string[] }> {
+export async function seedDemo(database: string | pg.Pool): Promise<{ lines: string[] }> {
   const pool = typeof database === 'string' ? new pg.Pool({ connectionString: database, max: 1 }) : database;
   const db = drizzle(pool, { schema });
   try {
     return await db.transaction(async (tx) => {
-      const [company] = await tx.select({ id: schema.companies.id }).from(schema.companies).where(eq(schema.companies.name, DEMO_COMPANY_NAME));
-      if (!company) return { lines: [] };
+      const company = { id: await seedCompanyAndUsers(tx) };
       // Serialise concurrent seeds (two `npm start`s on one database) so both cannot insert.
       await tx.select().from(schema.companies).where(eq(schema.companies.id, company.id)).for('update');
       const [existing] = await tx
@@ -88,6 +108,8 @@ export async function seedDemoRecords(database: string | pg.Pool): Promise<{ lin
         .from(schema.customers)
         .where(and(eq(schema.customers.companyId, company.id), eq(schema.customers.name, DEMO_SITES.recorded.customer.name)));
       const lines = [
+        `demo company: ${DEMO_COMPANY_NAME}; every demo sign-in uses the password ${DEMO_PASSWORD}`,
+        ...DEMO_USERS.map((u) => `  ${u.role.padEnd(9)} ${u.email}  (${u.name})`),
         `demo jobs: "${DEMO_JOB_TITLES.recorded}" (submitted, fully recorded), "${DEMO_JOB_TITLES.inProgress}" (in progress), "${DEMO_JOB_TITLES.draft}" (draft)`,
       ];
       if (existing) return { lines };
