@@ -1,0 +1,109 @@
+import { z } from 'zod';
+
+/** The sizes every upload is turned into. The original is kept as uploaded and served only to staff. */
+export const PHOTO_DERIVATIVES = ['thumb', 'screen', 'print'] as const;
+export type PhotoDerivativeVariant = (typeof PHOTO_DERIVATIVES)[number];
+
+export const PHOTO_VARIANTS = [...PHOTO_DERIVATIVES, 'original'] as const;
+export type PhotoVariant = (typeof PHOTO_VARIANTS)[number];
+
+/** What a photo shows: the job as a whole, or one item (wall entries are items), run or depth reading. */
+export const PHOTO_TARGET_TYPES = ['job', 'item', 'run', 'depth_reading'] as const;
+export type PhotoTargetType = (typeof PHOTO_TARGET_TYPES)[number];
+
+export const PhotoTargetSchema = z.discriminatedUnion('type', [
+  z.object({ type: z.literal('job') }),
+  z.object({ type: z.enum(['item', 'run', 'depth_reading']), id: z.uuid() }),
+]);
+export type PhotoTarget = z.infer<typeof PhotoTargetSchema>;
+
+const CaptionSchema = z
+  .string()
+  .trim()
+  .max(500)
+  .transform((caption) => (caption === '' ? null : caption));
+
+/** When the photo was taken, as the phone reports it (ISO 8601 with an offset or Z). */
+const TakenAtSchema = z.iso.datetime({ offset: true });
+
+/** One text field of a multipart form, which clients may send as JSON (`target={"type":"run",…}`). */
+const jsonField = <T extends z.ZodType>(schema: T) =>
+  z.preprocess((value) => {
+    if (typeof value !== 'string') return value;
+    try {
+      return JSON.parse(value);
+    } catch {
+      return value;
+    }
+  }, schema);
+
+/**
+ * The text fields of `POST /api/jobs/:jobId/photos` (multipart/form-data). `clientUploadId` is the
+ * client's own id for each file, in the order of the files (repeat the field for several files): an
+ * upload retried with the same ids is answered with the photos already stored instead of new copies.
+ * The job version goes in the `If-Match` header (multipart bodies carry no numbers).
+ */
+export const UploadPhotosFieldsSchema = z.object({
+  caption: CaptionSchema.optional(),
+  takenAt: TakenAtSchema.optional(),
+  target: jsonField(PhotoTargetSchema).optional(),
+  clientUploadId: z
+    .preprocess(
+      (value) => (value === undefined ? undefined : Array.isArray(value) ? value : [value]),
+      z.array(z.string().trim().regex(/^[A-Za-z0-9._:-]{1,100}$/, 'letters, digits, . _ : - only (at most 100)')),
+    )
+    .optional(),
+});
+export type UploadPhotosFields = z.infer<typeof UploadPhotosFieldsSchema>;
+
+export const UpdatePhotoSchema = z
+  .object({
+    caption: CaptionSchema.nullable().optional(),
+    takenAt: TakenAtSchema.nullable().optional(),
+    target: PhotoTargetSchema.optional(),
+    expectedVersion: z.number().int().min(1).optional(),
+  })
+  .refine((body) => body.caption !== undefined || body.takenAt !== undefined || body.target !== undefined, {
+    message: 'send at least one of caption, takenAt, target',
+  });
+export type UpdatePhotoInput = z.infer<typeof UpdatePhotoSchema>;
+
+export interface PhotoDerivativeResponse {
+  url: string;
+  width: number;
+  height: number;
+  bytes: number;
+  contentType: string;
+}
+
+export interface PhotoResponse {
+  id: string;
+  jobId: string;
+  target: PhotoTarget;
+  caption: string | null;
+  /** The client's taken-at when sent, otherwise the camera's EXIF time (its local clock, no zone). */
+  takenAt: string | null;
+  clientTakenAt: string | null;
+  /** EXIF DateTimeOriginal as the camera wrote it: local wall-clock time without a zone. */
+  exifTakenAt: string | null;
+  /** EXIF GPS position. Company staff only: never put it in anything that leaves the company. */
+  exifLocation: { lat: number; lon: number } | null;
+  width: number;
+  height: number;
+  original: { contentType: string; bytes: number; sha256: string; name: string | null; url: string | null };
+  derivatives: Record<PhotoDerivativeVariant, PhotoDerivativeResponse>;
+  uploadedBy: { id: string; name: string } | null;
+  createdAt: string;
+  deletedAt: string | null;
+}
+
+export interface UploadPhotosResponse {
+  photos: PhotoResponse[];
+  /** True when every file had been stored before under its clientUploadId (a retried upload). */
+  isReplay: boolean;
+  jobVersion: number;
+}
+
+export interface PhotoListResponse {
+  items: PhotoResponse[];
+}

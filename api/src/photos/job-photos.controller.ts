@@ -1,0 +1,69 @@
+import { Body, Controller, Get, Param, ParseUUIDPipe, Post, Query, Res, UploadedFiles, UseInterceptors } from '@nestjs/common';
+import { FilesInterceptor } from '@nestjs/platform-express';
+import { ApiBearerAuth, ApiBody, ApiConsumes, ApiOperation, ApiQuery, ApiResponse, ApiTags } from '@nestjs/swagger';
+import type { Response } from 'express';
+
+import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
+import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
+import { Roles } from '../common/decorators/roles.decorator.js';
+import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
+import { type UploadPhotosFields, UploadPhotosFieldsSchema } from '../domain/photos/photo.schema.js';
+import { ApiJobVersion } from '../jobs/api-job-version.decorator.js';
+import { PhotosService, type UploadedPhotoFile } from './photos.service.js';
+import { UploadLimitsInterceptor } from './upload-limits.interceptor.js';
+
+const uuid = new ParseUUIDPipe();
+
+/** Photos of one job: the evidence behind its as-built (open trench with a tape, wall entries, the rack). */
+@ApiTags('photos')
+@ApiBearerAuth()
+@Roles('admin', 'office', 'lead', 'tech')
+@Controller('jobs/:jobId/photos')
+export class JobPhotosController {
+  constructor(private readonly photos: PhotosService) {}
+
+  @Get()
+  @ApiOperation({ summary: 'The job’s photos (oldest first) with captions, targets, taken-at and derivative URLs' })
+  @ApiQuery({ name: 'includeDeleted', required: false, description: '`true` to include soft-deleted photos (for undo)' })
+  list(@CurrentUser() user: AuthUser, @Param('jobId', uuid) jobId: string, @Query('includeDeleted') includeDeleted?: string) {
+    return this.photos.list(user, jobId, { includeDeleted: includeDeleted === 'true' });
+  }
+
+  @Post()
+  @ApiJobVersion()
+  @ApiConsumes('multipart/form-data')
+  @ApiOperation({
+    summary:
+      'Upload photos (JPEG, PNG or WebP, sniffed from the bytes) to the job or one of its items, runs or depth readings. ' +
+      'Send the job version as If-Match. Answers 201, or 200 with isReplay when every clientUploadId was stored already.',
+  })
+  @ApiBody({
+    schema: {
+      type: 'object',
+      required: ['files'],
+      properties: {
+        files: { type: 'array', items: { type: 'string', format: 'binary' } },
+        caption: { type: 'string' },
+        takenAt: { type: 'string', format: 'date-time' },
+        target: { type: 'string', example: '{"type":"run","id":"…uuid…"}' },
+        clientUploadId: { type: 'string', description: 'one per file, in file order (repeat the field)' },
+      },
+    },
+  })
+  @ApiResponse({ status: 413, description: 'A file exceeds UPLOAD_MAX_FILE_BYTES, or more than UPLOAD_MAX_FILES files, or too many pixels.' })
+  @ApiResponse({ status: 415, description: 'Not a JPEG, PNG or WebP image (HEIC: send JPEG, “Most Compatible” on iPhone).' })
+  // Outermost first: the limits interceptor sees Multer's errors.
+  @UseInterceptors(UploadLimitsInterceptor, FilesInterceptor('files'))
+  async upload(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @ExpectedVersion() version: number,
+    @Body(new ZodValidationPipe(UploadPhotosFieldsSchema)) fields: UploadPhotosFields,
+    @UploadedFiles() files: UploadedPhotoFile[] | undefined,
+    @Res({ passthrough: true }) res: Response,
+  ) {
+    const result = await this.photos.upload(user, jobId, version, fields, files ?? []);
+    res.status(result.isReplay ? 200 : 201);
+    return result;
+  }
+}

@@ -1,0 +1,35 @@
+import { BadRequestException, HttpException, HttpStatus, NotFoundException, UnsupportedMediaTypeException } from '@nestjs/common';
+
+export function photoNotFound(): NotFoundException {
+  return new NotFoundException({ message: 'No such photo.', code: 'PHOTO_NOT_FOUND' });
+}
+
+const ACCEPTED = 'Send photos as JPEG, PNG or WebP.';
+
+/** 415 for bytes that are not an accepted image, whatever the file is called or claims to be. */
+export function unsupportedImage(label: string): UnsupportedMediaTypeException {
+  return new UnsupportedMediaTypeException({ message: `${label} is not a JPEG, PNG or WebP image. ${ACCEPTED}`, code: 'UNSUPPORTED_IMAGE_TYPE' });
+}
+
+/** 415 for HEIC when this server's image library cannot decode it (the prebuilt libvips has no HEVC). */
+export function heicNotSupported(label: string): UnsupportedMediaTypeException {
+  return new UnsupportedMediaTypeException({
+    message:
+      `${label} is a HEIC photo, which this server cannot read. Send JPEG instead: on an iPhone choose ` +
+      'Settings → Camera → Formats → "Most Compatible" (or share the photo as JPEG); most Android cameras already save JPEG.',
+    code: 'HEIC_NOT_SUPPORTED',
+  });
+}
+
+export function unreadableImage(label: string): UnsupportedMediaTypeException {
+  return new UnsupportedMediaTypeException({ message: `${label} looks like an image but could not be decoded. ${ACCEPTED}`, code: 'UNREADABLE_IMAGE' });
+}
+
+/** 413 naming the limit that was exceeded, so the client can say what to do. */
+export function uploadTooLarge(message: string, code: string): HttpException {
+  return new HttpException({ message, code }, HttpStatus.PAYLOAD_TOO_LARGE);
+}
+
+export function badUpload(message: string, path: string): BadRequestException {
+  return new BadRequestException({ message: `${path}: ${message}`, code: 'VALIDATION_FAILED', issues: [{ path, message }] });
+}

@@ -1,0 +1,171 @@
+import { Injectable, Logger } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+import exifr from 'exifr';
+import sharp, { type Metadata, type OutputInfo, type Sharp } from 'sharp';
+
+import type { Env } from '../config/env.schema.js';
+import {
+  DERIVATIVE_SIZES,
+  IMAGE_CONTENT_TYPES,
+  IMAGE_EXTENSIONS,
+  parseExifDateTime,
+  type SniffedImageType,
+  sniffImageType,
+  validGpsPosition,
+} from '../domain/photos/photo-rules.js';
+import type { PhotoDerivativeVariant } from '../domain/photos/photo.schema.js';
+import { heicNotSupported, unreadableImage, unsupportedImage, uploadTooLarge } from './photo-errors.js';
+
+export interface ProcessedDerivative {
+  variant: PhotoDerivativeVariant;
+  body: Buffer;
+  width: number;
+  height: number;
+  contentType: string;
+  extension: string;
+}
+
+export interface ProcessedPhoto {
+  type: SniffedImageType;
+  contentType: string;
+  extension: string;
+  /** Upright size of the original (EXIF orientation applied). */
+  width: number;
+  height: number;
+  exifTakenAt: string | undefined;
+  location: { lat: number; lon: number } | undefined;
+  derivatives: ProcessedDerivative[];
+}
+
+/**
+ * True when libvips here decodes HEVC-coded HEIF (iPhone photos). The prebuilt sharp binaries ship
+ * libheif with the AV1 decoder only (AVIF), for patent reasons, and then list just `.avif`.
+ */
+export function canDecodeHeic(): boolean {
+  const heif = sharp.format.heif as { input?: { buffer?: boolean; fileSuffix?: string[] } } | undefined;
+  return Boolean(heif?.input?.buffer && heif.input.fileSuffix?.includes('.heic'));
+}
+
+/** EXIF fields we read: the capture time and position. Everything else stays in the original only. */
+const EXIF_OPTIONS = {
+  tiff: true,
+  exif: true,
+  gps: true,
+  ifd1: false,
+  interop: false,
+  xmp: false,
+  icc: false,
+  iptc: false,
+  jfif: false,
+  ihdr: false,
+  reviveValues: false,
+  translateValues: false,
+  pick: ['DateTimeOriginal', 'CreateDate', 'GPSLatitude', 'GPSLatitudeRef', 'GPSLongitude', 'GPSLongitudeRef'],
+};
+
+/**
+ * Turns an uploaded file into the photo's derivatives. One file at a time, one libvips thread, no
+ * operation cache: the API's resident memory then grows by roughly one decoded print-sized image
+ * (2400 px, ~17 MB) plus the encoders, not by the 12 MP originals (JPEG shrink-on-load decodes at 1/2).
+ */
+@Injectable()
+export class PhotoProcessor {
+  private readonly logger = new Logger(PhotoProcessor.name);
+  private readonly maxInputPixels: number;
+  readonly isHeicDecodable: boolean;
+
+  constructor(config: ConfigService<Env, true>) {
+    this.maxInputPixels = config.get('UPLOAD_MAX_INPUT_PIXELS', { infer: true });
+    sharp.concurrency(1);
+    sharp.cache(false);
+    this.isHeicDecodable = canDecodeHeic();
+  }
+
+  /** `label` names the file in error messages (e.g. `files[2] "IMG_0042.JPG"`). */
+  async process(bytes: Buffer, label: string): Promise<ProcessedPhoto> {
+    const type = sniffImageType(bytes);
+    if (type === 'heic' && !this.isHeicDecodable) throw heicNotSupported(label);
+    if (type === undefined || type === 'avif') throw unsupportedImage(label);
+
+    const options = { limitInputPixels: this.maxInputPixels, failOn: 'error' as const };
+    let metadata: Metadata;
+    try {
+      // The header alone, without the pixel limit, so that a bomb is reported as too large (413).
+      metadata = await sharp(bytes, { limitInputPixels: false, failOn: 'error' }).metadata();
+    } catch {
+      throw unreadableImage(label);
+    }
+    const pixels = (metadata.width ?? 0) * (metadata.height ?? 0);
+    if (pixels > this.maxInputPixels) {
+      throw uploadTooLarge(
+        `${label} is ${metadata.width}×${metadata.height} pixels; at most ${(this.maxInputPixels / 1e6).toFixed(0)} megapixels are accepted (UPLOAD_MAX_INPUT_PIXELS).`,
+        'IMAGE_TOO_MANY_PIXELS',
+      );
+    }
+
+    // Decode once: upright, sRGB, at most print size. Every derivative is encoded from this raw image.
+    let base: { data: Buffer; info: OutputInfo };
+    try {
+      base = await sharp(bytes, options)
+        .rotate()
+        .resize(DERIVATIVE_SIZES.print.width, DERIVATIVE_SIZES.print.height, { fit: 'inside', withoutEnlargement: true })
+        .toColourspace('srgb')
+        .raw()
+        .toBuffer({ resolveWithObject: true });
+    } catch (error) {
+      this.logger.warn(`decoding ${label} failed: ${(error as Error).message}`);
+      throw unreadableImage(label);
+    }
+    const raw = { raw: { width: base.info.width, height: base.info.height, channels: base.info.channels } } as const;
+    const derivatives: ProcessedDerivative[] = [];
+    const encode = async (
+      variant: PhotoDerivativeVariant,
+      pipeline: Sharp,
+      contentType: string,
+      extension: string,
+    ): Promise<void> => {
+      // No withMetadata()/keepExif(): sharp writes no EXIF, XMP, GPS or ICC profile (sRGB is assumed).
+      const { data, info } = await pipeline.toBuffer({ resolveWithObject: true });
+      derivatives.push({ variant, body: data, width: info.width, height: info.height, contentType, extension });
+    };
+    await encode('print', sharp(base.data, raw).flatten({ background: '#ffffff' }).jpeg({ quality: 85, mozjpeg: false }), 'image/jpeg', 'jpg');
+    await encode(
+      'screen',
+      sharp(base.data, raw).resize(DERIVATIVE_SIZES.screen.width, DERIVATIVE_SIZES.screen.height, { fit: 'inside', withoutEnlargement: true }).webp({ quality: 80 }),
+      'image/webp',
+      'webp',
+    );
+    await encode(
+      'thumb',
+      sharp(base.data, raw).resize(DERIVATIVE_SIZES.thumb.width, DERIVATIVE_SIZES.thumb.height, { fit: 'cover', position: 'attention' }).webp({ quality: 75 }),
+      'image/webp',
+      'webp',
+    );
+
+    const { width, height } = metadata.autoOrient ?? { width: metadata.width ?? 0, height: metadata.height ?? 0 };
+    return {
+      type,
+      contentType: IMAGE_CONTENT_TYPES[type],
+      extension: IMAGE_EXTENSIONS[type],
+      width,
+      height,
+      ...(await this.readExif(bytes, label)),
+      derivatives,
+    };
+  }
+
+  private async readExif(bytes: Buffer, label: string): Promise<Pick<ProcessedPhoto, 'exifTakenAt' | 'location'>> {
+    try {
+      const exif = (await exifr.parse(bytes, EXIF_OPTIONS)) as Record<string, unknown> | undefined;
+      if (!exif) return { exifTakenAt: undefined, location: undefined };
+      return {
+        exifTakenAt: parseExifDateTime(exif.DateTimeOriginal) ?? parseExifDateTime(exif.CreateDate),
+        location: validGpsPosition(exif.latitude, exif.longitude),
+      };
+    } catch (error) {
+      // A photo with broken EXIF is still evidence: keep it, without time and position from the file.
+      this.logger.warn(`reading EXIF of ${label} failed: ${(error as Error).message}`);
+      return { exifTakenAt: undefined, location: undefined };
+    }
+  }
+}
