@@ -13,13 +13,17 @@ import { DbModule } from './db/db.module.js';
 import { HealthModule } from './health/health.module.js';
 import { JobsModule } from './jobs/jobs.module.js';
 import { MailModule } from './mail/mail.module.js';
+import { PacketsModule } from './packets/packets.module.js';
+import { PhotosModule } from './photos/photos.module.js';
 import { SitesModule } from './sites/sites.module.js';
+import { StorageModule } from './storage/storage.module.js';
 import { UsersModule } from './users/users.module.js';
 
 @Module({
   imports: [
     ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, validate: (env) => readEnv(env) }),
     DbModule,
+    StorageModule,
     AuditModule,
     MailModule,
     HealthModule,
@@ -29,6 +33,8 @@ import { UsersModule } from './users/users.module.js';
     CustomersModule,
     SitesModule,
     JobsModule,
+    PacketsModule,
+    PhotosModule,
   ],
   providers: [
     // Default-deny: every route needs a signed-in user unless marked @Public(); then @Roles() applies.

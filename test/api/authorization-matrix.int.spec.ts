@@ -1,4 +1,7 @@
 import { randomBytes, randomUUID } from 'node:crypto';
+import { mkdtemp, rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import request from 'supertest';
@@ -6,6 +9,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { DEMO_AS_BUILT } from '../../api/src/domain/as-built/demo-as-built.js';
 import { ROLES, type Role } from '../../api/src/domain/auth/roles.js';
+import { DiskStorage } from '../../api/src/storage/disk-storage.js';
+import { OBJECT_STORAGE } from '../../api/src/storage/object-storage.js';
+import { makePng } from '../fixtures/photos/make-photos.js';
 import { createCompany, createUser, TEST_PASSWORD, type TestCompany, withDb } from '../support/fixtures.js';
 import { type Api, apiAs, createJob, createSite, insertRecordedJob, moveJob } from '../support/records.js';
 import { bearer, type Session, signIn } from '../support/session.js';
@@ -23,6 +29,8 @@ interface Call {
   path: string;
   body?: object;
   headers?: Record<string, string>;
+  /** Sent as multipart/form-data files under this field name (with `body` as text fields). */
+  files?: { field: string; name: string; content: Buffer }[];
 }
 
 interface RouteCase {
@@ -144,6 +152,21 @@ describe('authorization matrix', () => {
       check: { id: id('check') },
       checkBody: { ...checkBody, channel },
     };
+  }
+
+  let photoPng: Buffer;
+  let uploadsDir: string;
+
+  /** A photo on a recorded job of company A, uploaded by A's office; with the job's version after it. */
+  async function photoA() {
+    const r = await recordedJobA();
+    const res = await request(app.getHttpServer())
+      .post(`${r.base}/photos`)
+      .set(bearer(sessions.get('office')!))
+      .set(r.headers)
+      .attach('files', photoPng, 'matrix.png');
+    if (res.status !== 201) throw new Error(`photo upload → ${res.status} ${JSON.stringify(res.body)}`);
+    return { id: res.body.photos[0].id as string, headers: { 'If-Match': String(res.body.jobVersion) } };
   }
 
   const staff = (ok: number, otherCompany = 404) => only(['admin', 'office', 'lead', 'tech'], ok, otherCompany);
@@ -396,10 +419,92 @@ describe('authorization matrix', () => {
         return { path: `${r.base}/checks/${r.check.id}`, headers: r.headers };
       },
     },
+    'GET /api/jobs/:jobId/photos': {
+      expect: staff(200),
+      call: async () => ({ path: `${(await recordedJobA()).base}/photos` }),
+    },
+    'POST /api/jobs/:jobId/photos': {
+      expect: staff(201),
+      call: async () => {
+        const r = await recordedJobA();
+        return { path: `${r.base}/photos`, headers: r.headers, body: { caption: 'Trench' }, files: [{ field: 'files', name: 'trench.png', content: photoPng }] };
+      },
+    },
+    'GET /api/photos/:id/:variant': {
+      expect: staff(200),
+      call: async () => ({ path: `/api/photos/${(await photoA()).id}/thumb` }),
+    },
+    'PATCH /api/photos/:id': {
+      expect: staff(200),
+      call: async () => {
+        const p = await photoA();
+        return { path: `/api/photos/${p.id}`, body: { caption: 'Wall entry' }, headers: p.headers };
+      },
+    },
+    'DELETE /api/photos/:id': {
+      expect: staff(200),
+      call: async () => {
+        const p = await photoA();
+        return { path: `/api/photos/${p.id}`, headers: p.headers };
+      },
+    },
+    'POST /api/photos/:id/restore': {
+      expect: staff(200),
+      call: async () => {
+        const p = await photoA();
+        const deleted = await arrange.expectOk('delete', `/api/photos/${p.id}`, undefined, p.headers);
+        return { path: `/api/photos/${p.id}/restore`, headers: { 'If-Match': String(deleted.jobVersion) } };
+      },
+    },
+    'POST /api/jobs/:jobId/packets': {
+      expect: officeOnly(201),
+      call: async () => {
+        const job = await readyToIssueJobA();
+        return { path: `/api/jobs/${job.id}/packets`, headers: { 'If-Match': String(job.version) } };
+      },
+    },
+    'GET /api/jobs/:jobId/packets': {
+      expect: staff(200),
+      isList: true,
+      call: async () => ({ path: `/api/jobs/${(await readyPacketA()).jobId}/packets` }),
+    },
+    'GET /api/packets/:id': { expect: staff(200), call: async () => ({ path: `/api/packets/${(await readyPacketA()).id}` }) },
+    'GET /api/packets/:id/pdf': { expect: staff(200), call: async () => ({ path: `/api/packets/${(await readyPacketA()).id}/pdf` }) },
+    'GET /api/packets/:id/archive.zip': {
+      expect: staff(200),
+      call: async () => ({ path: `/api/packets/${(await readyPacketA()).id}/archive.zip` }),
+    },
   };
 
+  /** A recorded job of company A moved straight to ready to issue (version 1). */
+  async function readyToIssueJobA() {
+    const job = await insertRecordedJob(a, siteA, { crewLeadUserId: a.users.lead.id, technicianUserIds: [] }, DEMO_AS_BUILT);
+    await withDb((db) => db.query(`update jobs set status = 'ready_to_issue' where id = $1`, [job.id]));
+    return job;
+  }
+
+  /** An issued job of company A with a ready packet revision whose (stand-in) files are stored. */
+  async function readyPacketA(): Promise<{ id: string; jobId: string }> {
+    const job = await readyToIssueJobA();
+    const storage = new DiskStorage(uploadsDir);
+    const id = randomUUID();
+    const pdf = await storage.put(`companies/${a.id}/packets/${id}/packet-rev-1.pdf`, Buffer.from('%PDF-1.4 matrix'), 'application/pdf');
+    const zip = await storage.put(`companies/${a.id}/packets/${id}/packet-rev-1.zip`, Buffer.from('PK matrix'), 'application/zip');
+    await withDb(async (db) => {
+      await db.query(`update jobs set status = 'issued' where id = $1`, [job.id]);
+      await db.query(
+        `insert into packet_revisions (id, company_id, job_id, revision, status, snapshot, paper_size, pdf_key, pdf_bytes, pdf_sha256, page_count, zip_key, zip_bytes, zip_sha256, attempts)
+         values ($1, $2, $3, 1, 'ready', '{}'::jsonb, 'letter', $4, $5, $6, 1, $7, $8, $9, 1)`,
+        [id, a.id, job.id, pdf.key, pdf.bytes, pdf.sha256, zip.key, zip.bytes, zip.sha256],
+      );
+    });
+    return { id, jobId: job.id };
+  }
+
   beforeAll(async () => {
-    app = await createTestApp();
+    uploadsDir = await mkdtemp(join(tmpdir(), 'loamline-matrix-uploads-'));
+    photoPng = await makePng();
+    app = await createTestApp({ override: (builder) => builder.overrideProvider(OBJECT_STORAGE).useValue(new DiskStorage(uploadsDir)) });
     a = await createCompany('Matrix A');
     b = await createCompany('Matrix B');
     for (const role of ROLES) sessions.set(role, await signIn(app, a.users[role]));
@@ -413,6 +518,7 @@ describe('authorization matrix', () => {
 
   afterAll(async () => {
     await app.close();
+    await rm(uploadsDir, { recursive: true, force: true });
   });
 
   it('should cover exactly the routes the API serves', () => {
@@ -430,12 +536,16 @@ describe('authorization matrix', () => {
 
     it.each(CALLERS)('as %s', async (caller) => {
       const isRefused = spec.expect[caller] >= 400;
-      const { path, body, headers } = await (isRefused ? (refusedCall ??= Promise.resolve(spec.call())) : spec.call());
+      const { path, body, headers, files } = await (isRefused ? (refusedCall ??= Promise.resolve(spec.call())) : spec.call());
       let req = request(app.getHttpServer())[method](path);
       for (const [name, value] of Object.entries(headers ?? {})) req = req.set(name, value);
       const session = sessions.get(caller);
       if (session) req = req.set(bearer(session));
-      const res = body ? await req.send(body) : await req;
+      if (files) {
+        for (const [name, value] of Object.entries(body ?? {})) req = req.field(name, String(value));
+        for (const file of files) req = req.attach(file.field, file.content, file.name);
+      }
+      const res = files ? await req : body ? await req.send(body) : await req;
       expect(res.status, JSON.stringify(res.body)).toBe(spec.expect[caller]);
       if (caller === 'otherCompany' && spec.isList) {
         const text = JSON.stringify(res.body);

@@ -30,6 +30,41 @@ export const EnvSchema = z.object({
   LOCAL_SMTP_PORT: z.coerce.number().int().min(0).max(65_535).default(2525),
   MAIL_FROM: z.string().min(3).default('Loamline <no-reply@loamline.example>'),
   LOG_LEVEL: z.enum(['error', 'warn', 'log', 'debug', 'verbose']).default('log'),
+  /** Where uploads, photo derivatives and packets are stored: the local disk or an S3-compatible service. */
+  STORAGE_DRIVER: z.enum(['disk', 's3']).default('disk'),
+  /** Root folder of the disk driver (relative paths resolve against the working directory). */
+  UPLOADS_DIR: z.string().min(1).default('.data/uploads'),
+  /** S3-compatible endpoint (e.g. http://127.0.0.1:4568); absent means AWS itself. */
+  S3_ENDPOINT: z.url().optional(),
+  S3_BUCKET: z.string().min(3).optional(),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  /** Credentials of the S3 driver; without them the AWS SDK's default chain applies (no defaults here). */
+  S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+  /** Path-style URLs (http://host/bucket/key), which MinIO, s3rver and most self-hosted services need. */
+  S3_FORCE_PATH_STYLE: z.stringbool().default(false),
+  /** The Chromium binary the packet renderer drives (Debian's `chromium` package). */
+  CHROMIUM_PATH: z.string().min(1).default('/usr/bin/chromium'),
+  /** Process packet renders in the API process too; set false when separate `npm run worker` processes do it. */
+  PACKET_WORKER_IN_API: z.stringbool().default(true),
+  /** Packets one process prints at once (each is a Chromium page). */
+  PACKET_RENDER_CONCURRENCY: z.coerce.number().int().min(1).max(16).default(2),
+  /** Limit for loading and for printing one packet in Chromium, ms (each). */
+  PACKET_RENDER_TIMEOUT_MS: z.coerce.number().int().min(1000).max(600_000).default(60_000),
+  /** Retries of a failed render (with exponential backoff) before the revision is marked failed. */
+  PACKET_RENDER_RETRIES: z.coerce.number().int().min(0).max(10).default(3),
+  /** How often an idle worker polls the queue, seconds (pg-boss 10 minimum 0.5). */
+  QUEUE_POLL_INTERVAL_SECONDS: z.coerce.number().min(0.5).max(60).default(1),
+  /** Largest accepted upload file, in bytes (larger: 413). */
+  UPLOAD_MAX_FILE_BYTES: z.coerce.number().int().min(1024).default(25 * 1024 * 1024),
+  /** Most files accepted in one upload request (more: 413). */
+  UPLOAD_MAX_FILES: z.coerce.number().int().min(1).max(100).default(10),
+  /** Largest decoded image accepted, in pixels (decompression-bomb guard; larger: 413). */
+  UPLOAD_MAX_INPUT_PIXELS: z.coerce.number().int().min(1_000_000).default(100_000_000),
+}).superRefine((env, ctx) => {
+  if (env.STORAGE_DRIVER === 's3' && !env.S3_BUCKET) {
+    ctx.addIssue({ code: 'custom', path: ['S3_BUCKET'], message: 'S3_BUCKET is required when STORAGE_DRIVER=s3' });
+  }
 });
 
 export type Env = z.infer<typeof EnvSchema>;

@@ -5,3 +5,5 @@ export * from './jobs.js';
 export * from './mail.js';
 export * from './sites.js';
 export * from './users.js';
+export * from './photos.js';
+export * from './packets.js';

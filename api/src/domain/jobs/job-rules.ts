@@ -160,3 +160,15 @@ export function canTransition(
   }
   return { isAllowed: true, isNewRevision: transition.isNewRevision };
 }
+
+/**
+ * May `actor` issue a handover packet for `job`? Only office/admin, only from `ready_to_issue`: this is
+ * the one path to `issued` (the status machine above never reaches it).
+ */
+export function canIssuePacket(actor: JobActor, job: Pick<JobAccessFacts, 'status'>): Decision {
+  if (!isOffice(actor.role)) return deny('role', 'ROLE_NOT_ALLOWED', 'Only the office issues handover packets.');
+  if (job.status !== 'ready_to_issue') {
+    return deny('state', 'JOB_NOT_READY_TO_ISSUE', `A job that is ${JOB_STATUS_LABELS[job.status].toLowerCase()} cannot be issued: the office must mark it ready to issue first.`);
+  }
+  return ALLOW;
+}

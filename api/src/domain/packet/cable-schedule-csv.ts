@@ -1,0 +1,62 @@
+import { formatGauge } from '../cable/wire.js';
+import type { PacketSnapshot } from './packet-snapshot.js';
+
+/**
+ * A CSV cell: quoted when it holds a separator, quote or line break; a leading `=`, `+`, `-`, `@`, tab
+ * or carriage return is prefixed with `'` so a spreadsheet never runs text typed on site as a formula.
+ */
+export function csvCell(value: string | number | boolean | null | undefined): string {
+  if (value === null || value === undefined) return '';
+  let text = String(value);
+  if (typeof value === 'string' && /^[=+\-@\t\r]/.test(text)) text = `'${text}`;
+  return /[",\r\n]/.test(text) ? `"${text.replaceAll('"', '""')}"` : text;
+}
+
+const round = (value: number | null | undefined, digits: number): number | null =>
+  value === null || value === undefined ? null : Number(value.toFixed(digits));
+
+/**
+ * The cable schedule as CSV (RFC 4180, CRLF line ends), in SI units with fixed columns so it can be
+ * re-imported; one row per run in record order.
+ */
+export function cableScheduleCsv(snapshot: PacketSnapshot): string {
+  const { asBuilt, analysis } = snapshot;
+  const items = new Map(asBuilt.items.map((i) => [i.id, i.label]));
+  const depth = new Map(analysis.depth.map((d) => [d.runId, d]));
+  const header = [
+    'run',
+    'from',
+    'to',
+    'cable_type',
+    'gauge',
+    'conductors',
+    'length_m',
+    'method',
+    'min_depth_m',
+    'max_depth_m',
+    'depth_readings',
+    'depth_check',
+    'is_spare',
+    'is_abandoned',
+  ];
+  const rows = asBuilt.runs.map((run) => {
+    const d = depth.get(run.id);
+    return [
+      run.label,
+      items.get(run.fromItemId) ?? '',
+      items.get(run.toItemId) ?? '',
+      run.cableType,
+      formatGauge(run.gauge),
+      run.conductors,
+      round(run.measuredLengthM, 3),
+      run.method,
+      round(d?.minDepthM, 3),
+      round(d?.maxDepthM, 3),
+      run.depthReadings?.length ?? 0,
+      d?.status ?? '',
+      run.isSpare ?? false,
+      run.isAbandoned ?? false,
+    ];
+  });
+  return [header, ...rows].map((row) => row.map(csvCell).join(',')).join('\r\n') + '\r\n';
+}

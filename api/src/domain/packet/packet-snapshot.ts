@@ -1,0 +1,73 @@
+import type { AsBuiltAnalysis } from '../analysis/analyze.js';
+import type { AsBuilt } from '../as-built/as-built.schema.js';
+import type { ChannelSetup } from '../jobs/job-record.schema.js';
+
+export type PaperSize = 'letter' | 'a4';
+export type PacketUnits = 'imperial' | 'metric';
+
+/** What a company prints on its packets (company settings, with defaults letter / imperial). */
+export interface PacketSettings {
+  paperSize: PaperSize;
+  units: PacketUnits;
+  licenceNumbers: string[];
+  contactPhone: string | null;
+  contactEmail: string | null;
+}
+
+/**
+ * The immutable source of one issued packet revision, frozen at issue time. Everything the packet
+ * prints comes from here (plus the photos and signatures, which are attached to the revision), so a
+ * revision re-renders identically however the live job changes later.
+ */
+export interface PacketSnapshot {
+  /** Schema version of this document, for readers of old revisions. */
+  format: 1;
+  revision: number;
+  /** ISO timestamp of the issue. */
+  issuedAt: string;
+  issuedBy: { id: string; name: string } | null;
+  company: { id: string; name: string };
+  settings: PacketSettings;
+  job: {
+    id: string;
+    title: string;
+    startDate: string | null;
+    endDate: string | null;
+    notes: string | null;
+  };
+  site: {
+    id: string;
+    label: string;
+    addressLine1: string;
+    addressLine2: string | null;
+    city: string;
+    region: string | null;
+    postalCode: string | null;
+    country: string;
+  };
+  customer: { id: string; name: string; email: string | null; phone: string | null };
+  crewLead: { id: string; name: string } | null;
+  technicians: { id: string; name: string }[];
+  asBuilt: AsBuilt;
+  analysis: AsBuiltAnalysis;
+  /** Amplifier channel setup by channel id (not part of the as-built contract). */
+  channelSetups: Record<string, ChannelSetup>;
+}
+
+/** A photo as it prints in the appendix: already resized for print and inlined. */
+export interface PacketPhoto {
+  caption: string;
+  /** ISO timestamp (EXIF or upload time), or null when unknown. */
+  takenAt: string | null;
+  /** `data:image/jpeg;base64,…` (or png/webp); anything else is refused by the renderer. */
+  dataUri: string;
+}
+
+/** A signature captured at the walkthrough. */
+export interface PacketSignature {
+  role: 'lead' | 'homeowner';
+  signerName: string;
+  signedAt: string;
+  /** SVG path data in a 0 0 400 120 box. */
+  svgPath: string;
+}

@@ -1,0 +1,190 @@
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+import Handlebars from 'handlebars';
+import QRCode from 'qrcode';
+
+import { buildPacketViewModel, type PacketViewModel, type PacketViewModelInput } from '../domain/packet/packet.view-model.js';
+import type { PacketSnapshot } from '../domain/packet/packet-snapshot.js';
+import { drawDepthProfile } from '../drawings/depth-profile.js';
+import { createNodeSvgCanvas } from '../drawings/node-svg-window.js';
+import { drawSitePlan } from '../drawings/site-plan.js';
+import { drawWiringSchematic } from '../drawings/wiring-schematic.js';
+import { type ChromiumPrinter } from './chromium-printer.js';
+import { readPdfOutline } from './pdf-destinations.js';
+
+/** templates/packet and fonts/inter at the repository root (the same relative path from api/src and api/dist). */
+export const PACKET_TEMPLATE_DIR = fileURLToPath(new URL('../../../templates/packet', import.meta.url));
+export const PACKET_FONTS_DIR = fileURLToPath(new URL('../../../fonts/inter', import.meta.url));
+
+/** The Inter subsets and their unicode ranges (as in fonts/README.md and web/src/fonts.css). */
+const FONT_FILES = [
+  {
+    file: 'inter-latin-wght-normal.woff2',
+    range:
+      'U+0000-00FF, U+0131, U+0152-0153, U+02BB-02BC, U+02C6, U+02DA, U+02DC, U+0304, U+0308, U+0329, U+2000-206F, U+20AC, U+2122, U+2191, U+2193, U+2212, U+2215, U+FEFF, U+FFFD',
+  },
+  {
+    file: 'inter-latin-ext-wght-normal.woff2',
+    range:
+      'U+0100-02BA, U+02BD-02C5, U+02C7-02CC, U+02CE-02D7, U+02DD-02FF, U+0304, U+0308, U+0329, U+1D00-1DBF, U+1E00-1E9F, U+1EF2-1EFF, U+2020, U+20A0-20AB, U+20AD-20C0, U+2113, U+2C60-2C7F, U+A720-A7FF',
+  },
+  { file: 'inter-greek-wght-normal.woff2', range: 'U+0370-0377, U+037A-037F, U+0384-038A, U+038C, U+038E-03A1, U+03A3-03FF' },
+] as const;
+
+export interface PacketDrawings {
+  sitePlan: string;
+  schematic: string;
+  profiles: { runId: string; label: string; caption: string; svg: string }[];
+}
+
+interface PacketAssets {
+  fontFaceCss: string;
+  footerFontFaceCss: string;
+  printCss: string;
+  template: Handlebars.TemplateDelegate;
+}
+
+let assets: PacketAssets | undefined;
+
+/**
+ * Fonts (inlined as data URIs: the page may load nothing but data:), the print CSS and the compiled
+ * template, read once per process. Handlebars escapes every `{{value}}`; only our own markup (the CSS,
+ * fonts, the drawings' SVG and the QR code) is inserted raw with `{{{ }}}`.
+ */
+function loadAssets(): PacketAssets {
+  if (!assets) {
+    const faces = FONT_FILES.map(({ file, range }) => {
+      const data = readFileSync(join(PACKET_FONTS_DIR, file)).toString('base64');
+      return `@font-face{font-family:'Inter';font-style:normal;font-weight:100 900;font-display:block;src:url(data:font/woff2;base64,${data}) format('woff2');unicode-range:${range};}`;
+    });
+    const handlebars = Handlebars.create();
+    assets = {
+      fontFaceCss: faces.join('\n'),
+      // The footer is printed in its own document: it needs its own copy of the font (Latin only suffices).
+      footerFontFaceCss: faces[0]!,
+      printCss: readFileSync(join(PACKET_TEMPLATE_DIR, 'print.css'), 'utf8'),
+      template: handlebars.compile(readFileSync(join(PACKET_TEMPLATE_DIR, 'packet.html.hbs'), 'utf8'), { strict: false }),
+    };
+  }
+  return assets;
+}
+
+/** The three kinds of drawing of the snapshot's as-built, in the packet's units and paper. */
+export async function drawPacketDrawings(snapshot: PacketSnapshot, vm: PacketViewModel): Promise<PacketDrawings> {
+  const { asBuilt, analysis, settings } = snapshot;
+  const createCanvas = createNodeSvgCanvas;
+  const units = settings.units;
+  const titleBlock = {
+    title: snapshot.job.title,
+    subtitle: [snapshot.site.label, snapshot.site.addressLine1].join(', '),
+    revision: String(snapshot.revision),
+    date: vm.cover.issuedDate,
+    preparedBy: snapshot.company.name,
+  };
+  return {
+    sitePlan: drawSitePlan(asBuilt, analysis, { createCanvas, units, paper: settings.paperSize, orientation: 'portrait', titleBlock }),
+    schematic: await drawWiringSchematic(asBuilt, analysis, { createCanvas, units }),
+    profiles: vm.cables.profileRunIds.map((p) => ({ ...p, svg: drawDepthProfile(asBuilt, analysis, p.runId, { createCanvas, units }) })),
+  };
+}
+
+export function qrCodeSvg(url: string): Promise<string> {
+  return QRCode.toString(url, { type: 'svg', margin: 0, errorCorrectionLevel: 'M', color: { dark: '#000000', light: '#ffffff' } });
+}
+
+/** Photos may only be inline images; anything else would be a request the sandbox refuses anyway. */
+const INLINE_IMAGE = /^data:image\/(jpeg|png|webp);base64,[A-Za-z0-9+/=]+$/;
+
+export interface PacketHtmlParts {
+  vm: PacketViewModel;
+  drawings: PacketDrawings;
+  qrSvg: string;
+  logoDataUri?: string;
+}
+
+/**
+ * Characters that occur in our own texts and drawings but lie outside the shipped Inter subsets; printed
+ * as-is they would fall back to a system font. Replaced in the final (already escaped) HTML.
+ */
+const OUTSIDE_FONT: Record<string, string> = { '≤': '&lt;=', '≥': '&gt;=', '√': 'sqrt', '→': '-&gt;' };
+
+export function renderPacketHtml(parts: PacketHtmlParts): string {
+  const a = loadAssets();
+  const vm = { ...parts.vm, photos: parts.vm.photos.filter((p) => INLINE_IMAGE.test(p.dataUri)) };
+  return renderTemplate(a, vm, parts).replace(/[≤≥√→]/g, (c) => OUTSIDE_FONT[c] ?? c);
+}
+
+function renderTemplate(a: PacketAssets, vm: PacketViewModel, parts: PacketHtmlParts): string {
+  return a.template({
+    vm,
+    drawings: parts.drawings,
+    assets: {
+      fontFaceCss: a.fontFaceCss,
+      printCss: a.printCss,
+      qrSvg: parts.qrSvg,
+      logoDataUri: parts.logoDataUri && INLINE_IMAGE.test(parts.logoDataUri) ? parts.logoDataUri : undefined,
+    },
+  });
+}
+
+/** The running footer: who and which revision on the left, "Page x of y" on the right. */
+export function renderFooterTemplate(vm: PacketViewModel): string {
+  const text = Handlebars.Utils.escapeExpression(vm.footerText);
+  return (
+    `<style>${loadAssets().footerFontFaceCss}</style>` +
+    `<div style="font-family:Inter;font-size:7pt;color:#56625d;width:100%;margin:0 0.6in;display:flex;justify-content:space-between;">` +
+    `<span>${text}</span><span>Page <span class="pageNumber"></span> of <span class="totalPages"></span></span></div>`
+  );
+}
+
+/** A 1×1 transparent GIF: stands in for photos in the first pass (their frames have a fixed size). */
+const PLACEHOLDER_IMAGE = 'data:image/png;base64,iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAQAAAC1HAwCAAAAC0lEQVR42mNkYAAAAAYAAjCB0C8AAAAASUVORK5CYII=';
+
+/**
+ * The drawing's root element with nothing inside: the same size and viewBox, so the same layout, for the
+ * first pass, which only needs to know where pages break.
+ */
+function emptySvgLike(svg: string): string {
+  const end = svg.indexOf('>');
+  return end > 0 && svg.startsWith('<svg') ? `${svg.slice(0, end + 1)}</svg>` : svg;
+}
+
+export interface RenderedPacket {
+  pdf: Buffer;
+  pageCount: number;
+  html: string;
+  drawings: PacketDrawings;
+}
+
+/**
+ * The whole packet pipeline: view model → drawings → HTML → PDF. Page numbers for the contents are found
+ * by a first print (photos and drawings replaced by empty boxes of the same size, which is cheap) whose named destinations
+ * give each section's page; the second print carries them. The contents page has a fixed layout, so
+ * filling in the numbers cannot move a section.
+ */
+export async function renderPacket(
+  printer: ChromiumPrinter,
+  input: Omit<PacketViewModelInput, 'pageNumbers'> & { logoDataUri?: string; onBlockedRequest?: (url: string) => void },
+): Promise<RenderedPacket> {
+  const draft = buildPacketViewModel(input);
+  const [drawings, qrSvg] = await Promise.all([drawPacketDrawings(input.snapshot, draft), qrCodeSvg(input.locateUrl)]);
+  const footerTemplate = renderFooterTemplate(draft);
+  const firstHtml = renderPacketHtml({
+    vm: { ...draft, photos: draft.photos.map((p) => ({ ...p, dataUri: PLACEHOLDER_IMAGE })) },
+    drawings: {
+      sitePlan: emptySvgLike(drawings.sitePlan),
+      schematic: emptySvgLike(drawings.schematic),
+      profiles: drawings.profiles.map((p) => ({ ...p, svg: emptySvgLike(p.svg) })),
+    },
+    qrSvg,
+    logoDataUri: input.logoDataUri,
+  });
+  const first = readPdfOutline(await printer.print({ html: firstHtml, footerTemplate, isDraft: true, onBlockedRequest: input.onBlockedRequest }));
+  const pageNumbers = Object.fromEntries(draft.toc.map((entry) => [entry.id, first.destinations.get(entry.id)]).filter(([, page]) => page !== undefined));
+  const vm = buildPacketViewModel({ ...input, pageNumbers });
+  const html = renderPacketHtml({ vm, drawings, qrSvg, logoDataUri: input.logoDataUri });
+  const pdf = await printer.print({ html, footerTemplate, onBlockedRequest: input.onBlockedRequest });
+  return { pdf, pageCount: readPdfOutline(pdf).pageCount, html, drawings };
+}

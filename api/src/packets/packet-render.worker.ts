@@ -1,0 +1,148 @@
+import { readFile } from 'node:fs/promises';
+
+import { Inject, Injectable, Logger } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+
+import type { Env } from '../config/env.schema.js';
+import type { PacketSignature } from '../domain/packet/packet-snapshot.js';
+import { LinkBuilder } from '../mail/link-builder.js';
+import { OBJECT_STORAGE, type ObjectStorage } from '../storage/object-storage.js';
+import { buildPacketArchive } from './packet-archive.js';
+import { PACKET_PHOTO_SOURCE, type PacketPhotoSource } from './packet-photo-source.js';
+import { PacketQueue } from './packet-queue.js';
+import { PacketsRepository } from './packets.repository.js';
+import { PdfRendererService } from './pdf-renderer.service.js';
+
+/** A revision left `rendering` this long by a worker that died may be claimed again. */
+const STALE_RENDER_SECONDS = 15 * 60;
+
+const LOGO_TYPES: Record<string, string> = { png: 'image/png', jpg: 'image/jpeg', jpeg: 'image/jpeg', webp: 'image/webp' };
+
+/**
+ * Renders queued packet revisions: claims the revision (so no two workers render it), renders the PDF,
+ * builds the archive, stores both, and only then marks the revision ready. A failed attempt goes back
+ * to `queued` with its reason and pg-boss retries it with backoff; the last failure marks it `failed`.
+ */
+@Injectable()
+export class PacketRenderWorker {
+  private readonly logger = new Logger(PacketRenderWorker.name);
+  private isStarted = false;
+  private retryTimer: NodeJS.Timeout | undefined;
+  private isStopping = false;
+
+  constructor(
+    private readonly repository: PacketsRepository,
+    private readonly queue: PacketQueue,
+    private readonly renderer: PdfRendererService,
+    private readonly links: LinkBuilder,
+    private readonly config: ConfigService<Env, true>,
+    @Inject(OBJECT_STORAGE) private readonly storage: ObjectStorage,
+    @Inject(PACKET_PHOTO_SOURCE) private readonly photos: PacketPhotoSource,
+  ) {}
+
+  /**
+   * Starts the worker without holding up the caller, retrying with backoff while the database cannot be
+   * reached, so the API boots (and answers 503) when PostgreSQL is down and renders once it is back.
+   */
+  startInBackground(delayMs = 1_000): void {
+    this.start().catch((error: Error) => {
+      if (this.isStopping) return;
+      this.logger.warn(`packet render worker not started (${error.message}); retrying in ${delayMs / 1000} s`);
+      this.retryTimer = setTimeout(() => this.startInBackground(Math.min(delayMs * 2, 30_000)), delayMs);
+      this.retryTimer.unref();
+    });
+  }
+
+  /** Stops retrying to start (the queue itself is stopped by PacketQueue before shutdown). */
+  stop(): void {
+    this.isStopping = true;
+    clearTimeout(this.retryTimer);
+  }
+
+  /** Starts polling the queue in this process (idempotent), and re-sends revisions whose message was lost. */
+  async start(): Promise<void> {
+    if (this.isStarted) return;
+    this.isStarted = true;
+    try {
+      await this.startPolling();
+    } catch (error) {
+      this.isStarted = false;
+      throw error;
+    }
+    this.logger.log('packet render worker started');
+  }
+
+  private async startPolling(): Promise<void> {
+    await this.queue.work(this.config.get('PACKET_RENDER_CONCURRENCY', { infer: true }), (job, meta) =>
+      this.render(job.revisionId, meta.isFinalAttempt),
+    );
+    // A revision committed but never sent (the process stopped in between) is picked up here; a
+    // duplicate message is harmless because rendering starts with an exclusive claim.
+    for (const { id } of await this.repository.staleQueued(120)) await this.queue.enqueue({ revisionId: id });
+  }
+
+  async render(revisionId: string, isFinalAttempt: boolean): Promise<void> {
+    const revision = await this.repository.claim(revisionId, STALE_RENDER_SECONDS);
+    if (!revision) {
+      this.logger.debug(`packet ${revisionId} is not waiting to render (already claimed or done)`);
+      return;
+    }
+    const started = performance.now();
+    try {
+      const { snapshot } = revision;
+      const [photos, signatureRows, logoDataUri] = await Promise.all([
+        this.photos.photosFor({ companyId: revision.companyId, jobId: revision.jobId, revisionId }),
+        this.repository.signatures(revisionId),
+        this.logo(revision.companyId),
+      ]);
+      const signatures: PacketSignature[] = signatureRows.map((s) => ({
+        role: s.role,
+        signerName: s.signerName,
+        signedAt: s.signedAt.toISOString(),
+        svgPath: s.svgPath,
+      }));
+      // The locate view arrives with the next issue (#9); the QR code already points at its address.
+      const locateUrl = this.links.to(`/locate/${revisionId}`);
+      const rendered = await this.renderer.render({ snapshot, locateUrl, photos, signatures, logoDataUri });
+      const archive = await buildPacketArchive({
+        snapshot,
+        pdf: rendered.pdf,
+        sitePlanSvg: rendered.drawings.sitePlan,
+        schematicSvg: rendered.drawings.schematic,
+        photos,
+      });
+      const base = `companies/${revision.companyId}/packets/${revisionId}`;
+      try {
+        const pdf = await this.storage.put(`${base}/packet-rev-${revision.revision}.pdf`, rendered.pdf, 'application/pdf');
+        // ObjectStorage.put takes a Buffer; the zip was streamed to disk and is read back only to store it.
+        const zip = await this.storage.put(`${base}/packet-rev-${revision.revision}.zip`, await readFile(archive.path), 'application/zip');
+        if (zip.sha256 !== archive.sha256) throw new Error('the stored archive does not match the one built');
+        await this.repository.markReady(revisionId, {
+          pdfKey: pdf.key,
+          pdfBytes: pdf.bytes,
+          pdfSha256: pdf.sha256,
+          pageCount: rendered.pageCount,
+          zipKey: zip.key,
+          zipBytes: zip.bytes,
+          zipSha256: zip.sha256,
+        });
+      } finally {
+        archive.dispose();
+      }
+      this.logger.log(`packet ${revisionId} rendered: ${rendered.pageCount} pages in ${Math.round(performance.now() - started)} ms`);
+    } catch (error) {
+      const reason = error instanceof Error ? error.message : String(error);
+      await this.repository.markAttemptFailed(revisionId, reason, isFinalAttempt);
+      this.logger.error(`packet ${revisionId} failed to render${isFinalAttempt ? '' : ' (will retry)'}: ${reason}`);
+      throw error;
+    }
+  }
+
+  private async logo(companyId: string): Promise<string | undefined> {
+    const { logoKey } = await this.repository.settings(companyId);
+    if (!logoKey) return undefined;
+    const type = LOGO_TYPES[logoKey.split('.').pop()?.toLowerCase() ?? ''];
+    if (!type) return undefined;
+    return `data:${type};base64,${(await this.storage.getBuffer(logoKey)).toString('base64')}`;
+  }
+}

@@ -1,0 +1,70 @@
+import { Controller, Get, HttpCode, HttpStatus, Param, ParseUUIDPipe, Post, Res, StreamableFile } from '@nestjs/common';
+import { ApiBearerAuth, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
+import type { Response } from 'express';
+
+import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
+import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
+import { Roles } from '../common/decorators/roles.decorator.js';
+import { ApiJobVersion } from '../jobs/api-job-version.decorator.js';
+import { type IssuePacketResponse, type PacketFile, type PacketRevisionResponse, PacketsService } from './packets.service.js';
+
+function send(res: Response, file: PacketFile): StreamableFile {
+  res.setHeader('Content-Type', file.contentType);
+  res.setHeader('Content-Disposition', `attachment; filename="${file.fileName}"`);
+  res.setHeader('ETag', `"${file.sha256}"`);
+  // RFC 9530 representation digest (base64 of the SHA-256), verified against the record before sending.
+  res.setHeader('Repr-Digest', `sha-256=:${Buffer.from(file.sha256, 'hex').toString('base64')}:`);
+  res.setHeader('Cache-Control', 'private, max-age=0, must-revalidate');
+  return new StreamableFile(file.body);
+}
+
+@ApiTags('packets')
+@ApiBearerAuth()
+@Roles('admin', 'office', 'lead', 'tech')
+@Controller()
+export class PacketsController {
+  constructor(private readonly packets: PacketsService) {}
+
+  @Post('jobs/:jobId/packets')
+  @Roles('admin', 'office')
+  @HttpCode(HttpStatus.CREATED)
+  @ApiJobVersion()
+  @ApiOperation({
+    summary: 'Issue the job’s handover packet (the next revision)',
+    description:
+      'The job must be ready to issue. Freezes the as-built into revision N, moves the job to `issued` and queues the ' +
+      'PDF render; poll GET /api/packets/:id until `status` is `ready` (or `failed` with `failureReason`).',
+  })
+  @ApiResponse({ status: 409, description: '`JOB_NOT_READY_TO_ISSUE`, `VERSION_CONFLICT` or `PACKET_ALREADY_ISSUED`' })
+  issue(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', ParseUUIDPipe) jobId: string,
+    @ExpectedVersion() expectedVersion: number,
+  ): Promise<IssuePacketResponse> {
+    return this.packets.issue(user, jobId, expectedVersion);
+  }
+
+  @Get('jobs/:jobId/packets')
+  @ApiOperation({ summary: 'The job’s packet revisions, newest first, with their render status' })
+  list(@CurrentUser() user: AuthUser, @Param('jobId', ParseUUIDPipe) jobId: string): Promise<PacketRevisionResponse[]> {
+    return this.packets.listForJob(user, jobId);
+  }
+
+  @Get('packets/:id')
+  @ApiOperation({ summary: 'One packet revision and its render status' })
+  get(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<PacketRevisionResponse> {
+    return this.packets.get(user, id);
+  }
+
+  @Get('packets/:id/pdf')
+  @ApiOperation({ summary: 'The revision’s PDF (409 until ready); its SHA-256 is checked before sending' })
+  async pdf(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string, @Res({ passthrough: true }) res: Response): Promise<StreamableFile> {
+    return send(res, await this.packets.file(user, id, 'pdf'));
+  }
+
+  @Get('packets/:id/archive.zip')
+  @ApiOperation({ summary: 'The revision’s archive (PDF, drawings, CSV, JSON, GeoJSON, photos, MANIFEST.sha256)' })
+  async archive(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string, @Res({ passthrough: true }) res: Response): Promise<StreamableFile> {
+    return send(res, await this.packets.file(user, id, 'zip'));
+  }
+}

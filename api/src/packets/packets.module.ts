@@ -1,0 +1,31 @@
+import { type BeforeApplicationShutdown, Module, type OnApplicationBootstrap } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+
+import type { Env } from '../config/env.schema.js';
+import { JobsRepository } from '../jobs/jobs.repository.js';
+import { PacketRenderWorker } from './packet-render.worker.js';
+import { PacketRenderingModule } from './packet-rendering.module.js';
+import { PacketsController } from './packets.controller.js';
+import { PacketsService } from './packets.service.js';
+
+/** The packet API; with PACKET_WORKER_IN_API (default) this process also renders queued packets. */
+@Module({
+  imports: [PacketRenderingModule],
+  controllers: [PacketsController],
+  // JobsRepository is stateless (DB access only): a local instance avoids widening JobsModule's exports.
+  providers: [PacketsService, JobsRepository],
+})
+export class PacketsModule implements OnApplicationBootstrap, BeforeApplicationShutdown {
+  constructor(
+    private readonly worker: PacketRenderWorker,
+    private readonly config: ConfigService<Env, true>,
+  ) {}
+
+  onApplicationBootstrap(): void {
+    if (this.config.get('PACKET_WORKER_IN_API', { infer: true })) this.worker.startInBackground();
+  }
+
+  beforeApplicationShutdown(): void {
+    this.worker.stop();
+  }
+}

@@ -1,0 +1,213 @@
+import { createHash } from 'node:crypto';
+
+import { ConflictException, Inject, Injectable, InternalServerErrorException, Logger, NotFoundException } from '@nestjs/common';
+
+import { AuditService } from '../audit/audit.service.js';
+import type { AuthUser } from '../common/decorators/current-user.decorator.js';
+import { isUniqueViolation } from '../common/db-errors.js';
+import { analyzeAsBuilt } from '../domain/analysis/analyze.js';
+import { canIssuePacket } from '../domain/jobs/job-rules.js';
+import type { PacketSnapshot } from '../domain/packet/packet-snapshot.js';
+import { toAsBuilt, toChannelSetup } from '../jobs/as-built-rows.js';
+import { denied, jobNotFound, versionConflict } from '../jobs/job-errors.js';
+import { JobsRepository } from '../jobs/jobs.repository.js';
+import { OBJECT_STORAGE, type ObjectStorage } from '../storage/object-storage.js';
+import { PacketQueue } from './packet-queue.js';
+import { type PacketRevisionSummary, PacketsRepository } from './packets.repository.js';
+
+export interface PacketRevisionResponse {
+  id: string;
+  jobId: string;
+  revision: number;
+  status: 'queued' | 'rendering' | 'ready' | 'failed';
+  failureReason: string | null;
+  attempts: number;
+  paperSize: 'letter' | 'a4';
+  pageCount: number | null;
+  pdf: { bytes: number; sha256: string; url: string } | null;
+  archive: { bytes: number; sha256: string; url: string } | null;
+  issuedByUserId: string | null;
+  issuedAt: string;
+  renderedAt: string | null;
+}
+
+export interface IssuePacketResponse extends PacketRevisionResponse {
+  /** The job's version after issuing (it is now `issued`). */
+  jobVersion: number;
+}
+
+function toResponse(row: PacketRevisionSummary): PacketRevisionResponse {
+  const isReady = row.status === 'ready';
+  return {
+    id: row.id,
+    jobId: row.jobId,
+    revision: row.revision,
+    status: row.status,
+    failureReason: row.failureReason,
+    attempts: row.attempts,
+    paperSize: row.paperSize,
+    pageCount: row.pageCount,
+    pdf: isReady && row.pdfSha256 ? { bytes: row.pdfBytes ?? 0, sha256: row.pdfSha256, url: `/api/packets/${row.id}/pdf` } : null,
+    archive: isReady && row.zipSha256 ? { bytes: row.zipBytes ?? 0, sha256: row.zipSha256, url: `/api/packets/${row.id}/archive.zip` } : null,
+    issuedByUserId: row.issuedByUserId,
+    issuedAt: row.issuedAt.toISOString(),
+    renderedAt: row.renderedAt?.toISOString() ?? null,
+  };
+}
+
+const packetNotFound = () => new NotFoundException({ message: 'No such packet revision.', code: 'PACKET_NOT_FOUND' });
+
+export interface PacketFile {
+  body: Buffer;
+  sha256: string;
+  fileName: string;
+  contentType: string;
+}
+
+/**
+ * Issuing handover packets: freezes the job's as-built into a revision snapshot, moves the job to
+ * `issued` and queues the render, all or nothing; lists revisions; serves their verified files.
+ */
+@Injectable()
+export class PacketsService {
+  private readonly logger = new Logger(PacketsService.name);
+
+  constructor(
+    private readonly repository: PacketsRepository,
+    private readonly jobs: JobsRepository,
+    private readonly queue: PacketQueue,
+    private readonly audit: AuditService,
+    @Inject(OBJECT_STORAGE) private readonly storage: ObjectStorage,
+  ) {}
+
+  /**
+   * Issues the job's current revision. The job row is locked for the whole transaction, so two issues
+   * of the same job run one after the other and the second finds the job already issued (409); the
+   * unique (job, revision) constraint backs this up. The render is queued after the commit; a message
+   * lost in between is re-sent when a worker starts.
+   */
+  async issue(actor: AuthUser, jobId: string, expectedVersion: number): Promise<IssuePacketResponse> {
+    const { revision, jobVersion } = await this.jobs.transaction(async (tx) => {
+      const job = await this.jobs.lock(actor.companyId, jobId, tx);
+      if (!job) throw jobNotFound();
+      const decision = canIssuePacket({ role: actor.role, userId: actor.id }, job);
+      if (!decision.isAllowed) throw denied(decision);
+      if (job.version !== expectedVersion) throw versionConflict(job.version);
+
+      const view = await this.jobs.findView(actor.companyId, jobId, tx);
+      const place = await this.repository.siteWithCustomer(job.siteId, tx);
+      if (!view || !place) throw jobNotFound();
+      const rows = await this.jobs.loadRecord(job, tx);
+      const asBuilt = toAsBuilt(rows);
+      const settings = await this.repository.settings(actor.companyId, tx);
+      const issuedAt = new Date();
+      const snapshot: PacketSnapshot = {
+        format: 1,
+        revision: job.revision,
+        issuedAt: issuedAt.toISOString(),
+        issuedBy: { id: actor.id, name: (await this.repository.userName(actor.id, tx)) ?? '' },
+        company: { id: actor.companyId, name: await this.repository.companyName(actor.companyId, tx) },
+        settings: {
+          paperSize: settings.paperSize,
+          units: settings.units,
+          licenceNumbers: settings.licenceNumbers,
+          contactPhone: settings.contactPhone,
+          contactEmail: settings.contactEmail,
+        },
+        job: { id: job.id, title: job.title, startDate: job.startDate, endDate: job.endDate, notes: job.notes },
+        site: {
+          id: place.site.id,
+          label: place.site.label,
+          addressLine1: place.site.addressLine1,
+          addressLine2: place.site.addressLine2,
+          city: place.site.city,
+          region: place.site.region,
+          postalCode: place.site.postalCode,
+          country: place.site.country,
+        },
+        customer: place.customer,
+        crewLead: job.crewLeadUserId && view.crewLeadName !== null ? { id: job.crewLeadUserId, name: view.crewLeadName } : null,
+        technicians: await this.jobs.technicians(jobId, tx),
+        asBuilt,
+        // Company analysis settings do not exist yet: the documented defaults apply (as GET /as-built).
+        analysis: analyzeAsBuilt(asBuilt, {}),
+        channelSetups: Object.fromEntries(rows.channels.map((c) => [c.id, toChannelSetup(c)])),
+      };
+      let inserted: PacketRevisionSummary;
+      try {
+        inserted = await this.repository.insert(
+          {
+            companyId: actor.companyId,
+            jobId,
+            revision: job.revision,
+            snapshot,
+            paperSize: settings.paperSize,
+            issuedByUserId: actor.id,
+            issuedAt,
+          },
+          tx,
+        );
+      } catch (error) {
+        if (isUniqueViolation(error)) {
+          throw new ConflictException({ message: `Revision ${job.revision} of this job is already issued.`, code: 'PACKET_ALREADY_ISSUED' });
+        }
+        throw error;
+      }
+      await this.jobs.update(jobId, { status: 'issued' }, tx);
+      const version = await this.jobs.bumpVersion(jobId, tx);
+      await this.audit.record(
+        {
+          companyId: actor.companyId,
+          actorUserId: actor.id,
+          action: 'packet.issue',
+          targetType: 'packet_revision',
+          targetId: inserted.id,
+          details: { jobId, revision: job.revision, jobVersion: version },
+        },
+        tx,
+      );
+      return { revision: inserted, jobVersion: version };
+    });
+    await this.queue.enqueue({ revisionId: revision.id }).catch((error: unknown) => {
+      // The revision is committed and stays queued; a starting worker re-sends it.
+      this.logger.error(`packet ${revision.id} issued but not queued: ${error instanceof Error ? error.message : String(error)}`);
+    });
+    return { ...toResponse(revision), jobVersion };
+  }
+
+  async listForJob(actor: AuthUser, jobId: string): Promise<PacketRevisionResponse[]> {
+    if (!(await this.jobs.findView(actor.companyId, jobId))) throw jobNotFound();
+    return (await this.repository.listByJob(actor.companyId, jobId)).map(toResponse);
+  }
+
+  async get(actor: AuthUser, id: string): Promise<PacketRevisionResponse> {
+    const row = await this.repository.findSummary(actor.companyId, id);
+    if (!row) throw packetNotFound();
+    return toResponse(row);
+  }
+
+  /** The stored PDF or archive, after checking its bytes still hash to the SHA-256 recorded at render. */
+  async file(actor: AuthUser, id: string, kind: 'pdf' | 'zip'): Promise<PacketFile> {
+    const row = await this.repository.findFiles(actor.companyId, id);
+    if (!row) throw packetNotFound();
+    const key = kind === 'pdf' ? row.pdfKey : row.zipKey;
+    const expected = kind === 'pdf' ? row.pdfSha256 : row.zipSha256;
+    if (row.status !== 'ready' || !key || !expected) {
+      throw new ConflictException({ message: `This packet revision is ${row.status}, not ready to download.`, code: 'PACKET_NOT_READY' });
+    }
+    const body = await this.storage.getBuffer(key);
+    const actual = createHash('sha256').update(body).digest('hex');
+    if (actual !== expected) {
+      this.logger.error(`packet ${id} ${kind} does not match its recorded SHA-256`);
+      throw new InternalServerErrorException({ message: 'The stored file failed its integrity check.', code: 'PACKET_FILE_CORRUPT' });
+    }
+    const view = await this.jobs.findView(actor.companyId, row.jobId);
+    const base = `${(view?.site.label ?? 'packet').replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '').toLowerCase() || 'packet'}-rev-${row.revision}`;
+    return {
+      body,
+      sha256: actual,
+      fileName: kind === 'pdf' ? `${base}.pdf` : `${base}.zip`,
+      contentType: kind === 'pdf' ? 'application/pdf' : 'application/zip',
+    };
+  }
+}

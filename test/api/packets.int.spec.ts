@@ -1,0 +1,206 @@
+import { createHash } from 'node:crypto';
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+
+import type { NestExpressApplication } from '@nestjs/platform-express';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+import { DEMO_AS_BUILT } from '../../api/src/domain/as-built/demo-as-built.js';
+import { PACKET_SECTIONS } from '../../api/src/domain/packet/packet.view-model.js';
+import { createCompany, type TestCompany, withDb } from '../support/fixtures.js';
+import { type Api, apiAs, createJob, createSite, type JobFixture, moveJob, recordAsBuilt } from '../support/records.js';
+import { bearer, signIn } from '../support/session.js';
+import { pdfFontNames, pdfFonts, pdfPages, pdfPageSize, verifyArchive } from '../print/packet-pdf.js';
+import { makeFieldPhoto } from '../fixtures/photos/make-photos.js';
+
+const PHOTO_CAPTION = 'Open trench at the patio splice, tape at 30 cm';
+
+// ConfigModule reads the environment when AppModule is imported: set this file's settings first.
+Object.assign(process.env, {
+  PACKET_WORKER_IN_API: 'true',
+  QUEUE_POLL_INTERVAL_SECONDS: '0.5',
+  UPLOADS_DIR: mkdtempSync(join(tmpdir(), 'loamline-packets-uploads-')),
+});
+
+async function waitForStatus(api: Api, id: string, statuses: string[], timeoutMs = 90_000) {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const body = await api.expectOk('get', `/api/packets/${id}`);
+    if (statuses.includes(body.status)) return body;
+    if (Date.now() > deadline) throw new Error(`packet ${id} still ${body.status} after ${timeoutMs} ms`);
+    await new Promise((resolve) => setTimeout(resolve, 300));
+  }
+}
+
+describe('handover packets (the demo job, rendered in Chromium)', () => {
+  let app: NestExpressApplication;
+  let company: TestCompany;
+  let office: Api;
+  let lead: Api;
+  let job: JobFixture;
+  let packet: { id: string; status: string; revision: number; jobVersion: number };
+  let pdf: Buffer;
+  let pages: string[];
+
+  /** A job with the demo as-built, moved to ready to issue. */
+  async function readyJob(): Promise<JobFixture> {
+    const { siteId } = await createSite(office, DEMO_AS_BUILT.site);
+    const created = await createJob(office, siteId, { crewLeadUserId: company.users.lead.id });
+    const recorded = await recordAsBuilt(lead, created, DEMO_AS_BUILT);
+    const upload = await request(app.getHttpServer())
+      .post(`/api/jobs/${created.id}/photos`)
+      .set(bearer(await signIn(app, company.users.lead)))
+      .set('If-Match', `"${recorded.version}"`)
+      .field('caption', PHOTO_CAPTION)
+      .attach('files', await makeFieldPhoto(), { filename: 'trench.jpg', contentType: 'image/jpeg' });
+    expect(upload.status, JSON.stringify(upload.body)).toBe(201);
+    const submitted = await moveJob(lead, { ...created, version: upload.body.jobVersion }, 'in_progress', 'submitted');
+    return moveJob(office, submitted, 'ready_to_issue');
+  }
+
+  beforeAll(async () => {
+    const { createTestApp } = await import('../support/test-app.js');
+    app = await createTestApp();
+    company = await createCompany('Packet Render');
+    // A4 and metric, the non-default settings, so the PDF proves it follows them.
+    await withDb((db) =>
+      db.query(
+        `insert into company_settings (company_id, paper_size, units, licence_numbers, contact_phone, contact_email)
+         values ($1, 'a4', 'metric', array['Licence LV-0000 (invented)'], '+1 555 0100', 'office@packet.example')`,
+        [company.id],
+      ),
+    );
+    office = apiAs(app, await signIn(app, company.users.office));
+    lead = apiAs(app, await signIn(app, company.users.lead));
+    job = await readyJob();
+    const res = await office.send('post', `/api/jobs/${job.id}/packets`, undefined, { 'If-Match': `"${job.version}"` });
+    expect(res.status).toBe(201);
+    packet = res.body;
+    const ready = await waitForStatus(office, packet.id, ['ready', 'failed']);
+    expect(ready).toMatchObject({ status: 'ready', failureReason: null, attempts: 1 });
+    const download = await request(app.getHttpServer())
+      .get(`/api/packets/${packet.id}/pdf`)
+      .set(bearer(await signIn(app, company.users.tech)))
+      .buffer(true)
+      .parse((response, callback) => {
+        const chunks: Buffer[] = [];
+        response.on('data', (c: Buffer) => chunks.push(c));
+        response.on('end', () => callback(null, Buffer.concat(chunks)));
+      });
+    expect(download.status).toBe(200);
+    expect(download.headers['content-type']).toBe('application/pdf');
+    pdf = download.body as Buffer;
+    expect(download.headers.etag).toBe(`"${createHash('sha256').update(pdf).digest('hex')}"`);
+    pages = await pdfPages(pdf);
+  }, 180_000);
+
+  afterAll(async () => {
+    await app?.close();
+  });
+
+  it('should issue revision 1, move the job to issued and report the files', async () => {
+    expect(packet).toMatchObject({ status: 'queued', revision: 1 });
+    const jobNow = await office.expectOk('get', `/api/jobs/${job.id}`);
+    expect(jobNow).toMatchObject({ status: 'issued', version: packet.jobVersion });
+    const list = await lead.expectOk('get', `/api/jobs/${job.id}/packets`);
+    expect(list).toHaveLength(1);
+    expect(list[0]).toMatchObject({ id: packet.id, status: 'ready', paperSize: 'a4', pageCount: pages.length });
+    expect(list[0].pdf.sha256).toBe(createHash('sha256').update(pdf).digest('hex'));
+  });
+
+  it('should print every section heading, on the page the contents give', () => {
+    expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
+    const contents = pages[1]!;
+    expect(contents).toContain('Contents');
+    for (const section of PACKET_SECTIONS) {
+      const entry = new RegExp(`${section.title} (\\d+)`).exec(contents);
+      expect(entry, section.title).not.toBeNull();
+      const page = Number(entry![1]);
+      expect(pages[page - 1], `${section.title} on page ${page}`).toContain(section.title);
+    }
+  });
+
+  it("should print the job's photos with their captions in the appendix", () => {
+    expect(pages.join(' ')).toContain(PHOTO_CAPTION);
+  });
+
+  it('should number every page "Page x of y"', () => {
+    pages.forEach((text, i) => expect(text).toContain(`Page ${i + 1} of ${pages.length}`));
+  });
+
+  it('should list every run of the cable schedule in metric units', () => {
+    const schedule = pages.join(' ');
+    for (const run of DEMO_AS_BUILT.runs) expect(schedule).toContain(run.label);
+    expect(schedule).toContain('3.31 mm² (12 AWG)');
+    expect(schedule).toMatch(/Patio splice to P2.*11 cm/);
+  });
+
+  it('should carry the locate page and the safety cautions', () => {
+    const text = pages.join(' ');
+    expect(text).toContain('Before you dig: contact the one-call centre');
+    expect(text).toContain('One-call locators do not mark the cables of this installation');
+    expect(text).toContain('Hand-dig within the tolerance zone');
+    expect(text).toContain('Within 0.5 m on either side of a mapped route');
+    expect(text).toContain('Depths are as installed');
+    expect(text).toContain('must be done by a licensed electrician');
+    expect(text).toContain('Line-voltage work is not part of this installation');
+    expect(text).toContain('they are not a code inspection or approval');
+    expect(text).toContain('Not signed');
+  });
+
+  it('should embed Inter only (no fallback font) on A4 paper', () => {
+    const fonts = pdfFonts(pdf);
+    expect(fonts.length).toBeGreaterThan(0);
+    for (const font of fonts) {
+      expect(font.isEmbedded, font.name).toBe(true);
+      if (font.name !== '[none]') expect(font.name).toContain('Inter');
+    }
+    const names = pdfFontNames(pdf);
+    expect(names.length).toBeGreaterThan(0);
+    expect(names.filter((n) => !n.startsWith('Inter'))).toEqual([]);
+    expect(pdfPageSize(pdf)).toMatch(/\(A4\)/);
+  });
+
+  it('should serve an archive whose manifest verifies', async () => {
+    const res = await request(app.getHttpServer())
+      .get(`/api/packets/${packet.id}/archive.zip`)
+      .set(bearer(await signIn(app, company.users.office)))
+      .buffer(true)
+      .parse((response, callback) => {
+        const chunks: Buffer[] = [];
+        response.on('data', (c: Buffer) => chunks.push(c));
+        response.on('end', () => callback(null, Buffer.concat(chunks)));
+      });
+    expect(res.status).toBe(200);
+    const { files, check } = verifyArchive(res.body as Buffer);
+    const photoFiles = files.filter((f) => f.startsWith('photos/'));
+    expect(photoFiles).toHaveLength(1);
+    expect(files.filter((f) => !f.startsWith('photos/'))).toEqual(
+      ['MANIFEST.sha256', 'as-built.json', 'cable-schedule.csv', 'packet.pdf', 'runs-and-items.geojson', 'site-plan.svg', 'wiring-schematic.svg'].sort(),
+    );
+    expect(check.trim().split('\n')).toHaveLength(files.length - 1);
+    expect(check).not.toContain('FAILED');
+  });
+
+  it('should refuse to issue a job that is not ready to issue, or with a stale version', async () => {
+    const again = await office.send('post', `/api/jobs/${job.id}/packets`, undefined, { 'If-Match': `"${packet.jobVersion}"` });
+    expect(again.status).toBe(409);
+    expect(again.body.code).toBe('JOB_NOT_READY_TO_ISSUE');
+    const other = await readyJob();
+    const stale = await office.send('post', `/api/jobs/${other.id}/packets`, undefined, { 'If-Match': `"${other.version - 1}"` });
+    expect(stale.status).toBe(409);
+    expect(stale.body.code).toBe('VERSION_CONFLICT');
+  });
+
+  it('should create one revision when the same job is issued twice at once', async () => {
+    const other = await readyJob();
+    const results = await Promise.all(
+      [0, 1, 2].map(() => office.send('post', `/api/jobs/${other.id}/packets`, undefined, { 'If-Match': `"${other.version}"` })),
+    );
+    expect(results.map((r) => r.status).sort()).toEqual([201, 409, 409]);
+    const revisions = await withDb((db) => db.query('select revision from packet_revisions where job_id = $1', [other.id]));
+    expect(revisions.rows).toEqual([{ revision: 1 }]);
+  });
+});
