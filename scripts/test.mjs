@@ -18,7 +18,7 @@ import {
 let pg;
 let status = 1;
 try {
-  ensureDebianPackages({ postgres: !process.env.DATABASE_URL, chromium: true, poppler: true });
+  ensureDebianPackages({ postgres: !process.env.DATABASE_URL, chromium: true, poppler: true, unzip: true });
   ensureNpmDependencies();
   pg = ensurePostgres();
   ensureApiBuilt();

@@ -54,11 +54,12 @@ export function findPgBin() {
  * Installs the Debian packages the project needs when they are missing: with apt-get when running as
  * root, otherwise stops with the exact command to run.
  */
-export function ensureDebianPackages({ postgres = true, chromium = false, poppler = false } = {}) {
+export function ensureDebianPackages({ postgres = true, chromium = false, poppler = false, unzip = false } = {}) {
   const missing = [];
   if (postgres && !findPgBin()) missing.push('postgresql');
   if (chromium && !existsSync(chromiumPath)) missing.push('chromium');
   if (poppler && !existsSync('/usr/bin/pdftoppm')) missing.push('poppler-utils');
+  if (unzip && !existsSync('/usr/bin/unzip')) missing.push('unzip');
   if (missing.length === 0) return;
   if (!isRoot) {
     throw new Error(

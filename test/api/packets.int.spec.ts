@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import { mkdtempSync } from 'node:fs';
+import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 
@@ -94,6 +94,8 @@ describe('handover packets (the demo job, rendered in Chromium)', () => {
     pdf = download.body as Buffer;
     expect(download.headers.etag).toBe(`"${createHash('sha256').update(pdf).digest('hex')}"`);
     pages = await pdfPages(pdf);
+    // To look at the rendered packet: PACKET_PDF_OUT=/tmp/packet.pdf npx vitest run test/api/packets.int.spec.ts
+    if (process.env.PACKET_PDF_OUT) writeFileSync(process.env.PACKET_PDF_OUT, pdf);
   }, 180_000);
 
   afterAll(async () => {
@@ -155,8 +157,14 @@ describe('handover packets (the demo job, rendered in Chromium)', () => {
     expect(fonts.length).toBeGreaterThan(0);
     for (const font of fonts) {
       expect(font.isEmbedded, font.name).toBe(true);
-      if (font.name !== '[none]') expect(font.name).toContain('Inter');
+      // Inter's static faces embed as named TrueType subsets. The only unnamed fonts are Type 3 outlines
+      // Chromium makes of stroked glyphs (the white halo behind plan labels), drawn from the same faces.
+      if (font.type === 'Type 3') expect(font.name).toBe('[none]');
+      else expect(font.name).toMatch(/^[A-Z]{6}\+Inter-(Regular|Medium|SemiBold|Bold|Italic)$/);
     }
+    expect(new Set(fonts.filter((f) => f.type !== 'Type 3').map((f) => f.name.slice(7)))).toEqual(
+      new Set(['Inter-Regular', 'Inter-Medium', 'Inter-SemiBold', 'Inter-Bold', 'Inter-Italic']),
+    );
     const names = pdfFontNames(pdf);
     expect(names.length).toBeGreaterThan(0);
     expect(names.filter((n) => !n.startsWith('Inter'))).toEqual([]);

@@ -39,10 +39,7 @@ export function pdfFonts(pdf: Buffer): PdfFontRow[] {
     });
 }
 
-/**
- * Every `/FontName` in the PDF's font descriptors. Chromium embeds a variable font (our Inter) as Type 3
- * glyphs, which `pdffonts` lists as "[none]"; their descriptors still carry the font's name.
- */
+/** Every `/FontName` in the PDF's font descriptors (subset prefixes such as `ABCDEF+` removed). */
 export function pdfFontNames(pdf: Buffer): string[] {
   return [...pdf.toString('latin1').matchAll(/\/FontName\s*\/([^\s/<>[\]]+)/g)].map((m) => m[1]!.replace(/^[A-Z]{6}\+/, ''));
 }

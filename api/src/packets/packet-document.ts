@@ -14,23 +14,31 @@ import { drawWiringSchematic } from '../drawings/wiring-schematic.js';
 import { type ChromiumPrinter } from './chromium-printer.js';
 import { readPdfOutline } from './pdf-destinations.js';
 
-/** templates/packet and fonts/inter at the repository root (the same relative path from api/src and api/dist). */
+/**
+ * templates/packet and fonts/inter-static at the repository root (the same relative path from api/src
+ * and api/dist). The packet uses Inter's static weights, not the variable font the web app loads:
+ * Chromium embeds a variable font in a PDF as Type 3 glyphs, which misplaces some glyphs (the hyphen)
+ * and hides the font from PDF tools; static faces embed as ordinary TrueType subsets.
+ */
 export const PACKET_TEMPLATE_DIR = fileURLToPath(new URL('../../../templates/packet', import.meta.url));
-export const PACKET_FONTS_DIR = fileURLToPath(new URL('../../../fonts/inter', import.meta.url));
+export const PACKET_FONTS_DIR = fileURLToPath(new URL('../../../fonts/inter-static', import.meta.url));
+
+/** The weights the print CSS and the drawings use. */
+const FONT_WEIGHTS = [400, 500, 600, 700] as const;
 
 /** The Inter subsets and their unicode ranges (as in fonts/README.md and web/src/fonts.css). */
-const FONT_FILES = [
+const FONT_SUBSETS = [
   {
-    file: 'inter-latin-wght-normal.woff2',
+    subset: 'latin',
     range:
       'U+0000-00FF, U+0131, U+0152-0153, U+02BB-02BC, U+02C6, U+02DA, U+02DC, U+0304, U+0308, U+0329, U+2000-206F, U+20AC, U+2122, U+2191, U+2193, U+2212, U+2215, U+FEFF, U+FFFD',
   },
   {
-    file: 'inter-latin-ext-wght-normal.woff2',
+    subset: 'latin-ext',
     range:
       'U+0100-02BA, U+02BD-02C5, U+02C7-02CC, U+02CE-02D7, U+02DD-02FF, U+0304, U+0308, U+0329, U+1D00-1DBF, U+1E00-1E9F, U+1EF2-1EFF, U+2020, U+20A0-20AB, U+20AD-20C0, U+2113, U+2C60-2C7F, U+A720-A7FF',
   },
-  { file: 'inter-greek-wght-normal.woff2', range: 'U+0370-0377, U+037A-037F, U+0384-038A, U+038C, U+038E-03A1, U+03A3-03FF' },
+  { subset: 'greek', range: 'U+0370-0377, U+037A-037F, U+0384-038A, U+038C, U+038E-03A1, U+03A3-03FF' },
 ] as const;
 
 export interface PacketDrawings {
@@ -55,14 +63,20 @@ let assets: PacketAssets | undefined;
  */
 function loadAssets(): PacketAssets {
   if (!assets) {
-    const faces = FONT_FILES.map(({ file, range }) => {
-      const data = readFileSync(join(PACKET_FONTS_DIR, file)).toString('base64');
-      return `@font-face{font-family:'Inter';font-style:normal;font-weight:100 900;font-display:block;src:url(data:font/woff2;base64,${data}) format('woff2');unicode-range:${range};}`;
-    });
+    const face = (subset: string, range: string, weight: number, style: 'normal' | 'italic') => {
+      const data = readFileSync(join(PACKET_FONTS_DIR, `inter-${subset}-${weight}-${style}.woff2`)).toString('base64');
+      return `@font-face{font-family:'Inter';font-style:${style};font-weight:${weight};font-display:block;src:url(data:font/woff2;base64,${data}) format('woff2');unicode-range:${range};}`;
+    };
+    // Italic only at 400: the drawings set reference-point labels and notes in italic (a synthesised
+    // slant would be embedded as Type 3 glyphs).
+    const faces = FONT_SUBSETS.flatMap(({ subset, range }) => [
+      ...FONT_WEIGHTS.map((weight) => face(subset, range, weight, 'normal')),
+      face(subset, range, 400, 'italic'),
+    ]);
     const handlebars = Handlebars.create();
     assets = {
       fontFaceCss: faces.join('\n'),
-      // The footer is printed in its own document: it needs its own copy of the font (Latin only suffices).
+      // The footer is printed in its own document: it needs its own copy of the font (Latin regular suffices).
       footerFontFaceCss: faces[0]!,
       printCss: readFileSync(join(PACKET_TEMPLATE_DIR, 'print.css'), 'utf8'),
       template: handlebars.compile(readFileSync(join(PACKET_TEMPLATE_DIR, 'packet.html.hbs'), 'utf8'), { strict: false }),
