@@ -5,11 +5,12 @@
 import { pathToFileURL } from 'node:url';
 import { join } from 'node:path';
 
-import { ensureApiBuilt, ensureDatabase, ensureNpmDependencies, ensurePostgres, localSecrets, log, redact, root } from './lib/setup.mjs';
+import { ensureApiBuilt, ensureDatabase, ensureNpmDependencies, ensurePostgres, localSecrets, log, migrate, redact, root } from './lib/setup.mjs';
 
 ensureNpmDependencies();
 const pg = ensurePostgres();
 const databaseUrl = await ensureDatabase(pg, pg.external ? undefined : 'loamline');
+await migrate(databaseUrl);
 ensureApiBuilt();
 Object.assign(process.env, { ...localSecrets(), ...process.env, DATABASE_URL: databaseUrl });
 

@@ -81,21 +81,36 @@ function hashFiles(paths) {
   return hash.digest('hex');
 }
 
-const manifests = ['package.json', 'package-lock.json', 'api/package.json', 'web/package.json'].map((p) => join(root, p));
+/**
+ * What node_modules must match: the lockfile and the dependency fields of each manifest (editing a
+ * script in package.json does not call for a reinstall).
+ */
+function dependencyFingerprint() {
+  const hash = createHash('sha256');
+  hash.update(readFileSync(join(root, 'package-lock.json')));
+  for (const manifest of ['package.json', 'api/package.json', 'web/package.json']) {
+    const { dependencies, devDependencies, optionalDependencies, overrides, workspaces } = JSON.parse(
+      readFileSync(join(root, manifest), 'utf8'),
+    );
+    hash.update(JSON.stringify([manifest, dependencies, devDependencies, optionalDependencies, overrides, workspaces]));
+  }
+  return hash.digest('hex');
+}
 
-/** Installs npm dependencies with `npm ci` when node_modules is absent or older than the lockfile. */
+const installStamp = () => join(root, 'node_modules', '.loamline-install-stamp');
+
+/** Installs npm dependencies with `npm ci` when node_modules is absent or does not match the lockfile. */
 export function ensureNpmDependencies() {
-  const stampFile = join(root, 'node_modules', '.loamline-install-stamp');
-  const wanted = hashFiles(manifests);
-  if (existsSync(stampFile) && readFileSync(stampFile, 'utf8') === wanted) return;
+  const wanted = dependencyFingerprint();
+  if (existsSync(installStamp()) && readFileSync(installStamp(), 'utf8') === wanted) return;
   log('installing npm dependencies (npm ci)');
   run('npm', ['ci', '--no-audit', '--no-fund'], { cwd: root });
-  writeFileSync(stampFile, wanted);
+  writeFileSync(installStamp(), wanted);
 }
 
 /** After `npm install <pkg>` by hand: record that node_modules matches the lockfile again. */
 export function markNpmDependenciesInstalled() {
-  writeFileSync(join(root, 'node_modules', '.loamline-install-stamp'), hashFiles(manifests));
+  writeFileSync(installStamp(), dependencyFingerprint());
 }
 
 function listFiles(dir) {
@@ -294,16 +309,23 @@ function withDatabase(url, database) {
   return copy.toString();
 }
 
-/** Applies the Drizzle migrations in drizzle/ (idempotent: applied ones are recorded). */
+/**
+ * Applies the Drizzle migrations in drizzle/ (idempotent: applied ones are recorded). An advisory lock
+ * makes processes that start together (the API and workers) apply them one after another.
+ */
 export async function migrate(databaseUrl) {
-  const { Pool } = await importProjectPackage('pg');
+  const { Client, Pool } = await importProjectPackage('pg');
   const { drizzle } = await importProjectPackage('drizzle-orm/node-postgres');
   const { migrate: runMigrations } = await importProjectPackage('drizzle-orm/node-postgres/migrator');
+  const lock = new Client({ connectionString: databaseUrl });
+  await lock.connect();
   const pool = new Pool({ connectionString: databaseUrl, max: 1 });
   try {
+    await lock.query('select pg_advisory_lock(72431001)');
     await runMigrations(drizzle(pool), { migrationsFolder: join(root, 'drizzle') });
   } finally {
     await pool.end();
+    await lock.end(); // ending the session releases the lock
   }
 }
 
