@@ -43,6 +43,11 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
               lazy: () => import('./routes/app/protected').then(load),
               children: [
                 { index: true, lazy: () => import('./routes/app/home').then(load) },
+                { path: paths.jobs.path, lazy: () => import('./routes/app/jobs').then(load) },
+                { path: paths.job.path, lazy: () => import('./routes/app/job').then(load) },
+                { path: paths.customers.path, lazy: () => import('./routes/app/customers').then(load) },
+                { path: paths.customer.path, lazy: () => import('./routes/app/customer').then(load) },
+                { path: paths.site.path, lazy: () => import('./routes/app/site').then(load) },
                 { path: paths.users.path, lazy: () => import('./routes/app/users').then(load) },
                 { path: paths.outbox.path, lazy: () => import('./routes/app/outbox').then(load) },
                 { path: paths.outboxMessage.path, lazy: () => import('./routes/app/outbox-message').then(load) },

@@ -31,6 +31,28 @@ export const paths = {
     path: '/users',
     getHref: () => '/users',
   },
+  jobs: {
+    path: '/jobs',
+    /** `search`: the list's query string (q, status, sort, page, mine) without the leading `?`. */
+    getHref: (search?: string) => (search ? `/jobs?${search}` : '/jobs'),
+  },
+  job: {
+    path: '/jobs/:jobId',
+    getHref: (jobId: string, section?: string) =>
+      `/jobs/${encodeURIComponent(jobId)}${section ? `?section=${encodeURIComponent(section)}` : ''}`,
+  },
+  customers: {
+    path: '/customers',
+    getHref: () => '/customers',
+  },
+  customer: {
+    path: '/customers/:customerId',
+    getHref: (customerId: string) => `/customers/${encodeURIComponent(customerId)}`,
+  },
+  site: {
+    path: '/sites/:siteId',
+    getHref: (siteId: string) => `/sites/${encodeURIComponent(siteId)}`,
+  },
   outbox: {
     path: '/outbox',
     getHref: (page = 1) => (page > 1 ? `/outbox?page=${page}` : '/outbox'),

@@ -14,13 +14,22 @@ export class ApiError extends Error {
   readonly status: number;
   readonly code: string | undefined;
   readonly issues: readonly ApiIssue[];
+  /** With `VERSION_CONFLICT`: the version the job has reached on the server. */
+  readonly currentVersion: number | undefined;
 
-  constructor(init: { status: number; message: string; code?: string; issues?: readonly ApiIssue[] }) {
+  constructor(init: {
+    status: number;
+    message: string;
+    code?: string;
+    issues?: readonly ApiIssue[];
+    currentVersion?: number;
+  }) {
     super(init.message);
     this.name = 'ApiError';
     this.status = init.status;
     this.code = init.code;
     this.issues = init.issues ?? [];
+    this.currentVersion = init.currentVersion;
   }
 }
 
@@ -35,6 +44,7 @@ const ErrorBodySchema = z.object({
   error: z.string().optional(),
   message: z.union([z.string(), z.array(z.string())]).optional(),
   code: z.string().optional(),
+  currentVersion: z.number().int().optional(),
   issues: z
     .array(
       z.object({
@@ -233,11 +243,12 @@ function toApiError(response: Response, payload: unknown): ApiError {
   if (!parsed.success) {
     return new ApiError({ status: response.status, message: fallbackMessage });
   }
-  const { message, error, code, issues } = parsed.data;
+  const { message, error, code, issues, currentVersion } = parsed.data;
   return new ApiError({
     status: response.status,
     message: (Array.isArray(message) ? message.join(' ') : message) ?? error ?? fallbackMessage,
     code,
+    currentVersion,
     issues: issues?.map((issue) => ({
       path: Array.isArray(issue.path) ? issue.path.join('.') : issue.path,
       message: issue.message,

@@ -28,3 +28,13 @@ if (typeof window.matchMedia !== 'function') {
     }),
   });
 }
+
+// jsdom has no ResizeObserver; Fluent's MessageBar measures itself with one. Nothing ever resizes here.
+if (typeof window.ResizeObserver !== 'function') {
+  class NoResizeObserver {
+    observe(): void {}
+    unobserve(): void {}
+    disconnect(): void {}
+  }
+  Object.defineProperty(window, 'ResizeObserver', { writable: true, value: NoResizeObserver });
+}

@@ -1,6 +1,13 @@
 import type { FluentIcon } from '@fluentui/react-icons';
-import { HeartPulse24Regular, Home24Regular, MailInbox24Regular, People24Regular } from '@fluentui/react-icons';
-import type { Role } from '@domain/auth/roles';
+import {
+  BuildingHome24Regular,
+  ClipboardTextLtr24Regular,
+  HeartPulse24Regular,
+  Home24Regular,
+  MailInbox24Regular,
+  People24Regular,
+} from '@fluentui/react-icons';
+import { isStaffRole, type Role } from '@domain/auth/roles';
 
 import { paths } from '../../config/paths';
 
@@ -23,6 +30,10 @@ type NavContext = {
 export function buildNavItems({ role, hasOutbox = false }: NavContext): NavItem[] {
   if (!role) return [{ label: 'System status', href: paths.status.getHref(), icon: HeartPulse24Regular }];
   const items: NavItem[] = [{ label: 'Home', href: paths.home.getHref(), icon: Home24Regular, end: true }];
+  if (isStaffRole(role)) {
+    items.push({ label: 'Jobs', href: paths.jobs.getHref(), icon: ClipboardTextLtr24Regular });
+    items.push({ label: 'Customers', href: paths.customers.getHref(), icon: BuildingHome24Regular });
+  }
   if (role === 'admin' || role === 'office') {
     items.push({ label: 'Users', href: paths.users.getHref(), icon: People24Regular });
   }

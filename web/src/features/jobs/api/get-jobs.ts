@@ -1,0 +1,48 @@
+import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import type { JobListResponse, JobSummaryResponse } from '@domain/jobs/job.schema';
+import type { JobStatus } from '@domain/jobs/job-rules';
+
+import { apiRequest } from '../../../lib/api-client';
+
+import { responseOf } from './response';
+
+export type { JobListResponse, JobSummaryResponse };
+
+export const JOBS_PAGE_SIZE = 25;
+
+/** What the jobs list asks the server for; mirrors the page's query string. */
+export type JobListParams = {
+  q: string;
+  status: JobStatus[];
+  /** A field, `-field` for descending. */
+  sort: string;
+  page: number;
+  mine: boolean;
+};
+
+/** The API's query string for `params` (empty values left out, stable order). */
+export function jobListSearch(params: JobListParams): string {
+  const search = new URLSearchParams();
+  if (params.q.trim() !== '') search.set('q', params.q.trim());
+  if (params.status.length > 0) search.set('status', params.status.join(','));
+  search.set('sort', params.sort);
+  search.set('page', String(params.page));
+  search.set('pageSize', String(JOBS_PAGE_SIZE));
+  if (params.mine) search.set('mine', 'true');
+  return search.toString();
+}
+
+export function getJobs(params: JobListParams, { signal }: { signal?: AbortSignal } = {}): Promise<JobListResponse> {
+  return apiRequest(`/api/jobs?${jobListSearch(params)}`, responseOf<JobListResponse>(), { signal });
+}
+
+export function getJobsQueryOptions(params: JobListParams) {
+  return queryOptions({
+    queryKey: ['jobs', 'list', params],
+    queryFn: ({ signal }) => getJobs(params, { signal }),
+  });
+}
+
+export function useJobs(params: JobListParams) {
+  return useQuery({ ...getJobsQueryOptions(params), placeholderData: keepPreviousData });
+}

@@ -1,0 +1,167 @@
+import { Button, Field, Input, MessageBar, MessageBarBody, Select, Text, Textarea } from '@fluentui/react-components';
+import { useState } from 'react';
+import type { AmplifierItem } from '@domain/as-built/item.schema';
+import { ChannelSetupSchema, type ChannelSetup } from '@domain/jobs/job-record.schema';
+
+import { useNotify } from '../../../components/notify';
+import { usePersistedDraft } from '../../../lib/drafts';
+import { fieldErrorsFromZod } from '../../../lib/form-errors';
+import type { JobAsBuiltResponse } from '../api/get-job-as-built';
+import { useJobWriter } from '../hooks/job-writer';
+import { saveErrors } from '../utils/save-errors';
+
+import { useCardStyles } from './card-styles';
+import { useFormStyles } from './form-styles';
+
+type SetupDraft = Record<'source' | 'gain' | 'volumeLimit' | 'eq' | 'crossover' | 'polarity' | 'firmware' | 'networkName' | 'notes', string>;
+
+const TEXT_FIELDS: { key: Exclude<keyof SetupDraft, 'polarity' | 'notes'>; label: string; placeholder: string }[] = [
+  { key: 'source', label: 'Source', placeholder: 'Streamer input 1' },
+  { key: 'gain', label: 'Gain', placeholder: '−6 dB' },
+  { key: 'volumeLimit', label: 'Volume limit', placeholder: '70 %' },
+  { key: 'eq', label: 'EQ', placeholder: 'Outdoor preset, +2 dB at 60 Hz' },
+  { key: 'crossover', label: 'Crossover', placeholder: 'HPF 80 Hz 24 dB/oct' },
+  { key: 'firmware', label: 'Firmware', placeholder: '2.4.1' },
+  { key: 'networkName', label: 'Network name (never the password)', placeholder: 'Backyard-Audio' },
+];
+
+/** How each amplifier channel was left: source, gain, limits, EQ, crossover, polarity, firmware. */
+export function AmpSetupSection({ data, canRecord }: { data: JobAsBuiltResponse; canRecord: boolean }) {
+  const styles = useCardStyles();
+  const formStyles = useFormStyles();
+  const amps = data.asBuilt.items.filter((item): item is AmplifierItem => item.kind === 'amplifier');
+  return (
+    <section aria-labelledby="section-amp" className={formStyles.form}>
+      <Text as="h3" id="section-amp" size={500} weight="semibold" className={styles.title}>
+        Amplifier setup
+      </Text>
+      <MessageBar intent="info">
+        <MessageBarBody>Record the network name only. Never write a Wi-Fi or account password here: the packet is handed to the homeowner.</MessageBarBody>
+      </MessageBar>
+      {amps.length === 0 && (
+        <Text as="p" className={styles.empty}>
+          No amplifier recorded yet: add it under Equipment.
+        </Text>
+      )}
+      {amps.flatMap((amp) =>
+        amp.channels.map((channel) => (
+          <ChannelSetupCard
+            key={channel.id}
+            jobId={data.job.id}
+            amp={amp}
+            channel={channel}
+            setup={data.records.channelSetups[channel.id]}
+            canRecord={canRecord}
+          />
+        )),
+      )}
+    </section>
+  );
+}
+
+type ChannelSetupCardProps = {
+  jobId: string;
+  amp: AmplifierItem;
+  channel: AmplifierItem['channels'][number];
+  setup: ChannelSetup | undefined;
+  canRecord: boolean;
+};
+
+function ChannelSetupCard({ jobId, amp, channel, setup, canRecord }: ChannelSetupCardProps) {
+  const styles = useCardStyles();
+  const formStyles = useFormStyles();
+  const notify = useNotify();
+  const writer = useJobWriter();
+  const draftKey = `job:${jobId}:setup:${channel.id}`;
+  const initial: SetupDraft = {
+    source: setup?.source ?? '',
+    gain: setup?.gain ?? '',
+    volumeLimit: setup?.volumeLimit ?? '',
+    eq: setup?.eq ?? '',
+    crossover: setup?.crossover ?? '',
+    polarity: setup?.polarity ?? '',
+    firmware: setup?.firmware ?? '',
+    networkName: setup?.networkName ?? '',
+    notes: setup?.notes ?? '',
+  };
+  const { value: draft, setValue, hasDraft, clear } = usePersistedDraft<SetupDraft>(draftKey, initial);
+  const [errors, setErrors] = useState<Record<string, string>>({});
+  const set = (key: keyof SetupDraft, value: string) => setValue((current) => ({ ...current, [key]: value }));
+  const orNull = (value: string) => (value.trim() === '' ? null : value.trim());
+
+  const save = async () => {
+    const body = {
+      source: orNull(draft.source),
+      gain: orNull(draft.gain),
+      volumeLimit: orNull(draft.volumeLimit),
+      eq: orNull(draft.eq),
+      crossover: orNull(draft.crossover),
+      polarity: draft.polarity === '' ? null : draft.polarity,
+      firmware: orNull(draft.firmware),
+      networkName: orNull(draft.networkName),
+      notes: orNull(draft.notes),
+    };
+    const parsed = ChannelSetupSchema.safeParse(body);
+    if (!parsed.success) {
+      setErrors(fieldErrorsFromZod(parsed.error) as Record<string, string>);
+      return;
+    }
+    try {
+      const outcome = await writer.save({
+        method: 'PUT',
+        path: `/items/${amp.id}/channels/${channel.id}/setup`,
+        body: parsed.data,
+        draftKey,
+        label: `Setup of ${amp.label} · ${channel.name}`,
+      });
+      if (outcome === 'saved') notify.success('Setup saved', `${amp.label} · ${channel.name}`);
+      setErrors({});
+    } catch (failure) {
+      setErrors(saveErrors(failure).fields);
+    }
+  };
+
+  return (
+    <div className={styles.card} aria-label={`${amp.label} · ${channel.name}`}>
+      <Text as="h4" size={400} weight="semibold" className={styles.title}>
+        {amp.label} · {channel.name}
+      </Text>
+      <div className={formStyles.grid}>
+        {TEXT_FIELDS.map((field) => (
+          <Field key={field.key} label={field.label} validationMessage={errors[field.key]}>
+            <Input
+              className={formStyles.control}
+              value={draft[field.key]}
+              placeholder={field.placeholder}
+              readOnly={!canRecord}
+              autoComplete="off"
+              onChange={(_e, d) => set(field.key, d.value)}
+            />
+          </Field>
+        ))}
+        <Field label="Polarity">
+          <Select className={formStyles.control} value={draft.polarity} disabled={!canRecord} onChange={(_e, d) => set('polarity', d.value)}>
+            <option value="">Not recorded</option>
+            <option value="normal">Normal</option>
+            <option value="inverted">Inverted</option>
+          </Select>
+        </Field>
+        <Field label="Notes" className={formStyles.wide}>
+          <Textarea value={draft.notes} readOnly={!canRecord} onChange={(_e, d) => set('notes', d.value)} resize="vertical" />
+        </Field>
+      </div>
+      {canRecord && (
+        <div className={formStyles.actions}>
+          <Button appearance="primary" className={formStyles.bigButton} disabled={!hasDraft} onClick={() => void save()}>
+            Save setup
+          </Button>
+          {hasDraft && (
+            <Button className={formStyles.bigButton} onClick={clear}>
+              Discard changes
+            </Button>
+          )}
+        </div>
+      )}
+    </div>
+  );
+}

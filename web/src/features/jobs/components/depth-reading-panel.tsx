@@ -1,0 +1,273 @@
+import { Button, makeStyles, mergeClasses, MessageBar, MessageBarBody, Spinner, Text, tokens } from '@fluentui/react-components';
+import { CheckmarkCircle20Regular, Delete20Regular, Edit20Regular, Warning20Filled } from '@fluentui/react-icons';
+import { useEffect, useRef, useState, type FormEvent } from 'react';
+import type { RunDepthResult } from '@domain/depth/depth-check';
+import { checkRunDepth } from '@domain/depth/depth-check';
+import { DEFAULT_DEPTH_RULES, findDepthRule } from '@domain/depth/depth-rules';
+import type { Run } from '@domain/as-built/run.schema';
+
+import { useNotify } from '../../../components/notify';
+import { usePersistedDraft } from '../../../lib/drafts';
+import { formatLength, lengthInputValue } from '../../../lib/units';
+import { useUnitPreferences } from '../../../lib/use-unit-preferences';
+import { useJobWriter } from '../hooks/job-writer';
+import { fieldDomId } from '../utils/finding-target';
+import { saveErrors } from '../utils/save-errors';
+
+import { useFormStyles } from './form-styles';
+import { LengthInput, readLength } from './length-input';
+
+const useStyles = makeStyles({
+  root: {
+    display: 'flex',
+    flexDirection: 'column',
+    gap: tokens.spacingVerticalM,
+    padding: tokens.spacingHorizontalM,
+    borderRadius: tokens.borderRadiusMedium,
+    backgroundColor: tokens.colorNeutralBackground2,
+  },
+  rule: { color: tokens.colorNeutralForeground2 },
+  inputs: { display: 'grid', gridTemplateColumns: 'repeat(2, minmax(0, 1fr))', gap: tokens.spacingHorizontalM, '& > *': { minWidth: 0 } },
+  verdict: { display: 'flex', alignItems: 'center', gap: tokens.spacingHorizontalS, minHeight: '28px' },
+  shallow: { color: tokens.colorPaletteDarkOrangeForeground1, fontWeight: tokens.fontWeightSemibold },
+  ok: { color: tokens.colorPaletteGreenForeground1 },
+  list: { listStyle: 'none', margin: 0, padding: 0, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXS },
+  reading: {
+    display: 'grid',
+    gridTemplateColumns: 'minmax(0, 1fr) auto auto',
+    alignItems: 'center',
+    gap: tokens.spacingHorizontalS,
+    paddingInlineStart: tokens.spacingHorizontalS,
+    borderRadius: tokens.borderRadiusMedium,
+    backgroundColor: tokens.colorNeutralBackground1,
+    ':focus-visible': { outline: `${tokens.strokeWidthThick} solid ${tokens.colorStrokeFocus2}` },
+  },
+  readingText: { display: 'flex', alignItems: 'center', gap: tokens.spacingHorizontalS, flexWrap: 'wrap' },
+  targeted: { outline: `${tokens.strokeWidthThick} solid ${tokens.colorPaletteDarkOrangeBorder2}` },
+});
+
+type DepthDraft = { station: string; depth: string; editing?: number };
+
+type DepthReadingPanelProps = {
+  jobId: string;
+  run: Run;
+  depth: RunDepthResult | undefined;
+  readingIds: string[];
+  canWrite: boolean;
+  /** A finding pointed at this reading. */
+  targetReading?: number;
+  onClose: () => void;
+};
+
+/**
+ * The one-handed "add depth reading" flow: station and depth, one big button, and it stays open for
+ * the next reading. Says at once whether the reading is shallow, before and after saving.
+ */
+export function DepthReadingPanel({ jobId, run, depth, readingIds, canWrite, targetReading, onClose }: DepthReadingPanelProps) {
+  const styles = useStyles();
+  const formStyles = useFormStyles();
+  const notify = useNotify();
+  const writer = useJobWriter();
+  const [units] = useUnitPreferences();
+  const draftKey = `job:${jobId}:depth:${run.id}`;
+  const { value: draft, setValue, hasDraft, clear } = usePersistedDraft<DepthDraft>(draftKey, { station: '', depth: '' });
+  const [errors, setErrors] = useState<{ station?: string; depth?: string }>({});
+  const [message, setMessage] = useState<string | undefined>();
+  const [isSaving, setIsSaving] = useState(false);
+  const stationRef = useRef<HTMLInputElement>(null);
+  const depthRef = useRef<HTMLInputElement>(null);
+  const readings = run.depthReadings ?? [];
+
+  // The rule the server used; before the first reading, the default table's rule for this method.
+  const rule = depth?.rule ?? findDepthRule(DEFAULT_DEPTH_RULES, run.method, run.location ?? 'general') ?? null;
+  const minCoverM = rule?.minCoverM ?? null;
+
+  useEffect(() => {
+    if (targetReading === undefined) return;
+    document.getElementById(fieldDomId(run.id, 'depth', targetReading))?.focus();
+  }, [run.id, targetReading]);
+
+  const typedDepth = draft.depth.trim() === '' ? undefined : readLength(draft.depth, units, 'short').metres;
+  const typedStation = readLength(draft.station, units, 'long').metres ?? 0;
+  const verdict =
+    typedDepth === undefined || minCoverM === null || rule === null
+      ? undefined
+      : checkRunDepth(
+          { ...run, depthReadings: [{ stationM: typedStation, depthM: typedDepth }] },
+          0,
+          { name: 'current', rules: [rule] },
+          [],
+        ).shallowStations.length > 0
+        ? 'shallow'
+        : 'ok';
+
+  const handleSubmit = async (event: FormEvent) => {
+    event.preventDefault();
+    const station = readLength(draft.station, units, 'long');
+    const cover = readLength(draft.depth, units, 'short');
+    setErrors({ station: station.error, depth: cover.error });
+    setMessage(undefined);
+    if (station.metres === undefined || cover.metres === undefined) return;
+    const editingId = draft.editing === undefined ? undefined : readingIds[draft.editing];
+    const body = { stationM: station.metres, depthM: cover.metres };
+    const label = `Depth reading on "${run.label}" at ${formatLength(body.stationM, units.length, 'long')}`;
+    setIsSaving(true);
+    try {
+      const outcome = await writer.save(
+        editingId
+          ? { method: 'PATCH', path: `/runs/${run.id}/depth-readings/${editingId}`, body, draftKey, label }
+          : { method: 'POST', path: `/runs/${run.id}/depth-readings`, body, draftKey, label, isAdditive: true },
+      );
+      if (outcome === 'queued') {
+        // Kept in the waiting list; free the form for the next reading.
+        clear();
+        notify.success('Reading kept on this phone', 'It is sent when the connection returns.');
+      } else if (outcome === 'saved') {
+        notify.success(editingId ? 'Reading changed' : 'Reading saved', label);
+      }
+      stationRef.current?.focus();
+    } catch (error) {
+      const { fields, message: text } = saveErrors(error);
+      setErrors({ station: fields.stationM, depth: fields.depthM });
+      setMessage(text);
+    } finally {
+      setIsSaving(false);
+    }
+  };
+
+  const remove = async (index: number) => {
+    const readingId = readingIds[index];
+    if (!readingId) return;
+    try {
+      await writer.save({ method: 'DELETE', path: `/runs/${run.id}/depth-readings/${readingId}`, label: `Removing a depth reading on "${run.label}"` });
+    } catch (error) {
+      notify.error('Could not remove the reading', saveErrors(error).message);
+    }
+  };
+
+  return (
+    <section className={styles.root} aria-label={`Depth readings of ${run.label}`}>
+      <Text className={styles.rule}>
+        {minCoverM === null
+          ? 'This run is not buried, so no cover is required.'
+          : `At least ${formatLength(minCoverM, units.length, 'short')} of cover is required here (${rule?.basis === 'code' ? 'code' : 'common practice'}).`}
+      </Text>
+      {readings.length > 0 && (
+        <ul className={styles.list} aria-label="Readings">
+          {readings.map((reading, index) => {
+            const station = depth?.stations.find((s) => s.readingIndex === index);
+            const isShallow = station?.marginM !== null && station?.marginM !== undefined && station.marginM < -0.0005;
+            return (
+              <li
+                key={readingIds[index] ?? index}
+                id={fieldDomId(run.id, 'depth', index)}
+                tabIndex={-1}
+                className={mergeClasses(styles.reading, targetReading === index && styles.targeted)}
+              >
+                <span className={styles.readingText}>
+                  <Text>
+                    {formatLength(reading.depthM, units.length, 'short')} at {formatLength(reading.stationM, units.length, 'long')}
+                  </Text>
+                  {isShallow ? (
+                    <Text className={styles.shallow}>
+                      <Warning20Filled aria-hidden /> Too shallow
+                    </Text>
+                  ) : station?.marginM !== null && station?.marginM !== undefined ? (
+                    <Text className={styles.ok}>Deep enough</Text>
+                  ) : null}
+                </span>
+                {canWrite && (
+                  <>
+                    <Button
+                      appearance="subtle"
+                      className={formStyles.button}
+                      icon={<Edit20Regular />}
+                      aria-label={`Change the reading at ${formatLength(reading.stationM, units.length, 'long')}`}
+                      onClick={() => {
+                        setValue({
+                          station: lengthInputValue(reading.stationM, units.length, 'long'),
+                          depth: lengthInputValue(reading.depthM, units.length, 'short'),
+                          editing: index,
+                        });
+                        depthRef.current?.focus();
+                      }}
+                    />
+                    <Button
+                      appearance="subtle"
+                      className={formStyles.button}
+                      icon={<Delete20Regular />}
+                      aria-label={`Remove the reading at ${formatLength(reading.stationM, units.length, 'long')}`}
+                      onClick={() => void remove(index)}
+                    />
+                  </>
+                )}
+              </li>
+            );
+          })}
+        </ul>
+      )}
+      {canWrite && (
+        <form className={formStyles.form} onSubmit={(event) => void handleSubmit(event)} noValidate aria-label={`Add a depth reading to ${run.label}`}>
+          {message && (
+            <MessageBar intent="error" layout="multiline">
+              <MessageBarBody>{message}</MessageBarBody>
+            </MessageBar>
+          )}
+          <div className={styles.inputs}>
+            <LengthInput
+              id={fieldDomId(run.id, 'station')}
+              inputRef={stationRef}
+              label="Station (from the start)"
+              scale="long"
+              value={draft.station}
+              onChange={(station) => setValue((current) => ({ ...current, station }))}
+              error={errors.station}
+            />
+            <LengthInput
+              id={fieldDomId(run.id, 'depth')}
+              inputRef={depthRef}
+              label="Cover depth"
+              scale="short"
+              value={draft.depth}
+              onChange={(value) => setValue((current) => ({ ...current, depth: value }))}
+              error={errors.depth}
+            />
+          </div>
+          <div className={styles.verdict} aria-live="polite">
+            {verdict === 'shallow' && minCoverM !== null && typedDepth !== undefined && (
+              <Text className={styles.shallow}>
+                <Warning20Filled aria-hidden /> Shallow: {formatLength(minCoverM - typedDepth, units.length, 'short')} short of{' '}
+                {formatLength(minCoverM, units.length, 'short')}
+              </Text>
+            )}
+            {verdict === 'ok' && (
+              <Text className={styles.ok}>
+                <CheckmarkCircle20Regular aria-hidden /> Deep enough
+              </Text>
+            )}
+            {hasDraft && verdict === undefined && <Text className={formStyles.unsaved}>Not saved yet</Text>}
+          </div>
+          <div className={formStyles.actions}>
+            <Button
+              type="submit"
+              appearance="primary"
+              className={formStyles.bigButton}
+              disabled={isSaving}
+              icon={isSaving ? <Spinner size="tiny" /> : undefined}
+            >
+              {draft.editing === undefined ? 'Save reading' : 'Save change'}
+            </Button>
+            {draft.editing !== undefined && (
+              <Button className={formStyles.bigButton} onClick={() => clear()}>
+                Stop changing
+              </Button>
+            )}
+            <Button className={formStyles.bigButton} onClick={onClose}>
+              Done
+            </Button>
+          </div>
+        </form>
+      )}
+    </section>
+  );
+}

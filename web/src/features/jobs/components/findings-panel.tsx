@@ -1,0 +1,115 @@
+import { Button, makeStyles, mergeClasses, Text, tokens } from '@fluentui/react-components';
+import { CheckmarkCircle20Regular, ErrorCircle20Filled, Info20Regular, Warning20Filled } from '@fluentui/react-icons';
+import type { AsBuiltAnalysis } from '@domain/analysis/analyze';
+import type { FindingSeverity } from '@domain/analysis/finding';
+import type { AsBuilt } from '@domain/as-built/as-built.schema';
+import type { ReactElement } from 'react';
+
+import { useWorkspaceFocus } from '../hooks/workspace-focus';
+import { SECTION_LABELS, targetOfPath } from '../utils/finding-target';
+
+import { ChannelSummaries } from './channel-summaries';
+
+const useStyles = makeStyles({
+  root: {
+    display: 'flex',
+    flexDirection: 'column',
+    gap: tokens.spacingVerticalM,
+    padding: tokens.spacingHorizontalL,
+    borderRadius: tokens.borderRadiusLarge,
+    backgroundColor: tokens.colorNeutralBackground1,
+    boxShadow: tokens.shadow2,
+  },
+  heading: { margin: 0 },
+  counts: { color: tokens.colorNeutralForeground2 },
+  list: { listStyle: 'none', margin: 0, padding: 0, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
+  finding: {
+    display: 'grid',
+    gridTemplateColumns: 'auto minmax(0, 1fr)',
+    columnGap: tokens.spacingHorizontalS,
+    rowGap: tokens.spacingVerticalXS,
+    padding: tokens.spacingVerticalS,
+    borderInlineStartWidth: tokens.strokeWidthThickest,
+    borderInlineStartStyle: 'solid',
+    borderRadius: tokens.borderRadiusMedium,
+    backgroundColor: tokens.colorNeutralBackground2,
+  },
+  critical: { borderInlineStartColor: tokens.colorPaletteRedBorder2 },
+  warning: { borderInlineStartColor: tokens.colorPaletteDarkOrangeBorder2 },
+  info: { borderInlineStartColor: tokens.colorNeutralStroke1 },
+  iconCritical: { color: tokens.colorPaletteRedForeground1 },
+  iconWarning: { color: tokens.colorPaletteDarkOrangeForeground1 },
+  iconInfo: { color: tokens.colorNeutralForeground2 },
+  body: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXS, minWidth: 0 },
+  message: { overflowWrap: 'anywhere' },
+  link: { alignSelf: 'flex-start', minHeight: '44px', paddingInline: 0 },
+  clear: { display: 'flex', alignItems: 'center', gap: tokens.spacingHorizontalS, color: tokens.colorPaletteGreenForeground1 },
+});
+
+// Words as well as icons and colours: a severity must read the same in grey-scale and to a screen reader.
+const SEVERITY: Record<FindingSeverity, string> = { critical: 'Must fix', warning: 'Check', info: 'Note' };
+
+type FindingsPanelProps = {
+  analysis: AsBuiltAnalysis;
+  asBuilt: AsBuilt;
+  headingId?: string;
+};
+
+/**
+ * Everything the analysis found, most serious first, each with a link to the field it is about, and a
+ * line per amplifier channel (load and worst loss).
+ */
+export function FindingsPanel({ analysis, asBuilt, headingId = 'findings-heading' }: FindingsPanelProps) {
+  const styles = useStyles();
+  const { focus } = useWorkspaceFocus();
+  const { critical, warning, info } = analysis.summary;
+
+  const icon = (severity: FindingSeverity): ReactElement =>
+    severity === 'critical' ? (
+      <ErrorCircle20Filled className={styles.iconCritical} aria-hidden />
+    ) : severity === 'warning' ? (
+      <Warning20Filled className={styles.iconWarning} aria-hidden />
+    ) : (
+      <Info20Regular className={styles.iconInfo} aria-hidden />
+    );
+
+  return (
+    <section className={styles.root} aria-labelledby={headingId}>
+      <Text as="h3" id={headingId} size={500} weight="semibold" className={styles.heading}>
+        Findings
+      </Text>
+      <Text className={styles.counts} aria-live="polite">
+        {analysis.findings.length === 0
+          ? 'Nothing to look at.'
+          : `${critical} must fix · ${warning} to check · ${info} ${info === 1 ? 'note' : 'notes'}`}
+      </Text>
+      <ChannelSummaries analysis={analysis} asBuilt={asBuilt} />
+      {analysis.findings.length === 0 ? (
+        <Text className={styles.clear}>
+          <CheckmarkCircle20Regular aria-hidden /> The record passes every check Loamline makes.
+        </Text>
+      ) : (
+        <ul className={styles.list} aria-label="Findings">
+          {analysis.findings.map((finding, i) => {
+            const target = targetOfPath(finding.path, asBuilt);
+            return (
+              <li key={`${finding.code}-${finding.path.join('.')}-${i}`} className={mergeClasses(styles.finding, styles[finding.severity])}>
+                {icon(finding.severity)}
+                <div className={styles.body}>
+                  <Text weight="semibold">{SEVERITY[finding.severity]}</Text>
+                  <Text className={styles.message}>{finding.message}</Text>
+                  {target && (
+                    <Button appearance="transparent" className={styles.link} onClick={() => focus(target)}>
+                      {target.recordId ? 'Show the field' : `Go to ${SECTION_LABELS[target.section]}`}
+                    </Button>
+                  )}
+                </div>
+              </li>
+            );
+          })}
+        </ul>
+      )}
+    </section>
+  );
+
+}

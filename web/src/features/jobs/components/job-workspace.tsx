@@ -1,0 +1,186 @@
+import { Button, makeStyles, Tab, TabList, Text, tokens } from '@fluentui/react-components';
+import { ChevronDown20Regular, ChevronUp20Regular } from '@fluentui/react-icons';
+import { useCallback, useEffect, useMemo, useState } from 'react';
+import { Link, useSearchParams } from 'react-router';
+import type { Role } from '@domain/auth/roles';
+
+import { PageHeader } from '../../../components/page-header';
+import { paths } from '../../../config/paths';
+import { useMediaQuery } from '../../../lib/use-media-query';
+import type { JobAsBuiltResponse } from '../api/get-job-as-built';
+import { WorkspaceFocusContext } from '../hooks/workspace-focus';
+import { fieldDomId, SECTION_LABELS, SECTIONS, type FieldTarget, type SectionId } from '../utils/finding-target';
+import { jobPermissions } from '../utils/job-permissions';
+
+import { AmpSetupSection } from './amp-setup-section';
+import { ChecksSection } from './checks-section';
+import { FindingsPanel } from './findings-panel';
+import { ItemsSection } from './items-section';
+import { JobStatusActions } from './job-status-actions';
+import { JobStatusBadge } from './job-status-badge';
+import { NotesSection } from './notes-section';
+import { RunsSection } from './runs-section';
+import { SaveStateBar } from './save-state-bar';
+import { UnitsChooser } from './units-chooser';
+import { ZonesSection } from './zones-section';
+
+const useStyles = makeStyles({
+  layout: {
+    display: 'grid',
+    gridTemplateColumns: 'minmax(0, 1fr)',
+    gap: tokens.spacingVerticalL,
+    alignItems: 'start',
+    '@media (min-width: 1024px)': { gridTemplateColumns: 'minmax(0, 1fr) minmax(18rem, 24rem)', columnGap: tokens.spacingHorizontalXXL },
+  },
+  main: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL, minWidth: 0 },
+  aside: { '@media (min-width: 1024px)': { position: 'sticky', top: tokens.spacingVerticalL, maxHeight: 'calc(100vh - 2rem)', overflowY: 'auto' } },
+  tabs: {
+    overflowX: 'auto',
+    '@media (min-width: 1024px)': { flexWrap: 'wrap', overflowX: 'visible' }, backgroundColor: tokens.colorNeutralBackground1, borderRadius: tokens.borderRadiusLarge, boxShadow: tokens.shadow2 },
+  tab: { minHeight: '48px', flexShrink: 0 },
+  meta: { display: 'flex', flexWrap: 'wrap', alignItems: 'center', gap: `${tokens.spacingVerticalS} ${tokens.spacingHorizontalM}` },
+  link: { color: tokens.colorBrandForegroundLink },
+  phoneSummary: {
+    display: 'flex',
+    alignItems: 'center',
+    justifyContent: 'space-between',
+    width: '100%',
+    minHeight: '48px',
+  },
+});
+
+type JobWorkspaceProps = { data: JobAsBuiltResponse; actor: { id: string; role: Role } };
+
+/**
+ * The job as the crew records it: header with the status moves, the findings, and one section at a
+ * time (runs, equipment, wall entries, zones, amplifier setup, checks, notes).
+ */
+export function JobWorkspace({ data, actor }: JobWorkspaceProps) {
+  const styles = useStyles();
+  const isWide = useMediaQuery('(min-width: 1024px)');
+  const [searchParams, setSearchParams] = useSearchParams();
+  const [target, setTarget] = useState<FieldTarget | undefined>();
+  const [isFindingsOpen, setIsFindingsOpen] = useState(false);
+  const { job, asBuilt, analysis } = data;
+  const section: SectionId = (SECTIONS as readonly string[]).includes(searchParams.get('section') ?? '')
+    ? (searchParams.get('section') as SectionId)
+    : 'runs';
+  const permissions = jobPermissions(actor, job);
+
+  const showSection = useCallback(
+    (next: SectionId) => {
+      setSearchParams(
+        (current) => {
+          const params = new URLSearchParams(current);
+          if (next === 'runs') params.delete('section');
+          else params.set('section', next);
+          return params;
+        },
+        { replace: true },
+      );
+    },
+    [setSearchParams],
+  );
+
+  const focus = useCallback(
+    (next: FieldTarget) => {
+      showSection(next.section);
+      setIsFindingsOpen(false);
+      // A fresh object each time, so following the same link twice focuses again.
+      setTarget({ ...next });
+    },
+    [showSection],
+  );
+
+  // After the section and the record's editor have rendered, put the cursor in the field.
+  useEffect(() => {
+    if (!target?.recordId || !target.field) return;
+    const id =
+      target.field === 'depth' && target.readingIndex !== undefined
+        ? fieldDomId(target.recordId, 'depth', target.readingIndex)
+        : fieldDomId(target.recordId, target.field);
+    let tries = 0;
+    const timer = window.setInterval(() => {
+      tries += 1;
+      const element = document.getElementById(id) ?? document.getElementById(fieldDomId(target.recordId!, 'label'));
+      if (element || tries > 20) {
+        window.clearInterval(timer);
+        element?.scrollIntoView?.({ block: 'center' });
+        element?.focus();
+      }
+    }, 50);
+    return () => window.clearInterval(timer);
+  }, [target]);
+
+  const focusValue = useMemo(() => ({ target, focus }), [focus, target]);
+  const openFindings = analysis.summary.critical + analysis.summary.warning;
+
+  const findings = <FindingsPanel analysis={analysis} asBuilt={asBuilt} />;
+
+  return (
+    <WorkspaceFocusContext.Provider value={focusValue}>
+      <PageHeader
+        title={job.title}
+        description={
+          <span className={styles.meta}>
+            <JobStatusBadge status={job.status} />
+            <Link to={paths.site.getHref(job.site.id)} className={styles.link}>
+              {job.site.label}, {job.site.city}
+            </Link>
+            <span>{job.customer.name}</span>
+            {job.revision > 1 && <span>Revision {job.revision}</span>}
+          </span>
+        }
+        actions={<JobStatusActions job={job} analysis={analysis} actor={actor} />}
+      />
+      <div className={styles.layout}>
+        <div className={styles.main}>
+          <SaveStateBar jobId={job.id} />
+          {!isWide &&
+            (isFindingsOpen ? (
+              <>
+                <Button appearance="secondary" className={styles.phoneSummary} icon={<ChevronUp20Regular />} iconPosition="after" onClick={() => setIsFindingsOpen(false)}>
+                  Hide findings
+                </Button>
+                {findings}
+              </>
+            ) : (
+              <Button
+                appearance="secondary"
+                className={styles.phoneSummary}
+                icon={<ChevronDown20Regular />}
+                iconPosition="after"
+                onClick={() => setIsFindingsOpen(true)}
+                aria-label={`Findings: ${openFindings} to look at. Show them`}
+              >
+                <Text weight="semibold">
+                  {openFindings === 0 ? 'Findings: nothing to look at' : `Findings: ${openFindings} to look at`}
+                </Text>
+              </Button>
+            ))}
+          <TabList
+            className={styles.tabs}
+            selectedValue={section}
+            onTabSelect={(_event, next) => showSection(next.value as SectionId)}
+            aria-label="Parts of the as-built"
+          >
+            {SECTIONS.map((id) => (
+              <Tab key={id} value={id} className={styles.tab}>
+                {SECTION_LABELS[id]}
+              </Tab>
+            ))}
+          </TabList>
+          {section === 'runs' && <RunsSection data={data} canRecord={permissions.canRecord} canAddField={permissions.canAddField} />}
+          {section === 'equipment' && <ItemsSection data={data} canRecord={permissions.canRecord} kinds="equipment" />}
+          {section === 'walls' && <ItemsSection data={data} canRecord={permissions.canRecord} kinds="walls" />}
+          {section === 'zones' && <ZonesSection data={data} canRecord={permissions.canRecord} />}
+          {section === 'amp' && <AmpSetupSection data={data} canRecord={permissions.canRecord} />}
+          {section === 'checks' && <ChecksSection data={data} canAddField={permissions.canAddField} />}
+          {section === 'notes' && <NotesSection data={data} canChange={permissions.canChangeNotes} />}
+          <UnitsChooser />
+        </div>
+        {isWide && <aside className={styles.aside}>{findings}</aside>}
+      </div>
+    </WorkspaceFocusContext.Provider>
+  );
+}

@@ -1,0 +1,126 @@
+import { Button, Field, makeStyles, Radio, RadioGroup, Select, Text, tokens } from '@fluentui/react-components';
+import { Add20Regular, Delete20Regular, Location20Regular } from '@fluentui/react-icons';
+import type { ReferencePoint } from '@domain/as-built/item.schema';
+import { solvePositionFromTies, type TieObservation } from '@domain/geometry/ties';
+
+import { formatLength, parseLength } from '../../../lib/units';
+import { useUnitPreferences } from '../../../lib/use-unit-preferences';
+import { fieldDomId } from '../utils/finding-target';
+
+import { useFormStyles } from './form-styles';
+import { LengthInput } from './length-input';
+
+const useStyles = makeStyles({
+  root: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
+  tie: { display: 'grid', gridTemplateColumns: 'minmax(0, 1.2fr) minmax(0, 1fr) auto', gap: tokens.spacingHorizontalS, alignItems: 'end' },
+  solution: {
+    display: 'flex',
+    alignItems: 'flex-start',
+    gap: tokens.spacingHorizontalS,
+    padding: tokens.spacingHorizontalM,
+    borderRadius: tokens.borderRadiusMedium,
+    backgroundColor: tokens.colorNeutralBackground2,
+  },
+  weak: { color: tokens.colorPaletteDarkOrangeForeground1 },
+});
+
+export type TieDraft = { referencePointId: string; distance: string };
+
+type TiesEditorProps = {
+  recordId: string;
+  referencePoints: readonly ReferencePoint[];
+  ties: TieDraft[];
+  sideHint: '' | 'left' | 'right';
+  onChange: (ties: TieDraft[], sideHint: '' | 'left' | 'right') => void;
+  error?: string;
+};
+
+/**
+ * Ties from reference points: each a point and a taped distance. Shows at once where they put the item
+ * and how well (the same solver the analysis uses), before anything is saved.
+ */
+export function TiesEditor({ recordId, referencePoints, ties, sideHint, onChange, error }: TiesEditorProps) {
+  const styles = useStyles();
+  const formStyles = useFormStyles();
+  const [units] = useUnitPreferences();
+
+  const observations: TieObservation[] = [];
+  for (const tie of ties) {
+    const point = referencePoints.find((candidate) => candidate.id === tie.referencePointId);
+    const distance = parseLength(tie.distance, units.length, 'long');
+    if (point && distance.ok && distance.metres > 0) observations.push({ x: point.x, y: point.y, distanceM: distance.metres });
+  }
+  const solution = observations.length >= 2 ? solvePositionFromTies(observations, { sideHint: sideHint || undefined }) : undefined;
+  const first = referencePoints.find((p) => p.id === ties[0]?.referencePointId)?.label ?? 'the first point';
+  const second = referencePoints.find((p) => p.id === ties[1]?.referencePointId)?.label ?? 'the second point';
+
+  if (referencePoints.length === 0) {
+    return <Text>This site has no reference points yet. Add house corners or posts on the site page, then tape ties from them.</Text>;
+  }
+
+  return (
+    <div className={styles.root} id={fieldDomId(recordId, 'ties')} tabIndex={-1}>
+      <Text weight="semibold">Ties (taped from reference points)</Text>
+      {error && <Text className={styles.weak}>{error}</Text>}
+      {ties.map((tie, i) => (
+        <div key={i} className={styles.tie}>
+          <Field label={`Tie ${i + 1} from`}>
+            <Select
+              className={formStyles.control}
+              value={tie.referencePointId}
+              onChange={(_e, d) => onChange(ties.map((t, j) => (j === i ? { ...t, referencePointId: d.value } : t)), sideHint)}
+            >
+              <option value="">Choose a point</option>
+              {referencePoints.map((point) => (
+                <option key={point.id} value={point.id}>
+                  {point.label}
+                </option>
+              ))}
+            </Select>
+          </Field>
+          <LengthInput
+            id={`${fieldDomId(recordId, 'tie')}-${i}`}
+            label="Distance"
+            scale="long"
+            value={tie.distance}
+            onChange={(distance) => onChange(ties.map((t, j) => (j === i ? { ...t, distance } : t)), sideHint)}
+          />
+          <Button
+            appearance="subtle"
+            className={formStyles.button}
+            icon={<Delete20Regular />}
+            aria-label={`Remove tie ${i + 1}`}
+            onClick={() => onChange(ties.filter((_t, j) => j !== i), sideHint)}
+          />
+        </div>
+      ))}
+      <div className={formStyles.actions}>
+        <Button className={formStyles.button} icon={<Add20Regular />} onClick={() => onChange([...ties, { referencePointId: '', distance: '' }], sideHint)}>
+          Add a tie
+        </Button>
+      </div>
+      {ties.length >= 2 && (
+        <Field label={`Standing at ${first} and looking at ${second}, the item is on the`} id={fieldDomId(recordId, 'sideHint')}>
+          <RadioGroup layout="horizontal" value={sideHint} onChange={(_e, d) => onChange(ties, d.value as 'left' | 'right')}>
+            <Radio className={formStyles.control} value="left" label="Left" />
+            <Radio className={formStyles.control} value="right" label="Right" />
+          </RadioGroup>
+        </Field>
+      )}
+      {solution && (
+        <div className={styles.solution} aria-live="polite">
+          <Location20Regular aria-hidden />
+          {solution.ok ? (
+            <Text className={solution.isWeak ? styles.weak : undefined}>
+              Placed at x {formatLength(solution.x, units.length, 'long')}, y {formatLength(solution.y, units.length, 'long')}, good to about ±
+              {Number.isFinite(solution.accuracyM) ? formatLength(solution.accuracyM, units.length, 'short') : '?'}
+              {solution.isWeak ? '. The ties meet at a shallow angle: add one from a point off to the side.' : '.'}
+            </Text>
+          ) : (
+            <Text className={styles.weak}>Cannot place it yet: {solution.message}.</Text>
+          )}
+        </div>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,151 @@
+import { Button, Field, Input, makeStyles, Text, tokens } from '@fluentui/react-components';
+import { Add20Regular, Edit20Regular } from '@fluentui/react-icons';
+import { useState, type FormEvent } from 'react';
+import { CreateReferencePointSchema, type ReferencePointResponse } from '@domain/sites/site.schema';
+
+import { useNotify } from '../../../components/notify';
+import { describeRequestError, fieldErrorsFromApi, fieldErrorsFromZod, type FieldErrors } from '../../../lib/form-errors';
+import { formatLength, lengthInputValue, parseLength } from '../../../lib/units';
+import { useUnitPreferences } from '../../../lib/use-unit-preferences';
+import { useSaveReferencePoint } from '../api/save-reference-point';
+
+const useStyles = makeStyles({
+  list: { listStyle: 'none', margin: 0, padding: 0, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
+  row: {
+    display: 'flex',
+    flexWrap: 'wrap',
+    alignItems: 'center',
+    justifyContent: 'space-between',
+    gap: tokens.spacingHorizontalM,
+    padding: tokens.spacingHorizontalM,
+    borderRadius: tokens.borderRadiusMedium,
+    backgroundColor: tokens.colorNeutralBackground1,
+    boxShadow: tokens.shadow2,
+  },
+  muted: { color: tokens.colorNeutralForeground2 },
+  form: {
+    display: 'grid',
+    gridTemplateColumns: 'minmax(0, 1fr)',
+    gap: tokens.spacingVerticalM,
+    padding: tokens.spacingHorizontalM,
+    borderRadius: tokens.borderRadiusMedium,
+    backgroundColor: tokens.colorNeutralBackground2,
+    '@media (min-width: 640px)': { gridTemplateColumns: 'minmax(0, 2fr) minmax(0, 1fr) minmax(0, 1fr)', columnGap: tokens.spacingHorizontalM },
+  },
+  actions: { display: 'flex', gap: tokens.spacingHorizontalS, gridColumn: '1 / -1' },
+  control: { minHeight: '48px' },
+});
+
+type Field = 'label' | 'x' | 'y';
+
+/**
+ * The site's fixed points (house corners, posts) with plan coordinates in metres east (x) and north (y)
+ * of the plan origin. Ties on every job of the site are taped from these.
+ */
+export function ReferencePoints({ siteId, points, canEdit }: { siteId: string; points: ReferencePointResponse[]; canEdit: boolean }) {
+  const styles = useStyles();
+  const [units] = useUnitPreferences();
+  const [editing, setEditing] = useState<string | undefined>();
+
+  return (
+    <div className={styles.list}>
+      {points.length === 0 && <Text className={styles.muted}>No reference points yet.</Text>}
+      <ul className={styles.list} aria-label="Reference points">
+        {points.map((point) =>
+          editing === point.id ? (
+            <li key={point.id}>
+              <PointForm siteId={siteId} point={point} onDone={() => setEditing(undefined)} />
+            </li>
+          ) : (
+            <li key={point.id} className={styles.row}>
+              <span>
+                <Text weight="semibold">{point.label}</Text>{' '}
+                <Text className={styles.muted}>
+                  x {formatLength(point.x, units.length, 'long')}, y {formatLength(point.y, units.length, 'long')}
+                </Text>
+              </span>
+              {canEdit && (
+                <Button className={styles.control} icon={<Edit20Regular />} onClick={() => setEditing(point.id)} aria-label={`Change ${point.label}`}>
+                  Change
+                </Button>
+              )}
+            </li>
+          ),
+        )}
+      </ul>
+      {canEdit &&
+        (editing === 'new' ? (
+          <PointForm siteId={siteId} onDone={() => setEditing(undefined)} />
+        ) : (
+          <div>
+            <Button className={styles.control} icon={<Add20Regular />} onClick={() => setEditing('new')}>
+              Add reference point
+            </Button>
+          </div>
+        ))}
+    </div>
+  );
+}
+
+function PointForm({ siteId, point, onDone }: { siteId: string; point?: ReferencePointResponse; onDone: () => void }) {
+  const styles = useStyles();
+  const notify = useNotify();
+  const save = useSaveReferencePoint();
+  const [units] = useUnitPreferences();
+  const [label, setLabel] = useState(point?.label ?? '');
+  const [x, setX] = useState(point ? lengthInputValue(point.x, units.length, 'long') : '');
+  const [y, setY] = useState(point ? lengthInputValue(point.y, units.length, 'long') : '');
+  const [errors, setErrors] = useState<FieldErrors<Field>>({});
+
+  // Coordinates may be negative (west or south of the origin): parse the size, keep the sign.
+  const coordinate = (value: string) => {
+    const isNegative = value.trim().startsWith('-');
+    const parsed = parseLength(value.trim().replace(/^-/, ''), units.length, 'long');
+    return parsed.ok ? (isNegative ? -parsed.metres : parsed.metres) : undefined;
+  };
+
+  const submit = (event: FormEvent) => {
+    event.preventDefault();
+    const parsed = CreateReferencePointSchema.safeParse({ label, x: coordinate(x), y: coordinate(y) });
+    if (!parsed.success) {
+      setErrors(fieldErrorsFromZod<Field>(parsed.error));
+      return;
+    }
+    save.mutate(
+      { siteId, pointId: point?.id, input: parsed.data },
+      {
+        onSuccess: () => {
+          notify.success(point ? 'Reference point saved' : 'Reference point added', parsed.data.label);
+          onDone();
+        },
+        onError: (error) => {
+          const found = fieldErrorsFromApi<Field>(error);
+          if (Object.keys(found).length === 0) notify.error('Could not save the point', describeRequestError(error));
+          setErrors(found);
+        },
+      },
+    );
+  };
+
+  return (
+    <form className={styles.form} onSubmit={submit} noValidate aria-label={point ? `Change ${point.label}` : 'New reference point'}>
+      <Field label="Name" required validationMessage={errors.label}>
+        <Input className={styles.control} value={label} placeholder="North-east house corner" onChange={(_e, d) => setLabel(d.value)} />
+      </Field>
+      <Field label={`x (east, ${units.length === 'metric' ? 'm' : 'ft'})`} required validationMessage={errors.x}>
+        <Input className={styles.control} inputMode="decimal" value={x} onChange={(_e, d) => setX(d.value)} />
+      </Field>
+      <Field label={`y (north, ${units.length === 'metric' ? 'm' : 'ft'})`} required validationMessage={errors.y}>
+        <Input className={styles.control} inputMode="decimal" value={y} onChange={(_e, d) => setY(d.value)} />
+      </Field>
+      <div className={styles.actions}>
+        <Button type="submit" appearance="primary" className={styles.control} disabled={save.isPending}>
+          Save point
+        </Button>
+        <Button className={styles.control} onClick={onDone}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}
