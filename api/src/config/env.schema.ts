@@ -41,7 +41,7 @@ export const EnvSchema = z.object({
   /** Credentials of the S3 driver; without them the AWS SDK's default chain applies (no defaults here). */
   S3_ACCESS_KEY_ID: z.string().min(1).optional(),
   S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
-  /** Path-style URLs (http://host/bucket/key), which MinIO, s3rver and most self-hosted services need. */
+  /** Path-style URLs (http://host/bucket/key), which s3rver and most self-hosted services need. */
   S3_FORCE_PATH_STYLE: z.stringbool().default(false),
   /** The Chromium binary the packet renderer drives (Debian's `chromium` package). */
   CHROMIUM_PATH: z.string().min(1).default('/usr/bin/chromium'),

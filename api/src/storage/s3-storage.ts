@@ -27,7 +27,7 @@ function isNotFound(error: unknown): boolean {
   return error.name === 'NoSuchKey' || error.name === 'NotFound' || error.$metadata.httpStatusCode === 404;
 }
 
-/** Objects in one bucket of an S3-compatible service (AWS, MinIO, s3rver …) through the AWS SDK v3. */
+/** Objects in one bucket of an S3-compatible service (hosted, self-hosted, or s3rver in the tests) through the AWS SDK v3. */
 export class S3Storage implements ObjectStorage {
   readonly client: S3Client;
   readonly bucket: string;
@@ -42,7 +42,7 @@ export class S3Storage implements ObjectStorage {
         ? { credentials: { accessKeyId: options.accessKeyId, secretAccessKey: options.secretAccessKey } }
         : {}),
       // SDKs since 3.729 add CRC32 checksums to every request and validate them on responses; many
-      // S3-compatible servers (s3rver, older MinIO) reject or omit them. Only send them when an
+      // S3-compatible servers (s3rver, some self-hosted ones) reject or omit them. Only send them when an
       // operation requires it.
       requestChecksumCalculation: 'WHEN_REQUIRED',
       responseChecksumValidation: 'WHEN_REQUIRED',
