@@ -10,11 +10,14 @@ import { RolesGuard } from './common/guards/roles.guard.js';
 import { readEnv } from './config/env.schema.js';
 import { CustomersModule } from './customers/customers.module.js';
 import { DbModule } from './db/db.module.js';
+import { DeliveryModule } from './delivery/delivery.module.js';
 import { HealthModule } from './health/health.module.js';
 import { JobsModule } from './jobs/jobs.module.js';
+import { LocateModule } from './locate/locate.module.js';
 import { MailModule } from './mail/mail.module.js';
 import { PacketsModule } from './packets/packets.module.js';
 import { PhotosModule } from './photos/photos.module.js';
+import { PortalModule } from './portal/portal.module.js';
 import { SitesModule } from './sites/sites.module.js';
 import { StorageModule } from './storage/storage.module.js';
 import { UsersModule } from './users/users.module.js';
@@ -35,6 +38,9 @@ import { UsersModule } from './users/users.module.js';
     JobsModule,
     PacketsModule,
     PhotosModule,
+    LocateModule,
+    DeliveryModule,
+    PortalModule,
   ],
   providers: [
     // Default-deny: every route needs a signed-in user unless marked @Public(); then @Roles() applies.

@@ -7,6 +7,7 @@ import type { NestExpressApplication } from '@nestjs/platform-express';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
+import { analyzeAsBuilt } from '../../api/src/domain/analysis/analyze.js';
 import { DEMO_AS_BUILT } from '../../api/src/domain/as-built/demo-as-built.js';
 import { ROLES, type Role } from '../../api/src/domain/auth/roles.js';
 import { DiskStorage } from '../../api/src/storage/disk-storage.js';
@@ -474,7 +475,84 @@ describe('authorization matrix', () => {
       expect: staff(200),
       call: async () => ({ path: `/api/packets/${(await readyPacketA()).id}/archive.zip` }),
     },
+    // siteA's homeowner is A's homeowner (linked in beforeAll), so a send has a recipient.
+    'POST /api/packets/:id/send': {
+      expect: officeOnly(202),
+      call: async () => ({ path: `/api/packets/${(await readyPacketA()).id}/send`, body: { message: 'Matrix send' } }),
+    },
+    'GET /api/packets/:id/deliveries': {
+      expect: officeOnly(200),
+      call: async () => ({ path: `/api/packets/${(await readyPacketA()).id}/deliveries` }),
+    },
+    'POST /api/sites/:siteId/locate-links': {
+      expect: only(['admin', 'office', 'homeowner'], 201, 404),
+      call: () => ({ path: `/api/sites/${siteA}/locate-links`, body: { expiresInDays: 7, note: 'Matrix' } }),
+    },
+    'GET /api/sites/:siteId/locate-links': {
+      expect: only(['admin', 'office', 'homeowner'], 200, 404),
+      call: () => ({ path: `/api/sites/${siteA}/locate-links` }),
+    },
+    'DELETE /api/locate-links/:id': {
+      expect: only(['admin', 'office', 'homeowner'], 204, 404),
+      call: async () => ({ path: `/api/locate-links/${(await locateLinkA()).id}` }),
+    },
+    // Homeowners only: staff of any company are refused by role (403) before any record is looked at.
+    'GET /api/portal/sites': { expect: only(['homeowner'], 200, 403), isList: true, call: () => ({ path: '/api/portal/sites' }) },
+    'GET /api/portal/sites/:siteId': { expect: only(['homeowner'], 200, 403), call: () => ({ path: `/api/portal/sites/${siteA}` }) },
+    'GET /api/portal/sites/:siteId/map': { expect: only(['homeowner'], 200, 403), call: () => ({ path: `/api/portal/sites/${siteA}/map` }) },
+    'GET /api/portal/packets/:id/pdf': {
+      expect: only(['homeowner'], 200, 403),
+      call: async () => ({ path: `/api/portal/packets/${(await readyPacketA()).id}/pdf` }),
+    },
+    'GET /api/portal/packets/:id/archive.zip': {
+      expect: only(['homeowner'], 200, 403),
+      call: async () => ({ path: `/api/portal/packets/${(await readyPacketA()).id}/archive.zip` }),
+    },
+    // Public with a valid token (a bad one is 404 LOCATE_LINK_NOT_VALID: locate.int.spec.ts).
+    'GET /api/locate/:token': { expect: everyone(200), call: async () => ({ path: `/api/locate/${(await locateLinkA()).token}` }) },
+    'GET /api/locate/:token/map.geojson': {
+      expect: everyone(200),
+      call: async () => ({ path: `/api/locate/${(await locateLinkA()).token}/map.geojson` }),
+    },
+    'GET /api/locate/:token/runs/:runId/depth-profile.svg': {
+      expect: everyone(200),
+      call: async () => ({ path: `/api/locate/${(await locateLinkA()).token}/runs/${DEMO_AS_BUILT.runs[0]!.id}/depth-profile.svg` }),
+    },
+    'GET /api/locate/:token/photos/:photoId/:variant': {
+      expect: everyone(200),
+      call: async () => ({ path: `/api/locate/${(await locateLinkA()).token}/photos/${await trenchPhotoA()}/thumb` }),
+    },
   };
+
+  /** A fresh locate link of site A (made by A's office), with its token. */
+  async function locateLinkA(): Promise<{ id: string; token: string }> {
+    return arrange.expectOk('post', `/api/sites/${siteA}/locate-links`, { expiresInDays: 1 });
+  }
+
+  /** A photo on a run of a job of site A that has a ready revision (so the public view may show it). */
+  async function trenchPhotoA(): Promise<string> {
+    const r = await recordedJobA();
+    const res = await request(app.getHttpServer())
+      .post(`${r.base}/photos`)
+      .set(bearer(sessions.get('office')!))
+      .set(r.headers)
+      .field('target', JSON.stringify({ type: 'run', id: r.run.id }))
+      .attach('files', photoPng, 'trench.png');
+    if (res.status !== 201) throw new Error(`photo upload → ${res.status} ${JSON.stringify(res.body)}`);
+    await insertReadyRevision(r.base.split('/').pop()!, { snapshot: {} });
+    return res.body.photos[0].id as string;
+  }
+
+  /** Stand-in ready revision rows (files that are never read) for a job of company A. */
+  async function insertReadyRevision(jobId: string, { snapshot }: { snapshot: object }) {
+    await withDb((db) =>
+      db.query(
+        `insert into packet_revisions (company_id, job_id, revision, status, snapshot, paper_size, pdf_key, pdf_sha256, zip_key, zip_sha256, attempts)
+         values ($1, $2, 1, 'ready', $3, 'letter', 'stand-in.pdf', $4, 'stand-in.zip', $4, 1)`,
+        [a.id, jobId, JSON.stringify(snapshot), '0'.repeat(64)],
+      ),
+    );
+  }
 
   /** A recorded job of company A moved straight to ready to issue (version 1). */
   async function readyToIssueJobA() {
@@ -514,6 +592,12 @@ describe('authorization matrix', () => {
     arrange = apiAs(app, sessions.get('office')!);
     siteA = (await createSite(arrange)).siteId;
     await draftJobA();
+    await arrange.expectOk('post', `/api/sites/${siteA}/homeowners`, { userId: a.users.homeowner.id });
+    // An issued revision with the demo as-built (GPS origin, depth readings), for the public locate routes.
+    const demoJob = await insertRecordedJob(a, siteA, { crewLeadUserId: a.users.lead.id, technicianUserIds: [] }, DEMO_AS_BUILT);
+    await insertReadyRevision(demoJob.id, {
+      snapshot: { asBuilt: DEMO_AS_BUILT, analysis: analyzeAsBuilt(DEMO_AS_BUILT), settings: { units: 'metric', paperSize: 'letter', licenceNumbers: [], contactPhone: null, contactEmail: null } },
+    });
   });
 
   afterAll(async () => {

@@ -1,9 +1,10 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, eq, gt, isNull } from 'drizzle-orm';
+import { and, eq, gt, isNull, sql } from 'drizzle-orm';
 
 import { DB, type Db, type Tx } from '../db/db.module.js';
 import {
   companies,
+  invitationSites,
   invitations,
   passwordResetTokens,
   refreshSessions,
@@ -134,6 +135,15 @@ export class AuthRepository {
       .where(and(eq(invitations.id, id), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)))
       .returning({ id: invitations.id });
     return rows.length === 1;
+  }
+
+  /** Links a new homeowner to the sites their invitation named (a packet sent to them invited them). */
+  async linkInvitedSites(invitationId: string, userId: string, tx: Tx): Promise<void> {
+    await tx.execute(
+      sql`insert into site_homeowners (site_id, user_id)
+          select ${invitationSites.siteId}, ${userId} from ${invitationSites} where ${invitationSites.invitationId} = ${invitationId}
+          on conflict do nothing`,
+    );
   }
 
   transaction<T>(work: (tx: Tx) => Promise<T>): Promise<T> {

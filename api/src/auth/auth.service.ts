@@ -165,6 +165,7 @@ export class AuthService {
         { companyId: invitation.companyId, email: invitation.email, name: input.name, role: invitation.role, passwordHash },
         tx,
       );
+      if (invitation.role === 'homeowner') await this.repository.linkInvitedSites(invitation.id, user.id, tx);
       await this.audit.record(
         {
           companyId: invitation.companyId,

@@ -55,6 +55,18 @@ export const EnvSchema = z.object({
   PACKET_RENDER_RETRIES: z.coerce.number().int().min(0).max(10).default(3),
   /** How often an idle worker polls the queue, seconds (pg-boss 10 minimum 0.5). */
   QUEUE_POLL_INTERVAL_SECONDS: z.coerce.number().min(0.5).max(60).default(1),
+  /** Largest packet PDF sent as an e-mail attachment, bytes; a larger one is sent as a link only. */
+  MAIL_MAX_ATTACHMENT_BYTES: z.coerce.number().int().min(0).default(10 * 1024 * 1024),
+  /** Retries of a failed packet e-mail (with exponential backoff) before the delivery is marked failed. */
+  PACKET_SEND_RETRIES: z.coerce.number().int().min(0).max(20).default(5),
+  /** First retry delay of a failed packet e-mail, seconds (doubles each retry). */
+  PACKET_SEND_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
+  /** Public locate views (and their files) one client address may open per minute. */
+  LOCATE_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).max(10_000).default(60),
+  /** Unknown, expired or revoked locate tokens one client address may try per minute before 429. */
+  LOCATE_FAILED_LOOKUPS_PER_MINUTE: z.coerce.number().int().min(1).max(1000).default(10),
+  /** Lifetime of the locate link created when a packet is issued (its QR code), days. */
+  LOCATE_LONG_LIVED_DAYS: z.coerce.number().int().min(1).max(36_500).default(3652),
   /** Largest accepted upload file, in bytes (larger: 413). */
   UPLOAD_MAX_FILE_BYTES: z.coerce.number().int().min(1024).default(25 * 1024 * 1024),
   /** Most files accepted in one upload request (more: 413). */

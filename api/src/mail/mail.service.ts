@@ -28,7 +28,8 @@ export class MailService {
     private readonly localServer: LocalSmtpServer,
   ) {}
 
-  async send(mail: OutgoingMail): Promise<void> {
+  /** Sends the message and resolves to its Message-ID once the SMTP server has accepted it. */
+  async send(mail: OutgoingMail): Promise<string> {
     const rendered = this.templates.render(mail.template, mail.data);
     const transport = await this.getTransport();
     const info = await transport.sendMail({
@@ -42,6 +43,7 @@ export class MailService {
       attachments: mail.attachments,
     });
     this.logger.log(`sent "${mail.template}" mail ${info.messageId}`);
+    return info.messageId;
   }
 
   private getTransport(): Promise<Transporter> {

@@ -90,10 +90,11 @@ export class PacketRenderWorker {
     const started = performance.now();
     try {
       const { snapshot } = revision;
-      const [photos, signatureRows, logoDataUri] = await Promise.all([
+      const [photos, signatureRows, logoDataUri, issuedLocateUrl] = await Promise.all([
         this.photos.photosFor({ companyId: revision.companyId, jobId: revision.jobId, revisionId }),
         this.repository.signatures(revisionId),
         this.logo(revision.companyId),
+        this.repository.locateUrl(revisionId),
       ]);
       const signatures: PacketSignature[] = signatureRows.map((s) => ({
         role: s.role,
@@ -101,8 +102,9 @@ export class PacketRenderWorker {
         signedAt: s.signedAt.toISOString(),
         svgPath: s.svgPath,
       }));
-      // The locate view arrives with the next issue (#9); the QR code already points at its address.
-      const locateUrl = this.links.to(`/locate/${revisionId}`);
+      // The site's long-lived locate link, made when the revision was issued. Revisions issued before
+      // locate links existed keep the address they were first printed with.
+      const locateUrl = issuedLocateUrl ?? this.links.to(`/locate/${revisionId}`);
       const rendered = await this.renderer.render({ snapshot, locateUrl, photos, signatures, logoDataUri });
       const archive = await buildPacketArchive({
         snapshot,

@@ -8,7 +8,8 @@ import { Roles } from '../common/decorators/roles.decorator.js';
 import { ApiJobVersion } from '../jobs/api-job-version.decorator.js';
 import { type IssuePacketResponse, type PacketFile, type PacketRevisionResponse, PacketsService } from './packets.service.js';
 
-function send(res: Response, file: PacketFile): StreamableFile {
+/** Streams a verified packet file with its digest headers (the portal serves its downloads the same way). */
+export function sendPacketFile(res: Response, file: PacketFile): StreamableFile {
   res.setHeader('Content-Type', file.contentType);
   res.setHeader('Content-Disposition', `attachment; filename="${file.fileName}"`);
   res.setHeader('ETag', `"${file.sha256}"`);
@@ -59,12 +60,12 @@ export class PacketsController {
   @Get('packets/:id/pdf')
   @ApiOperation({ summary: 'The revision’s PDF (409 until ready); its SHA-256 is checked before sending' })
   async pdf(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string, @Res({ passthrough: true }) res: Response): Promise<StreamableFile> {
-    return send(res, await this.packets.file(user, id, 'pdf'));
+    return sendPacketFile(res, await this.packets.file(user, id, 'pdf'));
   }
 
   @Get('packets/:id/archive.zip')
   @ApiOperation({ summary: 'The revision’s archive (PDF, drawings, CSV, JSON, GeoJSON, photos, MANIFEST.sha256)' })
   async archive(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string, @Res({ passthrough: true }) res: Response): Promise<StreamableFile> {
-    return send(res, await this.packets.file(user, id, 'zip'));
+    return sendPacketFile(res, await this.packets.file(user, id, 'zip'));
   }
 }

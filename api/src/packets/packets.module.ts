@@ -3,6 +3,7 @@ import { ConfigService } from '@nestjs/config';
 
 import type { Env } from '../config/env.schema.js';
 import { JobsRepository } from '../jobs/jobs.repository.js';
+import { LocateModule } from '../locate/locate.module.js';
 import { PacketRenderWorker } from './packet-render.worker.js';
 import { PacketRenderingModule } from './packet-rendering.module.js';
 import { PacketsController } from './packets.controller.js';
@@ -10,10 +11,12 @@ import { PacketsService } from './packets.service.js';
 
 /** The packet API; with PACKET_WORKER_IN_API (default) this process also renders queued packets. */
 @Module({
-  imports: [PacketRenderingModule],
+  imports: [PacketRenderingModule, LocateModule],
   controllers: [PacketsController],
   // JobsRepository is stateless (DB access only): a local instance avoids widening JobsModule's exports.
   providers: [PacketsService, JobsRepository],
+  // The portal and the send worker serve the same verified files.
+  exports: [PacketsService],
 })
 export class PacketsModule implements OnApplicationBootstrap, BeforeApplicationShutdown {
   constructor(

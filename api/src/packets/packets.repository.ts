@@ -12,6 +12,7 @@ import {
   packetRevisions,
   packetSignatures,
   type PacketSignatureRow,
+  revisionLocateLinks,
   sites,
   users,
 } from '../db/schema/index.js';
@@ -114,6 +115,12 @@ export class PacketsRepository {
       .from(packetRevisions)
       .where(and(eq(packetRevisions.companyId, companyId), eq(packetRevisions.id, id)));
     return row;
+  }
+
+  /** The locate URL the revision's QR code prints (made at issue); undefined for revisions issued before locate links. */
+  async locateUrl(revisionId: string): Promise<string | undefined> {
+    const [row] = await this.db.select({ url: revisionLocateLinks.url }).from(revisionLocateLinks).where(eq(revisionLocateLinks.revisionId, revisionId));
+    return row?.url;
   }
 
   async signatures(revisionId: string): Promise<PacketSignatureRow[]> {

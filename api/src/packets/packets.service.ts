@@ -11,6 +11,7 @@ import type { PacketSnapshot } from '../domain/packet/packet-snapshot.js';
 import { toAsBuilt, toChannelSetup } from '../jobs/as-built-rows.js';
 import { denied, jobNotFound, versionConflict } from '../jobs/job-errors.js';
 import { JobsRepository } from '../jobs/jobs.repository.js';
+import { LocateLinksService } from '../locate/locate-links.service.js';
 import { OBJECT_STORAGE, type ObjectStorage } from '../storage/object-storage.js';
 import { PacketQueue } from './packet-queue.js';
 import { type PacketRevisionSummary, PacketsRepository } from './packets.repository.js';
@@ -77,6 +78,7 @@ export class PacketsService {
     private readonly jobs: JobsRepository,
     private readonly queue: PacketQueue,
     private readonly audit: AuditService,
+    private readonly locateLinks: LocateLinksService,
     @Inject(OBJECT_STORAGE) private readonly storage: ObjectStorage,
   ) {}
 
@@ -153,6 +155,8 @@ export class PacketsService {
         }
         throw error;
       }
+      // The QR code on the cover: the site's long-lived locate link (made now if none is active).
+      await this.locateLinks.urlForIssuedRevision(actor, job.siteId, inserted.id, tx);
       await this.jobs.update(jobId, { status: 'issued' }, tx);
       const version = await this.jobs.bumpVersion(jobId, tx);
       await this.audit.record(
@@ -188,7 +192,12 @@ export class PacketsService {
 
   /** The stored PDF or archive, after checking its bytes still hash to the SHA-256 recorded at render. */
   async file(actor: AuthUser, id: string, kind: 'pdf' | 'zip'): Promise<PacketFile> {
-    const row = await this.repository.findFiles(actor.companyId, id);
+    return this.fileInCompany(actor.companyId, id, kind);
+  }
+
+  /** As `file`, for callers that checked access themselves (the homeowner portal, the send worker). */
+  async fileInCompany(companyId: string, id: string, kind: 'pdf' | 'zip'): Promise<PacketFile> {
+    const row = await this.repository.findFiles(companyId, id);
     if (!row) throw packetNotFound();
     const key = kind === 'pdf' ? row.pdfKey : row.zipKey;
     const expected = kind === 'pdf' ? row.pdfSha256 : row.zipSha256;
@@ -201,7 +210,7 @@ export class PacketsService {
       this.logger.error(`packet ${id} ${kind} does not match its recorded SHA-256`);
       throw new InternalServerErrorException({ message: 'The stored file failed its integrity check.', code: 'PACKET_FILE_CORRUPT' });
     }
-    const view = await this.jobs.findView(actor.companyId, row.jobId);
+    const view = await this.jobs.findView(companyId, row.jobId);
     const base = `${(view?.site.label ?? 'packet').replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '').toLowerCase() || 'packet'}-rev-${row.revision}`;
     return {
       body,

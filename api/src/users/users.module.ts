@@ -8,5 +8,7 @@ import { UsersService } from './users.service.js';
 @Module({
   controllers: [UsersController, InvitationsController],
   providers: [UsersService, UsersRepository],
+  // Sending a packet to a homeowner without an account invites them through the same flow.
+  exports: [UsersService],
 })
 export class UsersModule {}

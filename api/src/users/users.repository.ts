@@ -2,7 +2,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import { and, asc, eq, gt, isNull } from 'drizzle-orm';
 
 import { DB, type Db, type Tx } from '../db/db.module.js';
-import { companies, invitations, type NewUser, type User, users } from '../db/schema/index.js';
+import { companies, invitationSites, invitations, type NewUser, type User, users } from '../db/schema/index.js';
 
 /** Every method takes the company id from the signed-in user: nothing here crosses companies. */
 @Injectable()
@@ -63,6 +63,13 @@ export class UsersRepository {
   async insertInvitation(invitation: typeof invitations.$inferInsert, tx: Tx) {
     const [row] = await tx.insert(invitations).values(invitation).returning();
     return row!;
+  }
+
+  /** Sites a homeowner invitation links on acceptance. */
+  async insertInvitationSites(invitationId: string, siteIds: readonly string[], tx: Tx): Promise<void> {
+    // Guard against an empty multi-row insert, which drizzle rejects.
+    if (siteIds.length === 0) return;
+    await tx.insert(invitationSites).values(siteIds.map((siteId) => ({ invitationId, siteId }))).onConflictDoNothing();
   }
 
   async revokeInvitationInCompany(companyId: string, id: string, tx: Tx) {

@@ -75,8 +75,11 @@ export class UsersService {
     return (await this.repository.listOpenInvitations(actor.companyId)).map(toInvitationResponse);
   }
 
-  /** Creates a single-use, expiring invitation and e-mails its link; a newer invitation replaces an open one. */
-  async invite(actor: AuthUser, input: CreateInvitationInput): Promise<InvitationResponse> {
+  /**
+   * Creates a single-use, expiring invitation and e-mails its link; a newer invitation replaces an open
+   * one. `siteIds` (homeowner invitations): sites the invitee is linked to on accepting.
+   */
+  async invite(actor: AuthUser, input: CreateInvitationInput, options: { siteIds?: readonly string[] } = {}): Promise<InvitationResponse> {
     if (!canInvite(actor.role, input.role)) {
       throw new ForbiddenException({ message: `Your role cannot invite a ${ROLE_LABELS[input.role].toLowerCase()}.`, code: 'CANNOT_INVITE_ROLE' });
     }
@@ -99,6 +102,7 @@ export class UsersService {
         },
         tx,
       );
+      if (input.role === 'homeowner' && options.siteIds?.length) await this.repository.insertInvitationSites(row.id, options.siteIds, tx);
       await this.audit.record(
         {
           companyId: actor.companyId,

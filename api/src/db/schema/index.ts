@@ -7,3 +7,4 @@ export * from './sites.js';
 export * from './users.js';
 export * from './photos.js';
 export * from './packets.js';
+export * from './delivery.js';

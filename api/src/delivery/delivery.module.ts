@@ -1,0 +1,30 @@
+import { type BeforeApplicationShutdown, Module, type OnApplicationBootstrap } from '@nestjs/common';
+
+import { PacketsModule } from '../packets/packets.module.js';
+import { UsersModule } from '../users/users.module.js';
+import { DeliveryQueue } from './delivery-queue.js';
+import { DeliveryController } from './delivery.controller.js';
+import { DeliveryRepository } from './delivery.repository.js';
+import { DeliveryService } from './delivery.service.js';
+import { PacketSendWorker } from './packet-send.worker.js';
+
+/**
+ * E-mailing packets. The send worker always runs in the API process (sending is light and needs no
+ * Chromium); several API instances share the queue and a claim keeps each delivery to one sender.
+ */
+@Module({
+  imports: [PacketsModule, UsersModule],
+  controllers: [DeliveryController],
+  providers: [DeliveryService, DeliveryRepository, DeliveryQueue, PacketSendWorker],
+})
+export class DeliveryModule implements OnApplicationBootstrap, BeforeApplicationShutdown {
+  constructor(private readonly worker: PacketSendWorker) {}
+
+  onApplicationBootstrap(): void {
+    this.worker.startInBackground();
+  }
+
+  beforeApplicationShutdown(): void {
+    this.worker.stop();
+  }
+}

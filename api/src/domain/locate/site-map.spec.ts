@@ -1,0 +1,68 @@
+import { describe, expect, it } from 'vitest';
+
+import { analyzeAsBuilt } from '../analysis/analyze.js';
+import type { AsBuilt } from '../as-built/as-built.schema.js';
+import { DEMO_AS_BUILT } from '../as-built/demo-as-built.js';
+import { buildSiteMap, type SiteMapSource } from './site-map.js';
+
+function source(asBuilt: AsBuilt, revision: { id: string; n: number; jobId: string; issuedAt: string }): SiteMapSource {
+  return {
+    revisionId: revision.id,
+    revision: revision.n,
+    jobId: revision.jobId,
+    jobTitle: `Job ${revision.jobId.slice(0, 4)}`,
+    issuedAt: revision.issuedAt,
+    asBuilt,
+    analysis: analyzeAsBuilt(asBuilt),
+  };
+}
+
+const REV_A = { id: '00000000-0000-4000-8000-00000000000a', n: 1, jobId: '10000000-0000-4000-8000-000000000001', issuedAt: '2025-04-01T10:00:00.000Z' };
+const REV_B = { id: '00000000-0000-4000-8000-00000000000b', n: 2, jobId: '20000000-0000-4000-8000-000000000002', issuedAt: '2026-05-01T10:00:00.000Z' };
+
+describe(buildSiteMap.name, () => {
+  it('should tag every run and item with the revision it came from, in plan and WGS 84 coordinates', () => {
+    const sut = buildSiteMap([source(DEMO_AS_BUILT, REV_A)]);
+    expect(sut.runs).toHaveLength(DEMO_AS_BUILT.runs.length);
+    expect(sut.items).toHaveLength(DEMO_AS_BUILT.items.length);
+    expect(sut.runs.every((r) => r.revisionId === REV_A.id && r.revision === 1)).toBe(true);
+    expect(sut.frame.origin).toEqual({ lat: 40, lon: -105 });
+    const feature = sut.geojson!.features.find((f) => f.id === DEMO_AS_BUILT.runs[0]!.id)!;
+    expect(feature.geometry?.type).toBe('LineString');
+    expect(feature.properties).toMatchObject({ featureKind: 'run', revisionId: REV_A.id });
+    expect(feature.properties.planRoute).toEqual(sut.runs[0]!.route!.map((p) => [p.x, p.y]));
+  });
+
+  it('should add a later job’s runs, let a later revision replace a feature it records again, and mark abandoned runs', () => {
+    const [first, ...rest] = DEMO_AS_BUILT.runs;
+    const later: AsBuilt = {
+      ...DEMO_AS_BUILT,
+      runs: [{ ...first!, isAbandoned: true }, { ...rest[0]!, id: 'run-new', label: 'New spare run', isSpare: true }],
+    };
+    const sut = buildSiteMap([source(later, REV_B), source(DEMO_AS_BUILT, REV_A)]);
+    expect(sut.revisions.map((r) => r.revision)).toEqual([1, 2]);
+    expect(sut.runs).toHaveLength(DEMO_AS_BUILT.runs.length + 1);
+    expect(sut.runs.find((r) => r.id === first!.id)).toMatchObject({ isAbandoned: true, revisionId: REV_B.id });
+    expect(sut.runs.find((r) => r.id === 'run-new')).toMatchObject({ isSpare: true, revision: 2 });
+    expect(sut.runs.find((r) => r.id === rest[1]!.id)).toMatchObject({ revisionId: REV_A.id });
+  });
+
+  it('should copy no notes, serials or models, and give no GeoJSON without a GPS origin', () => {
+    const noted: AsBuilt = {
+      ...DEMO_AS_BUILT,
+      site: { northAzimuthDeg: 0 },
+      runs: DEMO_AS_BUILT.runs.map((r) => ({ ...r, notes: 'staff note' })),
+      items: DEMO_AS_BUILT.items.map((i) => ({ ...i, notes: 'staff note', serial: 'SN-123' })),
+    };
+    const sut = buildSiteMap([source(noted, REV_A)]);
+    expect(sut.geojson).toBeNull();
+    expect(sut.frame.origin).toBeNull();
+    const text = JSON.stringify(sut);
+    expect(text).not.toContain('staff note');
+    expect(text).not.toContain('SN-123');
+  });
+
+  it('should answer an empty map for a site without issued revisions', () => {
+    expect(buildSiteMap([])).toEqual({ frame: { northAzimuthDeg: 0, origin: null }, revisions: [], referencePoints: [], items: [], runs: [], geojson: null });
+  });
+});
