@@ -1,8 +1,10 @@
 import {
+  Link,
   Toast,
   ToastBody,
   Toaster,
   ToastTitle,
+  ToastTrigger,
   useToastController,
   type ToastIntent,
 } from '@fluentui/react-components';
@@ -29,11 +31,32 @@ export function useNotify() {
       ),
     [dispatchToast],
   );
+  const undoable = useCallback(
+    (title: string, onUndo: () => void) =>
+      dispatchToast(
+        <Toast>
+          <ToastTitle
+            action={
+              <ToastTrigger>
+                <Link onClick={onUndo}>Undo</Link>
+              </ToastTrigger>
+            }
+          >
+            {title}
+          </ToastTitle>
+        </Toast>,
+        // Long enough to notice a wrong tap on a phone in the sun.
+        { intent: 'success', timeout: 10_000 },
+      ),
+    [dispatchToast],
+  );
   return useMemo(
     () => ({
       success: (title: string, body?: string) => show('success', title, body),
       error: (title: string, body?: string) => show('error', title, body),
+      /** A done thing that can be taken back: the toast has an Undo link. */
+      undoable,
     }),
-    [show],
+    [show, undoable],
   );
 }

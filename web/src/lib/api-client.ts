@@ -152,18 +152,25 @@ async function requestRefresh(): Promise<Session | null> {
 async function authorizedFetch(path: string, options: ApiRequestOptions): Promise<Response> {
   const { auth = true } = options;
   if (!auth) return send(path, options, undefined);
+  return sendWithSession((token) => send(path, options, token), (response) => response.status);
+}
 
+/**
+ * Sends with the current access token; on a 401 tries once more with a token another request has
+ * refreshed meanwhile, or after refreshing the session. Shared by fetch requests and XHR uploads.
+ */
+export async function sendWithSession<R>(sendWith: (accessToken: string | undefined) => Promise<R>, statusOf: (answer: R) => number): Promise<R> {
   const sentToken = getAccessToken();
-  const response = await send(path, options, sentToken);
-  if (response.status !== 401 || getSessionState().status === 'signed-out') return response;
+  const answer = await sendWith(sentToken);
+  if (statusOf(answer) !== 401 || getSessionState().status === 'signed-out') return answer;
 
   // Another request may have refreshed while this one was on its way; use that token rather than
   // spending the refresh cookie again.
   const currentToken = getAccessToken();
-  if (currentToken && currentToken !== sentToken) return send(path, options, currentToken);
+  if (currentToken && currentToken !== sentToken) return sendWith(currentToken);
 
   const session = await refreshSession();
-  return session ? send(path, options, session.accessToken) : response;
+  return session ? sendWith(session.accessToken) : answer;
 }
 
 async function send(path: string, options: ApiRequestOptions, accessToken: string | undefined): Promise<Response> {
@@ -238,14 +245,19 @@ async function readBody(response: Response): Promise<unknown> {
 }
 
 function toApiError(response: Response, payload: unknown): ApiError {
+  return apiErrorFromBody(response.status, response.statusText, payload);
+}
+
+/** The `ApiError` for a non-2xx answer with `payload` (the parsed body), however it was received. */
+export function apiErrorFromBody(status: number, statusText: string, payload: unknown): ApiError {
   const parsed = ErrorBodySchema.safeParse(payload);
-  const fallbackMessage = response.statusText || `Request failed with status ${response.status}.`;
+  const fallbackMessage = statusText || `Request failed with status ${status}.`;
   if (!parsed.success) {
-    return new ApiError({ status: response.status, message: fallbackMessage });
+    return new ApiError({ status, message: fallbackMessage });
   }
   const { message, error, code, issues, currentVersion } = parsed.data;
   return new ApiError({
-    status: response.status,
+    status,
     message: (Array.isArray(message) ? message.join(' ') : message) ?? error ?? fallbackMessage,
     code,
     currentVersion,

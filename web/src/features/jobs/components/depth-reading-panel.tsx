@@ -1,5 +1,5 @@
 import { Button, makeStyles, mergeClasses, MessageBar, MessageBarBody, Spinner, Text, tokens } from '@fluentui/react-components';
-import { CheckmarkCircle20Regular, Delete20Regular, Edit20Regular, Warning20Filled } from '@fluentui/react-icons';
+import { Camera20Regular, CheckmarkCircle20Regular, Delete20Regular, Edit20Regular, Warning20Filled } from '@fluentui/react-icons';
 import { useEffect, useRef, useState, type FormEvent } from 'react';
 import type { RunDepthResult } from '@domain/depth/depth-check';
 import { checkRunDepth } from '@domain/depth/depth-check';
@@ -10,6 +10,8 @@ import { useNotify } from '../../../components/notify';
 import { usePersistedDraft } from '../../../lib/drafts';
 import { formatLength, lengthInputValue } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
+import { PhotoStrip } from '../../photos/components/photo-strip';
+import { usePhotoActions } from '../../photos/hooks/photo-actions';
 import { useJobWriter } from '../hooks/job-writer';
 import { fieldDomId } from '../utils/finding-target';
 import { saveErrors } from '../utils/save-errors';
@@ -34,7 +36,7 @@ const useStyles = makeStyles({
   list: { listStyle: 'none', margin: 0, padding: 0, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXS },
   reading: {
     display: 'grid',
-    gridTemplateColumns: 'minmax(0, 1fr) auto auto',
+    gridTemplateColumns: 'minmax(0, 1fr) auto auto auto',
     alignItems: 'center',
     gap: tokens.spacingHorizontalS,
     paddingInlineStart: tokens.spacingHorizontalS,
@@ -42,6 +44,7 @@ const useStyles = makeStyles({
     backgroundColor: tokens.colorNeutralBackground1,
     ':focus-visible': { outline: `${tokens.strokeWidthThick} solid ${tokens.colorStrokeFocus2}` },
   },
+  readingPhotos: { gridColumn: '1 / -1', paddingBlockEnd: tokens.spacingVerticalS, paddingInlineEnd: tokens.spacingHorizontalS, ':empty': { display: 'none' } },
   readingText: { display: 'flex', alignItems: 'center', gap: tokens.spacingHorizontalS, flexWrap: 'wrap' },
   targeted: { outline: `${tokens.strokeWidthThick} solid ${tokens.colorPaletteDarkOrangeBorder2}` },
 });
@@ -68,6 +71,7 @@ export function DepthReadingPanel({ jobId, run, depth, readingIds, canWrite, tar
   const formStyles = useFormStyles();
   const notify = useNotify();
   const writer = useJobWriter();
+  const photos = usePhotoActions();
   const [units] = useUnitPreferences();
   const draftKey = `job:${jobId}:depth:${run.id}`;
   const { value: draft, setValue, hasDraft, clear } = usePersistedDraft<DepthDraft>(draftKey, { station: '', depth: '' });
@@ -200,6 +204,23 @@ export function DepthReadingPanel({ jobId, run, depth, readingIds, canWrite, tar
                       onClick={() => void remove(index)}
                     />
                   </>
+                )}
+                {photos.canChange && readingIds[index] && (
+                  <Button
+                    appearance="subtle"
+                    className={formStyles.button}
+                    icon={<Camera20Regular />}
+                    aria-label={`Add photos of the reading at ${formatLength(reading.stationM, units.length, 'long')}`}
+                    onClick={() => photos.addPhotos({ type: 'depth_reading', id: readingIds[index]! })}
+                  />
+                )}
+                {readingIds[index] && (
+                  <div className={styles.readingPhotos}>
+                    <PhotoStrip
+                      target={{ type: 'depth_reading', id: readingIds[index]! }}
+                      label={`the reading at ${formatLength(reading.stationM, units.length, 'long')}`}
+                    />
+                  </div>
                 )}
               </li>
             );

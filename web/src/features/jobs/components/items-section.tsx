@@ -1,10 +1,12 @@
 import { Button, Text } from '@fluentui/react-components';
-import { Add24Regular, Edit20Regular } from '@fluentui/react-icons';
+import { Add24Regular, Camera20Regular, Edit20Regular } from '@fluentui/react-icons';
 import { useEffect, useState } from 'react';
 import type { Item, ItemKind } from '@domain/as-built/item.schema';
 
 import { formatLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
+import { PhotoStrip } from '../../photos/components/photo-strip';
+import { usePhotoActions } from '../../photos/hooks/photo-actions';
 import type { JobAsBuiltResponse } from '../api/get-job-as-built';
 import { useWorkspaceFocus } from '../hooks/workspace-focus';
 import { ITEM_KIND_LABELS } from '../utils/record-labels';
@@ -41,6 +43,7 @@ export function ItemsSection({ data, canRecord, kinds }: ItemsSectionProps) {
   const formStyles = useFormStyles();
   const [units] = useUnitPreferences();
   const { target } = useWorkspaceFocus();
+  const photos = usePhotoActions();
   const [editing, setEditing] = useState<{ id: string; field?: string } | undefined>();
   const { asBuilt, analysis, job } = data;
   const allowed = kinds === 'walls' ? WALL_KINDS : EQUIPMENT_KINDS;
@@ -105,11 +108,19 @@ export function ItemsSection({ data, canRecord, kinds }: ItemsSectionProps) {
                     item.kind !== 'amplifier' && <span>No position yet</span>
                   )}
                 </div>
-                {canRecord && editing?.id !== item.id && (
+                <PhotoStrip target={{ type: 'item', id: item.id }} label={item.label} />
+                {editing?.id !== item.id && (canRecord || photos.canChange) && (
                   <div className={styles.actions}>
-                    <Button className={formStyles.bigButton} icon={<Edit20Regular />} onClick={() => setEditing({ id: item.id })}>
-                      Change
-                    </Button>
+                    {canRecord && (
+                      <Button className={formStyles.bigButton} icon={<Edit20Regular />} onClick={() => setEditing({ id: item.id })}>
+                        Change
+                      </Button>
+                    )}
+                    {photos.canChange && (
+                      <Button className={formStyles.bigButton} icon={<Camera20Regular />} onClick={() => photos.addPhotos({ type: 'item', id: item.id })}>
+                        Add photos
+                      </Button>
+                    )}
                   </div>
                 )}
                 {editing?.id === item.id && (

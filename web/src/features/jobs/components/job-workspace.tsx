@@ -7,6 +7,8 @@ import type { Role } from '@domain/auth/roles';
 import { PageHeader } from '../../../components/page-header';
 import { paths } from '../../../config/paths';
 import { useMediaQuery } from '../../../lib/use-media-query';
+import { PhotosProvider } from '../../photos/components/photos-provider';
+import { PhotosSection } from '../../photos/components/photos-section';
 import type { JobAsBuiltResponse } from '../api/get-job-as-built';
 import { WorkspaceFocusContext } from '../hooks/workspace-focus';
 import { fieldDomId, SECTION_LABELS, SECTIONS, type FieldTarget, type SectionId } from '../utils/finding-target';
@@ -53,7 +55,7 @@ type JobWorkspaceProps = { data: JobAsBuiltResponse; actor: { id: string; role: 
 
 /**
  * The job as the crew records it: header with the status moves, the findings, and one section at a
- * time (runs, equipment, wall entries, zones, amplifier setup, checks, notes).
+ * time (runs, equipment, wall entries, zones, amplifier setup, checks, photos, notes).
  */
 export function JobWorkspace({ data, actor }: JobWorkspaceProps) {
   const styles = useStyles();
@@ -119,6 +121,7 @@ export function JobWorkspace({ data, actor }: JobWorkspaceProps) {
 
   return (
     <WorkspaceFocusContext.Provider value={focusValue}>
+      <PhotosProvider data={data} canChange={permissions.canAddField}>
       <PageHeader
         title={job.title}
         description={
@@ -176,11 +179,13 @@ export function JobWorkspace({ data, actor }: JobWorkspaceProps) {
           {section === 'zones' && <ZonesSection data={data} canRecord={permissions.canRecord} />}
           {section === 'amp' && <AmpSetupSection data={data} canRecord={permissions.canRecord} />}
           {section === 'checks' && <ChecksSection data={data} canAddField={permissions.canAddField} />}
+          {section === 'photos' && <PhotosSection />}
           {section === 'notes' && <NotesSection data={data} canChange={permissions.canChangeNotes} />}
           <UnitsChooser />
         </div>
         {isWide && <aside className={styles.aside}>{findings}</aside>}
       </div>
+      </PhotosProvider>
     </WorkspaceFocusContext.Provider>
   );
 }

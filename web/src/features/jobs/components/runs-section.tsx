@@ -1,11 +1,13 @@
 import { Button, Text } from '@fluentui/react-components';
-import { Add24Regular, CheckmarkCircle20Regular, Edit20Regular, Ruler24Regular, Warning20Filled } from '@fluentui/react-icons';
+import { Add24Regular, Camera20Regular, CheckmarkCircle20Regular, Edit20Regular, Ruler24Regular, Warning20Filled } from '@fluentui/react-icons';
 import { useEffect, useState } from 'react';
 import type { Run } from '@domain/as-built/run.schema';
 import { formatGauge } from '@domain/cable/wire';
 
 import { formatLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
+import { PhotoStrip } from '../../photos/components/photo-strip';
+import { usePhotoActions } from '../../photos/hooks/photo-actions';
 import type { JobAsBuiltResponse } from '../api/get-job-as-built';
 import { useWorkspaceFocus } from '../hooks/workspace-focus';
 import { METHOD_LABELS } from '../utils/record-labels';
@@ -99,6 +101,7 @@ function RunCard({ run, index, data, mode, canRecord, canAddField, onMode }: Run
   const styles = useCardStyles();
   const formStyles = useFormStyles();
   const [units] = useUnitPreferences();
+  const photos = usePhotoActions();
   const { asBuilt, analysis, records, job } = data;
   const depth = analysis.depth[index];
   const itemLabel = (id: string) => asBuilt.items.find((item) => item.id === id)?.label ?? 'unknown';
@@ -144,6 +147,7 @@ function RunCard({ run, index, data, mode, canRecord, canAddField, onMode }: Run
         {run.isSpare && <span>Spare</span>}
         {run.isAbandoned && <span>Abandoned</span>}
       </div>
+      <PhotoStrip target={{ type: 'run', id: run.id }} label={`Run ${run.label}`} />
       {mode?.view === 'edit' ? (
         <RunForm jobId={job.id} asBuilt={asBuilt} run={run} focusField={mode.field} onDone={() => onMode(undefined)} />
       ) : mode?.view === 'depth' ? (
@@ -171,6 +175,11 @@ function RunCard({ run, index, data, mode, canRecord, canAddField, onMode }: Run
           {canRecord && (
             <Button className={formStyles.bigButton} icon={<Edit20Regular />} onClick={() => onMode({ runId: run.id, view: 'edit' })}>
               Change run
+            </Button>
+          )}
+          {photos.canChange && (
+            <Button className={formStyles.bigButton} icon={<Camera20Regular />} onClick={() => photos.addPhotos({ type: 'run', id: run.id })}>
+              Add photos
             </Button>
           )}
         </div>

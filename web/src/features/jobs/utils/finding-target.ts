@@ -1,7 +1,7 @@
 import type { AsBuilt } from '@domain/as-built/as-built.schema';
 
 /** The workspace's sections, in the order the crew works through them. */
-export const SECTIONS = ['runs', 'equipment', 'walls', 'zones', 'amp', 'checks', 'notes'] as const;
+export const SECTIONS = ['runs', 'equipment', 'walls', 'zones', 'amp', 'checks', 'photos', 'notes'] as const;
 export type SectionId = (typeof SECTIONS)[number];
 
 export const SECTION_LABELS: Record<SectionId, string> = {
@@ -11,6 +11,7 @@ export const SECTION_LABELS: Record<SectionId, string> = {
   zones: 'Zones',
   amp: 'Amplifier setup',
   checks: 'Checks',
+  photos: 'Photos',
   notes: 'Notes',
 };
 
