@@ -33,6 +33,8 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
         { path: paths.acceptInvitation.path, lazy: () => import('./routes/auth/accept-invitation').then(load) },
         { path: paths.forgotPassword.path, lazy: () => import('./routes/auth/forgot-password').then(load) },
         { path: paths.resetPassword.path, lazy: () => import('./routes/auth/reset-password').then(load) },
+        // Public and outside the app frame: a contractor's phone, no account, no navigation.
+        { path: paths.locate.path, lazy: () => import('./routes/locate/locate').then(load) },
         {
           lazy: () => import('./routes/app/root').then(load),
           children: [
@@ -51,6 +53,8 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                 { path: paths.users.path, lazy: () => import('./routes/app/users').then(load) },
                 { path: paths.outbox.path, lazy: () => import('./routes/app/outbox').then(load) },
                 { path: paths.outboxMessage.path, lazy: () => import('./routes/app/outbox-message').then(load) },
+                { path: paths.portal.path, lazy: () => import('./routes/portal/sites').then(load) },
+                { path: paths.portalSite.path, lazy: () => import('./routes/portal/site').then(load) },
               ],
             },
             { path: '*', lazy: () => import('./routes/not-found').then(load) },

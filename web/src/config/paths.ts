@@ -61,4 +61,16 @@ export const paths = {
     path: '/outbox/:messageId',
     getHref: (messageId: string) => `/outbox/${encodeURIComponent(messageId)}`,
   },
+  portal: {
+    path: '/portal',
+    getHref: () => '/portal',
+  },
+  portalSite: {
+    path: '/portal/sites/:siteId',
+    getHref: (siteId: string) => `/portal/sites/${encodeURIComponent(siteId)}`,
+  },
+  locate: {
+    path: '/locate/:token',
+    getHref: (token: string) => `/locate/${encodeURIComponent(token)}`,
+  },
 } as const;

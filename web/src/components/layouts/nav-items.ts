@@ -5,6 +5,7 @@ import {
   HeartPulse24Regular,
   Home24Regular,
   MailInbox24Regular,
+  Map24Regular,
   People24Regular,
 } from '@fluentui/react-icons';
 import { isStaffRole, type Role } from '@domain/auth/roles';
@@ -36,6 +37,9 @@ export function buildNavItems({ role, hasOutbox = false }: NavContext): NavItem[
   }
   if (role === 'admin' || role === 'office') {
     items.push({ label: 'Users', href: paths.users.getHref(), icon: People24Regular });
+  }
+  if (role === 'homeowner') {
+    items.push({ label: 'My property', href: paths.portal.getHref(), icon: Map24Regular });
   }
   if (role === 'admin' && hasOutbox) {
     items.push({ label: 'Outbox', href: paths.outbox.getHref(), icon: MailInbox24Regular });

@@ -1,5 +1,6 @@
 import { makeStyles, Text, tokens } from '@fluentui/react-components';
 import type { QueryClient } from '@tanstack/react-query';
+import { redirect } from 'react-router';
 
 import { RouteErrorPage } from '../../../components/errors/route-error-page';
 import { PageHeader } from '../../../components/page-header';
@@ -7,6 +8,7 @@ import { paths } from '../../../config/paths';
 import { getHealthQueryOptions, useHealth } from '../../../features/health/api/get-health';
 import { HealthSummaryCard } from '../../../features/health/components/health-summary-card';
 import { summarizeHealth } from '../../../features/health/utils/summarize-health';
+import { getSessionUser } from '../../../lib/session';
 
 const useStyles = makeStyles({
   layout: {
@@ -33,6 +35,8 @@ const useStyles = makeStyles({
 });
 
 export const clientLoader = (queryClient: QueryClient) => async () => {
+  // A homeowner's home is their property.
+  if (getSessionUser()?.role === 'homeowner') throw redirect(paths.portal.getHref());
   // Never throws: a server that is down is something this page reports, not an error page.
   await queryClient.prefetchQuery(getHealthQueryOptions());
   return null;

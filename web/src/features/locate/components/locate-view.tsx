@@ -1,0 +1,261 @@
+import { Button, makeStyles, Text, tokens } from '@fluentui/react-components';
+import { ArrowDownload20Regular, Call20Regular, Mail20Regular, Warning24Filled } from '@fluentui/react-icons';
+import { useState } from 'react';
+
+import { formatDate } from '../../../lib/format-date';
+import { formatLength } from '../../../lib/units';
+import type { LocateViewResponse } from '../api/get-locate-view';
+
+import { depthLabel, SiteMapPlan } from './site-map-plan';
+
+const WIDE = '@media (min-width: 720px)';
+
+const useStyles = makeStyles({
+  root: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXL },
+  cautions: {
+    display: 'flex',
+    flexDirection: 'column',
+    gap: tokens.spacingVerticalS,
+    padding: tokens.spacingHorizontalL,
+    borderRadius: tokens.borderRadiusLarge,
+    backgroundColor: tokens.colorPaletteYellowBackground1,
+    border: `${tokens.strokeWidthThick} solid ${tokens.colorPaletteMarigoldBorderActive}`,
+    color: tokens.colorNeutralForeground1,
+  },
+  cautionTitle: { display: 'flex', alignItems: 'center', gap: tokens.spacingHorizontalS, margin: 0 },
+  cautionList: { margin: 0, paddingInlineStart: tokens.spacingHorizontalXL, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
+  section: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
+  heading: { margin: 0 },
+  muted: { color: tokens.colorNeutralForeground2 },
+  address: { fontStyle: 'normal', display: 'flex', flexDirection: 'column' },
+  contact: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM },
+  contactLink: {
+    display: 'inline-flex',
+    alignItems: 'center',
+    gap: tokens.spacingHorizontalS,
+    minHeight: '48px',
+    paddingInline: tokens.spacingHorizontalL,
+    borderRadius: tokens.borderRadiusMedium,
+    backgroundColor: tokens.colorBrandBackground,
+    color: tokens.colorNeutralForegroundOnBrand,
+    fontWeight: tokens.fontWeightSemibold,
+    textDecorationLine: 'none',
+    ':hover': { backgroundColor: tokens.colorBrandBackgroundHover },
+  },
+  secondaryLink: {
+    display: 'inline-flex',
+    alignItems: 'center',
+    gap: tokens.spacingHorizontalS,
+    minHeight: '44px',
+    color: tokens.colorBrandForegroundLink,
+    fontWeight: tokens.fontWeightSemibold,
+  },
+  runs: { listStyle: 'none', margin: 0, padding: 0, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
+  run: {
+    display: 'flex',
+    flexDirection: 'column',
+    gap: tokens.spacingVerticalS,
+    padding: tokens.spacingHorizontalM,
+    borderRadius: tokens.borderRadiusLarge,
+    backgroundColor: tokens.colorNeutralBackground1,
+    boxShadow: tokens.shadow2,
+  },
+  runButton: { justifyContent: 'space-between', minHeight: '56px', width: '100%', textAlign: 'start' },
+  profile: { width: '100%', height: 'auto', backgroundColor: '#fff', borderRadius: tokens.borderRadiusMedium },
+  photos: { display: 'grid', gridTemplateColumns: 'repeat(auto-fill, minmax(96px, 1fr))', gap: tokens.spacingHorizontalS, [WIDE]: { gridTemplateColumns: 'repeat(auto-fill, minmax(140px, 1fr))' } },
+  thumbButton: { padding: 0, border: 'none', background: 'none', cursor: 'pointer', minHeight: '44px' },
+  thumb: { width: '100%', aspectRatio: '4 / 3', objectFit: 'cover', borderRadius: tokens.borderRadiusMedium, display: 'block' },
+  screen: { width: '100%', height: 'auto', borderRadius: tokens.borderRadiusMedium },
+});
+
+const METHOD_LABELS: Record<LocateViewResponse['runs'][number]['method'], string> = {
+  direct_burial: 'direct burial',
+  conduit: 'in conduit',
+  under_hardscape_sleeve: 'sleeve under hardscape',
+  indoor: 'indoors',
+};
+
+function Cautions({ view }: { view: LocateViewResponse }) {
+  const styles = useStyles();
+  const zone = formatLength(view.toleranceZoneM, view.units, 'short');
+  return (
+    <section className={styles.cautions} aria-labelledby="locate-cautions" role="region">
+      <Text as="h2" id="locate-cautions" size={500} weight="bold" className={styles.cautionTitle}>
+        <Warning24Filled aria-hidden="true" />
+        Before you dig
+      </Text>
+      <ul className={styles.cautionList}>
+        <li>
+          <Text weight="semibold">Call the one-call centre (811 in the United States) before any digging.</Text>
+        </li>
+        <li>
+          <Text weight="semibold">
+            The cables on this map are private low-voltage lines: one-call locators do not mark them. This map is the only
+            record.
+          </Text>
+        </li>
+        <li>
+          <Text weight="semibold">Hand-dig within {zone} of any line on this map.</Text>
+        </li>
+        <li>
+          <Text weight="semibold">
+            Depths are as installed. Grading, landscaping and settling since then change them: expect cables shallower
+            than shown.
+          </Text>
+        </li>
+      </ul>
+      <Text>{view.cautionSummary}</Text>
+      <details>
+        <summary>
+          <Text weight="semibold">All locate steps and safety cautions</Text>
+        </summary>
+        <ul className={styles.cautionList}>
+          {[...view.locateSteps, ...view.cautions].map((c) => (
+            <li key={c.title}>
+              <Text weight="semibold">{c.title}. </Text>
+              <Text>{c.body}</Text>
+            </li>
+          ))}
+        </ul>
+      </details>
+    </section>
+  );
+}
+
+function RunDetails({ run }: { run: LocateViewResponse['runs'][number] }) {
+  const styles = useStyles();
+  const [openPhoto, setOpenPhoto] = useState<string | undefined>();
+  const photo = run.photos.find((p) => p.id === openPhoto);
+  return (
+    <div className={styles.section}>
+      <img src={run.depthProfileUrl} alt={`Depth profile of ${run.label}`} className={styles.profile} />
+      {run.photos.length === 0 ? (
+        <Text className={styles.muted}>No trench photos for this run.</Text>
+      ) : (
+        <>
+          <Text weight="semibold">Trench photos</Text>
+          <div className={styles.photos}>
+            {run.photos.map((p) => (
+              <button key={p.id} type="button" className={styles.thumbButton} onClick={() => setOpenPhoto(openPhoto === p.id ? undefined : p.id)} aria-pressed={openPhoto === p.id}>
+                <img src={p.thumbUrl} alt={p.caption ?? `Trench photo of ${run.label}`} className={styles.thumb} loading="lazy" />
+              </button>
+            ))}
+          </div>
+          {photo && (
+            <figure style={{ margin: 0 }}>
+              <img src={photo.screenUrl} alt={photo.caption ?? `Trench photo of ${run.label}, large`} className={styles.screen} />
+              {(photo.caption || photo.takenAt) && (
+                <figcaption className={styles.muted}>{[photo.caption, photo.takenAt && formatDate(photo.takenAt)].filter(Boolean).join(' · ')}</figcaption>
+              )}
+            </figure>
+          )}
+        </>
+      )}
+    </div>
+  );
+}
+
+/** The contractor's view of a site: cautions first, then who installed it, the map and the runs. */
+export function LocateView({ view }: { view: LocateViewResponse }) {
+  const styles = useStyles();
+  const [selectedRunId, setSelectedRunId] = useState<string | undefined>();
+  const { site, installer } = view;
+
+  return (
+    <div className={styles.root}>
+      <Cautions view={view} />
+
+      <section className={styles.section} aria-labelledby="locate-site">
+        <Text as="h1" id="locate-site" size={600} weight="bold" className={styles.heading}>
+          {site.label}
+        </Text>
+        <address className={styles.address}>
+          <Text>{site.addressLine1}</Text>
+          {site.addressLine2 && <Text>{site.addressLine2}</Text>}
+          <Text>{[site.postalCode, site.city, site.region].filter(Boolean).join(' ')}</Text>
+        </address>
+        {view.link.note && <Text>Note from the homeowner: {view.link.note}</Text>}
+      </section>
+
+      <section className={styles.section} aria-labelledby="locate-installer">
+        <Text as="h2" id="locate-installer" size={500} weight="semibold" className={styles.heading}>
+          Installed by {installer.companyName}
+        </Text>
+        <div className={styles.contact}>
+          {installer.phone && (
+            <a href={`tel:${installer.phone.replace(/[^\d+]/g, '')}`} className={styles.contactLink}>
+              <Call20Regular aria-hidden="true" />
+              Call {installer.phone}
+            </a>
+          )}
+          {installer.email && (
+            <a href={`mailto:${installer.email}`} className={styles.contactLink}>
+              <Mail20Regular aria-hidden="true" />
+              E-mail {installer.email}
+            </a>
+          )}
+        </div>
+        {installer.licenceNumbers.length > 0 && <Text className={styles.muted}>Licence {installer.licenceNumbers.join(', ')}</Text>}
+      </section>
+
+      <section className={styles.section} aria-labelledby="locate-map">
+        <Text as="h2" id="locate-map" size={500} weight="semibold" className={styles.heading}>
+          Map of buried cables
+        </Text>
+        <SiteMapPlan map={view.map} units={view.units} selectedRunId={selectedRunId} onSelectRun={setSelectedRunId} />
+        {view.geojsonUrl && (
+          <a href={view.geojsonUrl} download className={styles.secondaryLink}>
+            <ArrowDownload20Regular aria-hidden="true" />
+            Download GeoJSON
+          </a>
+        )}
+      </section>
+
+      <section className={styles.section} aria-labelledby="locate-runs">
+        <Text as="h2" id="locate-runs" size={500} weight="semibold" className={styles.heading}>
+          Cable runs
+        </Text>
+        {view.runs.length === 0 ? (
+          <Text className={styles.muted}>No runs have been recorded at this site.</Text>
+        ) : (
+          <ul className={styles.runs}>
+            {view.runs.map((run) => {
+              const open = run.id === selectedRunId;
+              return (
+                <li key={run.id} className={styles.run}>
+                  <Button
+                    appearance="subtle"
+                    className={styles.runButton}
+                    aria-expanded={open}
+                    onClick={() => setSelectedRunId(open ? undefined : run.id)}
+                  >
+                    <span>
+                      <Text weight="semibold" block>
+                        {run.label}
+                        {run.isAbandoned ? ' (abandoned)' : run.isSpare ? ' (spare)' : ''}
+                      </Text>
+                      <Text size={200} className={styles.muted} block>
+                        {run.cable} {run.gauge} · {METHOD_LABELS[run.method]} · revision {run.revision}
+                      </Text>
+                    </span>
+                    <Text weight="semibold">
+                      {depthLabel(run.minDepthM, view.units)}
+                      {run.maxDepthM !== null && run.minDepthM !== null && run.maxDepthM !== run.minDepthM
+                        ? ` – ${formatLength(run.maxDepthM, view.units, 'short')}`
+                        : ''}
+                    </Text>
+                  </Button>
+                  {open && <RunDetails run={run} />}
+                </li>
+              );
+            })}
+          </ul>
+        )}
+      </section>
+
+      <Text size={200} className={styles.muted}>
+        This link works until {formatDate(view.link.expiresAt)}. Map as of {formatDate(view.generatedAt)}.
+      </Text>
+    </div>
+  );
+}

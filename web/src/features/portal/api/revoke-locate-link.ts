@@ -1,0 +1,16 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+
+import { apiRequest } from '../../../lib/api-client';
+
+/** Revokes a locate link: it answers "no longer works" from then on. */
+export async function revokeLocateLink({ id }: { id: string; siteId: string }): Promise<void> {
+  await apiRequest(`/api/locate-links/${encodeURIComponent(id)}`, undefined, { method: 'DELETE' });
+}
+
+export function useRevokeLocateLink() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: revokeLocateLink,
+    onSuccess: (_result, { siteId }) => queryClient.invalidateQueries({ queryKey: ['locate-links', siteId] }),
+  });
+}

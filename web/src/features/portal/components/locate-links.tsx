@@ -1,0 +1,284 @@
+import {
+  Badge,
+  Button,
+  Dialog,
+  DialogActions,
+  DialogBody,
+  DialogContent,
+  DialogSurface,
+  DialogTitle,
+  DialogTrigger,
+  Field,
+  Input,
+  makeStyles,
+  MessageBar,
+  MessageBarBody,
+  Spinner,
+  Text,
+  Textarea,
+  tokens,
+} from '@fluentui/react-components';
+import { Add20Regular, Copy20Regular, Delete20Regular } from '@fluentui/react-icons';
+import { useState, type FormEvent } from 'react';
+import { CreateLocateLinkSchema } from '@domain/locate/locate-link.schema';
+
+import { ConfirmDialog } from '../../../components/confirm-dialog';
+import { useNotify } from '../../../components/notify';
+import { describeRequestError, fieldErrorsFromApi, fieldErrorsFromZod, type FieldErrors } from '../../../lib/form-errors';
+import { formatDate, formatDateTime } from '../../../lib/format-date';
+import { useCreateLocateLink, type CreatedLocateLinkResponse } from '../api/create-locate-link';
+import { type LocateLinkResponse, useLocateLinks } from '../api/get-locate-links';
+import { useRevokeLocateLink } from '../api/revoke-locate-link';
+
+const useStyles = makeStyles({
+  root: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
+  form: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },
+  control: { minHeight: '48px' },
+  created: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
+  url: { display: 'flex', gap: tokens.spacingHorizontalS, alignItems: 'stretch' },
+  urlInput: { flexGrow: 1, minHeight: '48px', fontFamily: tokens.fontFamilyMonospace },
+  list: { listStyle: 'none', margin: 0, padding: 0, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
+  row: {
+    display: 'flex',
+    flexWrap: 'wrap',
+    alignItems: 'center',
+    justifyContent: 'space-between',
+    gap: tokens.spacingHorizontalM,
+    padding: `${tokens.spacingVerticalS} ${tokens.spacingHorizontalL}`,
+    borderRadius: tokens.borderRadiusLarge,
+    backgroundColor: tokens.colorNeutralBackground1,
+    boxShadow: tokens.shadow2,
+  },
+  rowText: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXXS },
+  muted: { color: tokens.colorNeutralForeground2 },
+  button: { minHeight: '44px' },
+});
+
+type Key = 'expiresInDays' | 'note';
+
+function CreatedLink({ link }: { link: CreatedLocateLinkResponse }) {
+  const styles = useStyles();
+  const notify = useNotify();
+  const copy = async () => {
+    try {
+      await navigator.clipboard.writeText(link.url);
+      notify.success('Link copied');
+    } catch {
+      notify.error('Could not copy', 'Select the link and copy it by hand.');
+    }
+  };
+  return (
+    <div className={styles.created}>
+      <MessageBar intent="warning">
+        <MessageBarBody>Copy this link now: it cannot be shown again. If you lose it, make a new one.</MessageBarBody>
+      </MessageBar>
+      <div className={styles.url}>
+        <Input readOnly value={link.url} className={styles.urlInput} aria-label="New locate link" onFocus={(e) => e.currentTarget.select()} />
+        <Button className={styles.button} icon={<Copy20Regular />} onClick={() => void copy()}>
+          Copy
+        </Button>
+      </div>
+      <Text className={styles.muted}>Works until {formatDate(link.expiresAt)}.</Text>
+    </div>
+  );
+}
+
+/** Make a link for a contractor: how long it works, an optional note; then show its URL once. */
+export function CreateLocateLinkDialog({ siteId }: { siteId: string }) {
+  const styles = useStyles();
+  const create = useCreateLocateLink();
+  const [open, setOpen] = useState(false);
+  const [days, setDays] = useState('14');
+  const [note, setNote] = useState('');
+  const [errors, setErrors] = useState<FieldErrors<Key>>({});
+  const [created, setCreated] = useState<CreatedLocateLinkResponse | undefined>();
+
+  const reset = () => {
+    setDays('14');
+    setNote('');
+    setErrors({});
+    setCreated(undefined);
+    create.reset();
+  };
+
+  const submit = (event: FormEvent) => {
+    event.preventDefault();
+    const parsed = CreateLocateLinkSchema.safeParse({
+      expiresInDays: days.trim() === '' ? Number.NaN : Number(days),
+      note: note.trim() === '' ? undefined : note,
+    });
+    if (!parsed.success) {
+      setErrors(fieldErrorsFromZod<Key>(parsed.error));
+      return;
+    }
+    setErrors({});
+    create.mutate(
+      { siteId, input: parsed.data },
+      {
+        onSuccess: setCreated,
+        onError: (error) => setErrors(fieldErrorsFromApi<Key>(error)),
+      },
+    );
+  };
+
+  return (
+    <Dialog
+      open={open}
+      onOpenChange={(_event, data) => {
+        setOpen(data.open);
+        if (!data.open) reset();
+      }}
+    >
+      <DialogTrigger disableButtonEnhancement>
+        <Button appearance="primary" className={styles.button} icon={<Add20Regular />}>
+          New locate link
+        </Button>
+      </DialogTrigger>
+      <DialogSurface>
+        {created ? (
+          <DialogBody>
+            <DialogTitle>Locate link ready</DialogTitle>
+            <DialogContent>
+              <CreatedLink link={created} />
+            </DialogContent>
+            <DialogActions>
+              <DialogTrigger disableButtonEnhancement>
+                <Button appearance="primary" className={styles.button}>
+                  Done
+                </Button>
+              </DialogTrigger>
+            </DialogActions>
+          </DialogBody>
+        ) : (
+          <form onSubmit={submit} noValidate>
+            <DialogBody>
+              <DialogTitle>New locate link</DialogTitle>
+              <DialogContent className={styles.form}>
+                <Text>
+                  Send this link to whoever is about to dig (landscaper, fence or irrigation contractor). It shows the map of
+                  buried cables and their depths, without signing in.
+                </Text>
+                {create.isError && Object.keys(errors).length === 0 && (
+                  <MessageBar intent="error">
+                    <MessageBarBody>{describeRequestError(create.error)}</MessageBarBody>
+                  </MessageBar>
+                )}
+                <Field label="Works for (days)" required validationMessage={errors.expiresInDays} hint="1 to 365 days">
+                  <Input
+                    className={styles.control}
+                    type="number"
+                    inputMode="numeric"
+                    min={1}
+                    max={365}
+                    value={days}
+                    onChange={(_e, data) => setDays(data.value)}
+                  />
+                </Field>
+                <Field label="Note (optional)" validationMessage={errors.note} hint="Shown to whoever opens the link">
+                  <Textarea value={note} maxLength={500} onChange={(_e, data) => setNote(data.value)} />
+                </Field>
+              </DialogContent>
+              <DialogActions>
+                <DialogTrigger disableButtonEnhancement>
+                  <Button className={styles.button} disabled={create.isPending}>
+                    Cancel
+                  </Button>
+                </DialogTrigger>
+                <Button
+                  type="submit"
+                  appearance="primary"
+                  className={styles.button}
+                  disabled={create.isPending}
+                  icon={create.isPending ? <Spinner size="tiny" /> : undefined}
+                >
+                  Create link
+                </Button>
+              </DialogActions>
+            </DialogBody>
+          </form>
+        )}
+      </DialogSurface>
+    </Dialog>
+  );
+}
+
+function LinkRow({ link, onRevoke }: { link: LocateLinkResponse; onRevoke: (link: LocateLinkResponse) => void }) {
+  const styles = useStyles();
+  const status = link.revokedAt ? 'revoked' : link.isActive ? 'active' : 'expired';
+  return (
+    <li className={styles.row}>
+      <div className={styles.rowText}>
+        <Text weight="semibold">
+          {link.note ?? (link.isLongLived ? 'Packet QR code' : 'Locate link')}{' '}
+          <Badge appearance="tint" color={status === 'active' ? 'success' : 'subtle'}>
+            {status}
+          </Badge>
+        </Text>
+        <Text size={200} className={styles.muted}>
+          Made {formatDate(link.createdAt)}
+          {link.createdBy ? ` by ${link.createdBy.name}` : ''} · {status === 'revoked' ? `revoked ${formatDate(link.revokedAt!)}` : `until ${formatDate(link.expiresAt)}`}
+        </Text>
+        <Text size={200} className={styles.muted}>
+          Opened {link.accessCount} {link.accessCount === 1 ? 'time' : 'times'}
+          {link.lastAccessedAt ? `, last ${formatDateTime(link.lastAccessedAt)}` : ''}
+        </Text>
+      </div>
+      {link.isActive && (
+        <Button className={styles.button} icon={<Delete20Regular />} onClick={() => onRevoke(link)}>
+          Revoke
+        </Button>
+      )}
+    </li>
+  );
+}
+
+/** The site's locate links: make one, see who opened them, revoke. */
+export function LocateLinks({ siteId }: { siteId: string }) {
+  const styles = useStyles();
+  const notify = useNotify();
+  const links = useLocateLinks(siteId);
+  const revoke = useRevokeLocateLink();
+  const [revoking, setRevoking] = useState<LocateLinkResponse | undefined>();
+
+  return (
+    <div className={styles.root}>
+      <div>
+        <CreateLocateLinkDialog siteId={siteId} />
+      </div>
+      {links.isPending && <Spinner size="small" label="Loading links…" />}
+      {links.isError && <Text>{describeRequestError(links.error)}</Text>}
+      {links.data &&
+        (links.data.length === 0 ? (
+          <Text className={styles.muted}>No locate links yet.</Text>
+        ) : (
+          <ul className={styles.list} aria-label="Locate links">
+            {links.data.map((link) => (
+              <LinkRow key={link.id} link={link} onRevoke={setRevoking} />
+            ))}
+          </ul>
+        ))}
+      <ConfirmDialog
+        open={revoking !== undefined}
+        title="Revoke this link?"
+        confirmLabel="Revoke"
+        isPending={revoke.isPending}
+        onCancel={() => setRevoking(undefined)}
+        onConfirm={() => {
+          if (!revoking) return;
+          revoke.mutate(
+            { id: revoking.id, siteId },
+            {
+              onSuccess: () => {
+                notify.success('Link revoked');
+                setRevoking(undefined);
+              },
+              onError: (error) => notify.error('Could not revoke the link', describeRequestError(error)),
+            },
+          );
+        }}
+      >
+        Whoever has it will see that it no longer works. This cannot be undone; you can make a new link.
+      </ConfirmDialog>
+    </div>
+  );
+}
