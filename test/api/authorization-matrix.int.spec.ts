@@ -56,6 +56,8 @@ const only = (roles: Role[], ok: number, otherCompany: number): Expectation => (
   otherCompany,
 });
 
+const SIGNATURE_BODY = { signerName: 'Matrix Homeowner', svgPath: 'M 10 60 L 120 40 L 300 80' };
+
 describe('authorization matrix', () => {
   let app: NestExpressApplication;
   let a: TestCompany;
@@ -464,6 +466,28 @@ describe('authorization matrix', () => {
         return { path: `/api/jobs/${job.id}/packets`, headers: { 'If-Match': String(job.version) } };
       },
     },
+    'GET /api/jobs/:jobId/signatures': {
+      expect: staff(200),
+      isList: true,
+      call: async () => {
+        const job = await signedJobA();
+        return { path: `/api/jobs/${job.id}/signatures` };
+      },
+    },
+    'PUT /api/jobs/:jobId/signatures/:role': {
+      expect: only(['admin', 'office', 'lead'], 200, 404),
+      call: async () => {
+        const job = await readyToIssueJobA();
+        return { path: `/api/jobs/${job.id}/signatures/homeowner`, body: SIGNATURE_BODY, headers: { 'If-Match': String(job.version) } };
+      },
+    },
+    'DELETE /api/jobs/:jobId/signatures/:role': {
+      expect: only(['admin', 'office', 'lead'], 200, 404),
+      call: async () => {
+        const job = await signedJobA();
+        return { path: `/api/jobs/${job.id}/signatures/homeowner`, headers: { 'If-Match': String(job.version) } };
+      },
+    },
     'GET /api/jobs/:jobId/packets': {
       expect: staff(200),
       isList: true,
@@ -559,6 +583,13 @@ describe('authorization matrix', () => {
     const job = await insertRecordedJob(a, siteA, { crewLeadUserId: a.users.lead.id, technicianUserIds: [] }, DEMO_AS_BUILT);
     await withDb((db) => db.query(`update jobs set status = 'ready_to_issue' where id = $1`, [job.id]));
     return job;
+  }
+
+  /** A ready-to-issue job of company A with the homeowner's signature saved; `version` is current. */
+  async function signedJobA() {
+    const job = await readyToIssueJobA();
+    const saved = await arrange.expectOk('put', `/api/jobs/${job.id}/signatures/homeowner`, SIGNATURE_BODY, { 'If-Match': String(job.version) });
+    return { id: job.id, version: saved.jobVersion as number };
   }
 
   /** An issued job of company A with a ready packet revision whose (stand-in) files are stored. */

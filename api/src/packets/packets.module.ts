@@ -2,19 +2,23 @@ import { type BeforeApplicationShutdown, Module, type OnApplicationBootstrap } f
 import { ConfigService } from '@nestjs/config';
 
 import type { Env } from '../config/env.schema.js';
+import { JobWriter } from '../jobs/job-writer.js';
 import { JobsRepository } from '../jobs/jobs.repository.js';
 import { LocateModule } from '../locate/locate.module.js';
 import { PacketRenderWorker } from './packet-render.worker.js';
 import { PacketRenderingModule } from './packet-rendering.module.js';
 import { PacketsController } from './packets.controller.js';
 import { PacketsService } from './packets.service.js';
+import { SignaturesController } from './signatures.controller.js';
+import { SignaturesRepository } from './signatures.repository.js';
+import { SignaturesService } from './signatures.service.js';
 
 /** The packet API; with PACKET_WORKER_IN_API (default) this process also renders queued packets. */
 @Module({
   imports: [PacketRenderingModule, LocateModule],
-  controllers: [PacketsController],
+  controllers: [PacketsController, SignaturesController],
   // JobsRepository is stateless (DB access only): a local instance avoids widening JobsModule's exports.
-  providers: [PacketsService, JobsRepository],
+  providers: [PacketsService, JobsRepository, JobWriter, SignaturesService, SignaturesRepository],
   // The portal and the send worker serve the same verified files.
   exports: [PacketsService],
 })

@@ -15,6 +15,7 @@ import { LocateLinksService } from '../locate/locate-links.service.js';
 import { OBJECT_STORAGE, type ObjectStorage } from '../storage/object-storage.js';
 import { PacketQueue } from './packet-queue.js';
 import { type PacketRevisionSummary, PacketsRepository } from './packets.repository.js';
+import { SignaturesRepository } from './signatures.repository.js';
 
 export interface PacketRevisionResponse {
   id: string;
@@ -79,6 +80,7 @@ export class PacketsService {
     private readonly queue: PacketQueue,
     private readonly audit: AuditService,
     private readonly locateLinks: LocateLinksService,
+    private readonly signatures: SignaturesRepository,
     @Inject(OBJECT_STORAGE) private readonly storage: ObjectStorage,
   ) {}
 
@@ -155,6 +157,8 @@ export class PacketsService {
         }
         throw error;
       }
+      // The walkthrough signatures captured on the job belong to this revision from now on.
+      const signatureCount = await this.signatures.moveToRevision(jobId, inserted.id, tx);
       // The QR code on the cover: the site's long-lived locate link (made now if none is active).
       await this.locateLinks.urlForIssuedRevision(actor, job.siteId, inserted.id, tx);
       await this.jobs.update(jobId, { status: 'issued' }, tx);
@@ -166,7 +170,7 @@ export class PacketsService {
           action: 'packet.issue',
           targetType: 'packet_revision',
           targetId: inserted.id,
-          details: { jobId, revision: job.revision, jobVersion: version },
+          details: { jobId, revision: job.revision, jobVersion: version, signatureCount },
         },
         tx,
       );

@@ -8,3 +8,4 @@ export * from './users.js';
 export * from './photos.js';
 export * from './packets.js';
 export * from './delivery.js';
+export * from './signatures.js';

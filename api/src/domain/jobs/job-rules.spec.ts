@@ -54,6 +54,16 @@ describe('canWriteJob', () => {
     ['tech', 'in_progress', 'crew', 'details', 'role'],
     // homeowner: never
     ['homeowner', 'in_progress', 'crew', 'field', 'role'],
+    // sign-off at the walkthrough: office any job, the crew lead on their crew even once submitted,
+    // technicians and homeowners never, nobody once issued
+    ['office', 'ready_to_issue', 'none', 'signoff', 'allow'],
+    ['lead', 'submitted', 'lead', 'signoff', 'allow'],
+    ['lead', 'ready_to_issue', 'crew', 'signoff', 'allow'],
+    ['lead', 'ready_to_issue', 'none', 'signoff', 'role'],
+    ['tech', 'ready_to_issue', 'crew', 'signoff', 'role'],
+    ['homeowner', 'ready_to_issue', 'crew', 'signoff', 'role'],
+    ['lead', 'issued', 'lead', 'signoff', 'state'],
+    ['admin', 'issued', 'none', 'signoff', 'state'],
   ])('%s on a %s job (%s) writing %s → %s', (role, status, relation, kind, expected) => {
     expect(outcome(canWriteJob({ role, userId: ME }, job(status, relation), kind))).toBe(expected);
   });

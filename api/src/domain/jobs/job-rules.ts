@@ -30,9 +30,11 @@ export interface JobAccessFacts {
  * - `details`: the job itself (title, dates, crew, notes);
  * - `record`: the as-built (zones, equipment, runs, ties, routes, amplifier setup);
  * - `field`: what technicians add on site (depth readings, commissioning checks; later photos);
- * - `delete`: removing the whole job.
+ * - `delete`: removing the whole job;
+ * - `signoff`: the walkthrough signatures (crew lead, homeowner) on the job's next revision, captured on
+ *   the lead's device — also once the job is submitted or ready to issue, until it is issued.
  */
-export type JobWriteKind = 'details' | 'record' | 'field' | 'delete';
+export type JobWriteKind = 'details' | 'record' | 'field' | 'delete' | 'signoff';
 
 /**
  * Why a write or transition is refused. `role`: this user may never do it on this job (HTTP 403);
@@ -87,6 +89,7 @@ export function canWriteJob(actor: JobActor, job: JobAccessFacts, kind: JobWrite
   if (!isOnCrew(actor, job)) {
     return deny('role', 'NOT_ON_CREW', 'You are not on this job’s crew.');
   }
+  if (kind === 'signoff') return ALLOW;
   if (!CREW_EDITABLE.includes(job.status)) {
     return deny('state', 'JOB_SUBMITTED', 'This job has been submitted: the office must send it back before the crew changes it.');
   }

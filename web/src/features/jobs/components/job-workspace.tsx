@@ -21,8 +21,10 @@ import { ItemsSection } from './items-section';
 import { JobStatusActions } from './job-status-actions';
 import { JobStatusBadge } from './job-status-badge';
 import { NotesSection } from './notes-section';
+import { PacketCard } from './packet-card';
 import { RunsSection } from './runs-section';
 import { SaveStateBar } from './save-state-bar';
+import { SignOffCard } from './sign-off-card';
 import { UnitsChooser } from './units-chooser';
 import { ZonesSection } from './zones-section';
 
@@ -181,6 +183,17 @@ export function JobWorkspace({ data, actor }: JobWorkspaceProps) {
           {section === 'checks' && <ChecksSection data={data} canAddField={permissions.canAddField} />}
           {section === 'photos' && <PhotosSection />}
           {section === 'notes' && <NotesSection data={data} canChange={permissions.canChangeNotes} />}
+          {(job.status === 'submitted' || job.status === 'ready_to_issue') && (
+            <SignOffCard
+              jobId={job.id}
+              canSign={permissions.canSign}
+              crewLeadName={job.crewLead?.name ?? ''}
+              homeownerName={job.customer.name}
+            />
+          )}
+          {(job.status === 'ready_to_issue' || job.status === 'issued') && (
+            <PacketCard jobId={job.id} jobVersion={job.version} canIssue={permissions.canIssue} />
+          )}
           <UnitsChooser />
         </div>
         {isWide && <aside className={styles.aside}>{findings}</aside>}

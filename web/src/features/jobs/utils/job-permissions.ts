@@ -1,6 +1,7 @@
 import type { Role } from '@domain/auth/roles';
 import type { JobResponse } from '@domain/jobs/job.schema';
 import {
+  canIssuePacket,
   canTransition,
   canWriteJob,
   JOB_TRANSITIONS,
@@ -26,6 +27,8 @@ export function jobPermissions(actor: { id: string; role: Role }, job: JobRespon
     canRecord: canWriteJob(who, facts, 'record').isAllowed,
     canAddField: canWriteJob(who, facts, 'field').isAllowed,
     canChangeDetails: canWriteJob(who, facts, 'details').isAllowed,
+    canSign: canWriteJob(who, facts, 'signoff').isAllowed,
+    canIssue: canIssuePacket(who, facts).isAllowed,
     // A crew lead may change the notes of a job they record (the API allows it as a record write).
     canChangeNotes: canWriteJob(who, facts, actor.role === 'lead' ? 'record' : 'details').isAllowed,
   };

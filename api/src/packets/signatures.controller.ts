@@ -1,0 +1,68 @@
+import { BadRequestException, Body, Controller, Delete, Get, Param, ParseUUIDPipe, type PipeTransform, Put } from '@nestjs/common';
+import { ApiBearerAuth, ApiBody, ApiOperation, ApiTags } from '@nestjs/swagger';
+
+import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
+import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
+import { Roles } from '../common/decorators/roles.decorator.js';
+import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
+import { type JobSignatureResponse, SIGNATURE_ROLES, type SignatureInput, SignatureInputSchema, type SignatureRole } from '../domain/packet/signature.schema.js';
+import { ApiJobVersion } from '../jobs/api-job-version.decorator.js';
+import { SignaturesService } from './signatures.service.js';
+
+const uuid = new ParseUUIDPipe();
+
+class ParseSignatureRolePipe implements PipeTransform<string, SignatureRole> {
+  transform(value: string): SignatureRole {
+    if ((SIGNATURE_ROLES as readonly string[]).includes(value)) return value as SignatureRole;
+    throw new BadRequestException({
+      message: 'role: must be lead or homeowner',
+      code: 'VALIDATION_FAILED',
+      issues: [{ path: 'role', message: 'must be lead or homeowner' }],
+    });
+  }
+}
+
+/**
+ * The sign-off block's signatures, captured on the lead's device at the walkthrough before the packet is
+ * issued; issuing copies them into the revision (a revision issued without them prints "Not signed").
+ */
+@ApiTags('packets')
+@ApiBearerAuth()
+@Roles('admin', 'office', 'lead')
+@Controller('jobs/:jobId/signatures')
+export class SignaturesController {
+  constructor(private readonly signatures: SignaturesService) {}
+
+  @Get()
+  @Roles('admin', 'office', 'lead', 'tech')
+  @ApiOperation({ summary: 'The signatures captured for the job’s next revision (lead, homeowner)' })
+  list(@CurrentUser() user: AuthUser, @Param('jobId', uuid) jobId: string): Promise<JobSignatureResponse[]> {
+    return this.signatures.list(user, jobId);
+  }
+
+  @Put(':role')
+  @ApiJobVersion()
+  @ApiOperation({ summary: 'Save (or replace) the crew lead’s or homeowner’s signature: SVG path data in a 0 0 400 120 box' })
+  @ApiBody({ schema: { type: 'object' }, examples: { homeowner: { value: { signerName: 'Dara Penhallow', svgPath: 'M 10 60 L 120 40 L 300 80' } } } })
+  save(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @Param('role', new ParseSignatureRolePipe()) role: SignatureRole,
+    @ExpectedVersion() version: number,
+    @Body(new ZodValidationPipe(SignatureInputSchema)) body: SignatureInput,
+  ) {
+    return this.signatures.save(user, jobId, role, version, body);
+  }
+
+  @Delete(':role')
+  @ApiJobVersion()
+  @ApiOperation({ summary: 'Clear a signature before issuing' })
+  remove(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @Param('role', new ParseSignatureRolePipe()) role: SignatureRole,
+    @ExpectedVersion() version: number,
+  ) {
+    return this.signatures.remove(user, jobId, role, version);
+  }
+}

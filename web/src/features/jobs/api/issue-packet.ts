@@ -1,0 +1,25 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+
+import { apiRequest } from '../../../lib/api-client';
+
+import type { PacketRevision } from './get-job-packets';
+import { responseOf } from './response';
+
+export type IssuePacketResponse = PacketRevision & { jobVersion: number };
+
+/** Issues the job's next packet revision on top of `version` (If-Match); the render is queued. */
+export function issuePacket(jobId: string, version: number): Promise<IssuePacketResponse> {
+  return apiRequest(`/api/jobs/${encodeURIComponent(jobId)}/packets`, responseOf<IssuePacketResponse>(), {
+    method: 'POST',
+    headers: { 'If-Match': `"${version}"` },
+  });
+}
+
+export function useIssuePacket(jobId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (version: number) => issuePacket(jobId, version),
+    // The job is now issued (new version) and its signatures moved to the revision.
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['jobs'] }),
+  });
+}
