@@ -125,6 +125,20 @@ describe(solvePositionFromTies.name, () => {
     );
   });
 
+  // Geometry (elementary): taping from points nearly in line with the item cannot fix its position across
+  // that line. Found by the property below before it required a usable crossing angle.
+  it('should say so when the reference points are nearly in line with the item', () => {
+    const p = { x: 195.943, y: 0 };
+    const refs = [
+      { x: -103.649, y: -0.014 },
+      { x: 0.009, y: 0.01 },
+      { x: 30.672, y: 0.006 },
+    ];
+    const sut = solvePositionFromTies(ties(p, refs), { sideHint: 'right' });
+    expect(sut.ok).toBe(false);
+    if (!sut.ok) expect(sut.message).toMatch(/nearly in line/);
+  });
+
   it('should round-trip three or more ties by least squares within 1 mm (property)', () => {
     fc.assert(
       fc.property(point, fc.array(point, { minLength: 3, maxLength: 6 }), (p, refs) => {

@@ -126,6 +126,8 @@ export function solvePositionFromTies(ties: readonly TieObservation[], options: 
 
   let p = { ...start };
   let converged = false;
+  /** Σ sin²(θi − θj) over pairs of tie directions at p: near 0 when every tie lies along one line. */
+  let spread = 0;
   for (let iter = 0; iter < 50; iter += 1) {
     let jtj00 = 0;
     let jtj01 = 0;
@@ -146,6 +148,7 @@ export function solvePositionFromTies(ties: readonly TieObservation[], options: 
       jtr1 += uy * res;
     }
     const det = jtj00 * jtj11 - jtj01 * jtj01;
+    spread = det;
     if (Math.abs(det) < 1e-15) break;
     const stepX = -(jtj11 * jtr0 - jtj01 * jtr1) / det;
     const stepY = -(-jtj01 * jtr0 + jtj00 * jtr1) / det;
@@ -156,7 +159,17 @@ export function solvePositionFromTies(ties: readonly TieObservation[], options: 
     }
   }
   if (!converged || !Number.isFinite(p.x) || !Number.isFinite(p.y)) {
-    return { ok: false, reason: 'did_not_converge', message: 'the ties do not agree on one position' };
+    // det(JᵀJ) of unit directions equals Σ sin² of the pairwise angles; below sin²(10°) per pair the
+    // reference points are nearly in line with the item and no tape can fix it across that line.
+    const pairs = (ties.length * (ties.length - 1)) / 2;
+    const isInLine = !(spread / pairs >= Math.sin((10 * Math.PI) / 180) ** 2);
+    return {
+      ok: false,
+      reason: 'did_not_converge',
+      message: isInLine
+        ? 'the reference points are nearly in line with the item, so the ties cannot fix it; tape from a reference point off that line'
+        : 'the ties do not agree on one position',
+    };
   }
   const residualRmsM = rms(ties, p);
   const dof = ties.length - 2;
