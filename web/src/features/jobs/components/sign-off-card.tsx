@@ -23,7 +23,10 @@ const useStyles = makeStyles({
     border: `1px solid ${tokens.colorNeutralStroke1}`,
     borderRadius: tokens.borderRadiusMedium,
     backgroundColor: tokens.colorNeutralBackground1,
+    // A signing line, as on paper (the pad itself is transparent, so this shows through).
+    backgroundImage: `linear-gradient(to bottom, transparent 76%, ${tokens.colorNeutralStroke2} 76%, ${tokens.colorNeutralStroke2} calc(76% + 1px), transparent calc(76% + 1px))`,
   },
+  hint: { color: tokens.colorNeutralForeground3 },
   preview: { width: '100%', aspectRatio: `${BOX.width} / ${BOX.height}`, border: `1px solid ${tokens.colorNeutralStroke2}`, borderRadius: tokens.borderRadiusMedium },
   error: { color: tokens.colorPaletteRedForeground1 },
   action: { minHeight: '44px' },
@@ -170,6 +173,9 @@ function SignaturePadField({ jobId, role, canSign, defaultName, saved }: PadFiel
             <Input value={name} maxLength={120} onChange={(_e, data) => setName(data.value)} />
           </Field>
           <canvas ref={canvasRef} className={styles.canvas} aria-label={`${ROLE_LABELS[role]} signs here with a finger`} />
+          <Text size={200} className={styles.hint}>
+            {ROLE_LABELS[role]}: sign on the line with a finger.
+          </Text>
           <div className={card.actions}>
             <Button
               className={styles.action}
