@@ -22,6 +22,8 @@ export default defineConfig({
           environment: 'jsdom',
           include: ['web/src/**/*.spec.{ts,tsx}'],
           setupFiles: ['web/src/testing/setup-tests.ts'],
+          // Fluent pages in jsdom are slow to query while the other projects load both cores.
+          testTimeout: 20_000,
         },
       },
       {

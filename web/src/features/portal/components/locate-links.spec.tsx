@@ -80,25 +80,25 @@ describe('Portal locate links', () => {
     expect(await screen.findByText('No locate links yet.')).toBeInTheDocument();
 
     await user.click(screen.getByRole('button', { name: 'New locate link' }));
-    const dialog = await screen.findByRole('dialog');
-    const days = within(dialog).getByRole('spinbutton', { name: /Works for/ });
+    const dialog = await screen.findByRole('dialog', { hidden: true });
+    const days = within(dialog).getByRole('spinbutton', { name: /Works for/, hidden: true });
     await user.clear(days);
     await user.type(days, '30');
-    await user.type(within(dialog).getByRole('textbox', { name: /Note/ }), 'For the fence crew');
-    await user.click(within(dialog).getByRole('button', { name: 'Create link' }));
+    await user.type(within(dialog).getByRole('textbox', { name: /Note/, hidden: true }), 'For the fence crew');
+    await user.click(within(dialog).getByRole('button', { name: 'Create link', hidden: true }));
 
-    expect(await within(dialog).findByRole('textbox', { name: 'New locate link' })).toHaveValue('https://loamline.test/locate/secret-token');
+    expect(await within(dialog).findByRole('textbox', { name: 'New locate link', hidden: true })).toHaveValue('https://loamline.test/locate/secret-token');
     expect(within(dialog).getByText(/cannot be shown again/)).toBeInTheDocument();
     expect(created?.body).toEqual({ expiresInDays: 30, note: 'For the fence crew' });
 
-    await user.click(within(dialog).getByRole('button', { name: 'Done' }));
+    await user.click(within(dialog).getByRole('button', { name: 'Done', hidden: true }));
     const list = await screen.findByRole('list', { name: 'Locate links' });
     expect(within(list).getByText(/Opened 0 times/)).toBeInTheDocument();
     expect(screen.queryByText('https://loamline.test/locate/secret-token')).not.toBeInTheDocument();
 
     await user.click(within(list).getByRole('button', { name: 'Revoke' }));
-    const confirm = await screen.findByRole('alertdialog', { name: 'Revoke this link?' });
-    await user.click(within(confirm).getByRole('button', { name: 'Revoke' }));
+    const confirm = await screen.findByRole('alertdialog', { name: 'Revoke this link?', hidden: true });
+    await user.click(within(confirm).getByRole('button', { name: 'Revoke', hidden: true }));
 
     expect(await within(list).findByText('revoked')).toBeInTheDocument();
     expect(revoked).toBe(true);
