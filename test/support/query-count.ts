@@ -10,7 +10,7 @@ export async function withQueryCount(work: () => Promise<unknown>): Promise<numb
   const original = prototype.query;
   let count = 0;
   prototype.query = function (this: { connectionParameters?: { application_name?: string } }, ...args: unknown[]) {
-    // The queues' connections are named 'loamline-queue' (see packet-queue.ts, delivery-queue.ts).
+    // The queues' connections are named 'loamline-queue' (see common/pg-boss-queue.ts).
     if (this.connectionParameters?.application_name !== 'loamline-queue') count += 1;
     return original.apply(this, args);
   };
