@@ -3,6 +3,7 @@ import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 
 const domain = fileURLToPath(new URL('./api/src/domain', import.meta.url));
+const drawings = fileURLToPath(new URL('./api/src/drawings', import.meta.url));
 
 // Nest's dependency injection needs decorator metadata; vite 8 transforms TypeScript with oxc.
 const nestTransform = { decorator: { legacy: true, emitDecoratorMetadata: true } };
@@ -16,7 +17,7 @@ export default defineConfig({
       },
       {
         plugins: [react()],
-        resolve: { alias: { '@domain': domain } },
+        resolve: { alias: { '@domain': domain, '@drawings': drawings } },
         test: {
           name: 'web',
           environment: 'jsdom',
@@ -47,6 +48,17 @@ export default defineConfig({
           globalSetup: ['test/setup/database.global.ts', 'test/setup/server.global.ts'],
           fileParallelism: false,
           testTimeout: 60_000,
+          hookTimeout: 120_000,
+        },
+      },
+      {
+        test: {
+          name: 'system',
+          environment: 'node',
+          include: ['test/system/**/*.system.spec.ts'],
+          globalSetup: ['test/setup/database.global.ts', 'test/system/support/build.global.ts'],
+          fileParallelism: false,
+          testTimeout: 120_000,
           hookTimeout: 120_000,
         },
       },

@@ -12,6 +12,7 @@ import { drawDepthProfile } from '../api/src/drawings/depth-profile.js';
 import { createNodeSvgCanvas } from '../api/src/drawings/node-svg-window.js';
 import { drawSitePlan } from '../api/src/drawings/site-plan.js';
 import { drawWiringSchematic } from '../api/src/drawings/wiring-schematic.js';
+import { type BenchFigure, recordResults } from './results.js';
 
 async function timeMs(fn: () => unknown, iterations: number, warmUp: number): Promise<number[]> {
   for (let i = 0; i < warmUp; i += 1) await fn();
@@ -33,6 +34,8 @@ function median(samples: number[]): number {
 const createCanvas = createNodeSvgCanvas;
 const fmt = (ms: number): string => ms.toFixed(1).padStart(9);
 
+const figures: BenchFigure[] = [];
+
 async function benchJob(name: string, asBuilt: AsBuilt, iterations: number, warmUp: number): Promise<void> {
   const analysis = analyzeAsBuilt(asBuilt);
   const baseline = median(await timeMs(() => analyzeAsBuilt(asBuilt), iterations, warmUp));
@@ -49,9 +52,14 @@ async function benchJob(name: string, asBuilt: AsBuilt, iterations: number, warm
   row(`depth profiles (all ${asBuilt.runs.length} runs)`, profiles);
   row('all three drawings', total);
   console.log('');
+  figures.push(
+    { label: `${name}: all three drawings, median`, value: total, unit: 'ms' },
+    { label: `${name}: drawings / analysis`, value: total / baseline, unit: '×' },
+  );
 }
 
 console.log(`Loamline drawings benchmark — node ${process.version}`);
 console.log('');
 await benchJob('demo job', DEMO_AS_BUILT, 15, 5);
 await benchJob('synthetic job', AsBuiltSchema.parse(generateSyntheticAsBuilt()), 5, 1);
+recordResults('drawings', figures);

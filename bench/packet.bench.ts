@@ -12,6 +12,7 @@ import type { PacketPhoto } from '../api/src/domain/packet/packet-snapshot.js';
 import { ChromiumPrinter } from '../api/src/packets/chromium-printer.js';
 import { renderFooterTemplate, renderPacket } from '../api/src/packets/packet-document.js';
 import { buildPacketViewModel } from '../api/src/domain/packet/packet.view-model.js';
+import { recordResults } from './results.js';
 
 const ITERATIONS = 5;
 const WIDTH = 4000;
@@ -83,6 +84,11 @@ try {
   console.log(`  whole pipeline (view model + drawings + QR + template + 2 prints)  ${p.toFixed(0).padStart(6)} ms`);
   console.log(`  Chromium printing the final HTML alone                             ${c.toFixed(0).padStart(6)} ms`);
   console.log(`  ratio pipeline / print alone                                       ${(p / c).toFixed(2).padStart(6)} ×  (goal ≤ 1.50)`);
+  recordResults('packet', [
+    { label: `packet render, whole pipeline (${pages} pages, 24 photos), median`, value: p, unit: 'ms' },
+    { label: 'Chromium printing the final HTML alone, median', value: c, unit: 'ms' },
+    { label: 'pipeline / Chromium print alone', value: p / c, unit: '×', goal: '≤ 1.5 ×', isMet: p / c <= 1.5 },
+  ]);
 } finally {
   await printer.close();
 }

@@ -25,6 +25,7 @@ import sharp from 'sharp';
 // @ts-expect-error -- plain ESM script shared with `npm start`; no type declarations.
 import { ensureApiBuilt, ensureDatabase, ensurePostgres, migrate, root, stopPostgres } from '../scripts/lib/setup.mjs';
 import { makeFieldPhoto, makePng } from '../test/fixtures/photos/make-photos.js';
+import { recordResults } from './results.js';
 
 const PHOTOS = 24;
 const PASSWORD = 'bench-password-123';
@@ -178,6 +179,12 @@ async function main(): Promise<void> {
     const growth = Math.max(peakRss, end.hwmMb) - warm.rssMb;
     const growthFromIdle = Math.max(peakRss, end.hwmMb) - idle.rssMb;
     console.log(`  peak growth           ${fmt(growth)}   over warmed-up (${fmt(growthFromIdle)} over idle)  goal < 300: ${growthFromIdle < 300 ? 'met' : 'MISSED'}`);
+    recordResults('photos', [
+      { label: `photo upload + processing, ${PHOTOS} × 12 MP JPEG`, value: PHOTOS / (totalMs / 1000), unit: 'photos/s' },
+      { label: 'photo upload, per photo median', value: sorted[Math.floor(sorted.length / 2)]!, unit: 'ms' },
+      { label: 'upload / sharp decode alone', value: totalMs / decodeMs, unit: '×' },
+      { label: 'API peak memory growth over idle', value: growthFromIdle, unit: 'MB', goal: '< 300 MB', isMet: growthFromIdle < 300 },
+    ]);
   } finally {
     server.kill('SIGTERM');
     await new Promise((resolve) => (server.exitCode !== null ? resolve(null) : server.once('exit', resolve)));

@@ -5,12 +5,13 @@ import { defineConfig } from 'vite';
 
 const repoRoot = fileURLToPath(new URL('..', import.meta.url));
 const domain = fileURLToPath(new URL('../api/src/domain', import.meta.url));
+const drawings = fileURLToPath(new URL('../api/src/drawings', import.meta.url));
 const apiTarget = `http://127.0.0.1:${process.env.API_PORT ?? '3001'}`;
 
 export default defineConfig({
   plugins: [react()],
   resolve: {
-    alias: { '@domain': domain },
+    alias: { '@domain': domain, '@drawings': drawings },
   },
   server: {
     proxy: { '/api': { target: apiTarget } },
@@ -23,5 +24,7 @@ export default defineConfig({
   build: {
     outDir: 'dist',
     emptyOutDir: true,
+    // dist/.vite/manifest.json: which chunks each route module pulls in (read by bench/web-bundle.bench.ts).
+    manifest: true,
   },
 });

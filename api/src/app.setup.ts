@@ -3,6 +3,7 @@ import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import cookieParser from 'cookie-parser';
 import helmet from 'helmet';
 
+import { requireJsonOrMultipartBody } from './common/body-content-type.js';
 import { HttpExceptionFilter } from './common/http-exception.filter.js';
 import { serveWebApp } from './common/web-app.js';
 import { APP_VERSION, type Env } from './config/env.schema.js';
@@ -15,6 +16,8 @@ export function configureApp(app: NestExpressApplication, env: Env): void {
   app.setGlobalPrefix('api');
   app.useGlobalFilters(new HttpExceptionFilter());
   app.disable('x-powered-by');
+  if (env.TRUST_PROXY) app.set('trust proxy', trustProxySetting(env.TRUST_PROXY));
+  app.use(requireJsonOrMultipartBody);
   // A large job's as-built (hundreds of items and runs) is a few hundred kB of JSON.
   app.useBodyParser('json', { limit: '5mb' });
   app.use(cookieParser());
@@ -55,4 +58,10 @@ export function configureApp(app: NestExpressApplication, env: Env): void {
   });
 
   if (env.WEB_DIST_DIR) serveWebApp(app, env.WEB_DIST_DIR);
+}
+
+/** `TRUST_PROXY` as Express reads it: true/false, a hop count, or a list of addresses and subnets. */
+export function trustProxySetting(value: string): boolean | number | string {
+  if (value === 'true' || value === 'false') return value === 'true';
+  return /^\d+$/.test(value) ? Number(value) : value;
 }

@@ -32,12 +32,13 @@ function capture(command, args, options = {}) {
   return result.status === 0 ? result.stdout : undefined;
 }
 
-function asPostgresUser(command, args) {
+/** [command, args] that run `command` as the `postgres` OS user when this process is root (PostgreSQL refuses root). */
+export function asPostgresUser(command, args) {
   return isRoot ? ['runuser', ['-u', 'postgres', '--', command, ...args]] : [command, args];
 }
 
 // The postgres user may not be able to enter the current folder; its commands run from /.
-const pgCommandOptions = { cwd: '/' };
+export const pgCommandOptions = { cwd: '/' };
 
 /** Debian's PostgreSQL server binaries (newest major installed), or undefined. */
 export function findPgBin() {
@@ -157,9 +158,13 @@ export function ensureWebBuilt() {
       join(root, 'web/tsconfig.json'),
       join(root, 'api/src/domain'),
       join(root, 'fonts'),
+      // The build recipe below (its mode) is an input too: a change to it must rebuild.
+      fileURLToPath(import.meta.url),
     ],
     join(root, 'web/dist/.build-stamp'),
-    () => run('npx', ['vite', 'build', '--logLevel', 'warn'], { cwd: join(root, 'web') }),
+    // Always a production build: Vitest sets NODE_ENV=test for the globalSetup that calls this, and
+    // Vite would then bundle React's development build, which the stamp would keep serving to npm start.
+    () => run('npx', ['vite', 'build', '--logLevel', 'warn'], { cwd: join(root, 'web'), env: { ...process.env, NODE_ENV: 'production' } }),
   );
 }
 

@@ -29,13 +29,21 @@ function accountTracker(req: Record<string, unknown>): Promise<string> {
         signOptions: { algorithm: 'HS256' },
       }),
     }),
-    ThrottlerModule.forRoot({
-      throttlers: [
-        // Per client address: generous, so an office behind one address is not locked out.
-        { name: 'address', ttl: 60_000, limit: 30 },
-        // Per account: the tenth attempt within 15 minutes is refused with 429.
-        { name: 'account', ttl: 15 * 60_000, limit: 9, getTracker: accountTracker },
-      ],
+    ThrottlerModule.forRootAsync({
+      inject: [ConfigService],
+      useFactory: (config: ConfigService<Env, true>) => ({
+        throttlers: [
+          // Per client address: generous, so an office behind one address is not locked out.
+          { name: 'address', ttl: 60_000, limit: config.get('SIGN_IN_LIMIT_PER_ADDRESS_PER_MINUTE', { infer: true }) },
+          // Per account: by default the tenth attempt within 15 minutes is refused with 429.
+          {
+            name: 'account',
+            ttl: 15 * 60_000,
+            limit: config.get('SIGN_IN_LIMIT_PER_ACCOUNT', { infer: true }),
+            getTracker: accountTracker,
+          },
+        ],
+      }),
     }),
   ],
   controllers: [AuthController],

@@ -6,7 +6,7 @@ import {
   HttpStatus,
   Logger,
 } from '@nestjs/common';
-import type { Response } from 'express';
+import type { Request, Response } from 'express';
 
 import { ConflictError, DomainError, NotFoundError, RuleViolationError } from '../domain/errors.js';
 
@@ -43,14 +43,41 @@ const STATUS_TEXT: Record<number, string> = {
 
 /** Postgres error classes that mean "the database is not reachable right now". */
 function isDatabaseUnavailable(error: unknown): boolean {
-  const code = (error as { code?: unknown } | null)?.code;
-  const message = error instanceof Error ? error.message : '';
-  return (
-    code === 'ECONNREFUSED' ||
-    code === '57P01' || // admin_shutdown
-    code === '57P03' || // cannot_connect_now
-    /Connection terminated|timeout exceeded when trying to connect|ECONNREFUSED/.test(message)
+  // Drizzle wraps the driver's error in a DrizzleQueryError ("Failed query: …") with the original as `cause`.
+  for (let e: unknown = error, depth = 0; e && depth < 4; e = (e as { cause?: unknown }).cause, depth += 1) {
+    const code = (e as { code?: unknown }).code;
+    const message = e instanceof Error ? e.message : '';
+    if (
+      code === 'ECONNREFUSED' ||
+      code === 'ECONNRESET' ||
+      (typeof code === 'string' && code.startsWith('08')) || // connection_exception class
+      code === '57P01' || // admin_shutdown
+      code === '57P02' || // crash_shutdown
+      code === '57P03' || // cannot_connect_now
+      /Connection terminated|timeout exceeded when trying to connect|ECONNREFUSED|not queryable/.test(message)
+    ) {
+      return true;
+    }
+  }
+  return false;
+}
+
+/** What Nest's ParseUUIDPipe says, without naming the parameter. */
+const PARSE_UUID_MESSAGE = /^Validation failed \(uuid( v\d)? is expected\)$/;
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/**
+ * ParseUUIDPipe's 400 does not say which path parameter was wrong; the request's params do. Names each
+ * parameter that is not a uuid, so that every validation error names its field.
+ */
+function withUuidParamIssues(body: ErrorBody, req: Request | undefined): ErrorBody {
+  if (body.statusCode !== 400 || body.issues || !PARSE_UUID_MESSAGE.test(body.message)) return body;
+  const params = Object.entries((req?.params ?? {}) as Record<string, unknown>).filter(
+    ([name, value]) => /(^id|Id)$/.test(name) && !(typeof value === 'string' && UUID.test(value)),
   );
+  if (params.length === 0) return body;
+  const issues = params.map(([name]) => ({ path: name, message: 'must be a uuid' }));
+  return { ...body, message: `${issues[0]!.path}: must be a uuid`, code: 'VALIDATION_FAILED', issues };
 }
 
 /**
@@ -63,7 +90,7 @@ export class HttpExceptionFilter implements ExceptionFilter {
 
   catch(exception: unknown, host: ArgumentsHost): void {
     const res = host.switchToHttp().getResponse<Response>();
-    const body = this.toBody(exception);
+    const body = withUuidParamIssues(this.toBody(exception), host.switchToHttp().getRequest<Request | undefined>());
     if (body.statusCode >= 500 && body.statusCode !== HttpStatus.SERVICE_UNAVAILABLE) {
       this.logger.error(exception instanceof Error ? exception.stack : String(exception));
     }

@@ -32,9 +32,10 @@ export abstract class PgBossQueue<T extends object> implements BeforeApplication
   protected abstract settings(): QueueSettings;
 
   async enqueue(job: T): Promise<void> {
-    const { name, retryLimit, retryDelay } = this.settings();
+    const { name, retryLimit, retryDelay, expireInSeconds } = this.settings();
     const boss = await this.start();
-    await boss.send(name, job, { retryLimit, retryDelay, retryBackoff: true });
+    // Per job, because createQueue keeps the options of whichever process created the queue first.
+    await boss.send(name, job, { retryLimit, retryDelay, retryBackoff: true, expireInSeconds });
   }
 
   /** Starts `workers` pollers in this process, each taking one job at a time. */
@@ -68,6 +69,8 @@ export abstract class PgBossQueue<T extends object> implements BeforeApplication
         schema: 'pgboss',
         max: poolSize,
         application_name: 'loamline-queue',
+        // Expired jobs (their worker died) are found and retried by this maintenance.
+        maintenanceIntervalSeconds: this.config.get('QUEUE_MAINTENANCE_INTERVAL_SECONDS', { infer: true }),
       });
       boss.on('error', (error) => this.logger.error(`queue error: ${error.message}`));
       try {

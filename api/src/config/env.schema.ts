@@ -51,16 +51,34 @@ export const EnvSchema = z.object({
   PACKET_RENDER_CONCURRENCY: z.coerce.number().int().min(1).max(16).default(2),
   /** Limit for loading and for printing one packet in Chromium, ms (each). */
   PACKET_RENDER_TIMEOUT_MS: z.coerce.number().int().min(1000).max(600_000).default(60_000),
+  /**
+   * A render not finished this long after it started is presumed dead (its worker was killed): pg-boss
+   * expires the attempt and retries it, and another worker may claim the revision. Keep it above the
+   * longest render (twice PACKET_RENDER_TIMEOUT_MS plus photos and storage), seconds.
+   */
+  PACKET_RENDER_STALE_SECONDS: z.coerce.number().int().min(10).max(86_400).default(900),
   /** Retries of a failed render (with exponential backoff) before the revision is marked failed. */
   PACKET_RENDER_RETRIES: z.coerce.number().int().min(0).max(10).default(3),
   /** How often an idle worker polls the queue, seconds (pg-boss 10 minimum 0.5). */
   QUEUE_POLL_INTERVAL_SECONDS: z.coerce.number().min(0.5).max(60).default(1),
+  /** How often the queue looks for expired (abandoned) jobs to retry, seconds (pg-boss maintenance). */
+  QUEUE_MAINTENANCE_INTERVAL_SECONDS: z.coerce.number().int().min(1).max(3600).default(120),
   /** Largest packet PDF sent as an e-mail attachment, bytes; a larger one is sent as a link only. */
   MAIL_MAX_ATTACHMENT_BYTES: z.coerce.number().int().min(0).default(10 * 1024 * 1024),
   /** Retries of a failed packet e-mail (with exponential backoff) before the delivery is marked failed. */
   PACKET_SEND_RETRIES: z.coerce.number().int().min(0).max(20).default(5),
   /** First retry delay of a failed packet e-mail, seconds (doubles each retry). */
   PACKET_SEND_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
+  /** Sign-in and reset requests one client address may make per minute before 429. */
+  SIGN_IN_LIMIT_PER_ADDRESS_PER_MINUTE: z.coerce.number().int().min(1).max(100_000).default(30),
+  /** Sign-in and reset requests naming one account per 15 minutes before 429 (password guessing). */
+  SIGN_IN_LIMIT_PER_ACCOUNT: z.coerce.number().int().min(1).max(100_000).default(9),
+  /**
+   * Express `trust proxy`: set it when a reverse proxy terminates HTTPS in front of the API (e.g.
+   * `loopback` or `1` for one hop), so the refresh cookie is marked Secure and client addresses are
+   * the real ones. Unset: the connection itself is trusted, and X-Forwarded-* headers are ignored.
+   */
+  TRUST_PROXY: z.string().min(1).optional(),
   /** Public locate views (and their files) one client address may open per minute. */
   LOCATE_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).max(10_000).default(60),
   /** Unknown, expired or revoked locate tokens one client address may try per minute before 429. */

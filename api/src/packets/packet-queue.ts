@@ -24,7 +24,8 @@ export class PacketQueue extends PgBossQueue<PacketRenderJob> {
       name: PACKET_RENDER_QUEUE,
       retryLimit: this.config.get('PACKET_RENDER_RETRIES', { infer: true }),
       retryDelay: 5,
-      expireInSeconds: 15 * 60,
+      // A worker killed mid-render leaves its job active; past this it is expired and retried.
+      expireInSeconds: this.config.get('PACKET_RENDER_STALE_SECONDS', { infer: true }),
       poolSize: 4,
     };
   }

@@ -4,17 +4,16 @@ import { Inject, Injectable, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 
 import type { Env } from '../config/env.schema.js';
-import type { PacketSignature } from '../domain/packet/packet-snapshot.js';
+import type { PacketSignature, PacketSnapshot } from '../domain/packet/packet-snapshot.js';
+import type { PlanImage } from '../drawings/drawing-options.js';
+import { planImageForDrawing } from '../drawings/job-drawings.js';
 import { LinkBuilder } from '../mail/link-builder.js';
-import { OBJECT_STORAGE, type ObjectStorage } from '../storage/object-storage.js';
+import { OBJECT_STORAGE, ObjectNotFoundError, type ObjectStorage } from '../storage/object-storage.js';
 import { buildPacketArchive } from './packet-archive.js';
 import { PACKET_PHOTO_SOURCE, type PacketPhotoSource } from './packet-photo-source.js';
 import { PacketQueue } from './packet-queue.js';
 import { PacketsRepository } from './packets.repository.js';
 import { PdfRendererService } from './pdf-renderer.service.js';
-
-/** A revision left `rendering` this long by a worker that died may be claimed again. */
-const STALE_RENDER_SECONDS = 15 * 60;
 
 const LOGO_TYPES: Record<string, string> = { png: 'image/png', jpg: 'image/jpeg', jpeg: 'image/jpeg', webp: 'image/webp' };
 
@@ -82,7 +81,9 @@ export class PacketRenderWorker {
   }
 
   async render(revisionId: string, isFinalAttempt: boolean): Promise<void> {
-    const revision = await this.repository.claim(revisionId, STALE_RENDER_SECONDS);
+    // A revision left `rendering` this long by a worker that died may be claimed again; pg-boss
+    // expires the dead attempt after the same time and retries it (after its retry delay).
+    const revision = await this.repository.claim(revisionId, this.config.get('PACKET_RENDER_STALE_SECONDS', { infer: true }));
     if (!revision) {
       this.logger.debug(`packet ${revisionId} is not waiting to render (already claimed or done)`);
       return;
@@ -90,11 +91,12 @@ export class PacketRenderWorker {
     const started = performance.now();
     try {
       const { snapshot } = revision;
-      const [photos, signatureRows, logoDataUri, issuedLocateUrl] = await Promise.all([
+      const [photos, signatureRows, logoDataUri, issuedLocateUrl, planImage] = await Promise.all([
         this.photos.photosFor({ companyId: revision.companyId, jobId: revision.jobId, revisionId }),
         this.repository.signatures(revisionId),
         this.logo(revision.companyId),
         this.repository.locateUrl(revisionId),
+        this.planImage(snapshot.site.planImage),
       ]);
       const signatures: PacketSignature[] = signatureRows.map((s) => ({
         role: s.role,
@@ -105,7 +107,7 @@ export class PacketRenderWorker {
       // The site's long-lived locate link, made when the revision was issued. Revisions issued before
       // locate links existed keep the address they were first printed with.
       const locateUrl = issuedLocateUrl ?? this.links.to(`/locate/${revisionId}`);
-      const rendered = await this.renderer.render({ snapshot, locateUrl, photos, signatures, logoDataUri });
+      const rendered = await this.renderer.render({ snapshot, locateUrl, photos, signatures, logoDataUri, planImage });
       const archive = await buildPacketArchive({
         snapshot,
         pdf: rendered.pdf,
@@ -137,6 +139,19 @@ export class PacketRenderWorker {
       await this.repository.markAttemptFailed(revisionId, reason, isFinalAttempt);
       this.logger.error(`packet ${revisionId} failed to render${isFinalAttempt ? '' : ' (will retry)'}: ${reason}`);
       throw error;
+    }
+  }
+
+  /** The site plan's underlay frozen in the snapshot; a copy deleted since (image replaced) is left out. */
+  private async planImage(source: PacketSnapshot['site']['planImage']): Promise<PlanImage | undefined> {
+    if (!source) return undefined;
+    try {
+      const bytes = await this.storage.getBuffer(source.screenKey);
+      return planImageForDrawing({ ...source, href: `data:image/jpeg;base64,${bytes.toString('base64')}` });
+    } catch (error) {
+      if (!(error instanceof ObjectNotFoundError)) throw error;
+      this.logger.warn(`plan image ${source.screenKey} is no longer stored; the site plan is drawn without it`);
+      return undefined;
     }
   }
 

@@ -1,0 +1,54 @@
+import { type ArgumentsHost, BadRequestException, ParseUUIDPipe } from '@nestjs/common';
+import { describe, expect, it, vi } from 'vitest';
+
+import { HttpExceptionFilter } from './http-exception.filter.js';
+
+function hostFor(params: Record<string, string>) {
+  const res = { headersSent: false, status: vi.fn(), json: vi.fn() };
+  res.status.mockReturnValue(res);
+  const host = { switchToHttp: () => ({ getResponse: () => res, getRequest: () => ({ params }) }) } as unknown as ArgumentsHost;
+  return { host, res };
+}
+
+async function parseUuidError(value: string): Promise<unknown> {
+  try {
+    await new ParseUUIDPipe().transform(value, { type: 'param', data: 'jobId' });
+  } catch (error) {
+    return error;
+  }
+  throw new Error('expected ParseUUIDPipe to refuse');
+}
+
+describe(HttpExceptionFilter.name, () => {
+  const sut = new HttpExceptionFilter();
+
+  // Found by the bad-input suite: POST /api/jobs/not-a-uuid/zones answered "Validation failed (uuid is
+  // expected)" without saying which path parameter was wrong.
+  it('should name the path parameter that is not a uuid', async () => {
+    const { host, res } = hostFor({ jobId: 'not-a-uuid', zoneId: '0b3c6f9e-5d1a-4c1e-9a57-3f2a1e7c9d10' });
+    sut.catch(await parseUuidError('not-a-uuid'), host);
+    expect(res.status).toHaveBeenCalledWith(400);
+    expect(res.json).toHaveBeenCalledWith({
+      statusCode: 400,
+      error: 'Bad Request',
+      message: 'jobId: must be a uuid',
+      code: 'VALIDATION_FAILED',
+      issues: [{ path: 'jobId', message: 'must be a uuid' }],
+    });
+  });
+
+  it('should leave other 400s as they are', () => {
+    const { host, res } = hostFor({ jobId: 'not-a-uuid' });
+    sut.catch(new BadRequestException({ message: 'title: is required', code: 'VALIDATION_FAILED', issues: [{ path: 'title', message: 'is required' }] }), host);
+    expect(res.json).toHaveBeenCalledWith(expect.objectContaining({ message: 'title: is required', issues: [{ path: 'title', message: 'is required' }] }));
+  });
+
+  it('should answer an unknown error with a generic 500 that leaks nothing', () => {
+    const { host, res } = hostFor({});
+    const logged = vi.spyOn((sut as unknown as { logger: { error: (m: string) => void } }).logger, 'error').mockImplementation(() => undefined);
+    sut.catch(new Error('duplicate key value violates unique constraint "users_email_key"'), host);
+    expect(res.status).toHaveBeenCalledWith(500);
+    expect(JSON.stringify(res.json.mock.calls[0]![0])).not.toMatch(/duplicate|constraint|users_email/);
+    logged.mockRestore();
+  });
+});
