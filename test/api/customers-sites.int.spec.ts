@@ -67,14 +67,14 @@ describe('customers and sites', () => {
         country: 'Testland',
         northAzimuthDeg: 12,
         origin: { lat: 40, lon: -105 },
-        planImageRef: 'plans/fernwake.png',
-        planCalibration: { a: { x: 100, y: 200 }, b: { x: 900, y: 200 }, distanceM: 20 },
       });
       expect(site).toMatchObject({
         customer: { id: customer.id, name: 'Hollis Fernwake' },
         northAzimuthDeg: 12,
         origin: { lat: 40, lon: -105 },
-        planCalibration: { a: { x: 100, y: 200 }, b: { x: 900, y: 200 }, distanceM: 20 },
+        // The plan image and its calibration come later (test/api/site-plan-image.int.spec.ts).
+        planImage: null,
+        planCalibration: null,
         referencePoints: [],
         jobs: [],
       });

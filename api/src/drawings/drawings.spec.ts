@@ -24,6 +24,7 @@ interface XmlElement {
   getAttribute(name: string): string | null;
   textContent: string | null;
   querySelectorAll(selector: string): ArrayLike<XmlElement>;
+  querySelector(selector: string): XmlElement | null;
   tagName: string;
 }
 
@@ -151,6 +152,7 @@ describe('drawSitePlan', () => {
       'wall_entry',
       'reference_point',
       'tie',
+      'accuracy',
       'run:direct_burial',
       'run:under_hardscape_sleeve',
       'run:spare',
@@ -161,9 +163,33 @@ describe('drawSitePlan', () => {
     const bareLegend = all(bare, '[data-legend]').map((e) => e.getAttribute('data-legend'));
     expect(bareLegend).not.toContain('reference_point');
     expect(bareLegend).not.toContain('tie');
+    expect(bareLegend).not.toContain('accuracy');
+    expect(bare.querySelector('[data-accuracy-for]')).toBeNull();
     expect(bareLegend).not.toContain('run:spare');
     expect(bareLegend).not.toContain('shallow');
     expect(bare.querySelector('[data-id="run-spare"]')).toBeNull();
+  });
+
+  it('should circle each position solved from ties by its accuracy radius, and no other', () => {
+    // The radius is the solver's own estimate (domain/geometry/ties.ts: DRMS = σ·√trace((JᵀJ)⁻¹), the
+    // standard least-squares error propagation); the drawing only scales it to paper.
+    const circles = all(parseSvg(svg), '[data-accuracy-for]');
+    const expected = demoAnalysis.positions.filter((p) => p.source === 'ties' && (p.accuracyM ?? 0) >= 0.05);
+    expect(expected.length).toBeGreaterThan(0);
+    expect(circles.map((c) => c.getAttribute('data-accuracy-for')).sort()).toEqual(expected.map((p) => p.itemId).sort());
+    for (const circle of circles) {
+      const position = expected.find((p) => p.itemId === circle.getAttribute('data-accuracy-for'))!;
+      const ring = circle.querySelector('circle')!;
+      expect(Number(ring.getAttribute('r'))).toBeCloseTo(position.accuracyM! * model.ptPerMetre, 1);
+      expect(ring.getAttribute('stroke-dasharray')).not.toBeNull();
+    }
+    // The amplifier was placed by hand (accuracy 0.5 m): no circle, the circle is for tie solutions.
+    expect(circles.some((c) => c.getAttribute('data-accuracy-for') === 'amp-1')).toBe(false);
+  });
+
+  it('should leave out accuracy circles under 5 cm', () => {
+    const precise = { ...demoAnalysis, positions: demoAnalysis.positions.map((p) => (p.source === 'ties' ? { ...p, accuracyM: 0.049 } : p)) };
+    expect(all(parseSvg(drawSitePlan(demo, precise, opts)), '[data-accuracy-for]')).toEqual([]);
   });
 
   it('should mark the shallow station on the plan', () => {
@@ -319,6 +345,16 @@ describe('drawWiringSchematic', () => {
   beforeAll(async () => {
     svg = await drawWiringSchematic(demo, demoAnalysis, opts);
     doc = parseSvg(svg);
+  });
+
+  it('should name the channels a shared run carries by their names, not their ids', async () => {
+    // As a recorded job has them: every id a database uuid-like string, the names as the crew typed them.
+    const renamed = JSON.parse(JSON.stringify(demo).replaceAll('"ch-patio"', '"0d9c1f4e-patio"').replaceAll('"ch-spa"', '"7a2b8e31-spa"')) as AsBuilt;
+    const text = all(parseSvg(await drawWiringSchematic(renamed, analyzeAsBuilt(renamed), opts)), 'text')
+      .map((t) => t.textContent)
+      .join(' ');
+    expect(text).toContain('Patio + Spa');
+    expect(text).not.toContain('0d9c1f4e');
   });
 
   it('should fit the page width in real units', () => {

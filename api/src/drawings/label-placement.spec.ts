@@ -61,6 +61,15 @@ describe(placeLabels.name, () => {
     expect(placeLabels(requests, { bounds: BOUNDS })).toEqual(placeLabels([...requests].reverse(), { bounds: BOUNDS }));
   });
 
+  it('should place labels the same whatever their ids (a recorded job has random uuids)', () => {
+    const requests = [0, 1, 2, 3, 4, 5].map((i) => pointLabel(`l${i}`, 100 + (i % 2) * 3, 100 + i, 50, 9));
+    const renamed = requests.map((r, i) => ({ ...r, id: `z${5 - i}` }));
+    const boxes = (placed: ReturnType<typeof placeLabels>['placed'], ids: string[]) => ids.map((id) => placed.find((p) => p.id === id)?.box);
+    expect(boxes(placeLabels(renamed, { bounds: BOUNDS }).placed, renamed.map((r) => r.id))).toEqual(
+      boxes(placeLabels(requests, { bounds: BOUNDS }).placed, requests.map((r) => r.id)),
+    );
+  });
+
   it('should never overlap two labels or leave the bounds, however crowded (property)', () => {
     const label = fc.record({
       x: fc.double({ min: 0, max: 300, noNaN: true }),

@@ -130,8 +130,15 @@ export function placeLabels(requests: readonly LabelRequest[], options: LabelPla
   for (const box of options.obstacles ?? []) symbols.add(box);
   for (const box of options.softObstacles ?? []) lines.add(box);
 
+  // Ties are broken by where the label belongs before its id: a recorded job's ids are random uuids, and
+  // ordering by them alone would move labels between two copies of the same job.
   const order = [...requests].sort(
-    (a, b) => b.priority - a.priority || b.width * b.height - a.width * a.height || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0),
+    (a, b) =>
+      b.priority - a.priority ||
+      b.width * b.height - a.width * a.height ||
+      a.anchor.y - b.anchor.y ||
+      a.anchor.x - b.anchor.x ||
+      (a.id < b.id ? -1 : a.id > b.id ? 1 : 0),
   );
   const placed: PlacedLabel[] = [];
   const unplaced: string[] = [];

@@ -54,6 +54,17 @@ export interface PlanTie {
   distanceM: number;
 }
 
+/** Smallest solved accuracy drawn as a circle, metres: below this the circle would hide in the symbol. */
+export const ACCURACY_CIRCLE_MIN_M = 0.05;
+
+/** How far off a position solved from ties may be: a dashed circle of the solver's accuracy radius. */
+export interface PlanAccuracy {
+  itemId: string;
+  centre: Point;
+  radiusPt: number;
+  accuracyM: number;
+}
+
 export type LabelKind = 'item' | 'run' | 'reference' | 'tie';
 
 export interface PlanLabel extends PlacedLabel {
@@ -81,6 +92,8 @@ export interface SitePlanModel {
   items: PlanItem[];
   references: PlanReference[];
   ties: PlanTie[];
+  /** Accuracy circles of positions solved from ties (reference-point layer). */
+  accuracy: PlanAccuracy[];
   labels: PlanLabel[];
   /** Labels left off because no free spot was found. */
   omittedLabelCount: number;
@@ -137,6 +150,9 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
   }
 
   const positions = new Map(analysis.positions.map((p) => [p.itemId, { x: p.x, y: p.y }]));
+  const solvedFromTies = analysis.positions.filter(
+    (p) => p.source === 'ties' && p.accuracyM !== null && Number.isFinite(p.accuracyM) && p.accuracyM >= ACCURACY_CIRCLE_MIN_M,
+  );
   const depthByRun = new Map(analysis.depth.map((d) => [d.runId, d]));
   const runResultById = new Map(analysis.runs.map((r) => [r.runId, r]));
   const notShown: SitePlanModel['notShown'] = [];
@@ -229,6 +245,10 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
       }
     }
   }
+
+  const accuracy: PlanAccuracy[] = layers.referencePoints
+    ? solvedFromTies.map((p) => ({ itemId: p.itemId, centre: toPaper(p), radiusPt: p.accuracyM! * k, accuracyM: p.accuracyM! }))
+    : [];
 
   // Labels.
   const requests: (LabelRequest & { kind: LabelKind; forId: string; lines: string[]; fontSize: number })[] = [];
@@ -344,6 +364,7 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
     items,
     references,
     ties,
+    accuracy,
     labels,
     omittedLabelCount: placement.unplaced.length,
     notShown,

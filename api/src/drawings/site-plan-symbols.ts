@@ -166,3 +166,16 @@ export function drawTieLine(parent: Container, from: Point, to: Point): Containe
   head(b, ux, uy);
   return g;
 }
+
+/**
+ * The area a position solved from ties may lie in: a dashed circle of the solver's accuracy radius,
+ * unfilled so the plan image and runs stay visible through it.
+ */
+export function drawAccuracyCircle(parent: Container, centre: Point, radiusPt: number): Container {
+  const g = parent.group();
+  g.circle(r2(2 * radiusPt))
+    .attr({ cx: r2(centre.x), cy: r2(centre.y), 'stroke-dasharray': '2.5 1.8' })
+    .fill('none')
+    .stroke({ color: '#3b5b8c', width: 0.7 });
+  return g;
+}

@@ -8,13 +8,13 @@ import { formatNumber } from './drawing-units.js';
 import { formatScale, paperName } from './paper.js';
 import { BASELINE_EM, LABEL_PAD_PT, LINE_HEIGHT_EM, wrapText, type Box } from './text-box.js';
 import { layoutSitePlan, type RunStyleKey, type SitePlanModel } from './site-plan-layout.js';
-import { drawItemSymbol, drawReferenceSymbol, drawRunLine, drawShallowMarker, drawTieLine } from './site-plan-symbols.js';
+import { drawAccuracyCircle, drawItemSymbol, drawReferenceSymbol, drawRunLine, drawShallowMarker, drawTieLine } from './site-plan-symbols.js';
 import { addText, r2 } from './svg-canvas.js';
 
 export const SITE_PLAN_NOTE = 'Positions are as recorded; verify by hand-digging before any excavation.';
 const LOCATE_NOTE = 'Private low-voltage lines are not marked by public one-call locating services.';
 
-type LegendKey = ItemKind | 'reference_point' | 'tie' | `run:${RunStyleKey}` | 'route_not_recorded' | 'shallow';
+type LegendKey = ItemKind | 'reference_point' | 'tie' | 'accuracy' | `run:${RunStyleKey}` | 'route_not_recorded' | 'shallow';
 
 const LEGEND: readonly { key: LegendKey; text: string }[] = [
   { key: 'amplifier', text: 'Amplifier' },
@@ -25,6 +25,7 @@ const LEGEND: readonly { key: LegendKey; text: string }[] = [
   { key: 'wall_entry', text: 'Wall entry' },
   { key: 'reference_point', text: 'Reference point' },
   { key: 'tie', text: 'Tie (taped distance)' },
+  { key: 'accuracy', text: 'Possible position (tie accuracy)' },
   { key: 'run:direct_burial', text: 'Direct-burial cable' },
   { key: 'run:conduit', text: 'Cable in conduit' },
   { key: 'run:under_hardscape_sleeve', text: 'Sleeve under paving' },
@@ -41,6 +42,7 @@ export function sitePlanLegendKeys(model: SitePlanModel): LegendKey[] {
   for (const item of model.items) present.add(item.kind);
   if (model.references.length > 0) present.add('reference_point');
   if (model.ties.length > 0) present.add('tie');
+  if (model.accuracy.length > 0) present.add('accuracy');
   for (const run of model.runs) {
     if (run.isRouteRecorded) present.add(`run:${run.style}`);
     else present.add('route_not_recorded');
@@ -99,6 +101,9 @@ export function renderSitePlan(model: SitePlanModel, options: SitePlanOptions): 
     for (const s of run.shallow) drawShallowMarker(shallow, s.point).attr({ 'data-shallow-run': run.runId, 'data-station-m': s.stationM });
   }
   const refs = plan.group().attr('data-layer', 'reference-points');
+  for (const a of model.accuracy) {
+    drawAccuracyCircle(refs, a.centre, a.radiusPt).attr({ 'data-accuracy-for': a.itemId, 'data-accuracy-m': r2(a.accuracyM) });
+  }
   for (const ref of model.references) drawReferenceSymbol(refs, ref.point).attr({ 'data-id': ref.referencePointId, 'data-kind': 'reference_point' });
   const items = plan.group().attr('data-layer', 'items');
   for (const item of model.items) drawItemSymbol(items, item.kind, item.point).attr({ 'data-id': item.itemId, 'data-kind': item.kind });
@@ -206,6 +211,7 @@ function drawLegendSwatch(g: Container, key: LegendKey, x: number, y: number): v
   const c = { x: x + 9, y };
   if (key === 'reference_point') drawReferenceSymbol(g, c);
   else if (key === 'tie') drawTieLine(g, { x: x - 6.5, y }, { x: x + 24.5, y });
+  else if (key === 'accuracy') drawAccuracyCircle(g, c, 4.5);
   else if (key === 'shallow') drawShallowMarker(g, c);
   else if (key === 'route_not_recorded') drawRunLine(g, 'direct_burial', [{ x, y }, { x: x + 18, y }], false);
   else if (key.startsWith('run:')) drawRunLine(g, key.slice(4) as RunStyleKey, [{ x, y }, { x: x + 18, y }], true);

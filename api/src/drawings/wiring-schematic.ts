@@ -12,8 +12,12 @@ import { printableArea, type Orientation, type PaperSize } from './paper.js';
 import { addText, pointsAttr, r2 } from './svg-canvas.js';
 import { BASELINE_EM, LINE_HEIGHT_EM, textWidth, wrapText } from './text-box.js';
 
-// Under `module: nodenext` the d.ts default import is typed as the namespace (VERSIONS.md).
-const ELK = ELKImport as unknown as typeof ELKImport.default;
+/** The one method of elkjs the schematic uses. */
+type ElkLayoutEngine = new () => { layout(graph: ElkNode): Promise<ElkNode> };
+// The CommonJS module is the ELK class and also carries it as `default`. A default import is typed as
+// the namespace under the API's `module: nodenext` (VERSIONS.md) and as the class under the web app's
+// bundler resolution, so take the class whichever way this file is compiled.
+const ELK = ((ELKImport as unknown as { default?: ElkLayoutEngine }).default ?? ELKImport) as unknown as ElkLayoutEngine;
 
 export interface WiringSchematicOptions extends DrawingBaseOptions {
   paper?: PaperSize;
@@ -170,12 +174,20 @@ function buildGraph(asBuilt: AsBuilt, analysis: AsBuiltAnalysis): { nodes: Schem
     if (from.kind === 'amplifier' || to.kind === 'amplifier') continue;
     addItemNode(from.id);
     addItemNode(to.id);
-    const names = channelRefs.length > 1 ? ` · ${channelRefs.map((c) => c.channelId.replace(/^ch-/, '')).join(' + ')}` : '';
+    // Channels by their names: ids are database uuids in a recorded job, meaningless on a drawing.
+    const names = channelRefs.length > 1 ? ` · ${channelRefs.map((c) => channelName(asBuilt, c.amplifierItemId, c.channelId)).join(' + ')}` : '';
     edges.push({ id: `edge:${run.id}`, runId: run.id, source: `item:${from.id}`, target: `item:${to.id}`, ...wrapLines([run.label, `${tag}${gauge}${names}`], EDGE_MAX_CHARS), isDead });
   }
   // Speakers and subwoofers on no run at all still appear, unconnected.
   for (const item of asBuilt.items) if (item.kind === 'speaker' || item.kind === 'subwoofer') addItemNode(item.id);
   return { nodes, edges };
+}
+
+/** A channel's recorded name (its id only when the amplifier or channel is missing from the record). */
+function channelName(asBuilt: AsBuilt, amplifierItemId: string, channelId: string): string {
+  const amp = asBuilt.items.find((item) => item.id === amplifierItemId);
+  const channel = amp?.kind === 'amplifier' ? amp.channels.find((c) => c.id === channelId) : undefined;
+  return channel?.name ?? channelId;
 }
 
 /** Ids of nodes joined (ignoring direction) to at least one channel node. */

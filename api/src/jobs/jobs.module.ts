@@ -1,5 +1,8 @@
 import { Module } from '@nestjs/common';
 
+import { SitesModule } from '../sites/sites.module.js';
+import { JobDrawingsController } from './job-drawings.controller.js';
+import { JobDrawingsService } from './job-drawings.service.js';
 import { JobRecordsController } from './job-records.controller.js';
 import { JobRecordsService } from './job-records.service.js';
 import { JobWriter } from './job-writer.js';
@@ -8,7 +11,8 @@ import { JobsRepository } from './jobs.repository.js';
 import { JobsService } from './jobs.service.js';
 
 @Module({
-  controllers: [JobsController, JobRecordsController],
-  providers: [JobsService, JobRecordsService, JobWriter, JobsRepository],
+  imports: [SitesModule],
+  controllers: [JobsController, JobRecordsController, JobDrawingsController],
+  providers: [JobsService, JobRecordsService, JobWriter, JobsRepository, JobDrawingsService],
 })
 export class JobsModule {}

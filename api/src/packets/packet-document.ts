@@ -7,10 +7,9 @@ import QRCode from 'qrcode';
 
 import { buildPacketViewModel, type PacketViewModel, type PacketViewModelInput } from '../domain/packet/packet.view-model.js';
 import type { PacketSnapshot } from '../domain/packet/packet-snapshot.js';
-import { drawDepthProfile } from '../drawings/depth-profile.js';
+import type { PlanImage } from '../drawings/drawing-options.js';
+import { drawJobDepthProfile, drawJobSchematic, drawJobSitePlan, jobTitleBlock } from '../drawings/job-drawings.js';
 import { createNodeSvgCanvas } from '../drawings/node-svg-window.js';
-import { drawSitePlan } from '../drawings/site-plan.js';
-import { drawWiringSchematic } from '../drawings/wiring-schematic.js';
 import { type ChromiumPrinter } from './chromium-printer.js';
 import { readPdfOutline } from './pdf-destinations.js';
 
@@ -85,22 +84,25 @@ function loadAssets(): PacketAssets {
   return assets;
 }
 
-/** The three kinds of drawing of the snapshot's as-built, in the packet's units and paper. */
-export async function drawPacketDrawings(snapshot: PacketSnapshot, vm: PacketViewModel): Promise<PacketDrawings> {
-  const { asBuilt, analysis, settings } = snapshot;
-  const createCanvas = createNodeSvgCanvas;
-  const units = settings.units;
-  const titleBlock = {
-    title: snapshot.job.title,
-    subtitle: [snapshot.site.label, snapshot.site.addressLine1].join(', '),
-    revision: String(snapshot.revision),
+/**
+ * The three kinds of drawing of the snapshot's as-built, in the packet's units and paper, through the
+ * same functions as the drawing routes and the web app (drawings/job-drawings.ts). `planImage` is the
+ * site's calibrated plan image, drawn under the site plan when the site has one.
+ */
+export async function drawPacketDrawings(snapshot: PacketSnapshot, vm: PacketViewModel, planImage?: PlanImage): Promise<PacketDrawings> {
+  const input = { asBuilt: snapshot.asBuilt, analysis: snapshot.analysis, createCanvas: createNodeSvgCanvas, units: snapshot.settings.units };
+  const titleBlock = jobTitleBlock({
+    jobTitle: snapshot.job.title,
+    siteLabel: snapshot.site.label,
+    place: snapshot.site.addressLine1,
+    revision: snapshot.revision,
     date: vm.cover.issuedDate,
     preparedBy: snapshot.company.name,
-  };
+  });
   return {
-    sitePlan: drawSitePlan(asBuilt, analysis, { createCanvas, units, paper: settings.paperSize, orientation: 'portrait', titleBlock }),
-    schematic: await drawWiringSchematic(asBuilt, analysis, { createCanvas, units }),
-    profiles: vm.cables.profileRunIds.map((p) => ({ ...p, svg: drawDepthProfile(asBuilt, analysis, p.runId, { createCanvas, units }) })),
+    sitePlan: drawJobSitePlan(input, { paper: snapshot.settings.paperSize, titleBlock, ...(planImage ? { planImage } : {}) }),
+    schematic: await drawJobSchematic(input),
+    profiles: vm.cables.profileRunIds.map((p) => ({ ...p, svg: drawJobDepthProfile(input, p.runId) })),
   };
 }
 
@@ -180,10 +182,10 @@ export interface RenderedPacket {
  */
 export async function renderPacket(
   printer: ChromiumPrinter,
-  input: Omit<PacketViewModelInput, 'pageNumbers'> & { logoDataUri?: string; onBlockedRequest?: (url: string) => void },
+  input: Omit<PacketViewModelInput, 'pageNumbers'> & { logoDataUri?: string; planImage?: PlanImage; onBlockedRequest?: (url: string) => void },
 ): Promise<RenderedPacket> {
   const draft = buildPacketViewModel(input);
-  const [drawings, qrSvg] = await Promise.all([drawPacketDrawings(input.snapshot, draft), qrCodeSvg(input.locateUrl)]);
+  const [drawings, qrSvg] = await Promise.all([drawPacketDrawings(input.snapshot, draft, input.planImage), qrCodeSvg(input.locateUrl)]);
   const footerTemplate = renderFooterTemplate(draft);
   const firstHtml = renderPacketHtml({
     vm: { ...draft, photos: draft.photos.map((p) => ({ ...p, dataUri: PLACEHOLDER_IMAGE })) },

@@ -5,6 +5,7 @@ import { ConflictException, Inject, Injectable, InternalServerErrorException, Lo
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { isUniqueViolation } from '../common/db-errors.js';
+import type { Site } from '../db/schema/index.js';
 import { analyzeAsBuilt } from '../domain/analysis/analyze.js';
 import { canIssuePacket } from '../domain/jobs/job-rules.js';
 import type { PacketSnapshot } from '../domain/packet/packet-snapshot.js';
@@ -12,6 +13,7 @@ import { toAsBuilt, toChannelSetup } from '../jobs/as-built-rows.js';
 import { denied, jobNotFound, versionConflict } from '../jobs/job-errors.js';
 import { JobsRepository } from '../jobs/jobs.repository.js';
 import { LocateLinksService } from '../locate/locate-links.service.js';
+import { planCalibrationOf } from '../sites/plan-image-ref.js';
 import { OBJECT_STORAGE, type ObjectStorage } from '../storage/object-storage.js';
 import { PacketQueue } from './packet-queue.js';
 import { type PacketRevisionSummary, PacketsRepository } from './packets.repository.js';
@@ -70,6 +72,13 @@ export interface PacketFile {
  * Issuing handover packets: freezes the job's as-built into a revision snapshot, moves the job to
  * `issued` and queues the render, all or nothing; lists revisions; serves their verified files.
  */
+/** The site's plan image for the snapshot, when it has one and it is calibrated (otherwise it cannot be placed). */
+function snapshotPlanImage(site: Site): Pick<PacketSnapshot['site'], 'planImage'> {
+  const calibration = planCalibrationOf(site);
+  if (calibration === null || site.planImageScreenRef === null || site.planImageWidthPx === null || site.planImageHeightPx === null) return {};
+  return { planImage: { screenKey: site.planImageScreenRef, widthPx: site.planImageWidthPx, heightPx: site.planImageHeightPx, calibration } };
+}
+
 @Injectable()
 export class PacketsService {
   private readonly logger = new Logger(PacketsService.name);
@@ -128,6 +137,7 @@ export class PacketsService {
           region: place.site.region,
           postalCode: place.site.postalCode,
           country: place.site.country,
+          ...snapshotPlanImage(place.site),
         },
         customer: place.customer,
         crewLead: job.crewLeadUserId && view.crewLeadName !== null ? { id: job.crewLeadUserId, name: view.crewLeadName } : null,

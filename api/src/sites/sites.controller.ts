@@ -52,7 +52,8 @@ export class SitesController {
   }
 
   @Patch(':id')
-  @Roles('admin', 'office')
+  @ApiOperation({ summary: 'Change a site (a crew lead: only planCalibration and northAzimuthDeg)' })
+  @Roles('admin', 'office', 'lead')
   update(
     @CurrentUser() user: AuthUser,
     @Param('id', ParseUUIDPipe) id: string,

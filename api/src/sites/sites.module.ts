@@ -1,8 +1,22 @@
 import { Module } from '@nestjs/common';
 
+import { UsersModule } from '../users/users.module.js';
+import { PlanImageProcessor } from './plan-image-processor.js';
+import { PlanImageUploadInterceptor } from './plan-image-upload.interceptor.js';
+import { SiteHomeownersController } from './site-homeowners.controller.js';
+import { SiteHomeownersService } from './site-homeowners.service.js';
+import { SitePlanImageController } from './site-plan-image.controller.js';
+import { SitePlanImagesService } from './site-plan-images.service.js';
 import { SitesController } from './sites.controller.js';
 import { SitesRepository } from './sites.repository.js';
 import { SitesService } from './sites.service.js';
 
-@Module({ controllers: [SitesController], providers: [SitesService, SitesRepository] })
+@Module({
+  // Homeowners without an account are invited through the users' invitation flow.
+  imports: [UsersModule],
+  controllers: [SitesController, SitePlanImageController, SiteHomeownersController],
+  providers: [SitesService, SitesRepository, SitePlanImagesService, PlanImageProcessor, PlanImageUploadInterceptor, SiteHomeownersService],
+  // The drawing routes of a job put the site's plan image underneath.
+  exports: [SitePlanImagesService],
+})
 export class SitesModule {}

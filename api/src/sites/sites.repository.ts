@@ -128,6 +128,26 @@ export class SitesRepository {
     return rows.length > 0;
   }
 
+  /** The site when `userId` is a homeowner linked to it (site_homeowners). */
+  async findLinkedToHomeowner(userId: string, siteId: string): Promise<Site | undefined> {
+    const [row] = await this.db
+      .select({ site: sites })
+      .from(sites)
+      .innerJoin(siteHomeowners, and(eq(siteHomeowners.siteId, sites.id), eq(siteHomeowners.userId, userId)))
+      .where(eq(sites.id, siteId));
+    return row?.site;
+  }
+
+  /** Locks the site row for a plan-image change (two uploads at once: the last one wins, cleanly). */
+  async lockInCompany(companyId: string, id: string, tx: Tx): Promise<Site | undefined> {
+    const [row] = await tx
+      .select()
+      .from(sites)
+      .where(and(eq(sites.companyId, companyId), eq(sites.id, id)))
+      .for('update');
+    return row;
+  }
+
   async homeownerInCompany(companyId: string, userId: string, tx: Tx): Promise<boolean> {
     const [row] = await tx
       .select({ id: users.id })

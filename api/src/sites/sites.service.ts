@@ -1,4 +1,4 @@
-import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
+import { BadRequestException, ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
@@ -8,6 +8,7 @@ import type { NewSite, ReferencePointRow } from '../db/schema/index.js';
 import type {
   CreateReferencePointInput,
   CreateSiteInput,
+  PlanCalibration,
   ReferencePointResponse,
   SiteListQuery,
   SiteResponse,
@@ -15,6 +16,7 @@ import type {
   UpdateReferencePointInput,
   UpdateSiteInput,
 } from '../domain/sites/site.schema.js';
+import { planCalibrationOf, toPlanImageResponse } from './plan-image-ref.js';
 import { type SiteWithCustomer, SitesRepository } from './sites.repository.js';
 
 function toSiteSummary({ site, customer }: SiteWithCustomer): SiteSummaryResponse {
@@ -53,7 +55,14 @@ function toSiteColumns(input: UpdateSiteInput): Partial<NewSite> {
   };
 }
 
+function invalidField(path: string, message: string): BadRequestException {
+  return new BadRequestException({ message: `${path}: ${message}`, code: 'VALIDATION_FAILED', issues: [{ path, message }] });
+}
+
 const siteNotFound = () => new NotFoundException({ message: 'No such site.', code: 'SITE_NOT_FOUND' });
+
+/** What a crew lead may change on a site: the plan's frame, which they set up on site. */
+const LEAD_EDITABLE_SITE_FIELDS = new Set(['planCalibration', 'northAzimuthDeg']);
 
 @Injectable()
 export class SitesService {
@@ -79,11 +88,8 @@ export class SitesService {
       ...toSiteSummary(found),
       northAzimuthDeg: site.northAzimuthDeg,
       origin: site.originLat !== null && site.originLon !== null ? { lat: site.originLat, lon: site.originLon } : null,
-      planImageRef: site.planImageRef,
-      planCalibration:
-        site.planCalAx !== null && site.planCalAy !== null && site.planCalBx !== null && site.planCalBy !== null && site.planCalDistanceM !== null
-          ? { a: { x: site.planCalAx, y: site.planCalAy }, b: { x: site.planCalBx, y: site.planCalBy }, distanceM: site.planCalDistanceM }
-          : null,
+      planImage: toPlanImageResponse(site),
+      planCalibration: planCalibrationOf(site),
       notes: site.notes,
       referencePoints: points.map(toReferencePoint),
       homeowners,
@@ -120,13 +126,40 @@ export class SitesService {
   }
 
   async update(actor: AuthUser, id: string, input: UpdateSiteInput): Promise<SiteResponse> {
+    if (actor.role === 'lead') {
+      // A crew lead on site sets the plan's frame (calibration, north); the rest is the office's.
+      const refused = Object.keys(input).filter((key) => !LEAD_EDITABLE_SITE_FIELDS.has(key));
+      if (refused.length > 0) {
+        throw new ForbiddenException({
+          message: `A crew lead may change only the plan calibration and north of a site, not ${refused.join(', ')}.`,
+          code: 'FORBIDDEN_FIELDS',
+          issues: refused.map((path) => ({ path, message: 'only the office may change this' })),
+        });
+      }
+    }
     return this.repository.transaction(async (tx) => {
       if (input.customerId) await this.requireCustomer(actor, input.customerId, tx);
+      if (input.planCalibration) await this.requireCalibrationFits(actor, id, input.planCalibration, tx);
       const site = await this.repository.updateInCompany(actor.companyId, id, toSiteColumns(input), tx);
       if (!site) throw siteNotFound();
       await this.record(actor, 'site.update', 'site', id, tx, { fields: Object.keys(input) });
       return this.get(actor, id, tx);
     });
+  }
+
+  /** 400 naming `planCalibration` without an uploaded image, or with a point outside the image. */
+  private async requireCalibrationFits(actor: AuthUser, id: string, calibration: PlanCalibration, tx: Tx): Promise<void> {
+    const site = await this.repository.lockInCompany(actor.companyId, id, tx);
+    if (!site) throw siteNotFound();
+    if (site.planImageWidthPx === null || site.planImageHeightPx === null) {
+      throw invalidField('planCalibration', 'the site has no plan image: upload one (PUT /api/sites/:id/plan-image), then calibrate it');
+    }
+    for (const key of ['a', 'b'] as const) {
+      const p = calibration[key];
+      if (p.x > site.planImageWidthPx || p.y > site.planImageHeightPx) {
+        throw invalidField(`planCalibration.${key}`, `lies outside the ${site.planImageWidthPx}×${site.planImageHeightPx} px plan image`);
+      }
+    }
   }
 
   /** Refused (409) while the site has jobs: they are its history. */

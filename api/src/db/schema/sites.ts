@@ -4,6 +4,7 @@ import {
   check,
   doublePrecision,
   index,
+  integer,
   pgTable,
   primaryKey,
   text,
@@ -43,8 +44,14 @@ export const sites = pgTable(
     /** WGS84 position of plan (0, 0); both or neither. */
     originLat: doublePrecision('origin_lat'),
     originLon: doublePrecision('origin_lon'),
-    /** Storage key of the uploaded site-plan image. */
+    /** Storage key of the uploaded site-plan image (normalised: upright, no metadata, ≤ 4000 px). */
     planImageRef: text('plan_image_ref'),
+    /** Storage key of the screen-size copy (≤ 2000 px JPEG) that drawings embed. */
+    planImageScreenRef: text('plan_image_screen_ref'),
+    /** Size of the stored image in pixels: the calibration points are in this pixel space. */
+    planImageWidthPx: integer('plan_image_width_px'),
+    planImageHeightPx: integer('plan_image_height_px'),
+    planImageContentType: text('plan_image_content_type'),
     planCalAx: doublePrecision('plan_cal_a_x'),
     planCalAy: doublePrecision('plan_cal_a_y'),
     planCalBx: doublePrecision('plan_cal_b_x'),
@@ -59,6 +66,12 @@ export const sites = pgTable(
     index('sites_company_id_label_idx').on(t.companyId, t.label),
     index('sites_customer_id_idx').on(t.customerId),
     check('sites_origin_complete', sql`(${t.originLat} is null) = (${t.originLon} is null)`),
+    check(
+      'sites_plan_image_complete',
+      sql`(${t.planImageRef} is null) = (${t.planImageScreenRef} is null) and (${t.planImageRef} is null) = (${t.planImageWidthPx} is null)
+        and (${t.planImageRef} is null) = (${t.planImageHeightPx} is null) and (${t.planImageRef} is null) = (${t.planImageContentType} is null)`,
+    ),
+    check('sites_plan_calibration_needs_image', sql`${t.planCalDistanceM} is null or ${t.planImageRef} is not null`),
     check(
       'sites_plan_calibration_complete',
       sql`(${t.planCalAx} is null) = (${t.planCalDistanceM} is null) and (${t.planCalAy} is null) = (${t.planCalDistanceM} is null)

@@ -44,6 +44,16 @@ export interface PacketSnapshot {
     region: string | null;
     postalCode: string | null;
     country: string;
+    /**
+     * The site's calibrated plan image at issue time (the storage key of its screen-size copy), drawn
+     * under the site plan. Absent when the site had no image or no calibration, and in older snapshots.
+     */
+    planImage?: {
+      screenKey: string;
+      widthPx: number;
+      heightPx: number;
+      calibration: { a: { x: number; y: number }; b: { x: number; y: number }; distanceM: number };
+    };
   };
   customer: { id: string; name: string; email: string | null; phone: string | null };
   crewLead: { id: string; name: string } | null;

@@ -31,12 +31,17 @@ const siteFields = {
     .object({ lat: z.number().finite().min(-89.9).max(89.9), lon: z.number().finite().min(-180).max(180) })
     .nullable()
     .optional(),
-  planImageRef: z.string().trim().min(1).max(500).nullable().optional(),
+  /** Set by uploading the image (PUT /api/sites/:id/plan-image), never by name: refused here. */
+  planImageRef: z.never({ error: 'is set by uploading the image to PUT /api/sites/:id/plan-image' }).optional(),
+  /** Pixels of the uploaded plan image; refused (400) while the site has no image. */
   planCalibration: PlanCalibrationSchema.nullable().optional(),
   notes: z.string().max(2000).nullable().optional(),
 };
 
-export const CreateSiteSchema = z.object(siteFields);
+export const CreateSiteSchema = z.object({
+  ...siteFields,
+  planCalibration: z.never({ error: 'upload the plan image first (PUT /api/sites/:id/plan-image), then calibrate it' }).optional(),
+});
 export type CreateSiteInput = z.infer<typeof CreateSiteSchema>;
 
 export const UpdateSiteSchema = z
@@ -87,10 +92,19 @@ export interface SiteSummaryResponse {
   country: string;
 }
 
+/** The uploaded site-plan image: its stored size (the calibration's pixel space) and where to fetch it. */
+export interface PlanImageResponse {
+  widthPx: number;
+  heightPx: number;
+  contentType: string;
+  /** `/api/sites/:id/plan-image?v=<hash>`; `v` changes whenever the image is replaced. */
+  url: string;
+}
+
 export interface SiteResponse extends SiteSummaryResponse {
   northAzimuthDeg: number;
   origin: { lat: number; lon: number } | null;
-  planImageRef: string | null;
+  planImage: PlanImageResponse | null;
   planCalibration: PlanCalibration | null;
   notes: string | null;
   referencePoints: ReferencePointResponse[];
@@ -99,3 +113,14 @@ export interface SiteResponse extends SiteSummaryResponse {
   createdAt: string;
   updatedAt: string;
 }
+
+/** After a plan-image upload: the site, and whether an old calibration was dropped (its pixels no longer apply). */
+export interface PlanImageUploadResponse extends SiteResponse {
+  wasCalibrationCleared: boolean;
+}
+
+/** Largest plan-image upload, bytes. */
+export const PLAN_IMAGE_MAX_BYTES = 20 * 1024 * 1024;
+/** Longest side of the stored plan image, and of the copy drawings embed, pixels. */
+export const PLAN_IMAGE_MAX_SIDE_PX = 4000;
+export const PLAN_IMAGE_SCREEN_SIDE_PX = 2000;

@@ -1,0 +1,82 @@
+import { Controller, Get, Param, ParseUUIDPipe, Query, Res } from '@nestjs/common';
+import { ApiBearerAuth, ApiOperation, ApiProduces, ApiQuery, ApiTags } from '@nestjs/swagger';
+import type { Response } from 'express';
+
+import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
+import { Roles } from '../common/decorators/roles.decorator.js';
+import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
+import {
+  type DrawingQuery,
+  DrawingQuerySchema,
+  SITE_PLAN_LAYER_NAMES,
+  type SitePlanDrawingQuery,
+  SitePlanDrawingQuerySchema,
+} from '../domain/jobs/job-drawings.schema.js';
+import { JobDrawingsService } from './job-drawings.service.js';
+
+const uuid = new ParseUUIDPipe();
+
+/**
+ * An SVG file holds our own markup and, at most, the plan image as a data: URL. Opened on its own in a
+ * browser it may run nothing and load nothing else.
+ */
+function sendSvg(res: Response, svg: string, fileName: string): void {
+  res.set({
+    'Content-Type': 'image/svg+xml; charset=utf-8',
+    'Content-Security-Policy': "default-src 'none'; style-src 'unsafe-inline'; img-src data:",
+    'Content-Disposition': `inline; filename="${fileName}"`,
+    'Cache-Control': 'private, no-cache',
+    'X-Content-Type-Options': 'nosniff',
+  });
+  res.send(svg);
+}
+
+@ApiTags('jobs')
+@ApiBearerAuth()
+@Roles('admin', 'office', 'lead', 'tech')
+@Controller('jobs/:id/drawings')
+export class JobDrawingsController {
+  constructor(private readonly drawings: JobDrawingsService) {}
+
+  @Get('site-plan.svg')
+  @ApiProduces('image/svg+xml')
+  @ApiOperation({ summary: 'The site plan of the current as-built, to scale on a Letter or A4 sheet, with the site’s calibrated plan image underneath' })
+  @ApiQuery({ name: 'units', required: false, enum: ['metric', 'imperial'] })
+  @ApiQuery({ name: 'paper', required: false, enum: ['letter', 'a4'] })
+  @ApiQuery({ name: 'layers', required: false, description: `Layers to turn off, comma-separated: ${SITE_PLAN_LAYER_NAMES.join(', ')}` })
+  async sitePlan(
+    @CurrentUser() user: AuthUser,
+    @Param('id', uuid) id: string,
+    @Query(new ZodValidationPipe(SitePlanDrawingQuerySchema)) query: SitePlanDrawingQuery,
+    @Res() res: Response,
+  ): Promise<void> {
+    sendSvg(res, await this.drawings.sitePlan(user, id, query), 'site-plan.svg');
+  }
+
+  @Get('schematic.svg')
+  @ApiProduces('image/svg+xml')
+  @ApiOperation({ summary: 'The wiring schematic of the current as-built: amplifier channels → runs → items, with the load per channel' })
+  @ApiQuery({ name: 'units', required: false, enum: ['metric', 'imperial'] })
+  async schematic(
+    @CurrentUser() user: AuthUser,
+    @Param('id', uuid) id: string,
+    @Query(new ZodValidationPipe(DrawingQuerySchema)) query: DrawingQuery,
+    @Res() res: Response,
+  ): Promise<void> {
+    sendSvg(res, await this.drawings.schematic(user, id, query), 'schematic.svg');
+  }
+
+  @Get('runs/:runId/depth-profile.svg')
+  @ApiProduces('image/svg+xml')
+  @ApiOperation({ summary: 'The depth profile of one run: readings along the trench against the rule minimum' })
+  @ApiQuery({ name: 'units', required: false, enum: ['metric', 'imperial'] })
+  async depthProfile(
+    @CurrentUser() user: AuthUser,
+    @Param('id', uuid) id: string,
+    @Param('runId', uuid) runId: string,
+    @Query(new ZodValidationPipe(DrawingQuerySchema)) query: DrawingQuery,
+    @Res() res: Response,
+  ): Promise<void> {
+    sendSvg(res, await this.drawings.depthProfile(user, id, runId, query), `depth-profile-${runId}.svg`);
+  }
+}

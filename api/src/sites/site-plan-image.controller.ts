@@ -1,0 +1,66 @@
+import { Controller, Delete, Get, Param, ParseUUIDPipe, Put, Req, Res, UploadedFile, UseInterceptors } from '@nestjs/common';
+import { FileInterceptor } from '@nestjs/platform-express';
+import { ApiBearerAuth, ApiBody, ApiConsumes, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
+import type { Request, Response } from 'express';
+
+import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
+import { Roles } from '../common/decorators/roles.decorator.js';
+import { PLAN_IMAGE_MAX_BYTES, type PlanImageUploadResponse, type SiteResponse } from '../domain/sites/site.schema.js';
+import { PlanImageUploadInterceptor } from './plan-image-upload.interceptor.js';
+import { SitePlanImagesService, type UploadedPlanFile } from './site-plan-images.service.js';
+
+/**
+ * The site-plan image: the office or a crew lead uploads a scan or photo of the drawing, the office
+ * calibrates it (PATCH /api/sites/:id { planCalibration }), and every drawing of the site's jobs
+ * draws on top of it.
+ */
+@ApiTags('sites')
+@ApiBearerAuth()
+@Controller('sites/:siteId/plan-image')
+export class SitePlanImageController {
+  constructor(private readonly planImages: SitePlanImagesService) {}
+
+  @Put()
+  @Roles('admin', 'office', 'lead')
+  @ApiConsumes('multipart/form-data')
+  @ApiOperation({
+    summary: 'Upload or replace the site-plan image (JPEG, PNG or WebP, sniffed from the bytes, at most 20 MB)',
+    description:
+      'Stored upright without metadata, longest side at most 4000 px (PNG stays PNG, anything else becomes JPEG). ' +
+      'Replacing the image clears the calibration, whose pixel points no longer apply: `wasCalibrationCleared` says so.',
+  })
+  @ApiBody({ schema: { type: 'object', required: ['file'], properties: { file: { type: 'string', format: 'binary' } } } })
+  @ApiResponse({ status: 413, description: 'Larger than 20 MB, or more pixels than UPLOAD_MAX_INPUT_PIXELS' })
+  @ApiResponse({ status: 415, description: 'Not a JPEG, PNG or WebP image (HEIC included)' })
+  // Outermost first: the interceptor sees Multer's errors.
+  @UseInterceptors(PlanImageUploadInterceptor, FileInterceptor('file', { limits: { fileSize: PLAN_IMAGE_MAX_BYTES, files: 1, fields: 10 } }))
+  upload(
+    @CurrentUser() user: AuthUser,
+    @Param('siteId', ParseUUIDPipe) siteId: string,
+    @UploadedFile() file: UploadedPlanFile | undefined,
+  ): Promise<PlanImageUploadResponse> {
+    return this.planImages.upload(user, siteId, file);
+  }
+
+  @Get()
+  @Roles('admin', 'office', 'lead', 'tech', 'homeowner')
+  @ApiOperation({ summary: 'The site-plan image (staff of the company; a homeowner for their own sites)' })
+  async file(@CurrentUser() user: AuthUser, @Param('siteId', ParseUUIDPipe) siteId: string, @Req() req: Request, @Res() res: Response): Promise<void> {
+    const content = await this.planImages.open(user, siteId);
+    // Revalidated on every use: the URL carries ?v=, but the same site may get a new image.
+    res.set({ ETag: content.etag, 'Cache-Control': 'private, max-age=0, must-revalidate', Vary: 'Authorization' });
+    if (req.headers['if-none-match'] === content.etag) {
+      res.status(304).end();
+      return;
+    }
+    res.set({ 'Content-Type': content.contentType, 'Content-Length': String(content.body.length), 'X-Content-Type-Options': 'nosniff' });
+    res.end(content.body);
+  }
+
+  @Delete()
+  @Roles('admin', 'office', 'lead')
+  @ApiOperation({ summary: 'Remove the site-plan image and its calibration' })
+  remove(@CurrentUser() user: AuthUser, @Param('siteId', ParseUUIDPipe) siteId: string): Promise<SiteResponse> {
+    return this.planImages.remove(user, siteId);
+  }
+}
