@@ -15,7 +15,7 @@ import {
   root,
   stopPostgres,
 } from './lib/setup.mjs';
-import { seedDemo } from './lib/seed.mjs';
+import { seedDemoUnlessDisabled } from './lib/seed.mjs';
 
 const apiPort = process.env.API_PORT ?? '3001';
 const webPort = process.env.PORT ?? '3000';
@@ -42,7 +42,7 @@ pg = ensurePostgres();
 const databaseUrl = await ensureDatabase(pg, pg.external ? undefined : 'loamline');
 await migrate(databaseUrl);
 ensureApiBuilt();
-const demo = await seedDemo(databaseUrl);
+const demo = await seedDemoUnlessDisabled(databaseUrl);
 
 start('npx', ['tsc', '-p', 'api/tsconfig.build.json', '--watch', '--preserveWatchOutput'], { cwd: root });
 start(process.execPath, ['--watch-path', join(root, 'api/dist'), join(root, 'api/dist/main.js')], {

@@ -17,7 +17,7 @@ import {
   root,
   stopPostgres,
 } from './lib/setup.mjs';
-import { seedDemo } from './lib/seed.mjs';
+import { seedDemoUnlessDisabled } from './lib/seed.mjs';
 
 const port = process.env.PORT ?? '3000';
 const host = process.env.HOST ?? '127.0.0.1';
@@ -48,7 +48,7 @@ try {
   log(`database ${redact(databaseUrl)}`);
   await migrate(databaseUrl);
   ensureApiBuilt();
-  const demo = await seedDemo(databaseUrl);
+  const demo = await seedDemoUnlessDisabled(databaseUrl);
   ensureWebBuilt();
 
   server = spawn(process.execPath, [join(root, 'api/dist/main.js')], {

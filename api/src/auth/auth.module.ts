@@ -6,6 +6,7 @@ import { ThrottlerModule } from '@nestjs/throttler';
 import type { Request } from 'express';
 
 import type { Env } from '../config/env.schema.js';
+import { OutgoingMailModule } from '../outgoing-mail/outgoing-mail.module.js';
 import { AuthController } from './auth.controller.js';
 import { AuthRepository } from './auth.repository.js';
 import { AuthService } from './auth.service.js';
@@ -21,6 +22,7 @@ function accountTracker(req: Record<string, unknown>): Promise<string> {
 
 @Module({
   imports: [
+    OutgoingMailModule,
     PassportModule,
     JwtModule.registerAsync({
       inject: [ConfigService],

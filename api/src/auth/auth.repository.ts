@@ -90,8 +90,9 @@ export class AuthRepository {
       .where(and(eq(refreshSessions.userId, userId), isNull(refreshSessions.revokedAt)));
   }
 
-  async insertPasswordReset(userId: string, tokenHash: string, expiresAt: Date): Promise<void> {
-    await this.db.insert(passwordResetTokens).values({ userId, tokenHash, expiresAt });
+  async insertPasswordReset(userId: string, tokenHash: string, expiresAt: Date, tx: Tx): Promise<string> {
+    const [row] = await tx.insert(passwordResetTokens).values({ userId, tokenHash, expiresAt }).returning({ id: passwordResetTokens.id });
+    return row!.id;
   }
 
   /** Consumes an unexpired, unused reset token; returns its user id, or undefined. Single use. */

@@ -15,8 +15,7 @@ import type {
   ResetPasswordInput,
   SessionResponse,
 } from '../domain/auth/auth.schema.js';
-import { LinkBuilder } from '../mail/link-builder.js';
-import { MailService } from '../mail/mail.service.js';
+import { OutgoingMailService } from '../outgoing-mail/outgoing-mail.service.js';
 import { AuthRepository, type UserWithCompany } from './auth.repository.js';
 import { PasswordHasher } from './password-hasher.js';
 import { hashToken, newOpaqueToken } from './tokens.js';
@@ -62,8 +61,7 @@ export class AuthService {
     private readonly jwt: JwtService,
     private readonly config: ConfigService<Env, true>,
     private readonly audit: AuditService,
-    private readonly mail: MailService,
-    private readonly links: LinkBuilder,
+    private readonly outgoingMail: OutgoingMailService,
   ) {}
 
   /**
@@ -184,33 +182,34 @@ export class AuthService {
   }
 
   /**
-   * Sends a reset link when the address belongs to an enabled account. The answer is the same either
-   * way, so the form cannot be used to learn who has an account.
+   * Queues a reset link when the address belongs to an enabled account. The answer is the same either
+   * way, and no SMTP is in the request path (the e-mail goes from the account-mail queue), so neither
+   * the answer nor its timing tells who has an account, even while the mail server is down.
    */
   async requestPasswordReset(email: string): Promise<void> {
     const user = await this.repository.findUserByEmail(email);
     if (!user || user.isDisabled) return;
-    const token = newOpaqueToken();
     const minutes = this.config.get('PASSWORD_RESET_TTL_MINUTES', { infer: true });
-    await this.repository.insertPasswordReset(user.id, hashToken(token), new Date(Date.now() + minutes * 60_000));
-    await this.audit.record({
-      companyId: user.companyId,
-      actorUserId: null,
-      action: 'password_reset.request',
-      targetType: 'user',
-      targetId: user.id,
+    const mail = await this.repository.transaction(async (tx) => {
+      // The link is minted when the mail goes (AccountMailWorker); until then the row cannot be used.
+      const resetId = await this.repository.insertPasswordReset(
+        user.id,
+        this.outgoingMail.sealedTokenHash(),
+        new Date(Date.now() + minutes * 60_000),
+        tx,
+      );
+      await this.audit.record(
+        { companyId: user.companyId, actorUserId: null, action: 'password_reset.request', targetType: 'user', targetId: user.id },
+        tx,
+      );
+      return this.outgoingMail.queuePasswordReset(tx, {
+        companyId: user.companyId,
+        passwordResetId: resetId,
+        to: user.email,
+        data: { name: user.name, companyName: user.companyName },
+      });
     });
-    await this.mail.send({
-      template: 'password-reset',
-      to: user.email,
-      companyId: user.companyId,
-      data: {
-        name: user.name,
-        companyName: user.companyName,
-        link: this.links.to('/reset-password', { token }),
-        minutes,
-      },
-    });
+    await this.outgoingMail.dispatch(mail.id);
   }
 
   /** Sets a new password from a single-use reset link and ends every session of that account. */

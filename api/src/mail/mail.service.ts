@@ -48,11 +48,17 @@ export class MailService {
 
   private getTransport(): Promise<Transporter> {
     this.transport ??= (async () => {
+      // nodemailer waits two minutes for a connection by default; a queued send should fail fast and retry.
+      const timeouts = {
+        connectionTimeout: this.config.get('SMTP_CONNECTION_TIMEOUT_MS', { infer: true }),
+        greetingTimeout: this.config.get('SMTP_GREETING_TIMEOUT_MS', { infer: true }),
+        socketTimeout: this.config.get('SMTP_SOCKET_TIMEOUT_MS', { infer: true }),
+      };
       const url = this.config.get('SMTP_URL', { infer: true });
-      if (url) return nodemailer.createTransport(url);
+      if (url) return nodemailer.createTransport({ url, ...timeouts });
       if (!this.localServer.isEnabled) throw new Error('SMTP_URL is required in production');
       const port = await this.localServer.port();
-      return nodemailer.createTransport({ host: '127.0.0.1', port, secure: false, ignoreTLS: true });
+      return nodemailer.createTransport({ host: '127.0.0.1', port, secure: false, ignoreTLS: true, ...timeouts });
     })();
     return this.transport;
   }

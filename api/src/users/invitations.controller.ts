@@ -1,5 +1,5 @@
 import { Body, Controller, Delete, Get, HttpCode, HttpStatus, Param, ParseUUIDPipe, Post } from '@nestjs/common';
-import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
 
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
@@ -29,6 +29,13 @@ export class InvitationsController {
     @Body(new ZodValidationPipe(CreateInvitationSchema)) body: CreateInvitationInput,
   ): Promise<InvitationResponse> {
     return this.usersService.invite(user, body);
+  }
+
+  @Post(':id/resend')
+  @HttpCode(HttpStatus.ACCEPTED)
+  @ApiOperation({ summary: 'Queue the invitation e-mail again with a new link (the earlier link stops working)' })
+  resend(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<InvitationResponse> {
+    return this.usersService.resendInvitation(user, id);
   }
 
   @Delete(':id')

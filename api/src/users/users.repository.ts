@@ -52,6 +52,22 @@ export class UsersRepository {
       .orderBy(asc(invitations.createdAt));
   }
 
+  async findOpenInvitationInCompany(companyId: string, id: string) {
+    const [row] = await this.db
+      .select()
+      .from(invitations)
+      .where(
+        and(
+          eq(invitations.companyId, companyId),
+          eq(invitations.id, id),
+          isNull(invitations.acceptedAt),
+          isNull(invitations.revokedAt),
+          gt(invitations.expiresAt, new Date()),
+        ),
+      );
+    return row;
+  }
+
   /** Revokes any open invitation for the address (a new one replaces it). */
   async revokeOpenInvitationsFor(email: string, tx: Tx): Promise<void> {
     await tx

@@ -2,7 +2,6 @@ import { ConflictException, ForbiddenException, Injectable, NotFoundException } 
 import { ConfigService } from '@nestjs/config';
 
 import { AuditService } from '../audit/audit.service.js';
-import { hashToken, newOpaqueToken } from '../auth/tokens.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import type { Env } from '../config/env.schema.js';
 import type {
@@ -12,9 +11,8 @@ import type {
   UserResponse,
 } from '../domain/auth/auth.schema.js';
 import { canInvite, canManageUser, ROLE_LABELS } from '../domain/auth/roles.js';
-import type { Invitation, User } from '../db/schema/index.js';
-import { LinkBuilder } from '../mail/link-builder.js';
-import { MailService } from '../mail/mail.service.js';
+import type { Invitation, OutgoingMailRow, User } from '../db/schema/index.js';
+import { OutgoingMailService } from '../outgoing-mail/outgoing-mail.service.js';
 import { UsersRepository } from './users.repository.js';
 
 function toUserResponse(user: User): UserResponse {
@@ -29,7 +27,7 @@ function toUserResponse(user: User): UserResponse {
   };
 }
 
-function toInvitationResponse(invitation: Invitation): InvitationResponse {
+function toInvitationResponse(invitation: Invitation, mail: OutgoingMailRow | undefined): InvitationResponse {
   return {
     id: invitation.id,
     email: invitation.email,
@@ -37,16 +35,20 @@ function toInvitationResponse(invitation: Invitation): InvitationResponse {
     role: invitation.role,
     expiresAt: invitation.expiresAt.toISOString(),
     createdAt: invitation.createdAt.toISOString(),
+    mail: mail
+      ? { status: mail.status, attempts: mail.attempts, lastError: mail.lastError, sentAt: mail.sentAt?.toISOString() ?? null }
+      : null,
   };
 }
+
+const invitationNotFound = () => new NotFoundException({ message: 'No such open invitation.', code: 'INVITATION_NOT_FOUND' });
 
 @Injectable()
 export class UsersService {
   constructor(
     private readonly repository: UsersRepository,
     private readonly audit: AuditService,
-    private readonly mail: MailService,
-    private readonly links: LinkBuilder,
+    private readonly outgoingMail: OutgoingMailService,
     private readonly config: ConfigService<Env, true>,
   ) {}
 
@@ -72,12 +74,15 @@ export class UsersService {
   }
 
   async listInvitations(actor: AuthUser): Promise<InvitationResponse[]> {
-    return (await this.repository.listOpenInvitations(actor.companyId)).map(toInvitationResponse);
+    const open = await this.repository.listOpenInvitations(actor.companyId);
+    const mail = await this.outgoingMail.latestForInvitations(open.map((i) => i.id));
+    return open.map((invitation) => toInvitationResponse(invitation, mail.get(invitation.id)));
   }
 
   /**
-   * Creates a single-use, expiring invitation and e-mails its link; a newer invitation replaces an open
-   * one. `siteIds` (homeowner invitations): sites the invitee is linked to on accepting.
+   * Creates a single-use, expiring invitation and queues its e-mail in the same transaction (the link is
+   * minted when the mail goes; see AccountMailWorker); a newer invitation replaces an open one.
+   * `siteIds` (homeowner invitations): sites the invitee is linked to on accepting.
    */
   async invite(actor: AuthUser, input: CreateInvitationInput, options: { siteIds?: readonly string[] } = {}): Promise<InvitationResponse> {
     if (!canInvite(actor.role, input.role)) {
@@ -86,9 +91,9 @@ export class UsersService {
     if (await this.repository.emailExists(input.email)) {
       throw new ConflictException({ message: 'Someone already has an account with this e-mail.', code: 'EMAIL_TAKEN' });
     }
-    const token = newOpaqueToken();
     const hours = this.config.get('INVITATION_TTL_HOURS', { infer: true });
-    const invitation = await this.repository.transaction(async (tx) => {
+    const companyName = await this.repository.companyName(actor.companyId);
+    const { invitation, mail } = await this.repository.transaction(async (tx) => {
       await this.repository.revokeOpenInvitationsFor(input.email, tx);
       const row = await this.repository.insertInvitation(
         {
@@ -96,7 +101,7 @@ export class UsersService {
           email: input.email,
           name: input.name ?? null,
           role: input.role,
-          tokenHash: hashToken(token),
+          tokenHash: this.outgoingMail.sealedTokenHash(),
           invitedByUserId: actor.id,
           expiresAt: new Date(Date.now() + hours * 3_600_000),
         },
@@ -114,23 +119,57 @@ export class UsersService {
         },
         tx,
       );
-      return row;
+      const queued = await this.outgoingMail.queueInvitation(tx, {
+        companyId: actor.companyId,
+        invitationId: row.id,
+        to: input.email,
+        data: {
+          name: input.name ?? null,
+          inviterName: actor.name,
+          companyName,
+          roleLabel: ROLE_LABELS[input.role],
+          isHomeowner: input.role === 'homeowner',
+        },
+      });
+      return { invitation: row, mail: queued };
     });
-    await this.mail.send({
-      template: 'invitation',
-      to: input.email,
-      companyId: actor.companyId,
-      data: {
-        name: input.name ?? null,
-        inviterName: actor.name,
-        companyName: await this.repository.companyName(actor.companyId),
-        roleLabel: ROLE_LABELS[input.role],
-        isHomeowner: input.role === 'homeowner',
-        link: this.links.to('/accept-invitation', { token }),
-        hours,
-      },
+    await this.outgoingMail.dispatch(mail.id);
+    return toInvitationResponse(invitation, mail);
+  }
+
+  /**
+   * Sends an open invitation's e-mail again with a new link (the earlier link stops working once the new
+   * one is minted); for a message that failed or went astray.
+   */
+  async resendInvitation(actor: AuthUser, id: string): Promise<InvitationResponse> {
+    const invitation = await this.repository.findOpenInvitationInCompany(actor.companyId, id);
+    if (!invitation) throw invitationNotFound();
+    const [inviter, companyName] = await Promise.all([
+      invitation.invitedByUserId ? this.repository.findInCompany(actor.companyId, invitation.invitedByUserId) : undefined,
+      this.repository.companyName(actor.companyId),
+    ]);
+    const mail = await this.repository.transaction(async (tx) => {
+      await this.outgoingMail.cancelWaitingForInvitation(tx, invitation.id);
+      const queued = await this.outgoingMail.queueInvitation(tx, {
+        companyId: actor.companyId,
+        invitationId: invitation.id,
+        to: invitation.email,
+        data: {
+          name: invitation.name,
+          inviterName: inviter?.name ?? actor.name,
+          companyName,
+          roleLabel: ROLE_LABELS[invitation.role],
+          isHomeowner: invitation.role === 'homeowner',
+        },
+      });
+      await this.audit.record(
+        { companyId: actor.companyId, actorUserId: actor.id, action: 'invitation.resend', targetType: 'invitation', targetId: invitation.id },
+        tx,
+      );
+      return queued;
     });
-    return toInvitationResponse(invitation);
+    await this.outgoingMail.dispatch(mail.id);
+    return toInvitationResponse(invitation, mail);
   }
 
   async revokeInvitation(actor: AuthUser, id: string): Promise<void> {
@@ -144,6 +183,6 @@ export class UsersService {
       }
       return row;
     });
-    if (!revoked) throw new NotFoundException({ message: 'No such open invitation.', code: 'INVITATION_NOT_FOUND' });
+    if (!revoked) throw invitationNotFound();
   }
 }

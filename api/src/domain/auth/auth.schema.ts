@@ -74,6 +74,15 @@ export const UserResponseSchema = z.object({
 });
 export type UserResponse = z.infer<typeof UserResponseSchema>;
 
+/** Where the invitation's newest e-mail is: waiting in the send queue, sent, or given up after retries. */
+export const InvitationMailSchema = z.object({
+  status: z.enum(['queued', 'sending', 'sent', 'failed', 'cancelled']),
+  attempts: z.number().int(),
+  lastError: z.string().nullable(),
+  sentAt: z.string().nullable(),
+});
+export type InvitationMail = z.infer<typeof InvitationMailSchema>;
+
 export const InvitationResponseSchema = z.object({
   id: z.uuid(),
   email: z.string(),
@@ -81,6 +90,8 @@ export const InvitationResponseSchema = z.object({
   role: RoleSchema,
   expiresAt: z.string(),
   createdAt: z.string(),
+  // The API always sends it; optional so callers that only create invitations need not mock it.
+  mail: InvitationMailSchema.nullable().optional(),
 });
 export type InvitationResponse = z.infer<typeof InvitationResponseSchema>;
 

@@ -1,0 +1,54 @@
+import { sql } from 'drizzle-orm';
+import { check, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+
+import { companies } from './companies.js';
+import { invitations, passwordResetTokens } from './users.js';
+
+export const outgoingMailKind = pgEnum('outgoing_mail_kind', ['invitation', 'password_reset']);
+export const outgoingMailStatus = pgEnum('outgoing_mail_status', ['queued', 'sending', 'sent', 'failed', 'cancelled']);
+
+/**
+ * Account e-mail waiting to go, or gone: invitations and password resets. A row is written in the same
+ * transaction as the invitation or reset it belongs to, so an SMTP outage delays the message without
+ * losing it; the account-mail worker moves it queued → sending → sent, back to queued after a failed
+ * attempt, failed when no retry is left, or cancelled when its invitation or reset can no longer be used.
+ *
+ * No link token is stored here (nor anywhere in clear): the worker mints the token when it sends and
+ * keeps only its hash on the invitation or reset row (see AccountMailWorker).
+ */
+export const outgoingMail = pgTable(
+  'outgoing_mail',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    companyId: uuid('company_id')
+      .notNull()
+      .references(() => companies.id),
+    kind: outgoingMailKind('kind').notNull(),
+    toAddress: text('to_address').notNull(),
+    /** Template values known when the mail was asked for (names, labels); never a link or token. */
+    data: jsonb('data').$type<Record<string, string | number | boolean | null>>().notNull(),
+    invitationId: uuid('invitation_id').references(() => invitations.id, { onDelete: 'cascade' }),
+    passwordResetId: uuid('password_reset_id').references(() => passwordResetTokens.id, { onDelete: 'cascade' }),
+    status: outgoingMailStatus('status').notNull().default('queued'),
+    /** Send attempts started (each worker pick-up adds one). */
+    attempts: integer('attempts').notNull().default(0),
+    lastError: text('last_error'),
+    messageId: text('message_id'),
+    sentAt: timestamp('sent_at', { withTimezone: true }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    index('outgoing_mail_status_updated_at_idx').on(t.status, t.updatedAt),
+    index('outgoing_mail_invitation_id_idx').on(t.invitationId),
+    index('outgoing_mail_password_reset_id_idx').on(t.passwordResetId),
+    check('outgoing_mail_sent_has_time', sql`${t.status} <> 'sent' or ${t.sentAt} is not null`),
+    check(
+      'outgoing_mail_kind_has_target',
+      sql`(${t.kind} = 'invitation' and ${t.invitationId} is not null) or (${t.kind} = 'password_reset' and ${t.passwordResetId} is not null)`,
+    ),
+  ],
+);
+
+export type OutgoingMailRow = typeof outgoingMail.$inferSelect;
+export type NewOutgoingMailRow = typeof outgoingMail.$inferInsert;

@@ -1,0 +1,123 @@
+import { Injectable, Logger } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+
+import { hashToken, newOpaqueToken } from '../auth/tokens.js';
+import type { Env } from '../config/env.schema.js';
+import type { OutgoingMailRow } from '../db/schema/index.js';
+import { LinkBuilder } from '../mail/link-builder.js';
+import { MailService } from '../mail/mail.service.js';
+import { AccountMailQueue } from './account-mail-queue.js';
+import { OutgoingMailRepository } from './outgoing-mail.repository.js';
+
+/** A message left `sending` this long by a worker that died may be claimed again. */
+const STALE_SEND_SECONDS = 10 * 60;
+/** How often a running worker looks for committed messages whose queue message was lost. */
+const SWEEP_INTERVAL_MS = 5 * 60_000;
+
+/**
+ * Sends queued invitation and password-reset e-mail, one claimed message at a time, with retries and
+ * backoff by pg-boss (same pattern as PacketSendWorker).
+ *
+ * The link token is minted here, at send time, and only its hash is written to the invitation or reset
+ * row. Why not store the token with the queued message: during an outage messages can wait for hours,
+ * and a token at rest in clear would be a working account link for anyone who can read the table (or a
+ * backup of it); encrypting it instead would need a key to manage and rotate. Minting late needs
+ * neither. The cost: a retry after an SMTP server accepted a message whose acceptance we never recorded
+ * mints a new link, so the earlier e-mail's link stops working and the later one's works.
+ */
+@Injectable()
+export class AccountMailWorker {
+  private readonly logger = new Logger(AccountMailWorker.name);
+  private isStarted = false;
+  private isStopping = false;
+  private retryTimer: NodeJS.Timeout | undefined;
+  private sweepTimer: NodeJS.Timeout | undefined;
+
+  constructor(
+    private readonly repository: OutgoingMailRepository,
+    private readonly queue: AccountMailQueue,
+    private readonly mail: MailService,
+    private readonly links: LinkBuilder,
+    private readonly config: ConfigService<Env, true>,
+  ) {}
+
+  /** Starts without holding up the caller, retrying with backoff while the database cannot be reached. */
+  startInBackground(delayMs = 1_000): void {
+    this.start().catch((error: Error) => {
+      if (this.isStopping) return;
+      this.logger.warn(`account mail worker not started (${error.message}); retrying in ${delayMs / 1000} s`);
+      this.retryTimer = setTimeout(() => this.startInBackground(Math.min(delayMs * 2, 30_000)), delayMs);
+      this.retryTimer.unref();
+    });
+  }
+
+  stop(): void {
+    this.isStopping = true;
+    clearTimeout(this.retryTimer);
+    clearInterval(this.sweepTimer);
+  }
+
+  async start(): Promise<void> {
+    if (this.isStarted) return;
+    this.isStarted = true;
+    try {
+      await this.queue.work(1, (job, meta) => this.send(job.mailId, meta.isFinalAttempt));
+      await this.requeueStale();
+    } catch (error) {
+      this.isStarted = false;
+      throw error;
+    }
+    this.sweepTimer = setInterval(() => {
+      this.requeueStale().catch((error: Error) => this.logger.warn(`account mail sweep failed: ${error.message}`));
+    }, SWEEP_INTERVAL_MS);
+    this.sweepTimer.unref();
+    this.logger.log('account mail worker started');
+  }
+
+  async send(mailId: string, isFinalAttempt: boolean): Promise<void> {
+    const mail = await this.repository.claim(mailId, STALE_SEND_SECONDS);
+    if (!mail) {
+      this.logger.debug(`account mail ${mailId} is not waiting to send (already claimed, done or cancelled)`);
+      return;
+    }
+    try {
+      const link = await this.mintLink(mail);
+      if (!link) {
+        await this.repository.markCancelled(mail.id, `the ${mail.kind === 'invitation' ? 'invitation' : 'reset'} can no longer be used`);
+        this.logger.log(`account mail ${mail.id} cancelled: its ${mail.kind} was used, withdrawn or expired before sending`);
+        return;
+      }
+      const messageId = await this.mail.send({
+        template: mail.kind === 'invitation' ? 'invitation' : 'password-reset',
+        to: mail.toAddress,
+        companyId: mail.companyId,
+        data: { ...mail.data, ...link },
+      });
+      await this.repository.markSent(mail.id, messageId);
+    } catch (error) {
+      const reason = error instanceof Error ? error.message : String(error);
+      await this.repository.markAttemptFailed(mail.id, reason, isFinalAttempt);
+      this.logger.error(`account mail ${mail.id} (${mail.kind}) failed${isFinalAttempt ? '' : ' (will retry)'}: ${reason}`);
+      throw error;
+    }
+  }
+
+  /** A fresh single-use link for the message's invitation or reset, or undefined when it can no longer be used. */
+  private async mintLink(mail: OutgoingMailRow): Promise<Record<string, string | number> | undefined> {
+    const token = newOpaqueToken();
+    if (mail.kind === 'invitation') {
+      const hours = this.config.get('INVITATION_TTL_HOURS', { infer: true });
+      if (!(await this.repository.armInvitation(mail.invitationId!, hashToken(token), hours * 3600))) return undefined;
+      return { link: this.links.to('/accept-invitation', { token }), hours };
+    }
+    const minutes = this.config.get('PASSWORD_RESET_TTL_MINUTES', { infer: true });
+    if (!(await this.repository.armPasswordReset(mail.passwordResetId!, hashToken(token), minutes * 60))) return undefined;
+    return { link: this.links.to('/reset-password', { token }), minutes };
+  }
+
+  /** Re-queues committed messages that never reached the queue (the process stopped in between). */
+  private async requeueStale(): Promise<void> {
+    // A duplicate queue message is harmless: sending starts with an exclusive claim.
+    for (const { id } of await this.repository.staleQueued(120)) await this.queue.enqueue({ mailId: id });
+  }
+}
