@@ -1,62 +1,33 @@
-import {
-  Link,
-  Toast,
-  ToastBody,
-  Toaster,
-  ToastTitle,
-  ToastTrigger,
-  useToastController,
-  type ToastIntent,
-} from '@fluentui/react-components';
-import { useCallback, useMemo } from 'react';
+import { lazy, Suspense, useMemo } from 'react';
 
-const TOASTER_ID = 'loamline-toaster';
+import type { ToastRequest } from './toaster';
+
+// The toaster is not needed to show the first page: it arrives in its own chunk just after.
+const loadToaster = () => import('./toaster');
+const ToasterSurface = lazy(() => loadToaster().then(({ ToasterSurface }) => ({ default: ToasterSurface })));
+
+function notify(request: ToastRequest): void {
+  void loadToaster().then(({ showToast }) => showToast(request));
+}
 
 /** Where toasts appear; rendered once, by the app provider. */
 export function AppToaster() {
-  return <Toaster toasterId={TOASTER_ID} position="bottom" pauseOnHover pauseOnWindowBlur />;
+  return (
+    <Suspense fallback={null}>
+      <ToasterSurface />
+    </Suspense>
+  );
 }
 
 /** Short confirmations and failures of actions (saved, invited, could not save). */
 export function useNotify() {
-  const { dispatchToast } = useToastController(TOASTER_ID);
-  const show = useCallback(
-    (intent: ToastIntent, title: string, body?: string) =>
-      dispatchToast(
-        <Toast>
-          <ToastTitle>{title}</ToastTitle>
-          {body && <ToastBody>{body}</ToastBody>}
-        </Toast>,
-        { intent, timeout: intent === 'error' ? 8_000 : 4_000 },
-      ),
-    [dispatchToast],
-  );
-  const undoable = useCallback(
-    (title: string, onUndo: () => void) =>
-      dispatchToast(
-        <Toast>
-          <ToastTitle
-            action={
-              <ToastTrigger>
-                <Link onClick={onUndo}>Undo</Link>
-              </ToastTrigger>
-            }
-          >
-            {title}
-          </ToastTitle>
-        </Toast>,
-        // Long enough to notice a wrong tap on a phone in the sun.
-        { intent: 'success', timeout: 10_000 },
-      ),
-    [dispatchToast],
-  );
   return useMemo(
     () => ({
-      success: (title: string, body?: string) => show('success', title, body),
-      error: (title: string, body?: string) => show('error', title, body),
+      success: (title: string, body?: string) => notify({ kind: 'message', intent: 'success', title, body }),
+      error: (title: string, body?: string) => notify({ kind: 'message', intent: 'error', title, body }),
       /** A done thing that can be taken back: the toast has an Undo link. */
-      undoable,
+      undoable: (title: string, onUndo: () => void) => notify({ kind: 'undoable', title, onUndo }),
     }),
-    [show, undoable],
+    [],
   );
 }

@@ -31,6 +31,10 @@ export const paths = {
     path: '/users',
     getHref: () => '/users',
   },
+  settings: {
+    path: '/settings',
+    getHref: () => '/settings',
+  },
   jobs: {
     path: '/jobs',
     /** `search`: the list's query string (q, status, sort, page, mine) without the leading `?`. */
@@ -40,6 +44,14 @@ export const paths = {
     path: '/jobs/:jobId',
     getHref: (jobId: string, section?: string) =>
       `/jobs/${encodeURIComponent(jobId)}${section ? `?section=${encodeURIComponent(section)}` : ''}`,
+  },
+  jobPlan: {
+    path: '/jobs/:jobId/plan',
+    getHref: (jobId: string) => `/jobs/${encodeURIComponent(jobId)}/plan`,
+  },
+  jobDrawings: {
+    path: '/jobs/:jobId/drawings',
+    getHref: (jobId: string) => `/jobs/${encodeURIComponent(jobId)}/drawings`,
   },
   customers: {
     path: '/customers',

@@ -1,14 +1,6 @@
-import {
-  Button,
-  DrawerBody,
-  DrawerHeader,
-  DrawerHeaderTitle,
-  makeStyles,
-  OverlayDrawer,
-  tokens,
-} from '@fluentui/react-components';
-import { Dismiss24Regular, Navigation24Regular } from '@fluentui/react-icons';
-import { useState, type ReactNode } from 'react';
+import { Button, makeStyles, tokens } from '@fluentui/react-components';
+import { Navigation24Regular } from '@fluentui/react-icons';
+import { lazy, Suspense, useState, type ReactNode } from 'react';
 import { Link } from 'react-router';
 
 import { paths } from '../../config/paths';
@@ -16,6 +8,9 @@ import { LogoMark } from '../logo';
 
 import { MainNav } from './main-nav';
 import type { NavItem } from './nav-items';
+
+// The phone menu drawer is fetched the first time it is opened: wide screens never need it.
+const NavDrawer = lazy(() => import('./nav-drawer').then(({ NavDrawer }) => ({ default: NavDrawer })));
 
 // Below this width the side navigation folds into a menu drawer.
 const WIDE = '@media (min-width: 768px)';
@@ -106,8 +101,6 @@ const useStyles = makeStyles({
     ':focus': { outlineStyle: 'none' },
     [WIDE]: { padding: `${tokens.spacingVerticalXXXL} ${tokens.spacingHorizontalXXXL}` },
   },
-  drawerBody: { paddingBlock: tokens.spacingVerticalS },
-  drawerClose: { minWidth: '48px', minHeight: '48px' },
 });
 
 type AppShellProps = {
@@ -124,7 +117,12 @@ type AppShellProps = {
 export function AppShell({ navItems, headerEnd, children }: AppShellProps) {
   const styles = useStyles();
   const [isMenuOpen, setIsMenuOpen] = useState(false);
-  const closeMenu = () => setIsMenuOpen(false);
+  // Mounted from the first opening on, so closing it still animates.
+  const [hasOpenedMenu, setHasOpenedMenu] = useState(false);
+  const openMenu = () => {
+    setHasOpenedMenu(true);
+    setIsMenuOpen(true);
+  };
 
   return (
     <div className={styles.root}>
@@ -138,7 +136,7 @@ export function AppShell({ navItems, headerEnd, children }: AppShellProps) {
           icon={<Navigation24Regular />}
           aria-label="Open menu"
           aria-expanded={isMenuOpen}
-          onClick={() => setIsMenuOpen(true)}
+          onClick={openMenu}
         />
         <h1 className={styles.title}>
           <Link to={paths.home.getHref()} className={styles.brand}>
@@ -158,34 +156,11 @@ export function AppShell({ navItems, headerEnd, children }: AppShellProps) {
         </main>
       </div>
 
-      <OverlayDrawer
-        open={isMenuOpen}
-        onOpenChange={(_event, data) => setIsMenuOpen(data.open)}
-        position="start"
-        size="small"
-        aria-label="Menu"
-      >
-        <DrawerHeader>
-          <DrawerHeaderTitle
-            action={
-              <Button
-                appearance="subtle"
-                className={styles.drawerClose}
-                icon={<Dismiss24Regular />}
-                aria-label="Close menu"
-                onClick={closeMenu}
-              />
-            }
-          >
-            Menu
-          </DrawerHeaderTitle>
-        </DrawerHeader>
-        <DrawerBody className={styles.drawerBody}>
-          <nav aria-label="Main">
-            <MainNav items={navItems} onNavigate={closeMenu} />
-          </nav>
-        </DrawerBody>
-      </OverlayDrawer>
+      {hasOpenedMenu && (
+        <Suspense fallback={null}>
+          <NavDrawer navItems={navItems} open={isMenuOpen} onOpenChange={setIsMenuOpen} />
+        </Suspense>
+      )}
     </div>
   );
 }

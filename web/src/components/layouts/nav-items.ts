@@ -7,6 +7,7 @@ import {
   MailInbox24Regular,
   Map24Regular,
   People24Regular,
+  Settings24Regular,
 } from '@fluentui/react-icons';
 import { isStaffRole, type Role } from '@domain/auth/roles';
 
@@ -44,6 +45,7 @@ export function buildNavItems({ role, hasOutbox = false }: NavContext): NavItem[
   if (role === 'admin' && hasOutbox) {
     items.push({ label: 'Outbox', href: paths.outbox.getHref(), icon: MailInbox24Regular });
   }
+  items.push({ label: 'Settings', href: paths.settings.getHref(), icon: Settings24Regular });
   items.push({ label: 'System status', href: paths.status.getHref(), icon: HeartPulse24Regular });
   return items;
 }

@@ -1,10 +1,21 @@
+import { lazy, Suspense } from 'react';
 import type { LoaderFunctionArgs } from 'react-router';
 import { Outlet } from 'react-router';
 
 import { RouteErrorPage } from '../../../components/errors/route-error-page';
 import { RequireSession } from '../../../features/auth/components/require-session';
 import { requireUser } from '../../../features/auth/utils/require-user';
-import { useUploadQueueRunner } from '../../../features/photos/hooks/use-upload-queue';
+
+// Photos queued before a reload go out again as soon as someone is signed in, on any page. The queue
+// (IndexedDB store, upload code) is its own chunk, loaded right after the first page rather than with it.
+const UploadQueueRunner = lazy(() =>
+  import('../../../features/photos/hooks/use-upload-queue').then(({ useUploadQueueRunner }) => ({
+    default: function RunUploadQueue() {
+      useUploadQueueRunner();
+      return null;
+    },
+  })),
+);
 
 export const clientLoader =
   () =>
@@ -15,12 +26,15 @@ export const clientLoader =
 
 /** Everything under here needs a session: signed-out visitors go to sign-in and come back after. */
 export default function ProtectedRoute() {
-  // Photos queued before a reload go out again as soon as someone is signed in, on any page.
-  useUploadQueueRunner();
   return (
-    <RequireSession>
-      <Outlet />
-    </RequireSession>
+    <>
+      <Suspense fallback={null}>
+        <UploadQueueRunner />
+      </Suspense>
+      <RequireSession>
+        <Outlet />
+      </RequireSession>
+    </>
   );
 }
 

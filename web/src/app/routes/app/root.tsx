@@ -1,17 +1,34 @@
 import { makeStyles, tokens } from '@fluentui/react-components';
+import { lazy, Suspense } from 'react';
 import { Link, Outlet, useLocation } from 'react-router';
 
 import { RouteErrorPage } from '../../../components/errors/route-error-page';
 import { AppShell } from '../../../components/layouts/app-shell';
 import { buildNavItems } from '../../../components/layouts/nav-items';
 import { paths } from '../../../config/paths';
-import { UserMenu } from '../../../features/auth/components/user-menu';
+import { restoreSession } from '../../../features/auth/api/restore-session';
 import { currentPathOf } from '../../../features/auth/utils/safe-next-path';
 import { useHasOutbox } from '../../../features/outbox/api/get-outbox';
 import { useSessionUser } from '../../../lib/session';
 
+// The account menu (Fluent's menu, popover positioning, avatar) is its own chunk: the loader below
+// starts fetching it while the page's data loads, and a box of the trigger's size holds its place
+// should it arrive after the frame.
+const loadUserMenu = () => import('../../../features/auth/components/user-menu');
+const UserMenu = lazy(() => loadUserMenu().then(({ UserMenu }) => ({ default: UserMenu })));
+
+export const clientLoader = () => () => {
+  // Not awaited: the page does not wait for the menu. `restoreSession` asks the server once per page load.
+  // A failed fetch is left to the menu itself, which asks again when it renders.
+  void restoreSession()
+    .then((user) => (user ? loadUserMenu() : undefined))
+    .catch(() => undefined);
+  return null;
+};
+
 const useStyles = makeStyles({
   bare: { padding: tokens.spacingHorizontalXL },
+  userMenuPlaceholder: { minWidth: '48px', minHeight: '48px' },
   signIn: {
     display: 'inline-flex',
     alignItems: 'center',
@@ -38,7 +55,9 @@ export default function AppRoot() {
       navItems={buildNavItems({ role: user?.role, hasOutbox })}
       headerEnd={
         user ? (
-          <UserMenu user={user} />
+          <Suspense fallback={<div className={styles.userMenuPlaceholder} />}>
+            <UserMenu user={user} />
+          </Suspense>
         ) : (
           <Link to={paths.signIn.getHref(currentPathOf(location))} className={styles.signIn}>
             Sign in

@@ -1,0 +1,681 @@
+import { makeStyles, MessageBar, MessageBarBody, Text, tokens } from '@fluentui/react-components';
+import { ArrowLeft24Regular } from '@fluentui/react-icons';
+import { useMemo, useState } from 'react';
+import { Link } from 'react-router';
+import type { PlanPoint } from '@domain/as-built/common.schema';
+import type { Role } from '@domain/auth/roles';
+
+import { useNotify } from '../../../components/notify';
+import { paths } from '../../../config/paths';
+import { usePersistedDraft } from '../../../lib/drafts';
+import { describeRequestError } from '../../../lib/form-errors';
+import { formatLength, lengthInputValue, parseLength } from '../../../lib/units';
+import { useUnitPreferences } from '../../../lib/use-unit-preferences';
+import type { JobAsBuiltResponse } from '../../jobs/api/get-job-as-built';
+import { SaveStateBar } from '../../jobs/components/save-state-bar';
+import { useJobWriter } from '../../jobs/hooks/job-writer';
+import { jobPermissions } from '../../jobs/utils/job-permissions';
+import type { SiteResponse } from '../../sites/api/get-site';
+import { useSaveReferencePoint } from '../../sites/api/save-reference-point';
+import { usePlanImageUrl } from '../api/get-plan-image';
+import { planImageOf } from '../api/site-plan-image';
+import { useUpdateSitePlan } from '../api/update-site-plan';
+import { useUploadPlanImage } from '../api/upload-plan-image';
+import {
+  imageToPlan,
+  insertRoutePoint,
+  moveRoutePoint,
+  placementOf,
+  planToImage,
+  provisionalPlacement,
+  removeRoutePoint,
+  roundPlanPoint,
+  snapPoint,
+  type ImagePoint,
+} from '../utils/plan-geometry';
+import {
+  canAddReferencePoint,
+  canChangeSitePlan,
+  canUploadPlanImage,
+  DEFAULT_PLAN_LAYERS,
+  itemBodyWith,
+  itemsWithPositionFindings,
+  positionsOf,
+  routeBadge,
+  runBodyWithRoute,
+  runPoints,
+  runStyleOf,
+  solveTies,
+  tieDraftsOf,
+  type PlanLayers,
+  type TieDraft,
+} from '../utils/plan-records';
+
+import { CalibratePanel } from './calibrate-panel';
+import { LayersMenu } from './layers-menu';
+import { NorthPanel } from './north-panel';
+import { PlanCanvas, type CanvasModel, type PlanHit } from './plan-canvas';
+import { PlanToolbar, type PlanTool } from './plan-toolbar';
+import { ReferencePointDialog } from './reference-point-dialog';
+import { RoutePanel, type RouteMode } from './route-panel';
+import { SelectionCard, type PlanSelection } from './selection-card';
+import { TiesPanel } from './ties-panel';
+
+const useStyles = makeStyles({
+  layout: {
+    display: 'grid',
+    gridTemplateColumns: 'minmax(0, 1fr)',
+    gap: tokens.spacingVerticalM,
+    '@media (min-width: 1024px)': { gridTemplateColumns: 'minmax(0, 1fr) minmax(20rem, 24rem)', columnGap: tokens.spacingHorizontalL, alignItems: 'start' },
+  },
+  main: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS, minWidth: 0 },
+  canvas: { height: '46dvh', minHeight: '320px', '@media (min-width: 1024px)': { height: 'calc(100dvh - 260px)', minHeight: '420px' } },
+  side: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM, minWidth: 0 },
+  header: { display: 'flex', alignItems: 'center', gap: tokens.spacingHorizontalS, marginBlockEnd: tokens.spacingVerticalM, minWidth: 0 },
+  title: { margin: 0, minWidth: 0 },
+  back: {
+    display: 'inline-flex',
+    alignItems: 'center',
+    justifyContent: 'center',
+    flexShrink: 0,
+    minWidth: '48px',
+    minHeight: '48px',
+    borderRadius: tokens.borderRadiusMedium,
+    color: tokens.colorBrandForegroundLink,
+    ':hover': { backgroundColor: tokens.colorNeutralBackground1Hover },
+  },
+});
+
+type CalibrationDraft = { a?: ImagePoint; b?: ImagePoint; distance: string };
+
+type PlanEditorProps = { data: JobAsBuiltResponse; site: SiteResponse; actor: { id: string; role: Role } };
+
+/** Tap targets are 44 px across; a tap this close to an item or reference point lands on it. */
+const SNAP_PX = 22;
+
+/**
+ * The job's plan on a phone: pan and zoom, the site-plan image and its scale, reference points, items
+ * placed by ties or by hand, run routes drawn by tapping, north, and layers. Job records are saved with
+ * the job writer (versioned, kept on the device without a connection); site changes go to the site.
+ */
+export function PlanEditor({ data, site, actor }: PlanEditorProps) {
+  const styles = useStyles();
+  const notify = useNotify();
+  const writer = useJobWriter();
+  const [units] = useUnitPreferences();
+  const { job, asBuilt, analysis } = data;
+  const permissions = jobPermissions(actor, job);
+  const canRecord = permissions.canRecord;
+  const canSite = canChangeSitePlan(actor.role);
+  const canUpload = canUploadPlanImage(actor.role);
+  const canReference = canAddReferencePoint(actor.role);
+  const tools = useMemo<PlanTool[]>(
+    () => [
+      'select',
+      ...(canReference ? (['reference'] as const) : []),
+      ...(canRecord ? (['route', 'ties'] as const) : []),
+      ...(canSite || canUpload ? (['calibrate'] as const) : []),
+      ...(canSite ? (['north'] as const) : []),
+    ],
+    [canRecord, canReference, canSite, canUpload],
+  );
+
+  const [tool, setToolState] = useState<PlanTool>('select');
+  const [layers, setLayers] = useState<PlanLayers>(DEFAULT_PLAN_LAYERS);
+  const [selection, setSelection] = useState<PlanSelection | undefined>();
+  const [transformK, setTransformK] = useState(1);
+  const [isSaving, setIsSaving] = useState(false);
+  /** Said instead of the hint when a tap could not be used. */
+  const [tapNotice, setTapNotice] = useState<string | undefined>();
+
+  // Route tool.
+  const [routeRunId, setRouteRunId] = useState('');
+  const [routeMode, setRouteMode] = useState<RouteMode>('draw');
+  const [selectedVertex, setSelectedVertex] = useState<number | undefined>();
+  const routeRun = asBuilt.runs.find((run) => run.id === routeRunId);
+  const routeDraftKey = `job:${job.id}:plan-route:${routeRunId || 'none'}`;
+  const routeDraft = usePersistedDraft<PlanPoint[]>(routeDraftKey, routeRun?.route ?? []);
+  const routePoints = routeRunId ? routeDraft.value : [];
+
+  // Ties tool.
+  const [tiesItemId, setTiesItemId] = useState('');
+  const [tiesError, setTiesError] = useState<string | undefined>();
+  const tiesItem = asBuilt.items.find((item) => item.id === tiesItemId);
+  const tiesDraftKey = `job:${job.id}:plan-ties:${tiesItemId || 'none'}`;
+  const tiesDraft = usePersistedDraft<{ ties: TieDraft[]; sideHint: '' | 'left' | 'right' }>(tiesDraftKey, {
+    ties: tieDraftsOf(tiesItem, (m) => lengthInputValue(m, units.length, 'long')),
+    sideHint: tiesItem?.sideHint ?? '',
+  });
+  const solution = tiesItemId ? solveTies(tiesDraft.value.ties, tiesDraft.value.sideHint, asBuilt.referencePoints, units.length) : undefined;
+
+  // Calibration and north. The picked points and the distance are kept on the device until saved,
+  // like the job forms' drafts.
+  const calibrationDraft = usePersistedDraft<CalibrationDraft>(`job:${job.id}:plan-calibration`, { distance: '' });
+  const [calibrationError, setCalibrationError] = useState<string | undefined>();
+  const calibration: CalibrationDraft & { error?: string } = { ...calibrationDraft.value, error: calibrationError };
+  const setCalibration = (next: (CalibrationDraft & { error?: string }) | ((current: CalibrationDraft & { error?: string }) => CalibrationDraft & { error?: string })) => {
+    const { error, ...value } = typeof next === 'function' ? next(calibration) : next;
+    setCalibrationError(error);
+    if (value.a === undefined && value.b === undefined && value.distance === '') calibrationDraft.clear();
+    else calibrationDraft.setValue(value);
+  };
+  const [northDraft, setNorthDraft] = useState<string | undefined>();
+  const [northError, setNorthError] = useState<string | undefined>();
+  const savedNorth = site.northAzimuthDeg ?? 0;
+
+  // Reference points.
+  const [pendingReference, setPendingReference] = useState<{ key: number; point: PlanPoint } | undefined>();
+  const [referenceError, setReferenceError] = useState<string | undefined>();
+  const saveReference = useSaveReferencePoint();
+  const uploadImage = useUploadPlanImage();
+  const updateSite = useUpdateSitePlan();
+
+  const planImage = planImageOf(site);
+  const { href: imageHref, isError: isImageError } = usePlanImageUrl(planImage);
+  const placement = planImage ? (site.planCalibration ? placementOf(site.planCalibration) : provisionalPlacement(planImage.widthPx)) : undefined;
+
+  const positions = positionsOf(analysis);
+  const flagged = itemsWithPositionFindings(analysis);
+  const formatLong = (m: number) => formatLength(m, units.length, 'long');
+
+  const setTool = (next: PlanTool) => {
+    setToolState(next);
+    setTapNotice(undefined);
+    setSelectedVertex(undefined);
+    setCalibrationError(undefined);
+  };
+
+  const startRoute = (runId: string) => {
+    setRouteRunId(runId);
+    const run = asBuilt.runs.find((candidate) => candidate.id === runId);
+    setRouteMode(run?.route ? 'edit' : 'draw');
+    setSelectedVertex(undefined);
+    setTool('route');
+  };
+  const startTies = (itemId: string) => {
+    setTiesItemId(itemId);
+    setTiesError(undefined);
+    setTool('ties');
+  };
+
+  // ---- What the plan shows -------------------------------------------------------------------
+  const model: CanvasModel = {
+    items: asBuilt.items.flatMap((item) => {
+      const p = positions.get(item.id);
+      if (!p) return [];
+      const isSelected = (selection?.type === 'item' && selection.id === item.id) || (tool === 'ties' && item.id === tiesItemId);
+      const isDraggable = tool === 'select' && canRecord && (item.ties?.length ?? 0) === 0;
+      return [{ id: item.id, kind: item.kind, label: item.label, x: p.x, y: p.y, isSelected, isDraggable, hasFinding: flagged.has(item.id) }];
+    }),
+    references: layers.references
+      ? asBuilt.referencePoints.map((rp) => ({
+          ...rp,
+          isSelected:
+            (selection?.type === 'reference' && selection.id === rp.id) ||
+            (tool === 'ties' && tiesDraft.value.ties.some((tie) => tie.referencePointId === rp.id)),
+        }))
+      : [],
+    ties: layers.references
+      ? asBuilt.items.flatMap((item) => {
+          const p = positions.get(item.id);
+          // Every tie at once is a thicket: only those of the item looked at are drawn.
+          const isShown = tool === 'select' && selection?.type === 'item' && selection.id === item.id;
+          if (!p || !isShown) return [];
+          return (item.ties ?? []).flatMap((tie) => {
+            const rp = asBuilt.referencePoints.find((candidate) => candidate.id === tie.referencePointId);
+            return rp ? [{ from: rp, to: p }] : [];
+          });
+        })
+      : [],
+    runs: layers.runs
+      ? asBuilt.runs.flatMap((run) => {
+          if (!layers.spareAndAbandoned && (run.isSpare === true || run.isAbandoned === true)) return [];
+          const drawn = runPoints(run, positions);
+          if (!drawn) return [];
+          return [
+            {
+              id: run.id,
+              label: run.label,
+              style: runStyleOf(run),
+              ...drawn,
+              isActive: tool === 'route' && run.id === routeRunId,
+              badge: routeBadge(analysis, run.id, formatLong),
+            },
+          ];
+        })
+      : [],
+    image:
+      planImage && placement && layers.image
+        ? { href: imageHref, widthPx: planImage.widthPx, heightPx: planImage.heightPx, placement, isProvisional: !site.planCalibration }
+        : undefined,
+    draftRoute:
+      tool === 'route' && routeRun
+        ? { points: routePoints, selectedIndex: selectedVertex, isEditable: true, canInsert: routeMode === 'edit' }
+        : undefined,
+    marks:
+      tool === 'calibrate' && placement && canSite
+        ? [
+            ...(calibration.a ? [{ ...imageToPlan(calibration.a, placement), label: 'A' }] : []),
+            ...(calibration.b ? [{ ...imageToPlan(calibration.b, placement), label: 'B' }] : []),
+          ]
+        : [],
+    solution:
+      tool === 'ties' && solution?.ok ? { x: solution.x, y: solution.y, accuracyM: solution.accuracyM, isWeak: solution.isWeak } : undefined,
+    showLabels: layers.labels,
+    northAzimuthDeg: tool === 'north' && northDraft !== undefined && Number.isFinite(Number(northDraft)) ? Number(northDraft) : (site.northAzimuthDeg ?? null),
+    lengthSystem: units.length,
+  };
+  if (tool === 'ties' && solution?.ok && layers.references) {
+    for (const tie of tiesDraft.value.ties) {
+      const rp = asBuilt.referencePoints.find((candidate) => candidate.id === tie.referencePointId);
+      if (rp) model.ties.push({ from: rp, to: { x: solution.x, y: solution.y } });
+    }
+  }
+
+  // ---- Saving --------------------------------------------------------------------------------
+  const saveJobWrite = async (write: Parameters<typeof writer.save>[0], done: string) => {
+    setIsSaving(true);
+    try {
+      const outcome = await writer.save(write);
+      if (outcome === 'saved') notify.success(done, write.label);
+      else if (outcome === 'queued') notify.success('Kept on this device', 'No connection: it is sent as soon as the phone is back online.');
+      return outcome;
+    } catch (error) {
+      notify.error(`Could not save: ${write.label}`, describeRequestError(error));
+      return undefined;
+    } finally {
+      setIsSaving(false);
+    }
+  };
+
+  const saveRoute = async () => {
+    if (!routeRun || routePoints.length < 2) return;
+    const outcome = await saveJobWrite(
+      {
+        method: 'PUT',
+        path: `/runs/${routeRun.id}`,
+        body: runBodyWithRoute(routeRun, routePoints.map(roundPlanPoint)),
+        draftKey: routeDraftKey,
+        label: `Route of "${routeRun.label}"`,
+      },
+      'Route saved',
+    );
+    if (outcome === 'saved' || outcome === 'queued') {
+      setRouteMode('edit');
+      setSelectedVertex(undefined);
+    }
+  };
+
+  const saveTies = async () => {
+    if (!tiesItem || !solution?.ok) return;
+    const ties = tiesDraft.value.ties
+      .filter((tie) => tie.referencePointId !== '' && tie.distance.trim() !== '')
+      .map((tie) => {
+        const distance = parseLength(tie.distance, units.length, 'long');
+        return { referencePointId: tie.referencePointId, distanceM: distance.ok ? distance.metres : Number.NaN };
+      });
+    if (ties.some((tie) => !Number.isFinite(tie.distanceM))) {
+      setTiesError('A distance cannot be read: fix it or remove that tie.');
+      return;
+    }
+    setTiesError(undefined);
+    const p = roundPlanPoint(solution);
+    await saveJobWrite(
+      {
+        method: 'PUT',
+        path: `/items/${tiesItem.id}`,
+        body: itemBodyWith(tiesItem, {
+          ties,
+          sideHint: tiesDraft.value.sideHint || undefined,
+          position: { ...p, source: 'ties', ...(Number.isFinite(solution.accuracyM) ? { accuracyM: Math.min(solution.accuracyM, 10_000) } : {}) },
+        }),
+        draftKey: tiesDraftKey,
+        label: `Position of "${tiesItem.label}"`,
+      },
+      'Position saved',
+    );
+  };
+
+  const moveItem = async (itemId: string, point: PlanPoint) => {
+    const item = asBuilt.items.find((candidate) => candidate.id === itemId);
+    if (!item) return;
+    await saveJobWrite(
+      {
+        method: 'PUT',
+        path: `/items/${item.id}`,
+        body: itemBodyWith(item, { position: { ...roundPlanPoint(point), source: 'manual' } }),
+        label: `Position of "${item.label}"`,
+      },
+      'Moved',
+    );
+  };
+
+  const addReference = (label: string) => {
+    if (!pendingReference) return;
+    const point = roundPlanPoint(pendingReference.point);
+    setReferenceError(undefined);
+    saveReference.mutate(
+      { siteId: site.id, input: { label, x: point.x, y: point.y } },
+      {
+        onSuccess: (created) => {
+          setPendingReference(undefined);
+          notify.success('Reference point added', created.label);
+        },
+        onError: (error) => setReferenceError(describeRequestError(error)),
+      },
+    );
+  };
+
+  const saveCalibration = () => {
+    const { a, b } = calibration;
+    if (!a || !b) return;
+    const distance = parseLength(calibration.distance, units.length, 'long');
+    if (!distance.ok || !(distance.metres > 0)) {
+      setCalibration((current) => ({ ...current, error: distance.ok ? 'The distance must be more than zero.' : distance.message }));
+      return;
+    }
+    const px = (p: ImagePoint) => ({ x: Math.round(p.x * 10) / 10, y: Math.round(p.y * 10) / 10 });
+    updateSite.mutate(
+      { siteId: site.id, change: { planCalibration: { a: px(a), b: px(b), distanceM: distance.metres } } },
+      {
+        onSuccess: () => {
+          setCalibration({ distance: '' });
+          notify.success('Scale saved', `A to B is ${formatLong(distance.metres)}.`);
+        },
+        onError: (error) => setCalibration((current) => ({ ...current, error: describeRequestError(error) })),
+      },
+    );
+  };
+
+  const upload = (file: File) => {
+    uploadImage.mutate(
+      { siteId: site.id, file },
+      {
+        onSuccess: () => {
+          setCalibration({ distance: '' });
+          notify.success(
+            'Plan image uploaded',
+            canSite ? 'Now tap two points on it and give the distance between them.' : 'The office sets its scale; until then it is shown at a rough size.',
+          );
+        },
+        onError: (error) => notify.error('Could not upload the image', describeRequestError(error)),
+      },
+    );
+  };
+
+  const saveNorth = () => {
+    const value = Number((northDraft ?? '').replace(',', '.'));
+    if (northDraft === undefined || northDraft.trim() === '' || !Number.isFinite(value) || value < -360 || value > 360) {
+      setNorthError('Enter a bearing in degrees, from 0 to 360.');
+      return;
+    }
+    setNorthError(undefined);
+    updateSite.mutate(
+      { siteId: site.id, change: { northAzimuthDeg: value } },
+      {
+        onSuccess: () => {
+          setNorthDraft(undefined);
+          notify.success('North saved', `The plan’s top faces ${value}°.`);
+        },
+        onError: (error) => setNorthError(describeRequestError(error)),
+      },
+    );
+  };
+
+  // ---- Taps and drags ------------------------------------------------------------------------
+  const snapTargets = [...model.items, ...asBuilt.referencePoints.map((rp) => ({ ...rp }))];
+  const snapped = (p: PlanPoint) => {
+    const hit = snapPoint(p, snapTargets, SNAP_PX / Math.max(transformK, 1e-9));
+    return hit ? { x: hit.x, y: hit.y } : p;
+  };
+
+  const handleTap = (point: PlanPoint, hit: PlanHit | undefined) => {
+    setTapNotice(undefined);
+    switch (tool) {
+      case 'select':
+        if (hit?.type === 'item' || hit?.type === 'reference' || hit?.type === 'run') setSelection({ type: hit.type, id: hit.id });
+        else setSelection(undefined);
+        return;
+      case 'reference':
+        setReferenceError(undefined);
+        setPendingReference({ key: Date.now(), point });
+        return;
+      case 'route': {
+        if (!routeRun) {
+          setTapNotice('Choose the run first: pick the run whose route you are drawing.');
+          return;
+        }
+        if (routeMode === 'draw') {
+          routeDraft.setValue([...routePoints, snapped(point)]);
+          return;
+        }
+        if (hit?.type === 'vertex') setSelectedVertex(hit.index === selectedVertex ? undefined : hit.index);
+        else if (hit?.type === 'segment') {
+          routeDraft.setValue(insertRoutePoint(routePoints, hit.index, point));
+          setSelectedVertex(hit.index + 1);
+        } else setSelectedVertex(undefined);
+        return;
+      }
+      case 'ties': {
+        if (hit?.type === 'item' && tieableOnTap(hit.id)) {
+          startTies(hit.id);
+          return;
+        }
+        if (hit?.type === 'reference' && tiesItemId) {
+          const { ties, sideHint } = tiesDraft.value;
+          if (ties.some((tie) => tie.referencePointId === hit.id)) return;
+          const empty = ties.findIndex((tie) => tie.referencePointId === '');
+          const next = empty >= 0 ? ties.map((tie, i) => (i === empty ? { ...tie, referencePointId: hit.id } : tie)) : [...ties, { referencePointId: hit.id, distance: '' }];
+          tiesDraft.setValue({ ties: next, sideHint });
+        }
+        return;
+      }
+      case 'calibrate': {
+        if (!planImage || !placement || !canSite) return;
+        const px = planToImage(point, placement);
+        if (px.x < 0 || px.y < 0 || px.x > planImage.widthPx || px.y > planImage.heightPx) {
+          setTapNotice('That tap was off the image: both calibration points must be on the plan image.');
+          return;
+        }
+        setCalibration((current) => (current.a && !current.b ? { ...current, b: px, error: undefined } : { distance: current.distance, a: px, b: undefined }));
+        return;
+      }
+      case 'north':
+        return;
+    }
+  };
+  const tieableOnTap = (itemId: string) => asBuilt.items.some((item) => item.id === itemId && item.kind !== 'amplifier');
+
+  const handleDragEnd = (hit: PlanHit, point: PlanPoint) => {
+    if (hit.type === 'item' && tool === 'select') void moveItem(hit.id, point);
+    if (hit.type === 'vertex' && tool === 'route') {
+      routeDraft.setValue(moveRoutePoint(routePoints, hit.index, snapped(point)));
+      setSelectedVertex(hit.index);
+    }
+  };
+
+  const hint = tapNotice ?? hintFor();
+  function hintFor(): string {
+    switch (tool) {
+      case 'select':
+        return canRecord ? 'Tap something to see it. Drag an item placed by hand to move it.' : 'Tap something to see it. You can look at this plan but not change it.';
+      case 'reference':
+        return 'Tap the plan where the reference point is: a house corner, a gate post, the meter base.';
+      case 'route':
+        if (!routeRun) return 'Choose the run whose route you are drawing.';
+        if (routeMode === 'draw') {
+          const from = asBuilt.items.find((item) => item.id === routeRun.fromItemId)?.label ?? 'its start';
+          const to = asBuilt.items.find((item) => item.id === routeRun.toItemId)?.label ?? 'its end';
+          return routePoints.length === 0 ? `Tap where the trench starts, at ${from}.` : `Tap the next bend of the trench, toward ${to}. Point ${routePoints.length + 1}.`;
+        }
+        return 'Drag a point to move it. Tap the line to add a point. Tap a point to pick it for deleting.';
+      case 'ties':
+        if (!tiesItemId) return 'Choose the item to place, or tap it on the plan.';
+        return 'Tap a reference point to tie from it, then type the taped distance.';
+      case 'calibrate':
+        if (!planImage) return 'Upload the site-plan image first.';
+        if (!canSite) return site.planCalibration ? 'The image is to scale.' : 'The office sets the image’s scale: two points on it and the distance between them.';
+        if (!calibration.a) return 'Tap point A on the image: a corner or mark you can measure to.';
+        if (!calibration.b) return 'Now tap point B on the image, as far from A as you can.';
+        return 'Type the real distance between A and B, then save.';
+      case 'north':
+        return 'Drag the north arrow round, or type the bearing of the plan’s top, then save.';
+    }
+  }
+
+  const panel = (() => {
+    switch (tool) {
+      case 'select':
+      case 'reference':
+        return (
+          <SelectionCard
+            jobId={job.id}
+            asBuilt={asBuilt}
+            analysis={analysis}
+            selection={selection}
+            canRecord={canRecord}
+            onPlaceByTies={startTies}
+            onDrawRoute={startRoute}
+          />
+        );
+      case 'route':
+        return (
+          <RoutePanel
+            asBuilt={asBuilt}
+            runId={routeRunId}
+            onRunChange={startRoute}
+            mode={routeMode}
+            points={routePoints}
+            selectedIndex={selectedVertex}
+            hasDraft={routeDraft.hasDraft}
+            isSaving={isSaving}
+            onUndo={() => routeDraft.setValue(routePoints.slice(0, -1))}
+            onDeletePoint={() => {
+              if (selectedVertex === undefined) return;
+              routeDraft.setValue(removeRoutePoint(routePoints, selectedVertex));
+              setSelectedVertex(undefined);
+            }}
+            onRedraw={() => {
+              routeDraft.setValue([]);
+              setRouteMode('draw');
+              setSelectedVertex(undefined);
+            }}
+            onContinue={() => {
+              setRouteMode('draw');
+              setSelectedVertex(undefined);
+            }}
+            onSave={() => void saveRoute()}
+            onDiscard={() => {
+              routeDraft.clear();
+              setRouteMode(routeRun?.route ? 'edit' : 'draw');
+              setSelectedVertex(undefined);
+            }}
+          />
+        );
+      case 'ties':
+        return (
+          <TiesPanel
+            asBuilt={asBuilt}
+            itemId={tiesItemId}
+            onItemChange={startTies}
+            ties={tiesDraft.value.ties}
+            sideHint={tiesDraft.value.sideHint}
+            onChange={(ties, sideHint) => tiesDraft.setValue({ ties, sideHint })}
+            solution={solution}
+            hasDraft={tiesDraft.hasDraft}
+            isSaving={isSaving}
+            error={tiesError}
+            onSave={() => void saveTies()}
+            onDiscard={() => tiesDraft.clear()}
+          />
+        );
+      case 'calibrate':
+        return (
+          <CalibratePanel
+            hasImage={planImage !== null}
+            canCalibrate={canSite}
+            canUpload={canUpload}
+            isCalibrated={site.planCalibration !== null}
+            a={calibration.a}
+            b={calibration.b}
+            distance={calibration.distance}
+            onDistanceChange={(distance) => setCalibration((current) => ({ ...current, distance, error: undefined }))}
+            distanceError={calibration.error}
+            isUploading={uploadImage.isPending}
+            isSaving={updateSite.isPending}
+            onUpload={upload}
+            onPickAgain={() => setCalibration({ distance: calibration.distance })}
+            onSave={saveCalibration}
+          />
+        );
+      case 'north':
+        return (
+          <NorthPanel
+            value={northDraft ?? String(savedNorth)}
+            onChange={(value) => {
+              setNorthDraft(value);
+              setNorthError(undefined);
+            }}
+            error={northError}
+            isSaving={updateSite.isPending}
+            isChanged={northDraft !== undefined && Number(northDraft) !== savedNorth}
+            onSave={saveNorth}
+          />
+        );
+    }
+  })();
+
+  return (
+    <>
+      <title>{`Plan: ${job.title} · Loamline`}</title>
+      <header className={styles.header}>
+        <Link to={paths.job.getHref(job.id)} className={styles.back} aria-label={`Back to the job ${job.title}`}>
+          <ArrowLeft24Regular aria-hidden />
+        </Link>
+        <Text as="h2" size={500} weight="semibold" className={styles.title} truncate wrap={false}>
+          Plan: {job.title}
+        </Text>
+      </header>
+      <div className={styles.layout}>
+        <div className={styles.main}>
+          <SaveStateBar jobId={job.id} />
+          {isImageError && (
+            <MessageBar intent="warning">
+              <MessageBarBody>The plan image could not be loaded. The plan works without it.</MessageBarBody>
+            </MessageBar>
+          )}
+          <PlanToolbar tools={tools} tool={tool} onToolChange={setTool} />
+          <div className={styles.canvas}>
+            <PlanCanvas
+              model={model}
+              onTap={handleTap}
+              onDragEnd={handleDragEnd}
+              onZoom={setTransformK}
+              hint={hint}
+              extraButtons={<LayersMenu layers={layers} onChange={setLayers} />}
+              onNorthTurn={
+                tool === 'north'
+                  ? (deg) => {
+                      setNorthDraft(String(deg));
+                      setNorthError(undefined);
+                    }
+                  : undefined
+              }
+              fitKey={`${planImage?.url ?? ''}|${site.planCalibration ? JSON.stringify(site.planCalibration) : ''}|${imageHref ? 'loaded' : ''}`}
+              label={`Plan of ${job.site.label}`}
+            />
+          </div>
+        </div>
+        <div className={styles.side}>{panel}</div>
+      </div>
+      <ReferencePointDialog
+        key={pendingReference?.key ?? 0}
+        point={pendingReference?.point}
+        isSaving={saveReference.isPending}
+        error={referenceError}
+        onSave={addReference}
+        onCancel={() => setPendingReference(undefined)}
+      />
+    </>
+  );
+}
