@@ -139,8 +139,9 @@ export class DeliveryService {
       const invitation = await this.users.invite(actor, { email, role: 'homeowner' }, { siteIds: [siteId] });
       return { email, invitationId: invitation.id };
     } catch (error) {
-      // The invitation is committed before its e-mail goes; a mail failure must not lose the packet send.
-      this.logger.warn(`homeowner invitation e-mail for site ${siteId} not sent: ${error instanceof Error ? error.message : String(error)}`);
+      // Invitation mail is queued (it cannot fail on SMTP here); this covers a race with a second send
+      // inviting the same address at the same moment: the other request's open invitation is used.
+      this.logger.warn(`homeowner invitation for site ${siteId} not created here: ${error instanceof Error ? error.message : String(error)}`);
       const created = await this.repository.openHomeownerInvitation(actor.companyId, email);
       if (!created) throw error;
       return { email, invitationId: created.id };
