@@ -18,6 +18,7 @@ import { MailModule } from './mail/mail.module.js';
 import { PacketsModule } from './packets/packets.module.js';
 import { PhotosModule } from './photos/photos.module.js';
 import { PortalModule } from './portal/portal.module.js';
+import { SettingsModule } from './settings/settings.module.js';
 import { SitesModule } from './sites/sites.module.js';
 import { StorageModule } from './storage/storage.module.js';
 import { UsersModule } from './users/users.module.js';
@@ -41,6 +42,7 @@ import { UsersModule } from './users/users.module.js';
     LocateModule,
     DeliveryModule,
     PortalModule,
+    SettingsModule,
   ],
   providers: [
     // Default-deny: every route needs a signed-in user unless marked @Public(); then @Roles() applies.

@@ -225,6 +225,10 @@ describe('authorization matrix', () => {
       expect: only(['admin', 'office'], 204, 404),
       call: async () => ({ path: `/api/invitations/${await invitationIn(a.id)}` }),
     },
+    'POST /api/invitations/:id/resend': {
+      expect: only(['admin', 'office'], 202, 404),
+      call: async () => ({ path: `/api/invitations/${await invitationIn(a.id)}/resend` }),
+    },
     'POST /api/analysis': {
       expect: only(['admin', 'office', 'lead', 'tech'], 200, 200),
       call: () => ({ path: '/api/analysis', body: { asBuilt: DEMO_AS_BUILT } }),
@@ -288,6 +292,18 @@ describe('authorization matrix', () => {
         return { path: `/api/sites/${siteId}/homeowners/${a.users.homeowner.id}` };
       },
     },
+    'POST /api/sites/:siteId/homeowner-invitations': {
+      expect: officeOnly(201),
+      call: () => ({ path: `/api/sites/${siteA}/homeowner-invitations`, body: { email: `owner.${randomUUID()}@matrix.example` } }),
+    },
+    // Each caller reads and changes only their own company's settings and their own preferences.
+    'GET /api/company/settings': { expect: signedIn(200), call: () => ({ path: '/api/company/settings' }) },
+    'PATCH /api/company/settings': {
+      expect: only(['admin'], 200, 200),
+      call: () => ({ path: '/api/company/settings', body: { paperSize: 'letter' } }),
+    },
+    'GET /api/me/preferences': { expect: signedIn(200), call: () => ({ path: '/api/me/preferences' }) },
+    'PATCH /api/me/preferences': { expect: signedIn(200), call: () => ({ path: '/api/me/preferences', body: { lengthUnits: null } }) },
     'GET /api/jobs': { expect: staff(200, 200), isList: true, call: () => ({ path: '/api/jobs' }) },
     'POST /api/jobs': {
       expect: officeOnly(201, 400),
@@ -433,6 +449,33 @@ describe('authorization matrix', () => {
         return { path: `${r.base}/photos`, headers: r.headers, body: { caption: 'Trench' }, files: [{ field: 'files', name: 'trench.png', content: photoPng }] };
       },
     },
+    'PUT /api/sites/:siteId/plan-image': {
+      expect: recorders(200),
+      call: async () => ({ path: `/api/sites/${(await createSite(arrange)).siteId}/plan-image`, files: [{ field: 'file', name: 'plan.png', content: photoPng }] }),
+    },
+    'GET /api/sites/:siteId/plan-image': {
+      expect: { ...staff(200), homeowner: 200 },
+      call: async () => ({ path: `/api/sites/${await sitePlanImageA()}/plan-image` }),
+    },
+    'DELETE /api/sites/:siteId/plan-image': {
+      expect: recorders(200),
+      call: async () => ({ path: `/api/sites/${await sitePlanImageA()}/plan-image` }),
+    },
+    'GET /api/jobs/:id/drawings/site-plan.svg': {
+      expect: staff(200),
+      call: async () => ({ path: `${(await recordedJobA()).base}/drawings/site-plan.svg` }),
+    },
+    'GET /api/jobs/:id/drawings/schematic.svg': {
+      expect: staff(200),
+      call: async () => ({ path: `${(await recordedJobA()).base}/drawings/schematic.svg` }),
+    },
+    'GET /api/jobs/:id/drawings/runs/:runId/depth-profile.svg': {
+      expect: staff(200),
+      call: async () => {
+        const r = await recordedJobA();
+        return { path: `${r.base}/drawings/runs/${r.run.id}/depth-profile.svg` };
+      },
+    },
     'GET /api/photos/:id/:variant': {
       expect: staff(200),
       call: async () => ({ path: `/api/photos/${(await photoA()).id}/thumb` }),
@@ -565,6 +608,15 @@ describe('authorization matrix', () => {
     if (res.status !== 201) throw new Error(`photo upload → ${res.status} ${JSON.stringify(res.body)}`);
     await insertReadyRevision(r.base.split('/').pop()!, { snapshot: {} });
     return res.body.photos[0].id as string;
+  }
+
+  /** A fresh site of company A with a plan image, linked to A's homeowner. */
+  async function sitePlanImageA(): Promise<string> {
+    const { siteId } = await createSite(arrange);
+    await arrange.expectOk('post', `/api/sites/${siteId}/homeowners`, { userId: a.users.homeowner.id });
+    const res = await request(app.getHttpServer()).put(`/api/sites/${siteId}/plan-image`).set(bearer(sessions.get('office')!)).attach('file', photoPng, 'plan.png');
+    if (res.status !== 200) throw new Error(`plan image upload → ${res.status} ${JSON.stringify(res.body)}`);
+    return siteId;
   }
 
   /** Stand-in ready revision rows (files that are never read) for a job of company A. */

@@ -128,12 +128,20 @@ describe('jobs', () => {
       expect(inProgress.items.map((j: { id: string }) => j.id)).toEqual([jobs[1]!.id]);
       const both = await as.office.expectOk('get', '/api/jobs?q=threnbury&status=draft,in_progress');
       expect(both.total).toBe(3);
+      const repeated = await as.office.expectOk('get', '/api/jobs?q=threnbury&status=in_progress&status=submitted');
+      expect(repeated.items.map((j: { id: string }) => j.id)).toEqual([jobs[1]!.id]);
+      const drafts = await as.office.expectOk('get', '/api/jobs?q=threnbury&status=draft&status=submitted,issued');
+      expect(drafts.total).toBe(2);
       const mine = await as.lead.expectOk('get', '/api/jobs?q=threnbury&mine=true');
       expect(mine.items.map((j: { id: string }) => j.id)).toEqual([jobs[0]!.id]);
     });
 
     it('should answer 400 for an unknown status or sort, and never list another company’s jobs', async () => {
-      expect((await as.office.send('get', '/api/jobs?status=finished')).status).toBe(400);
+      for (const query of ['status=finished', 'status=draft,finished', 'status=draft&status=finished']) {
+        const bad = await as.office.send('get', `/api/jobs?${query}`);
+        expect(bad.status).toBe(400);
+        expect(bad.body.issues[0]).toMatchObject({ path: 'status', message: expect.stringContaining('finished') });
+      }
       const res = await as.office.send('get', '/api/jobs?sort=password');
       expect(res.status).toBe(400);
       expect(res.body.issues[0].path).toBe('sort');
@@ -147,6 +155,55 @@ describe('jobs', () => {
       const job = await newJob();
       const updated = await as.office.expectOk('patch', `/api/jobs/${job.id}`, { title: 'Renamed', technicianUserIds: [] }, { 'If-Match': '"1"' });
       expect(updated).toMatchObject({ title: 'Renamed', version: 2, technicians: [] });
+    });
+
+    it('should let the office change the crew and dates, and audit which fields changed', async () => {
+      const job = await newJob();
+      const updated = await as.office.expectOk(
+        'patch',
+        `/api/jobs/${job.id}`,
+        { crewLeadUserId: a.users.office.id, technicianUserIds: [a.users.lead.id, a.users.tech.id], startDate: '2026-06-01', endDate: '2026-06-03' },
+        { 'If-Match': '"1"' },
+      );
+      expect(updated).toMatchObject({ version: 2, crewLead: { id: a.users.office.id }, startDate: '2026-06-01', endDate: '2026-06-03' });
+      expect(updated.technicians.map((t: { id: string }) => t.id).sort()).toEqual([a.users.lead.id, a.users.tech.id].sort());
+      const cleared = await as.admin.expectOk('patch', `/api/jobs/${job.id}`, { crewLeadUserId: null, technicianUserIds: [], endDate: null }, { 'If-Match': '2' });
+      expect(cleared).toMatchObject({ version: 3, crewLead: null, technicians: [], startDate: '2026-06-01', endDate: null });
+      const audit = await withDb((db) =>
+        db.query(`select details from audit_log where target_id = $1 and action = 'job.update' order by id`, [job.id]),
+      );
+      expect(audit.rows.map((r) => r.details.fields)).toEqual([
+        ['crewLeadUserId', 'technicianUserIds', 'startDate', 'endDate'],
+        ['crewLeadUserId', 'technicianUserIds', 'endDate'],
+      ]);
+    });
+
+    it.each([
+      ['a technician as crew lead', () => ({ crewLeadUserId: a.users.tech.id }), 'crewLeadUserId'],
+      ['another company’s lead', () => ({ crewLeadUserId: b.users.lead.id }), 'crewLeadUserId'],
+      ['a homeowner on the crew', () => ({ technicianUserIds: [a.users.homeowner.id] }), 'technicianUserIds.0'],
+      ['another company’s technician', () => ({ technicianUserIds: [a.users.tech.id, b.users.tech.id] }), 'technicianUserIds.1'],
+      ['an unknown user', () => ({ technicianUserIds: ['00000000-0000-4000-8000-000000000000'] }), 'technicianUserIds.0'],
+      ['someone twice', () => ({ technicianUserIds: [a.users.tech.id, a.users.tech.id] }), 'technicianUserIds'],
+      ['a finish before the stored start', () => ({ endDate: '2026-04-30' }), 'endDate'],
+      ['a malformed date', () => ({ startDate: '1 May' }), 'startDate'],
+    ])('should answer 400 naming the field for %s, and change nothing', async (_what, body, field) => {
+      const job = await newJob();
+      await as.office.expectOk('patch', `/api/jobs/${job.id}`, { startDate: '2026-05-01' }, { 'If-Match': '1' });
+      const res = await as.office.send('patch', `/api/jobs/${job.id}`, body(), { 'If-Match': '2' });
+      expect(res.status).toBe(400);
+      expect(res.body.issues.map((i: { path: string }) => i.path)).toContain(field);
+      const after = await as.office.expectOk('get', `/api/jobs/${job.id}`);
+      expect(after).toMatchObject({ version: 2, crewLead: { id: a.users.lead.id }, technicians: [{ id: a.users.tech.id }], endDate: null });
+    });
+
+    it('should refuse crew and date changes from the crew lead and technicians', async () => {
+      const job = await newJob();
+      expect((await as.lead.send('patch', `/api/jobs/${job.id}`, { technicianUserIds: [] }, { 'If-Match': '1' })).status).toBe(403);
+      expect((await as.lead.send('patch', `/api/jobs/${job.id}`, { startDate: '2026-07-01' }, { 'If-Match': '1' })).status).toBe(403);
+      expect((await as.tech.send('patch', `/api/jobs/${job.id}`, { endDate: '2026-07-01' }, { 'If-Match': '1' })).status).toBe(403);
+      expect((await as.otherAdmin.send('patch', `/api/jobs/${job.id}`, { endDate: '2026-07-01' }, { 'If-Match': '1' })).status).toBe(404);
+      expect(await jobRow(job.id)).toMatchObject({ version: 1 });
     });
 
     it('should answer 409 VERSION_CONFLICT with the current version on a stale write, and write nothing', async () => {

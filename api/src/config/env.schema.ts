@@ -69,6 +69,14 @@ export const EnvSchema = z.object({
   PACKET_SEND_RETRIES: z.coerce.number().int().min(0).max(20).default(5),
   /** First retry delay of a failed packet e-mail, seconds (doubles each retry). */
   PACKET_SEND_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
+  /** Retries of a failed account e-mail (invitation, password reset) before it is marked failed. */
+  ACCOUNT_MAIL_RETRIES: z.coerce.number().int().min(0).max(20).default(8),
+  /** First retry delay of a failed account e-mail, seconds (doubles each retry). */
+  ACCOUNT_MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
+  /** SMTP limits, ms: opening the connection, the server's greeting, and silence on an open connection. */
+  SMTP_CONNECTION_TIMEOUT_MS: z.coerce.number().int().min(100).max(600_000).default(10_000),
+  SMTP_GREETING_TIMEOUT_MS: z.coerce.number().int().min(100).max(600_000).default(10_000),
+  SMTP_SOCKET_TIMEOUT_MS: z.coerce.number().int().min(100).max(600_000).default(30_000),
   /** Sign-in and reset requests one client address may make per minute before 429. */
   SIGN_IN_LIMIT_PER_ADDRESS_PER_MINUTE: z.coerce.number().int().min(1).max(100_000).default(30),
   /** Sign-in and reset requests naming one account per 15 minutes before 429 (password guessing). */

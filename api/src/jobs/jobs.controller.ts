@@ -32,8 +32,8 @@ export class JobsController {
   @ApiOperation({
     summary: 'List the company’s jobs, a page at a time',
     description:
-      '`q` searches title, site label, address, city and customer name; `status` is one status or a comma-separated ' +
-      'list; `sort` is updatedAt|title|status|startDate|site|customer, prefixed with - for descending (default -updatedAt); ' +
+      '`q` searches title, site label, address, city and customer name; `status` is one status, a comma-separated ' +
+      'list or the parameter repeated; `sort` is updatedAt|title|status|startDate|site|customer, prefixed with - for descending (default -updatedAt); ' +
       '`page` from 1; `pageSize` up to 100 (default 25); `mine=true` keeps jobs you lead or are assigned to.',
   })
   list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(JobListQuerySchema)) query: JobListQuery): Promise<JobListResponse> {

@@ -1,4 +1,5 @@
-import { useCallback, useSyncExternalStore } from 'react';
+import { useCallback, useEffect, useRef, useSyncExternalStore } from 'react';
+import { useForm, type DefaultValues, type FieldValues, type Resolver, type UseFormReturn } from 'react-hook-form';
 
 const PREFIX = 'loamline.draft.';
 
@@ -120,4 +121,71 @@ export function useDraftKeys(prefix: string): string[] {
     () => '',
   );
   return joined === '' ? [] : joined.split('\n');
+}
+
+/**
+ * A react-hook-form form whose values are also a persisted draft: restored as the default values,
+ * written on every change, and dropped (the form showing `initial` again) when the draft is cleared —
+ * by `clear()`, by the job writer once the server has the change, or in another tab.
+ */
+export function useDraftForm<TForm extends FieldValues, TOutput = TForm>(
+  key: string,
+  initial: TForm,
+  resolver?: Resolver<TForm, unknown, TOutput>,
+): { form: UseFormReturn<TForm, unknown, TOutput>; hasDraft: boolean; clear: () => void } {
+  const stored = useSyncExternalStore(
+    subscribe,
+    () => readDraft<TForm>(key),
+    () => undefined,
+  );
+  const form = useForm<TForm, unknown, TOutput>({
+    defaultValues: (readDraft<TForm>(key) ?? initial) as DefaultValues<TForm>,
+    ...(resolver ? { resolver } : {}),
+  });
+  const initialRef = useRef(initial);
+  initialRef.current = initial;
+  // Resetting the form is not an edit: it must not write the draft back.
+  const isResetting = useRef(false);
+
+  const resetTo = useCallback(
+    (values: TForm) => {
+      isResetting.current = true;
+      try {
+        form.reset(values);
+      } finally {
+        isResetting.current = false;
+      }
+    },
+    [form],
+  );
+
+  useEffect(() => {
+    const subscription = form.watch((values) => {
+      if (!isResetting.current) writeDraft(key, values);
+    });
+    return () => subscription.unsubscribe();
+  }, [form, key]);
+
+  // The draft went away elsewhere (saved, discarded, another tab): show the record as it is now.
+  const hadDraft = useRef(stored !== undefined);
+  useEffect(() => {
+    if (hadDraft.current && stored === undefined) resetTo(initialRef.current);
+    hadDraft.current = stored !== undefined;
+  }, [resetTo, stored]);
+
+  // Without a draft the form shows the record: follow it when it changes (someone else saved).
+  const initialJson = JSON.stringify(initial);
+  const shownJson = useRef(initialJson);
+  useEffect(() => {
+    if (shownJson.current === initialJson) return;
+    shownJson.current = initialJson;
+    if (readDraft(key) === undefined) resetTo(initialRef.current);
+  }, [initialJson, key, resetTo]);
+
+  const clear = useCallback(() => {
+    clearDraft(key);
+    resetTo(initialRef.current);
+  }, [key, resetTo]);
+
+  return { form, hasDraft: stored !== undefined, clear };
 }

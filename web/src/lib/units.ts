@@ -9,6 +9,10 @@ export type GaugeSystem = 'awg' | 'mm2';
 
 export type UnitPreferences = { length: LengthSystem; gauge: GaugeSystem };
 
+/** How each unit system is named in choices (settings, the units chooser). */
+export const LENGTH_UNIT_LABELS: Record<LengthSystem, string> = { imperial: 'Feet and inches', metric: 'Metres and centimetres' };
+export const GAUGE_UNIT_LABELS: Record<GaugeSystem, string> = { awg: 'AWG', mm2: 'mm²' };
+
 /**
  * - `long`: run lengths, stations, ties (feet / metres);
  * - `short`: depths and hole sizes (inches / centimetres).

@@ -9,3 +9,5 @@ export * from './photos.js';
 export * from './packets.js';
 export * from './delivery.js';
 export * from './signatures.js';
+export * from './preferences.js';
+export * from './outgoing-mail.js';

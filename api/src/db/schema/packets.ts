@@ -3,7 +3,7 @@ import { bigint, check, index, integer, jsonb, pgEnum, pgTable, text, timestamp,
 
 import type { PacketSnapshot } from '../../domain/packet/packet-snapshot.js';
 import { companies } from './companies.js';
-import { jobs } from './jobs.js';
+import { gaugeSystem, jobs } from './jobs.js';
 import { users } from './users.js';
 
 export const paperSize = pgEnum('paper_size', ['letter', 'a4']);
@@ -19,6 +19,8 @@ export const companySettings = pgTable('company_settings', {
     .references(() => companies.id, { onDelete: 'cascade' }),
   paperSize: paperSize('paper_size').notNull().default('letter'),
   units: unitSystem('units').notNull().default('imperial'),
+  /** The company's default for wire sizes in the app (each user may override it, see user_preferences). */
+  gaugeUnits: gaugeSystem('gauge_units').notNull().default('awg'),
   /** Licence numbers as printed, e.g. "CA C-7 #1234567". */
   licenceNumbers: text('licence_numbers').array().notNull().default(sql`'{}'::text[]`),
   contactPhone: text('contact_phone'),

@@ -32,17 +32,18 @@ export const CreateJobSchema = z
 export type CreateJobInput = z.infer<typeof CreateJobSchema>;
 
 /** Fields of a job a write may change. The site is fixed: its reference points anchor the ties. */
-export const UpdateJobSchema = z
-  .object({
-    title: TitleSchema,
-    crewLeadUserId: z.uuid().nullable(),
-    technicianUserIds: CrewSchema,
-    startDate: IsoDateSchema.nullable(),
-    endDate: IsoDateSchema.nullable(),
-    notes: NotesSchema,
-  })
-  .partial()
-  .refine((v) => Object.keys(v).length > 0, { error: 'nothing to change' });
+export const JobDetailsSchema = z.object({
+  title: TitleSchema,
+  crewLeadUserId: z.uuid().nullable(),
+  technicianUserIds: CrewSchema,
+  startDate: IsoDateSchema.nullable(),
+  endDate: IsoDateSchema.nullable(),
+  notes: NotesSchema,
+});
+export type JobDetails = z.infer<typeof JobDetailsSchema>;
+
+/** `PATCH /api/jobs/:id`: any of the job's details; the dates are checked against the stored ones too. */
+export const UpdateJobSchema = JobDetailsSchema.partial().refine((v) => Object.keys(v).length > 0, { error: 'nothing to change' });
 export type UpdateJobInput = z.infer<typeof UpdateJobSchema>;
 
 /**
@@ -60,15 +61,22 @@ export type JobSortField = (typeof JOB_SORTS)[number];
 
 /**
  * `GET /api/jobs`: `q` searches title, site label/address/city and customer name; `status` takes one
- * status or a comma-separated list; `sort` is a field, `-field` for descending (default `-updatedAt`);
+ * status, a comma-separated list or the parameter repeated (`status=draft&status=in_progress`); `sort` is a field, `-field` for descending (default `-updatedAt`);
  * `page` is 1-based; `mine=true` keeps jobs the caller leads or is assigned to.
  */
 export const JobListQuerySchema = z.object({
   q: z.string().trim().max(120).optional(),
   status: z
-    .string()
-    .transform((s) => s.split(',').map((part) => part.trim()).filter(Boolean))
-    .pipe(z.array(JobStatusSchema).max(JOB_STATUSES.length))
+    .union([z.string(), z.array(z.string()).max(JOB_STATUSES.length * 2)])
+    .transform((value, ctx) => {
+      const parts = (Array.isArray(value) ? value : [value]).flatMap((s) => s.split(',')).map((part) => part.trim()).filter(Boolean);
+      const unknown = parts.filter((part) => !(JOB_STATUSES as readonly string[]).includes(part));
+      if (unknown.length > 0) {
+        ctx.addIssue({ code: 'custom', message: `unknown status ${unknown.join(', ')}: use ${JOB_STATUSES.join(', ')}` });
+        return z.NEVER;
+      }
+      return [...new Set(parts)] as JobStatus[];
+    })
     .optional(),
   sort: z
     .string()

@@ -12,6 +12,7 @@ import { JobStatusBadge } from '../../../features/jobs/components/job-status-bad
 import { isJobStatus } from '../../../features/jobs/utils/job-status';
 import { getSiteQueryOptions, useSite } from '../../../features/sites/api/get-site';
 import { ReferencePoints } from '../../../features/sites/components/reference-points';
+import { SiteHomeowners } from '../../../features/sites/components/site-homeowners';
 import { SiteDialog } from '../../../features/sites/components/site-dialog';
 import { formatDate } from '../../../lib/format-date';
 import { useSessionUser } from '../../../lib/session';
@@ -96,18 +97,7 @@ export default function SiteRoute() {
           <Text as="h3" size={500} weight="semibold" className={styles.heading}>
             Homeowners
           </Text>
-          {site.homeowners.length === 0 ? (
-            <Text className={styles.muted}>No homeowner account is linked to this site yet.</Text>
-          ) : (
-            <ul className={styles.list} aria-label="Homeowners">
-              {site.homeowners.map((owner) => (
-                <li key={owner.id} className={styles.row}>
-                  <Text weight="semibold">{owner.name}</Text>
-                  <Text className={styles.muted}>{owner.email}</Text>
-                </li>
-              ))}
-            </ul>
-          )}
+          <SiteHomeowners site={site} canChange={isOffice} />
         </section>
         <section className={styles.section} aria-labelledby="site-points">
           <Text as="h3" id="site-points" size={500} weight="semibold" className={styles.heading}>

@@ -1,11 +1,12 @@
 import { Button, Field, Input, MessageBar, MessageBarBody, Select, Text, Textarea } from '@fluentui/react-components';
-import { useState } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { Controller } from 'react-hook-form';
+import { z } from 'zod';
 import type { AmplifierItem } from '@domain/as-built/item.schema';
 import { ChannelSetupSchema, type ChannelSetup } from '@domain/jobs/job-record.schema';
 
 import { useNotify } from '../../../components/notify';
-import { usePersistedDraft } from '../../../lib/drafts';
-import { fieldErrorsFromZod } from '../../../lib/form-errors';
+import { useDraftForm } from '../../../lib/drafts';
 import type { JobAsBuiltResponse } from '../api/get-job-as-built';
 import { useJobWriter } from '../hooks/job-writer';
 import { saveErrors } from '../utils/save-errors';
@@ -13,7 +14,9 @@ import { saveErrors } from '../utils/save-errors';
 import { useCardStyles } from './card-styles';
 import { useFormStyles } from './form-styles';
 
-type SetupDraft = Record<'source' | 'gain' | 'volumeLimit' | 'eq' | 'crossover' | 'polarity' | 'firmware' | 'networkName' | 'notes', string>;
+type SetupDraft = Record<'source' | 'gain' | 'volumeLimit' | 'eq' | 'crossover' | 'firmware' | 'networkName' | 'notes', string> & {
+  polarity: '' | 'normal' | 'inverted';
+};
 
 const TEXT_FIELDS: { key: Exclude<keyof SetupDraft, 'polarity' | 'notes'>; label: string; placeholder: string }[] = [
   { key: 'source', label: 'Source', placeholder: 'Streamer input 1' },
@@ -24,6 +27,34 @@ const TEXT_FIELDS: { key: Exclude<keyof SetupDraft, 'polarity' | 'notes'>; label
   { key: 'firmware', label: 'Firmware', placeholder: '2.4.1' },
   { key: 'networkName', label: 'Network name (never the password)', placeholder: 'Backyard-Audio' },
 ];
+
+const orNull = (value: string) => (value.trim() === '' ? null : value.trim());
+
+/** Blank fields are "not recorded" (null); the rest is checked by the shared schema under each field. */
+const SetupFormSchema = z
+  .object({
+    source: z.string(),
+    gain: z.string(),
+    volumeLimit: z.string(),
+    eq: z.string(),
+    crossover: z.string(),
+    polarity: z.enum(['', 'normal', 'inverted']),
+    firmware: z.string(),
+    networkName: z.string(),
+    notes: z.string(),
+  })
+  .transform((draft): z.input<typeof ChannelSetupSchema> => ({
+    source: orNull(draft.source),
+    gain: orNull(draft.gain),
+    volumeLimit: orNull(draft.volumeLimit),
+    eq: orNull(draft.eq),
+    crossover: orNull(draft.crossover),
+    polarity: draft.polarity === '' ? null : draft.polarity,
+    firmware: orNull(draft.firmware),
+    networkName: orNull(draft.networkName),
+    notes: orNull(draft.notes),
+  }))
+  .pipe(ChannelSetupSchema);
 
 /** How each amplifier channel was left: source, gain, limits, EQ, crossover, polarity, firmware. */
 export function AmpSetupSection({ data, canRecord }: { data: JobAsBuiltResponse; canRecord: boolean }) {
@@ -84,42 +115,24 @@ function ChannelSetupCard({ jobId, amp, channel, setup, canRecord }: ChannelSetu
     networkName: setup?.networkName ?? '',
     notes: setup?.notes ?? '',
   };
-  const { value: draft, setValue, hasDraft, clear } = usePersistedDraft<SetupDraft>(draftKey, initial);
-  const [errors, setErrors] = useState<Record<string, string>>({});
-  const set = (key: keyof SetupDraft, value: string) => setValue((current) => ({ ...current, [key]: value }));
-  const orNull = (value: string) => (value.trim() === '' ? null : value.trim());
+  const { form, hasDraft, clear } = useDraftForm<SetupDraft, ChannelSetup>(draftKey, initial, zodResolver(SetupFormSchema));
 
-  const save = async () => {
-    const body = {
-      source: orNull(draft.source),
-      gain: orNull(draft.gain),
-      volumeLimit: orNull(draft.volumeLimit),
-      eq: orNull(draft.eq),
-      crossover: orNull(draft.crossover),
-      polarity: draft.polarity === '' ? null : draft.polarity,
-      firmware: orNull(draft.firmware),
-      networkName: orNull(draft.networkName),
-      notes: orNull(draft.notes),
-    };
-    const parsed = ChannelSetupSchema.safeParse(body);
-    if (!parsed.success) {
-      setErrors(fieldErrorsFromZod(parsed.error) as Record<string, string>);
-      return;
-    }
+  const save = form.handleSubmit(async (body) => {
     try {
       const outcome = await writer.save({
         method: 'PUT',
         path: `/items/${amp.id}/channels/${channel.id}/setup`,
-        body: parsed.data,
+        body,
         draftKey,
         label: `Setup of ${amp.label} · ${channel.name}`,
       });
       if (outcome === 'saved') notify.success('Setup saved', `${amp.label} · ${channel.name}`);
-      setErrors({});
     } catch (failure) {
-      setErrors(saveErrors(failure).fields);
+      const { fields, message } = saveErrors(failure);
+      for (const [field, text] of Object.entries(fields)) if (field in initial) form.setError(field as keyof SetupDraft, { message: text });
+      if (message) notify.error('Could not save the setup', message);
     }
-  };
+  });
 
   return (
     <div className={styles.card} aria-label={`${amp.label} · ${channel.name}`}>
@@ -127,32 +140,53 @@ function ChannelSetupCard({ jobId, amp, channel, setup, canRecord }: ChannelSetu
         {amp.label} · {channel.name}
       </Text>
       <div className={formStyles.grid}>
-        {TEXT_FIELDS.map((field) => (
-          <Field key={field.key} label={field.label} validationMessage={errors[field.key]}>
-            <Input
-              className={formStyles.control}
-              value={draft[field.key]}
-              placeholder={field.placeholder}
-              readOnly={!canRecord}
-              autoComplete="off"
-              onChange={(_e, d) => set(field.key, d.value)}
-            />
-          </Field>
+        {TEXT_FIELDS.map((text) => (
+          <Controller
+            key={text.key}
+            control={form.control}
+            name={text.key}
+            render={({ field, fieldState }) => (
+              <Field label={text.label} validationMessage={fieldState.error?.message}>
+                <Input
+                  ref={field.ref}
+                  className={formStyles.control}
+                  value={field.value}
+                  placeholder={text.placeholder}
+                  readOnly={!canRecord}
+                  autoComplete="off"
+                  onChange={(_e, d) => field.onChange(d.value)}
+                  onBlur={field.onBlur}
+                />
+              </Field>
+            )}
+          />
         ))}
-        <Field label="Polarity">
-          <Select className={formStyles.control} value={draft.polarity} disabled={!canRecord} onChange={(_e, d) => set('polarity', d.value)}>
-            <option value="">Not recorded</option>
-            <option value="normal">Normal</option>
-            <option value="inverted">Inverted</option>
-          </Select>
-        </Field>
-        <Field label="Notes" className={formStyles.wide}>
-          <Textarea value={draft.notes} readOnly={!canRecord} onChange={(_e, d) => set('notes', d.value)} resize="vertical" />
-        </Field>
+        <Controller
+          control={form.control}
+          name="polarity"
+          render={({ field, fieldState }) => (
+            <Field label="Polarity" validationMessage={fieldState.error?.message}>
+              <Select className={formStyles.control} value={field.value} disabled={!canRecord} onChange={(_e, d) => field.onChange(d.value)} onBlur={field.onBlur}>
+                <option value="">Not recorded</option>
+                <option value="normal">Normal</option>
+                <option value="inverted">Inverted</option>
+              </Select>
+            </Field>
+          )}
+        />
+        <Controller
+          control={form.control}
+          name="notes"
+          render={({ field, fieldState }) => (
+            <Field label="Notes" className={formStyles.wide} validationMessage={fieldState.error?.message}>
+              <Textarea value={field.value} readOnly={!canRecord} onChange={(_e, d) => field.onChange(d.value)} onBlur={field.onBlur} resize="vertical" />
+            </Field>
+          )}
+        />
       </div>
       {canRecord && (
         <div className={formStyles.actions}>
-          <Button appearance="primary" className={formStyles.bigButton} disabled={!hasDraft} onClick={() => void save()}>
+          <Button appearance="primary" className={formStyles.bigButton} disabled={!hasDraft || form.formState.isSubmitting} onClick={() => void save()}>
             Save setup
           </Button>
           {hasDraft && (

@@ -1,19 +1,25 @@
 import { Button, Checkbox, Field, Input, MessageBar, MessageBarBody, Select, Text, Textarea } from '@fluentui/react-components';
 import { Add24Regular, CheckmarkCircle20Regular, Delete20Regular, Warning20Filled } from '@fluentui/react-icons';
-import { useState, type FormEvent } from 'react';
-import { CheckInputSchema } from '@domain/jobs/job-record.schema';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { Controller } from 'react-hook-form';
+import { z } from 'zod';
+import { CheckInputSchema, type CheckInput } from '@domain/jobs/job-record.schema';
 
 import { useNotify } from '../../../components/notify';
-import { usePersistedDraft } from '../../../lib/drafts';
-import { fieldErrorsFromZod } from '../../../lib/form-errors';
+import { useDraftForm } from '../../../lib/drafts';
+import { toSentence } from '../../../lib/form-errors';
 import type { JobAsBuiltResponse } from '../api/get-job-as-built';
 import { useJobWriter } from '../hooks/job-writer';
+import { checkDeleteRequest } from '../utils/delete-requests';
 import { fieldDomId } from '../utils/finding-target';
 import { saveErrors } from '../utils/save-errors';
 
 import { useCardStyles } from './card-styles';
+import { useDeleteRecord } from './delete-record';
 import { useFormStyles } from './form-styles';
 
+/** The check as typed: the channel as "amplifier|channel", numbers as text. */
 type CheckDraft = {
   channel: string;
   quantity: 'dc_resistance' | 'impedance';
@@ -24,37 +30,36 @@ type CheckDraft = {
   notes: string;
 };
 
-/** Commissioning checks: a reading per channel compared with what the wiring should measure. */
-export function ChecksSection({ data, canAddField }: { data: JobAsBuiltResponse; canAddField: boolean }) {
-  const styles = useCardStyles();
-  const formStyles = useFormStyles();
-  const notify = useNotify();
-  const writer = useJobWriter();
-  const { asBuilt, analysis, job } = data;
-  const draftKey = `job:${job.id}:check:new`;
-  const [isAdding, setIsAdding] = useState(false);
-  const [errors, setErrors] = useState<Record<string, string>>({});
-  const [message, setMessage] = useState<string | undefined>();
-  const { value: draft, setValue, hasDraft, clear } = usePersistedDraft<CheckDraft>(draftKey, {
-    channel: '',
-    quantity: 'dc_resistance',
-    measuredOhm: '',
-    frequencyHz: '',
-    isPolarityOk: true,
-    isInsulationOk: true,
-    notes: '',
-  });
-  const set = <K extends keyof CheckDraft>(key: K, value: CheckDraft[K]) => setValue((current) => ({ ...current, [key]: value }));
-  const channels = asBuilt.items.flatMap((item) =>
-    item.kind === 'amplifier' ? item.channels.map((c) => ({ key: `${item.id}|${c.id}`, label: `${item.label} · ${c.name}` })) : [],
-  );
-  const channelLabel = (ref: { amplifierItemId: string; channelId: string }) =>
-    channels.find((c) => c.key === `${ref.amplifierItemId}|${ref.channelId}`)?.label ?? 'Unknown channel';
+const EMPTY_CHECK: CheckDraft = {
+  channel: '',
+  quantity: 'dc_resistance',
+  measuredOhm: '',
+  frequencyHz: '',
+  isPolarityOk: true,
+  isInsulationOk: true,
+  notes: '',
+};
+type CheckBody = Omit<CheckInput, 'id'>;
+const CHECK_FIELDS = ['channel', 'quantity', 'measuredOhm', 'frequencyHz', 'notes'] as const;
 
-  const add = async (event: FormEvent) => {
-    event.preventDefault();
+/** Reads the typed check into the shared domain shape and checks it against the shared schema; problems land under their field. */
+const CheckFormSchema = z
+  .object({
+    channel: z.string(),
+    quantity: z.enum(['dc_resistance', 'impedance']),
+    measuredOhm: z.string(),
+    frequencyHz: z.string(),
+    isPolarityOk: z.boolean(),
+    isInsulationOk: z.boolean(),
+    notes: z.string(),
+  })
+  .transform((draft, ctx): CheckBody => {
+    if (draft.channel === '') {
+      ctx.addIssue({ code: 'custom', path: ['channel'], message: 'Choose the channel you measured.' });
+      return z.NEVER;
+    }
     const [amplifierItemId = '', channelId = ''] = draft.channel.split('|');
-    const body = {
+    const parsed = CheckInputSchema.safeParse({
       channel: { amplifierItemId, channelId },
       quantity: draft.quantity,
       measuredOhm: draft.measuredOhm.trim() === '' ? undefined : Number(draft.measuredOhm.replace(',', '.')),
@@ -62,31 +67,52 @@ export function ChecksSection({ data, canAddField }: { data: JobAsBuiltResponse;
       isPolarityOk: draft.isPolarityOk,
       isInsulationOk: draft.isInsulationOk,
       notes: draft.notes.trim() === '' ? undefined : draft.notes,
-    };
-    const parsed = CheckInputSchema.safeParse(body);
-    const found = parsed.success ? {} : (fieldErrorsFromZod(parsed.error) as Record<string, string>);
-    if (draft.channel === '') found.channel = 'Choose the channel you measured.';
-    setErrors(found);
+    });
+    if (parsed.success) {
+      // The server assigns the id; the schema's placeholder is not sent.
+      const { id: _id, ...body } = parsed.data;
+      return body;
+    }
+    for (const issue of parsed.error.issues) {
+      const field = String(issue.path[0] ?? 'channel');
+      ctx.addIssue({ code: 'custom', path: [(CHECK_FIELDS as readonly string[]).includes(field) ? field : 'channel'], message: toSentence(issue.message) });
+    }
+    return z.NEVER;
+  });
+
+/** Commissioning checks: a reading per channel compared with what the wiring should measure. */
+export function ChecksSection({ data, canAddField }: { data: JobAsBuiltResponse; canAddField: boolean }) {
+  const styles = useCardStyles();
+  const formStyles = useFormStyles();
+  const notify = useNotify();
+  const writer = useJobWriter();
+  const deletion = useDeleteRecord();
+  const { asBuilt, analysis, job } = data;
+  const draftKey = `job:${job.id}:check:new`;
+  const [isAdding, setIsAdding] = useState(false);
+  const [message, setMessage] = useState<string | undefined>();
+  const { form, hasDraft, clear } = useDraftForm<CheckDraft, CheckBody>(draftKey, EMPTY_CHECK, zodResolver(CheckFormSchema));
+  const quantity = form.watch('quantity');
+  const channels = asBuilt.items.flatMap((item) =>
+    item.kind === 'amplifier' ? item.channels.map((c) => ({ key: `${item.id}|${c.id}`, label: `${item.label} · ${c.name}` })) : [],
+  );
+  const channelLabel = (ref: { amplifierItemId: string; channelId: string }) =>
+    channels.find((c) => c.key === `${ref.amplifierItemId}|${ref.channelId}`)?.label ?? 'Unknown channel';
+
+  const add = form.handleSubmit(async (body) => {
     setMessage(undefined);
-    if (Object.keys(found).length > 0) return;
     try {
       const outcome = await writer.save({ method: 'POST', path: '/checks', body, draftKey, label: `Check of ${channelLabel(body.channel)}`, isAdditive: true });
       if (outcome === 'saved') notify.success('Check saved');
       setIsAdding(false);
     } catch (failure) {
       const { fields, message: text } = saveErrors(failure);
-      setErrors(fields);
+      for (const [field, fieldMessage] of Object.entries(fields)) {
+        if ((CHECK_FIELDS as readonly string[]).includes(field)) form.setError(field as (typeof CHECK_FIELDS)[number], { message: fieldMessage });
+      }
       setMessage(text);
     }
-  };
-
-  const remove = async (checkId: string) => {
-    try {
-      await writer.save({ method: 'DELETE', path: `/checks/${checkId}`, label: 'Removing a check' });
-    } catch (failure) {
-      notify.error('Could not remove the check', saveErrors(failure).message);
-    }
-  };
+  });
 
   return (
     <section aria-labelledby="section-checks" className={formStyles.form}>
@@ -108,38 +134,80 @@ export function ChecksSection({ data, canAddField }: { data: JobAsBuiltResponse;
             </MessageBar>
           )}
           <div className={formStyles.grid}>
-            <Field label="Channel" required validationMessage={errors.channel}>
-              <Select className={formStyles.control} value={draft.channel} onChange={(_e, d) => set('channel', d.value)}>
-                <option value="">Choose…</option>
-                {channels.map((c) => (
-                  <option key={c.key} value={c.key}>
-                    {c.label}
-                  </option>
-                ))}
-              </Select>
-            </Field>
-            <Field label="Measured">
-              <Select className={formStyles.control} value={draft.quantity} onChange={(_e, d) => set('quantity', d.value as CheckDraft['quantity'])}>
-                <option value="dc_resistance">DC resistance (meter)</option>
-                <option value="impedance">Impedance (impedance meter)</option>
-              </Select>
-            </Field>
-            <Field label="Reading (Ω)" required validationMessage={errors.measuredOhm}>
-              <Input className={formStyles.control} inputMode="decimal" value={draft.measuredOhm} onChange={(_e, d) => set('measuredOhm', d.value)} />
-            </Field>
-            {draft.quantity === 'impedance' && (
-              <Field label="At (Hz)" validationMessage={errors.frequencyHz}>
-                <Input className={formStyles.control} inputMode="decimal" value={draft.frequencyHz} placeholder="1000" onChange={(_e, d) => set('frequencyHz', d.value)} />
-              </Field>
+            <Controller
+              control={form.control}
+              name="channel"
+              render={({ field, fieldState }) => (
+                <Field label="Channel" required validationMessage={fieldState.error?.message}>
+                  <Select ref={field.ref} className={formStyles.control} value={field.value} onChange={(_e, d) => field.onChange(d.value)} onBlur={field.onBlur}>
+                    <option value="">Choose…</option>
+                    {channels.map((c) => (
+                      <option key={c.key} value={c.key}>
+                        {c.label}
+                      </option>
+                    ))}
+                  </Select>
+                </Field>
+              )}
+            />
+            <Controller
+              control={form.control}
+              name="quantity"
+              render={({ field }) => (
+                <Field label="Measured">
+                  <Select className={formStyles.control} value={field.value} onChange={(_e, d) => field.onChange(d.value)} onBlur={field.onBlur}>
+                    <option value="dc_resistance">DC resistance (meter)</option>
+                    <option value="impedance">Impedance (impedance meter)</option>
+                  </Select>
+                </Field>
+              )}
+            />
+            <Controller
+              control={form.control}
+              name="measuredOhm"
+              render={({ field, fieldState }) => (
+                <Field label="Reading (Ω)" required validationMessage={fieldState.error?.message}>
+                  <Input ref={field.ref} className={formStyles.control} inputMode="decimal" value={field.value} onChange={(_e, d) => field.onChange(d.value)} onBlur={field.onBlur} />
+                </Field>
+              )}
+            />
+            {quantity === 'impedance' && (
+              <Controller
+                control={form.control}
+                name="frequencyHz"
+                render={({ field, fieldState }) => (
+                  <Field label="At (Hz)" validationMessage={fieldState.error?.message}>
+                    <Input className={formStyles.control} inputMode="decimal" value={field.value} placeholder="1000" onChange={(_e, d) => field.onChange(d.value)} onBlur={field.onBlur} />
+                  </Field>
+                )}
+              />
             )}
-            <Checkbox className={formStyles.control} checked={draft.isPolarityOk} onChange={(_e, d) => set('isPolarityOk', d.checked === true)} label="Polarity correct at every speaker" />
-            <Checkbox className={formStyles.control} checked={draft.isInsulationOk} onChange={(_e, d) => set('isInsulationOk', d.checked === true)} label="No short to ground or between pairs" />
-            <Field label="Notes" className={formStyles.wide}>
-              <Textarea value={draft.notes} onChange={(_e, d) => set('notes', d.value)} resize="vertical" />
-            </Field>
+            <Controller
+              control={form.control}
+              name="isPolarityOk"
+              render={({ field }) => (
+                <Checkbox className={formStyles.control} checked={field.value} onChange={(_e, d) => field.onChange(d.checked === true)} label="Polarity correct at every speaker" />
+              )}
+            />
+            <Controller
+              control={form.control}
+              name="isInsulationOk"
+              render={({ field }) => (
+                <Checkbox className={formStyles.control} checked={field.value} onChange={(_e, d) => field.onChange(d.checked === true)} label="No short to ground or between pairs" />
+              )}
+            />
+            <Controller
+              control={form.control}
+              name="notes"
+              render={({ field, fieldState }) => (
+                <Field label="Notes" className={formStyles.wide} validationMessage={fieldState.error?.message}>
+                  <Textarea value={field.value} onChange={(_e, d) => field.onChange(d.value)} onBlur={field.onBlur} resize="vertical" />
+                </Field>
+              )}
+            />
           </div>
           <div className={formStyles.actions}>
-            <Button type="submit" appearance="primary" className={formStyles.bigButton}>
+            <Button type="submit" appearance="primary" className={formStyles.bigButton} disabled={form.formState.isSubmitting}>
               Save check
             </Button>
             <Button
@@ -169,7 +237,13 @@ export function ChecksSection({ data, canAddField }: { data: JobAsBuiltResponse;
                     {channelLabel(check.channel)}: {check.measuredOhm} Ω {check.quantity === 'impedance' ? 'impedance' : 'DC'}
                   </Text>
                   {canAddField && (
-                    <Button appearance="subtle" className={formStyles.button} icon={<Delete20Regular />} aria-label="Remove this check" onClick={() => void remove(check.id)} />
+                    <Button
+                      appearance="subtle"
+                      className={formStyles.button}
+                      icon={<Delete20Regular />}
+                      aria-label={`Delete the check of ${channelLabel(check.channel)}`}
+                      onClick={() => deletion.ask(checkDeleteRequest(check, `of ${channelLabel(check.channel)} (${check.measuredOhm} Ω)`))}
+                    />
                   )}
                 </div>
                 {result && (
@@ -183,6 +257,7 @@ export function ChecksSection({ data, canAddField }: { data: JobAsBuiltResponse;
           })}
         </ul>
       )}
+      {deletion.dialog}
     </section>
   );
 }

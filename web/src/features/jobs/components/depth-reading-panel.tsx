@@ -1,21 +1,28 @@
 import { Button, makeStyles, mergeClasses, MessageBar, MessageBarBody, Spinner, Text, tokens } from '@fluentui/react-components';
 import { Camera20Regular, CheckmarkCircle20Regular, Delete20Regular, Edit20Regular, Warning20Filled } from '@fluentui/react-icons';
-import { useEffect, useRef, useState, type FormEvent } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { Controller } from 'react-hook-form';
+import { z } from 'zod';
 import type { RunDepthResult } from '@domain/depth/depth-check';
 import { checkRunDepth } from '@domain/depth/depth-check';
 import { DEFAULT_DEPTH_RULES, findDepthRule } from '@domain/depth/depth-rules';
 import type { Run } from '@domain/as-built/run.schema';
+import { DepthReadingInputSchema, type DepthReadingInput } from '@domain/jobs/job-record.schema';
 
 import { useNotify } from '../../../components/notify';
-import { usePersistedDraft } from '../../../lib/drafts';
-import { formatLength, lengthInputValue } from '../../../lib/units';
+import { useDraftForm, writeDraft } from '../../../lib/drafts';
+import { toSentence } from '../../../lib/form-errors';
+import { formatLength, lengthInputValue, type UnitPreferences } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 import { PhotoStrip } from '../../photos/components/photo-strip';
 import { usePhotoActions } from '../../photos/hooks/photo-actions';
 import { useJobWriter } from '../hooks/job-writer';
+import { depthReadingDeleteRequest } from '../utils/delete-requests';
 import { fieldDomId } from '../utils/finding-target';
 import { saveErrors } from '../utils/save-errors';
 
+import { useDeleteRecord } from './delete-record';
 import { useFormStyles } from './form-styles';
 import { LengthInput, readLength } from './length-input';
 
@@ -49,7 +56,34 @@ const useStyles = makeStyles({
   targeted: { outline: `${tokens.strokeWidthThick} solid ${tokens.colorPaletteDarkOrangeBorder2}` },
 });
 
+/** The two fields as typed (in the person's units), and which saved reading is being changed. */
 type DepthDraft = { station: string; depth: string; editing?: number };
+type DepthReadingOutput = { body: DepthReadingInput; editing?: number };
+const EMPTY_DRAFT: DepthDraft = { station: '', depth: '' };
+
+/**
+ * Reads the typed lengths in the person's units (conversions in lib/units) into the shared domain shape,
+ * and checks them against the shared schema; every problem lands under the field it is about.
+ */
+function depthReadingFormSchema(units: UnitPreferences) {
+  return z
+    .object({ station: z.string(), depth: z.string(), editing: z.number().int().min(0).optional() })
+    .transform((draft, ctx): DepthReadingOutput => {
+      const station = readLength(draft.station, units, 'long');
+      const cover = readLength(draft.depth, units, 'short');
+      if (station.error) ctx.addIssue({ code: 'custom', path: ['station'], message: station.error });
+      if (cover.error) ctx.addIssue({ code: 'custom', path: ['depth'], message: cover.error });
+      if (station.metres === undefined || cover.metres === undefined) return z.NEVER;
+      const parsed = DepthReadingInputSchema.safeParse({ stationM: station.metres, depthM: cover.metres });
+      if (!parsed.success) {
+        for (const issue of parsed.error.issues) {
+          ctx.addIssue({ code: 'custom', path: [issue.path[0] === 'stationM' ? 'station' : 'depth'], message: toSentence(issue.message) });
+        }
+        return z.NEVER;
+      }
+      return { body: parsed.data, editing: draft.editing };
+    });
+}
 
 type DepthReadingPanelProps = {
   jobId: string;
@@ -71,16 +105,17 @@ export function DepthReadingPanel({ jobId, run, depth, readingIds, canWrite, tar
   const formStyles = useFormStyles();
   const notify = useNotify();
   const writer = useJobWriter();
+  const deletion = useDeleteRecord();
   const photos = usePhotoActions();
   const [units] = useUnitPreferences();
   const draftKey = `job:${jobId}:depth:${run.id}`;
-  const { value: draft, setValue, hasDraft, clear } = usePersistedDraft<DepthDraft>(draftKey, { station: '', depth: '' });
-  const [errors, setErrors] = useState<{ station?: string; depth?: string }>({});
+  const schema = useMemo(() => depthReadingFormSchema(units), [units]);
+  const { form, hasDraft, clear } = useDraftForm<DepthDraft, DepthReadingOutput>(draftKey, EMPTY_DRAFT, zodResolver(schema));
   const [message, setMessage] = useState<string | undefined>();
-  const [isSaving, setIsSaving] = useState(false);
   const stationRef = useRef<HTMLInputElement>(null);
   const depthRef = useRef<HTMLInputElement>(null);
   const readings = run.depthReadings ?? [];
+  const [typedStationText, typedDepthText, editing] = form.watch(['station', 'depth', 'editing']);
 
   // The rule the server used; before the first reading, the default table's rule for this method.
   const rule = depth?.rule ?? findDepthRule(DEFAULT_DEPTH_RULES, run.method, run.location ?? 'general') ?? null;
@@ -91,8 +126,8 @@ export function DepthReadingPanel({ jobId, run, depth, readingIds, canWrite, tar
     document.getElementById(fieldDomId(run.id, 'depth', targetReading))?.focus();
   }, [run.id, targetReading]);
 
-  const typedDepth = draft.depth.trim() === '' ? undefined : readLength(draft.depth, units, 'short').metres;
-  const typedStation = readLength(draft.station, units, 'long').metres ?? 0;
+  const typedDepth = typedDepthText.trim() === '' ? undefined : readLength(typedDepthText, units, 'short').metres;
+  const typedStation = readLength(typedStationText, units, 'long').metres ?? 0;
   const verdict =
     typedDepth === undefined || minCoverM === null || rule === null
       ? undefined
@@ -105,17 +140,10 @@ export function DepthReadingPanel({ jobId, run, depth, readingIds, canWrite, tar
         ? 'shallow'
         : 'ok';
 
-  const handleSubmit = async (event: FormEvent) => {
-    event.preventDefault();
-    const station = readLength(draft.station, units, 'long');
-    const cover = readLength(draft.depth, units, 'short');
-    setErrors({ station: station.error, depth: cover.error });
+  const save = form.handleSubmit(async ({ body, editing: index }) => {
     setMessage(undefined);
-    if (station.metres === undefined || cover.metres === undefined) return;
-    const editingId = draft.editing === undefined ? undefined : readingIds[draft.editing];
-    const body = { stationM: station.metres, depthM: cover.metres };
+    const editingId = index === undefined ? undefined : readingIds[index];
     const label = `Depth reading on "${run.label}" at ${formatLength(body.stationM, units.length, 'long')}`;
-    setIsSaving(true);
     try {
       const outcome = await writer.save(
         editingId
@@ -132,22 +160,12 @@ export function DepthReadingPanel({ jobId, run, depth, readingIds, canWrite, tar
       stationRef.current?.focus();
     } catch (error) {
       const { fields, message: text } = saveErrors(error);
-      setErrors({ station: fields.stationM, depth: fields.depthM });
+      if (fields.stationM) form.setError('station', { message: fields.stationM });
+      if (fields.depthM) form.setError('depth', { message: fields.depthM });
       setMessage(text);
-    } finally {
-      setIsSaving(false);
     }
-  };
-
-  const remove = async (index: number) => {
-    const readingId = readingIds[index];
-    if (!readingId) return;
-    try {
-      await writer.save({ method: 'DELETE', path: `/runs/${run.id}/depth-readings/${readingId}`, label: `Removing a depth reading on "${run.label}"` });
-    } catch (error) {
-      notify.error('Could not remove the reading', saveErrors(error).message);
-    }
-  };
+  });
+  const isSaving = form.formState.isSubmitting;
 
   return (
     <section className={styles.root} aria-label={`Depth readings of ${run.label}`}>
@@ -188,11 +206,14 @@ export function DepthReadingPanel({ jobId, run, depth, readingIds, canWrite, tar
                       icon={<Edit20Regular />}
                       aria-label={`Change the reading at ${formatLength(reading.stationM, units.length, 'long')}`}
                       onClick={() => {
-                        setValue({
+                        const values = {
                           station: lengthInputValue(reading.stationM, units.length, 'long'),
                           depth: lengthInputValue(reading.depthM, units.length, 'short'),
                           editing: index,
-                        });
+                        };
+                        form.reset(values);
+                        // Changing a saved reading is unsaved input too: keep it as the draft.
+                        writeDraft(draftKey, values);
                         depthRef.current?.focus();
                       }}
                     />
@@ -200,8 +221,13 @@ export function DepthReadingPanel({ jobId, run, depth, readingIds, canWrite, tar
                       appearance="subtle"
                       className={formStyles.button}
                       icon={<Delete20Regular />}
-                      aria-label={`Remove the reading at ${formatLength(reading.stationM, units.length, 'long')}`}
-                      onClick={() => void remove(index)}
+                      aria-label={`Delete the reading at ${formatLength(reading.stationM, units.length, 'long')}`}
+                      onClick={() => {
+                        const readingId = readingIds[index];
+                        if (!readingId) return;
+                        const description = `${formatLength(reading.depthM, units.length, 'short')} at ${formatLength(reading.stationM, units.length, 'long')}`;
+                        deletion.ask(depthReadingDeleteRequest(run, readingId, reading, description));
+                      }}
                     />
                   </>
                 )}
@@ -228,30 +254,42 @@ export function DepthReadingPanel({ jobId, run, depth, readingIds, canWrite, tar
         </ul>
       )}
       {canWrite && (
-        <form className={formStyles.form} onSubmit={(event) => void handleSubmit(event)} noValidate aria-label={`Add a depth reading to ${run.label}`}>
+        <form className={formStyles.form} onSubmit={(event) => void save(event)} noValidate aria-label={`Add a depth reading to ${run.label}`}>
           {message && (
             <MessageBar intent="error" layout="multiline">
               <MessageBarBody>{message}</MessageBarBody>
             </MessageBar>
           )}
           <div className={styles.inputs}>
-            <LengthInput
-              id={fieldDomId(run.id, 'station')}
-              inputRef={stationRef}
-              label="Station (from the start)"
-              scale="long"
-              value={draft.station}
-              onChange={(station) => setValue((current) => ({ ...current, station }))}
-              error={errors.station}
+            <Controller
+              control={form.control}
+              name="station"
+              render={({ field, fieldState }) => (
+                <LengthInput
+                  id={fieldDomId(run.id, 'station')}
+                  inputRef={stationRef}
+                  label="Station (from the start)"
+                  scale="long"
+                  value={field.value}
+                  onChange={field.onChange}
+                  error={fieldState.error?.message}
+                />
+              )}
             />
-            <LengthInput
-              id={fieldDomId(run.id, 'depth')}
-              inputRef={depthRef}
-              label="Cover depth"
-              scale="short"
-              value={draft.depth}
-              onChange={(value) => setValue((current) => ({ ...current, depth: value }))}
-              error={errors.depth}
+            <Controller
+              control={form.control}
+              name="depth"
+              render={({ field, fieldState }) => (
+                <LengthInput
+                  id={fieldDomId(run.id, 'depth')}
+                  inputRef={depthRef}
+                  label="Cover depth"
+                  scale="short"
+                  value={field.value}
+                  onChange={field.onChange}
+                  error={fieldState.error?.message}
+                />
+              )}
             />
           </div>
           <div className={styles.verdict} aria-live="polite">
@@ -276,9 +314,9 @@ export function DepthReadingPanel({ jobId, run, depth, readingIds, canWrite, tar
               disabled={isSaving}
               icon={isSaving ? <Spinner size="tiny" /> : undefined}
             >
-              {draft.editing === undefined ? 'Save reading' : 'Save change'}
+              {editing === undefined ? 'Save reading' : 'Save change'}
             </Button>
-            {draft.editing !== undefined && (
+            {editing !== undefined && (
               <Button className={formStyles.bigButton} onClick={() => clear()}>
                 Stop changing
               </Button>
@@ -289,6 +327,7 @@ export function DepthReadingPanel({ jobId, run, depth, readingIds, canWrite, tar
           </div>
         </form>
       )}
+      {deletion.dialog}
     </section>
   );
 }

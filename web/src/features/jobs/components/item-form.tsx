@@ -1,13 +1,16 @@
 import { Button, Checkbox, Field, Input, MessageBar, MessageBarBody, Select, Spinner, Text, Textarea } from '@fluentui/react-components';
 import { Add20Regular, Delete20Regular } from '@fluentui/react-icons';
-import { useEffect, useRef, useState, type FormEvent } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { Controller } from 'react-hook-form';
+import { z } from 'zod';
 import type { AsBuilt } from '@domain/as-built/as-built.schema';
 import type { Item, ItemKind } from '@domain/as-built/item.schema';
 import { ItemInputSchema } from '@domain/jobs/job-record.schema';
 
 import { useNotify } from '../../../components/notify';
-import { usePersistedDraft } from '../../../lib/drafts';
-import { fieldErrorsFromZod } from '../../../lib/form-errors';
+import { useDraftForm } from '../../../lib/drafts';
+import { toSentence } from '../../../lib/form-errors';
 import { lengthInputValue, parseLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 import { useJobWriter } from '../hooks/job-writer';
@@ -170,6 +173,42 @@ function bodyOf(draft: ItemDraft, item: Item | undefined, units: { length: 'impe
   }
 }
 
+/** A domain path of an item body (`constantVoltage.tapWatts`, `ties.1.distanceM`) → the form field it is typed in. */
+const FIELD_OF_PATH: Record<string, keyof ItemDraft> = {
+  constantVoltage: 'tapWatts',
+  dcResistanceOhmPerCoil: 'dcResistanceOhm',
+  holeDiameterM: 'holeDiameter',
+};
+
+function itemFieldOf(path: string, draft: ItemDraft): keyof ItemDraft {
+  const head = path.split('.')[0] ?? '';
+  if (FIELD_OF_PATH[head]) return FIELD_OF_PATH[head];
+  return head in draft ? (head as keyof ItemDraft) : 'label';
+}
+
+/** The DOM id (for focus from a finding) of a form field: the domain name where they differ. */
+const DOM_NAME: Partial<Record<keyof ItemDraft, string>> = { tapWatts: 'constantVoltage', holeDiameter: 'holeDiameterM' };
+
+/**
+ * Reads the typed item (lengths in the person's units, converted in lib/units) into the item body and
+ * checks it against the shared ItemInputSchema; each problem lands under the field it is about.
+ */
+function itemFormSchema(units: { length: 'imperial' | 'metric' }, item: Item | undefined) {
+  return z.custom<ItemDraft>((value) => typeof value === 'object' && value !== null).transform((draft, ctx) => {
+    const body = bodyOf(draft, item, units);
+    const parsed = ItemInputSchema.safeParse(body);
+    if (parsed.success) return body;
+    const named = new Set<keyof ItemDraft>();
+    for (const problem of parsed.error.issues) {
+      const field = itemFieldOf(problem.path.map(String).join('.'), draft);
+      if (named.has(field)) continue;
+      named.add(field);
+      ctx.addIssue({ code: 'custom', path: [field], message: toSentence(problem.message) });
+    }
+    return z.NEVER;
+  });
+}
+
 type ItemFormProps = {
   jobId: string;
   asBuilt: AsBuilt;
@@ -190,12 +229,23 @@ export function ItemForm({ jobId, asBuilt, item, kind, kinds, focusField, onDone
   const [units] = useUnitPreferences();
   const draftKey = `job:${jobId}:item:${item?.id ?? `new-${kinds.join('-')}`}`;
   const recordId = item?.id ?? 'new-item';
-  const { value: draft, setValue, hasDraft, clear } = usePersistedDraft<ItemDraft>(draftKey, draftOf(item, kind, units));
-  const [errors, setErrors] = useState<Record<string, string>>({});
+  const schema = useMemo(() => itemFormSchema(units, item), [item, units]);
+  const { form, hasDraft, clear } = useDraftForm<ItemDraft, Record<string, unknown>>(draftKey, draftOf(item, kind, units), zodResolver(schema));
   const [message, setMessage] = useState<string | undefined>();
-  const [isSaving, setIsSaving] = useState(false);
   const formRef = useRef<HTMLFormElement>(null);
-  const set = <K extends keyof ItemDraft>(key: K, value: ItemDraft[K]) => setValue((current) => ({ ...current, [key]: value }));
+  const errors = form.formState.errors;
+  const [currentKind, speakerType, voiceCoils, channels, ties, sideHint, label] = form.watch([
+    'kind',
+    'speakerType',
+    'voiceCoils',
+    'channels',
+    'ties',
+    'sideHint',
+    'label',
+  ]);
+  /** Composite values (channels, ties) change as a whole; a change is an edit like any other. */
+  const change = <K extends keyof ItemDraft>(key: K, value: ItemDraft[K]) =>
+    form.setValue(key as never, value as never, { shouldDirty: true });
   const id = (field: string) => fieldDomId(recordId, field);
 
   useEffect(() => {
@@ -203,54 +253,94 @@ export function ItemForm({ jobId, asBuilt, item, kind, kinds, focusField, onDone
     formRef.current?.querySelector<HTMLElement>(`#${CSS.escape(fieldDomId(recordId, focusField))}`)?.focus();
   }, [focusField, recordId]);
 
-  const handleSubmit = async (event: FormEvent) => {
-    event.preventDefault();
-    const body = bodyOf(draft, item, units);
-    const parsed = ItemInputSchema.safeParse(body);
-    const found: Record<string, string> = parsed.success ? {} : (fieldErrorsFromZod(parsed.error) as Record<string, string>);
-    setErrors(found);
+  const save = form.handleSubmit(async (body) => {
     setMessage(undefined);
-    if (!parsed.success) return;
-    setIsSaving(true);
+    const name = String(body.label ?? label);
     try {
       const outcome = await writer.save({
         method: item ? 'PUT' : 'POST',
         path: item ? `/items/${item.id}` : '/items',
         body,
         draftKey,
-        label: item ? `Changes to "${draft.label}"` : `New ${ITEM_KIND_LABELS[draft.kind].toLowerCase()} "${draft.label}"`,
+        label: item ? `Changes to "${name}"` : `New ${ITEM_KIND_LABELS[currentKind].toLowerCase()} "${name}"`,
         isAdditive: !item,
       });
-      if (outcome === 'saved') notify.success(item ? 'Saved' : 'Added', draft.label);
+      if (outcome === 'saved') notify.success(item ? 'Saved' : 'Added', name);
       onDone();
     } catch (error) {
       const { fields, message: problem } = saveErrors(error);
-      setErrors(fields);
+      for (const [path, text] of Object.entries(fields)) form.setError(itemFieldOf(path, form.getValues()), { message: text });
       setMessage(problem);
-    } finally {
-      setIsSaving(false);
     }
-  };
+  });
+  const isSaving = form.formState.isSubmitting;
+  const errorOf = (field: keyof ItemDraft) => errors[field]?.message as string | undefined;
 
-  const numberField = (field: keyof ItemDraft & string, label: string, errorKey: string = field, hint?: string) => (
-    <Field label={label} validationMessage={errors[errorKey]} hint={hint}>
-      <Input
-        id={id(errorKey)}
-        className={styles.control}
-        inputMode="decimal"
-        value={String(draft[field])}
-        onChange={(_e, d) => set(field, d.value as never)}
-      />
-    </Field>
+  type StringField = { [K in keyof ItemDraft]: ItemDraft[K] extends string ? K : never }[keyof ItemDraft];
+  const numberField = (field: StringField, fieldLabel: string, domName: string = DOM_NAME[field] ?? field) => (
+    <Controller
+      control={form.control}
+      name={field}
+      render={({ field: input, fieldState }) => (
+        <Field label={fieldLabel} validationMessage={fieldState.error?.message}>
+          <Input
+            id={id(domName)}
+            ref={input.ref}
+            className={styles.control}
+            inputMode="decimal"
+            value={String(input.value)}
+            onChange={(_e, d) => input.onChange(d.value)}
+            onBlur={input.onBlur}
+          />
+        </Field>
+      )}
+    />
   );
-  const textField = (field: keyof ItemDraft & string, label: string, placeholder?: string) => (
-    <Field label={label} validationMessage={errors[field]}>
-      <Input id={id(field)} className={styles.control} value={String(draft[field])} placeholder={placeholder} onChange={(_e, d) => set(field, d.value as never)} />
-    </Field>
+  const textField = (field: StringField, fieldLabel: string, placeholder?: string, type?: 'date') => (
+    <Controller
+      control={form.control}
+      name={field}
+      render={({ field: input, fieldState }) => (
+        <Field label={fieldLabel} validationMessage={fieldState.error?.message}>
+          <Input
+            id={id(field)}
+            ref={input.ref}
+            type={type}
+            className={styles.control}
+            value={String(input.value)}
+            placeholder={placeholder}
+            onChange={(_e, d) => input.onChange(d.value)}
+            onBlur={input.onBlur}
+          />
+        </Field>
+      )}
+    />
+  );
+  const selectField = (field: StringField, fieldLabel: string, options: ReactNode, required?: boolean) => (
+    <Controller
+      control={form.control}
+      name={field}
+      render={({ field: input, fieldState }) => (
+        <Field label={fieldLabel} required={required} validationMessage={fieldState.error?.message}>
+          <Select id={id(field)} ref={input.ref} className={styles.control} value={String(input.value)} onChange={(_e, d) => input.onChange(d.value)} onBlur={input.onBlur}>
+            {options}
+          </Select>
+        </Field>
+      )}
+    />
+  );
+  const checkField = (field: 'isAccessible' | 'isCapped', fieldLabel: string) => (
+    <Controller
+      control={form.control}
+      name={field}
+      render={({ field: input }) => (
+        <Checkbox className={styles.control} checked={input.value} onChange={(_e, d) => input.onChange(d.checked === true)} label={fieldLabel} />
+      )}
+    />
   );
 
   return (
-    <form ref={formRef} className={styles.form} onSubmit={(event) => void handleSubmit(event)} noValidate>
+    <form ref={formRef} className={styles.form} onSubmit={(event) => void save(event)} noValidate>
       {message && (
         <MessageBar intent="error" layout="multiline">
           <MessageBarBody>{message}</MessageBarBody>
@@ -258,21 +348,28 @@ export function ItemForm({ jobId, asBuilt, item, kind, kinds, focusField, onDone
       )}
       {hasDraft && <Text className={styles.unsaved}>Not saved yet: your input is kept on this device until you save.</Text>}
       <div className={styles.grid}>
-        {!item && kinds.length > 1 && (
-          <Field label="Kind" required>
-            <Select id={id('kind')} className={styles.control} value={draft.kind} onChange={(_e, d) => set('kind', d.value as ItemKind)}>
-              {kinds.map((candidate) => (
-                <option key={candidate} value={candidate}>
-                  {ITEM_KIND_LABELS[candidate]}
-                </option>
-              ))}
-            </Select>
-          </Field>
-        )}
-        <Field label="Name" required validationMessage={errors.label}>
-          <Input id={id('label')} className={styles.control} value={draft.label} onChange={(_e, d) => set('label', d.value)} />
-        </Field>
-        {draft.kind === 'amplifier' && (
+        {!item &&
+          kinds.length > 1 &&
+          selectField(
+            'kind',
+            'Kind',
+            kinds.map((candidate) => (
+              <option key={candidate} value={candidate}>
+                {ITEM_KIND_LABELS[candidate]}
+              </option>
+            )),
+            true,
+          )}
+        <Controller
+          control={form.control}
+          name="label"
+          render={({ field, fieldState }) => (
+            <Field label="Name" required validationMessage={fieldState.error?.message}>
+              <Input id={id('label')} ref={field.ref} className={styles.control} value={field.value} onChange={(_e, d) => field.onChange(d.value)} onBlur={field.onBlur} />
+            </Field>
+          )}
+        />
+        {currentKind === 'amplifier' && (
           <>
             {numberField('ratedWatts8Ohm', 'Rated watts per channel at 8 Ω')}
             {numberField('ratedWatts4Ohm', 'Rated watts at 4 Ω (if rated)')}
@@ -281,142 +378,172 @@ export function ItemForm({ jobId, asBuilt, item, kind, kinds, focusField, onDone
               <Text weight="semibold" id={id('channels')} tabIndex={-1}>
                 Channels
               </Text>
-              {draft.channels.map((channel, i) => (
+              {errorOf('channels') && <Text className={styles.unsaved}>{errorOf('channels')}</Text>}
+              {channels.map((channel, i) => (
                 <div key={channel.id ?? `new-${i}`} className={styles.actions}>
                   <Field label={`Channel ${i + 1} name`}>
                     <Input
                       className={styles.control}
                       value={channel.name}
-                      onChange={(_e, d) => set('channels', draft.channels.map((c, j) => (j === i ? { ...c, name: d.value } : c)))}
+                      onChange={(_e, d) => change('channels', channels.map((c, j) => (j === i ? { ...c, name: d.value } : c)))}
                     />
                   </Field>
-                  {draft.channels.length > 1 && (
+                  {channels.length > 1 && (
                     <Button
                       appearance="subtle"
                       className={styles.button}
                       icon={<Delete20Regular />}
                       aria-label={`Remove channel ${channel.name}`}
-                      onClick={() => set('channels', draft.channels.filter((_c, j) => j !== i))}
+                      onClick={() => change('channels', channels.filter((_c, j) => j !== i))}
                     />
                   )}
                 </div>
               ))}
-              <Button className={styles.button} icon={<Add20Regular />} onClick={() => set('channels', [...draft.channels, { name: `Channel ${draft.channels.length + 1}` }])}>
+              <Button className={styles.button} icon={<Add20Regular />} onClick={() => change('channels', [...channels, { name: `Channel ${channels.length + 1}` }])}>
                 Add a channel
               </Button>
             </div>
           </>
         )}
-        {draft.kind === 'speaker' && (
+        {currentKind === 'speaker' && (
           <>
-            <Field label="Wired as">
-              <Select className={styles.control} value={draft.speakerType} onChange={(_e, d) => set('speakerType', d.value as 'lowz' | 'cv')}>
+            {selectField(
+              'speakerType',
+              'Wired as',
+              <>
                 <option value="lowz">Low impedance (Ω)</option>
                 <option value="cv">Constant-voltage line (tap watts)</option>
-              </Select>
-            </Field>
-            {draft.speakerType === 'lowz' ? (
+              </>,
+            )}
+            {speakerType === 'lowz' ? (
               numberField('nominalImpedanceOhm', 'Nominal impedance (Ω)')
             ) : (
               <>
-                <Field label="Line">
-                  <Select className={styles.control} value={draft.cvLine} onChange={(_e, d) => set('cvLine', d.value as ItemDraft['cvLine'])}>
+                {selectField(
+                  'cvLine',
+                  'Line',
+                  <>
                     <option value="25V">25 V</option>
                     <option value="70V">70 V</option>
                     <option value="100V">100 V</option>
-                  </Select>
-                </Field>
-                {numberField('tapWatts', 'Tap (watts)', 'constantVoltage')}
+                  </>,
+                )}
+                {numberField('tapWatts', 'Tap (watts)')}
               </>
             )}
             {numberField('dcResistanceOhm', 'DC resistance (Ω), if known')}
           </>
         )}
-        {draft.kind === 'subwoofer' && (
+        {currentKind === 'subwoofer' && (
           <>
-            <Field label="Voice coils">
-              <Select className={styles.control} value={draft.voiceCoils} onChange={(_e, d) => set('voiceCoils', d.value as 'single' | 'dual')}>
+            {selectField(
+              'voiceCoils',
+              'Voice coils',
+              <>
                 <option value="single">Single</option>
                 <option value="dual">Dual</option>
-              </Select>
-            </Field>
+              </>,
+            )}
             {numberField('coilImpedanceOhm', 'Impedance of one coil (Ω)')}
-            {draft.voiceCoils === 'dual' && (
-              <Field label="Coils wired" validationMessage={errors.coilWiring}>
-                <Select id={id('coilWiring')} className={styles.control} value={draft.coilWiring} onChange={(_e, d) => set('coilWiring', d.value as ItemDraft['coilWiring'])}>
+            {voiceCoils === 'dual' &&
+              selectField(
+                'coilWiring',
+                'Coils wired',
+                <>
                   <option value="">Choose…</option>
                   <option value="series">In series</option>
                   <option value="parallel">In parallel</option>
                   <option value="separate_channels">Each on its own channel</option>
-                </Select>
-              </Field>
-            )}
+                </>,
+              )}
             {numberField('dcResistanceOhm', 'DC resistance per coil (Ω), if known', 'dcResistanceOhmPerCoil')}
           </>
         )}
-        {(draft.kind === 'speaker' || draft.kind === 'subwoofer') && (
-          <Field label="Runs leaving it are wired">
-            <Select className={styles.control} value={draft.onwardWiring} onChange={(_e, d) => set('onwardWiring', d.value as ItemDraft['onwardWiring'])}>
+        {(currentKind === 'speaker' || currentKind === 'subwoofer') &&
+          selectField(
+            'onwardWiring',
+            'Runs leaving it are wired',
+            <>
               <option value="">In parallel (loop-through)</option>
               <option value="series">In series</option>
-            </Select>
-          </Field>
-        )}
-        {draft.kind === 'junction' && (
+            </>,
+          )}
+        {currentKind === 'junction' && (
           <>
             {textField('spliceType', 'Splice type', 'Gel-filled connectors in a valve box')}
-            <Checkbox className={styles.control} checked={draft.isAccessible} onChange={(_e, d) => set('isAccessible', d.checked === true)} label="Can be reached without digging" />
+            {checkField('isAccessible', 'Can be reached without digging')}
           </>
         )}
-        {draft.kind === 'spare_end' && (
+        {currentKind === 'spare_end' && (
           <>
-            <Checkbox className={styles.control} checked={draft.isCapped} onChange={(_e, d) => set('isCapped', d.checked === true)} label="Capped" />
+            {checkField('isCapped', 'Capped')}
             {textField('marker', 'Marker', 'Orange flag, buried 6 in')}
           </>
         )}
-        {draft.kind === 'wall_entry' && (
+        {currentKind === 'wall_entry' && (
           <>
             {textField('wallMaterial', 'Wall material', 'Brick veneer')}
-            <LengthInput id={id('holeDiameterM')} label="Hole size" scale="short" value={draft.holeDiameter} onChange={(v) => set('holeDiameter', v)} error={errors.holeDiameterM} />
+            <Controller
+              control={form.control}
+              name="holeDiameter"
+              render={({ field, fieldState }) => (
+                <LengthInput
+                  id={id('holeDiameterM')}
+                  inputRef={field.ref}
+                  label="Hole size"
+                  scale="short"
+                  value={field.value}
+                  onChange={field.onChange}
+                  error={fieldState.error?.message}
+                />
+              )}
+            />
             {textField('sleeve', 'Sleeve or conduit', '3/4 in PVC sleeve')}
             {textField('sealant', 'Sealant', 'Polyurethane sealant')}
             {textField('outsideLocation', 'Outside, where', 'Left of the patio door, 30 cm up')}
             {textField('insideLocation', 'Inside, where', 'Behind the media cabinet')}
           </>
         )}
-        <Field label="Zone" validationMessage={errors.zoneId}>
-          <Select id={id('zoneId')} className={styles.control} value={draft.zoneId} onChange={(_e, d) => set('zoneId', d.value)}>
+        {selectField(
+          'zoneId',
+          'Zone',
+          <>
             <option value="">No zone</option>
             {asBuilt.zones.map((zone) => (
               <option key={zone.id} value={zone.id}>
                 {zone.name}
               </option>
             ))}
-          </Select>
-        </Field>
+          </>,
+        )}
         {textField('model', 'Model')}
         {textField('serial', 'Serial number')}
-        <Field label="Installed on" validationMessage={errors.installDate}>
-          <Input id={id('installDate')} type="date" className={styles.control} value={draft.installDate} onChange={(_e, d) => set('installDate', d.value)} />
-        </Field>
-        <Field label="Warranty ends" validationMessage={errors.warrantyEnd}>
-          <Input id={id('warrantyEnd')} type="date" className={styles.control} value={draft.warrantyEnd} onChange={(_e, d) => set('warrantyEnd', d.value)} />
-        </Field>
-        {draft.kind !== 'amplifier' && (
+        {textField('installDate', 'Installed on', undefined, 'date')}
+        {textField('warrantyEnd', 'Warranty ends', undefined, 'date')}
+        {currentKind !== 'amplifier' && (
           <div className={styles.wide}>
             <TiesEditor
               recordId={recordId}
               referencePoints={asBuilt.referencePoints}
-              ties={draft.ties}
-              sideHint={draft.sideHint}
-              onChange={(ties, sideHint) => setValue((current) => ({ ...current, ties, sideHint }))}
-              error={errors.ties}
+              ties={ties}
+              sideHint={sideHint}
+              onChange={(nextTies, nextSide) => {
+                change('ties', nextTies);
+                change('sideHint', nextSide);
+              }}
+              error={errorOf('ties') ?? errorOf('sideHint')}
             />
           </div>
         )}
-        <Field label="Notes" className={styles.wide}>
-          <Textarea id={id('notes')} value={draft.notes} onChange={(_e, d) => set('notes', d.value)} resize="vertical" />
-        </Field>
+        <Controller
+          control={form.control}
+          name="notes"
+          render={({ field, fieldState }) => (
+            <Field label="Notes" className={styles.wide} validationMessage={fieldState.error?.message}>
+              <Textarea id={id('notes')} value={field.value} onChange={(_e, d) => field.onChange(d.value)} onBlur={field.onBlur} resize="vertical" />
+            </Field>
+          )}
+        />
       </div>
       <div className={styles.actions}>
         <Button type="submit" appearance="primary" className={styles.bigButton} disabled={isSaving} icon={isSaving ? <Spinner size="tiny" /> : undefined}>

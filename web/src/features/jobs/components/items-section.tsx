@@ -1,5 +1,5 @@
 import { Button, Text } from '@fluentui/react-components';
-import { Add24Regular, Camera20Regular, Edit20Regular } from '@fluentui/react-icons';
+import { Add24Regular, Camera20Regular, Delete20Regular, Edit20Regular } from '@fluentui/react-icons';
 import { useEffect, useState } from 'react';
 import type { Item, ItemKind } from '@domain/as-built/item.schema';
 
@@ -9,9 +9,11 @@ import { PhotoStrip } from '../../photos/components/photo-strip';
 import { usePhotoActions } from '../../photos/hooks/photo-actions';
 import type { JobAsBuiltResponse } from '../api/get-job-as-built';
 import { useWorkspaceFocus } from '../hooks/workspace-focus';
+import { itemDeleteRequest } from '../utils/delete-requests';
 import { ITEM_KIND_LABELS } from '../utils/record-labels';
 
 import { useCardStyles } from './card-styles';
+import { useDeleteRecord } from './delete-record';
 import { useFormStyles } from './form-styles';
 import { ItemForm } from './item-form';
 
@@ -44,6 +46,7 @@ export function ItemsSection({ data, canRecord, kinds }: ItemsSectionProps) {
   const [units] = useUnitPreferences();
   const { target } = useWorkspaceFocus();
   const photos = usePhotoActions();
+  const deletion = useDeleteRecord();
   const [editing, setEditing] = useState<{ id: string; field?: string } | undefined>();
   const { asBuilt, analysis, job } = data;
   const allowed = kinds === 'walls' ? WALL_KINDS : EQUIPMENT_KINDS;
@@ -116,6 +119,16 @@ export function ItemsSection({ data, canRecord, kinds }: ItemsSectionProps) {
                         Change
                       </Button>
                     )}
+                    {canRecord && (
+                      <Button
+                        className={formStyles.bigButton}
+                        icon={<Delete20Regular />}
+                        aria-label={`Delete ${item.label}`}
+                        onClick={() => deletion.ask(itemDeleteRequest(asBuilt, item))}
+                      >
+                        Delete
+                      </Button>
+                    )}
                     {photos.canChange && (
                       <Button className={formStyles.bigButton} icon={<Camera20Regular />} onClick={() => photos.addPhotos({ type: 'item', id: item.id })}>
                         Add photos
@@ -139,6 +152,7 @@ export function ItemsSection({ data, canRecord, kinds }: ItemsSectionProps) {
           })}
         </ul>
       )}
+      {deletion.dialog}
     </section>
   );
 }

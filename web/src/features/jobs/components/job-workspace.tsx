@@ -18,6 +18,7 @@ import { AmpSetupSection } from './amp-setup-section';
 import { ChecksSection } from './checks-section';
 import { FindingsPanel } from './findings-panel';
 import { ItemsSection } from './items-section';
+import { JobDetailsDialog } from './job-details-dialog';
 import { JobStatusActions } from './job-status-actions';
 import { JobStatusBadge } from './job-status-badge';
 import { NotesSection } from './notes-section';
@@ -132,11 +133,22 @@ export function JobWorkspace({ data, actor }: JobWorkspaceProps) {
             <Link to={paths.site.getHref(job.site.id)} className={styles.link}>
               {job.site.label}, {job.site.city}
             </Link>
+            <Link to={paths.jobPlan.getHref(job.id)} className={styles.link}>
+              Open the plan
+            </Link>
+            <Link to={paths.jobDrawings.getHref(job.id)} className={styles.link}>
+              Drawings
+            </Link>
             <span>{job.customer.name}</span>
             {job.revision > 1 && <span>Revision {job.revision}</span>}
           </span>
         }
-        actions={<JobStatusActions job={job} analysis={analysis} actor={actor} />}
+        actions={
+          <>
+            <JobDetailsDialog job={job} canChange={permissions.canChangeDetails} />
+            <JobStatusActions job={job} analysis={analysis} actor={actor} />
+          </>
+        }
       />
       <div className={styles.layout}>
         <div className={styles.main}>

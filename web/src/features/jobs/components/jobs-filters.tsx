@@ -1,8 +1,8 @@
-import { Field, makeStyles, SearchBox, Select, Tab, TabList, tokens } from '@fluentui/react-components';
+import { Combobox, Field, makeStyles, Option, SearchBox, Select, Tab, TabList, tokens } from '@fluentui/react-components';
 import { useEffect, useState } from 'react';
 
 import type { JobListParams } from '../api/get-jobs';
-import { isJobStatus, JOB_STATUS_TEXT, JOB_STATUSES } from '../utils/job-status';
+import { JOB_STATUS_TEXT, JOB_STATUSES } from '../utils/job-status';
 
 const useStyles = makeStyles({
   root: {
@@ -36,7 +36,7 @@ type JobsFiltersProps = {
   showSort: boolean;
 };
 
-/** Search, "my jobs / all jobs", status and (on a phone) sort for the jobs list. */
+/** Search, "my jobs / all jobs", any number of statuses and (on a phone) sort for the jobs list. */
 export function JobsFilters({ params, onChange, showSort }: JobsFiltersProps) {
   const styles = useStyles();
   const [text, setText] = useState(params.q);
@@ -74,18 +74,21 @@ export function JobsFilters({ params, onChange, showSort }: JobsFiltersProps) {
         />
       </Field>
       <Field label="Status" className={styles.select}>
-        <Select
+        <Combobox
+          multiselect
+          clearable
           className={styles.control}
-          value={params.status[0] ?? ''}
-          onChange={(_event, data) => onChange({ status: isJobStatus(data.value) ? [data.value] : [], page: 1 })}
+          placeholder="Any status"
+          selectedOptions={params.status}
+          value={params.status.map((status) => JOB_STATUS_TEXT[status]).join(', ')}
+          onOptionSelect={(_event, data) => onChange({ status: JOB_STATUSES.filter((s) => data.selectedOptions.includes(s)), page: 1 })}
         >
-          <option value="">Any status</option>
           {JOB_STATUSES.map((status) => (
-            <option key={status} value={status}>
+            <Option key={status} value={status}>
               {JOB_STATUS_TEXT[status]}
-            </option>
+            </Option>
           ))}
-        </Select>
+        </Combobox>
       </Field>
       {showSort && (
         <Field label="Sort" className={styles.select}>

@@ -31,7 +31,8 @@ describe('JobsTable', () => {
     await waitForRequest(fetchMock, 'q=spa&sort');
     expect(router.state.location.search).toBe('?q=spa');
 
-    await user.selectOptions(screen.getByRole('combobox', { name: 'Status' }), 'submitted');
+    await user.click(screen.getByRole('combobox', { name: 'Status' }));
+    await user.click(await screen.findByRole('menuitemcheckbox', { name: 'Submitted for review' }));
     await waitForRequest(fetchMock, 'status=submitted&sort=-updatedAt&page=1');
     expect(router.state.location.search).toBe('?q=spa&status=submitted');
 

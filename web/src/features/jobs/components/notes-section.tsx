@@ -1,14 +1,23 @@
 import { Button, Field, Text, Textarea } from '@fluentui/react-components';
-import { useState } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { Controller } from 'react-hook-form';
+import { z } from 'zod';
+import { JobDetailsSchema } from '@domain/jobs/job.schema';
 
 import { useNotify } from '../../../components/notify';
-import { usePersistedDraft } from '../../../lib/drafts';
+import { useDraftForm } from '../../../lib/drafts';
 import type { JobAsBuiltResponse } from '../api/get-job-as-built';
 import { useJobWriter } from '../hooks/job-writer';
 import { saveErrors } from '../utils/save-errors';
 
 import { useCardStyles } from './card-styles';
 import { useFormStyles } from './form-styles';
+
+/** The notes as typed; blank means "no notes" (null), as the job's schema has it. */
+const NotesFormSchema = z
+  .object({ notes: z.string() })
+  .transform((form) => ({ notes: form.notes.trim() === '' ? null : form.notes }))
+  .pipe(JobDetailsSchema.pick({ notes: true }));
 
 /** The job's notes, and the office's comment when it sent the job back. */
 export function NotesSection({ data, canChange }: { data: JobAsBuiltResponse; canChange: boolean }) {
@@ -17,19 +26,17 @@ export function NotesSection({ data, canChange }: { data: JobAsBuiltResponse; ca
   const notify = useNotify();
   const writer = useJobWriter();
   const draftKey = `job:${data.job.id}:notes`;
-  const { value, setValue, hasDraft, clear } = usePersistedDraft(draftKey, data.job.notes ?? '');
-  const [error, setError] = useState<string | undefined>();
+  const { form, hasDraft, clear } = useDraftForm(draftKey, { notes: data.job.notes ?? '' }, zodResolver(NotesFormSchema));
 
-  const save = async () => {
+  const save = form.handleSubmit(async (body) => {
     try {
-      const outcome = await writer.save({ method: 'PATCH', path: '', body: { notes: value.trim() === '' ? null : value }, draftKey, label: 'Job notes' });
+      const outcome = await writer.save({ method: 'PATCH', path: '', body, draftKey, label: 'Job notes' });
       if (outcome === 'saved') notify.success('Notes saved');
-      setError(undefined);
     } catch (failure) {
       const { fields, message } = saveErrors(failure);
-      setError(fields.notes ?? message);
+      form.setError('notes', { message: fields.notes ?? message });
     }
-  };
+  });
 
   return (
     <section aria-labelledby="section-notes" className={formStyles.form}>
@@ -42,12 +49,26 @@ export function NotesSection({ data, canChange }: { data: JobAsBuiltResponse; ca
           <Text>{data.job.reviewComment}</Text>
         </div>
       )}
-      <Field label="Notes for the office and the packet" validationMessage={error} hint={hasDraft ? 'Not saved yet.' : undefined}>
-        <Textarea value={value} onChange={(_e, d) => setValue(d.value)} readOnly={!canChange} resize="vertical" rows={6} />
-      </Field>
+      <Controller
+        control={form.control}
+        name="notes"
+        render={({ field, fieldState }) => (
+          <Field label="Notes for the office and the packet" validationMessage={fieldState.error?.message} hint={hasDraft ? 'Not saved yet.' : undefined}>
+            <Textarea
+              ref={field.ref}
+              value={field.value}
+              onChange={(_e, d) => field.onChange(d.value)}
+              onBlur={field.onBlur}
+              readOnly={!canChange}
+              resize="vertical"
+              rows={6}
+            />
+          </Field>
+        )}
+      />
       {canChange && (
         <div className={formStyles.actions}>
-          <Button appearance="primary" className={formStyles.bigButton} disabled={!hasDraft} onClick={() => void save()}>
+          <Button appearance="primary" className={formStyles.bigButton} disabled={!hasDraft || form.formState.isSubmitting} onClick={() => void save()}>
             Save notes
           </Button>
           {hasDraft && (

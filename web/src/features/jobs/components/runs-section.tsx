@@ -1,5 +1,5 @@
 import { Button, Text } from '@fluentui/react-components';
-import { Add24Regular, Camera20Regular, CheckmarkCircle20Regular, Edit20Regular, Ruler24Regular, Warning20Filled } from '@fluentui/react-icons';
+import { Add24Regular, Camera20Regular, CheckmarkCircle20Regular, Delete20Regular, Edit20Regular, Ruler24Regular, Warning20Filled } from '@fluentui/react-icons';
 import { useEffect, useState } from 'react';
 import type { Run } from '@domain/as-built/run.schema';
 import { formatGauge } from '@domain/cable/wire';
@@ -10,9 +10,11 @@ import { PhotoStrip } from '../../photos/components/photo-strip';
 import { usePhotoActions } from '../../photos/hooks/photo-actions';
 import type { JobAsBuiltResponse } from '../api/get-job-as-built';
 import { useWorkspaceFocus } from '../hooks/workspace-focus';
+import { runDeleteRequest } from '../utils/delete-requests';
 import { METHOD_LABELS } from '../utils/record-labels';
 
 import { useCardStyles } from './card-styles';
+import { useDeleteRecord } from './delete-record';
 import { DepthReadingPanel } from './depth-reading-panel';
 import { useFormStyles } from './form-styles';
 import { RunForm } from './run-form';
@@ -27,6 +29,7 @@ export function RunsSection({ data, canRecord, canAddField }: RunsSectionProps) 
   const formStyles = useFormStyles();
   const { target } = useWorkspaceFocus();
   const [mode, setMode] = useState<Mode | undefined>();
+  const deletion = useDeleteRecord();
   const { asBuilt, job } = data;
 
   useEffect(() => {
@@ -79,10 +82,12 @@ export function RunsSection({ data, canRecord, canAddField }: RunsSectionProps) 
               canRecord={canRecord}
               canAddField={canAddField}
               onMode={setMode}
+              onDelete={() => deletion.ask(runDeleteRequest(run))}
             />
           ))}
         </ul>
       )}
+      {deletion.dialog}
     </section>
   );
 }
@@ -95,9 +100,10 @@ type RunCardProps = {
   canRecord: boolean;
   canAddField: boolean;
   onMode: (mode: Mode | undefined) => void;
+  onDelete: () => void;
 };
 
-function RunCard({ run, index, data, mode, canRecord, canAddField, onMode }: RunCardProps) {
+function RunCard({ run, index, data, mode, canRecord, canAddField, onMode, onDelete }: RunCardProps) {
   const styles = useCardStyles();
   const formStyles = useFormStyles();
   const [units] = useUnitPreferences();
@@ -175,6 +181,11 @@ function RunCard({ run, index, data, mode, canRecord, canAddField, onMode }: Run
           {canRecord && (
             <Button className={formStyles.bigButton} icon={<Edit20Regular />} onClick={() => onMode({ runId: run.id, view: 'edit' })}>
               Change run
+            </Button>
+          )}
+          {canRecord && (
+            <Button className={formStyles.bigButton} icon={<Delete20Regular />} aria-label={`Delete run ${run.label}`} onClick={onDelete}>
+              Delete
             </Button>
           )}
           {photos.canChange && (

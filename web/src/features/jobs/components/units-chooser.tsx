@@ -1,6 +1,8 @@
-import { Field, makeStyles, Radio, RadioGroup, tokens } from '@fluentui/react-components';
+import { Field, makeStyles, mergeClasses, Radio, RadioGroup, tokens } from '@fluentui/react-components';
+import type { GaugeUnits, LengthUnits } from '@domain/settings/settings.schema';
 
-import { useUnitPreferences } from '../../../lib/use-unit-preferences';
+import { GAUGE_UNIT_LABELS, LENGTH_UNIT_LABELS } from '../../../lib/units';
+import { useMyUnitChoice, useUnitPreferences } from '../../../lib/use-unit-preferences';
 
 const useStyles = makeStyles({
   root: {
@@ -10,25 +12,46 @@ const useStyles = makeStyles({
     paddingBlockStart: tokens.spacingVerticalL,
     borderTop: `${tokens.strokeWidthThin} solid ${tokens.colorNeutralStroke2}`,
   },
+  // On a settings card the card is the frame: no rule above.
+  bare: { borderTop: 'none', paddingBlockStart: 0 },
   radio: { minHeight: '44px' },
 });
 
-/** Units on this device (every value is stored in metres whatever is chosen). */
-export function UnitsChooser() {
+const COMPANY = 'company';
+
+/**
+ * The signed-in person's own units, kept on their account (every value is stored in metres whatever is
+ * chosen). "Company default" follows what the admin set for the company.
+ */
+export function UnitsChooser({ isBare = false }: { isBare?: boolean }) {
   const styles = useStyles();
   const [units, setUnits] = useUnitPreferences();
+  const { own, company } = useMyUnitChoice();
+  // Before the server has answered (or offline), the units shown count as the person's own.
+  const lengthChoice: LengthUnits | null = own ? own.lengthUnits : units.length;
+  const gaugeChoice: GaugeUnits | null = own ? own.gaugeUnits : units.gauge;
+  const companyLabel = (label: string | undefined) => (label ? `Company default (${label})` : 'Company default');
+
   return (
-    <div className={styles.root}>
-      <Field label="Lengths on this device">
-        <RadioGroup layout="horizontal" value={units.length} onChange={(_e, d) => setUnits({ ...units, length: d.value as 'imperial' | 'metric' })}>
-          <Radio className={styles.radio} value="imperial" label="Feet and inches" />
-          <Radio className={styles.radio} value="metric" label="Metres and centimetres" />
+    <div className={mergeClasses(styles.root, isBare && styles.bare)}>
+      <Field label="Your lengths">
+        <RadioGroup
+          value={lengthChoice ?? COMPANY}
+          onChange={(_e, d) => setUnits({ length: d.value === COMPANY ? null : (d.value as LengthUnits), gauge: gaugeChoice })}
+        >
+          <Radio className={styles.radio} value={COMPANY} label={companyLabel(company && LENGTH_UNIT_LABELS[company.length])} />
+          <Radio className={styles.radio} value="imperial" label={LENGTH_UNIT_LABELS.imperial} />
+          <Radio className={styles.radio} value="metric" label={LENGTH_UNIT_LABELS.metric} />
         </RadioGroup>
       </Field>
-      <Field label="Wire sizes">
-        <RadioGroup layout="horizontal" value={units.gauge} onChange={(_e, d) => setUnits({ ...units, gauge: d.value as 'awg' | 'mm2' })}>
-          <Radio className={styles.radio} value="awg" label="AWG" />
-          <Radio className={styles.radio} value="mm2" label="mm²" />
+      <Field label="Your wire sizes">
+        <RadioGroup
+          value={gaugeChoice ?? COMPANY}
+          onChange={(_e, d) => setUnits({ length: lengthChoice, gauge: d.value === COMPANY ? null : (d.value as GaugeUnits) })}
+        >
+          <Radio className={styles.radio} value={COMPANY} label={companyLabel(company && GAUGE_UNIT_LABELS[company.gauge])} />
+          <Radio className={styles.radio} value="awg" label={GAUGE_UNIT_LABELS.awg} />
+          <Radio className={styles.radio} value="mm2" label={GAUGE_UNIT_LABELS.mm2} />
         </RadioGroup>
       </Field>
     </div>

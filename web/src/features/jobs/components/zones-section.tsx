@@ -1,54 +1,43 @@
 import { Button, Field, Input, Text } from '@fluentui/react-components';
 import { Add24Regular, Delete20Regular } from '@fluentui/react-icons';
-import { useState, type FormEvent } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { Controller } from 'react-hook-form';
+import { z } from 'zod';
 import { ZoneInputSchema } from '@domain/jobs/job-record.schema';
 
-import { useNotify } from '../../../components/notify';
-import { usePersistedDraft } from '../../../lib/drafts';
-import { fieldErrorsFromZod } from '../../../lib/form-errors';
+import { useDraftForm } from '../../../lib/drafts';
+import { toSentence } from '../../../lib/form-errors';
 import type { JobAsBuiltResponse } from '../api/get-job-as-built';
 import { useJobWriter } from '../hooks/job-writer';
+import { zoneDeleteRequest } from '../utils/delete-requests';
 import { fieldDomId } from '../utils/finding-target';
 import { saveErrors } from '../utils/save-errors';
 
 import { useCardStyles } from './card-styles';
+import { useDeleteRecord } from './delete-record';
 import { useFormStyles } from './form-styles';
+
+/** A blank name is the usual mistake: say what to do; everything else is the shared schema's rule. */
+const ZoneFormSchema = z.object({ name: z.string().trim().min(1, { error: 'Enter a name.' }) }).pipe(ZoneInputSchema);
 
 /** Listening areas (patio, spa, lawn): named once, then chosen for each piece of equipment. */
 export function ZonesSection({ data, canRecord }: { data: JobAsBuiltResponse; canRecord: boolean }) {
   const styles = useCardStyles();
   const formStyles = useFormStyles();
-  const notify = useNotify();
   const writer = useJobWriter();
+  const deletion = useDeleteRecord();
   const jobId = data.job.id;
   const draftKey = `job:${jobId}:zone:new`;
-  const { value: name, setValue: setName } = usePersistedDraft(draftKey, '');
-  const [error, setError] = useState<string | undefined>();
+  const { form, hasDraft } = useDraftForm(draftKey, { name: '' }, zodResolver(ZoneFormSchema));
 
-  const add = async (event: FormEvent) => {
-    event.preventDefault();
-    const parsed = ZoneInputSchema.safeParse({ name });
-    if (!parsed.success) {
-      setError(fieldErrorsFromZod<'name'>(parsed.error).name ?? 'Enter a name.');
-      return;
-    }
-    setError(undefined);
+  const add = form.handleSubmit(async (body) => {
     try {
-      await writer.save({ method: 'POST', path: '/zones', body: parsed.data, draftKey, label: `New zone "${parsed.data.name}"`, isAdditive: true });
+      await writer.save({ method: 'POST', path: '/zones', body, draftKey, label: `New zone "${body.name}"`, isAdditive: true });
     } catch (failure) {
       const { fields, message } = saveErrors(failure);
-      setError(fields.name ?? message);
+      form.setError('name', { message: fields.name ?? message });
     }
-  };
-
-  const remove = async (zoneId: string, zoneName: string) => {
-    try {
-      await writer.save({ method: 'DELETE', path: `/zones/${zoneId}`, label: `Removing zone "${zoneName}"` });
-      notify.success('Zone removed', `Its equipment stays, without a zone.`);
-    } catch (failure) {
-      notify.error('Could not remove the zone', saveErrors(failure).message);
-    }
-  };
+  });
 
   return (
     <section aria-labelledby="section-zones" className={formStyles.form}>
@@ -75,8 +64,8 @@ export function ZonesSection({ data, canRecord }: { data: JobAsBuiltResponse; ca
                     appearance="subtle"
                     className={formStyles.button}
                     icon={<Delete20Regular />}
-                    aria-label={`Remove zone ${zone.name}`}
-                    onClick={() => void remove(zone.id, zone.name)}
+                    aria-label={`Delete zone ${zone.name}`}
+                    onClick={() => deletion.ask(zoneDeleteRequest(data.asBuilt, zone))}
                   />
                 )}
               </div>
@@ -86,9 +75,26 @@ export function ZonesSection({ data, canRecord }: { data: JobAsBuiltResponse; ca
       )}
       {canRecord && (
         <form className={formStyles.form} onSubmit={(event) => void add(event)} noValidate>
-          <Field label="New zone" validationMessage={error}>
-            <Input className={formStyles.control} value={name} onChange={(_e, d) => setName(d.value)} placeholder="Patio" />
-          </Field>
+          <Controller
+            control={form.control}
+            name="name"
+            render={({ field, fieldState }) => (
+              <Field
+                label="New zone"
+                validationMessage={fieldState.error?.message && toSentence(fieldState.error.message)}
+                hint={hasDraft && field.value !== '' ? 'Not saved yet.' : undefined}
+              >
+                <Input
+                  ref={field.ref}
+                  className={formStyles.control}
+                  value={field.value}
+                  onChange={(_e, d) => field.onChange(d.value)}
+                  onBlur={field.onBlur}
+                  placeholder="Patio"
+                />
+              </Field>
+            )}
+          />
           <div className={formStyles.actions}>
             <Button type="submit" appearance="primary" className={formStyles.bigButton} icon={<Add24Regular />}>
               Add zone
@@ -96,6 +102,7 @@ export function ZonesSection({ data, canRecord }: { data: JobAsBuiltResponse; ca
           </div>
         </form>
       )}
+      {deletion.dialog}
     </section>
   );
 }

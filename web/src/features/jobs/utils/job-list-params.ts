@@ -19,7 +19,8 @@ export function parseJobListParams(search: URLSearchParams, role: Role): JobList
   const mine = search.get('mine');
   return {
     q: search.get('q') ?? '',
-    status: (search.get('status') ?? '').split(',').filter(isJobStatus),
+    // Several statuses: comma-separated, or the parameter repeated; unknown ones are dropped.
+    status: [...new Set(search.getAll('status').flatMap((value) => value.split(',')).filter(isJobStatus))],
     sort: (JOB_SORTS as readonly string[]).includes(sort.replace(/^-/, '')) ? sort : DEFAULT_JOB_SORT,
     page: Number.isInteger(page) && page >= 1 ? page : 1,
     mine: mine === null ? isMineByDefault(role) : mine === 'true',

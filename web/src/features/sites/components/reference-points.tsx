@@ -1,12 +1,14 @@
-import { Button, Field, Input, makeStyles, Text, tokens } from '@fluentui/react-components';
-import { Add20Regular, Edit20Regular } from '@fluentui/react-icons';
+import { Button, Field, Input, makeStyles, MessageBar, MessageBarBody, Text, tokens } from '@fluentui/react-components';
+import { Add20Regular, Delete20Regular, Edit20Regular } from '@fluentui/react-icons';
 import { useState, type FormEvent } from 'react';
 import { CreateReferencePointSchema, type ReferencePointResponse } from '@domain/sites/site.schema';
 
+import { ConfirmDialog } from '../../../components/confirm-dialog';
 import { useNotify } from '../../../components/notify';
 import { describeRequestError, fieldErrorsFromApi, fieldErrorsFromZod, type FieldErrors } from '../../../lib/form-errors';
 import { formatLength, lengthInputValue, parseLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
+import { useDeleteReferencePoint } from '../api/delete-reference-point';
 import { useSaveReferencePoint } from '../api/save-reference-point';
 
 const useStyles = makeStyles({
@@ -34,6 +36,7 @@ const useStyles = makeStyles({
   },
   actions: { display: 'flex', gap: tokens.spacingHorizontalS, gridColumn: '1 / -1' },
   control: { minHeight: '48px' },
+  rowActions: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalS },
 });
 
 type Field = 'label' | 'x' | 'y';
@@ -46,6 +49,40 @@ export function ReferencePoints({ siteId, points, canEdit }: { siteId: string; p
   const styles = useStyles();
   const [units] = useUnitPreferences();
   const [editing, setEditing] = useState<string | undefined>();
+  const notify = useNotify();
+  const remove = useDeleteReferencePoint();
+  const restore = useSaveReferencePoint();
+  const [deleting, setDeleting] = useState<ReferencePointResponse | undefined>();
+  const [deleteError, setDeleteError] = useState<string | undefined>();
+
+  const askDelete = (point: ReferencePointResponse) => {
+    setDeleteError(undefined);
+    setDeleting(point);
+  };
+
+  const confirmDelete = () => {
+    if (!deleting) return;
+    const point = deleting;
+    remove.mutate(
+      { siteId, pointId: point.id },
+      {
+        onSuccess: () => {
+          setDeleting(undefined);
+          // Cheap to take back: the same name and coordinates, as a new point.
+          notify.undoable(`Reference point “${point.label}” deleted`, () =>
+            restore.mutate(
+              { siteId, input: { label: point.label, x: point.x, y: point.y } },
+              {
+                onSuccess: () => notify.success('Reference point put back', point.label),
+                onError: (error) => notify.error('Could not put the point back', describeRequestError(error)),
+              },
+            ),
+          );
+        },
+        onError: (error) => setDeleteError(describeRequestError(error)),
+      },
+    );
+  };
 
   return (
     <div className={styles.list}>
@@ -65,9 +102,14 @@ export function ReferencePoints({ siteId, points, canEdit }: { siteId: string; p
                 </Text>
               </span>
               {canEdit && (
-                <Button className={styles.control} icon={<Edit20Regular />} onClick={() => setEditing(point.id)} aria-label={`Change ${point.label}`}>
-                  Change
-                </Button>
+                <span className={styles.rowActions}>
+                  <Button className={styles.control} icon={<Edit20Regular />} onClick={() => setEditing(point.id)} aria-label={`Change ${point.label}`}>
+                    Change
+                  </Button>
+                  <Button className={styles.control} icon={<Delete20Regular />} onClick={() => askDelete(point)} aria-label={`Delete ${point.label}`}>
+                    Delete
+                  </Button>
+                </span>
               )}
             </li>
           ),
@@ -83,6 +125,24 @@ export function ReferencePoints({ siteId, points, canEdit }: { siteId: string; p
             </Button>
           </div>
         ))}
+      <ConfirmDialog
+        open={deleting !== undefined}
+        title={`Delete the reference point “${deleting?.label ?? ''}”?`}
+        confirmLabel="Delete"
+        isPending={remove.isPending}
+        onConfirm={confirmDelete}
+        onCancel={() => setDeleting(undefined)}
+      >
+        {deleteError && (
+          <MessageBar intent="error" layout="multiline">
+            <MessageBarBody>{deleteError}</MessageBarBody>
+          </MessageBar>
+        )}
+        <Text as="p" block>
+          Ties on this site’s jobs are taped from it, so it cannot be deleted while an item is tied to it: change those ties first.
+          A point no tie uses can be deleted.
+        </Text>
+      </ConfirmDialog>
     </div>
   );
 }

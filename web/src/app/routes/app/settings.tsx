@@ -1,0 +1,72 @@
+import { makeStyles, Text, tokens } from '@fluentui/react-components';
+import type { QueryClient } from '@tanstack/react-query';
+import type { LoaderFunctionArgs } from 'react-router';
+import { ROLES } from '@domain/auth/roles';
+
+import { RouteErrorPage } from '../../../components/errors/route-error-page';
+import { PageHeader } from '../../../components/page-header';
+import { requireRole } from '../../../features/auth/utils/require-user';
+import { UnitsChooser } from '../../../features/jobs/components/units-chooser';
+import { getCompanySettingsQueryOptions, useCompanySettings } from '../../../features/settings/api/get-company-settings';
+import { CompanySettingsForm } from '../../../features/settings/components/company-settings-form';
+import { useSessionUser } from '../../../lib/session';
+
+const useStyles = makeStyles({
+  sections: {
+    display: 'grid',
+    gridTemplateColumns: 'minmax(0, 1fr)',
+    gap: tokens.spacingVerticalXXL,
+    '@media (min-width: 1024px)': { gridTemplateColumns: 'repeat(2, minmax(0, 1fr))', columnGap: tokens.spacingHorizontalXXL },
+  },
+  section: {
+    display: 'flex',
+    flexDirection: 'column',
+    gap: tokens.spacingVerticalM,
+    padding: tokens.spacingHorizontalL,
+    borderRadius: tokens.borderRadiusLarge,
+    backgroundColor: tokens.colorNeutralBackground1,
+    boxShadow: tokens.shadow2,
+    alignSelf: 'start',
+  },
+  title: { margin: 0 },
+  muted: { color: tokens.colorNeutralForeground2 },
+});
+
+export const clientLoader =
+  (queryClient: QueryClient) =>
+  async ({ request }: LoaderFunctionArgs) => {
+    await requireRole(request, ROLES);
+    await queryClient.ensureQueryData(getCompanySettingsQueryOptions());
+    return null;
+  };
+
+/** Your own units, and the company's defaults (changed by an admin). */
+export default function SettingsRoute() {
+  const styles = useStyles();
+  const user = useSessionUser();
+  const { data: settings } = useCompanySettings();
+  if (!user) return null;
+
+  return (
+    <>
+      <PageHeader title="Settings" description="Lengths are always stored in metres; these choices change only how values are shown and typed." />
+      <div className={styles.sections}>
+        <section className={styles.section} aria-labelledby="settings-mine">
+          <Text as="h3" id="settings-mine" size={500} weight="semibold" className={styles.title}>
+            Your units
+          </Text>
+          <Text className={styles.muted}>They follow you on every device you sign in on.</Text>
+          <UnitsChooser isBare />
+        </section>
+        <section className={styles.section} aria-labelledby="settings-company">
+          <Text as="h3" id="settings-company" size={500} weight="semibold" className={styles.title}>
+            Company defaults
+          </Text>
+          <CompanySettingsForm settings={settings} canChange={user.role === 'admin'} />
+        </section>
+      </div>
+    </>
+  );
+}
+
+export const ErrorBoundary = RouteErrorPage;

@@ -1,0 +1,289 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import {
+  Button,
+  Combobox,
+  Dialog,
+  DialogActions,
+  DialogBody,
+  DialogContent,
+  DialogSurface,
+  DialogTitle,
+  DialogTrigger,
+  Field,
+  Input,
+  makeStyles,
+  MessageBar,
+  MessageBarBody,
+  Option,
+  Select,
+  Spinner,
+  Text,
+  tokens,
+} from '@fluentui/react-components';
+import { PeopleTeam20Regular } from '@fluentui/react-icons';
+import { useQuery } from '@tanstack/react-query';
+import { useState } from 'react';
+import { Controller, useForm, type FieldPath } from 'react-hook-form';
+import { z } from 'zod';
+import { JobDetailsSchema, type JobResponse, type UpdateJobInput } from '@domain/jobs/job.schema';
+
+import { useNotify } from '../../../components/notify';
+import { isApiError } from '../../../lib/api-client';
+import { describeRequestError, toSentence } from '../../../lib/form-errors';
+import { formatDate } from '../../../lib/format-date';
+import { getUsersQueryOptions } from '../../users/api/get-users';
+import { useJobWriter } from '../hooks/job-writer';
+
+const useStyles = makeStyles({
+  trigger: { minHeight: '48px' },
+  surface: { maxWidth: '34rem' },
+  form: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },
+  dates: {
+    display: 'grid',
+    gridTemplateColumns: 'minmax(0, 1fr)',
+    gap: tokens.spacingVerticalL,
+    '@media (min-width: 480px)': { gridTemplateColumns: 'repeat(2, minmax(0, 1fr))', columnGap: tokens.spacingHorizontalL },
+  },
+  control: { minHeight: '48px' },
+  action: { minHeight: '48px' },
+  facts: { display: 'grid', gridTemplateColumns: 'max-content minmax(0, 1fr)', gap: `${tokens.spacingVerticalS} ${tokens.spacingHorizontalL}`, margin: 0 },
+  term: { color: tokens.colorNeutralForeground2 },
+  value: { margin: 0 },
+});
+
+/** The crew and the dates as the form holds them: empty text for "nobody" or "no date". */
+const JobDetailsFormSchema = z
+  .object({
+    crewLeadUserId: z.string(),
+    technicianUserIds: z.array(z.string()),
+    startDate: z.string(),
+    endDate: z.string(),
+  })
+  .transform((form) => ({
+    crewLeadUserId: form.crewLeadUserId === '' ? null : form.crewLeadUserId,
+    technicianUserIds: form.technicianUserIds,
+    startDate: form.startDate === '' ? null : form.startDate,
+    endDate: form.endDate === '' ? null : form.endDate,
+  }))
+  .pipe(
+    JobDetailsSchema.pick({ crewLeadUserId: true, technicianUserIds: true, startDate: true, endDate: true }).refine(
+      (v) => !v.startDate || !v.endDate || v.startDate <= v.endDate,
+      { error: 'Must not be before the start date.', path: ['endDate'] },
+    ),
+  );
+type JobDetailsForm = z.input<typeof JobDetailsFormSchema>;
+type JobDetailsOutput = z.output<typeof JobDetailsFormSchema>;
+const FIELDS = ['crewLeadUserId', 'technicianUserIds', 'startDate', 'endDate'] as const satisfies readonly (keyof JobDetailsForm)[];
+
+function defaultsOf(job: JobResponse): JobDetailsForm {
+  return {
+    crewLeadUserId: job.crewLead?.id ?? '',
+    technicianUserIds: job.technicians.map((person) => person.id),
+    startDate: job.startDate ?? '',
+    endDate: job.endDate ?? '',
+  };
+}
+
+type JobDetailsDialogProps = { job: JobResponse; canChange: boolean };
+
+/**
+ * The job's crew and dates. The office changes them here (a versioned job write, like any other);
+ * everyone else sees them read-only.
+ */
+export function JobDetailsDialog({ job, canChange }: JobDetailsDialogProps) {
+  const styles = useStyles();
+  const [open, setOpen] = useState(false);
+  return (
+    <Dialog open={open} onOpenChange={(_event, data) => setOpen(data.open)}>
+      <DialogTrigger disableButtonEnhancement>
+        <Button className={styles.trigger} icon={<PeopleTeam20Regular />}>
+          Crew and dates
+        </Button>
+      </DialogTrigger>
+      <DialogSurface className={styles.surface}>
+        {open && (canChange ? <DetailsForm job={job} onDone={() => setOpen(false)} /> : <DetailsView job={job} />)}
+      </DialogSurface>
+    </Dialog>
+  );
+}
+
+function DetailsView({ job }: { job: JobResponse }) {
+  const styles = useStyles();
+  return (
+    <DialogBody>
+      <DialogTitle>Crew and dates</DialogTitle>
+      <DialogContent>
+        <dl className={styles.facts}>
+          <dt className={styles.term}>Crew lead</dt>
+          <dd className={styles.value}>{job.crewLead?.name ?? 'Nobody yet'}</dd>
+          <dt className={styles.term}>Technicians</dt>
+          <dd className={styles.value}>{job.technicians.length === 0 ? 'Nobody yet' : job.technicians.map((p) => p.name).join(', ')}</dd>
+          <dt className={styles.term}>Start</dt>
+          <dd className={styles.value}>{job.startDate ? formatDate(job.startDate) : 'Not set'}</dd>
+          <dt className={styles.term}>Finish</dt>
+          <dd className={styles.value}>{job.endDate ? formatDate(job.endDate) : 'Not set'}</dd>
+        </dl>
+        <Text as="p" block>
+          The office changes the crew and the dates.
+        </Text>
+      </DialogContent>
+      <DialogActions fluid>
+        <DialogTrigger disableButtonEnhancement>
+          <Button appearance="primary" className={styles.action}>
+            Close
+          </Button>
+        </DialogTrigger>
+      </DialogActions>
+    </DialogBody>
+  );
+}
+
+function DetailsForm({ job, onDone }: { job: JobResponse; onDone: () => void }) {
+  const styles = useStyles();
+  const notify = useNotify();
+  const writer = useJobWriter();
+  const users = useQuery(getUsersQueryOptions());
+  const [message, setMessage] = useState<string | undefined>();
+  const {
+    control,
+    handleSubmit,
+    setError,
+    formState: { errors, dirtyFields, isSubmitting },
+  } = useForm<JobDetailsForm, unknown, JobDetailsOutput>({ resolver: zodResolver(JobDetailsFormSchema), defaultValues: defaultsOf(job) });
+
+  const active = (users.data ?? []).filter((user) => !user.isDisabled);
+  // The same roles the API accepts (jobs.service): leads may be office or admin too; the crew are techs and leads.
+  const leads = active.filter((user) => user.role === 'lead' || user.role === 'office' || user.role === 'admin');
+  const technicians = active.filter((user) => user.role === 'tech' || user.role === 'lead');
+  const nameOf = (id: string) =>
+    users.data?.find((user) => user.id === id)?.name ?? job.technicians.find((person) => person.id === id)?.name ?? 'Someone';
+
+  const save = handleSubmit(async (values) => {
+    setMessage(undefined);
+    const changes: UpdateJobInput = {};
+    for (const field of FIELDS) if (dirtyFields[field]) Object.assign(changes, { [field]: values[field] });
+    if (Object.keys(changes).length === 0) {
+      onDone();
+      return;
+    }
+    try {
+      const outcome = await writer.save({ method: 'PATCH', path: '', body: changes, label: 'Crew and dates' });
+      if (outcome === 'saved') notify.success('Crew and dates saved', job.title);
+      if (outcome === 'queued') notify.success('Waiting for a connection', 'The crew and dates are sent when you are back online.');
+      if (outcome !== 'conflict') onDone();
+    } catch (error) {
+      let isShown = false;
+      if (isApiError(error)) {
+        for (const issue of error.issues) {
+          const field = issue.path.split('.')[0] as FieldPath<JobDetailsForm>;
+          if ((FIELDS as readonly string[]).includes(field)) {
+            setError(field, { message: toSentence(issue.message) });
+            isShown = true;
+          }
+        }
+      }
+      if (!isShown) setMessage(describeRequestError(error));
+    }
+  });
+
+  return (
+    <form onSubmit={(event) => void save(event)} noValidate aria-label="Crew and dates">
+      <DialogBody>
+        <DialogTitle>Crew and dates</DialogTitle>
+        <DialogContent className={styles.form}>
+          {message && (
+            <MessageBar intent="error" layout="multiline">
+              <MessageBarBody>{message}</MessageBarBody>
+            </MessageBar>
+          )}
+          {users.isError && (
+            <MessageBar intent="warning" layout="multiline">
+              <MessageBarBody>The list of people could not be loaded. {describeRequestError(users.error)}</MessageBarBody>
+            </MessageBar>
+          )}
+          <Controller
+            control={control}
+            name="crewLeadUserId"
+            render={({ field, fieldState }) => (
+              <Field label="Crew lead" validationMessage={fieldState.error?.message}>
+                <Select className={styles.control} value={field.value} onChange={(_event, data) => field.onChange(data.value)} onBlur={field.onBlur}>
+                  <option value="">Nobody yet</option>
+                  {field.value !== '' && !leads.some((user) => user.id === field.value) && <option value={field.value}>{job.crewLead?.name ?? 'Current lead'}</option>}
+                  {leads.map((user) => (
+                    <option key={user.id} value={user.id}>
+                      {user.name}
+                    </option>
+                  ))}
+                </Select>
+              </Field>
+            )}
+          />
+          <Controller
+            control={control}
+            name="technicianUserIds"
+            render={({ field, fieldState }) => (
+              <Field
+                label="Technicians"
+                hint="They add photos, depth readings and checks on this job."
+                validationMessage={fieldState.error?.message ?? errors.technicianUserIds?.root?.message}
+              >
+                <Combobox
+                  multiselect
+                  clearable
+                  className={styles.control}
+                  placeholder={users.isLoading ? 'Loading people…' : 'Nobody yet'}
+                  selectedOptions={field.value}
+                  value={field.value.map(nameOf).join(', ')}
+                  onOptionSelect={(_event, data) => field.onChange(data.selectedOptions)}
+                  onBlur={field.onBlur}
+                >
+                  {technicians.map((user) => (
+                    <Option key={user.id} value={user.id} text={user.name}>
+                      {user.name} ({user.role === 'lead' ? 'crew lead' : 'technician'})
+                    </Option>
+                  ))}
+                </Combobox>
+              </Field>
+            )}
+          />
+          <div className={styles.dates}>
+            <Controller
+              control={control}
+              name="startDate"
+              render={({ field, fieldState }) => (
+                <Field label="Start date" validationMessage={fieldState.error?.message}>
+                  <Input className={styles.control} type="date" value={field.value} onChange={(_event, data) => field.onChange(data.value)} onBlur={field.onBlur} />
+                </Field>
+              )}
+            />
+            <Controller
+              control={control}
+              name="endDate"
+              render={({ field, fieldState }) => (
+                <Field label="Finish date" validationMessage={fieldState.error?.message}>
+                  <Input className={styles.control} type="date" value={field.value} onChange={(_event, data) => field.onChange(data.value)} onBlur={field.onBlur} />
+                </Field>
+              )}
+            />
+          </div>
+        </DialogContent>
+        <DialogActions fluid>
+          <DialogTrigger disableButtonEnhancement>
+            <Button className={styles.action} disabled={isSubmitting}>
+              Cancel
+            </Button>
+          </DialogTrigger>
+          <Button
+            type="submit"
+            appearance="primary"
+            className={styles.action}
+            disabled={isSubmitting}
+            icon={isSubmitting ? <Spinner size="tiny" /> : undefined}
+          >
+            Save
+          </Button>
+        </DialogActions>
+      </DialogBody>
+    </form>
+  );
+}
