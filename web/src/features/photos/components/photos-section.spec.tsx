@@ -68,7 +68,8 @@ describe('PhotosSection', () => {
     });
     const { user } = renderApp({ url: `/jobs/${JOB_IDS.job}?section=photos`, signedInAs: buildSessionUser('lead') });
 
-    await screen.findByRole('heading', { name: 'Photos (1)' });
+    // The first load renders the whole workspace (lazy routes, Fluent styles): slow when every project runs at once.
+    await screen.findByRole('heading', { name: 'Photos (1)' }, { timeout: 10_000 });
     const gallery = screen.getByRole('list', { name: 'Photos of Run Patio trunk' });
     expect(within(gallery).getByRole('button', { name: 'Open photo: Trench at the patio, tape at 18 in' })).toBeInTheDocument();
 
