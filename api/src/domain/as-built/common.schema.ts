@@ -57,8 +57,20 @@ export const ImpedanceOhmSchema = FiniteSchema.positive().max(AS_BUILT_LIMITS.ma
 
 export const WattsSchema = FiniteSchema.positive().max(AS_BUILT_LIMITS.maxWatts);
 
-/** ISO calendar date, e.g. 2026-05-14. */
-export const IsoDateSchema = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'expected a date as YYYY-MM-DD');
+/** Whether `YYYY-MM-DD` names a day that exists (no 2026-02-30, no month 13, no year 0). */
+function isCalendarDate(text: string): boolean {
+  const [year, month, day] = text.split('-').map(Number) as [number, number, number];
+  // setUTCFullYear, unlike Date.UTC, does not read years 0–99 as 1900–1999.
+  const date = new Date(0);
+  date.setUTCFullYear(year, month - 1, day);
+  return year >= 1 && date.getUTCFullYear() === year && date.getUTCMonth() === month - 1 && date.getUTCDate() === day;
+}
+
+/** ISO calendar date, e.g. 2026-05-14; it must exist (a date column refuses 2026-02-30 with an error). */
+export const IsoDateSchema = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}$/, 'expected a date as YYYY-MM-DD')
+  .refine(isCalendarDate, 'no such date: check the month and the day');
 
 /**
  * Constant-voltage line nominal. '70V' is the North-American 70.7 V rms line (100 V peak / √2);

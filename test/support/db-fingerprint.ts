@@ -1,0 +1,36 @@
+import type pg from 'pg';
+
+/** Row count and an md5 of every row (as text, in a fixed order), per table. */
+export type DbFingerprint = Record<string, { rows: number; md5: string }>;
+
+/**
+ * A cheap whole-database fingerprint for "nothing was written": one SQL statement over every table of
+ * the `public` schema (the queue's own `pgboss` schema polls on timers and is left out) giving each
+ * table's row count and the md5 of its rows ordered by their text form. Two equal fingerprints mean no
+ * row was inserted, changed or deleted in between.
+ */
+export async function fingerprintDatabase(client: pg.Client, { exclude = [] as string[] } = {}): Promise<DbFingerprint> {
+  const { rows: tables } = await client.query<{ name: string }>(
+    `select table_name as name from information_schema.tables
+      where table_schema = 'public' and table_type = 'BASE TABLE' order by table_name`,
+  );
+  const names = tables.map((t) => t.name).filter((name) => !exclude.includes(name));
+  // Guard against building an empty UNION when the schema has no tables.
+  if (names.length === 0) return {};
+  const sql = names
+    .map(
+      (name) =>
+        `select ${client.escapeLiteral(name)} as name, count(*)::int as rows,
+                coalesce(md5(string_agg(t::text, E'\\n' order by t::text)), '') as md5
+           from public.${client.escapeIdentifier(name)} t`,
+    )
+    .join(' union all ');
+  const { rows } = await client.query<{ name: string; rows: number; md5: string }>(sql);
+  return Object.fromEntries(rows.map((r) => [r.name, { rows: r.rows, md5: r.md5 }]));
+}
+
+/** The tables whose fingerprint differs (for a readable assertion message). */
+export function changedTables(before: DbFingerprint, after: DbFingerprint): string[] {
+  const names = new Set([...Object.keys(before), ...Object.keys(after)]);
+  return [...names].filter((name) => before[name]?.md5 !== after[name]?.md5 || before[name]?.rows !== after[name]?.rows).sort();
+}
