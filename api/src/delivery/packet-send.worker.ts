@@ -1,6 +1,7 @@
 import { Injectable, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 
+import { QueueWorker } from '../common/queue-worker.js';
 import type { Env } from '../config/env.schema.js';
 import { locateCautions } from '../domain/locate/locate-cautions.js';
 import { formatDate } from '../domain/packet/packet-format.js';
@@ -24,11 +25,9 @@ function megabytes(bytes: number): string {
  * backoff; the last failure marks the delivery `failed`. Same start-up pattern as the render worker.
  */
 @Injectable()
-export class PacketSendWorker {
-  private readonly logger = new Logger(PacketSendWorker.name);
-  private isStarted = false;
-  private retryTimer: NodeJS.Timeout | undefined;
-  private isStopping = false;
+export class PacketSendWorker extends QueueWorker {
+  protected readonly logger = new Logger(PacketSendWorker.name);
+  protected readonly workerName = 'packet send worker';
 
   constructor(
     private readonly repository: DeliveryRepository,
@@ -37,36 +36,15 @@ export class PacketSendWorker {
     private readonly mail: MailService,
     private readonly links: LinkBuilder,
     private readonly config: ConfigService<Env, true>,
-  ) {}
-
-  /** Starts without holding up the caller, retrying with backoff while the database cannot be reached. */
-  startInBackground(delayMs = 1_000): void {
-    this.start().catch((error: Error) => {
-      if (this.isStopping) return;
-      this.logger.warn(`packet send worker not started (${error.message}); retrying in ${delayMs / 1000} s`);
-      this.retryTimer = setTimeout(() => this.startInBackground(Math.min(delayMs * 2, 30_000)), delayMs);
-      this.retryTimer.unref();
-    });
+  ) {
+    super();
   }
 
-  stop(): void {
-    this.isStopping = true;
-    clearTimeout(this.retryTimer);
-  }
-
-  async start(): Promise<void> {
-    if (this.isStarted) return;
-    this.isStarted = true;
-    try {
-      await this.queue.work(1, (job, meta) => this.send(job.deliveryId, meta.isFinalAttempt));
-      // A delivery committed but never queued (the process stopped in between) is picked up here; a
-      // duplicate message is harmless because sending starts with an exclusive claim.
-      for (const { id } of await this.repository.staleQueued(120)) await this.queue.enqueue({ deliveryId: id });
-    } catch (error) {
-      this.isStarted = false;
-      throw error;
-    }
-    this.logger.log('packet send worker started');
+  /** Polls the send queue, and queues deliveries committed but never queued (the process stopped in between). */
+  protected async startWork(): Promise<void> {
+    await this.queue.work(1, (job, meta) => this.send(job.deliveryId, meta.isFinalAttempt));
+    // A duplicate message is harmless because sending starts with an exclusive claim.
+    for (const { id } of await this.repository.staleQueued(120)) await this.queue.enqueue({ deliveryId: id });
   }
 
   async send(deliveryId: string, isFinalAttempt: boolean): Promise<void> {

@@ -2,6 +2,7 @@ import { Injectable, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 
 import { hashToken, newOpaqueToken } from '../auth/tokens.js';
+import { QueueWorker } from '../common/queue-worker.js';
 import type { Env } from '../config/env.schema.js';
 import type { OutgoingMailRow } from '../db/schema/index.js';
 import { LinkBuilder } from '../mail/link-builder.js';
@@ -26,11 +27,9 @@ const SWEEP_INTERVAL_MS = 5 * 60_000;
  * mints a new link, so the earlier e-mail's link stops working and the later one's works.
  */
 @Injectable()
-export class AccountMailWorker {
-  private readonly logger = new Logger(AccountMailWorker.name);
-  private isStarted = false;
-  private isStopping = false;
-  private retryTimer: NodeJS.Timeout | undefined;
+export class AccountMailWorker extends QueueWorker {
+  protected readonly logger = new Logger(AccountMailWorker.name);
+  protected readonly workerName = 'account mail worker';
   private sweepTimer: NodeJS.Timeout | undefined;
 
   constructor(
@@ -39,39 +38,25 @@ export class AccountMailWorker {
     private readonly mail: MailService,
     private readonly links: LinkBuilder,
     private readonly config: ConfigService<Env, true>,
-  ) {}
-
-  /** Starts without holding up the caller, retrying with backoff while the database cannot be reached. */
-  startInBackground(delayMs = 1_000): void {
-    this.start().catch((error: Error) => {
-      if (this.isStopping) return;
-      this.logger.warn(`account mail worker not started (${error.message}); retrying in ${delayMs / 1000} s`);
-      this.retryTimer = setTimeout(() => this.startInBackground(Math.min(delayMs * 2, 30_000)), delayMs);
-      this.retryTimer.unref();
-    });
+  ) {
+    super();
   }
 
-  stop(): void {
-    this.isStopping = true;
-    clearTimeout(this.retryTimer);
-    clearInterval(this.sweepTimer);
+  /** Polls the queue, queues mail committed but never queued, and sweeps for such mail every few minutes. */
+  protected async startWork(): Promise<void> {
+    await this.queue.work(1, (job, meta) => this.send(job.mailId, meta.isFinalAttempt));
+    await this.requeueStale();
   }
 
-  async start(): Promise<void> {
-    if (this.isStarted) return;
-    this.isStarted = true;
-    try {
-      await this.queue.work(1, (job, meta) => this.send(job.mailId, meta.isFinalAttempt));
-      await this.requeueStale();
-    } catch (error) {
-      this.isStarted = false;
-      throw error;
-    }
+  protected override onStarted(): void {
     this.sweepTimer = setInterval(() => {
       this.requeueStale().catch((error: Error) => this.logger.warn(`account mail sweep failed: ${error.message}`));
     }, SWEEP_INTERVAL_MS);
     this.sweepTimer.unref();
-    this.logger.log('account mail worker started');
+  }
+
+  protected override onStop(): void {
+    clearInterval(this.sweepTimer);
   }
 
   async send(mailId: string, isFinalAttempt: boolean): Promise<void> {

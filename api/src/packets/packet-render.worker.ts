@@ -7,6 +7,7 @@ import type { Env } from '../config/env.schema.js';
 import type { PacketSignature, PacketSnapshot } from '../domain/packet/packet-snapshot.js';
 import type { PlanImage } from '../drawings/drawing-options.js';
 import { planImageForDrawing } from '../drawings/job-drawings.js';
+import { QueueWorker } from '../common/queue-worker.js';
 import { LinkBuilder } from '../mail/link-builder.js';
 import { OBJECT_STORAGE, ObjectNotFoundError, type ObjectStorage } from '../storage/object-storage.js';
 import { buildPacketArchive } from './packet-archive.js';
@@ -23,11 +24,9 @@ const LOGO_TYPES: Record<string, string> = { png: 'image/png', jpg: 'image/jpeg'
  * to `queued` with its reason and pg-boss retries it with backoff; the last failure marks it `failed`.
  */
 @Injectable()
-export class PacketRenderWorker {
-  private readonly logger = new Logger(PacketRenderWorker.name);
-  private isStarted = false;
-  private retryTimer: NodeJS.Timeout | undefined;
-  private isStopping = false;
+export class PacketRenderWorker extends QueueWorker {
+  protected readonly logger = new Logger(PacketRenderWorker.name);
+  protected readonly workerName = 'packet render worker';
 
   constructor(
     private readonly repository: PacketsRepository,
@@ -37,41 +36,12 @@ export class PacketRenderWorker {
     private readonly config: ConfigService<Env, true>,
     @Inject(OBJECT_STORAGE) private readonly storage: ObjectStorage,
     @Inject(PACKET_PHOTO_SOURCE) private readonly photos: PacketPhotoSource,
-  ) {}
-
-  /**
-   * Starts the worker without holding up the caller, retrying with backoff while the database cannot be
-   * reached, so the API boots (and answers 503) when PostgreSQL is down and renders once it is back.
-   */
-  startInBackground(delayMs = 1_000): void {
-    this.start().catch((error: Error) => {
-      if (this.isStopping) return;
-      this.logger.warn(`packet render worker not started (${error.message}); retrying in ${delayMs / 1000} s`);
-      this.retryTimer = setTimeout(() => this.startInBackground(Math.min(delayMs * 2, 30_000)), delayMs);
-      this.retryTimer.unref();
-    });
+  ) {
+    super();
   }
 
-  /** Stops retrying to start (the queue itself is stopped by PacketQueue before shutdown). */
-  stop(): void {
-    this.isStopping = true;
-    clearTimeout(this.retryTimer);
-  }
-
-  /** Starts polling the queue in this process (idempotent), and re-sends revisions whose message was lost. */
-  async start(): Promise<void> {
-    if (this.isStarted) return;
-    this.isStarted = true;
-    try {
-      await this.startPolling();
-    } catch (error) {
-      this.isStarted = false;
-      throw error;
-    }
-    this.logger.log('packet render worker started');
-  }
-
-  private async startPolling(): Promise<void> {
+  /** Polls the queue in this process, and re-sends revisions whose message was lost. */
+  protected async startWork(): Promise<void> {
     await this.queue.work(this.config.get('PACKET_RENDER_CONCURRENCY', { infer: true }), (job, meta) =>
       this.render(job.revisionId, meta.isFinalAttempt),
     );
