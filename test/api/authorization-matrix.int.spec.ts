@@ -14,7 +14,7 @@ import { DiskStorage } from '../../api/src/storage/disk-storage.js';
 import { OBJECT_STORAGE } from '../../api/src/storage/object-storage.js';
 import { makePng } from '../fixtures/photos/make-photos.js';
 import { createCompany, createUser, TEST_PASSWORD, type TestCompany, withDb } from '../support/fixtures.js';
-import { type Api, apiAs, createJob, createSite, insertRecordedJob, moveJob } from '../support/records.js';
+import { type Api, apiAs, createJob, createSite, insertRecordedJob, insertSmallRecordedJob, moveJob } from '../support/records.js';
 import { bearer, type Session, signIn } from '../support/session.js';
 import { createTestApp } from '../support/test-app.js';
 
@@ -110,50 +110,20 @@ describe('authorization matrix', () => {
 
   /** A job in progress with a zone, an amplifier, a speaker, a spare junction, a run, a reading and a check. */
   async function recordedJobA() {
-    const channelRef = { amplifierItemId: 'amp', channelId: 'ch' };
-    const runBody = {
-      label: 'Amp to satellite',
-      fromItemId: 'amp',
-      toItemId: 'speaker',
-      cableType: '14/2 direct burial',
-      gauge: { system: 'awg' as const, awg: 14 },
-      conductors: 2,
-      pairs: [{ pairIndex: 1, channel: channelRef }],
-      measuredLengthM: 10,
-      method: 'direct_burial' as const,
-    };
-    const checkBody = { channel: channelRef, quantity: 'dc_resistance' as const, measuredOhm: 6.8 };
-    const job = await insertRecordedJob(
-      a,
-      siteA,
-      { crewLeadUserId: a.users.lead.id, technicianUserIds: [a.users.tech.id] },
-      {
-        zones: [{ id: 'zone', name: 'Patio' }],
-        referencePoints: [],
-        items: [
-          { id: 'amp', kind: 'amplifier', label: 'Amp', channels: [{ id: 'ch', name: 'Patio' }], ratedWatts8Ohm: 100, minimumImpedanceOhm: 4 },
-          { id: 'speaker', kind: 'speaker', label: 'Satellite', nominalImpedanceOhm: 8 },
-          { id: 'junction', kind: 'junction', label: 'Spare splice' },
-        ],
-        runs: [{ id: 'run', ...runBody, depthReadings: [{ stationM: 2, depthM: 0.3 }] }],
-        checks: [{ id: 'check', ...checkBody }],
-      },
-    );
-    const id = (key: string) => job.ids.get(key)!;
-    const channel = { amplifierItemId: id('amp'), channelId: id('ch') };
+    const job = await insertSmallRecordedJob(a, siteA);
     return {
-      base: `/api/jobs/${job.id}`,
+      base: `/api/jobs/${job.jobId}`,
       headers: { 'If-Match': String(job.version) },
-      zone: { id: id('zone') },
-      amp: { id: id('amp') },
-      speaker: { id: id('speaker') },
-      junction: { id: id('junction') },
-      channel,
-      run: { id: id('run') },
-      runBody: { ...runBody, fromItemId: id('amp'), toItemId: id('speaker'), pairs: [{ pairIndex: 1, channel }] },
-      reading: { id: job.depthReadingIds.get(id('run'))![0]! },
-      check: { id: id('check') },
-      checkBody: { ...checkBody, channel },
+      zone: { id: job.zoneId },
+      amp: { id: job.ampId },
+      speaker: { id: job.speakerId },
+      junction: { id: job.junctionId },
+      channel: job.channel,
+      run: { id: job.runId },
+      runBody: job.runBody,
+      reading: { id: job.readingId },
+      check: { id: job.checkId },
+      checkBody: job.checkBody,
     };
   }
 

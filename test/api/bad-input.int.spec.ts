@@ -26,7 +26,7 @@ import {
 } from '../support/bad-input-arbitraries.js';
 import { changedTables, type DbFingerprint, fingerprintDatabase } from '../support/db-fingerprint.js';
 import { createCompany, createUser, type TestCompany, withDb } from '../support/fixtures.js';
-import { type Api, apiAs, createSite, insertRecordedJob } from '../support/records.js';
+import { type Api, apiAs, createSite, insertRecordedJob, insertSmallRecordedJob } from '../support/records.js';
 import { bearer, type Session, signIn } from '../support/session.js';
 import { createTestApp } from '../support/test-app.js';
 
@@ -177,52 +177,12 @@ describe('bad input on every write route', () => {
 
   /** A job in progress with a zone, an amplifier, a speaker, a spare junction, a run with a reading, and a check. */
   async function recordedJob(ctx: Ctx) {
-    const channelRef = { amplifierItemId: 'amp', channelId: 'ch' };
-    const runBody = {
-      label: 'Amp to satellite',
-      fromItemId: 'amp',
-      toItemId: 'speaker',
-      cableType: '14/2 direct burial',
-      gauge: { system: 'awg' as const, awg: 14 },
-      conductors: 2,
-      pairs: [{ pairIndex: 1, channel: channelRef }],
-      measuredLengthM: 10,
-      method: 'direct_burial' as const,
-    };
-    const checkBody = { channel: channelRef, quantity: 'dc_resistance' as const, measuredOhm: 6.8 };
-    const users = ctx.company.users;
-    const job = await insertRecordedJob(
-      ctx.company,
-      ctx.siteId,
-      { crewLeadUserId: users.lead.id, technicianUserIds: [users.tech.id] },
-      {
-        zones: [{ id: 'zone', name: 'Patio' }],
-        referencePoints: [],
-        items: [
-          { id: 'amp', kind: 'amplifier', label: 'Amp', channels: [{ id: 'ch', name: 'Patio' }], ratedWatts8Ohm: 100, minimumImpedanceOhm: 4 },
-          { id: 'speaker', kind: 'speaker', label: 'Satellite', nominalImpedanceOhm: 8 },
-          { id: 'junction', kind: 'junction', label: 'Spare splice' },
-        ],
-        runs: [{ id: 'run', ...runBody, depthReadings: [{ stationM: 2, depthM: 0.3 }] }],
-        checks: [{ id: 'check', ...checkBody }],
-      },
-    );
-    const id = (key: string) => job.ids.get(key)!;
-    const channel = { amplifierItemId: id('amp'), channelId: id('ch') };
+    const job = await insertSmallRecordedJob(ctx.company, ctx.siteId);
     return {
-      jobId: job.id,
+      ...job,
       headers: { 'If-Match': String(job.version) },
-      zoneId: id('zone'),
-      ampId: id('amp'),
-      speakerId: id('speaker'),
-      junctionId: id('junction'),
-      channel,
-      runId: id('run'),
       runBody: {
-        ...runBody,
-        fromItemId: id('amp'),
-        toItemId: id('speaker'),
-        pairs: [{ pairIndex: 1, channel }],
+        ...job.runBody,
         location: 'general',
         route: [
           { x: 0, y: 0 },
@@ -232,9 +192,7 @@ describe('bad input on every write route', () => {
         isSpare: false,
         notes: 'Along the fence',
       },
-      readingId: job.depthReadingIds.get(id('run'))![0]!,
-      checkId: id('check'),
-      checkBody: { ...checkBody, channel, frequencyHz: 1000, isPolarityOk: true, notes: 'Meter at the amp' },
+      checkBody: { ...job.checkBody, frequencyHz: 1000, isPolarityOk: true, notes: 'Meter at the amp' },
     };
   }
 

@@ -156,3 +156,56 @@ export async function insertRecordedJob(
     }),
   );
 }
+
+/**
+ * A job in progress on `siteId`, led by the company's lead with its tech on the crew: a zone, an
+ * amplifier with one channel, a speaker, a spare junction, a run amp → speaker with one depth reading,
+ * and a DC-resistance check. Returns the stored ids and the run and check bodies with those ids.
+ */
+export async function insertSmallRecordedJob(company: { id: string; users: { lead: { id: string }; tech: { id: string } } }, siteId: string) {
+  const channelRef = { amplifierItemId: 'amp', channelId: 'ch' };
+  const runBody = {
+    label: 'Amp to satellite',
+    fromItemId: 'amp',
+    toItemId: 'speaker',
+    cableType: '14/2 direct burial',
+    gauge: { system: 'awg' as const, awg: 14 },
+    conductors: 2,
+    pairs: [{ pairIndex: 1, channel: channelRef }],
+    measuredLengthM: 10,
+    method: 'direct_burial' as const,
+  };
+  const checkBody = { channel: channelRef, quantity: 'dc_resistance' as const, measuredOhm: 6.8 };
+  const job = await insertRecordedJob(
+    company,
+    siteId,
+    { crewLeadUserId: company.users.lead.id, technicianUserIds: [company.users.tech.id] },
+    {
+      zones: [{ id: 'zone', name: 'Patio' }],
+      referencePoints: [],
+      items: [
+        { id: 'amp', kind: 'amplifier', label: 'Amp', channels: [{ id: 'ch', name: 'Patio' }], ratedWatts8Ohm: 100, minimumImpedanceOhm: 4 },
+        { id: 'speaker', kind: 'speaker', label: 'Satellite', nominalImpedanceOhm: 8 },
+        { id: 'junction', kind: 'junction', label: 'Spare splice' },
+      ],
+      runs: [{ id: 'run', ...runBody, depthReadings: [{ stationM: 2, depthM: 0.3 }] }],
+      checks: [{ id: 'check', ...checkBody }],
+    },
+  );
+  const id = (key: string) => job.ids.get(key)!;
+  const channel = { amplifierItemId: id('amp'), channelId: id('ch') };
+  return {
+    jobId: job.id,
+    version: job.version,
+    zoneId: id('zone'),
+    ampId: id('amp'),
+    speakerId: id('speaker'),
+    junctionId: id('junction'),
+    runId: id('run'),
+    readingId: job.depthReadingIds.get(id('run'))![0]!,
+    checkId: id('check'),
+    channel,
+    runBody: { ...runBody, fromItemId: id('amp'), toItemId: id('speaker'), pairs: [{ pairIndex: 1, channel }] },
+    checkBody: { ...checkBody, channel },
+  };
+}
