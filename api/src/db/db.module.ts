@@ -22,8 +22,10 @@ export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
         const pool = new pg.Pool({
           connectionString: config.get('DATABASE_URL', { infer: true }),
           max: 10,
-          // Fail fast when the database is unreachable, so requests answer 503 instead of hanging.
-          connectionTimeoutMillis: 3_000,
+          // A refused connection (database down) fails at once and answers 503. This bounds the rest: a
+          // host that does not answer, and the wait for a free client of the pool under load, where 3 s
+          // proved too short on a busy 2-core machine (packet renders failed and were retried).
+          connectionTimeoutMillis: 10_000,
           statement_timeout: 15_000,
         });
         // An idle client's connection dropping (database restart) must not crash the process.
