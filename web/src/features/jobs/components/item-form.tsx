@@ -1,4 +1,4 @@
-import { Button, Checkbox, Field, Input, MessageBar, MessageBarBody, Select, Spinner, Text, Textarea } from '@fluentui/react-components';
+import { Button, Checkbox, Field, Input, MessageBar, MessageBarBody, Select, Text, Textarea } from '@fluentui/react-components';
 import { Add20Regular, Delete20Regular } from '@fluentui/react-icons';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
@@ -18,6 +18,7 @@ import { fieldDomId } from '../utils/finding-target';
 import { ITEM_KIND_LABELS } from '../utils/record-labels';
 import { saveErrors } from '../utils/save-errors';
 
+import { FormActions } from './form-actions';
 import { useFormStyles } from './form-styles';
 import { LengthInput } from './length-input';
 import { TiesEditor, type TieDraft } from './ties-editor';
@@ -545,21 +546,15 @@ export function ItemForm({ jobId, asBuilt, item, kind, kinds, focusField, onDone
           )}
         />
       </div>
-      <div className={styles.actions}>
-        <Button type="submit" appearance="primary" className={styles.bigButton} disabled={isSaving} icon={isSaving ? <Spinner size="tiny" /> : undefined}>
-          {item ? 'Save' : 'Add'}
-        </Button>
-        <Button
-          className={styles.bigButton}
-          disabled={isSaving}
-          onClick={() => {
-            clear();
-            onDone();
-          }}
-        >
-          {hasDraft ? 'Discard changes' : 'Cancel'}
-        </Button>
-      </div>
+      <FormActions
+        submitLabel={item ? 'Save' : 'Add'}
+        isSaving={isSaving}
+        hasDraft={hasDraft}
+        onCancel={() => {
+          clear();
+          onDone();
+        }}
+      />
     </form>
   );
 }

@@ -1,12 +1,10 @@
 import {
-  Button,
   Checkbox,
   Field,
   Input,
   MessageBar,
   MessageBarBody,
   Select,
-  Spinner,
   Text,
   Textarea,
 } from '@fluentui/react-components';
@@ -27,6 +25,7 @@ import { fieldDomId } from '../utils/finding-target';
 import { ITEM_KIND_LABELS, LOCATION_LABELS, METHOD_LABELS } from '../utils/record-labels';
 import { saveErrors } from '../utils/save-errors';
 
+import { FormActions } from './form-actions';
 import { useFormStyles } from './form-styles';
 import { LengthInput, readLength } from './length-input';
 
@@ -378,21 +377,15 @@ export function RunForm({ jobId, asBuilt, run, focusField, onDone }: RunFormProp
           )}
         />
       </div>
-      <div className={styles.actions}>
-        <Button type="submit" appearance="primary" className={styles.bigButton} disabled={isSaving} icon={isSaving ? <Spinner size="tiny" /> : undefined}>
-          {run ? 'Save run' : 'Add run'}
-        </Button>
-        <Button
-          className={styles.bigButton}
-          disabled={isSaving}
-          onClick={() => {
-            clear();
-            onDone();
-          }}
-        >
-          {hasDraft ? 'Discard changes' : 'Cancel'}
-        </Button>
-      </div>
+      <FormActions
+        submitLabel={run ? 'Save run' : 'Add run'}
+        isSaving={isSaving}
+        hasDraft={hasDraft}
+        onCancel={() => {
+          clear();
+          onDone();
+        }}
+      />
     </form>
   );
 }
