@@ -59,12 +59,18 @@ export const sites = pgTable(
     /** Real distance between calibration points A and B, metres. */
     planCalDistanceM: doublePrecision('plan_cal_distance_m'),
     notes: text('notes'),
+    /**
+     * Optimistic lock, as `jobs.version`: every write to the site or its reference points names it
+     * (If-Match) and bumps it (SiteWriter).
+     */
+    version: integer('version').notNull().default(1),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
     index('sites_company_id_label_idx').on(t.companyId, t.label),
     index('sites_customer_id_idx').on(t.customerId),
+    check('sites_version_positive', sql`${t.version} >= 1`),
     check('sites_origin_complete', sql`(${t.originLat} is null) = (${t.originLon} is null)`),
     check(
       'sites_plan_image_complete',
