@@ -31,18 +31,24 @@ export const packetDeliveries = pgTable(
     /** Send attempts started (each worker pick-up adds one). */
     attempts: integer('attempts').notNull().default(0),
     lastError: text('last_error'),
-    /** Whether the PDF went as an attachment (null until sent; false: too large, link only). */
+    /** The sender's choice: attach the PDF (when it is within MAIL_MAX_ATTACHMENT_BYTES) or send the link only. */
+    wantsPdfAttached: boolean('wants_pdf_attached').notNull().default(true),
+    /** Whether the PDF went as an attachment (null until sent; false: link only, chosen or too large). */
     isPdfAttached: boolean('is_pdf_attached'),
     messageId: text('message_id'),
     /** The homeowner invitation sent with this delivery, when the recipient had no account. */
     invitationId: uuid('invitation_id').references(() => invitations.id, { onDelete: 'set null' }),
     requestedByUserId: uuid('requested_by_user_id').references(() => users.id, { onDelete: 'set null' }),
     sentAt: timestamp('sent_at', { withTimezone: true }),
+    /** A failed delivery the office has set aside: no longer shown as needing attention. */
+    dismissedAt: timestamp('dismissed_at', { withTimezone: true }),
+    dismissedByUserId: uuid('dismissed_by_user_id').references(() => users.id, { onDelete: 'set null' }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
     index('packet_deliveries_revision_id_created_at_idx').on(t.revisionId, t.createdAt),
+    index('packet_deliveries_company_id_status_idx').on(t.companyId, t.status),
     index('packet_deliveries_status_updated_at_idx').on(t.status, t.updatedAt),
     check('packet_deliveries_sent_has_time', sql`${t.status} <> 'sent' or ${t.sentAt} is not null`),
   ],
