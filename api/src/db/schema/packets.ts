@@ -1,6 +1,7 @@
 import { sql } from 'drizzle-orm';
 import { bigint, check, index, integer, jsonb, pgEnum, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
 
+import type { DepthRuleTable } from '../../domain/depth/depth-rules.schema.js';
 import type { PacketSnapshot } from '../../domain/packet/packet-snapshot.js';
 import { companies } from './companies.js';
 import { gaugeSystem, jobs } from './jobs.js';
@@ -25,8 +26,21 @@ export const companySettings = pgTable('company_settings', {
   licenceNumbers: text('licence_numbers').array().notNull().default(sql`'{}'::text[]`),
   contactPhone: text('contact_phone'),
   contactEmail: text('contact_email'),
-  /** Storage key of the logo (PNG/JPEG/SVG); inlined as a data URI when the packet is rendered. */
+  /**
+   * Storage key of the logo: a normalised PNG (bounded size, no metadata) named by its SHA-256, never
+   * overwritten, so a packet revision that copied the key at issue time always finds the same picture.
+   */
   logoKey: text('logo_key'),
+  /** Company profile (issue 14): shown on packets, the homeowner portal and the locate view. */
+  website: text('website'),
+  /** Postal address as printed, one line per line. */
+  postalAddress: text('postal_address'),
+  /** IANA time zone name (checked with Intl); null until the admin chooses one. */
+  timeZone: text('time_zone'),
+  /** BCP 47 locale for dates and numbers. */
+  locale: text('locale').notNull().default('en-US'),
+  /** The company's depth rule table (DepthRuleTable); null follows the shipped defaults. */
+  depthRules: jsonb('depth_rules').$type<DepthRuleTable>(),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
 });
 
