@@ -11,3 +11,4 @@ export * from './delivery.js';
 export * from './signatures.js';
 export * from './preferences.js';
 export * from './outgoing-mail.js';
+export * from './signups.js';
