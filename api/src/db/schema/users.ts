@@ -87,9 +87,10 @@ export const invitations = pgTable(
   (t) => [
     uniqueIndex('invitations_token_hash_key').on(t.tokenHash),
     index('invitations_company_id_idx').on(t.companyId),
-    // At most one open invitation per address.
-    uniqueIndex('invitations_open_email_key')
-      .on(t.email)
+    // At most one open invitation per address and company (companies invite independently, and one
+    // company's invitation must neither reveal nor displace another's).
+    uniqueIndex('invitations_open_company_email_key')
+      .on(t.companyId, t.email)
       .where(sql`${t.acceptedAt} is null and ${t.revokedAt} is null`),
   ],
 );

@@ -1,0 +1,2 @@
+DROP INDEX "invitations_open_email_key";--> statement-breakpoint
+CREATE UNIQUE INDEX "invitations_open_company_email_key" ON "invitations" USING btree ("company_id","email") WHERE "invitations"."accepted_at" is null and "invitations"."revoked_at" is null;
