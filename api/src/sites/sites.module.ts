@@ -7,6 +7,8 @@ import { SiteHomeownersController } from './site-homeowners.controller.js';
 import { SiteHomeownersService } from './site-homeowners.service.js';
 import { SitePlanImageController } from './site-plan-image.controller.js';
 import { SitePlanImagesService } from './site-plan-images.service.js';
+import { SiteVersionsRepository } from './site-versions.repository.js';
+import { SiteWriter } from './site-writer.js';
 import { SitesController } from './sites.controller.js';
 import { SitesRepository } from './sites.repository.js';
 import { SitesService } from './sites.service.js';
@@ -15,8 +17,17 @@ import { SitesService } from './sites.service.js';
   // Homeowners without an account are invited through the users' invitation flow.
   imports: [UsersModule],
   controllers: [SitesController, SitePlanImageController, SiteHomeownersController],
-  providers: [SitesService, SitesRepository, SitePlanImagesService, PlanImageProcessor, PlanImageUploadInterceptor, SiteHomeownersService],
-  // The drawing routes of a job put the site's plan image underneath.
-  exports: [SitePlanImagesService],
+  providers: [
+    SitesService,
+    SitesRepository,
+    SitePlanImagesService,
+    PlanImageProcessor,
+    PlanImageUploadInterceptor,
+    SiteHomeownersService,
+    SiteVersionsRepository,
+    SiteWriter,
+  ],
+  // The drawing routes of a job put the site's plan image underneath; SiteWriter versions every site write.
+  exports: [SitePlanImagesService, SiteWriter],
 })
 export class SitesModule {}

@@ -1,0 +1,22 @@
+import { ConflictException, ForbiddenException, NotFoundException } from '@nestjs/common';
+
+import type { SiteDecision } from '../domain/sites/site-rules.js';
+
+export function siteNotFound(): NotFoundException {
+  return new NotFoundException({ message: 'No such site.', code: 'SITE_NOT_FOUND' });
+}
+
+/** 409 with the site's current version: the client reloads the site and tries again. */
+export function siteVersionConflict(currentVersion: number): ConflictException {
+  return new ConflictException({
+    message: `Someone changed this site after you opened it (it is now at version ${currentVersion}). Reload it, check your change and save again.`,
+    code: 'VERSION_CONFLICT',
+    currentVersion,
+  });
+}
+
+/** A role denial is 403; a denial because of the site's jobs' statuses is 409 naming those jobs. */
+export function siteDenied(decision: SiteDecision & { isAllowed: false }): ForbiddenException | ConflictException {
+  const body = { message: decision.message, code: decision.code, ...(decision.jobs ? { jobs: decision.jobs } : {}) };
+  return decision.kind === 'role' ? new ForbiddenException(body) : new ConflictException(body);
+}
