@@ -18,7 +18,7 @@ import type {
 import { OutgoingMailService } from '../outgoing-mail/outgoing-mail.service.js';
 import { AuthRepository, type UserWithCompany } from './auth.repository.js';
 import { PasswordHasher } from './password-hasher.js';
-import { hashToken, newOpaqueToken } from './tokens.js';
+import { hashToken, newOpaqueToken, successorKey, successorToken } from './tokens.js';
 
 export interface ClientMeta {
   ip: string | undefined;
@@ -54,6 +54,7 @@ function toMe(user: UserWithCompany): MeResponse {
 @Injectable()
 export class AuthService {
   private readonly logger = new Logger(AuthService.name);
+  private readonly successorKey: Buffer;
 
   constructor(
     private readonly repository: AuthRepository,
@@ -62,7 +63,9 @@ export class AuthService {
     private readonly config: ConfigService<Env, true>,
     private readonly audit: AuditService,
     private readonly outgoingMail: OutgoingMailService,
-  ) {}
+  ) {
+    this.successorKey = successorKey(this.config.get('JWT_ACCESS_SECRET', { infer: true }));
+  }
 
   /**
    * The local strategy's check. Unknown e-mail, wrong password and disabled account all give the same
@@ -99,7 +102,10 @@ export class AuthService {
 
   /**
    * Rotates a refresh token. A token that was already rotated is evidence of theft (the legitimate
-   * client and an attacker both hold it): the whole family is revoked and both must sign in again.
+   * client and an attacker both hold it): the whole family is revoked and both must sign in again —
+   * unless it was rotated less than REFRESH_REUSE_GRACE_SECONDS ago. Then the request is one of several
+   * made at once with the same cookie (two tabs opening together, a browser restoring its session) and
+   * gets the same successor the first request got (see `successorToken`), not a new family member.
    */
   async refresh(refreshToken: string | undefined, meta: ClientMeta): Promise<IssuedSession> {
     const invalid = new UnauthorizedException({ message: 'Your session has ended; sign in again.', code: 'SESSION_ENDED' });
@@ -109,11 +115,18 @@ export class AuthService {
     const user = await this.repository.findUserById(session.userId);
     if (!user || user.isDisabled) throw invalid;
 
+    const successor = successorToken(this.successorKey, refreshToken);
     const rotated = await this.repository.transaction(async (tx) => {
+      // The claim waits for a concurrent claim of the same row to commit, so when it fails the
+      // successor that request inserted is already visible to the grace check below.
       if (!(await this.repository.claimRefreshSession(session.id, tx))) return undefined;
-      return this.issueSession(user, meta, session.familyId, tx);
+      return this.issueSession(user, meta, session.familyId, tx, successor);
     });
     if (rotated) return rotated;
+
+    const late = await this.successorWithinGrace(refreshToken, session.familyId);
+    if (late === 'ended') throw invalid;
+    if (late) return this.sessionFor(user, late.token, late.expiresAt);
 
     await this.repository.revokeFamily(session.familyId);
     await this.audit.record({
@@ -129,6 +142,29 @@ export class AuthService {
       message: 'This session was used from somewhere else and has been closed; sign in again.',
       code: 'REFRESH_TOKEN_REUSED',
     });
+  }
+
+  /**
+   * The live token a just-rotated `token` leads to, when every rotation on the way happened within the
+   * grace window (a chain, because the first tab may already have refreshed again); `'ended'` when the
+   * family was revoked meanwhile (signed out); `undefined` when it is reuse.
+   */
+  private async successorWithinGrace(
+    token: string,
+    familyId: string,
+  ): Promise<{ token: string; expiresAt: Date } | 'ended' | undefined> {
+    const graceMs = this.config.get('REFRESH_REUSE_GRACE_SECONDS', { infer: true }) * 1000;
+    if (graceMs <= 0) return undefined;
+    let current = token;
+    for (let hop = 0; hop < 4; hop++) {
+      const row = await this.repository.findRefreshSession(hashToken(current));
+      if (!row || row.familyId !== familyId) return undefined;
+      if (row.revokedAt || row.expiresAt <= new Date()) return 'ended';
+      if (!row.replacedAt) return hop === 0 ? undefined : { token: current, expiresAt: row.expiresAt };
+      if (Date.now() - row.replacedAt.getTime() > graceMs) return undefined;
+      current = successorToken(this.successorKey, current);
+    }
+    return undefined;
   }
 
   async signOut(refreshToken: string | undefined): Promise<void> {
@@ -240,11 +276,8 @@ export class AuthService {
     meta: ClientMeta,
     familyId: string,
     tx?: Tx,
+    refreshToken: string = newOpaqueToken(),
   ): Promise<IssuedSession> {
-    const expiresInSeconds = this.config.get('ACCESS_TOKEN_TTL_SECONDS', { infer: true });
-    const payload: AccessTokenPayload = { sub: user.id, cid: user.companyId, role: user.role };
-    const accessToken = await this.jwt.signAsync(payload, { expiresIn: expiresInSeconds });
-    const refreshToken = newOpaqueToken();
     const refreshExpiresAt = new Date(Date.now() + this.config.get('REFRESH_TOKEN_TTL_DAYS', { infer: true }) * 86_400_000);
     await this.repository.insertRefreshSession(
       {
@@ -257,6 +290,14 @@ export class AuthService {
       },
       tx,
     );
+    return this.sessionFor(user, refreshToken, refreshExpiresAt);
+  }
+
+  /** A new access token for `user` alongside a refresh token that is already stored. */
+  private async sessionFor(user: UserWithCompany, refreshToken: string, refreshExpiresAt: Date): Promise<IssuedSession> {
+    const expiresInSeconds = this.config.get('ACCESS_TOKEN_TTL_SECONDS', { infer: true });
+    const payload: AccessTokenPayload = { sub: user.id, cid: user.companyId, role: user.role };
+    const accessToken = await this.jwt.signAsync(payload, { expiresIn: expiresInSeconds });
     return { body: { accessToken, expiresInSeconds, user: toMe(user) }, refreshToken, refreshExpiresAt };
   }
 

@@ -22,6 +22,11 @@ export const EnvSchema = z.object({
   JWT_ACCESS_SECRET: z.string().min(32, { error: 'JWT_ACCESS_SECRET must be at least 32 characters' }),
   ACCESS_TOKEN_TTL_SECONDS: z.coerce.number().int().min(30).max(86_400).default(900),
   REFRESH_TOKEN_TTL_DAYS: z.coerce.number().int().min(1).max(365).default(30),
+  /**
+   * Seconds after a refresh token is rotated during which presenting it again returns the same
+   * successor (several tabs refreshing at once) instead of counting as reuse; 0 turns it off.
+   */
+  REFRESH_REUSE_GRACE_SECONDS: z.coerce.number().int().min(0).max(300).default(30),
   INVITATION_TTL_HOURS: z.coerce.number().int().min(1).max(24 * 30).default(72),
   PASSWORD_RESET_TTL_MINUTES: z.coerce.number().int().min(5).max(24 * 60).default(60),
   /** Hosted SMTP service (smtp:// or smtps://). When absent, a local capture server runs in-process. */
@@ -79,8 +84,10 @@ export const EnvSchema = z.object({
   SMTP_SOCKET_TIMEOUT_MS: z.coerce.number().int().min(100).max(600_000).default(30_000),
   /** Sign-in and reset requests one client address may make per minute before 429. */
   SIGN_IN_LIMIT_PER_ADDRESS_PER_MINUTE: z.coerce.number().int().min(1).max(100_000).default(30),
-  /** Sign-in and reset requests naming one account per 15 minutes before 429 (password guessing). */
+  /** Sign-in and reset requests naming one account from one client address per 15 minutes before 429 (password guessing). */
   SIGN_IN_LIMIT_PER_ACCOUNT: z.coerce.number().int().min(1).max(100_000).default(9),
+  /** Sign-in and reset requests naming one account from all addresses together per 15 minutes before 429. */
+  SIGN_IN_LIMIT_PER_ACCOUNT_GLOBAL: z.coerce.number().int().min(1).max(100_000).default(50),
   /**
    * Express `trust proxy`: set it when a reverse proxy terminates HTTPS in front of the API (e.g.
    * `loopback` or `1` for one hop), so the refresh cookie is marked Secure and client addresses are

@@ -2,7 +2,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import { and, asc, eq, gt, isNull } from 'drizzle-orm';
 
 import { DB, type Db, type Tx } from '../db/db.module.js';
-import { companies, invitationSites, invitations, type NewUser, type User, users } from '../db/schema/index.js';
+import { companies, invitationSites, invitations, type NewUser, refreshSessions, type User, users } from '../db/schema/index.js';
 
 /** Every method takes the company id from the signed-in user: nothing here crosses companies. */
 @Injectable()
@@ -32,9 +32,21 @@ export class UsersRepository {
     return row?.name ?? '';
   }
 
-  async emailExists(email: string): Promise<boolean> {
-    const [row] = await this.db.select({ id: users.id }).from(users).where(eq(users.email, email));
+  /** Whether the address has an account in this company (accounts elsewhere are not this company's business). */
+  async emailExistsInCompany(companyId: string, email: string): Promise<boolean> {
+    const [row] = await this.db
+      .select({ id: users.id })
+      .from(users)
+      .where(and(eq(users.companyId, companyId), eq(users.email, email)));
     return row !== undefined;
+  }
+
+  /** Ends every session of the user (all refresh token families). */
+  async revokeSessionsOf(userId: string, tx: Tx): Promise<void> {
+    await tx
+      .update(refreshSessions)
+      .set({ revokedAt: new Date() })
+      .where(and(eq(refreshSessions.userId, userId), isNull(refreshSessions.revokedAt)));
   }
 
   listOpenInvitations(companyId: string) {
@@ -68,12 +80,35 @@ export class UsersRepository {
     return row;
   }
 
-  /** Revokes any open invitation for the address (a new one replaces it). */
-  async revokeOpenInvitationsFor(email: string, tx: Tx): Promise<void> {
+  /** This company's open (not accepted, not revoked) invitations for the address, locked for the caller's transaction. */
+  openInvitationsFor(companyId: string, email: string, tx: Tx) {
+    return tx
+      .select()
+      .from(invitations)
+      .where(
+        and(
+          eq(invitations.companyId, companyId),
+          eq(invitations.email, email),
+          isNull(invitations.acceptedAt),
+          isNull(invitations.revokedAt),
+        ),
+      )
+      .for('update');
+  }
+
+  /** Revokes this company's open invitation for the address (a new one replaces it); other companies' stay. */
+  async revokeOpenInvitationsFor(companyId: string, email: string, tx: Tx): Promise<void> {
     await tx
       .update(invitations)
       .set({ revokedAt: new Date() })
-      .where(and(eq(invitations.email, email), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)));
+      .where(
+        and(
+          eq(invitations.companyId, companyId),
+          eq(invitations.email, email),
+          isNull(invitations.acceptedAt),
+          isNull(invitations.revokedAt),
+        ),
+      );
   }
 
   async insertInvitation(invitation: typeof invitations.$inferInsert, tx: Tx) {

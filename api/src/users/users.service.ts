@@ -41,6 +41,10 @@ function toInvitationResponse(invitation: Invitation, mail: OutgoingMailRow | un
   };
 }
 
+/** Only a role that may send an invitation may revoke, resend or replace it: admin invitations are admins' alone. */
+const adminInvitationOnly = () =>
+  new ForbiddenException({ message: 'Only an admin can change an invitation for an admin.', code: 'CANNOT_MANAGE_INVITATION' });
+
 const invitationNotFound = () => new NotFoundException({ message: 'No such open invitation.', code: 'INVITATION_NOT_FOUND' });
 
 @Injectable()
@@ -64,6 +68,9 @@ export class UsersService {
     }
     const updated = await this.repository.transaction(async (tx) => {
       const row = await this.repository.updateInCompany(actor.companyId, id, input, tx);
+      // A disabled account loses every session at once (its access tokens already fail on the next
+      // request), so enabling it again later revives none of its earlier refresh tokens.
+      if (input.isDisabled === true) await this.repository.revokeSessionsOf(id, tx);
       await this.audit.record(
         { companyId: actor.companyId, actorUserId: actor.id, action: 'user.update', targetType: 'user', targetId: id, details: input },
         tx,
@@ -88,13 +95,20 @@ export class UsersService {
     if (!canInvite(actor.role, input.role)) {
       throw new ForbiddenException({ message: `Your role cannot invite a ${ROLE_LABELS[input.role].toLowerCase()}.`, code: 'CANNOT_INVITE_ROLE' });
     }
-    if (await this.repository.emailExists(input.email)) {
-      throw new ConflictException({ message: 'Someone already has an account with this e-mail.', code: 'EMAIL_TAKEN' });
+    // Only accounts in the actor's own company are named. An address with an account in another
+    // company gets an invitation like any other (nothing here tells the inviter it exists); its owner
+    // learns on the link that the address already has an account (EMAIL_TAKEN when accepting).
+    if (await this.repository.emailExistsInCompany(actor.companyId, input.email)) {
+      throw new ConflictException({ message: 'Someone in your company already has an account with this e-mail.', code: 'EMAIL_TAKEN' });
     }
     const hours = this.config.get('INVITATION_TTL_HOURS', { infer: true });
     const companyName = await this.repository.companyName(actor.companyId);
     const { invitation, mail } = await this.repository.transaction(async (tx) => {
-      await this.repository.revokeOpenInvitationsFor(input.email, tx);
+      // A new invitation replaces this company's open one for the address: only someone who may
+      // invite that one's role may replace it (office cannot displace an admin's admin invitation).
+      const replaced = await this.repository.openInvitationsFor(actor.companyId, input.email, tx);
+      if (replaced.some((open) => !canInvite(actor.role, open.role))) throw adminInvitationOnly();
+      await this.repository.revokeOpenInvitationsFor(actor.companyId, input.email, tx);
       const row = await this.repository.insertInvitation(
         {
           companyId: actor.companyId,
@@ -144,6 +158,7 @@ export class UsersService {
   async resendInvitation(actor: AuthUser, id: string): Promise<InvitationResponse> {
     const invitation = await this.repository.findOpenInvitationInCompany(actor.companyId, id);
     if (!invitation) throw invitationNotFound();
+    if (!canInvite(actor.role, invitation.role)) throw adminInvitationOnly();
     const [inviter, companyName] = await Promise.all([
       invitation.invitedByUserId ? this.repository.findInCompany(actor.companyId, invitation.invitedByUserId) : undefined,
       this.repository.companyName(actor.companyId),
@@ -175,6 +190,8 @@ export class UsersService {
   async revokeInvitation(actor: AuthUser, id: string): Promise<void> {
     const revoked = await this.repository.transaction(async (tx) => {
       const row = await this.repository.revokeInvitationInCompany(actor.companyId, id, tx);
+      // Thrown inside the transaction, so the revocation above is rolled back.
+      if (row && !canInvite(actor.role, row.role)) throw adminInvitationOnly();
       if (row) {
         await this.audit.record(
           { companyId: actor.companyId, actorUserId: actor.id, action: 'invitation.revoke', targetType: 'invitation', targetId: id },
