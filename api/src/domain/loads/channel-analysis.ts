@@ -81,7 +81,11 @@ export interface LoadResult {
   idealPowerW: number;
   /** Cable loss, dB (positive = quieter). */
   cableLossDb: number;
-  /** Power lost to the cable relative to ideal cable, % (100·(1 − P/P_ideal)). */
+  /**
+   * Level drop at the speaker expressed as power: how much less power it gets than with ideal cable at the
+   * same amplifier voltage, % (100·(1 − P/P_ideal)). Not the share of the amplifier's output dissipated in
+   * the cable (that is the channel's `cableDissipationPct`).
+   */
   powerLossPct: number;
   /** CV tap watts, for a constant-voltage speaker. */
   tapWatts?: number;
@@ -177,6 +181,7 @@ export function analyzeChannel(
   const { voltageV, basis } = ratedOutputVoltage(amplifier, channelDef, unit.inputOhm);
   const ideal = solveIdeal(circuit, voltageV);
   const withCable = solveCircuit(tree, voltageV);
+  const channelDissipationPct = withCable.sourcePowerW > 0 ? (100 * withCable.cablePowerW) / withCable.sourcePowerW : 0;
 
   const nodes: NodeResult[] = [];
   const loads: LoadResult[] = [];
@@ -239,13 +244,23 @@ export function analyzeChannel(
       findings.push({
         code: 'CABLE_LOSS_OVER_LIMIT',
         severity: 'warning',
+        // Two meanings of "power lost", each named (defined once in the Engineering notes): the level drop
+        // at the speaker against ideal cable at the same amplifier voltage, and the share of the
+        // amplifier's output dissipated in the channel's cable (the figure the trade's tables quote).
         message:
-          `"${item.label}" on ${channelName} loses ${fmt(load.cableLossDb)} dB in the cable (${fmt(load.powerLossPct, 1)} % of its power); ` +
-          `the limit is ${fmt(options.lossLimitDb)} dB. A heavier gauge on the runs feeding it brings it back — see the suggested gauges.`,
+          `"${item.label}" on ${channelName}: level drop at the speaker ${fmt(load.cableLossDb)} dB ` +
+          `(${fmt(load.powerLossPct, 1)} % less power than with ideal cable); the channel's cable dissipates ` +
+          `${fmt(channelDissipationPct, 1)} % of the amplifier's output. The limit is ${fmt(options.lossLimitDb)} dB of level drop. ` +
+          'A heavier gauge on the runs feeding it brings it back — see the suggested gauges.',
         path: ['items', nodeItemIndex[node]!],
         itemId: item.id,
         channel,
-        data: { cableLossDb: load.cableLossDb, powerLossPct: load.powerLossPct, limitDb: options.lossLimitDb },
+        data: {
+          cableLossDb: load.cableLossDb,
+          powerLossPct: load.powerLossPct,
+          cableDissipationPct: channelDissipationPct,
+          limitDb: options.lossLimitDb,
+        },
       });
     }
     checkCvCompatibility(item, channelDef, channelName, channel, nodeItemIndex[node]!, findings);
@@ -260,7 +275,7 @@ export function analyzeChannel(
     loadOhmWithCable: finiteOrNull(withCable.inputOhm),
     amplifierOutputW: withCable.sourcePowerW,
     cableDissipationW: withCable.cablePowerW,
-    cableDissipationPct: withCable.sourcePowerW > 0 ? (100 * withCable.cablePowerW) / withCable.sourcePowerW : 0,
+    cableDissipationPct: channelDissipationPct,
     nodes,
     loads,
   };
