@@ -9,6 +9,10 @@ import {
 import type { Request, Response } from 'express';
 
 import { ConflictError, DomainError, NotFoundError, RuleViolationError } from '../domain/errors.js';
+import { LimiterBusyError } from './concurrency-limiter.js';
+import { isDatabaseBusy } from './db-errors.js';
+import { RetryLaterException } from './retry-later.exception.js';
+import { WorkerPoolBusyError } from './worker-pool.js';
 
 export interface ErrorBody {
   statusCode: number;
@@ -62,6 +66,15 @@ function isDatabaseUnavailable(error: unknown): boolean {
   return false;
 }
 
+/** Seconds a client should wait before trying again, for answers that say "later" (429, 503). */
+function retryAfterSeconds(exception: unknown, body: ErrorBody): number | undefined {
+  if (exception instanceof RetryLaterException) return exception.retryAfterSeconds;
+  if (exception instanceof LimiterBusyError) return exception.retryAfterSeconds;
+  if (body.code === 'SERVER_BUSY' || body.code === 'DATABASE_BUSY') return 2;
+  if (body.code === 'DATABASE_UNAVAILABLE') return 5;
+  return undefined;
+}
+
 /** What Nest's ParseUUIDPipe says, without naming the parameter. */
 const PARSE_UUID_MESSAGE = /^Validation failed \(uuid( v\d)? is expected\)$/;
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
@@ -94,7 +107,10 @@ export class HttpExceptionFilter implements ExceptionFilter {
     if (body.statusCode >= 500 && body.statusCode !== HttpStatus.SERVICE_UNAVAILABLE) {
       this.logger.error(exception instanceof Error ? exception.stack : String(exception));
     }
-    if (!res.headersSent) res.status(body.statusCode).json(body);
+    if (res.headersSent) return;
+    const retryAfter = retryAfterSeconds(exception, body);
+    if (retryAfter !== undefined) res.setHeader('Retry-After', String(retryAfter));
+    res.status(body.statusCode).json(body);
   }
 
   private toBody(exception: unknown): ErrorBody {
@@ -120,6 +136,23 @@ export class HttpExceptionFilter implements ExceptionFilter {
       const statusCode =
         [...DOMAIN_STATUS].find(([type]) => exception instanceof type)?.[1] ?? HttpStatus.UNPROCESSABLE_ENTITY;
       return { statusCode, error: STATUS_TEXT[statusCode] ?? 'Error', message: exception.message, code: exception.code };
+    }
+    if (exception instanceof LimiterBusyError || exception instanceof WorkerPoolBusyError) {
+      return {
+        statusCode: HttpStatus.SERVICE_UNAVAILABLE,
+        error: STATUS_TEXT[503]!,
+        message: 'The server is busy with other requests right now; try again shortly.',
+        code: 'SERVER_BUSY',
+      };
+    }
+    // Before "unavailable": a pool wait that timed out while the database answers is load, not an outage.
+    if (isDatabaseBusy(exception)) {
+      return {
+        statusCode: HttpStatus.SERVICE_UNAVAILABLE,
+        error: STATUS_TEXT[503]!,
+        message: 'The database is busy with other requests right now; try again shortly.',
+        code: 'DATABASE_BUSY',
+      };
     }
     if (isDatabaseUnavailable(exception)) {
       return {

@@ -106,6 +106,18 @@ export const EnvSchema = z.object({
   UPLOAD_MAX_FILES: z.coerce.number().int().min(1).max(100).default(10),
   /** Largest decoded image accepted, in pixels (decompression-bomb guard; larger: 413). */
   UPLOAD_MAX_INPUT_PIXELS: z.coerce.number().int().min(1_000_000).default(100_000_000),
+  /** Longest accepted image side, in pixels (photos and site plans; longer: 413). */
+  UPLOAD_MAX_IMAGE_SIDE_PX: z.coerce.number().int().min(1000).max(100_000).default(20_000),
+  /** Most elongated accepted image, long side over short side (photos and site plans; more: 422). */
+  UPLOAD_MAX_ASPECT_RATIO: z.coerce.number().min(2).max(1000).default(10),
+  /** Images one API process decodes and resizes at once; the rest wait in a queue (keep below the core count). */
+  IMAGE_PROCESSING_CONCURRENCY: z.coerce.number().int().min(1).max(16).default(1),
+  /** Upload requests (photos, site plans) one user may have in flight at once; one more gets 429. */
+  UPLOAD_MAX_CONCURRENT_PER_USER: z.coerce.number().int().min(1).max(100).default(2),
+  /** Worker threads that lay out and draw job drawings (SVG) off the event loop. */
+  DRAWING_THREADS: z.coerce.number().int().min(1).max(16).default(1),
+  /** Memory for finished drawings kept for repeated requests, MB (0 turns the cache off). */
+  DRAWING_CACHE_MB: z.coerce.number().int().min(0).max(4096).default(64),
 }).superRefine((env, ctx) => {
   if (env.STORAGE_DRIVER === 's3' && !env.S3_BUCKET) {
     ctx.addIssue({ code: 'custom', path: ['S3_BUCKET'], message: 'S3_BUCKET is required when STORAGE_DRIVER=s3' });

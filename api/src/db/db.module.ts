@@ -3,6 +3,7 @@ import { ConfigService } from '@nestjs/config';
 import { drizzle, type NodePgDatabase } from 'drizzle-orm/node-postgres';
 import pg from 'pg';
 
+import { noteDatabaseAnswered } from '../common/db-errors.js';
 import type { Env } from '../config/env.schema.js';
 import * as schema from './schema/index.js';
 
@@ -30,6 +31,12 @@ export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
         });
         // An idle client's connection dropping (database restart) must not crash the process.
         pool.on('error', (error) => new Logger('Database').warn(`idle client error: ${error.message}`));
+        // Proof that the database answers: a pool wait that then times out is load (503 DATABASE_BUSY),
+        // not an outage (503 DATABASE_UNAVAILABLE); see db-errors.ts.
+        pool.on('connect', () => noteDatabaseAnswered());
+        pool.on('release', (error: Error | undefined) => {
+          if (!error) noteDatabaseAnswered();
+        });
         return pool;
       },
     },
