@@ -19,6 +19,7 @@ import { PacketsModule } from './packets/packets.module.js';
 import { PhotosModule } from './photos/photos.module.js';
 import { PortalModule } from './portal/portal.module.js';
 import { SettingsModule } from './settings/settings.module.js';
+import { SignupModule } from './signup/signup.module.js';
 import { SitesModule } from './sites/sites.module.js';
 import { StorageModule } from './storage/storage.module.js';
 import { UsersModule } from './users/users.module.js';
@@ -43,6 +44,7 @@ import { UsersModule } from './users/users.module.js';
     DeliveryModule,
     PortalModule,
     SettingsModule,
+    SignupModule,
   ],
   providers: [
     // Default-deny: every route needs a signed-in user unless marked @Public(); then @Roles() applies.

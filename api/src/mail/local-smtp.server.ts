@@ -5,15 +5,15 @@ import { ConfigService } from '@nestjs/config';
 import { simpleParser } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
 
-import type { Env } from '../config/env.schema.js';
+import { type Env, mailDestination } from '../config/env.schema.js';
 import { MailCaptureRepository } from './mail-capture.repository.js';
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /**
  * The local stand-in for a hosted mail service: a real SMTP server on 127.0.0.1 that stores every
- * message it receives (headers, HTML, text, attachments) for the Outbox page. It runs only when no
- * SMTP_URL is configured and NODE_ENV is not production.
+ * message it receives (headers, HTML, text, attachments) for the Outbox page. It runs whenever no
+ * SMTP_URL is configured, whatever NODE_ENV is: mail that works out of the box, read in the app.
  */
 @Injectable()
 export class LocalSmtpServer implements OnApplicationBootstrap, OnApplicationShutdown {
@@ -27,7 +27,7 @@ export class LocalSmtpServer implements OnApplicationBootstrap, OnApplicationShu
   ) {}
 
   get isEnabled(): boolean {
-    return !this.config.get('SMTP_URL', { infer: true }) && this.config.get('NODE_ENV', { infer: true }) !== 'production';
+    return !this.config.get('SMTP_URL', { infer: true });
   }
 
   /** Starts the server on first use and resolves to the port it listens on. */
@@ -61,7 +61,12 @@ export class LocalSmtpServer implements OnApplicationBootstrap, OnApplicationShu
   }
 
   async onApplicationBootstrap(): Promise<void> {
-    if (this.isEnabled) await this.port();
+    if (this.isEnabled) {
+      await this.port();
+      this.logger.log('mail is captured locally: read it on the Outbox page (set SMTP_URL to deliver it)');
+    } else {
+      this.logger.log(`mail goes to ${mailDestination(this.config.get('SMTP_URL', { infer: true }))}`);
+    }
   }
 
   async onApplicationShutdown(): Promise<void> {

@@ -8,7 +8,7 @@ import Handlebars from 'handlebars';
 /** templates/ at the repository root (the same relative path from api/src and api/dist). */
 export const TEMPLATES_DIR = fileURLToPath(new URL('../../../templates', import.meta.url));
 
-export type MailTemplateName = 'invitation' | 'password-reset' | 'packet-sent';
+export type MailTemplateName = 'invitation' | 'password-reset' | 'packet-sent' | 'signup-verification' | 'signup-notice';
 
 export interface RenderedMail {
   subject: string;

@@ -10,8 +10,8 @@ export interface OutgoingMail {
   template: MailTemplateName;
   to: string;
   cc?: string[];
-  /** Tags the message so the local Outbox shows it only to that company. */
-  companyId: string;
+  /** Tags the message so the local Outbox shows it only to that company (null: a sign-up, no company yet). */
+  companyId: string | null;
   data: Record<string, unknown>;
   attachments?: { filename: string; content: Buffer; contentType: string }[];
 }
@@ -39,7 +39,7 @@ export class MailService {
       subject: rendered.subject,
       html: rendered.html,
       text: rendered.text,
-      headers: { 'X-Loamline-Company': mail.companyId },
+      headers: mail.companyId ? { 'X-Loamline-Company': mail.companyId } : {},
       attachments: mail.attachments,
     });
     this.logger.log(`sent "${mail.template}" mail ${info.messageId}`);
@@ -56,7 +56,6 @@ export class MailService {
       };
       const url = this.config.get('SMTP_URL', { infer: true });
       if (url) return nodemailer.createTransport({ url, ...timeouts });
-      if (!this.localServer.isEnabled) throw new Error('SMTP_URL is required in production');
       const port = await this.localServer.port();
       return nodemailer.createTransport({ host: '127.0.0.1', port, secure: false, ignoreTLS: true, ...timeouts });
     })();

@@ -11,17 +11,24 @@ import {
   type OutboxQuery,
   OutboxQuerySchema,
 } from '../domain/mail/outbox.schema.js';
+import type { MailStatusResponse } from '../domain/signup/signup.schema.js';
 import { OutboxService } from './outbox.service.js';
 
 @ApiTags('outbox')
 @ApiBearerAuth()
-@Roles('admin')
+@Roles('admin', 'office')
 @Controller('outbox')
 export class OutboxController {
   constructor(private readonly outboxService: OutboxService) {}
 
+  @Get('status')
+  @ApiOperation({ summary: 'Where mail goes: captured by the built-in server (read it here) or a mail service' })
+  status(): MailStatusResponse {
+    return this.outboxService.status();
+  }
+
   @Get()
-  @ApiOperation({ summary: "Messages captured by the local mail server for the admin's company (not in production)" })
+  @ApiOperation({ summary: "Messages captured by the local mail server for the caller's company (when SMTP_URL is not set)" })
   list(
     @CurrentUser() user: AuthUser,
     @Query(new ZodValidationPipe(OutboxQuerySchema)) query: OutboxQuery,

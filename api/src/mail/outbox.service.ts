@@ -1,17 +1,26 @@
 import { Injectable, NotFoundException } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
 
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
+import { type Env, mailDestination } from '../config/env.schema.js';
+import type { MailStatusResponse } from '../domain/signup/signup.schema.js';
 import type { OutboxListResponse, OutboxMessageResponse, OutboxQuery } from '../domain/mail/outbox.schema.js';
 import { LocalSmtpServer } from './local-smtp.server.js';
 import { MailCaptureRepository } from './mail-capture.repository.js';
 
-/** Reads what the local SMTP stand-in captured, for the company of the signed-in admin. */
+/** Reads what the local SMTP stand-in captured, for the company of the signed-in admin or office user. */
 @Injectable()
 export class OutboxService {
   constructor(
     private readonly repository: MailCaptureRepository,
     private readonly localServer: LocalSmtpServer,
+    private readonly config: ConfigService<Env, true>,
   ) {}
+
+  status(): MailStatusResponse {
+    const captured = this.localServer.isEnabled;
+    return { captured, destination: captured ? null : mailDestination(this.config.get('SMTP_URL', { infer: true })) };
+  }
 
   async list(user: AuthUser, query: OutboxQuery): Promise<OutboxListResponse> {
     this.requireLocalMail();
@@ -58,7 +67,7 @@ export class OutboxService {
     return attachment;
   }
 
-  /** With a hosted mail service (or in production) there is nothing local to show. */
+  /** With a hosted mail service (SMTP_URL) there is nothing local to show. */
   private requireLocalMail(): void {
     if (!this.localServer.isEnabled) {
       throw new NotFoundException({ message: 'The outbox exists only with the local mail server.', code: 'NO_LOCAL_MAIL' });

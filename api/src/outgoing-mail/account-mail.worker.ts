@@ -6,9 +6,24 @@ import { QueueWorker } from '../common/queue-worker.js';
 import type { Env } from '../config/env.schema.js';
 import type { OutgoingMailRow } from '../db/schema/index.js';
 import { LinkBuilder } from '../mail/link-builder.js';
+import type { MailTemplateName } from '../mail/mail-templates.js';
 import { MailService } from '../mail/mail.service.js';
 import { AccountMailQueue } from './account-mail-queue.js';
 import { OutgoingMailRepository } from './outgoing-mail.repository.js';
+
+const TEMPLATES: Record<OutgoingMailRow['kind'], MailTemplateName> = {
+  invitation: 'invitation',
+  password_reset: 'password-reset',
+  signup_verification: 'signup-verification',
+  signup_notice: 'signup-notice',
+};
+
+const WHAT: Record<OutgoingMailRow['kind'], string> = {
+  invitation: 'invitation',
+  password_reset: 'reset',
+  signup_verification: 'sign-up',
+  signup_notice: 'sign-up note',
+};
 
 /** A message left `sending` this long by a worker that died may be claimed again. */
 const STALE_SEND_SECONDS = 10 * 60;
@@ -16,7 +31,7 @@ const STALE_SEND_SECONDS = 10 * 60;
 const SWEEP_INTERVAL_MS = 5 * 60_000;
 
 /**
- * Sends queued invitation and password-reset e-mail, one claimed message at a time, with retries and
+ * Sends queued invitation, password-reset and company sign-up e-mail, one claimed message at a time, with retries and
  * backoff by pg-boss (same pattern as PacketSendWorker).
  *
  * The link token is minted here, at send time, and only its hash is written to the invitation or reset
@@ -68,12 +83,12 @@ export class AccountMailWorker extends QueueWorker {
     try {
       const link = await this.mintLink(mail);
       if (!link) {
-        await this.repository.markCancelled(mail.id, `the ${mail.kind === 'invitation' ? 'invitation' : 'reset'} can no longer be used`);
+        await this.repository.markCancelled(mail.id, `the ${WHAT[mail.kind]} can no longer be used`);
         this.logger.log(`account mail ${mail.id} cancelled: its ${mail.kind} was used, withdrawn or expired before sending`);
         return;
       }
       const messageId = await this.mail.send({
-        template: mail.kind === 'invitation' ? 'invitation' : 'password-reset',
+        template: TEMPLATES[mail.kind],
         to: mail.toAddress,
         companyId: mail.companyId,
         data: { ...mail.data, ...link },
@@ -89,7 +104,14 @@ export class AccountMailWorker extends QueueWorker {
 
   /** A fresh single-use link for the message's invitation or reset, or undefined when it can no longer be used. */
   private async mintLink(mail: OutgoingMailRow): Promise<Record<string, string | number> | undefined> {
+    // A note to an account holder whose address was used for a sign-up carries no single-use link.
+    if (mail.kind === 'signup_notice') return { signInLink: this.links.to('/sign-in') };
     const token = newOpaqueToken();
+    if (mail.kind === 'signup_verification') {
+      const hours = this.config.get('SIGNUP_TTL_HOURS', { infer: true });
+      if (!(await this.repository.armSignup(mail.signupId!, hashToken(token), hours * 3600))) return undefined;
+      return { link: this.links.to('/sign-up/verify', { token }), hours };
+    }
     if (mail.kind === 'invitation') {
       const hours = this.config.get('INVITATION_TTL_HOURS', { infer: true });
       if (!(await this.repository.armInvitation(mail.invitationId!, hashToken(token), hours * 3600))) return undefined;

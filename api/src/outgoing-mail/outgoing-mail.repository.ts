@@ -2,7 +2,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import { and, desc, eq, gt, inArray, isNull, lt, or, sql } from 'drizzle-orm';
 
 import { DB, type Db, type Tx } from '../db/db.module.js';
-import { invitations, type NewOutgoingMailRow, type OutgoingMailRow, outgoingMail, passwordResetTokens } from '../db/schema/index.js';
+import { companySignups, invitations, type NewOutgoingMailRow, type OutgoingMailRow, outgoingMail, passwordResetTokens } from '../db/schema/index.js';
 
 @Injectable()
 export class OutgoingMailRepository {
@@ -47,6 +47,23 @@ export class OutgoingMailRepository {
         and(eq(invitations.id, invitationId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), gt(invitations.expiresAt, sql`now()`)),
       )
       .returning({ id: invitations.id });
+    return rows.length === 1;
+  }
+
+  /** The same for an open (not completed, not superseded), unexpired company sign-up. */
+  async armSignup(signupId: string, tokenHash: string, ttlSeconds: number): Promise<boolean> {
+    const rows = await this.db
+      .update(companySignups)
+      .set({ tokenHash, expiresAt: sql`now() + make_interval(secs => ${ttlSeconds})` })
+      .where(
+        and(
+          eq(companySignups.id, signupId),
+          isNull(companySignups.completedAt),
+          isNull(companySignups.supersededAt),
+          gt(companySignups.expiresAt, sql`now()`),
+        ),
+      )
+      .returning({ id: companySignups.id });
     return rows.length === 1;
   }
 

@@ -64,6 +64,28 @@ export class OutgoingMailService {
     );
   }
 
+  /** The verification link of a company sign-up (no company yet); `receiptHash` lets the sign-up page find it. */
+  queueSignupVerification(
+    tx: Tx,
+    mail: { signupId: string; to: string; receiptHash: string; data: { name: string; companyName: string } },
+  ): Promise<OutgoingMailRow> {
+    return this.repository.insert(
+      { companyId: null, kind: 'signup_verification', toAddress: mail.to, signupId: mail.signupId, receiptHash: mail.receiptHash, data: { ...mail.data } },
+      tx,
+    );
+  }
+
+  /** A note to the holder of an existing account whose address someone used to sign up a company. */
+  queueSignupNotice(
+    tx: Tx,
+    mail: { companyId: string; to: string; receiptHash: string; data: { name: string; companyName: string } },
+  ): Promise<OutgoingMailRow> {
+    return this.repository.insert(
+      { companyId: mail.companyId, kind: 'signup_notice', toAddress: mail.to, receiptHash: mail.receiptHash, data: { ...mail.data } },
+      tx,
+    );
+  }
+
   /** Cancels an invitation's messages still waiting, when a newer one is about to be queued. */
   cancelWaitingForInvitation(tx: Tx, invitationId: string): Promise<void> {
     return this.repository.cancelWaitingForInvitation(invitationId, tx);
