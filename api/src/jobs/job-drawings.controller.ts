@@ -1,4 +1,4 @@
-import { Controller, Get, Param, ParseUUIDPipe, Query, Res } from '@nestjs/common';
+import { Controller, Get, Headers, Param, ParseUUIDPipe, Query, Res } from '@nestjs/common';
 import { ApiBearerAuth, ApiOperation, ApiProduces, ApiQuery, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 
@@ -12,23 +12,30 @@ import {
   type SitePlanDrawingQuery,
   SitePlanDrawingQuerySchema,
 } from '../domain/jobs/job-drawings.schema.js';
-import { JobDrawingsService } from './job-drawings.service.js';
+import { type DrawingAnswer, JobDrawingsService } from './job-drawings.service.js';
 
 const uuid = new ParseUUIDPipe();
 
 /**
  * An SVG file holds our own markup and, at most, the plan image as a data: URL. Opened on its own in a
- * browser it may run nothing and load nothing else.
+ * browser it may run nothing and load nothing else. Each answer carries the drawing's ETag and is
+ * revalidated on every use (`no-cache`): a client that sends it back in `If-None-Match` gets a 304
+ * while the job, its site and the query are unchanged.
  */
-function sendSvg(res: Response, svg: string, fileName: string): void {
+function sendSvg(res: Response, answer: DrawingAnswer, fileName: string): void {
+  res.set({ ETag: answer.etag, 'Cache-Control': 'private, no-cache', Vary: 'Authorization' });
+  if (answer.isNotModified) {
+    res.status(304).end();
+    return;
+  }
   res.set({
     'Content-Type': 'image/svg+xml; charset=utf-8',
     'Content-Security-Policy': "default-src 'none'; style-src 'unsafe-inline'; img-src data:",
     'Content-Disposition': `inline; filename="${fileName}"`,
-    'Cache-Control': 'private, no-cache',
     'X-Content-Type-Options': 'nosniff',
+    'X-Drawing-Cache': answer.isCacheHit ? 'hit' : 'miss',
   });
-  res.send(svg);
+  res.send(answer.svg);
 }
 
 @ApiTags('jobs')
@@ -48,9 +55,10 @@ export class JobDrawingsController {
     @CurrentUser() user: AuthUser,
     @Param('id', uuid) id: string,
     @Query(new ZodValidationPipe(SitePlanDrawingQuerySchema)) query: SitePlanDrawingQuery,
+    @Headers('if-none-match') ifNoneMatch: string | undefined,
     @Res() res: Response,
   ): Promise<void> {
-    sendSvg(res, await this.drawings.sitePlan(user, id, query), 'site-plan.svg');
+    sendSvg(res, await this.drawings.sitePlan(user, id, query, ifNoneMatch), 'site-plan.svg');
   }
 
   @Get('schematic.svg')
@@ -61,9 +69,10 @@ export class JobDrawingsController {
     @CurrentUser() user: AuthUser,
     @Param('id', uuid) id: string,
     @Query(new ZodValidationPipe(DrawingQuerySchema)) query: DrawingQuery,
+    @Headers('if-none-match') ifNoneMatch: string | undefined,
     @Res() res: Response,
   ): Promise<void> {
-    sendSvg(res, await this.drawings.schematic(user, id, query), 'schematic.svg');
+    sendSvg(res, await this.drawings.schematic(user, id, query, ifNoneMatch), 'schematic.svg');
   }
 
   @Get('runs/:runId/depth-profile.svg')
@@ -75,8 +84,9 @@ export class JobDrawingsController {
     @Param('id', uuid) id: string,
     @Param('runId', uuid) runId: string,
     @Query(new ZodValidationPipe(DrawingQuerySchema)) query: DrawingQuery,
+    @Headers('if-none-match') ifNoneMatch: string | undefined,
     @Res() res: Response,
   ): Promise<void> {
-    sendSvg(res, await this.drawings.depthProfile(user, id, runId, query), `depth-profile-${runId}.svg`);
+    sendSvg(res, await this.drawings.depthProfile(user, id, runId, query, ifNoneMatch), `depth-profile-${runId}.svg`);
   }
 }

@@ -1,54 +1,88 @@
 import { Injectable, NotFoundException } from '@nestjs/common';
 
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
+import { ConcurrencyLimiter } from '../common/concurrency-limiter.js';
 import type { DrawingQuery, SitePlanDrawingQuery } from '../domain/jobs/job-drawings.schema.js';
 import type { JobAsBuiltResponse } from '../domain/jobs/job.schema.js';
-import { drawJobDepthProfile, drawJobSchematic, drawJobSitePlan, type JobDrawingInput, jobTitleBlock } from '../drawings/job-drawings.js';
-import { createNodeSvgCanvas } from '../drawings/node-svg-window.js';
+import { jobTitleBlock } from '../drawings/job-drawings.js';
 import { SitePlanImagesService } from '../sites/site-plan-images.service.js';
+import { DrawingRenderer, drawingEtag, type RenderedDrawing } from './drawing-renderer.js';
+import type { DrawingTask } from './drawing-task.js';
 import { JobsService } from './jobs.service.js';
+
+/** A drawing answer: the SVG, or only its ETag when the client already holds that version. */
+export type DrawingAnswer = { etag: string; isNotModified: true } | ({ isNotModified: false } & RenderedDrawing);
+
+/** Drawing requests that load their job from the database at once (the rest wait their turn). */
+export const DRAWING_LOADS_AT_ONCE = 3;
 
 /**
  * The drawings of a job's current as-built as standalone SVG files, drawn exactly as the packet and the
  * web app draw them (drawings/job-drawings.ts). Read access is that of the job itself.
+ *
+ * Drawing requests load their job with at most DRAWING_LOADS_AT_ONCE at a time (the rest wait their
+ * turn here, not in the database pool, so 200 drawings at once leave connections for everyone else);
+ * the layout and drawing run in DrawingRenderer's worker threads, and a repeated request is answered
+ * from its cache, or with 304 when `If-None-Match` names the current ETag.
  */
 @Injectable()
 export class JobDrawingsService {
+  private readonly loads = new ConcurrencyLimiter({ concurrency: DRAWING_LOADS_AT_ONCE, maxQueue: 2000, maxWaitMs: 60_000, name: 'drawing requests' });
+
   constructor(
     private readonly jobs: JobsService,
     private readonly planImages: SitePlanImagesService,
+    private readonly renderer: DrawingRenderer,
   ) {}
 
-  private input(data: JobAsBuiltResponse, query: DrawingQuery): JobDrawingInput {
-    return {
-      asBuilt: data.asBuilt,
-      analysis: data.analysis,
-      createCanvas: createNodeSvgCanvas,
-      units: query.units ?? data.asBuilt.units?.length ?? 'metric',
-    };
+  private base(data: JobAsBuiltResponse, query: DrawingQuery): Pick<DrawingTask, 'asBuilt' | 'analysis' | 'units'> {
+    return { asBuilt: data.asBuilt, analysis: data.analysis, units: query.units ?? data.asBuilt.units?.length ?? 'metric' };
   }
 
-  async sitePlan(actor: AuthUser, jobId: string, query: SitePlanDrawingQuery): Promise<string> {
-    const data = await this.jobs.asBuilt(actor, jobId);
-    const planImage = await this.planImages.forDrawing(actor.companyId, data.job.site.id);
-    const { job } = data;
-    return drawJobSitePlan(this.input(data, query), {
-      paper: query.paper ?? 'letter',
-      titleBlock: jobTitleBlock({ jobTitle: job.title, siteLabel: job.site.label, place: job.site.city, revision: job.revision }),
-      ...(planImage ? { planImage } : {}),
-      layersOff: query.layers ?? [],
+  async sitePlan(actor: AuthUser, jobId: string, query: SitePlanDrawingQuery, ifNoneMatch: string | undefined): Promise<DrawingAnswer> {
+    const { data, task } = await this.loads.run(async () => {
+      const data = await this.jobs.asBuilt(actor, jobId);
+      const planImage = await this.planImages.forDrawing(actor.companyId, data.job.site.id);
+      const { job } = data;
+      const task: DrawingTask = {
+        kind: 'site-plan',
+        ...this.base(data, query),
+        sitePlan: {
+          paper: query.paper ?? 'letter',
+          titleBlock: jobTitleBlock({ jobTitle: job.title, siteLabel: job.site.label, place: job.site.city, revision: job.revision }),
+          ...(planImage ? { planImage } : {}),
+          layersOff: query.layers ?? [],
+        },
+      };
+      return { data, task };
     });
+    return this.answer(data, task, ifNoneMatch);
   }
 
-  async schematic(actor: AuthUser, jobId: string, query: DrawingQuery): Promise<string> {
-    return drawJobSchematic(this.input(await this.jobs.asBuilt(actor, jobId), query));
+  async schematic(actor: AuthUser, jobId: string, query: DrawingQuery, ifNoneMatch: string | undefined): Promise<DrawingAnswer> {
+    const data = await this.loads.run(() => this.jobs.asBuilt(actor, jobId));
+    return this.answer(data, { kind: 'schematic', ...this.base(data, query) }, ifNoneMatch);
   }
 
-  async depthProfile(actor: AuthUser, jobId: string, runId: string, query: DrawingQuery): Promise<string> {
-    const data = await this.jobs.asBuilt(actor, jobId);
+  async depthProfile(actor: AuthUser, jobId: string, runId: string, query: DrawingQuery, ifNoneMatch: string | undefined): Promise<DrawingAnswer> {
+    const data = await this.loads.run(() => this.jobs.asBuilt(actor, jobId));
     if (!data.asBuilt.runs.some((run) => run.id === runId)) {
       throw new NotFoundException({ message: 'No such run on this job.', code: 'RUN_NOT_FOUND' });
     }
-    return drawJobDepthProfile(this.input(data, query), runId);
+    return this.answer(data, { kind: 'depth-profile', ...this.base(data, query), runId }, ifNoneMatch);
   }
+
+  private async answer(data: JobAsBuiltResponse, task: DrawingTask, ifNoneMatch: string | undefined): Promise<DrawingAnswer> {
+    const etag = drawingEtag(task, { jobId: data.job.id, version: data.job.version, revision: data.job.revision });
+    if (ifNoneMatch !== undefined && matchesEtag(ifNoneMatch, etag)) return { etag, isNotModified: true };
+    return { isNotModified: false, ...(await this.renderer.render(task, etag)) };
+  }
+}
+
+/** `If-None-Match` may list several validators, weak (`W/`) or strong, or `*`. */
+export function matchesEtag(header: string, etag: string): boolean {
+  return header
+    .split(',')
+    .map((value) => value.trim().replace(/^W\//, ''))
+    .some((value) => value === '*' || value === etag);
 }

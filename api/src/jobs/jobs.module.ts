@@ -1,6 +1,7 @@
 import { Module } from '@nestjs/common';
 
 import { SitesModule } from '../sites/sites.module.js';
+import { DrawingRenderer } from './drawing-renderer.js';
 import { JobDrawingsController } from './job-drawings.controller.js';
 import { JobDrawingsService } from './job-drawings.service.js';
 import { JobRecordsController } from './job-records.controller.js';
@@ -13,6 +14,6 @@ import { JobsService } from './jobs.service.js';
 @Module({
   imports: [SitesModule],
   controllers: [JobsController, JobRecordsController, JobDrawingsController],
-  providers: [JobsService, JobRecordsService, JobWriter, JobsRepository, JobDrawingsService],
+  providers: [JobsService, JobRecordsService, JobWriter, JobsRepository, JobDrawingsService, DrawingRenderer],
 })
 export class JobsModule {}
