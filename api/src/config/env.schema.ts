@@ -29,7 +29,16 @@ export const EnvSchema = z.object({
   REFRESH_REUSE_GRACE_SECONDS: z.coerce.number().int().min(0).max(300).default(30),
   INVITATION_TTL_HOURS: z.coerce.number().int().min(1).max(24 * 30).default(72),
   PASSWORD_RESET_TTL_MINUTES: z.coerce.number().int().min(5).max(24 * 60).default(60),
-  /** Hosted SMTP service (smtp:// or smtps://). When absent, a local capture server runs in-process. */
+  /** Who may create a company: `open` (anyone), `invite` (a code from `npm run company:invite`), `closed`. */
+  SIGNUP_MODE: z.enum(['open', 'invite', 'closed']).default('open'),
+  /** How long a company sign-up's verification link works, hours (unverified sign-ups expire). */
+  SIGNUP_TTL_HOURS: z.coerce.number().int().min(1).max(24 * 14).default(24),
+  /** Whom to ask for an account when sign-up is closed or by invitation (shown on the sign-up page). */
+  SIGNUP_CONTACT: z.string().trim().min(1).max(200).optional(),
+  /**
+   * Hosted SMTP service (smtp:// or smtps://). When absent, a local capture server runs in-process
+   * whatever NODE_ENV is, and mail is read on the Outbox page.
+   */
   SMTP_URL: z.string().regex(/^smtps?:\/\//, 'SMTP_URL must be an smtp:// or smtps:// URL').optional(),
   /** Port of the local SMTP capture server on 127.0.0.1 (0 picks a free one). */
   LOCAL_SMTP_PORT: z.coerce.number().int().min(0).max(65_535).default(2525),
@@ -140,6 +149,17 @@ export function readEnv(source: Record<string, string | undefined> = process.env
 export const APP_VERSION: string = (
   JSON.parse(readFileSync(new URL('../../package.json', import.meta.url), 'utf8')) as { version: string }
 ).version;
+
+/** Where mail goes, for logs and the Outbox page: the SMTP service's scheme, host and port (never its credentials). */
+export function mailDestination(smtpUrl: string | undefined): string | null {
+  if (!smtpUrl) return null;
+  try {
+    const url = new URL(smtpUrl);
+    return `${url.protocol}//${url.hostname}${url.port ? `:${url.port}` : ''}`;
+  } catch {
+    return 'the configured SMTP service';
+  }
+}
 
 /** The base URL for links that leave the app, without a trailing slash. */
 export function publicAppUrl(env: Pick<Env, 'APP_URL' | 'HOST' | 'PORT'>): string {
