@@ -521,6 +521,33 @@ describe('authorization matrix', () => {
       expect: officeOnly(200),
       call: async () => ({ path: `/api/packets/${(await readyPacketA()).id}/deliveries` }),
     },
+    'GET /api/packets/:id/send-options': {
+      expect: officeOnly(200),
+      isList: true,
+      call: async () => ({ path: `/api/packets/${(await readyPacketA()).id}/send-options` }),
+    },
+    'GET /api/jobs/:jobId/deliveries': {
+      expect: officeOnly(200),
+      isList: true,
+      call: async () => ({ path: `/api/jobs/${(await failedDeliveryA()).jobId}/deliveries` }),
+    },
+    // Company B's admin gets B's own (empty) list: nothing of A's.
+    'GET /api/deliveries/failed': {
+      expect: officeOnly(200, 200),
+      isList: true,
+      call: async () => {
+        await failedDeliveryA();
+        return { path: '/api/deliveries/failed' };
+      },
+    },
+    'POST /api/deliveries/:id/resend': {
+      expect: officeOnly(202),
+      call: async () => ({ path: `/api/deliveries/${(await failedDeliveryA()).id}/resend` }),
+    },
+    'POST /api/deliveries/:id/dismiss': {
+      expect: officeOnly(200),
+      call: async () => ({ path: `/api/deliveries/${(await failedDeliveryA()).id}/dismiss` }),
+    },
     'POST /api/sites/:siteId/locate-links': {
       expect: only(['admin', 'office', 'homeowner'], 201, 404),
       call: () => ({ path: `/api/sites/${siteA}/locate-links`, body: { expiresInDays: 7, note: 'Matrix' } }),
@@ -630,6 +657,20 @@ describe('authorization matrix', () => {
       );
     });
     return { id, jobId: job.id };
+  }
+
+  /** A failed packet e-mail of company A to A's homeowner, on a fresh ready revision. */
+  async function failedDeliveryA(): Promise<{ id: string; jobId: string }> {
+    const packet = await readyPacketA();
+    const id = await withDb(async (db) => {
+      const { rows } = await db.query(
+        `insert into packet_deliveries (company_id, revision_id, to_address, status, attempts, last_error)
+         values ($1, $2, $3, 'failed', 3, 'connect ECONNREFUSED 127.0.0.1:2525') returning id`,
+        [a.id, packet.id, a.users.homeowner.email],
+      );
+      return rows[0].id as string;
+    });
+    return { id, jobId: packet.jobId };
   }
 
   beforeAll(async () => {

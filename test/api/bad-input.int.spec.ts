@@ -260,6 +260,19 @@ describe('bad input on every write route', () => {
     return id;
   }
 
+  /** A failed packet e-mail of the company (on a fresh ready revision). */
+  async function failedDelivery(ctx: Ctx): Promise<string> {
+    const revisionId = await readyPacket(ctx);
+    return withDb(async (client) => {
+      const { rows } = await client.query(
+        `insert into packet_deliveries (company_id, revision_id, to_address, status, attempts, last_error)
+         values ($1, $2, $3, 'failed', 3, 'connect ECONNREFUSED 127.0.0.1:2525') returning id`,
+        [ctx.company.id, revisionId, ctx.company.users.homeowner.email],
+      );
+      return rows[0].id as string;
+    });
+  }
+
   // ── what each field accepts ──────────────────────────────────────────────────────────────────────
 
   const label: FieldSpec = { type: 'string', min: 1, max: 120 };
@@ -866,8 +879,28 @@ describe('bad input on every write route', () => {
       // Without `to` the packet goes to the site's homeowners, so `{}` is a valid send.
       isEmptyObjectValid: true,
       hasLaterWrites: true,
-      arrange: async (ctx) => ({ params: { id: await readyPacket(ctx) }, body: { to: ctx.company.users.homeowner.email, cc: ['neighbour@bad-input.example'], message: 'Your packet' } }),
-      fields: { to: email, cc: { type: 'array', max: 5 }, 'cc.0': email, message: { type: 'string', max: 1000 } },
+      arrange: async (ctx) => ({
+        params: { id: await readyPacket(ctx) },
+        body: { to: [ctx.company.users.homeowner.email], cc: ['neighbour@bad-input.example'], message: 'Your packet', pdf: 'link' },
+      }),
+      fields: {
+        to: { type: 'array', max: 20 },
+        'to.0': email,
+        cc: { type: 'array', max: 5 },
+        'cc.0': email,
+        message: { type: 'string', max: 1000 },
+        pdf: { type: 'enum', values: ['attached', 'link'] },
+      },
+    },
+    'POST /api/deliveries/:id/resend': {
+      input: 'none',
+      // A successful resend queues an e-mail: only refused requests are sent.
+      hasLaterWrites: true,
+      arrange: async (ctx) => ({ params: { id: await failedDelivery(ctx) } }),
+    },
+    'POST /api/deliveries/:id/dismiss': {
+      input: 'none',
+      arrange: async (ctx) => ({ params: { id: await failedDelivery(ctx) } }),
     },
     'POST /api/sites/:siteId/locate-links': {
       input: 'json',

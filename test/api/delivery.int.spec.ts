@@ -5,14 +5,15 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 
 import type { NestExpressApplication } from '@nestjs/platform-express';
+import { SMTPServer } from 'smtp-server';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 
 import { DEMO_AS_BUILT } from '../../api/src/domain/as-built/demo-as-built.js';
-import { PacketDeliveryResponseSchema } from '../../api/src/domain/delivery/delivery.schema.js';
+import { DeliveryInContextSchema, PacketDeliveryResponseSchema } from '../../api/src/domain/delivery/delivery.schema.js';
 import { DiskStorage } from '../../api/src/storage/disk-storage.js';
 import { createCompany, type TestCompany, withDb } from '../support/fixtures.js';
-import { findLink, waitForMail } from '../support/mail.js';
+import { countMail, findLink } from '../support/mail.js';
 import { type Api, apiAs, createSite, insertRecordedJob } from '../support/records.js';
 import { signIn } from '../support/session.js';
 
@@ -110,22 +111,42 @@ describe('sending packets (local SMTP capture server)', () => {
     await app?.close();
   });
 
-  it('should e-mail the PDF (byte-identical) to a new homeowner, invite them, and link the site when they accept', async () => {
+  it('should e-mail two recipients, the new one with the portal invitation in the same e-mail, and link the site when they accept', async () => {
     const packet = await readyPacket(company, office);
     const noRecipient = await office.send('post', `/api/packets/${packet.id}/send`, {});
     expect(noRecipient.status).toBe(422);
     expect(noRecipient.body.code).toBe('NO_RECIPIENT');
 
-    const email = `new.owner.${randomUUID().slice(0, 8)}@delivery.example`;
-    const res = await office.send('post', `/api/packets/${packet.id}/send`, { to: email, cc: ['Neighbour@Delivery.example'], message: 'Thanks for having us!' });
-    expect(res.status, JSON.stringify(res.body)).toBe(202);
-    expect(res.body.deliveries).toHaveLength(1);
-    expect(res.body.deliveries[0]).toMatchObject({ to: email, cc: ['neighbour@delivery.example'], status: 'queued', isInvited: true });
+    // The dialog starts from the site's homeowners: the linked account.
+    await office.expectOk('post', `/api/sites/${packet.siteId}/homeowners`, { userId: company.users.homeowner.id });
+    const options = await office.expectOk('get', `/api/packets/${packet.id}/send-options`);
+    expect(options).toEqual({
+      homeowners: [{ email: company.users.homeowner.email, name: expect.any(String), hasAccount: true }],
+      pdfBytes: expect.any(Number),
+      maxAttachmentBytes: 10 * 1024 * 1024,
+      canAttachPdf: true,
+    });
 
-    const sent = await waitForDelivery(office, packet.id, res.body.deliveries[0].id, ['sent', 'failed']);
-    expect(sent).toMatchObject({ status: 'sent', attempts: 1, isPdfAttached: true, lastError: null });
-    expect(sent.messageId).toMatch(/@/);
-    expect(sent.sentAt).not.toBeNull();
+    const email = `new.owner.${randomUUID().slice(0, 8)}@delivery.example`;
+    const invitationMailsBefore = await countMail(email);
+    const res = await office.send('post', `/api/packets/${packet.id}/send`, {
+      to: [company.users.homeowner.email, email],
+      cc: ['Neighbour@Delivery.example'],
+      message: 'Thanks for having us!',
+      pdf: 'attached',
+    });
+    expect(res.status, JSON.stringify(res.body)).toBe(202);
+    expect(res.body.deliveries).toHaveLength(2);
+    const byAddress = new Map(res.body.deliveries.map((d: { to: string }) => [d.to, d]));
+    expect(byAddress.get(company.users.homeowner.email)).toMatchObject({ status: 'queued', isInvited: false, pdf: 'attached', cc: ['neighbour@delivery.example'] });
+    expect(byAddress.get(email)).toMatchObject({ status: 'queued', isInvited: true, pdf: 'attached' });
+
+    for (const d of res.body.deliveries) {
+      const sent = await waitForDelivery(office, packet.id, d.id, ['sent', 'failed']);
+      expect(sent).toMatchObject({ status: 'sent', attempts: 1, isPdfAttached: true, lastError: null, failureReason: null });
+      expect(sent.messageId).toMatch(/@/);
+      expect(sent.sentAt).not.toBeNull();
+    }
 
     const mail = await packetMail(email);
     expect(mail).toBeDefined();
@@ -135,29 +156,109 @@ describe('sending packets (local SMTP capture server)', () => {
     expect(mail!.text).toContain('6 cable runs and 9 pieces of equipment');
     expect(mail!.text).toContain('2 points to note');
     expect(mail!.text).toContain('one-call locators do not mark these private cables');
-    expect(mail!.html).toContain('Open your property');
+    expect(mail!.html).toContain('Set your password');
     expect(mail!.attachments).toHaveLength(1);
     expect(mail!.attachments[0]!.content_type).toBe('application/pdf');
     expect(mail!.attachments[0]!.filename).toMatch(/\.pdf$/);
     expect(createHash('sha256').update(mail!.attachments[0]!.content).digest('hex')).toBe(packet.pdfSha256);
 
-    // The invitation, through the existing flow; accepting it links the homeowner to the site.
-    // Invitation mail has its own send queue, so it may land a moment before or after the packet mail.
-    const invitationMail = await waitForMail(email, { subject: 'invited you' });
-    const token = new URL(findLink(invitationMail, '/accept-invitation')).searchParams.get('token')!;
+    // The linked homeowner's e-mail has no invitation.
+    const linkedMail = await packetMail(company.users.homeowner.email);
+    expect(linkedMail!.text).not.toContain('/accept-invitation');
+    expect(linkedMail!.html).toContain('Open your property');
+
+    // The invitation is in the packet e-mail itself: no separate invitation e-mail went out.
+    await new Promise((resolve) => setTimeout(resolve, 1500));
+    expect(await countMail(email)).toBe(invitationMailsBefore + 1);
+    const token = new URL(findLink({ subject: mail!.subject, text: mail!.text, html: mail!.html }, '/accept-invitation')).searchParams.get('token')!;
     const accepted = await request(app.getHttpServer()).post('/api/auth/invitations/accept').send({ token, name: 'New Owner', password: 'a-long-enough-password' });
     expect(accepted.status, JSON.stringify(accepted.body)).toBe(200);
     const owner = apiAs(app, await signIn(app, { email }, 'a-long-enough-password'));
     const sites = await owner.expectOk('get', '/api/portal/sites');
     expect(sites.map((s: { id: string }) => s.id)).toEqual([packet.siteId]);
 
-    // Sent again without `to`: to the now-linked homeowner, no new invitation.
+    // Sent again without `to`: to both, now linked homeowners, with no invitation.
     const again = await office.send('post', `/api/packets/${packet.id}/send`, {});
     expect(again.status).toBe(202);
-    expect(again.body.deliveries).toEqual([expect.objectContaining({ to: email, isInvited: false })]);
-    await waitForDelivery(office, packet.id, again.body.deliveries[0].id, ['sent']);
+    expect(again.body.deliveries).toEqual(
+      expect.arrayContaining([expect.objectContaining({ to: email, isInvited: false }), expect.objectContaining({ to: company.users.homeowner.email, isInvited: false })]),
+    );
+    for (const d of again.body.deliveries) await waitForDelivery(office, packet.id, d.id, ['sent']);
     const log = await office.expectOk('get', `/api/packets/${packet.id}/deliveries`);
-    expect(log.map((d: { status: string }) => d.status)).toEqual(['sent', 'sent']);
+    expect(log.map((d: { status: string }) => d.status)).toEqual(['sent', 'sent', 'sent', 'sent']);
+
+    // The job's log names the revision, job and site of each delivery.
+    const jobLog = await office.expectOk('get', `/api/jobs/${packet.jobId}/deliveries`);
+    expect(jobLog).toHaveLength(4);
+    expect(jobLog[0]).toMatchObject({ revision: 1, jobId: packet.jobId, siteId: packet.siteId, siteLabel: expect.stringMatching(/^Fixture yard /) });
+    for (const d of jobLog) DeliveryInContextSchema.parse(d);
+  });
+
+  it('should send the link only when the sender chooses so', async () => {
+    const packet = await readyPacket(company, office);
+    await office.expectOk('post', `/api/sites/${packet.siteId}/homeowners`, { userId: company.users.homeowner.id });
+    const res = await office.send('post', `/api/packets/${packet.id}/send`, { pdf: 'link' });
+    expect(res.status).toBe(202);
+    expect(res.body.deliveries[0]).toMatchObject({ pdf: 'link' });
+    const sent = await waitForDelivery(office, packet.id, res.body.deliveries[0].id, ['sent', 'failed']);
+    expect(sent).toMatchObject({ status: 'sent', isPdfAttached: false });
+    const mail = await packetMail(company.users.homeowner.email);
+    expect(mail!.attachments).toEqual([]);
+    expect(mail!.text).toContain('Download the packet');
+    expect(mail!.text).not.toContain('too large');
+  });
+
+  it('should refuse the whole send when one address cannot be a homeowner, and writes nothing', async () => {
+    const packet = await readyPacket(company, office);
+    const fresh = `fresh.${randomUUID().slice(0, 8)}@delivery.example`;
+    const res = await office.send('post', `/api/packets/${packet.id}/send`, { to: [fresh, company.users.tech.email] });
+    expect(res.status).toBe(409);
+    expect(res.body).toMatchObject({ code: 'RECIPIENT_NOT_HOMEOWNER', issues: [{ path: 'to.1' }] });
+    await withDb(async (db) => {
+      expect((await db.query('select 1 from packet_deliveries where revision_id = $1', [packet.id])).rowCount).toBe(0);
+      expect((await db.query('select 1 from invitations where email = $1', [fresh])).rowCount).toBe(0);
+    });
+  });
+
+  it('should let only admin and office send, send again and dismiss', async () => {
+    const packet = await readyPacket(company, office);
+    await office.expectOk('post', `/api/sites/${packet.siteId}/homeowners`, { userId: company.users.homeowner.id });
+    const failedId = await withDb(async (db) => {
+      const { rows } = await db.query(
+        `insert into packet_deliveries (company_id, revision_id, to_address, status, attempts, last_error) values ($1, $2, $3, 'failed', 3, 'connect ECONNREFUSED 127.0.0.1:1') returning id`,
+        [company.id, packet.id, company.users.homeowner.email],
+      );
+      return rows[0].id as string;
+    });
+    for (const role of ['lead', 'tech', 'homeowner'] as const) {
+      const api = apiAs(app, await signIn(app, company.users[role]));
+      expect((await api.send('post', `/api/packets/${packet.id}/send`, {})).status).toBe(403);
+      expect((await api.send('post', `/api/deliveries/${failedId}/resend`)).status).toBe(403);
+      expect((await api.send('post', `/api/deliveries/${failedId}/dismiss`)).status).toBe(403);
+      expect((await api.send('get', '/api/deliveries/failed')).status).toBe(403);
+    }
+    const admin = apiAs(app, await signIn(app, company.users.admin));
+    const failed = await admin.expectOk('get', '/api/deliveries/failed');
+    expect(failed.find((d: { id: string }) => d.id === failedId)).toMatchObject({ status: 'failed', failureReason: 'The mail server could not be reached.' });
+    // Dismissed: stays in the log, no longer asks for attention; dismissing twice changes nothing.
+    const dismissed = await admin.expectOk('post', `/api/deliveries/${failedId}/dismiss`);
+    expect(dismissed).toMatchObject({ status: 'failed', dismissedAt: expect.any(String) });
+    expect(await admin.expectOk('post', `/api/deliveries/${failedId}/dismiss`)).toMatchObject({ dismissedAt: dismissed.dismissedAt });
+    expect((await admin.expectOk('get', '/api/deliveries/failed')).map((d: { id: string }) => d.id)).not.toContain(failedId);
+    expect((await admin.expectOk('get', `/api/packets/${packet.id}/deliveries`)).map((d: { id: string }) => d.id)).toContain(failedId);
+    // A delivery that is not failed cannot be dismissed; one on its way cannot be sent again.
+    const queued = await office.send('post', `/api/packets/${packet.id}/send`, {});
+    const queuedId = queued.body.deliveries[0].id as string;
+    const early = await office.send('post', `/api/deliveries/${queuedId}/resend`);
+    if (early.status !== 202) expect(early.body.code).toBe('DELIVERY_IN_PROGRESS');
+    await waitForDelivery(office, packet.id, queuedId, ['sent']);
+    expect((await office.send('post', `/api/deliveries/${queuedId}/dismiss`)).body.code).toBe('DELIVERY_NOT_FAILED');
+    // A sent delivery sent again is a new delivery to the same address; the first stays sent.
+    const resent = await office.send('post', `/api/deliveries/${queuedId}/resend`);
+    expect(resent.status).toBe(202);
+    expect(resent.body).toMatchObject({ to: company.users.homeowner.email, status: 'queued' });
+    expect(resent.body.id).not.toBe(queuedId);
+    await waitForDelivery(office, packet.id, resent.body.id, ['sent']);
   });
 
   it('should refuse a revision that is not ready, bad bodies, and a staff address as homeowner', async () => {
@@ -199,13 +300,16 @@ describe('sending a PDF over MAIL_MAX_ATTACHMENT_BYTES', () => {
 
 describe('sending while the SMTP server is unreachable', () => {
   let app: NestExpressApplication;
+  let smtp: SMTPServer | undefined;
 
   afterAll(async () => {
     await app?.close();
+    await new Promise<void>((resolve) => (smtp ? smtp.close(() => resolve()) : resolve()));
   });
 
-  it('should answer 202, retry, and log the delivery as failed with the error', async () => {
-    app = await startApp({ SMTP_URL: `smtp://127.0.0.1:${await closedPort()}`, MAIL_MAX_ATTACHMENT_BYTES: undefined });
+  it('should answer 202, retry, log the delivery as failed with a plain reason, and send it when sent again', async () => {
+    const port = await closedPort();
+    app = await startApp({ SMTP_URL: `smtp://127.0.0.1:${port}`, MAIL_MAX_ATTACHMENT_BYTES: undefined });
     const company = await createCompany('Delivery Down');
     const office = apiAs(app, await signIn(app, company.users.office));
     const packet = await readyPacket(company, office);
@@ -214,7 +318,35 @@ describe('sending while the SMTP server is unreachable', () => {
     expect(res.status).toBe(202);
     const failed = await waitForDelivery(office, packet.id, res.body.deliveries[0].id, ['failed'], 45_000);
     // PACKET_SEND_RETRIES=2: the first attempt and two retries.
-    expect(failed).toMatchObject({ status: 'failed', attempts: 3, isPdfAttached: null, sentAt: null });
+    expect(failed).toMatchObject({ status: 'failed', attempts: 3, isPdfAttached: null, sentAt: null, failureReason: 'The mail server could not be reached.' });
     expect(failed.lastError).toMatch(/ECONNREFUSED|connect/i);
-  }, 60_000);
+    // It waits for the office on the company's list of failures.
+    const open = await office.expectOk('get', '/api/deliveries/failed');
+    expect(open).toEqual([expect.objectContaining({ id: failed.id, jobId: packet.jobId, revision: 1, failureReason: 'The mail server could not be reached.' })]);
+
+    // The mail server comes back; Send again goes through and the failure leaves the list.
+    const received: { to: string[]; raw: string }[] = [];
+    smtp = new SMTPServer({
+      authOptional: true,
+      disabledCommands: ['STARTTLS', 'AUTH'],
+      logger: false,
+      onData(stream, session, callback) {
+        const chunks: Buffer[] = [];
+        stream.on('data', (c: Buffer) => chunks.push(c));
+        stream.on('end', () => {
+          received.push({ to: session.envelope.rcptTo.map((r) => r.address), raw: Buffer.concat(chunks).toString() });
+          callback();
+        });
+      },
+    });
+    await new Promise<void>((resolve) => smtp!.listen(port, '127.0.0.1', () => resolve()));
+    const again = await office.send('post', `/api/deliveries/${failed.id}/resend`);
+    expect(again.status, JSON.stringify(again.body)).toBe(202);
+    expect(again.body).toMatchObject({ id: failed.id, status: 'queued' });
+    const sent = await waitForDelivery(office, packet.id, failed.id, ['sent', 'failed'], 30_000);
+    expect(sent).toMatchObject({ status: 'sent', lastError: null, failureReason: null });
+    expect(sent.sentAt).not.toBeNull();
+    expect(await office.expectOk('get', '/api/deliveries/failed')).toEqual([]);
+    expect(received.filter((m) => m.to.includes(company.users.homeowner.email) && /Subject: Your handover packet/.test(m.raw))).toHaveLength(1);
+  }, 90_000);
 });

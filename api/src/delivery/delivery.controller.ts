@@ -5,13 +5,16 @@ import { type AuthUser, CurrentUser } from '../common/decorators/current-user.de
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
 import {
+  type DeliveryInContext,
   type PacketDeliveryResponse,
-  type SendPacketInput,
+  type SendOptionsResponse,
+  type SendPacketParsed,
   SendPacketSchema,
   type SendPacketResponse,
 } from '../domain/delivery/delivery.schema.js';
 import { DeliveryService } from './delivery.service.js';
 
+/** Sending a revision and its delivery log: admin and office only. */
 @ApiTags('packets')
 @ApiBearerAuth()
 @Roles('admin', 'office')
@@ -24,22 +27,66 @@ export class DeliveryController {
   @ApiOperation({
     summary: 'E-mail a ready revision to the site’s homeowner(s) (queued; poll GET /api/packets/:id/deliveries)',
     description:
-      'Without `to`: every homeowner linked to (or invited for) the site. With `to`: that person, linked to the site as its ' +
-      'homeowner, or invited to the portal when they have no account (linked when they accept).',
+      'Without `to`: every homeowner linked to (or invited for) the site. With `to` (one address or a list): each is linked to ' +
+      'the site as its homeowner, or invited to the portal when they have no account — the invitation link goes in the ' +
+      'packet e-mail. `pdf`: `attached` (default; link only when the PDF is over MAIL_MAX_ATTACHMENT_BYTES) or `link`.',
   })
-  @ApiResponse({ status: 409, description: '`PACKET_NOT_READY` or `RECIPIENT_NOT_HOMEOWNER`' })
+  @ApiResponse({ status: 409, description: '`PACKET_NOT_READY` or `RECIPIENT_NOT_HOMEOWNER` (naming `to.<n>`)' })
   @ApiResponse({ status: 422, description: '`NO_RECIPIENT`: the site has no homeowner and no `to` was given' })
   send(
     @CurrentUser() user: AuthUser,
     @Param('id', ParseUUIDPipe) id: string,
-    @Body(new ZodValidationPipe(SendPacketSchema)) body: SendPacketInput,
+    @Body(new ZodValidationPipe(SendPacketSchema)) body: SendPacketParsed,
   ): Promise<SendPacketResponse> {
     return this.deliveries.send(user, id, body);
+  }
+
+  @Get('send-options')
+  @ApiOperation({ summary: 'What the send dialog starts from: the site’s homeowners and whether the PDF fits as an attachment' })
+  sendOptions(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<SendOptionsResponse> {
+    return this.deliveries.sendOptions(user, id);
   }
 
   @Get('deliveries')
   @ApiOperation({ summary: 'The revision’s delivery log, newest first' })
   list(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<PacketDeliveryResponse[]> {
     return this.deliveries.list(user, id);
+  }
+}
+
+/** Deliveries across revisions: a job's log, the failures waiting for the office, send again, dismiss. */
+@ApiTags('packets')
+@ApiBearerAuth()
+@Roles('admin', 'office')
+@Controller()
+export class DeliveriesController {
+  constructor(private readonly deliveries: DeliveryService) {}
+
+  @Get('jobs/:jobId/deliveries')
+  @ApiOperation({ summary: 'Every packet e-mail of the job (all revisions), newest first' })
+  listForJob(@CurrentUser() user: AuthUser, @Param('jobId', ParseUUIDPipe) jobId: string): Promise<DeliveryInContext[]> {
+    return this.deliveries.listForJob(user, jobId);
+  }
+
+  @Get('deliveries/failed')
+  @ApiOperation({ summary: 'Packet e-mails that failed and were neither sent again nor dismissed, newest first' })
+  failed(@CurrentUser() user: AuthUser): Promise<DeliveryInContext[]> {
+    return this.deliveries.openFailures(user);
+  }
+
+  @Post('deliveries/:id/resend')
+  @HttpCode(HttpStatus.ACCEPTED)
+  @ApiOperation({ summary: 'Send a delivery again: a failed one is queued again; a sent one is sent once more as a new delivery' })
+  @ApiResponse({ status: 409, description: '`DELIVERY_IN_PROGRESS` (queued or sending) or `PACKET_NOT_READY`' })
+  resend(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<PacketDeliveryResponse> {
+    return this.deliveries.resend(user, id);
+  }
+
+  @Post('deliveries/:id/dismiss')
+  @HttpCode(HttpStatus.OK)
+  @ApiOperation({ summary: 'Set a failed delivery aside (it stays in the log, no longer asking for attention)' })
+  @ApiResponse({ status: 409, description: '`DELIVERY_NOT_FAILED`' })
+  dismiss(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<PacketDeliveryResponse> {
+    return this.deliveries.dismiss(user, id);
   }
 }

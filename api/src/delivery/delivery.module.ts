@@ -1,9 +1,8 @@
 import { type BeforeApplicationShutdown, Module, type OnApplicationBootstrap } from '@nestjs/common';
 
 import { PacketsModule } from '../packets/packets.module.js';
-import { UsersModule } from '../users/users.module.js';
 import { DeliveryQueue } from './delivery-queue.js';
-import { DeliveryController } from './delivery.controller.js';
+import { DeliveriesController, DeliveryController } from './delivery.controller.js';
 import { DeliveryRepository } from './delivery.repository.js';
 import { DeliveryService } from './delivery.service.js';
 import { PacketSendWorker } from './packet-send.worker.js';
@@ -13,8 +12,8 @@ import { PacketSendWorker } from './packet-send.worker.js';
  * Chromium); several API instances share the queue and a claim keeps each delivery to one sender.
  */
 @Module({
-  imports: [PacketsModule, UsersModule],
-  controllers: [DeliveryController],
+  imports: [PacketsModule],
+  controllers: [DeliveryController, DeliveriesController],
   providers: [DeliveryService, DeliveryRepository, DeliveryQueue, PacketSendWorker],
 })
 export class DeliveryModule implements OnApplicationBootstrap, BeforeApplicationShutdown {

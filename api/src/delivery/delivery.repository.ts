@@ -29,11 +29,16 @@ export class DeliveryRepository {
   /** The revision (without its snapshot) with its job's site, when it belongs to the company. */
   async revisionInCompany(companyId: string, revisionId: string) {
     const [row] = await this.db
-      .select({ id: packetRevisions.id, status: packetRevisions.status, siteId: jobs.siteId })
+      .select({ id: packetRevisions.id, status: packetRevisions.status, pdfBytes: packetRevisions.pdfBytes, jobId: jobs.id, siteId: jobs.siteId })
       .from(packetRevisions)
       .innerJoin(jobs, eq(jobs.id, packetRevisions.jobId))
       .where(and(eq(packetRevisions.companyId, companyId), eq(packetRevisions.id, revisionId)));
     return row;
+  }
+
+  async jobInCompany(companyId: string, jobId: string): Promise<boolean> {
+    const [row] = await this.db.select({ id: jobs.id }).from(jobs).where(and(eq(jobs.companyId, companyId), eq(jobs.id, jobId)));
+    return row !== undefined;
   }
 
   /** Homeowners linked to the site. */
@@ -56,31 +61,62 @@ export class DeliveryRepository {
       .orderBy(asc(invitations.email));
   }
 
-  async userByEmail(email: string) {
-    const [row] = await this.db.select({ id: users.id, companyId: users.companyId, role: users.role }).from(users).where(eq(users.email, email));
+  /**
+   * The account with this address in the company, if any. Only the actor's own company is looked at: an
+   * address with an account elsewhere is treated as a new address (nothing tells the sender it exists).
+   */
+  async companyUserByEmail(companyId: string, email: string) {
+    const [row] = await this.db
+      .select({ id: users.id, role: users.role, isDisabled: users.isDisabled })
+      .from(users)
+      .where(and(eq(users.companyId, companyId), eq(users.email, email)));
     return row;
   }
 
-  /** The open homeowner invitation of the company for this address, if any. */
-  async openHomeownerInvitation(companyId: string, email: string) {
-    const [row] = await this.db
-      .select({ id: invitations.id })
+  /** The company's invitation for this address that is neither accepted nor withdrawn (at most one; it may have expired). */
+  async unusedInvitation(companyId: string, email: string, tx?: Tx) {
+    const [row] = await (tx ?? this.db)
+      .select({ id: invitations.id, role: invitations.role, isExpired: sql<boolean>`${invitations.expiresAt} <= now()` })
       .from(invitations)
-      .where(
-        and(
-          eq(invitations.companyId, companyId),
-          eq(invitations.email, email),
-          eq(invitations.role, 'homeowner'),
-          isNull(invitations.acceptedAt),
-          isNull(invitations.revokedAt),
-          gt(invitations.expiresAt, sql`now()`),
-        ),
-      );
+      .where(and(eq(invitations.companyId, companyId), eq(invitations.email, email), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)));
     return row;
+  }
+
+  async revokeInvitation(id: string, tx: Tx): Promise<void> {
+    await tx.update(invitations).set({ revokedAt: sql`now()` }).where(and(eq(invitations.id, id), isNull(invitations.acceptedAt)));
+  }
+
+  /**
+   * A homeowner invitation whose link the packet e-mail carries (no separate invitation e-mail). Its
+   * token hash is of a token nobody keeps until the send worker arms it, as for queued account mail.
+   */
+  async insertHomeownerInvitation(
+    row: { companyId: string; email: string; invitedByUserId: string; tokenHash: string; expiresAt: Date },
+    tx: Tx,
+  ): Promise<string> {
+    const [inserted] = await tx
+      .insert(invitations)
+      .values({ ...row, role: 'homeowner', name: null })
+      .returning({ id: invitations.id });
+    return inserted!.id;
   }
 
   async addInvitationSite(invitationId: string, siteId: string, tx: Tx): Promise<void> {
     await tx.insert(invitationSites).values({ invitationId, siteId }).onConflictDoNothing();
+  }
+
+  /**
+   * Gives an open invitation a new link token (its hash) that works for `ttlSeconds` from now; false when
+   * it was accepted, withdrawn or has expired meanwhile (as OutgoingMailRepository.armInvitation does for
+   * the invitation e-mail; the earlier link of the invitation stops working).
+   */
+  async armInvitation(invitationId: string, tokenHash: string, ttlSeconds: number): Promise<boolean> {
+    const rows = await this.db
+      .update(invitations)
+      .set({ tokenHash, expiresAt: sql`now() + make_interval(secs => ${ttlSeconds})` })
+      .where(and(eq(invitations.id, invitationId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), gt(invitations.expiresAt, sql`now()`)))
+      .returning({ id: invitations.id });
+    return rows.length === 1;
   }
 
   async linkHomeowner(siteId: string, userId: string, tx: Tx): Promise<void> {
@@ -99,6 +135,65 @@ export class DeliveryRepository {
       .from(packetDeliveries)
       .where(and(eq(packetDeliveries.companyId, companyId), eq(packetDeliveries.revisionId, revisionId)))
       .orderBy(desc(packetDeliveries.createdAt), asc(packetDeliveries.toAddress));
+  }
+
+  /** The company's deliveries of one job (every revision), with their revision, job and site; newest first. */
+  listByJob(companyId: string, jobId: string) {
+    return this.inContext().where(and(eq(packetDeliveries.companyId, companyId), eq(jobs.id, jobId))).orderBy(desc(packetDeliveries.createdAt), asc(packetDeliveries.toAddress));
+  }
+
+  /** The company's failed deliveries nobody has sent again or dismissed; newest first. */
+  listOpenFailures(companyId: string) {
+    return this.inContext()
+      .where(and(eq(packetDeliveries.companyId, companyId), eq(packetDeliveries.status, 'failed'), isNull(packetDeliveries.dismissedAt)))
+      .orderBy(desc(packetDeliveries.updatedAt))
+      .limit(100);
+  }
+
+  private inContext() {
+    return this.db
+      .select({
+        delivery: packetDeliveries,
+        revision: packetRevisions.revision,
+        jobId: jobs.id,
+        jobTitle: jobs.title,
+        siteId: sites.id,
+        siteLabel: sites.label,
+      })
+      .from(packetDeliveries)
+      .innerJoin(packetRevisions, eq(packetRevisions.id, packetDeliveries.revisionId))
+      .innerJoin(jobs, eq(jobs.id, packetRevisions.jobId))
+      .innerJoin(sites, eq(sites.id, jobs.siteId))
+      .$dynamic();
+  }
+
+  /** One delivery of the company, locked for the caller's transaction. */
+  async deliveryInCompanyForUpdate(companyId: string, id: string, tx: Tx): Promise<PacketDelivery | undefined> {
+    const [row] = await tx
+      .select()
+      .from(packetDeliveries)
+      .where(and(eq(packetDeliveries.companyId, companyId), eq(packetDeliveries.id, id)))
+      .for('update');
+    return row;
+  }
+
+  /** A failed delivery back to `queued` for another round of attempts (its last error stays until it is sent). */
+  async requeueFailed(id: string, tx: Tx): Promise<PacketDelivery> {
+    const [row] = await tx
+      .update(packetDeliveries)
+      .set({ status: 'queued', dismissedAt: null, dismissedByUserId: null, updatedAt: sql`now()` })
+      .where(and(eq(packetDeliveries.id, id), eq(packetDeliveries.status, 'failed')))
+      .returning();
+    return row!;
+  }
+
+  async dismiss(id: string, userId: string, tx: Tx): Promise<PacketDelivery> {
+    const [row] = await tx
+      .update(packetDeliveries)
+      .set({ dismissedAt: sql`now()`, dismissedByUserId: userId, updatedAt: sql`now()` })
+      .where(eq(packetDeliveries.id, id))
+      .returning();
+    return row!;
   }
 
   /**
@@ -175,6 +270,7 @@ export class DeliveryRepository {
         jobTitle: jobs.title,
         site: { id: sites.id, label: sites.label, addressLine1: sites.addressLine1, city: sites.city },
         companyName: companies.name,
+        companyEmail: companySettings.contactEmail,
         units: companySettings.units,
       })
       .from(packetRevisions)

@@ -1,6 +1,7 @@
 import { Injectable, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 
+import { hashToken, newOpaqueToken } from '../auth/tokens.js';
 import { QueueWorker } from '../common/queue-worker.js';
 import type { Env } from '../config/env.schema.js';
 import { locateCautions } from '../domain/locate/locate-cautions.js';
@@ -20,8 +21,9 @@ function megabytes(bytes: number): string {
 
 /**
  * Sends queued packet e-mails: claims the delivery, renders `templates/mail/packet-sent/` and sends it
- * through MailService with the PDF attached when it is at most MAIL_MAX_ATTACHMENT_BYTES (a link to the
- * portal otherwise). A failed attempt goes back to `queued` with its error and pg-boss retries it with
+ * through MailService with the PDF attached when the sender chose so and it is at most
+ * MAIL_MAX_ATTACHMENT_BYTES (a link to the portal otherwise), and the link of the recipient's portal
+ * invitation when they have no account yet. A failed attempt goes back to `queued` with its error and pg-boss retries it with
  * backoff; the last failure marks the delivery `failed`. Same start-up pattern as the render worker.
  */
 @Injectable()
@@ -58,18 +60,21 @@ export class PacketSendWorker extends QueueWorker {
       if (!context || context.revision.status !== 'ready' || !context.revision.pdfSha256) throw new Error('the packet revision is not ready');
       const { revision, site } = context;
       const maxBytes = this.config.get('MAIL_MAX_ATTACHMENT_BYTES', { infer: true });
-      const isPdfAttached = (revision.pdfBytes ?? Number.POSITIVE_INFINITY) <= maxBytes;
+      const isPdfAttached = delivery.wantsPdfAttached && (revision.pdfBytes ?? Number.POSITIVE_INFINITY) <= maxBytes;
       const attachments = [];
       if (isPdfAttached) {
         const file = await this.packets.fileInCompany(revision.companyId, revision.id, 'pdf');
         attachments.push({ filename: file.fileName, content: file.body, contentType: file.contentType });
       }
       const summary = revision.summary;
+      const invitation = delivery.invitationId ? await this.invitationLink(delivery.invitationId) : undefined;
       const messageId = await this.mail.send({
         template: 'packet-sent',
         to: delivery.toAddress,
         cc: delivery.ccAddresses.length > 0 ? delivery.ccAddresses : undefined,
         companyId: revision.companyId,
+        // The homeowner sees the company as the sender, and a reply reaches its e-mail (company profile).
+        sender: { name: context.companyName, replyTo: context.companyEmail ?? null },
         attachments,
         data: {
           name: await this.repository.userName(delivery.toAddress),
@@ -86,10 +91,13 @@ export class PacketSendWorker extends QueueWorker {
           hasFindings: (summary?.critical ?? 0) + (summary?.warning ?? 0) > 0,
           message: delivery.message,
           isPdfAttached,
+          isLinkChosen: !delivery.wantsPdfAttached,
           pdfSize: megabytes(revision.pdfBytes ?? 0),
           pdfSha256: revision.pdfSha256,
           portalLink: this.links.to(`/portal/sites/${site.id}`),
-          isInvited: delivery.invitationId !== null,
+          isInvited: invitation !== undefined,
+          invitationLink: invitation?.link ?? null,
+          invitationHours: invitation?.hours ?? null,
           cautionSummary: locateCautions(context.units ?? 'imperial').summary.replace('this map', 'the packet’s map'),
         },
       });
@@ -101,5 +109,17 @@ export class PacketSendWorker extends QueueWorker {
       this.logger.error(`delivery ${delivery.id} failed${isFinalAttempt ? '' : ' (will retry)'}: ${reason}`);
       throw error;
     }
+  }
+
+  /**
+   * A fresh link for the homeowner invitation this e-mail carries (minted at send time, as the account
+   * mail worker does, so no working token waits in a table); undefined once the invitation was accepted,
+   * withdrawn or has expired — the recipient then has an account or needs a new invitation.
+   */
+  private async invitationLink(invitationId: string): Promise<{ link: string; hours: number } | undefined> {
+    const token = newOpaqueToken();
+    const hours = this.config.get('INVITATION_TTL_HOURS', { infer: true });
+    if (!(await this.repository.armInvitation(invitationId, hashToken(token), hours * 3600))) return undefined;
+    return { link: this.links.to('/accept-invitation', { token }), hours };
   }
 }
