@@ -5,6 +5,7 @@ import type { Response } from 'express';
 
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
+import { UploadSlotInterceptor } from '../common/image-work.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
 import { type UploadPhotosFields, UploadPhotosFieldsSchema } from '../domain/photos/photo.schema.js';
@@ -50,10 +51,16 @@ export class JobPhotosController {
       },
     },
   })
-  @ApiResponse({ status: 413, description: 'A file exceeds UPLOAD_MAX_FILE_BYTES, or more than UPLOAD_MAX_FILES files, or too many pixels.' })
+  @ApiResponse({
+    status: 413,
+    description: 'A file exceeds UPLOAD_MAX_FILE_BYTES, or more than UPLOAD_MAX_FILES files, or an image over UPLOAD_MAX_INPUT_PIXELS or UPLOAD_MAX_IMAGE_SIDE_PX.',
+  })
   @ApiResponse({ status: 415, description: 'Not a JPEG, PNG or WebP image (HEIC: send JPEG, “Most Compatible” on iPhone).' })
-  // Outermost first: the limits interceptor sees Multer's errors.
-  @UseInterceptors(UploadLimitsInterceptor, FilesInterceptor('files'))
+  @ApiResponse({ status: 422, description: 'An image more elongated than UPLOAD_MAX_ASPECT_RATIO (IMAGE_TOO_ELONGATED).' })
+  @ApiResponse({ status: 429, description: 'UPLOAD_MAX_CONCURRENT_PER_USER uploads of this user already in flight (TOO_MANY_UPLOADS, with Retry-After).' })
+  // Outermost first: the per-user slot is taken before Multer buffers the body, and the limits
+  // interceptor sees Multer's errors.
+  @UseInterceptors(UploadSlotInterceptor, UploadLimitsInterceptor, FilesInterceptor('files'))
   async upload(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,

@@ -25,6 +25,11 @@ export function unreadableImage(label: string): UnsupportedMediaTypeException {
   return new UnsupportedMediaTypeException({ message: `${label} looks like an image but could not be decoded. ${ACCEPTED}`, code: 'UNREADABLE_IMAGE' });
 }
 
+/** 413 (too big) or 422 (a shape no photo has) naming the image limit that was broken and its setting. */
+export function imageRefused(status: 413 | 422, message: string, code: string): HttpException {
+  return new HttpException({ message, code }, status);
+}
+
 /** 413 naming the limit that was exceeded, so the client can say what to do. */
 export function uploadTooLarge(message: string, code: string): HttpException {
   return new HttpException({ message, code }, HttpStatus.PAYLOAD_TOO_LARGE);

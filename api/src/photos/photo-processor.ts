@@ -3,6 +3,8 @@ import { ConfigService } from '@nestjs/config';
 import exifr from 'exifr';
 import sharp, { type Metadata, type OutputInfo, type Sharp } from 'sharp';
 
+import { type ImageLimits, imageLimitProblem, imageLimitsOf } from '../common/image-limits.js';
+import { ImageWorkQueue } from '../common/image-work.js';
 import type { Env } from '../config/env.schema.js';
 import {
   DERIVATIVE_SIZES,
@@ -14,7 +16,7 @@ import {
   validGpsPosition,
 } from '../domain/photos/photo-rules.js';
 import type { PhotoDerivativeVariant } from '../domain/photos/photo.schema.js';
-import { heicNotSupported, unreadableImage, unsupportedImage, uploadTooLarge } from './photo-errors.js';
+import { heicNotSupported, imageRefused, unreadableImage, unsupportedImage } from './photo-errors.js';
 
 export interface ProcessedDerivative {
   variant: PhotoDerivativeVariant;
@@ -67,15 +69,26 @@ const EXIF_OPTIONS = {
  * Turns an uploaded file into the photo's derivatives. One file at a time, one libvips thread, no
  * operation cache: the API's resident memory then grows by roughly one decoded print-sized image
  * (2400 px, ~17 MB) plus the encoders, not by the 12 MP originals (JPEG shrink-on-load decodes at 1/2).
+ *
+ * The header is checked first (type, area, longest side, aspect ratio: image-limits.ts), so a hostile
+ * file is refused in milliseconds without waiting; the decoding then waits its turn in the process's
+ * ImageWorkQueue. Every step after the first resize works on at most the print size, and nothing is
+ * enlarged, so the cost is bounded by the output (issue 18 §1: a 1×2400 PNG was scaled up to ~245 MP
+ * to crop its thumbnail).
  */
 @Injectable()
 export class PhotoProcessor {
   private readonly logger = new Logger(PhotoProcessor.name);
   private readonly maxInputPixels: number;
+  private readonly limits: ImageLimits;
   readonly isHeicDecodable: boolean;
 
-  constructor(config: ConfigService<Env, true>) {
+  constructor(
+    config: ConfigService<Env, true>,
+    private readonly queue: ImageWorkQueue,
+  ) {
     this.maxInputPixels = config.get('UPLOAD_MAX_INPUT_PIXELS', { infer: true });
+    this.limits = imageLimitsOf(config);
     sharp.concurrency(1);
     sharp.cache(false);
     this.isHeicDecodable = canDecodeHeic();
@@ -87,7 +100,6 @@ export class PhotoProcessor {
     if (type === 'heic' && !this.isHeicDecodable) throw heicNotSupported(label);
     if (type === undefined || type === 'avif') throw unsupportedImage(label);
 
-    const options = { limitInputPixels: this.maxInputPixels, failOn: 'error' as const };
     let metadata: Metadata;
     try {
       // The header alone, without the pixel limit, so that a bomb is reported as too large (413).
@@ -95,14 +107,14 @@ export class PhotoProcessor {
     } catch {
       throw unreadableImage(label);
     }
-    const pixels = (metadata.width ?? 0) * (metadata.height ?? 0);
-    if (pixels > this.maxInputPixels) {
-      throw uploadTooLarge(
-        `${label} is ${metadata.width}×${metadata.height} pixels; at most ${(this.maxInputPixels / 1e6).toFixed(0)} megapixels are accepted (UPLOAD_MAX_INPUT_PIXELS).`,
-        'IMAGE_TOO_MANY_PIXELS',
-      );
-    }
+    const problem = imageLimitProblem(metadata.width ?? 0, metadata.height ?? 0, this.limits);
+    if (problem) throw imageRefused(problem.status, `${label} ${problem.message}`, problem.code);
 
+    return this.queue.run(() => this.derive(bytes, label, type, metadata));
+  }
+
+  private async derive(bytes: Buffer, label: string, type: SniffedImageType, metadata: Metadata): Promise<ProcessedPhoto> {
+    const options = { limitInputPixels: this.maxInputPixels, failOn: 'error' as const };
     // Decode once: upright, sRGB, at most print size. Every derivative is encoded from this raw image.
     let base: { data: Buffer; info: OutputInfo };
     try {
@@ -137,7 +149,11 @@ export class PhotoProcessor {
     );
     await encode(
       'thumb',
-      sharp(base.data, raw).resize(DERIVATIVE_SIZES.thumb.width, DERIVATIVE_SIZES.thumb.height, { fit: 'cover', position: 'attention' }).webp({ quality: 75 }),
+      // Cover-fit without enlargement: the crop is chosen on an image whose short side is at most the
+      // thumbnail's and whose long side is at most UPLOAD_MAX_ASPECT_RATIO times that (≤ 320 × 3200).
+      sharp(base.data, raw)
+        .resize(DERIVATIVE_SIZES.thumb.width, DERIVATIVE_SIZES.thumb.height, { fit: 'cover', position: 'attention', withoutEnlargement: true })
+        .webp({ quality: 75 }),
       'image/webp',
       'webp',
     );

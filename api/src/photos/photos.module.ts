@@ -2,6 +2,7 @@ import { Module } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { MulterModule } from '@nestjs/platform-express';
 
+import { ImageWorkModule } from '../common/image-work.module.js';
 import type { Env } from '../config/env.schema.js';
 import { JobWriter } from '../jobs/job-writer.js';
 import { JobsRepository } from '../jobs/jobs.repository.js';
@@ -14,6 +15,7 @@ import { UploadLimitsInterceptor } from './upload-limits.interceptor.js';
 
 @Module({
   imports: [
+    ImageWorkModule,
     // No storage engine: Multer keeps files in memory (bounded by these limits); the service writes
     // them to object storage under generated keys once they have been checked.
     MulterModule.registerAsync({

@@ -2,6 +2,8 @@ import { HttpException, HttpStatus, Injectable, Logger, UnsupportedMediaTypeExce
 import { ConfigService } from '@nestjs/config';
 import sharp, { type Metadata } from 'sharp';
 
+import { type ImageLimits, imageLimitProblem, imageLimitsOf } from '../common/image-limits.js';
+import { ImageWorkQueue } from '../common/image-work.js';
 import type { Env } from '../config/env.schema.js';
 import { sniffImageType } from '../domain/photos/photo-rules.js';
 import { PLAN_IMAGE_MAX_SIDE_PX, PLAN_IMAGE_SCREEN_SIDE_PX } from '../domain/sites/site.schema.js';
@@ -13,9 +15,9 @@ export function planImageUnsupported(message: string, code: string): Unsupported
   return new UnsupportedMediaTypeException({ message: `file: ${message}`, code, issues: [{ path: 'file', message }] });
 }
 
-/** 413 naming the field and the limit. */
-export function planImageTooLarge(message: string, code: string): HttpException {
-  return new HttpException({ message: `file: ${message}`, code, issues: [{ path: 'file', message }] }, HttpStatus.PAYLOAD_TOO_LARGE);
+/** 413 (or 422 for a shape no plan has) naming the field and the limit. */
+export function planImageTooLarge(message: string, code: string, status: 413 | 422 = HttpStatus.PAYLOAD_TOO_LARGE): HttpException {
+  return new HttpException({ message: `file: ${message}`, code, issues: [{ path: 'file', message }] }, status);
 }
 
 export interface ProcessedPlanImage {
@@ -29,15 +31,22 @@ export interface ProcessedPlanImage {
  * Turns an uploaded site plan into the two stored copies. The calibration points the office picks are
  * in the stored copy's pixels, so its size is what the site records. Like photos, the type comes from
  * the bytes, the header is read first so that a decompression bomb is refused (413) before decoding,
- * and no EXIF/XMP/GPS survives (sharp writes none unless asked).
+ * and no EXIF/XMP/GPS survives (sharp writes none unless asked). The header must also pass the
+ * longest-side and aspect-ratio limits photos have (image-limits.ts), and the decoding waits its turn
+ * in the process's ImageWorkQueue with the photos.
  */
 @Injectable()
 export class PlanImageProcessor {
   private readonly logger = new Logger(PlanImageProcessor.name);
   private readonly maxInputPixels: number;
+  private readonly limits: ImageLimits;
 
-  constructor(config: ConfigService<Env, true>) {
+  constructor(
+    config: ConfigService<Env, true>,
+    private readonly queue: ImageWorkQueue,
+  ) {
     this.maxInputPixels = config.get('UPLOAD_MAX_INPUT_PIXELS', { infer: true });
+    this.limits = imageLimitsOf(config);
   }
 
   async process(bytes: Buffer): Promise<ProcessedPlanImage> {
@@ -54,16 +63,14 @@ export class PlanImageProcessor {
     } catch {
       throw planImageUnsupported(`the image could not be read. ${ACCEPTED}`, 'UNREADABLE_IMAGE');
     }
-    const pixels = (metadata.width ?? 0) * (metadata.height ?? 0);
-    if (pixels > this.maxInputPixels) {
-      throw planImageTooLarge(
-        `the image is ${metadata.width}×${metadata.height} pixels; at most ${(this.maxInputPixels / 1e6).toFixed(0)} megapixels are accepted (UPLOAD_MAX_INPUT_PIXELS).`,
-        'IMAGE_TOO_MANY_PIXELS',
-      );
-    }
+    const problem = imageLimitProblem(metadata.width ?? 0, metadata.height ?? 0, this.limits);
+    if (problem) throw planImageTooLarge(`the image ${problem.message}`, problem.code, problem.status);
 
+    return this.queue.run(() => this.derive(bytes, type === 'png'));
+  }
+
+  private async derive(bytes: Buffer, isPng: boolean): Promise<ProcessedPlanImage> {
     const options = { limitInputPixels: this.maxInputPixels, failOn: 'error' as const };
-    const isPng = type === 'png';
     try {
       const upright = sharp(bytes, options)
         .rotate()

@@ -5,6 +5,7 @@ import type { Request, Response } from 'express';
 
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
+import { UploadSlotInterceptor } from '../common/image-work.js';
 import { PLAN_IMAGE_MAX_BYTES, type PlanImageUploadResponse, type SiteResponse } from '../domain/sites/site.schema.js';
 import { PlanImageUploadInterceptor } from './plan-image-upload.interceptor.js';
 import { SitePlanImagesService, type UploadedPlanFile } from './site-plan-images.service.js';
@@ -30,10 +31,12 @@ export class SitePlanImageController {
       'Replacing the image clears the calibration, whose pixel points no longer apply: `wasCalibrationCleared` says so.',
   })
   @ApiBody({ schema: { type: 'object', required: ['file'], properties: { file: { type: 'string', format: 'binary' } } } })
-  @ApiResponse({ status: 413, description: 'Larger than 20 MB, or more pixels than UPLOAD_MAX_INPUT_PIXELS' })
+  @ApiResponse({ status: 413, description: 'Larger than 20 MB, more pixels than UPLOAD_MAX_INPUT_PIXELS, or a side over UPLOAD_MAX_IMAGE_SIDE_PX' })
   @ApiResponse({ status: 415, description: 'Not a JPEG, PNG or WebP image (HEIC included)' })
-  // Outermost first: the interceptor sees Multer's errors.
-  @UseInterceptors(PlanImageUploadInterceptor, FileInterceptor('file', { limits: { fileSize: PLAN_IMAGE_MAX_BYTES, files: 1, fields: 10 } }))
+  @ApiResponse({ status: 422, description: 'An image more elongated than UPLOAD_MAX_ASPECT_RATIO (IMAGE_TOO_ELONGATED)' })
+  @ApiResponse({ status: 429, description: 'UPLOAD_MAX_CONCURRENT_PER_USER uploads of this user already in flight (TOO_MANY_UPLOADS, with Retry-After)' })
+  // Outermost first: the per-user slot is taken before Multer reads the body; the next sees Multer's errors.
+  @UseInterceptors(UploadSlotInterceptor, PlanImageUploadInterceptor, FileInterceptor('file', { limits: { fileSize: PLAN_IMAGE_MAX_BYTES, files: 1, fields: 10 } }))
   upload(
     @CurrentUser() user: AuthUser,
     @Param('siteId', ParseUUIDPipe) siteId: string,

@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 
+import { ImageWorkModule } from '../common/image-work.module.js';
 import { UsersModule } from '../users/users.module.js';
 import { PlanImageProcessor } from './plan-image-processor.js';
 import { PlanImageUploadInterceptor } from './plan-image-upload.interceptor.js';
@@ -15,7 +16,7 @@ import { SitesService } from './sites.service.js';
 
 @Module({
   // Homeowners without an account are invited through the users' invitation flow.
-  imports: [UsersModule],
+  imports: [UsersModule, ImageWorkModule],
   controllers: [SitesController, SitePlanImageController, SiteHomeownersController],
   providers: [
     SitesService,
