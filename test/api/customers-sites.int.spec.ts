@@ -2,7 +2,7 @@ import type { NestExpressApplication } from '@nestjs/platform-express';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { createCompany, type TestCompany, withDb } from '../support/fixtures.js';
-import { type Api, apiAs, createJob, createSite } from '../support/records.js';
+import { type Api, apiAs, createJob, createSite, siteWrite } from '../support/records.js';
 import { signIn } from '../support/session.js';
 import { createTestApp } from '../support/test-app.js';
 
@@ -77,9 +77,10 @@ describe('customers and sites', () => {
         planCalibration: null,
         referencePoints: [],
         jobs: [],
+        version: 1,
       });
-      const updated = await office.expectOk('patch', `/api/sites/${site.id}`, { origin: null, planCalibration: null });
-      expect(updated).toMatchObject({ origin: null, planCalibration: null });
+      const updated = await office.expectOk('patch', `/api/sites/${site.id}`, { origin: null, planCalibration: null }, { 'If-Match': '"1"' });
+      expect(updated).toMatchObject({ origin: null, planCalibration: null, version: 2, siteVersion: 2, jobVersions: {} });
       expect((await lead.expectOk('get', `/api/sites?customerId=${customer.id}`)).map((s: { id: string }) => s.id)).toEqual([site.id]);
     });
 
@@ -99,19 +100,21 @@ describe('customers and sites', () => {
 
     it('should keep reference points on the site, reused by jobs, and refuse deleting one that is tied to', async () => {
       const { siteId } = await createSite(office);
-      const point = await lead.expectOk('post', `/api/sites/${siteId}/reference-points`, { label: 'Meter base', x: 2, y: -0.5 });
-      const moved = await lead.expectOk('patch', `/api/sites/${siteId}/reference-points/${point.id}`, { x: 2.1 });
-      expect(moved).toMatchObject({ label: 'Meter base', x: 2.1, y: -0.5 });
-      const job = await createJob(office, siteId);
-      await office.expectOk('post', `/api/jobs/${job.id}/items`, { kind: 'junction', label: 'Splice', ties: [{ referencePointId: point.id, distanceM: 3 }] }, { 'If-Match': '1' });
+      // A crew lead records reference points on a site where they are on an open job's crew.
+      const job = await createJob(office, siteId, { crewLeadUserId: a.users.lead.id });
+      const point = await siteWrite(lead, 'post', siteId, '/reference-points', { label: 'Meter base', x: 2, y: -0.5 });
+      const moved = await siteWrite(lead, 'patch', siteId, `/reference-points/${point.id}`, { x: 2.1 });
+      expect(moved).toMatchObject({ label: 'Meter base', x: 2.1, y: -0.5, siteVersion: 3, jobVersions: { [job.id]: 3 } });
+      await office.expectOk('post', `/api/jobs/${job.id}/items`, { kind: 'junction', label: 'Splice', ties: [{ referencePointId: point.id, distanceM: 3 }] }, { 'If-Match': '3' });
       const site = await lead.expectOk('get', `/api/sites/${siteId}`);
       expect(site.referencePoints.map((p: { id: string }) => p.id)).toEqual([point.id]);
       expect(site.jobs.map((j: { id: string }) => j.id)).toEqual([job.id]);
-      const refused = await office.send('delete', `/api/sites/${siteId}/reference-points/${point.id}`);
+      const refused = await office.send('delete', `/api/sites/${siteId}/reference-points/${point.id}`, undefined, { 'If-Match': `"${site.version}"` });
       expect(refused.status).toBe(409);
-      expect((await otherAdmin.send('patch', `/api/sites/${siteId}/reference-points/${point.id}`, { x: 0 })).status).toBe(404);
-      const other = await lead.expectOk('post', `/api/sites/${siteId}/reference-points`, { label: 'Spare', x: 0, y: 0 });
-      expect((await lead.send('delete', `/api/sites/${siteId}/reference-points/${other.id}`)).status).toBe(204);
+      expect(refused.body.code).toBe('IN_USE');
+      expect((await otherAdmin.send('patch', `/api/sites/${siteId}/reference-points/${point.id}`, { x: 0 }, { 'If-Match': '"3"' })).status).toBe(404);
+      const other = await siteWrite(lead, 'post', siteId, '/reference-points', { label: 'Spare', x: 0, y: 0 });
+      expect(await siteWrite(lead, 'delete', siteId, `/reference-points/${other.id}`)).toEqual({ siteVersion: 5, jobVersions: { [job.id]: 6 } });
       expect((await office.send('delete', `/api/sites/${siteId}`)).status).toBe(409);
     });
 

@@ -2,7 +2,7 @@ import type { NestExpressApplication } from '@nestjs/platform-express';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { createCompany, type TestCompany, withDb } from '../support/fixtures.js';
-import { type Api, apiAs, createJob, createSite, type JobFixture, moveJob } from '../support/records.js';
+import { type Api, apiAs, createJob, createSite, type JobFixture, moveJob, siteWrite } from '../support/records.js';
 import { signIn } from '../support/session.js';
 import { createTestApp } from '../support/test-app.js';
 
@@ -65,8 +65,8 @@ describe('job records (zones, items, runs, depth readings, checks)', () => {
     for (const role of ['admin', 'office', 'lead', 'tech', 'homeowner'] as const) as[role] = apiAs(app, await signIn(app, a.users[role]));
     as.otherAdmin = apiAs(app, await signIn(app, b.users.admin));
     ({ siteId } = await createSite(as.office));
-    refA = (await as.lead.expectOk('post', `/api/sites/${siteId}/reference-points`, { label: 'House corner', x: 0, y: 0 })).id;
-    refB = (await as.lead.expectOk('post', `/api/sites/${siteId}/reference-points`, { label: 'Gate post', x: 8, y: 0 })).id;
+    refA = (await siteWrite(as.office, 'post', siteId, '/reference-points', { label: 'House corner', x: 0, y: 0 })).id;
+    refB = (await siteWrite(as.office, 'post', siteId, '/reference-points', { label: 'Gate post', x: 8, y: 0 })).id;
   });
 
   afterAll(async () => {

@@ -15,7 +15,7 @@ import { DiskStorage } from '../../api/src/storage/disk-storage.js';
 import { OBJECT_STORAGE } from '../../api/src/storage/object-storage.js';
 import { makeFieldPhoto, makeHeicHeader, makePixelBombPng, makePng, makeWebp } from '../fixtures/photos/make-photos.js';
 import { createCompany, createUser, type TestCompany, withDb } from '../support/fixtures.js';
-import { type Api, apiAs, createSite, insertRecordedJob } from '../support/records.js';
+import { type Api, apiAs, createJob, createSite, insertRecordedJob, siteWrite } from '../support/records.js';
 import { bearer, type Session, signIn } from '../support/session.js';
 
 // ConfigModule reads the environment when AppModule is imported (dynamically, in beforeAll): the packet
@@ -55,11 +55,25 @@ describe('site-plan image and job drawings', () => {
   const as = {} as Record<Who, Api>;
   let parseXml: (text: string) => XmlDocument;
 
-  const put = (who: Who, siteId: string, content: Buffer, field = 'file') =>
+  /** The site's version straight from the database (another company cannot read it), for If-Match. */
+  const siteVersion = (siteId: string) =>
+    withDb(async (db) => (await db.query('select version from sites where id = $1', [siteId])).rows[0]?.version as number);
+  const ifMatch = async (siteId: string) => ({ 'If-Match': `"${await siteVersion(siteId)}"` });
+
+  /** Uploads on top of the site's current version (site writes name it: If-Match). */
+  const put = async (who: Who, siteId: string, content: Buffer, field = 'file') =>
     request(app.getHttpServer())
       .put(`/api/sites/${siteId}/plan-image`)
       .set(bearer(sessions[who]))
+      .set(await ifMatch(siteId))
       .attach(field, content, { filename: 'plan.bin', contentType: 'application/octet-stream' });
+
+  /** A site where the company's crew lead leads an open job (a lead may change only such a site's plan). */
+  const leadsSite = async () => {
+    const { siteId } = await createSite(as.office);
+    await createJob(as.office, siteId, { crewLeadUserId: a.users.lead.id });
+    return { siteId };
+  };
 
   const get = (who: Who, path: string) => request(app.getHttpServer()).get(path).set(bearer(sessions[who]));
 
@@ -132,7 +146,7 @@ describe('site-plan image and job drawings', () => {
     });
 
     it('should store a JPEG upright without its metadata, and a WebP as JPEG', async () => {
-      const { siteId } = await createSite(as.office);
+      const { siteId } = await leadsSite();
       // Stored 400×300 with EXIF orientation 6 (a phone held upright): 300×400 once turned.
       const photo = await makeFieldPhoto({ width: 400, height: 300, isNoisy: false });
       const res = await put('lead', siteId, photo);
@@ -164,7 +178,7 @@ describe('site-plan image and job drawings', () => {
     ] as const)('should refuse %s naming the field, and store nothing', async (_name, make, status, code) => {
       const { siteId } = await createSite(as.office);
       await put('office', siteId, await makePng(200, 100));
-      await as.office.expectOk('patch', `/api/sites/${siteId}`, { planCalibration: CALIBRATION });
+      await siteWrite(as.office, 'patch', siteId, '', { planCalibration: CALIBRATION });
       const before = { files: await listFiles(root), row: await siteRow(siteId) };
       const res = await put('office', siteId, await make());
       expect(res.status, JSON.stringify(res.body)).toBe(status);
@@ -177,7 +191,11 @@ describe('site-plan image and job drawings', () => {
 
     it('should answer 400 naming `file` when no file is sent', async () => {
       const { siteId } = await createSite(as.office);
-      const res = await request(app.getHttpServer()).put(`/api/sites/${siteId}/plan-image`).set(bearer(sessions.office)).field('note', 'x');
+      const res = await request(app.getHttpServer())
+        .put(`/api/sites/${siteId}/plan-image`)
+        .set(bearer(sessions.office))
+        .set(await ifMatch(siteId))
+        .field('note', 'x');
       expect(res.status).toBe(400);
       expect(res.body.issues[0].path).toBe('file');
       const wrongField = await put('office', siteId, await makePng(), 'image');
@@ -186,9 +204,9 @@ describe('site-plan image and job drawings', () => {
     });
 
     it('should clear the calibration when the image is replaced, say so, and delete the old files', async () => {
-      const { siteId } = await createSite(as.office);
+      const { siteId } = await leadsSite();
       const first = await put('office', siteId, await makePng(300, 200));
-      const calibrated = await as.office.expectOk('patch', `/api/sites/${siteId}`, { planCalibration: CALIBRATION });
+      const calibrated = await siteWrite(as.office, 'patch', siteId, '', { planCalibration: CALIBRATION });
       expect(calibrated.planCalibration).toEqual(CALIBRATION);
       const oldFiles = (await listFiles(root)).filter((f) => f.includes(siteId));
 
@@ -202,14 +220,14 @@ describe('site-plan image and job drawings', () => {
     });
 
     it('should remove the image and its calibration with DELETE', async () => {
-      const { siteId } = await createSite(as.office);
+      const { siteId } = await leadsSite();
       await put('office', siteId, await makePng(300, 200));
-      await as.office.expectOk('patch', `/api/sites/${siteId}`, { planCalibration: CALIBRATION });
-      const removed = await as.lead.expectOk('delete', `/api/sites/${siteId}/plan-image`);
+      await siteWrite(as.office, 'patch', siteId, '', { planCalibration: CALIBRATION });
+      const removed = await siteWrite(as.lead, 'delete', siteId, '/plan-image');
       expect(removed).toMatchObject({ planImage: null, planCalibration: null });
       expect((await listFiles(root)).filter((f) => f.includes(siteId))).toEqual([]);
       expect((await get('office', `/api/sites/${siteId}/plan-image`)).status).toBe(404);
-      expect((await as.office.send('delete', `/api/sites/${siteId}/plan-image`)).status).toBe(404);
+      expect((await as.office.send('delete', `/api/sites/${siteId}/plan-image`, undefined, await ifMatch(siteId))).status).toBe(404);
     });
 
     it('should keep the image to the company, and to homeowners linked to the site', async () => {
@@ -223,15 +241,15 @@ describe('site-plan image and job drawings', () => {
       expect((await get('homeowner', `/api/sites/${siteId}/plan-image`)).status).toBe(200);
       expect((await get('strayHomeowner', `/api/sites/${siteId}/plan-image`)).status).toBe(404);
       expect((await get('otherAdmin', `/api/sites/${siteId}/plan-image`)).status).toBe(404);
-      expect((await as.otherAdmin.send('delete', `/api/sites/${siteId}/plan-image`)).status).toBe(404);
-      expect((await as.otherAdmin.send('patch', `/api/sites/${siteId}`, { planCalibration: CALIBRATION })).status).toBe(404);
+      expect((await as.otherAdmin.send('delete', `/api/sites/${siteId}/plan-image`, undefined, await ifMatch(siteId))).status).toBe(404);
+      expect((await as.otherAdmin.send('patch', `/api/sites/${siteId}`, { planCalibration: CALIBRATION }, await ifMatch(siteId))).status).toBe(404);
     });
   });
 
   describe('PATCH /api/sites/:id', () => {
     it('should refuse a calibration while the site has no image, naming planCalibration', async () => {
       const { siteId } = await createSite(as.office);
-      const res = await as.office.send('patch', `/api/sites/${siteId}`, { planCalibration: CALIBRATION });
+      const res = await as.office.send('patch', `/api/sites/${siteId}`, { planCalibration: CALIBRATION }, await ifMatch(siteId));
       expect(res.status).toBe(400);
       expect(res.body.issues[0].path).toBe('planCalibration');
       expect((await siteRow(siteId)).plan_cal_distance_m).toBeNull();
@@ -240,10 +258,10 @@ describe('site-plan image and job drawings', () => {
     it('should refuse calibration points outside the image, and setting planImageRef by hand', async () => {
       const { siteId } = await createSite(as.office);
       await put('office', siteId, await makePng(200, 100));
-      const outside = await as.office.send('patch', `/api/sites/${siteId}`, { planCalibration: { ...CALIBRATION, b: { x: 150, y: 101 } } });
+      const outside = await as.office.send('patch', `/api/sites/${siteId}`, { planCalibration: { ...CALIBRATION, b: { x: 150, y: 101 } } }, await ifMatch(siteId));
       expect(outside.status).toBe(400);
       expect(outside.body.issues[0].path).toBe('planCalibration.b');
-      const byHand = await as.office.send('patch', `/api/sites/${siteId}`, { planImageRef: 'companies/x/plan.png' });
+      const byHand = await as.office.send('patch', `/api/sites/${siteId}`, { planImageRef: 'companies/x/plan.png' }, await ifMatch(siteId));
       expect(byHand.status).toBe(400);
       expect(byHand.body.issues[0].path).toBe('planImageRef');
       const onCreate = await as.office.send('post', '/api/sites', {
@@ -257,22 +275,22 @@ describe('site-plan image and job drawings', () => {
       expect(onCreate.status).toBe(400);
       expect(onCreate.body.issues[0].path).toBe('planCalibration');
       // North stays settable as before.
-      expect((await as.office.expectOk('patch', `/api/sites/${siteId}`, { northAzimuthDeg: 15 })).northAzimuthDeg).toBe(15);
+      expect((await siteWrite(as.office, 'patch', siteId, '', { northAzimuthDeg: 15 })).northAzimuthDeg).toBe(15);
     });
 
     it("should let a crew lead set the plan's calibration and north, and nothing else of the site", async () => {
-      const { siteId } = await createSite(as.office);
+      const { siteId } = await leadsSite();
       await put('lead', siteId, await makePng(300, 200));
-      const framed = await as.lead.expectOk('patch', `/api/sites/${siteId}`, { planCalibration: CALIBRATION, northAzimuthDeg: -20 });
+      const framed = await siteWrite(as.lead, 'patch', siteId, '', { planCalibration: CALIBRATION, northAzimuthDeg: -20 });
       expect(framed.planCalibration).toEqual(CALIBRATION);
       expect(framed.northAzimuthDeg).toBe(-20);
       const before = await siteRow(siteId);
-      const refused = await as.lead.send('patch', `/api/sites/${siteId}`, { northAzimuthDeg: 5, label: 'Renamed' });
+      const refused = await as.lead.send('patch', `/api/sites/${siteId}`, { northAzimuthDeg: 5, label: 'Renamed' }, await ifMatch(siteId));
       expect(refused.status).toBe(403);
       expect(refused.body.issues.map((i: { path: string }) => i.path)).toEqual(['label']);
       // Refused whole: north did not change either.
       expect(await siteRow(siteId)).toEqual(before);
-      expect((await as.tech.send('patch', `/api/sites/${siteId}`, { northAzimuthDeg: 5 })).status).toBe(403);
+      expect((await as.tech.send('patch', `/api/sites/${siteId}`, { northAzimuthDeg: 5 }, await ifMatch(siteId))).status).toBe(403);
     });
   });
 
@@ -341,7 +359,7 @@ describe('site-plan image and job drawings', () => {
       const uncalibrated = parseSvg((await svgOf('office', `/api/jobs/${jobId}/drawings/site-plan.svg`)).body as string);
       expect(uncalibrated.querySelector('image'), 'an image without calibration cannot be placed').toBeNull();
 
-      await as.office.expectOk('patch', `/api/sites/${siteId}`, { planCalibration: { a: { x: 100, y: 1900 }, b: { x: 2900, y: 1900 }, distanceM: 28 } });
+      await siteWrite(as.office, 'patch', siteId, '', { planCalibration: { a: { x: 100, y: 1900 }, b: { x: 2900, y: 1900 }, distanceM: 28 } });
       const res = await svgOf('office', `/api/jobs/${jobId}/drawings/site-plan.svg`);
       const image = parseSvg(res.body as string).querySelector('image');
       const href = image?.getAttribute('href') ?? '';

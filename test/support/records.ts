@@ -42,6 +42,27 @@ export async function createSite(api: Api, frame?: AsBuilt['site']): Promise<{ c
   return { customerId: customer.id, siteId: site.id };
 }
 
+/** The site's current version, for If-Match on a site write. */
+export async function siteVersion(api: Api, siteId: string): Promise<number> {
+  return (await api.expectOk('get', `/api/sites/${siteId}`)).version as number;
+}
+
+/**
+ * A write to a site (`path` below `/api/sites/:siteId`) as `api`'s user on top of the site's current
+ * version (read first); throws on a non-2xx answer. A geometry write answers with `siteVersion` and
+ * the new versions of the site's open jobs (`jobVersions`).
+ */
+export async function siteWrite(
+  api: Api,
+  method: 'post' | 'patch' | 'put' | 'delete',
+  siteId: string,
+  path: string,
+  body?: object,
+) {
+  const version = await siteVersion(api, siteId);
+  return api.expectOk(method, `/api/sites/${siteId}${path}`, body, { 'If-Match': `"${version}"` });
+}
+
 export interface JobFixture {
   id: string;
   siteId: string;
@@ -91,8 +112,10 @@ export async function recordAsBuilt(api: Api, job: JobFixture, asBuilt: AsBuilt)
     return res;
   };
   for (const point of asBuilt.referencePoints) {
-    const created = await api.expectOk('post', `/api/sites/${job.siteId}/reference-points`, strip(point));
+    // A new reference point is a change to the site's geometry: it bumps the job's version too.
+    const created = await siteWrite(api, 'post', job.siteId, '/reference-points', strip(point));
     ids.set(point.id, created.id);
+    version = created.jobVersions[job.id] ?? version;
   }
   for (const zone of asBuilt.zones) ids.set(zone.id, (await write('post', '/zones', strip(zone))).zone.id);
   for (const item of asBuilt.items) {

@@ -4,9 +4,12 @@ import { ApiBearerAuth, ApiBody, ApiConsumes, ApiOperation, ApiResponse, ApiTags
 import type { Request, Response } from 'express';
 
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
+import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { UploadSlotInterceptor } from '../common/image-work.js';
 import { PLAN_IMAGE_MAX_BYTES, type PlanImageUploadResponse, type SiteResponse } from '../domain/sites/site.schema.js';
+import type { SiteVersionResponse } from '../domain/sites/site-rules.js';
+import { ApiSiteVersion } from './api-site-version.decorator.js';
 import { PlanImageUploadInterceptor } from './plan-image-upload.interceptor.js';
 import { SitePlanImagesService, type UploadedPlanFile } from './site-plan-images.service.js';
 
@@ -37,12 +40,14 @@ export class SitePlanImageController {
   @ApiResponse({ status: 429, description: 'UPLOAD_MAX_CONCURRENT_PER_USER uploads of this user already in flight (TOO_MANY_UPLOADS, with Retry-After)' })
   // Outermost first: the per-user slot is taken before Multer reads the body; the next sees Multer's errors.
   @UseInterceptors(UploadSlotInterceptor, PlanImageUploadInterceptor, FileInterceptor('file', { limits: { fileSize: PLAN_IMAGE_MAX_BYTES, files: 1, fields: 10 } }))
+  @ApiSiteVersion()
   upload(
     @CurrentUser() user: AuthUser,
     @Param('siteId', ParseUUIDPipe) siteId: string,
+    @ExpectedVersion('site') expectedVersion: number,
     @UploadedFile() file: UploadedPlanFile | undefined,
-  ): Promise<PlanImageUploadResponse> {
-    return this.planImages.upload(user, siteId, file);
+  ): Promise<PlanImageUploadResponse & SiteVersionResponse> {
+    return this.planImages.upload(user, siteId, expectedVersion, file);
   }
 
   @Get()
@@ -63,7 +68,12 @@ export class SitePlanImageController {
   @Delete()
   @Roles('admin', 'office', 'lead')
   @ApiOperation({ summary: 'Remove the site-plan image and its calibration' })
-  remove(@CurrentUser() user: AuthUser, @Param('siteId', ParseUUIDPipe) siteId: string): Promise<SiteResponse> {
-    return this.planImages.remove(user, siteId);
+  @ApiSiteVersion()
+  remove(
+    @CurrentUser() user: AuthUser,
+    @Param('siteId', ParseUUIDPipe) siteId: string,
+    @ExpectedVersion('site') expectedVersion: number,
+  ): Promise<SiteResponse & SiteVersionResponse> {
+    return this.planImages.remove(user, siteId, expectedVersion);
   }
 }

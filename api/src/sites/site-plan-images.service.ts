@@ -2,15 +2,16 @@ import { randomUUID } from 'node:crypto';
 
 import { BadRequestException, Inject, Injectable, Logger, NotFoundException } from '@nestjs/common';
 
-import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import type { Site } from '../db/schema/index.js';
 import type { PlanImageUploadResponse, SiteResponse } from '../domain/sites/site.schema.js';
+import type { SiteVersionResponse } from '../domain/sites/site-rules.js';
 import type { PlanImage } from '../drawings/drawing-options.js';
 import { planImageForDrawing } from '../drawings/job-drawings.js';
 import { OBJECT_STORAGE, ObjectNotFoundError, type ObjectStorage } from '../storage/object-storage.js';
 import { PlanImageProcessor } from './plan-image-processor.js';
 import { planCalibrationOf, planImageEtag } from './plan-image-ref.js';
+import { SiteWriter } from './site-writer.js';
 import { SitesRepository } from './sites.repository.js';
 import { SitesService } from './sites.service.js';
 
@@ -56,11 +57,20 @@ export class SitePlanImagesService {
     private readonly repository: SitesRepository,
     private readonly sites: SitesService,
     private readonly processor: PlanImageProcessor,
-    private readonly audit: AuditService,
+    private readonly writer: SiteWriter,
     @Inject(OBJECT_STORAGE) private readonly storage: ObjectStorage,
   ) {}
 
-  async upload(actor: AuthUser, siteId: string, file: UploadedPlanFile | undefined): Promise<PlanImageUploadResponse> {
+  /**
+   * The image is part of the site's geometry: the upload names the site version it replaces (If-Match)
+   * and goes through SiteWriter (rights, jobs under review, version; bumps the site and its open jobs).
+   */
+  async upload(
+    actor: AuthUser,
+    siteId: string,
+    expectedVersion: number,
+    file: UploadedPlanFile | undefined,
+  ): Promise<PlanImageUploadResponse & SiteVersionResponse> {
     if (!file || file.size === 0) {
       throw new BadRequestException({
         message: 'file: attach the site-plan image in the multipart field "file"',
@@ -68,8 +78,8 @@ export class SitePlanImagesService {
         issues: [{ path: 'file', message: 'attach the site-plan image in the multipart field "file"' }],
       });
     }
-    // 404 before spending CPU on the file.
-    if (!(await this.repository.findInCompany(actor.companyId, siteId))) throw siteNotFound();
+    // 404, 403, 409 (jobs under review, stale version) before spending CPU on the file; checked again below.
+    await this.writer.precheck(actor, siteId, expectedVersion, 'geometry');
     const processed = await this.processor.process(file.buffer);
 
     const prefix = `companies/${actor.companyId}/sites/${siteId}/plan-image/${randomUUID()}`;
@@ -80,9 +90,8 @@ export class SitePlanImagesService {
       storedKeys.push(image.key);
       const screen = await this.storage.put(`${prefix}/screen.${processed.screen.extension}`, processed.screen.body, processed.screen.contentType);
       storedKeys.push(screen.key);
-      const result = await this.repository.transaction(async (tx) => {
-        previous = await this.repository.lockInCompany(actor.companyId, siteId, tx);
-        if (!previous) throw siteNotFound();
+      const result = await this.writer.write(actor, siteId, expectedVersion, 'geometry', async ({ tx, site }) => {
+        previous = site;
         const wasCalibrationCleared = planCalibrationOf(previous) !== null;
         await this.repository.updateInCompany(
           actor.companyId,
@@ -97,18 +106,15 @@ export class SitePlanImagesService {
           },
           tx,
         );
-        await this.audit.record(
-          {
-            companyId: actor.companyId,
-            actorUserId: actor.id,
+        return {
+          readAfter: async () => ({ ...(await this.sites.get(actor, siteId, tx)), wasCalibrationCleared }),
+          audit: {
             action: 'site.plan_image.upload',
             targetType: 'site',
             targetId: siteId,
             details: { widthPx: processed.image.width, heightPx: processed.image.height, bytes: image.bytes, wasCalibrationCleared },
           },
-          tx,
-        );
-        return { ...(await this.sites.get(actor, siteId, tx)), wasCalibrationCleared };
+        };
       });
       await this.deleteQuietly([previous?.planImageRef, previous?.planImageScreenRef]);
       this.logger.log(`site ${siteId}: plan image stored (${processed.image.width}×${processed.image.height}) by user ${actor.id}`);
@@ -119,18 +125,16 @@ export class SitePlanImagesService {
     }
   }
 
-  async remove(actor: AuthUser, siteId: string): Promise<SiteResponse> {
+  async remove(actor: AuthUser, siteId: string, expectedVersion: number): Promise<SiteResponse & SiteVersionResponse> {
     let previous: Site | undefined;
-    const result = await this.repository.transaction(async (tx) => {
-      previous = await this.repository.lockInCompany(actor.companyId, siteId, tx);
-      if (!previous) throw siteNotFound();
+    const result = await this.writer.write(actor, siteId, expectedVersion, 'geometry', async ({ tx, site }) => {
+      previous = site;
       if (previous.planImageRef === null) throw noPlanImage();
       await this.repository.updateInCompany(actor.companyId, siteId, CLEARED_PLAN_IMAGE, tx);
-      await this.audit.record(
-        { companyId: actor.companyId, actorUserId: actor.id, action: 'site.plan_image.delete', targetType: 'site', targetId: siteId },
-        tx,
-      );
-      return this.sites.get(actor, siteId, tx);
+      return {
+        readAfter: () => this.sites.get(actor, siteId, tx),
+        audit: { action: 'site.plan_image.delete', targetType: 'site', targetId: siteId },
+      };
     });
     await this.deleteQuietly([previous?.planImageRef, previous?.planImageScreenRef]);
     return result;

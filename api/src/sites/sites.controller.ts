@@ -1,7 +1,9 @@
-import { Body, Controller, Delete, Get, HttpCode, HttpStatus, Param, ParseUUIDPipe, Patch, Post, Query } from '@nestjs/common';
+import { Body, Controller, Delete, Get, HttpCode, HttpStatus, Param, ParseUUIDPipe, Patch, Post, Query, Res } from '@nestjs/common';
 import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
+import type { Response } from 'express';
 
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
+import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
 import {
@@ -21,11 +23,16 @@ import {
   type UpdateSiteInput,
   UpdateSiteSchema,
 } from '../domain/sites/site.schema.js';
+import type { SiteVersionResponse } from '../domain/sites/site-rules.js';
+import { ApiSiteVersion } from './api-site-version.decorator.js';
 import { SitesService } from './sites.service.js';
 
 /**
- * Staff read sites; the office creates and changes them and links homeowners; crew leads also record
- * reference points (they tape them on site).
+ * Staff read sites; the office creates and changes them and links homeowners; crew leads on the crew of
+ * an open job at the site also record reference points (they tape them on site) and set the plan's
+ * frame. Every change names the site version it builds on (If-Match, SiteWriter); a change to the
+ * site's plan or reference points is refused while a job on the site is under review, and bumps the
+ * version of every open job on it.
  */
 @ApiTags('sites')
 @ApiBearerAuth()
@@ -47,19 +54,31 @@ export class SitesController {
 
   @Get(':id')
   @ApiOperation({ summary: 'A site with its reference points, linked homeowners and job history' })
-  get(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<SiteResponse> {
-    return this.sitesService.get(user, id);
+  async get(
+    @CurrentUser() user: AuthUser,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Res({ passthrough: true }) res: Response,
+  ): Promise<SiteResponse> {
+    const site = await this.sitesService.get(user, id);
+    // The version as an entity tag, for If-Match; revalidated on every use (the site may change any time).
+    res.set({ ETag: `"${site.version}"`, 'Cache-Control': 'private, no-cache' });
+    return site;
   }
 
   @Patch(':id')
-  @ApiOperation({ summary: 'Change a site (a crew lead: only planCalibration and northAzimuthDeg)' })
+  @ApiOperation({
+    summary: 'Change a site (a crew lead on an open job there: only planCalibration and northAzimuthDeg)',
+    description: 'northAzimuthDeg, origin and planCalibration are the site’s geometry: see If-Match below.',
+  })
+  @ApiSiteVersion()
   @Roles('admin', 'office', 'lead')
   update(
     @CurrentUser() user: AuthUser,
     @Param('id', ParseUUIDPipe) id: string,
+    @ExpectedVersion('site') expectedVersion: number,
     @Body(new ZodValidationPipe(UpdateSiteSchema)) body: UpdateSiteInput,
-  ): Promise<SiteResponse> {
-    return this.sitesService.update(user, id, body);
+  ): Promise<SiteResponse & SiteVersionResponse> {
+    return this.sitesService.update(user, id, expectedVersion, body);
   }
 
   @Delete(':id')
@@ -71,34 +90,41 @@ export class SitesController {
 
   @Post(':siteId/reference-points')
   @Roles('admin', 'office', 'lead')
+  @ApiSiteVersion()
   createReferencePoint(
     @CurrentUser() user: AuthUser,
     @Param('siteId', ParseUUIDPipe) siteId: string,
+    @ExpectedVersion('site') expectedVersion: number,
     @Body(new ZodValidationPipe(CreateReferencePointSchema)) body: CreateReferencePointInput,
-  ): Promise<ReferencePointResponse> {
-    return this.sitesService.createReferencePoint(user, siteId, body);
+  ): Promise<ReferencePointResponse & SiteVersionResponse> {
+    return this.sitesService.createReferencePoint(user, siteId, expectedVersion, body);
   }
 
   @Patch(':siteId/reference-points/:pointId')
   @Roles('admin', 'office', 'lead')
+  @ApiSiteVersion()
+  @ApiOperation({ summary: 'Move or rename a reference point: every item tied to it moves, on every open job of the site' })
   updateReferencePoint(
     @CurrentUser() user: AuthUser,
     @Param('siteId', ParseUUIDPipe) siteId: string,
     @Param('pointId', ParseUUIDPipe) pointId: string,
+    @ExpectedVersion('site') expectedVersion: number,
     @Body(new ZodValidationPipe(UpdateReferencePointSchema)) body: UpdateReferencePointInput,
-  ): Promise<ReferencePointResponse> {
-    return this.sitesService.updateReferencePoint(user, siteId, pointId, body);
+  ): Promise<ReferencePointResponse & SiteVersionResponse> {
+    return this.sitesService.updateReferencePoint(user, siteId, pointId, expectedVersion, body);
   }
 
   @Delete(':siteId/reference-points/:pointId')
   @Roles('admin', 'office', 'lead')
-  @HttpCode(HttpStatus.NO_CONTENT)
-  async deleteReferencePoint(
+  @ApiSiteVersion()
+  @ApiOperation({ summary: 'Delete a reference point no item is tied to; answers with the site’s new version' })
+  deleteReferencePoint(
     @CurrentUser() user: AuthUser,
     @Param('siteId', ParseUUIDPipe) siteId: string,
     @Param('pointId', ParseUUIDPipe) pointId: string,
-  ): Promise<void> {
-    await this.sitesService.deleteReferencePoint(user, siteId, pointId);
+    @ExpectedVersion('site') expectedVersion: number,
+  ): Promise<SiteVersionResponse> {
+    return this.sitesService.deleteReferencePoint(user, siteId, pointId, expectedVersion);
   }
 
   @Post(':siteId/homeowners')

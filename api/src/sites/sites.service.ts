@@ -4,7 +4,8 @@ import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { isForeignKeyViolation } from '../common/db-errors.js';
 import type { Tx } from '../db/db.module.js';
-import type { NewSite, ReferencePointRow } from '../db/schema/index.js';
+import type { NewSite, ReferencePointRow, Site } from '../db/schema/index.js';
+import type { SiteVersionResponse, SiteWriteKind } from '../domain/sites/site-rules.js';
 import type {
   CreateReferencePointInput,
   CreateSiteInput,
@@ -17,6 +18,8 @@ import type {
   UpdateSiteInput,
 } from '../domain/sites/site.schema.js';
 import { planCalibrationOf, toPlanImageResponse } from './plan-image-ref.js';
+import { siteNotFound } from './site-errors.js';
+import { SiteWriter } from './site-writer.js';
 import { type SiteWithCustomer, SitesRepository } from './sites.repository.js';
 
 function toSiteSummary({ site, customer }: SiteWithCustomer): SiteSummaryResponse {
@@ -59,16 +62,39 @@ function invalidField(path: string, message: string): BadRequestException {
   return new BadRequestException({ message: `${path}: ${message}`, code: 'VALIDATION_FAILED', issues: [{ path, message }] });
 }
 
-const siteNotFound = () => new NotFoundException({ message: 'No such site.', code: 'SITE_NOT_FOUND' });
+/** 400 naming `planCalibration` without an uploaded image, or with a point outside the image. */
+function requireCalibrationFits(site: Site, calibration: PlanCalibration): void {
+  if (site.planImageWidthPx === null || site.planImageHeightPx === null) {
+    throw invalidField('planCalibration', 'the site has no plan image: upload one (PUT /api/sites/:id/plan-image), then calibrate it');
+  }
+  for (const key of ['a', 'b'] as const) {
+    const p = calibration[key];
+    if (p.x > site.planImageWidthPx || p.y > site.planImageHeightPx) {
+      throw invalidField(`planCalibration.${key}`, `lies outside the ${site.planImageWidthPx}×${site.planImageHeightPx} px plan image`);
+    }
+  }
+}
 
 /** What a crew lead may change on a site: the plan's frame, which they set up on site. */
 const LEAD_EDITABLE_SITE_FIELDS = new Set(['planCalibration', 'northAzimuthDeg']);
+
+/** Fields of a site that place the jobs' records on the plan: changing one is a geometry write. */
+const GEOMETRY_SITE_FIELDS = new Set(['planCalibration', 'northAzimuthDeg', 'origin']);
+
+/** A site PATCH touching any field that places the jobs' records is a geometry write. */
+export function siteWriteKindOf(input: UpdateSiteInput): SiteWriteKind {
+  return Object.keys(input).some((key) => GEOMETRY_SITE_FIELDS.has(key)) ? 'geometry' : 'details';
+}
+
+const referencePointNotFound = () =>
+  new NotFoundException({ message: 'No such reference point on this site.', code: 'REFERENCE_POINT_NOT_FOUND' });
 
 @Injectable()
 export class SitesService {
   constructor(
     private readonly repository: SitesRepository,
     private readonly audit: AuditService,
+    private readonly writer: SiteWriter,
   ) {}
 
   async list(actor: AuthUser, query: SiteListQuery): Promise<SiteSummaryResponse[]> {
@@ -94,6 +120,7 @@ export class SitesService {
       referencePoints: points.map(toReferencePoint),
       homeowners,
       jobs: jobs.map((j) => ({ ...j, updatedAt: j.updatedAt.toISOString() })),
+      version: site.version,
       createdAt: site.createdAt.toISOString(),
       updatedAt: site.updatedAt.toISOString(),
     };
@@ -125,7 +152,11 @@ export class SitesService {
     });
   }
 
-  async update(actor: AuthUser, id: string, input: UpdateSiteInput): Promise<SiteResponse> {
+  /**
+   * Changes a site on top of `expectedVersion` (SiteWriter): name, address and notes are the office's;
+   * north, origin and plan calibration are geometry (see `canWriteSite`), and bump every open job.
+   */
+  async update(actor: AuthUser, id: string, expectedVersion: number, input: UpdateSiteInput): Promise<SiteResponse & SiteVersionResponse> {
     if (actor.role === 'lead') {
       // A crew lead on site sets the plan's frame (calibration, north); the rest is the office's.
       const refused = Object.keys(input).filter((key) => !LEAD_EDITABLE_SITE_FIELDS.has(key));
@@ -137,29 +168,15 @@ export class SitesService {
         });
       }
     }
-    return this.repository.transaction(async (tx) => {
+    return this.writer.write(actor, id, expectedVersion, siteWriteKindOf(input), async ({ tx, site }) => {
       if (input.customerId) await this.requireCustomer(actor, input.customerId, tx);
-      if (input.planCalibration) await this.requireCalibrationFits(actor, id, input.planCalibration, tx);
-      const site = await this.repository.updateInCompany(actor.companyId, id, toSiteColumns(input), tx);
-      if (!site) throw siteNotFound();
-      await this.record(actor, 'site.update', 'site', id, tx, { fields: Object.keys(input) });
-      return this.get(actor, id, tx);
+      if (input.planCalibration) requireCalibrationFits(site, input.planCalibration);
+      await this.repository.updateInCompany(actor.companyId, id, toSiteColumns(input), tx);
+      return {
+        readAfter: () => this.get(actor, id, tx),
+        audit: { action: 'site.update', targetType: 'site', targetId: id, details: { fields: Object.keys(input) } },
+      };
     });
-  }
-
-  /** 400 naming `planCalibration` without an uploaded image, or with a point outside the image. */
-  private async requireCalibrationFits(actor: AuthUser, id: string, calibration: PlanCalibration, tx: Tx): Promise<void> {
-    const site = await this.repository.lockInCompany(actor.companyId, id, tx);
-    if (!site) throw siteNotFound();
-    if (site.planImageWidthPx === null || site.planImageHeightPx === null) {
-      throw invalidField('planCalibration', 'the site has no plan image: upload one (PUT /api/sites/:id/plan-image), then calibrate it');
-    }
-    for (const key of ['a', 'b'] as const) {
-      const p = calibration[key];
-      if (p.x > site.planImageWidthPx || p.y > site.planImageHeightPx) {
-        throw invalidField(`planCalibration.${key}`, `lies outside the ${site.planImageWidthPx}×${site.planImageHeightPx} px plan image`);
-      }
-    }
   }
 
   /** Refused (409) while the site has jobs: they are its history. */
@@ -181,15 +198,21 @@ export class SitesService {
     if (!(await this.repository.findInCompany(actor.companyId, siteId, tx))) throw siteNotFound();
   }
 
-  async createReferencePoint(actor: AuthUser, siteId: string, input: CreateReferencePointInput): Promise<ReferencePointResponse> {
-    return this.repository.transaction(async (tx) => {
-      await this.requireSite(actor, siteId, tx);
+  async createReferencePoint(
+    actor: AuthUser,
+    siteId: string,
+    expectedVersion: number,
+    input: CreateReferencePointInput,
+  ): Promise<ReferencePointResponse & SiteVersionResponse> {
+    return this.writer.write(actor, siteId, expectedVersion, 'geometry', async ({ tx }) => {
       const row = await this.repository.insertReferencePoint(
         { siteId, label: input.label, x: input.x, y: input.y, notes: input.notes ?? null },
         tx,
       );
-      await this.record(actor, 'site.reference_point.create', 'reference_point', row.id, tx, { siteId });
-      return toReferencePoint(row);
+      return {
+        result: toReferencePoint(row),
+        audit: { action: 'site.reference_point.create', targetType: 'reference_point', targetId: row.id },
+      };
     });
   }
 
@@ -197,25 +220,29 @@ export class SitesService {
    * Moving a reference point moves every item tied to it, on every job of the site: that is the point
    * of reference points (a corrected survey corrects all records).
    */
-  async updateReferencePoint(actor: AuthUser, siteId: string, id: string, input: UpdateReferencePointInput): Promise<ReferencePointResponse> {
-    return this.repository.transaction(async (tx) => {
-      await this.requireSite(actor, siteId, tx);
+  async updateReferencePoint(
+    actor: AuthUser,
+    siteId: string,
+    id: string,
+    expectedVersion: number,
+    input: UpdateReferencePointInput,
+  ): Promise<ReferencePointResponse & SiteVersionResponse> {
+    return this.writer.write(actor, siteId, expectedVersion, 'geometry', async ({ tx }) => {
       const row = await this.repository.updateReferencePoint(siteId, id, input, tx);
-      if (!row) throw new NotFoundException({ message: 'No such reference point on this site.', code: 'REFERENCE_POINT_NOT_FOUND' });
-      await this.record(actor, 'site.reference_point.update', 'reference_point', id, tx, { siteId, fields: Object.keys(input) });
-      return toReferencePoint(row);
+      if (!row) throw referencePointNotFound();
+      return {
+        result: toReferencePoint(row),
+        audit: { action: 'site.reference_point.update', targetType: 'reference_point', targetId: id, details: { fields: Object.keys(input) } },
+      };
     });
   }
 
   /** Refused (409) while an item on any job is tied to the point. */
-  async deleteReferencePoint(actor: AuthUser, siteId: string, id: string): Promise<void> {
+  async deleteReferencePoint(actor: AuthUser, siteId: string, id: string, expectedVersion: number): Promise<SiteVersionResponse> {
     try {
-      await this.repository.transaction(async (tx) => {
-        await this.requireSite(actor, siteId, tx);
-        if (!(await this.repository.deleteReferencePoint(siteId, id, tx))) {
-          throw new NotFoundException({ message: 'No such reference point on this site.', code: 'REFERENCE_POINT_NOT_FOUND' });
-        }
-        await this.record(actor, 'site.reference_point.delete', 'reference_point', id, tx, { siteId });
+      return await this.writer.write(actor, siteId, expectedVersion, 'geometry', async ({ tx }) => {
+        if (!(await this.repository.deleteReferencePoint(siteId, id, tx))) throw referencePointNotFound();
+        return { result: {}, audit: { action: 'site.reference_point.delete', targetType: 'reference_point', targetId: id } };
       });
     } catch (error) {
       if (isForeignKeyViolation(error)) {

@@ -110,6 +110,8 @@ export interface SiteResponse extends SiteSummaryResponse {
   referencePoints: ReferencePointResponse[];
   homeowners: { id: string; name: string; email: string }[];
   jobs: { id: string; title: string; status: string; revision: number; updatedAt: string }[];
+  /** Optimistic lock: send it as `If-Match` with the next write to the site (also the GET's `ETag`). */
+  version: number;
   createdAt: string;
   updatedAt: string;
 }
