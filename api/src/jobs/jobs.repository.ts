@@ -4,6 +4,7 @@ import { alias } from 'drizzle-orm/pg-core';
 
 import { DB, type Db, type Tx } from '../db/db.module.js';
 import {
+  companySettings,
   amplifierChannels,
   commissioningChecks,
   customers,
@@ -30,6 +31,7 @@ import {
   users,
   zones,
 } from '../db/schema/index.js';
+import type { DepthRuleTable } from '../domain/depth/depth-rules.schema.js';
 import type { JobListQuery, JobSortField } from '../domain/jobs/job.schema.js';
 import type { JobRecordRows } from './as-built-rows.js';
 
@@ -157,6 +159,12 @@ export class JobsRepository {
       .where(and(eq(jobs.companyId, companyId), eq(jobs.id, id)))
       .for('update');
     return row;
+  }
+
+  /** The company's own depth rule table, or undefined when it follows the shipped defaults. */
+  async companyDepthRules(companyId: string, tx?: Tx): Promise<DepthRuleTable | undefined> {
+    const [row] = await (tx ?? this.db).select({ depthRules: companySettings.depthRules }).from(companySettings).where(eq(companySettings.companyId, companyId));
+    return row?.depthRules ?? undefined;
   }
 
   async technicians(jobId: string, tx?: Tx): Promise<{ id: string; name: string }[]> {

@@ -207,18 +207,22 @@ export class JobsService {
    * fixed number of queries however large the job is.
    */
   async asBuilt(actor: AuthUser, id: string): Promise<JobAsBuiltResponse> {
-    const { job, rows } = await this.repository.snapshot(async (tx) => {
+    const { job, rows, depthRules } = await this.repository.snapshot(async (tx) => {
       const view = await this.repository.findView(actor.companyId, id, tx);
       if (!view) throw jobNotFound();
       const technicians = await this.repository.technicians(id, tx);
-      return { job: toJobResponse(view, technicians), rows: await this.repository.loadRecord(view.job, tx) };
+      return {
+        job: toJobResponse(view, technicians),
+        rows: await this.repository.loadRecord(view.job, tx),
+        depthRules: await this.repository.companyDepthRules(actor.companyId, tx),
+      };
     });
     const asBuilt = toAsBuilt(rows);
     return {
       job,
       asBuilt,
-      // Company analysis settings (depth rules, loss limit) do not exist yet: the documented defaults apply.
-      analysis: analyzeAsBuilt(asBuilt, {}),
+      // The company's depth rules (Settings → Depth rules); the other analysis options keep their documented defaults.
+      analysis: analyzeAsBuilt(asBuilt, depthRules ? { depthRules } : {}),
       records: {
         depthReadingIds: depthReadingIdsByRun(rows),
         channelSetups: Object.fromEntries(rows.channels.map((c) => [c.id, toChannelSetup(c)])),

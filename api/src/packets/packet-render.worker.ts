@@ -64,7 +64,7 @@ export class PacketRenderWorker extends QueueWorker {
       const [photos, signatureRows, logoDataUri, issuedLocateUrl, planImage] = await Promise.all([
         this.photos.photosFor({ companyId: revision.companyId, jobId: revision.jobId, revisionId }),
         this.repository.signatures(revisionId),
-        this.logo(revision.companyId),
+        this.logo(snapshot.company.logoKey),
         this.repository.locateUrl(revisionId),
         this.planImage(snapshot.site.planImage),
       ]);
@@ -125,11 +125,22 @@ export class PacketRenderWorker extends QueueWorker {
     }
   }
 
-  private async logo(companyId: string): Promise<string | undefined> {
-    const { logoKey } = await this.repository.settings(companyId);
+  /**
+   * The logo frozen in the snapshot at issue time (stored under its SHA-256, never overwritten), so a
+   * re-render prints the logo the revision was issued with. Snapshots from before the company profile
+   * carry no key and print no logo, as they did then.
+   */
+  private async logo(logoKey: string | null | undefined): Promise<string | undefined> {
     if (!logoKey) return undefined;
     const type = LOGO_TYPES[logoKey.split('.').pop()?.toLowerCase() ?? ''];
     if (!type) return undefined;
-    return `data:${type};base64,${(await this.storage.getBuffer(logoKey)).toString('base64')}`;
+    try {
+      return `data:${type};base64,${(await this.storage.getBuffer(logoKey)).toString('base64')}`;
+    } catch (error) {
+      if (!(error instanceof ObjectNotFoundError)) throw error;
+      this.logger.warn(`logo ${logoKey} is no longer stored; the packet is printed without it`);
+      return undefined;
+    }
   }
+
 }

@@ -35,9 +35,30 @@ export interface PacketRevisionResponse {
   renderedAt: string | null;
 }
 
+/** Something the office should know about an issued packet; the packet is issued all the same. */
+export interface IssueWarning {
+  code: 'PACKET_WITHOUT_PHONE';
+  message: string;
+}
+
 export interface IssuePacketResponse extends PacketRevisionResponse {
   /** The job's version after issuing (it is now `issued`). */
   jobVersion: number;
+  /** Warnings about the issued packet (e.g. no contact phone in the company profile). */
+  warnings: IssueWarning[];
+}
+
+/** Warnings for a packet issued with these settings (the profile is copied into the revision as it is). */
+export function issueWarnings(settings: { contactPhone: string | null }): IssueWarning[] {
+  return settings.contactPhone?.trim()
+    ? []
+    : [
+        {
+          code: 'PACKET_WITHOUT_PHONE',
+          message:
+            'The company profile has no phone number, so this packet carries no contact number for the homeowner or whoever digs there. Add one in Settings → Company profile and issue a new revision to print it.',
+        },
+      ];
 }
 
 function toResponse(row: PacketRevisionSummary): PacketRevisionResponse {
@@ -100,7 +121,7 @@ export class PacketsService {
    * lost in between is re-sent when a worker starts.
    */
   async issue(actor: AuthUser, jobId: string, expectedVersion: number): Promise<IssuePacketResponse> {
-    const { revision, jobVersion } = await this.jobs.transaction(async (tx) => {
+    const { revision, jobVersion, warnings } = await this.jobs.transaction(async (tx) => {
       const job = await this.jobs.lock(actor.companyId, jobId, tx);
       if (!job) throw jobNotFound();
       const decision = canIssuePacket({ role: actor.role, userId: actor.id }, job);
@@ -119,13 +140,19 @@ export class PacketsService {
         revision: job.revision,
         issuedAt: issuedAt.toISOString(),
         issuedBy: { id: actor.id, name: (await this.repository.userName(actor.id, tx)) ?? '' },
-        company: { id: actor.companyId, name: await this.repository.companyName(actor.companyId, tx) },
+        // The company profile is copied as it is now, logo key included (logos are never overwritten),
+        // so re-rendering this revision later prints the same name, contact and logo.
+        company: { id: actor.companyId, name: await this.repository.companyName(actor.companyId, tx), logoKey: settings.logoKey },
         settings: {
           paperSize: settings.paperSize,
           units: settings.units,
           licenceNumbers: settings.licenceNumbers,
           contactPhone: settings.contactPhone,
           contactEmail: settings.contactEmail,
+          website: settings.website,
+          postalAddress: settings.postalAddress,
+          timeZone: settings.timeZone,
+          locale: settings.locale,
         },
         job: { id: job.id, title: job.title, startDate: job.startDate, endDate: job.endDate, notes: job.notes },
         site: {
@@ -143,8 +170,8 @@ export class PacketsService {
         crewLead: job.crewLeadUserId && view.crewLeadName !== null ? { id: job.crewLeadUserId, name: view.crewLeadName } : null,
         technicians: await this.jobs.technicians(jobId, tx),
         asBuilt,
-        // Company analysis settings do not exist yet: the documented defaults apply (as GET /as-built).
-        analysis: analyzeAsBuilt(asBuilt, {}),
+        // The company's depth rules (its own table, or the shipped defaults); other options keep their defaults.
+        analysis: analyzeAsBuilt(asBuilt, settings.depthRules ? { depthRules: settings.depthRules } : {}),
         channelSetups: Object.fromEntries(rows.channels.map((c) => [c.id, toChannelSetup(c)])),
       };
       let inserted: PacketRevisionSummary;
@@ -184,13 +211,13 @@ export class PacketsService {
         },
         tx,
       );
-      return { revision: inserted, jobVersion: version };
+      return { revision: inserted, jobVersion: version, warnings: issueWarnings(settings) };
     });
     await this.queue.enqueue({ revisionId: revision.id }).catch((error: unknown) => {
       // The revision is committed and stays queued; a starting worker re-sends it.
       this.logger.error(`packet ${revision.id} issued but not queued: ${error instanceof Error ? error.message : String(error)}`);
     });
-    return { ...toResponse(revision), jobVersion };
+    return { ...toResponse(revision), jobVersion, warnings };
   }
 
   async listForJob(actor: AuthUser, jobId: string): Promise<PacketRevisionResponse[]> {

@@ -12,6 +12,13 @@ export interface PacketSettings {
   licenceNumbers: string[];
   contactPhone: string | null;
   contactEmail: string | null;
+  /** Company profile fields copied at issue time (absent in revisions issued before the profile existed). */
+  website?: string | null;
+  postalAddress?: string | null;
+  /** IANA time zone name of the company, or null when it never chose one. */
+  timeZone?: string | null;
+  /** BCP 47 locale for dates and numbers (default en-US). */
+  locale?: string;
 }
 
 /**
@@ -26,7 +33,15 @@ export interface PacketSnapshot {
   /** ISO timestamp of the issue. */
   issuedAt: string;
   issuedBy: { id: string; name: string } | null;
-  company: { id: string; name: string };
+  company: {
+    id: string;
+    name: string;
+    /**
+     * Storage key of the company logo at issue time (a PNG that is never overwritten), or null without a
+     * logo. Absent in revisions issued before the company profile: those print no logo.
+     */
+    logoKey?: string | null;
+  };
   settings: PacketSettings;
   job: {
     id: string;

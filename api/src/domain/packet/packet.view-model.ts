@@ -221,8 +221,26 @@ function siteAddressLines(site: PacketSnapshot['site']): string[] {
   return [site.addressLine1, site.addressLine2 ?? '', cityLine, site.country].filter((line) => line.trim() !== '');
 }
 
+const present = (v: string | null | undefined): v is string => !!v && v.trim() !== '';
+
+/** The installer's contact as printed: phone, e-mail, website, then the postal address line by line. */
 function contactLines(snapshot: PacketSnapshot): string[] {
-  return [snapshot.settings.contactPhone, snapshot.settings.contactEmail].filter((v): v is string => !!v && v.trim() !== '');
+  const { settings } = snapshot;
+  const address = (settings.postalAddress ?? '').split(/\r?\n/).map((line) => line.trim());
+  return [settings.contactPhone, settings.contactEmail, settings.website, ...address].filter(present);
+}
+
+/** The running footer's left part: the installer's name and phone on every page, then site and revision. */
+function footerText(snapshot: PacketSnapshot, revisionLabel: string, issuedDate: string): string {
+  const phone = snapshot.settings.contactPhone;
+  return [snapshot.company.name, present(phone) ? phone.trim() : null, snapshot.site.label, `${revisionLabel}, ${issuedDate}`].filter(present).join(' · ');
+}
+
+/** The locate page's installer block: who to call first, with the number when the profile has one. */
+function installerContact(snapshot: PacketSnapshot): string[] {
+  const phone = snapshot.settings.contactPhone;
+  const call = present(phone) ? `Call the installer: ${phone.trim()}` : 'Call the installer (no phone number was on file when this packet was issued)';
+  return [snapshot.company.name, call, ...contactLines(snapshot).filter((line) => line !== phone)];
 }
 
 function signatureView(role: 'lead' | 'homeowner', fallbackName: string, signature: PacketSignature | undefined): SignatureView {
@@ -269,7 +287,7 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
   return {
     paper: { size: settings.paperSize, cssSize: isPaperA4 ? 'A4' : 'Letter', name: isPaperA4 ? 'A4' : 'US Letter' },
     units,
-    footerText: `${snapshot.company.name} · ${snapshot.site.label} · ${revisionLabel}, ${issuedDate}`,
+    footerText: footerText(snapshot, revisionLabel, issuedDate),
     documentTitle: `Handover packet — ${snapshot.job.title} — ${revisionLabel}`,
     cover: {
       companyName: snapshot.company.name,
@@ -480,7 +498,7 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
       steps: LOCATE_STEPS.map((s) => ({ title: s.title, body: fillZone(s.body) })),
       toleranceZone,
       oneCall: `${ONE_CALL_US.phone} · ${ONE_CALL_US.website}`,
-      installerContact: [snapshot.company.name, ...contactLines(snapshot)],
+      installerContact: installerContact(snapshot),
       privateNote: 'One-call locators do not mark the cables of this installation: they are private lines.',
     },
     cautions: SAFETY_CAUTIONS.map((c) => ({ title: c.title, body: fillZone(c.body) })),
