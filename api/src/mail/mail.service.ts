@@ -5,6 +5,7 @@ import nodemailer, { type Transporter } from 'nodemailer';
 import type { Env } from '../config/env.schema.js';
 import { LocalSmtpServer } from './local-smtp.server.js';
 import { type MailTemplateName, MailTemplates } from './mail-templates.js';
+import { type MailSender, senderFrom } from './sender.js';
 
 export interface OutgoingMail {
   template: MailTemplateName;
@@ -14,6 +15,8 @@ export interface OutgoingMail {
   companyId: string | null;
   data: Record<string, unknown>;
   attachments?: { filename: string; content: Buffer; contentType: string }[];
+  /** Sent on behalf of a company: its name on From, its e-mail as Reply-To (packet e-mails). */
+  sender?: MailSender;
 }
 
 /** Sends templated mail over SMTP: to SMTP_URL when set, otherwise to the local capture server. */
@@ -33,7 +36,8 @@ export class MailService {
     const rendered = this.templates.render(mail.template, mail.data);
     const transport = await this.getTransport();
     const info = await transport.sendMail({
-      from: this.config.get('MAIL_FROM', { infer: true }),
+      from: mail.sender ? senderFrom(this.config.get('MAIL_FROM', { infer: true }), mail.sender) : this.config.get('MAIL_FROM', { infer: true }),
+      ...(mail.sender?.replyTo ? { replyTo: mail.sender.replyTo } : {}),
       to: mail.to,
       cc: mail.cc,
       subject: rendered.subject,
