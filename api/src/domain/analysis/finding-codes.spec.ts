@@ -234,7 +234,7 @@ const SCENARIOS: Record<FindingCode, Scenario> = {
     says: ['85 W', '100 W', '85 %', '80 %'],
   },
   CV_OVERLOAD: {
-    // 110 W of taps on a 100 W output: more than it can deliver (QSL handbook: taps must not exceed the amplifier).
+    // 110 W of taps on a 100 W output: more than it can deliver ([CVH]: taps must not exceed the amplifier).
     build: () => cvLine(Array<number>(11).fill(10)),
     severity: 'critical',
     path: ['items', 0],

@@ -14,7 +14,7 @@ const amp: AmplifierItem = {
 };
 
 describe(ratedOutputVoltage.name, () => {
-  // FUZ: the maximum output voltage of a 400 W @ 8 Ω amplifier is √(400·8) = 56.6 V.
+  // [CVN]: the maximum output voltage of a 400 W @ 8 Ω amplifier is √(400·8) = 56.6 V.
   it.each([
     [8, 56.5685, 'rated_8_ohm'],
     [16, 56.5685, 'rated_8_ohm'],
