@@ -23,7 +23,7 @@ const tri = JSON.parse(
 const pt = ([x, y]: [number, number]) => ({ x, y });
 
 describe(intersectCircles.name, () => {
-  // Paul Bourke, "Intersection of two circles" (1997) and the exact cases of docs/reference.md §7.
+  // [BRK] "Intersection of two circles" (1997) and the exact cases of docs/reference.md §6.
   it.each(tri.cases.filter((c) => c.status === 'two points').map((c) => [c.name, c] as const))(
     'should intersect "%s" at both published points',
     (_name, c) => {

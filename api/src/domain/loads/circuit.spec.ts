@@ -16,7 +16,7 @@ const textbook = JSON.parse(
 ) as LoadsFixture;
 
 describe(parallelOhm.name, () => {
-  // Textbook series/parallel combinations (docs/reference.md §2.1, loads_textbook.json).
+  // Textbook series/parallel combinations ([ECT], docs/reference.md §3, loads_textbook.json).
   it.each([
     ['DVC 2×8 Ω coils in parallel', parallelOhm([8, 8]), textbook.loads_ohm['dvc_2x8_parallel']],
     ['DVC 2×8 Ω coils in series', seriesOhm([8, 8]), textbook.loads_ohm['dvc_2x8_series']],
