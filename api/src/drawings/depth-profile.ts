@@ -5,7 +5,7 @@ import type { AsBuilt } from '../domain/as-built/as-built.schema.js';
 import type { DrawingBaseOptions } from './drawing-options.js';
 import { depthUnitSymbol, formatDepth, formatNumber, lengthUnitSymbol, niceStep, toAxisDepthUnit, toAxisLengthUnit, type UnitSystem } from './drawing-units.js';
 import { lineObstacles, placeLabels, pointLabelCandidates, type LabelRequest } from './label-placement.js';
-import { CABLE_ORANGE } from './site-plan-symbols.js';
+import { PAPER, RUN_ORANGE, SHALLOW_ZONE_FILL, WARNING_INK } from './marking-palette.js';
 import { addText, pointsAttr, r2 } from './svg-canvas.js';
 import { BASELINE_EM, LABEL_PAD_PT, labelSize, LINE_HEIGHT_EM, type Box } from './text-box.js';
 
@@ -83,7 +83,7 @@ export function drawDepthProfile(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, ru
     canvas
       .rect(r2(plot.right - plot.left), r2(sy(minCover) - plot.top))
       .attr({ x: r2(plot.left), y: r2(plot.top), 'data-role': 'shallow-zone' })
-      .fill('#fbe4e1');
+      .fill(SHALLOW_ZONE_FILL);
   }
   const stepX = niceStep(spanX, 5);
   for (let v = 0; v <= spanX + 1e-9; v += stepX) {
@@ -112,7 +112,7 @@ export function drawDepthProfile(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, ru
   addText(grade, 'grade', plot.left - 4, plot.top + 2, { size: 5.5, anchor: 'end' });
 
   const pts = readings.map((r) => ({ x: sx(r.stationM), y: sy(r.depthM) }));
-  canvas.polyline(pointsAttr(pts)).fill('none').stroke({ color: CABLE_ORANGE, width: 1.2, linejoin: 'round' }).attr('data-role', 'profile');
+  canvas.polyline(pointsAttr(pts)).fill('none').stroke({ color: RUN_ORANGE, width: 1.2, linejoin: 'round' }).attr('data-role', 'profile');
 
   // Texts on the plot (required cover, shallow depths) go through the same placement as the site plan.
   const requests: (LabelRequest & { text: string[]; fill: string; role: string })[] = [];
@@ -122,7 +122,7 @@ export function drawDepthProfile(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, ru
     const y = sy(minCover);
     coverGroup = canvas.group().attr({ 'data-role': 'required-cover', 'data-min-cover-m': minCover });
     coverGroup.element('title').words(depth.rule.source);
-    coverGroup.line(r2(plot.left), r2(y), r2(plot.right), r2(y)).stroke({ color: '#8e1b10', width: 0.8 }).attr('stroke-dasharray', '4 2');
+    coverGroup.line(r2(plot.left), r2(y), r2(plot.right), r2(y)).stroke({ color: WARNING_INK, width: 0.8 }).attr('stroke-dasharray', '4 2');
     const text = [`required cover ${formatDepth(minCover, units)}`, `(${BASIS_TEXT[depth.rule.basis]})`];
     const size = labelSize(text, FONT);
     const above = y - size.height / 2 - 0.5;
@@ -132,7 +132,7 @@ export function drawDepthProfile(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, ru
     requests.push({
       id: 'cover',
       text,
-      fill: '#8e1b10',
+      fill: WARNING_INK,
       role: 'required-cover-label',
       ...size,
       priority: 4,
@@ -158,15 +158,15 @@ export function drawDepthProfile(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, ru
     const attrs = { 'data-station-m': reading.stationM, 'data-depth-m': reading.depthM, 'data-shallow': String(isShallow) };
     if (isShallow) {
       marks.polygon(pointsAttr([{ x: x - 3.6, y: y - 3 }, { x: x + 3.6, y: y - 3 }, { x, y: y + 3.6 }]))
-        .fill('#c0392b')
-        .stroke({ color: '#000000', width: 0.5 })
+        .fill(WARNING_INK)
+        .stroke({ color: PAPER, width: 0.5 })
         .attr(attrs);
       const text = [`${formatDepth(reading.depthM, units)} shallow`];
       const size = labelSize(text, FONT);
       requests.push({
         id: `shallow:${index}`,
         text,
-        fill: '#8e1b10',
+        fill: WARNING_INK,
         role: 'shallow-label',
         ...size,
         priority: 3,

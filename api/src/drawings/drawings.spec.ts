@@ -309,9 +309,10 @@ describe('drawDepthProfile', () => {
     expect(readings.length).toBe(3);
     const shallow = readings.filter((r) => r.getAttribute('data-shallow') === 'true');
     expect(shallow.map((r) => r.getAttribute('data-station-m'))).toEqual(['3']);
-    // Shape and colour both differ: a red triangle against white circles.
+    // Shape and fill both differ: a black triangle against white circles (no marking colour: APWA
+    // uniform colour code, CGA Best Practices, gives red to electric power).
     expect(shallow[0]!.tagName).toBe('polygon');
-    expect(shallow[0]!.getAttribute('fill')).toBe('#c0392b');
+    expect(shallow[0]!.getAttribute('fill')).toBe('#000000');
     expect(readings.filter((r) => r.getAttribute('data-shallow') === 'false').every((r) => r.tagName === 'circle')).toBe(true);
     expect(doc.querySelector('[data-role="shallow-label"]')?.textContent).toBe('4 1/4 in shallow');
   });

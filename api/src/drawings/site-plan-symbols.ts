@@ -4,6 +4,7 @@ import type { ItemKind } from '../domain/as-built/item.schema.js';
 import type { InstallMethod } from '../domain/as-built/run.schema.js';
 import { pointsAttr, r2 } from './svg-canvas.js';
 import type { Point } from './text-box.js';
+import { FEATURE_FILL, FEATURE_STROKE, LEADER_INK, PAPER, REFERENCE_INK, RUN_ORANGE, RUN_STROKES, WARNING_INK } from './marking-palette.js';
 
 /**
  * Our own symbols, told apart by shape (not colour) so they survive greyscale printing. Each is drawn
@@ -65,65 +66,35 @@ export function drawReferenceSymbol(parent: Container, p: Point): Container {
   return g;
 }
 
-/** Marks a shallow depth reading: an inverted filled triangle (shape and colour both say "warning"). */
+/** Marks a shallow depth reading: an inverted black triangle with a white bar (shape says "warning"; no marking colour). */
 export function drawShallowMarker(parent: Container, p: Point): Container {
   const g = parent.group();
   g.polygon(pointsAttr([{ x: p.x - 4.5, y: p.y - 4 }, { x: p.x + 4.5, y: p.y - 4 }, { x: p.x, y: p.y + 4 }]))
-    .fill('#c0392b')
-    .stroke({ color: '#000000', width: 0.6 });
-  g.rect(0.9, 3).attr({ x: r2(p.x - 0.45), y: r2(p.y - 3.3) }).fill('#ffffff');
+    .fill(WARNING_INK)
+    .stroke({ color: PAPER, width: 0.6 });
+  g.rect(0.9, 3).attr({ x: r2(p.x - 0.45), y: r2(p.y - 3.3) }).fill(PAPER);
   return g;
 }
 
-/** Utility-marking orange (APWA uniform colour code: communications / signal cable). */
-export const CABLE_ORANGE = '#d35400';
-const GREY = '#6b6b6b';
+/** Kept for callers that name the cable colour: the palette's run orange. */
+export const CABLE_ORANGE = RUN_ORANGE;
 
 /**
- * Draws a run as one or more stacked strokes. Line style, not only colour, tells the kinds apart:
- * direct burial solid; conduit a double line; sleeve under hardscape a double line with a dotted core;
- * indoor a thin dash-dot; spare long dashes; abandoned thin grey with crosses; a run whose route was not
- * recorded is dotted.
+ * Draws a run as one stroke (plus crosses for an abandoned run). Every run is orange (APWA: signal
+ * cable); weight and dash pattern (marking-palette.ts, RUN_STROKES) tell the kinds apart.
  */
 export function drawRunLine(parent: Container, style: InstallMethod | 'spare' | 'abandoned', points: readonly Point[], isRouteRecorded: boolean): Container {
   const g = parent.group();
   const attr = pointsAttr(points);
-  const stroke = (color: string, width: number, dash?: string): void => {
-    const line = g.polyline(attr).fill('none').stroke({ color, width, linecap: 'butt', linejoin: 'round' });
-    if (dash !== undefined) line.attr('stroke-dasharray', dash);
-  };
-  if (!isRouteRecorded) {
-    const color = style === 'abandoned' || style === 'indoor' ? GREY : CABLE_ORANGE;
-    stroke(color, 1.2, '1.2 2.4');
-    return g;
-  }
-  switch (style) {
-    case 'direct_burial':
-      stroke(CABLE_ORANGE, 1.6);
-      break;
-    case 'conduit':
-      stroke(CABLE_ORANGE, 3.6);
-      stroke('#ffffff', 1.6);
-      break;
-    case 'under_hardscape_sleeve':
-      stroke(CABLE_ORANGE, 4.2);
-      stroke('#ffffff', 2.4);
-      stroke(CABLE_ORANGE, 0.8, '1.5 1.5');
-      break;
-    case 'indoor':
-      stroke(GREY, 0.9, '6 2 1.5 2');
-      break;
-    case 'spare':
-      stroke(CABLE_ORANGE, 1.4, '7 3');
-      break;
-    case 'abandoned': {
-      stroke(GREY, 0.8);
-      for (const c of crossesAlong(points, 14)) {
-        g.path(`M${r2(c.x - 2.2)} ${r2(c.y - 2.2)}L${r2(c.x + 2.2)} ${r2(c.y + 2.2)}M${r2(c.x - 2.2)} ${r2(c.y + 2.2)}L${r2(c.x + 2.2)} ${r2(c.y - 2.2)}`)
-          .fill('none')
-          .stroke({ color: GREY, width: 0.8 });
-      }
-      break;
+  const spec = isRouteRecorded ? RUN_STROKES[style] : RUN_STROKES.route_not_recorded;
+  const line = g.polyline(attr).fill('none').stroke({ color: spec.color, width: spec.width, linecap: spec.linecap, linejoin: 'round' }).attr('data-role', 'run-stroke');
+  if (spec.dash !== undefined) line.attr('stroke-dasharray', spec.dash);
+  if (isRouteRecorded && spec.crossesEvery !== undefined) {
+    for (const c of crossesAlong(points, spec.crossesEvery)) {
+      g.path(`M${r2(c.x - 2.2)} ${r2(c.y - 2.2)}L${r2(c.x + 2.2)} ${r2(c.y + 2.2)}M${r2(c.x - 2.2)} ${r2(c.y + 2.2)}L${r2(c.x + 2.2)} ${r2(c.y - 2.2)}`)
+        .fill('none')
+        .stroke({ color: spec.color, width: spec.width })
+        .attr('data-role', 'run-stroke');
     }
   }
   return g;
@@ -156,7 +127,7 @@ export function drawTieLine(parent: Container, from: Point, to: Point): Containe
   const uy = (to.y - from.y) / length;
   const a = { x: from.x + ux * 6.5, y: from.y + uy * 6.5 };
   const b = { x: to.x - ux * 6.5, y: to.y - uy * 6.5 };
-  const color = '#3b5b8c';
+  const color = REFERENCE_INK;
   g.line(r2(a.x), r2(a.y), r2(b.x), r2(b.y)).stroke({ color, width: 0.45 }).attr('stroke-dasharray', '5 1.5 1 1.5');
   const head = (tip: Point, dx: number, dy: number): void => {
     const back = { x: tip.x - dx * 4, y: tip.y - dy * 4 };
@@ -176,6 +147,6 @@ export function drawAccuracyCircle(parent: Container, centre: Point, radiusPt: n
   g.circle(r2(2 * radiusPt))
     .attr({ cx: r2(centre.x), cy: r2(centre.y), 'stroke-dasharray': '2.5 1.8' })
     .fill('none')
-    .stroke({ color: '#3b5b8c', width: 0.7 });
+    .stroke({ color: LEADER_INK, width: 0.7 });
   return g;
 }

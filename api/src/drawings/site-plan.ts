@@ -10,31 +10,12 @@ import { BASELINE_EM, LABEL_PAD_PT, LINE_HEIGHT_EM, wrapText, type Box } from '.
 import { layoutSitePlan, type RunStyleKey, type SitePlanModel } from './site-plan-layout.js';
 import { drawAccuracyCircle, drawItemSymbol, drawReferenceSymbol, drawRunLine, drawShallowMarker, drawTieLine } from './site-plan-symbols.js';
 import { addText, r2 } from './svg-canvas.js';
+import { LEADER_INK, MARKING_LEGEND, REFERENCE_INK, type LegendKey } from './marking-palette.js';
 
 export const SITE_PLAN_NOTE = 'Positions are as recorded; verify by hand-digging before any excavation.';
 const LOCATE_NOTE = 'Private low-voltage lines are not marked by public one-call locating services.';
 
-type LegendKey = ItemKind | 'reference_point' | 'tie' | 'accuracy' | `run:${RunStyleKey}` | 'route_not_recorded' | 'shallow';
-
-const LEGEND: readonly { key: LegendKey; text: string }[] = [
-  { key: 'amplifier', text: 'Amplifier' },
-  { key: 'speaker', text: 'Speaker' },
-  { key: 'subwoofer', text: 'Subwoofer' },
-  { key: 'junction', text: 'Splice / junction box' },
-  { key: 'spare_end', text: 'Spare cable end' },
-  { key: 'wall_entry', text: 'Wall entry' },
-  { key: 'reference_point', text: 'Reference point' },
-  { key: 'tie', text: 'Tie (taped distance)' },
-  { key: 'accuracy', text: 'Possible position (tie accuracy)' },
-  { key: 'run:direct_burial', text: 'Direct-burial cable' },
-  { key: 'run:conduit', text: 'Cable in conduit' },
-  { key: 'run:under_hardscape_sleeve', text: 'Sleeve under paving' },
-  { key: 'run:indoor', text: 'Indoor, not buried' },
-  { key: 'run:spare', text: 'Spare run' },
-  { key: 'run:abandoned', text: 'Abandoned run' },
-  { key: 'route_not_recorded', text: 'Route not recorded' },
-  { key: 'shallow', text: 'Shallow depth reading' },
-];
+const LEGEND = MARKING_LEGEND;
 
 /** Keys of the legend entries the model actually draws, in legend order. */
 export function sitePlanLegendKeys(model: SitePlanModel): LegendKey[] {
@@ -113,8 +94,8 @@ export function renderSitePlan(model: SitePlanModel, options: SitePlanOptions): 
     if (label.leader !== null) {
       labels
         .line(r2(label.leader.from.x), r2(label.leader.from.y), r2(label.leader.to.x), r2(label.leader.to.y))
-        .stroke({ color: '#333333', width: 0.5 });
-      labels.circle(2).attr({ cx: r2(label.leader.from.x), cy: r2(label.leader.from.y) }).fill('#333333');
+        .stroke({ color: LEADER_INK, width: 0.5 });
+      labels.circle(2).attr({ cx: r2(label.leader.from.x), cy: r2(label.leader.from.y) }).fill(LEADER_INK);
     }
   }
   for (const label of model.labels) {
@@ -130,7 +111,7 @@ export function renderSitePlan(model: SitePlanModel, options: SitePlanOptions): 
         halo: true,
         weight: label.kind === 'item' || (label.kind === 'run' && i === 0) ? 'bold' : 'normal',
         italic: label.kind === 'reference',
-        fill: isTie ? '#3b5b8c' : '#000000',
+        fill: REFERENCE_INK,
       });
     });
   }
@@ -192,6 +173,7 @@ function drawBand(canvas: Svg, model: SitePlanModel, info: TitleBlockInfo): void
 function drawLegend(canvas: Svg, model: SitePlanModel, box: Box): void {
   const g = canvas.group().attr('data-layer', 'legend');
   addText(g, 'Legend', box.x + 6, box.y + 12, { size: 8, weight: 'bold' });
+  addText(g, 'Orange: buried signal cable (APWA colour code)', box.x + 40, box.y + 12, { size: 6.5 }).attr('data-role', 'colour-key');
   const keys = sitePlanLegendKeys(model);
   const rowH = 11;
   const rowsPerColumn = Math.max(1, Math.floor((box.height - 22) / rowH));

@@ -9,6 +9,7 @@ import type { Item } from '../domain/as-built/item.schema.js';
 import type { DrawingBaseOptions } from './drawing-options.js';
 import { formatNumber } from './drawing-units.js';
 import { printableArea, type Orientation, type PaperSize } from './paper.js';
+import { PAPER, RUN_ORANGE, WARNING_INK } from './marking-palette.js';
 import { addText, pointsAttr, r2 } from './svg-canvas.js';
 import { BASELINE_EM, LINE_HEIGHT_EM, textWidth, wrapText } from './text-box.js';
 
@@ -268,18 +269,18 @@ function drawBadge(parent: Container, badge: Badge, x: number, y: number): void 
   const c = { x: x + BADGE / 2, y: y + BADGE / 2 };
   const h = BADGE / 2;
   if (badge.severity === 'critical') {
-    // Octagon, filled dark red: "stop".
+    // Octagon, filled black: "stop" (shape, not a marking colour).
     const pts = Array.from({ length: 8 }, (_, i) => {
       const a = ((i * 45 + 22.5) * Math.PI) / 180;
       return { x: c.x + Math.cos(a) * h * 1.08, y: c.y + Math.sin(a) * h * 1.08 };
     });
-    g.polygon(pointsAttr(pts)).fill('#a01c10').stroke({ color: '#000000', width: 0.5 });
+    g.polygon(pointsAttr(pts)).fill(WARNING_INK).stroke({ color: WARNING_INK, width: 0.5 });
     addText(g, String(badge.number), c.x, c.y + 2.3, { size: 6, anchor: 'middle', weight: 'bold', fill: '#ffffff' });
   } else if (badge.severity === 'warning') {
-    // Triangle, amber with a black outline.
+    // Triangle, white with a heavy black outline.
     g.polygon(pointsAttr([{ x: c.x, y: c.y - h - 0.8 }, { x: c.x + h + 0.8, y: c.y + h }, { x: c.x - h - 0.8, y: c.y + h }]))
-      .fill('#f3b61f')
-      .stroke({ color: '#000000', width: 0.6 });
+      .fill(PAPER)
+      .stroke({ color: WARNING_INK, width: 1.1 });
     addText(g, String(badge.number), c.x, c.y + 3, { size: 5.5, anchor: 'middle', weight: 'bold' });
   } else {
     g.circle(BADGE).attr({ cx: r2(c.x), cy: r2(c.y) }).fill('#ffffff').stroke({ color: '#000000', width: 0.6 });
@@ -370,7 +371,12 @@ export async function drawWiringSchematic(asBuilt: AsBuilt, analysis: AsBuiltAna
       const g = root.group().attr({ 'data-id': edge.runId, 'data-kind': 'run', 'data-edge': edge.id, 'data-dead': String(edge.isDead) });
       for (const section of elkEdge.sections ?? []) {
         const pts = [section.startPoint, ...(section.bendPoints ?? []), section.endPoint];
-        const line = g.polyline(pointsAttr(pts)).fill('none').stroke({ color: edge.isDead ? '#6b6b6b' : '#000000', width: 0.9 });
+        // Runs in the palette's orange (APWA: signal cable); a run carrying no channel is thinner and dashed.
+        const line = g
+          .polyline(pointsAttr(pts))
+          .fill('none')
+          .stroke({ color: RUN_ORANGE, width: edge.isDead ? 0.8 : 1.2 })
+          .attr('data-role', 'run-stroke');
         if (edge.isDead) line.attr('stroke-dasharray', '4 2.5');
         const end = pts[pts.length - 1]!;
         const prev = pts[pts.length - 2]!;
@@ -378,7 +384,7 @@ export async function drawWiringSchematic(asBuilt: AsBuilt, analysis: AsBuiltAna
         const ux = (end.x - prev.x) / len;
         const uy = (end.y - prev.y) / len;
         g.polygon(pointsAttr([end, { x: end.x - ux * 4 - uy * 1.8, y: end.y - uy * 4 + ux * 1.8 }, { x: end.x - ux * 4 + uy * 1.8, y: end.y - uy * 4 - ux * 1.8 }])).fill(
-          edge.isDead ? '#6b6b6b' : '#000000',
+          RUN_ORANGE,
         );
       }
       const label = elkEdge.labels?.[0];

@@ -9,6 +9,7 @@ import { buildPacketViewModel, type PacketViewModel, type PacketViewModelInput }
 import type { PacketSnapshot } from '../domain/packet/packet-snapshot.js';
 import type { PlanImage } from '../drawings/drawing-options.js';
 import { drawJobDepthProfile, drawJobSchematic, drawJobSitePlan, jobTitleBlock } from '../drawings/job-drawings.js';
+import { COLOUR_KEY_NOTE, RUN_ORANGE } from '../drawings/marking-palette.js';
 import { createNodeSvgCanvas } from '../drawings/node-svg-window.js';
 import { type ChromiumPrinter } from './chromium-printer.js';
 import { readPdfOutline } from './pdf-destinations.js';
@@ -136,6 +137,8 @@ function renderTemplate(a: PacketAssets, vm: PacketViewModel, parts: PacketHtmlP
   return a.template({
     vm,
     drawings: parts.drawings,
+    // The palette's run orange and colour sentence (APWA uniform colour code, via CGA Best Practices).
+    marking: { run: RUN_ORANGE, colourKey: COLOUR_KEY_NOTE },
     assets: {
       fontFaceCss: a.fontFaceCss,
       printCss: a.printCss,

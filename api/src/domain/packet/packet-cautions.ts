@@ -18,7 +18,9 @@
  *   no underground wiring within 5 ft horizontally unless it serves the pool; 680.22 receptacle and
  *   luminaire distances; 680.26 equipotential bonding); audio equipment near pools is addressed by
  *   640.10. Editions and local adoption differ: verify with the authority having jurisdiction.
- * - Colour of paint marks: APWA Uniform Color Code (CGA Best Practices Appendix B).
+ * - Colour of paint marks: APWA Uniform Color Code (CGA Best Practices Appendix B): orange for
+ *   communication, alarm and signal lines (our speaker and signal cable), white for the limits of a
+ *   proposed excavation. The drawings' palette (drawings/marking-palette.ts) follows the same code.
  */
 
 export interface CautionText {
@@ -76,7 +78,11 @@ export const LOCATE_STEPS: readonly CautionText[] = [
   },
   {
     title: 'Mark the routes on the ground',
-    body: 'Measure from the reference points using the ties on the plan, and mark each route with white paint or flags before any digging starts.',
+    body: 'Measure from the reference points using the ties on the plan, and mark each cable route with orange paint or flags (orange is the marking colour for signal and communication cable) before any digging starts.',
+  },
+  {
+    title: 'Outline the dig area in white',
+    body: 'Outline the area you plan to dig with white paint or flags (white marks a proposed excavation). Never mark these cable routes in white.',
   },
   {
     title: 'Dig by hand near a route',

@@ -98,6 +98,9 @@ function Cautions({ view }: { view: LocateViewResponse }) {
           <Text weight="semibold">Hand-dig within {zone} of any line on this map.</Text>
         </li>
         <li>
+          <Text weight="semibold">Mark each cable route on the ground with orange paint or flags; outline the planned dig area in white.</Text>
+        </li>
+        <li>
           <Text weight="semibold">
             Depths are as installed. Grading, landscaping and settling since then change them: expect cables shallower
             than shown.

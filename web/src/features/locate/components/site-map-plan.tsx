@@ -2,7 +2,43 @@ import { makeStyles, tokens } from '@fluentui/react-components';
 import { useId } from 'react';
 import type { SiteMap } from '@domain/locate/site-map.schema';
 
+import { PAPER, REFERENCE_INK, RUN_STROKES, scaleDash, type LegendKey, type RunStyleKey } from '@drawings/marking-palette';
+
+import { MarkingLegend } from '../../../components/marking-legend';
 import { formatLength, type LengthSystem } from '../../../lib/units';
+
+/** Screen pixels per print point for run strokes (as the plan editor). */
+const SCREEN_SCALE = 1.9;
+
+type MapRun = SiteMap['runs'][number];
+
+export function runStyleKey(run: Pick<MapRun, 'isAbandoned' | 'isSpare' | 'method'>): RunStyleKey {
+  return run.isAbandoned ? 'abandoned' : run.isSpare ? 'spare' : run.method;
+}
+
+/** The legend entries this map draws, in legend order. */
+export function siteMapLegendKeys(map: SiteMap): LegendKey[] {
+  const keys = new Set<LegendKey>();
+  for (const run of map.runs) {
+    if (!run.route || run.route.length < 2) continue;
+    keys.add(run.isRouteDrawn ? `run:${runStyleKey(run)}` : 'route_not_recorded');
+  }
+  if (map.items.some((i) => i.position !== null && i.kind === 'wall_entry')) keys.add('wall_entry');
+  if (map.referencePoints.length > 0) keys.add('reference_point');
+  const order: LegendKey[] = [
+    'run:direct_burial',
+    'run:conduit',
+    'run:under_hardscape_sleeve',
+    'run:indoor',
+    'run:spare',
+    'run:abandoned',
+    'route_not_recorded',
+    'wall_entry',
+    'reference_point',
+    'feature',
+  ];
+  return order.filter((k) => keys.has(k));
+}
 
 const useStyles = makeStyles({
   figure: { margin: 0, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
@@ -96,6 +132,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun }: SiteMapP
   const viewBox = [b.minX - pad, -b.maxY - pad, b.maxX - b.minX + pad * 2, b.maxY - b.minY + pad * 2].join(' ');
   // In the top-right margin, clear of the drawing.
   const arrowAt = { x: b.maxX + pad * 0.65, y: -b.maxY - pad * 0.55 };
+  const legendKeys = siteMapLegendKeys(map);
   const labelOf = (id: string) => map.items.find((item) => item.id === id)?.label;
 
   return (
@@ -112,7 +149,8 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun }: SiteMapP
           const route = run.route!;
           const { point, angleDeg } = midpointOf(route);
           const selected = run.id === selectedRunId;
-          const colour = run.isAbandoned ? tokens.colorNeutralForeground3 : run.isSpare ? tokens.colorPaletteMarigoldForeground2 : tokens.colorPaletteRedForeground2;
+          // Every run orange (APWA uniform colour code: signal cable); weight and dash tell the kinds apart.
+          const spec = !run.isRouteDrawn ? RUN_STROKES.route_not_recorded : RUN_STROKES[runStyleKey(run)];
           return (
             <g
               key={run.id}
@@ -125,10 +163,11 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun }: SiteMapP
               <polyline
                 points={route.map((p) => `${sx(p.x)},${sy(p.y)}`).join(' ')}
                 fill="none"
-                stroke={colour}
-                strokeWidth={selected ? 6 : 3.5}
-                strokeDasharray={run.isAbandoned ? '6 4' : run.method === 'conduit' ? '10 3' : undefined}
-                strokeLinecap="round"
+                stroke={spec.color}
+                strokeWidth={Math.max(spec.width * SCREEN_SCALE, 1.5) * (selected ? 1.8 : 1)}
+                strokeDasharray={scaleDash(spec.dash, SCREEN_SCALE)}
+                strokeLinecap={spec.linecap}
+                data-role="run-stroke"
                 strokeLinejoin="round"
                 vectorEffect="non-scaling-stroke"
               />
@@ -153,8 +192,15 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun }: SiteMapP
         })}
         {map.referencePoints.map((p) => (
           <g key={`ref-${p.id}`} aria-label={`Reference point ${p.label}`}>
-            <rect x={sx(p.x) - font * 0.4} y={sy(p.y) - font * 0.4} width={font * 0.8} height={font * 0.8} fill={tokens.colorPaletteBlueBorderActive} />
-            <text x={sx(p.x) + font * 0.6} y={sy(p.y) + font * 0.35} fontSize={font * 0.9} fill={tokens.colorPaletteBlueForeground2}>
+            {/* A survey-style ring with a cross, in black (never a marking colour). */}
+            <circle cx={sx(p.x)} cy={sy(p.y)} r={font * 0.3} fill={PAPER} stroke={REFERENCE_INK} strokeWidth={font * 0.08} />
+            <path
+              d={`M ${sx(p.x) - font * 0.5} ${sy(p.y)} H ${sx(p.x) + font * 0.5} M ${sx(p.x)} ${sy(p.y) - font * 0.5} V ${sy(p.y) + font * 0.5}`}
+              stroke={REFERENCE_INK}
+              strokeWidth={font * 0.08}
+              data-role="reference-stroke"
+            />
+            <text x={sx(p.x) + font * 0.6} y={sy(p.y) + font * 0.35} fontSize={font * 0.9} fill={REFERENCE_INK}>
               {p.label}
             </text>
           </g>
@@ -165,12 +211,14 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun }: SiteMapP
           return (
             <g key={`item-${item.id}`} aria-label={isWall ? `Wall entry ${item.label}` : item.label}>
               {isWall ? (
-                <path
-                  d={`M ${sx(p.x)} ${sy(p.y) - font * 0.6} L ${sx(p.x) + font * 0.6} ${sy(p.y)} L ${sx(p.x)} ${sy(p.y) + font * 0.6} L ${sx(p.x) - font * 0.6} ${sy(p.y)} Z`}
-                  fill={tokens.colorPaletteDarkOrangeBackground3}
-                  stroke={tokens.colorNeutralForeground1}
-                  strokeWidth={font * 0.08}
-                />
+                <g>
+                  {/* As printed: a square half filled along its diagonal (a sleeve through a wall). */}
+                  <rect x={sx(p.x) - font * 0.45} y={sy(p.y) - font * 0.45} width={font * 0.9} height={font * 0.9} fill={PAPER} stroke={REFERENCE_INK} strokeWidth={font * 0.08} />
+                  <path
+                    d={`M ${sx(p.x) - font * 0.45} ${sy(p.y) - font * 0.45} L ${sx(p.x) - font * 0.45} ${sy(p.y) + font * 0.45} L ${sx(p.x) + font * 0.45} ${sy(p.y) + font * 0.45} Z`}
+                    fill={REFERENCE_INK}
+                  />
+                </g>
               ) : (
                 <circle cx={sx(p.x)} cy={sy(p.y)} r={font * 0.35} fill={tokens.colorNeutralForeground1} />
               )}
@@ -182,11 +230,8 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun }: SiteMapP
         })}
       </svg>
       <figcaption className={styles.legend}>
-        <span>Red line: cable run, labelled with its shallowest recorded depth</span>
-        <span>Amber: spare</span>
-        <span>Dashed grey: abandoned</span>
-        <span>Diamond: wall entry</span>
-        <span>Blue square: reference point</span>
+        <MarkingLegend keys={legendKeys} />
+        <span>Each run is labelled with its shallowest recorded depth.</span>
         {runs.length < map.runs.length && (
           <span>
             {map.runs.length - runs.length} run(s) without a known route:{' '}

@@ -5,6 +5,7 @@ import { zoom, zoomIdentity, type ZoomBehavior, type ZoomTransform } from 'd3-zo
 import { useCallback, useEffect, useLayoutEffect, useRef, useState, type MouseEvent as ReactMouseEvent, type PointerEvent as ReactPointerEvent, type ReactNode } from 'react';
 import type { PlanPoint } from '@domain/as-built/common.schema';
 import type { ItemKind } from '@domain/as-built/item.schema';
+import { LEADER_INK, REFERENCE_INK } from '@drawings/marking-palette';
 
 import { layoutLabels, type PlacedLabel } from '../utils/label-layout';
 import { imagePlanBox, normalizeDegrees, scaleBarFor, type ImagePlacement } from '../utils/plan-geometry';
@@ -359,7 +360,7 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
         )}
         <g data-layer="ties">
           {model.ties.map((tie, i) => (
-            <line key={i} x1={sx(tie.from.x)} y1={sy(tie.from.y)} x2={sx(tie.to.x)} y2={sy(tie.to.y)} stroke="#3b5b8c" strokeWidth={1.2} strokeDasharray="8 3 2 3" />
+            <line key={i} x1={sx(tie.from.x)} y1={sy(tie.from.y)} x2={sx(tie.to.x)} y2={sy(tie.to.y)} stroke={REFERENCE_INK} strokeWidth={1.2} strokeDasharray="8 3 2 3" />
           ))}
         </g>
         <g data-layer="runs">
@@ -379,12 +380,13 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
               cx={sx(model.solution.x)}
               cy={sy(model.solution.y)}
               r={Math.max(model.solution.accuracyM * transform.k, 4)}
-              fill={model.solution.isWeak ? 'rgba(209, 52, 56, 0.15)' : 'rgba(15, 108, 189, 0.15)'}
-              stroke={model.solution.isWeak ? '#d13438' : '#0f6cbd'}
-              strokeWidth={1.5}
+              fill="rgba(0, 0, 0, 0.06)"
+              stroke={LEADER_INK}
+              strokeWidth={model.solution.isWeak ? 3 : 1.5}
+              strokeDasharray={model.solution.isWeak ? '3 3' : '6 3'}
               data-testid="accuracy-circle"
             />
-            <circle cx={sx(model.solution.x)} cy={sy(model.solution.y)} r={4} fill="#0f6cbd" />
+            <circle cx={sx(model.solution.x)} cy={sy(model.solution.y)} r={4} fill={LEADER_INK} />
           </g>
         )}
         <g data-layer="reference-points">
@@ -393,7 +395,7 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
               <circle cx={sx(ref.x)} cy={sy(ref.y)} r={HIT_RADIUS_PX} fill="transparent" />
               <ReferenceSymbol x={sx(ref.x)} y={sy(ref.y)} isSelected={ref.isSelected} />
               {model.showLabels && (
-                <text {...labels.get(`ref:${ref.id}`)} fontSize={12} fill="#1f3a66" stroke="#fff" strokeWidth={3} paintOrder="stroke">
+                <text {...labels.get(`ref:${ref.id}`)} fontSize={12} fill={REFERENCE_INK} stroke="#fff" strokeWidth={3} paintOrder="stroke">
                   {ref.label}
                 </text>
               )}

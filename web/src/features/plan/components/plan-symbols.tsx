@@ -1,4 +1,5 @@
 import type { ItemKind } from '@domain/as-built/item.schema';
+import { REFERENCE_INK, RUN_ORANGE, RUN_STROKES, scaleDash } from '@drawings/marking-palette';
 
 import type { RunStyle } from '../utils/plan-records';
 
@@ -7,7 +8,7 @@ import type { RunStyle } from '../utils/plan-records';
  * at 1.8× so they read on a phone: told apart by shape, not only colour.
  */
 const S = 1.8;
-const INK = '#1b1b1b';
+const INK = REFERENCE_INK;
 
 type Point = { x: number; y: number };
 
@@ -82,31 +83,62 @@ export function ReferenceSymbol({ x, y, isSelected = false }: { x: number; y: nu
   );
 }
 
-/** Utility-marking orange (APWA uniform colour code: communications / signal cable), as in print. */
-export const CABLE_ORANGE = '#d35400';
-const GREY = '#6b6b6b';
+/** The palette's run orange (APWA uniform colour code: communication / signal cable), as in print. */
+export const CABLE_ORANGE = RUN_ORANGE;
 
-/** A run as stacked strokes: line style, not only colour, tells the kinds apart (as in print). */
-export function RunLine({ style, points, isRouteRecorded }: { style: RunStyle; points: readonly Point[]; isRouteRecorded: boolean }) {
-  const attr = pts(points);
-  const stroke = (color: string, width: number, dash?: string, key?: string) => (
-    <polyline key={key ?? `${color}-${width}`} points={attr} fill="none" stroke={color} strokeWidth={width} strokeDasharray={dash} strokeLinejoin="round" />
+/** Screen pixels per print point for run strokes: as the symbols, so lines read on a phone. */
+const RUN_SCALE = 1.9;
+
+function crossesAlong(points: readonly Point[], spacing: number): Point[] {
+  const out: Point[] = [];
+  let next = spacing / 2;
+  let travelled = 0;
+  for (let i = 0; i + 1 < points.length; i += 1) {
+    const a = points[i]!;
+    const b = points[i + 1]!;
+    const length = Math.hypot(b.x - a.x, b.y - a.y);
+    while (next <= travelled + length && length > 0) {
+      const f = (next - travelled) / length;
+      out.push({ x: a.x + (b.x - a.x) * f, y: a.y + (b.y - a.y) * f });
+      next += spacing;
+    }
+    travelled += length;
+  }
+  return out;
+}
+
+/**
+ * A run as in print (marking-palette.ts): always orange; weight and dash pattern tell direct burial,
+ * conduit, sleeve, indoor, spare, abandoned (with crosses) and a route not recorded (dots) apart.
+ * `scale` multiplies the screen weight (e.g. a highlighted run).
+ */
+export function RunLine({ style, points, isRouteRecorded, scale = 1 }: { style: RunStyle; points: readonly Point[]; isRouteRecorded: boolean; scale?: number }) {
+  const spec = isRouteRecorded ? RUN_STROKES[style] : RUN_STROKES.route_not_recorded;
+  const factor = RUN_SCALE * scale;
+  const width = Math.max(spec.width * factor, 1.5);
+  const crosses = isRouteRecorded && spec.crossesEvery !== undefined ? crossesAlong(points, spec.crossesEvery * RUN_SCALE * 1.5) : [];
+  return (
+    <g data-style={isRouteRecorded ? style : 'route_not_recorded'}>
+      <polyline
+        points={pts(points)}
+        fill="none"
+        stroke={spec.color}
+        strokeWidth={width}
+        strokeDasharray={scaleDash(spec.dash, factor)}
+        strokeLinecap={spec.linecap}
+        strokeLinejoin="round"
+        data-role="run-stroke"
+      />
+      {crosses.map((c, i) => (
+        <path
+          key={i}
+          d={`M${c.x - 4} ${c.y - 4}L${c.x + 4} ${c.y + 4}M${c.x - 4} ${c.y + 4}L${c.x + 4} ${c.y - 4}`}
+          fill="none"
+          stroke={spec.color}
+          strokeWidth={width}
+          data-role="run-stroke"
+        />
+      ))}
+    </g>
   );
-  if (!isRouteRecorded) {
-    return <g>{stroke(style === 'abandoned' || style === 'indoor' ? GREY : CABLE_ORANGE, 2, '2 4')}</g>;
-  }
-  switch (style) {
-    case 'direct_burial':
-      return <g>{stroke(CABLE_ORANGE, 3)}</g>;
-    case 'conduit':
-      return <g>{[stroke(CABLE_ORANGE, 6.5, undefined, 'a'), stroke('#fff', 3, undefined, 'b')]}</g>;
-    case 'under_hardscape_sleeve':
-      return <g>{[stroke(CABLE_ORANGE, 7.5, undefined, 'a'), stroke('#fff', 4.3, undefined, 'b'), stroke(CABLE_ORANGE, 1.5, '2.7 2.7', 'c')]}</g>;
-    case 'indoor':
-      return <g>{stroke(GREY, 1.8, '10 4 3 4')}</g>;
-    case 'spare':
-      return <g>{stroke(CABLE_ORANGE, 2.6, '12 5')}</g>;
-    case 'abandoned':
-      return <g>{stroke(GREY, 1.5, '3 3')}</g>;
-  }
 }

@@ -1,0 +1,140 @@
+import { beforeAll, describe, expect, it } from 'vitest';
+
+import { analyzeAsBuilt } from '../domain/analysis/analyze.js';
+import type { AsBuilt } from '../domain/as-built/as-built.schema.js';
+import { DEMO_AS_BUILT } from '../domain/as-built/demo-as-built.js';
+import { drawDepthProfile } from './depth-profile.js';
+import { APWA_COLOURS, MARKING_LEGEND, markingMeaning, REFERENCE_INK, RUN_ORANGE, RUN_STROKES } from './marking-palette.js';
+import { createNodeSvgCanvas } from './node-svg-window.js';
+import { drawSitePlan } from './site-plan.js';
+import { drawWiringSchematic } from './wiring-schematic.js';
+
+/*
+ * Marking colours by role. Source of the meanings: APWA Uniform Color Code, as published in the CGA
+ * Best Practices (Appendix B): red power, orange communication / signal, yellow gas, green sewer, blue
+ * potable water, purple reclaimed water, pink survey, white proposed excavation.
+ */
+
+interface El {
+  getAttribute(name: string): string | null;
+  querySelectorAll(selector: string): ArrayLike<El>;
+  closest(selector: string): El | null;
+  tagName: string;
+}
+interface Doc {
+  documentElement: El;
+  getElementsByTagName(name: string): { length: number };
+  querySelectorAll(selector: string): ArrayLike<El>;
+}
+
+let parse: (svg: string) => Doc;
+beforeAll(async () => {
+  const moduleName: string = 'jsdom';
+  const { JSDOM } = (await import(moduleName)) as { JSDOM: new (html: string) => { window: { DOMParser: new () => { parseFromString(t: string, type: string): Doc } } } };
+  const parser = new new JSDOM('').window.DOMParser();
+  parse = (svg) => {
+    const doc = parser.parseFromString(svg, 'image/svg+xml');
+    expect(doc.getElementsByTagName('parsererror').length).toBe(0);
+    return doc;
+  };
+}, 60_000);
+
+const all = (root: Doc | El, selector: string): El[] => Array.from(root.querySelectorAll(selector));
+const opts = { createCanvas: createNodeSvgCanvas };
+const OTHER_UTILITIES = ['power', 'gas', 'sewer', 'water', 'reclaimed'] as const;
+
+/** Every run kind: the demo job with its runs given each style in turn. */
+function varied(): AsBuilt {
+  const base = DEMO_AS_BUILT;
+  const styles = [
+    { method: 'direct_burial' },
+    { method: 'conduit' },
+    { method: 'under_hardscape_sleeve' },
+    { method: 'indoor' },
+    { method: 'direct_burial', isSpare: true },
+    { method: 'direct_burial', isAbandoned: true },
+  ] as const;
+  return { ...base, runs: base.runs.map((run, i) => ({ ...run, ...styles[i % styles.length] })) } as AsBuilt;
+}
+
+function expectNoOtherUtilityColour(doc: Doc): void {
+  for (const el of all(doc, '[stroke], [fill]')) {
+    for (const attr of ['stroke', 'fill']) {
+      const value = el.getAttribute(attr);
+      if (value === null) continue;
+      expect(OTHER_UTILITIES, `${el.tagName} ${attr}=${value}`).not.toContain(markingMeaning(value));
+    }
+  }
+}
+
+describe('marking palette', () => {
+  it('should read the APWA colours back as their uses', () => {
+    for (const [use, hex] of Object.entries(APWA_COLOURS)) expect(markingMeaning(hex)).toBe(use);
+    expect(markingMeaning('#000000')).toBe('neutral');
+    expect(markingMeaning('#8a8a8a')).toBe('neutral');
+    // The colours the locate view used to draw runs and reference points in (issue 15): red and blue.
+    expect(markingMeaning('#c0392b')).toBe('power');
+    expect(markingMeaning('#3b5b8c')).toBe('water');
+  });
+
+  it('should give every run style the communication orange and tell them apart by weight and dash', () => {
+    const seen = new Set<string>();
+    for (const [style, spec] of Object.entries(RUN_STROKES)) {
+      expect(spec.color, style).toBe(RUN_ORANGE);
+      expect(markingMeaning(spec.color)).toBe('communication');
+      const signature = `${spec.width}|${spec.dash ?? ''}|${spec.crossesEvery ?? ''}`;
+      expect(seen.has(signature), `${style} looks like another style`).toBe(false);
+      seen.add(signature);
+    }
+  });
+
+  it('should name the colour of runs and the white of a dig area in no other words than the legend', () => {
+    const texts = MARKING_LEGEND.map((e) => e.text.toLowerCase()).join(' ');
+    for (const word of ['red', 'blue', 'yellow', 'green', 'purple', 'amber']) expect(texts).not.toMatch(new RegExp(`\\b${word}\\b`));
+    expect(texts).toContain('orange');
+  });
+});
+
+describe('stroke colours by role in the generated SVGs', () => {
+  for (const [name, asBuilt] of [
+    ['demo job', DEMO_AS_BUILT],
+    ['every run style', varied()],
+  ] as const) {
+    it(`should draw runs orange, reference points and ties black on the site plan (${name})`, () => {
+      const doc = parse(drawSitePlan(asBuilt, analyzeAsBuilt(asBuilt), opts));
+      const runStrokes = all(doc, '[data-layer="runs"] [data-role="run-stroke"]');
+      expect(runStrokes.length).toBeGreaterThanOrEqual(asBuilt.runs.filter((r) => r.method !== undefined).length);
+      for (const el of all(doc, '[data-layer="runs"] [stroke]')) expect(el.getAttribute('stroke'), 'run stroke').toBe(RUN_ORANGE);
+      const refs = all(doc, '[data-kind="reference_point"] [stroke]');
+      expect(refs.length).toBeGreaterThan(0);
+      for (const el of refs) expect(el.getAttribute('stroke')).toBe(REFERENCE_INK);
+      for (const el of all(doc, '[data-layer="ties"] [stroke], [data-layer="ties"] [fill]')) {
+        expect(markingMeaning(el.getAttribute('stroke') ?? el.getAttribute('fill')!)).toBe('neutral');
+      }
+      // The legend swatches of runs are orange too, and nothing anywhere is another utility's colour.
+      for (const el of all(doc, '[data-legend^="run:"] [stroke]')) expect(el.getAttribute('stroke')).toBe(RUN_ORANGE);
+      expectNoOtherUtilityColour(doc);
+    }, 60_000);
+  }
+
+  it('should draw the schematic runs orange and nothing in another utility colour', async () => {
+    const asBuilt = varied();
+    const doc = parse(await drawWiringSchematic(asBuilt, analyzeAsBuilt(asBuilt), opts));
+    const lines = all(doc, '[data-kind="run"] [data-role="run-stroke"]');
+    expect(lines.length).toBeGreaterThan(0);
+    for (const el of lines) expect(el.getAttribute('stroke')).toBe(RUN_ORANGE);
+    expectNoOtherUtilityColour(doc);
+  }, 60_000);
+
+  it('should draw the depth profile cable orange and shallow readings black', () => {
+    const analysis = analyzeAsBuilt(DEMO_AS_BUILT);
+    const doc = parse(drawDepthProfile(DEMO_AS_BUILT, analysis, 'run-p2', opts));
+    const profile = all(doc, '[data-role="profile"]');
+    expect(profile.length).toBe(1);
+    expect(profile[0]!.getAttribute('stroke')).toBe(RUN_ORANGE);
+    const shallow = all(doc, '[data-shallow="true"]');
+    expect(shallow.length).toBeGreaterThan(0);
+    for (const el of shallow) expect(markingMeaning(el.getAttribute('fill')!)).toBe('neutral');
+    expectNoOtherUtilityColour(doc);
+  });
+});
