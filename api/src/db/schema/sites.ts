@@ -5,6 +5,7 @@ import {
   doublePrecision,
   index,
   integer,
+  jsonb,
   pgTable,
   primaryKey,
   text,
@@ -123,7 +124,44 @@ export const referencePoints = pgTable(
   (t) => [index('reference_points_site_id_idx').on(t.siteId, t.seq)],
 );
 
+/**
+ * Landmarks on the site plan (house footprint, fences, walls, patios, paths, pools, spas, driveways,
+ * trees, beds): named outlines or lines in plan metres, `[{ x, y }, …]`. They belong to the site, so they
+ * outlive jobs; every map and drawing of the site draws them under the runs.
+ */
+export const siteFeatures = pgTable(
+  'site_features',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    siteId: uuid('site_id')
+      .notNull()
+      .references(() => sites.id, { onDelete: 'cascade' }),
+    /** Insertion order: drawn in this order (later on top) and listed in it. */
+    seq: bigserial('seq', { mode: 'number' }).notNull(),
+    kind: text('kind').notNull(),
+    name: text('name').notNull(),
+    shape: text('shape').notNull(),
+    points: jsonb('points').$type<{ x: number; y: number }[]>().notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    index('site_features_site_id_idx').on(t.siteId, t.seq),
+    check(
+      'site_features_kind_known',
+      sql`${t.kind} in ('house', 'outbuilding', 'fence', 'wall', 'patio', 'path', 'pool', 'spa', 'driveway', 'tree', 'bed', 'other')`,
+    ),
+    check('site_features_shape_known', sql`${t.shape} in ('polygon', 'line')`),
+    check(
+      'site_features_points_enough',
+      sql`jsonb_typeof(${t.points}) = 'array' and jsonb_array_length(${t.points}) >= (case when ${t.shape} = 'polygon' then 3 else 2 end)`,
+    ),
+  ],
+);
+
 export type Site = typeof sites.$inferSelect;
+export type SiteFeatureRow = typeof siteFeatures.$inferSelect;
+export type NewSiteFeatureRow = typeof siteFeatures.$inferInsert;
 export type NewSite = typeof sites.$inferInsert;
 export type SiteHomeowner = typeof siteHomeowners.$inferSelect;
 export type ReferencePointRow = typeof referencePoints.$inferSelect;
