@@ -31,6 +31,8 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
       children: [
         { path: paths.signIn.path, lazy: () => import('./routes/auth/sign-in').then(load) },
         { path: paths.acceptInvitation.path, lazy: () => import('./routes/auth/accept-invitation').then(load) },
+        { path: paths.signUp.path, lazy: () => import('./routes/auth/sign-up').then(load) },
+        { path: paths.signUpVerify.path, lazy: () => import('./routes/auth/sign-up-verify').then(load) },
         { path: paths.forgotPassword.path, lazy: () => import('./routes/auth/forgot-password').then(load) },
         { path: paths.resetPassword.path, lazy: () => import('./routes/auth/reset-password').then(load) },
         // Public and outside the app frame: a contractor's phone, no account, no navigation.

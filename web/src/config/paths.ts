@@ -15,6 +15,14 @@ export const paths = {
     /** `next`: where to go after signing in (a path in this app, with its query). */
     getHref: (next?: string) => (next && next !== '/' ? `/sign-in?${new URLSearchParams({ next })}` : '/sign-in'),
   },
+  signUp: {
+    path: '/sign-up',
+    getHref: () => '/sign-up',
+  },
+  signUpVerify: {
+    path: '/sign-up/verify',
+    getHref: (token: string) => `/sign-up/verify?${new URLSearchParams({ token })}`,
+  },
   forgotPassword: {
     path: '/forgot-password',
     getHref: (email?: string) => (email ? `/forgot-password?${new URLSearchParams({ email })}` : '/forgot-password'),

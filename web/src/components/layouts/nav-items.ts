@@ -42,7 +42,7 @@ export function buildNavItems({ role, hasOutbox = false }: NavContext): NavItem[
   if (role === 'homeowner') {
     items.push({ label: 'My property', href: paths.portal.getHref(), icon: Map24Regular });
   }
-  if (role === 'admin' && hasOutbox) {
+  if ((role === 'admin' || role === 'office') && hasOutbox) {
     items.push({ label: 'Outbox', href: paths.outbox.getHref(), icon: MailInbox24Regular });
   }
   items.push({ label: 'Settings', href: paths.settings.getHref(), icon: Settings24Regular });

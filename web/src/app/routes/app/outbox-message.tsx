@@ -27,7 +27,7 @@ const useStyles = makeStyles({
 export const clientLoader =
   (queryClient: QueryClient) =>
   async ({ request, params }: LoaderFunctionArgs) => {
-    await requireRole(request, ['admin']);
+    await requireRole(request, ['admin', 'office']);
     await queryClient.ensureQueryData(getOutboxMessageQueryOptions(params.messageId ?? ''));
     return null;
   };

@@ -6,7 +6,7 @@ import { useSearchParams, type LoaderFunctionArgs } from 'react-router';
 import { RouteErrorPage } from '../../../components/errors/route-error-page';
 import { PageHeader } from '../../../components/page-header';
 import { requireRole } from '../../../features/auth/utils/require-user';
-import { getOutboxQueryOptions, useOutbox } from '../../../features/outbox/api/get-outbox';
+import { getMailStatusQueryOptions, getOutboxQueryOptions, useMailStatus, useOutbox } from '../../../features/outbox/api/get-outbox';
 import { OutboxList } from '../../../features/outbox/components/outbox-list';
 
 const useStyles = makeStyles({
@@ -28,12 +28,31 @@ function pageOf(searchParams: URLSearchParams): number {
 export const clientLoader =
   (queryClient: QueryClient) =>
   async ({ request }: LoaderFunctionArgs) => {
-    await requireRole(request, ['admin']);
-    await queryClient.ensureQueryData(getOutboxQueryOptions({ page: pageOf(new URL(request.url).searchParams) }));
+    await requireRole(request, ['admin', 'office']);
+    const status = await queryClient.ensureQueryData(getMailStatusQueryOptions());
+    // With a mail service there is no local mail to list: the page says where mail goes instead.
+    if (status.captured) await queryClient.ensureQueryData(getOutboxQueryOptions({ page: pageOf(new URL(request.url).searchParams) }));
     return null;
   };
 
 export default function OutboxRoute() {
+  const styles = useStyles();
+  const status = useMailStatus();
+  if (status.data && !status.data.captured) {
+    return (
+      <>
+        <PageHeader title="Outbox" description="Copies of the e-mail Loamline sends, when this server keeps them." />
+        <Text as="p" block size={400} className={styles.none}>
+          Mail from this server goes to the mail service at <strong>{status.data.destination}</strong>, which delivers it. No
+          copies are kept here: look in the recipients' inboxes, or in the mail service's own log.
+        </Text>
+      </>
+    );
+  }
+  return <CapturedOutbox />;
+}
+
+function CapturedOutbox() {
   const styles = useStyles();
   const [searchParams, setSearchParams] = useSearchParams();
   const page = pageOf(searchParams);
@@ -43,7 +62,7 @@ export default function OutboxRoute() {
     <>
       <PageHeader
         title="Outbox"
-        description="Every e-mail Loamline has sent from this server, caught by the built-in mail server instead of being delivered. For trying things out; real mail needs a mail service."
+        description="Every e-mail Loamline has sent for your company, kept by the built-in mail server instead of being delivered (no SMTP_URL is set). Real delivery needs a mail service."
         actions={
           <Button
             className={styles.refresh}

@@ -48,7 +48,7 @@ export default function AppRoot() {
   const styles = useStyles();
   const user = useSessionUser();
   const location = useLocation();
-  const hasOutbox = useHasOutbox(user?.role === 'admin');
+  const hasOutbox = useHasOutbox(user?.role === 'admin' || user?.role === 'office');
 
   return (
     <AppShell
