@@ -8,7 +8,8 @@ import { paths } from '../../../config/paths';
 import { getHealthQueryOptions, useHealth } from '../../../features/health/api/get-health';
 import { HealthSummaryCard } from '../../../features/health/components/health-summary-card';
 import { summarizeHealth } from '../../../features/health/utils/summarize-health';
-import { getSessionUser } from '../../../lib/session';
+import { FailedDeliveriesCard } from '../../../features/delivery/components/failed-deliveries-card';
+import { getSessionUser, useSessionUser } from '../../../lib/session';
 
 const useStyles = makeStyles({
   layout: {
@@ -45,6 +46,8 @@ export const clientLoader = (queryClient: QueryClient) => async () => {
 export default function HomeRoute() {
   const styles = useStyles();
   const health = useHealth({ refetchInterval: 60_000 });
+  const user = useSessionUser();
+  const isOffice = user?.role === 'admin' || user?.role === 'office';
 
   return (
     <>
@@ -52,6 +55,8 @@ export default function HomeRoute() {
         title="Welcome"
         description="Loamline keeps the record of what your crew puts in the ground on each job, so nobody has to guess later."
       />
+      {/* Failed packet e-mails come first: the one thing on this page that waits for someone. */}
+      {isOffice && <FailedDeliveriesCard />}
       <div className={styles.layout}>
         <section className={styles.intro} aria-labelledby="what-it-does">
           <Text as="h3" block id="what-it-does" size={500} weight="semibold" className={styles.heading}>

@@ -10,6 +10,7 @@ import { requireRole } from '../../../features/auth/utils/require-user';
 import { CreateJobDialog } from '../../../features/jobs/components/create-job-dialog';
 import { JobStatusBadge } from '../../../features/jobs/components/job-status-badge';
 import { isJobStatus } from '../../../features/jobs/utils/job-status';
+import { SitePackets } from '../../../features/delivery/components/site-packets';
 import { getSiteQueryOptions, useSite } from '../../../features/sites/api/get-site';
 import { ReferencePoints } from '../../../features/sites/components/reference-points';
 import { SiteHomeowners } from '../../../features/sites/components/site-homeowners';
@@ -106,6 +107,14 @@ export default function SiteRoute() {
           <Text className={styles.muted}>Fixed points ties are taped from. x is metres or feet east of the plan origin, y north.</Text>
           <ReferencePoints siteId={site.id} points={site.referencePoints} canEdit={canEditPoints} />
         </section>
+        {isOffice && (
+          <section className={styles.section} aria-labelledby="site-packets">
+            <Text as="h3" id="site-packets" size={500} weight="semibold" className={styles.heading}>
+              Handover packets
+            </Text>
+            <SitePackets siteLabel={site.label} jobs={site.jobs.filter((job) => job.status === 'issued')} />
+          </section>
+        )}
         <section className={styles.section} aria-labelledby="site-jobs">
           <Text as="h3" id="site-jobs" size={500} weight="semibold" className={styles.heading}>
             Jobs here

@@ -60,6 +60,7 @@ describe('PacketCard', () => {
     let issuedWith: string | null = null;
     mockApi({
       [`GET /api/jobs/${JOB_ID}/packets`]: () => jsonResponse(answers.shift() ?? [ready]),
+      [`GET /api/jobs/${JOB_ID}/deliveries`]: () => jsonResponse([]),
       [`POST /api/jobs/${JOB_ID}/packets`]: ({ headers }) => {
         issuedWith = headers.get('If-Match');
         return jsonResponse({ ...revision({ status: 'queued' }), jobVersion: 6 }, 201);
@@ -78,6 +79,8 @@ describe('PacketCard', () => {
     await within(row).findByText(/Ready, 18 pages/, undefined, { timeout: 5_000 });
     expect(within(row).getByRole('button', { name: 'Download PDF' })).toBeInTheDocument();
     expect(within(row).getByRole('button', { name: 'Download archive (zip)' })).toBeInTheDocument();
+    // The office may send a ready revision to the homeowner.
+    expect(within(row).getByRole('button', { name: 'Send to homeowner' })).toBeInTheDocument();
     expect(screen.queryByRole('progressbar')).not.toBeInTheDocument();
   }, 20_000);
 
@@ -85,11 +88,13 @@ describe('PacketCard', () => {
     mockApi({
       [`GET /api/jobs/${JOB_ID}/packets`]: () =>
         jsonResponse([revision({ status: 'failed', attempts: 3, failureReason: 'Chromium timed out after 60 s' })]),
+      [`GET /api/jobs/${JOB_ID}/deliveries`]: () => jsonResponse([]),
     });
     renderCard({ canIssue: false });
     expect(await screen.findByText('Failed')).toBeInTheDocument();
     expect(screen.getByText('Reason: Chromium timed out after 60 s')).toBeInTheDocument();
     expect(screen.queryByRole('button', { name: 'Issue packet' })).not.toBeInTheDocument();
     expect(screen.queryByRole('button', { name: 'Download PDF' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Send to homeowner' })).not.toBeInTheDocument();
   });
 });

@@ -8,6 +8,9 @@ import {
 } from '@fluentui/react-icons';
 
 import { describeRequestError } from '../../../lib/form-errors';
+import { useSessionUser } from '../../../lib/session';
+import { JobDeliveries } from '../../delivery/components/job-deliveries';
+import { SendPacketDialog } from '../../delivery/components/send-packet-dialog';
 import { useDownloadPacketFile } from '../api/get-packet-file';
 import { isPacketInProgress, useJobPackets, type PacketRevision, type PacketStatus } from '../api/get-job-packets';
 import { useIssuePacket } from '../api/issue-packet';
@@ -36,10 +39,16 @@ type PacketCardProps = {
   canIssue: boolean;
 };
 
-/** The job's handover packet: issue the next revision, follow its render, download its files. */
+/**
+ * The job's handover packet: issue the next revision, follow its render, download its files; the
+ * office sends a ready revision to the homeowner and follows its e-mails here.
+ */
 export function PacketCard({ jobId, jobVersion, canIssue }: PacketCardProps) {
   const card = useCardStyles();
   const styles = useStyles();
+  const user = useSessionUser();
+  // Sending (and the delivery log) is for admin and office, as the API allows.
+  const canSend = user?.role === 'admin' || user?.role === 'office';
   const packets = useJobPackets(jobId);
   const issue = useIssuePacket(jobId);
   const download = useDownloadPacketFile();
@@ -69,16 +78,17 @@ export function PacketCard({ jobId, jobVersion, canIssue }: PacketCardProps) {
       {packets.data && packets.data.length > 0 && (
         <ul className={card.list} aria-label="Packet revisions">
           {packets.data.map((p) => (
-            <RevisionRow key={p.id} packet={p} onDownload={(url, fileName) => download.mutate({ url, fileName })} />
+            <RevisionRow key={p.id} packet={p} canSend={canSend} onDownload={(url, fileName) => download.mutate({ url, fileName })} />
           ))}
         </ul>
       )}
       {download.isError && <Text className={styles.failed}>{describeRequestError(download.error)}</Text>}
+      {canSend && <JobDeliveries jobId={jobId} />}
     </section>
   );
 }
 
-function RevisionRow({ packet, onDownload }: { packet: PacketRevision; onDownload: (url: string, fileName: string) => void }) {
+function RevisionRow({ packet, canSend, onDownload }: { packet: PacketRevision; canSend: boolean; onDownload: (url: string, fileName: string) => void }) {
   const styles = useStyles();
   const card = useCardStyles();
   const inProgress = isPacketInProgress(packet.status);
@@ -108,6 +118,7 @@ function RevisionRow({ packet, onDownload }: { packet: PacketRevision; onDownloa
               Download archive (zip)
             </Button>
           )}
+          {canSend && <SendPacketDialog revisionId={packet.id} revision={packet.revision} />}
         </div>
       )}
     </li>
