@@ -1,0 +1,76 @@
+import { Body, Controller, Delete, Get, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
+import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
+
+import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
+import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
+import { Roles } from '../common/decorators/roles.decorator.js';
+import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
+import {
+  type CreateSiteFeatureInput,
+  CreateSiteFeatureSchema,
+  type SiteFeatureResponse,
+  type UpdateSiteFeatureInput,
+  UpdateSiteFeatureSchema,
+} from '../domain/sites/site-feature.schema.js';
+import type { SiteVersionResponse } from '../domain/sites/site-rules.js';
+import { ApiSiteVersion } from './api-site-version.decorator.js';
+import { SiteFeaturesService } from './site-features.service.js';
+
+/**
+ * Site features (house footprint, fences, walls, patios, paths, pools, spas, driveways, trees, beds):
+ * staff read them; the office, and crew leads on an open job's crew, draw them. Every change names the
+ * site version (If-Match) like the site's other geometry.
+ */
+@ApiTags('sites')
+@ApiBearerAuth()
+@Roles('admin', 'office', 'lead', 'tech')
+@Controller('sites/:siteId/features')
+export class SiteFeaturesController {
+  constructor(private readonly features: SiteFeaturesService) {}
+
+  @Get()
+  @ApiOperation({ summary: 'The site’s features (landmarks), in drawing order' })
+  list(@CurrentUser() user: AuthUser, @Param('siteId', ParseUUIDPipe) siteId: string): Promise<SiteFeatureResponse[]> {
+    return this.features.list(user, siteId);
+  }
+
+  @Post()
+  @Roles('admin', 'office', 'lead')
+  @ApiSiteVersion()
+  @ApiOperation({ summary: 'Add a named outline or line to the site plan' })
+  create(
+    @CurrentUser() user: AuthUser,
+    @Param('siteId', ParseUUIDPipe) siteId: string,
+    @ExpectedVersion('site') expectedVersion: number,
+    @Body(new ZodValidationPipe(CreateSiteFeatureSchema)) body: CreateSiteFeatureInput,
+  ): Promise<SiteFeatureResponse & SiteVersionResponse> {
+    return this.features.create(user, siteId, expectedVersion, body);
+  }
+
+  @Patch(':featureId')
+  @Roles('admin', 'office', 'lead')
+  @ApiSiteVersion()
+  @ApiOperation({ summary: 'Rename, reclassify or reshape a feature' })
+  update(
+    @CurrentUser() user: AuthUser,
+    @Param('siteId', ParseUUIDPipe) siteId: string,
+    @Param('featureId', ParseUUIDPipe) featureId: string,
+    @ExpectedVersion('site') expectedVersion: number,
+    @Body(new ZodValidationPipe(UpdateSiteFeatureSchema)) body: UpdateSiteFeatureInput,
+  ): Promise<SiteFeatureResponse & SiteVersionResponse> {
+    return this.features.update(user, siteId, featureId, expectedVersion, body);
+  }
+
+  @Delete(':featureId')
+  @Roles('admin', 'office', 'lead')
+  @ApiSiteVersion()
+  @ApiOperation({ summary: 'Delete a feature; answers with the site’s new version' })
+  remove(
+    @CurrentUser() user: AuthUser,
+    @Param('siteId', ParseUUIDPipe) siteId: string,
+    @Param('featureId', ParseUUIDPipe) featureId: string,
+    @ExpectedVersion('site') expectedVersion: number,
+  ): Promise<SiteVersionResponse> {
+    return this.features.remove(user, siteId, featureId, expectedVersion);
+  }
+}
