@@ -21,13 +21,17 @@ export const DRAWING_LOADS_AT_ONCE = 3;
  * web app draw them (drawings/job-drawings.ts). Read access is that of the job itself.
  *
  * Drawing requests load their job with at most DRAWING_LOADS_AT_ONCE at a time (the rest wait their
- * turn here, not in the database pool, so 200 drawings at once leave connections for everyone else);
- * the layout and drawing run in DrawingRenderer's worker threads, and a repeated request is answered
- * from its cache, or with 304 when `If-None-Match` names the current ETag.
+ * turn here, not in the database pool, so 200 drawings at once leave connections for everyone else).
+ * A request identical to one still waiting for its turn (same user, job, drawing and query) shares that
+ * load: it starts after both arrived, so neither misses a write made before it asked. The layout and
+ * drawing run in DrawingRenderer's worker threads, and a repeated request is answered from its cache,
+ * or with 304 when `If-None-Match` names the current ETag.
  */
 @Injectable()
 export class JobDrawingsService {
   private readonly loads = new ConcurrencyLimiter({ concurrency: DRAWING_LOADS_AT_ONCE, maxQueue: 2000, maxWaitMs: 60_000, name: 'drawing requests' });
+  /** Loads queued but not started, by request key; a load leaves this map when it starts. */
+  private readonly queuedLoads = new Map<string, Promise<{ data: JobAsBuiltResponse; task: DrawingTask }>>();
 
   constructor(
     private readonly jobs: JobsService,
@@ -39,8 +43,26 @@ export class JobDrawingsService {
     return { asBuilt: data.asBuilt, analysis: data.analysis, units: query.units ?? data.asBuilt.units?.length ?? 'metric' };
   }
 
+  /** Loads once for every identical request that arrives while this one waits for its turn. */
+  private load(actor: AuthUser, key: string, work: () => Promise<{ data: JobAsBuiltResponse; task: DrawingTask }>) {
+    const fullKey = `${actor.id}:${actor.role}:${key}`;
+    const queued = this.queuedLoads.get(fullKey);
+    if (queued) return queued;
+    const loading = this.loads.run(() => {
+      if (this.queuedLoads.get(fullKey) === loading) this.queuedLoads.delete(fullKey);
+      return work();
+    });
+    this.queuedLoads.set(fullKey, loading);
+    // A load refused in the queue (busy) must not stay behind for later requests.
+    loading.catch(() => {
+      if (this.queuedLoads.get(fullKey) === loading) this.queuedLoads.delete(fullKey);
+    });
+    return loading;
+  }
+
   async sitePlan(actor: AuthUser, jobId: string, query: SitePlanDrawingQuery, ifNoneMatch: string | undefined): Promise<DrawingAnswer> {
-    const { data, task } = await this.loads.run(async () => {
+    const key = JSON.stringify(['site-plan', jobId, query.units ?? null, query.paper ?? null, query.layers ?? []]);
+    const { data, task } = await this.load(actor, key, async () => {
       const data = await this.jobs.asBuilt(actor, jobId);
       const planImage = await this.planImages.forDrawing(actor.companyId, data.job.site.id);
       const { job } = data;
@@ -60,16 +82,22 @@ export class JobDrawingsService {
   }
 
   async schematic(actor: AuthUser, jobId: string, query: DrawingQuery, ifNoneMatch: string | undefined): Promise<DrawingAnswer> {
-    const data = await this.loads.run(() => this.jobs.asBuilt(actor, jobId));
-    return this.answer(data, { kind: 'schematic', ...this.base(data, query) }, ifNoneMatch);
+    const { data, task } = await this.load(actor, JSON.stringify(['schematic', jobId, query.units ?? null]), async () => {
+      const data = await this.jobs.asBuilt(actor, jobId);
+      return { data, task: { kind: 'schematic', ...this.base(data, query) } };
+    });
+    return this.answer(data, task, ifNoneMatch);
   }
 
   async depthProfile(actor: AuthUser, jobId: string, runId: string, query: DrawingQuery, ifNoneMatch: string | undefined): Promise<DrawingAnswer> {
-    const data = await this.loads.run(() => this.jobs.asBuilt(actor, jobId));
-    if (!data.asBuilt.runs.some((run) => run.id === runId)) {
-      throw new NotFoundException({ message: 'No such run on this job.', code: 'RUN_NOT_FOUND' });
-    }
-    return this.answer(data, { kind: 'depth-profile', ...this.base(data, query), runId }, ifNoneMatch);
+    const { data, task } = await this.load(actor, JSON.stringify(['depth-profile', jobId, runId, query.units ?? null]), async () => {
+      const data = await this.jobs.asBuilt(actor, jobId);
+      if (!data.asBuilt.runs.some((run) => run.id === runId)) {
+        throw new NotFoundException({ message: 'No such run on this job.', code: 'RUN_NOT_FOUND' });
+      }
+      return { data, task: { kind: 'depth-profile', ...this.base(data, query), runId } };
+    });
+    return this.answer(data, task, ifNoneMatch);
   }
 
   private async answer(data: JobAsBuiltResponse, task: DrawingTask, ifNoneMatch: string | undefined): Promise<DrawingAnswer> {
