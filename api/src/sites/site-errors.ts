@@ -15,8 +15,11 @@ export function siteVersionConflict(currentVersion: number): ConflictException {
   });
 }
 
-/** A role denial is 403; a denial because of the site's jobs' statuses is 409 naming those jobs. */
+/**
+ * A role denial is 403; a denial because of the site's jobs' statuses is 409 whose message names those
+ * jobs (the body keeps the API's one error shape).
+ */
 export function siteDenied(decision: SiteDecision & { isAllowed: false }): ForbiddenException | ConflictException {
-  const body = { message: decision.message, code: decision.code, ...(decision.jobs ? { jobs: decision.jobs } : {}) };
+  const body = { message: decision.message, code: decision.code };
   return decision.kind === 'role' ? new ForbiddenException(body) : new ConflictException(body);
 }

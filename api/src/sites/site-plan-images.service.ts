@@ -183,9 +183,18 @@ export class SitePlanImagesService {
     });
   }
 
+  /** Deletes the stored objects, except those an issued packet still names (they stay frozen with it). */
   private async deleteQuietly(keys: readonly (string | null | undefined)[]): Promise<void> {
-    for (const key of keys) {
-      if (!key) continue;
+    const present = keys.filter((key): key is string => Boolean(key));
+    let kept = new Set<string>();
+    try {
+      kept = await this.repository.planImageKeysInPackets(present);
+    } catch (error) {
+      this.logger.warn(`could not check packets for ${present.join(', ')}; keeping the files: ${(error as Error).message}`);
+      return;
+    }
+    for (const key of present) {
+      if (kept.has(key)) continue;
       try {
         await this.storage.delete(key);
       } catch (error) {

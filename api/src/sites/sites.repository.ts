@@ -1,11 +1,12 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, asc, desc, eq, ilike, or, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, ilike, inArray, or, type SQL, sql } from 'drizzle-orm';
 
 import { DB, type Db, type Tx } from '../db/db.module.js';
 import {
   customers,
   jobs,
   type NewReferencePointRow,
+  packetRevisions,
   type NewSite,
   type ReferencePointRow,
   referencePoints,
@@ -146,6 +147,20 @@ export class SitesRepository {
       .where(and(eq(sites.companyId, companyId), eq(sites.id, id)))
       .for('update');
     return row;
+  }
+
+  /**
+   * Which of `keys` an issued packet's snapshot still names as its plan underlay: those stay stored when
+   * the site's image is replaced or removed, so a revision re-rendered later prints what was issued.
+   */
+  async planImageKeysInPackets(keys: readonly string[], tx?: Tx): Promise<Set<string>> {
+    if (keys.length === 0) return new Set();
+    const screenKey = sql<string>`${packetRevisions.snapshot} -> 'site' -> 'planImage' ->> 'screenKey'`;
+    const rows = await (tx ?? this.db)
+      .selectDistinct({ key: screenKey })
+      .from(packetRevisions)
+      .where(inArray(screenKey, [...keys]));
+    return new Set(rows.map((r) => r.key));
   }
 
   async homeownerInCompany(companyId: string, userId: string, tx: Tx): Promise<boolean> {
