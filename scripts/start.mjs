@@ -10,6 +10,7 @@ import {
   ensureNpmDependencies,
   ensurePostgres,
   ensureWebBuilt,
+  importProjectPackage,
   localSecrets,
   log,
   migrate,
@@ -61,6 +62,8 @@ try {
       PORT: port,
       HOST: host,
       WEB_DIST_DIR: join(root, 'web/dist'),
+      // The built-in mail capture server is only used from inside the process: any free port will do.
+      LOCAL_SMTP_PORT: process.env.LOCAL_SMTP_PORT ?? '0',
     },
   });
   server.on('exit', (code) => {
@@ -70,12 +73,44 @@ try {
     }
   });
   await waitForHealth(`http://${host === '0.0.0.0' ? '127.0.0.1' : host}:${port}/api/health`);
-  log(`Loamline is ready at http://${host}:${port}`);
+  const base = `http://${host}:${port}`;
+  log(`Loamline is ready at ${base}`);
   for (const line of demo.lines) log(line);
+  log(mailLine(process.env.SMTP_URL));
+  if (!(await hasCompany(databaseUrl))) {
+    const mode = process.env.SIGNUP_MODE ?? 'open';
+    log(
+      mode === 'closed'
+        ? 'no company exists yet; sign-up is closed (SIGNUP_MODE=closed): create one with npm run company:create -- --name "…" --admin-email …'
+        : `no company exists yet: create the first one at ${base}/sign-up${mode === 'invite' ? ' (with a code from npm run company:invite)' : ''}`,
+    );
+  }
   log('Press Ctrl-C to stop.');
 } catch (error) {
   console.error(`[loamline] ${error instanceof Error ? error.message : error}`);
   await shutdown(1);
+}
+
+/** Where mail goes, without the SMTP service's credentials. */
+function mailLine(smtpUrl) {
+  if (!smtpUrl) return 'mail is captured locally: read it on the Outbox page (set SMTP_URL to deliver it)';
+  try {
+    const url = new URL(smtpUrl);
+    return `mail goes to ${url.protocol}//${url.hostname}${url.port ? `:${url.port}` : ''}`;
+  } catch {
+    return 'mail goes to the SMTP_URL service';
+  }
+}
+
+async function hasCompany(databaseUrl) {
+  const { Client } = await importProjectPackage('pg');
+  const client = new Client({ connectionString: databaseUrl });
+  await client.connect();
+  try {
+    return (await client.query('select exists (select 1 from companies) as any')).rows[0].any;
+  } finally {
+    await client.end();
+  }
 }
 
 async function waitForHealth(url) {
