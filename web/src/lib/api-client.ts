@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { SessionResponseSchema } from '@domain/auth/auth.schema';
 
 import { clearSession, getAccessToken, getSessionState, setSession, type Session } from './session';
+import { refreshAcrossTabs } from './session-sync';
 
 /** One problem with a request field, as the API's validation pipe reports it. */
 export type ApiIssue = { path: string; message: string };
@@ -125,11 +126,12 @@ let refreshInFlight: Promise<Session | null> | undefined;
  * Trades the refresh cookie for a new access token. Resolves to the new session, or `null` when the
  * server refuses (no cookie, session ended); throws `ApiError` only when the server cannot be reached.
  *
- * At most one refresh is in flight: the server treats a second use of the same cookie as theft and
- * ends the whole session, so every caller shares the same promise.
+ * At most one refresh is in flight: the server treats a late second use of the same cookie as theft
+ * and ends the whole session, so every caller in this tab shares the same promise, and across tabs
+ * one refreshes while the others wait and use its result (session-sync.ts).
  */
 export function refreshSession(): Promise<Session | null> {
-  refreshInFlight ??= requestRefresh().finally(() => {
+  refreshInFlight ??= refreshAcrossTabs(getAccessToken(), requestRefresh).finally(() => {
     refreshInFlight = undefined;
   });
   return refreshInFlight;

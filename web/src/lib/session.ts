@@ -53,6 +53,11 @@ export function setSession(response: SessionResponse, now = Date.now()): Session
   return session;
 }
 
+/** Uses a session another tab of this app has just been issued (see session-sync.ts). */
+export function adoptSession(session: Session): void {
+  publish({ status: 'signed-in', session });
+}
+
 /** Forgets the session. `expired` when it ended without the user asking (refresh refused). */
 export function clearSession(reason: 'signed-out' | 'expired' = 'signed-out'): void {
   publish({ status: 'signed-out', reason });

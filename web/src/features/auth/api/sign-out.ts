@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 
 import { apiRequest } from '../../../lib/api-client';
 import { clearSession } from '../../../lib/session';
+import { announceSignedOut } from '../../../lib/session-sync';
 
 /** Ends the session on the server (the cookie is cleared there) and forgets it here, even if offline. */
 export async function signOut(): Promise<void> {
@@ -9,6 +10,8 @@ export async function signOut(): Promise<void> {
     await apiRequest('/api/auth/sign-out', undefined, { method: 'POST', auth: false });
   } finally {
     clearSession('signed-out');
+    // The server ended the cookie every tab shares: the other tabs are signed out too.
+    announceSignedOut();
   }
 }
 
