@@ -177,6 +177,23 @@ describe('authorization matrix', () => {
         body: { token: randomBytes(32).toString('base64url'), password: 'long-enough-password' },
       }),
     },
+    'GET /api/signup/status': { expect: everyone(200), call: () => ({ path: '/api/signup/status' }) },
+    'POST /api/signup': {
+      // The same answer for everyone; a signed-in caller is treated as a visitor (the route is public).
+      expect: everyone(202),
+      call: () => ({
+        path: '/api/signup',
+        body: { companyName: 'Matrix Start-up', name: 'Matrix Founder', email: `founder.${randomUUID()}@matrix.example`, password: 'long-enough-password' },
+      }),
+    },
+    'GET /api/signup/mail/:receipt': {
+      expect: everyone(404),
+      call: () => ({ path: `/api/signup/mail/${randomBytes(32).toString('base64url')}` }),
+    },
+    'POST /api/signup/verify': {
+      expect: everyone(404),
+      call: () => ({ path: '/api/signup/verify', body: { token: randomBytes(32).toString('base64url') } }),
+    },
     'GET /api/users': { expect: only(['admin', 'office'], 200, 200), isList: true, call: () => ({ path: '/api/users' }) },
     'PATCH /api/users/:id': {
       expect: only(['admin'], 200, 404),
@@ -203,13 +220,14 @@ describe('authorization matrix', () => {
       expect: only(['admin', 'office', 'lead', 'tech'], 200, 200),
       call: () => ({ path: '/api/analysis', body: { asBuilt: DEMO_AS_BUILT } }),
     },
-    'GET /api/outbox': { expect: only(['admin'], 200, 200), isList: true, call: () => ({ path: '/api/outbox' }) },
+    'GET /api/outbox/status': { expect: only(['admin', 'office'], 200, 200), call: () => ({ path: '/api/outbox/status' }) },
+    'GET /api/outbox': { expect: only(['admin', 'office'], 200, 200), isList: true, call: () => ({ path: '/api/outbox' }) },
     'GET /api/outbox/:id': {
-      expect: only(['admin'], 200, 404),
+      expect: only(['admin', 'office'], 200, 404),
       call: async () => ({ path: `/api/outbox/${(await capturedMailWithAttachment(a.id)).mailId}` }),
     },
     'GET /api/outbox/:id/attachments/:attachmentId': {
-      expect: only(['admin'], 200, 404),
+      expect: only(['admin', 'office'], 200, 404),
       call: async () => {
         const { mailId, attachmentId } = await capturedMailWithAttachment(a.id);
         return { path: `/api/outbox/${mailId}/attachments/${attachmentId}` };

@@ -407,6 +407,25 @@ describe('bad input on every write route', () => {
       arrange: async () => ({ params: {}, body: { token: randomBytes(32).toString('base64url'), password: 'long-enough-password' } }),
       fields: { token: { type: 'string', min: 20, max: 200 }, password: { type: 'string', min: 10, max: 200 } },
     },
+    'POST /api/signup': {
+      input: 'json',
+      isPublic: true,
+      isThrottled: true,
+      // An accepted sign-up queues its verification e-mail after answering.
+      hasLaterWrites: true,
+      arrange: async () => ({
+        params: {},
+        body: { companyName: 'Bad Input Start-up', name: 'Bad Input Founder', email: `founder.${randomUUID()}@bad-input.example`, password: 'long-enough-password' },
+      }),
+      fields: { companyName: label, name: label, email, password: { type: 'string', min: 10, max: 200 } },
+    },
+    'POST /api/signup/verify': {
+      input: 'json',
+      isPublic: true,
+      isThrottled: true,
+      arrange: async () => ({ params: {}, body: { token: randomBytes(32).toString('base64url') } }),
+      fields: { token: { type: 'string', min: 20, max: 200 } },
+    },
     'PATCH /api/users/:id': {
       input: 'json',
       arrange: async (ctx) => ({ params: { id: (await createUser(ctx.company.id, 'tech')).id }, body: { name: 'Renamed Person', role: 'lead', isDisabled: false } }),
