@@ -5,13 +5,14 @@ import type { Gauge } from '../as-built/run.schema.js';
 import { cableTotalsByType, type CableTotal } from '../cable/run-cable.js';
 import { conductorResistanceOhmPerM, formatGauge, gaugeAreaMm2 } from '../cable/wire.js';
 import { compareCommissioningChecks, type CheckResult } from '../checks/commissioning-compare.js';
-import { checkRunDepth, type RunDepthResult } from '../depth/depth-check.js';
+import { checkRunDepth, SPARE_CIRCUIT, type RunCircuit, type RunDepthResult } from '../depth/depth-check.js';
 import { buildFeatureCollection, type GeoJsonFeatureCollection, type GeoJsonItemInput, type GeoJsonRunInput } from '../geometry/geojson.js';
 import { createLocalFrame } from '../geometry/local-tangent-plane.js';
 import { compareRouteLength, polylineLengthM, type LengthComparison } from '../geometry/polyline.js';
 import { solvePositionFromTies, type TieObservation } from '../geometry/ties.js';
 import { analyzeChannel, type ChannelLoadResult, type SolvedChannel } from '../loads/channel-analysis.js';
 import { buildChannelCircuits, isLoadItem } from '../loads/channel-circuits.js';
+import { cvLineVoltageV } from '../loads/constant-voltage.js';
 import { suggestRunGauges, type GaugeSuggestion } from '../loads/gauge-suggestion.js';
 import { AnalysisOptionsSchema, type AnalysisOptions, type AnalysisOptionsInput } from './analysis-options.schema.js';
 import { fmt, sortFindings, type Finding } from './finding.js';
@@ -78,8 +79,39 @@ const NOTES = [
   'Conductor resistance: AWG from the ASTM B258 diameter and IACS copper (1/58 Ω·mm²/m at 20 °C, α = 0.00393/°C), solid-wire values (stranded cable is about 2 % higher); mm² from the IEC 60228 class 5 maximum.',
   'Loads are nominal impedances driven by an ideal amplifier at its rated output: V = √(P·Z) from the 8 Ω rating for loads of 8 Ω or more, else the 4 Ω rating; constant-voltage outputs at the line voltage.',
   'Cable loss is the level at each speaker with the recorded cable against zero-resistance cable at the same amplifier voltage.',
-  'Depth rules: the NEC sets no minimum cover for Class 2/3 speaker cable; defaults use NEC Table 300.5 column 5 as common practice. Always defer to the authority having jurisdiction — these checks are not code approval.',
+  'Depth rules: the NEC sets no minimum cover for Class 2/3 speaker cable. As common practice, lines up to 30 V are checked against NEC Table 300.5 column 5, and 70 V / 100 V lines (or outputs above 30 V) against the more conservative cover Class 1 wiring would need (columns 1 and 3). Always defer to the authority having jurisdiction — these checks are not code approval.',
 ];
+
+/**
+ * The highest voltage a run's pairs carry: a constant-voltage channel's line voltage, or the largest rated
+ * output voltage √(P·Z) of a low-impedance channel (8 Ω rating, and the 4 Ω rating when there is one).
+ * Over 30 V is outside NEC Table 300.5 column 5. A run with no channel (a spare) carries nothing.
+ */
+function runCircuit(asBuilt: AsBuilt, run: AsBuilt['runs'][number], itemIndexById: ReadonlyMap<string, number>): RunCircuit {
+  let best: RunCircuit | null = null;
+  for (const pair of run.pairs) {
+    if (pair.channel === null) continue;
+    const index = itemIndexById.get(pair.channel.amplifierItemId);
+    const amplifier = index === undefined ? undefined : asBuilt.items[index];
+    if (amplifier?.kind !== 'amplifier') continue;
+    const channelDef = amplifier.channels.find((c) => c.id === pair.channel!.channelId);
+    if (channelDef === undefined) continue;
+    let candidate: RunCircuit;
+    if (channelDef.constantVoltage !== undefined) {
+      const voltageV = cvLineVoltageV(channelDef.constantVoltage.lineVoltage);
+      candidate = { circuit: 'up_to_30v', voltageV, description: `a ${channelDef.constantVoltage.lineVoltage} constant-voltage line` };
+    } else {
+      const voltageV = Math.max(
+        Math.sqrt(amplifier.ratedWatts8Ohm * 8),
+        amplifier.ratedWatts4Ohm === undefined ? 0 : Math.sqrt(amplifier.ratedWatts4Ohm * 4),
+      );
+      candidate = { circuit: 'up_to_30v', voltageV, description: `up to ${fmt(voltageV, 1)} V from a low-impedance amplifier output` };
+    }
+    candidate.circuit = candidate.voltageV! > 30 + 1e-9 ? 'over_30v' : 'up_to_30v';
+    if (best === null || candidate.voltageV! > best.voltageV!) best = candidate;
+  }
+  return best ?? SPARE_CIRCUIT;
+}
 
 function buildItemPosition(
   item: Item,
@@ -187,8 +219,8 @@ export function analyzeAsBuilt(asBuilt: AsBuilt, optionsInput: AnalysisOptionsIn
   checkLoadItemsReached(asBuilt, solved, findings);
   const suggestions = suggestRunGauges(asBuilt, solved, options.conductorTemperatureC, options.lossLimitDb, findings);
 
-  // Depth
-  const depth = asBuilt.runs.map((run, r) => checkRunDepth(run, r, options.depthRules, findings));
+  // Depth, by the circuit each run carries
+  const depth = asBuilt.runs.map((run, r) => checkRunDepth(run, r, options.depthRules, findings, runCircuit(asBuilt, run, itemIndexById)));
 
   // Positions
   const refs = new Map(asBuilt.referencePoints.map((p) => [p.id, { x: p.x, y: p.y }]));

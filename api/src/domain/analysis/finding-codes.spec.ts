@@ -299,6 +299,18 @@ const SCENARIOS: Record<FindingCode, Scenario> = {
     path: ['runs', 0, 'location'],
     says: ['direct burial', 'not checked'],
   },
+  DEPTH_RULE_OVER_30V: {
+    // A 70.7 V constant-voltage line is outside NEC Table 300.5 column 5 (≤ 30 V); the default table checks
+    // it against column 1, 24 in (600 mm) for direct-burial cable — 60 cm (23.6 in) as printed.
+    build: () => {
+      const ab = cvLine([10]);
+      ab.runs[0]!.depthReadings = [{ stationM: 1, depthM: 0.65 }];
+      return ab;
+    },
+    severity: 'info',
+    path: ['runs', 0, 'method'],
+    says: ['a 70V constant-voltage line', '60 cm (23.6 in)', 'authority having jurisdiction'],
+  },
   // ---- geometry -------------------------------------------------------------------------------------
   POSITION_FROM_TIES_FAILED: {
     // Bourke: circles of 2 m and 3 m whose centres are 10 m apart do not meet.

@@ -20,17 +20,34 @@ const nec = JSON.parse(
 
 const necMm = (row: string, col: number): number => nec.rows.find((r) => r.location === row)!.mm[nec.columns[col - 1]!]!;
 
+/** Our burial locations and the NEC Table 300.5 rows they stand for ([NEC-300.5], docs/reference.md §4). */
+const NEC_ROW: Record<string, string> = {
+  general: 'all_locations_not_specified_below',
+  trench_below_concrete: 'in_trench_below_2in_concrete_or_equivalent',
+  under_building: 'under_a_building',
+  under_hardscape: 'under_min_4in_concrete_exterior_slab_no_vehicular_traffic_slab_extends_6in_beyond',
+  under_street: 'under_streets_highways_roads_alleys_driveways_parking_lots',
+  under_driveway: 'one_and_two_family_dwelling_driveways_and_outdoor_parking_dwelling_use_only',
+};
+const LOCATIONS = Object.keys(NEC_ROW) as (keyof typeof NEC_ROW & Parameters<typeof findDepthRule>[2])[];
+
 describe('DEFAULT_DEPTH_RULES', () => {
-  // NEC Table 300.5 (2017/2020), column 5 (≤ 30 V) in mm — used as common practice for Class 2 cable.
-  it.each([
-    ['direct_burial', 'general', 'all_locations_not_specified_below', 5],
-    ['direct_burial', 'under_driveway', 'one_and_two_family_dwelling_driveways_and_outdoor_parking_dwelling_use_only', 5],
-    ['direct_burial', 'under_street', 'under_streets_highways_roads_alleys_driveways_parking_lots', 5],
-    ['direct_burial', 'trench_below_concrete', 'in_trench_below_2in_concrete_or_equivalent', 5],
-    ['direct_burial', 'under_hardscape', 'under_min_4in_concrete_exterior_slab_no_vehicular_traffic_slab_extends_6in_beyond', 5],
-  ] as const)('should take %s in %s from NEC 300.5 row %s, column %i', (method, location, row, col) => {
-    const rule = findDepthRule(DEFAULT_DEPTH_RULES, method, location)!;
-    expect(rule.minCoverM).toBeCloseTo(necMm(row, col) / 1000, 9);
+  // Every row of the NEC Table 300.5 fixture that a residential run can lie in, both methods, both circuit
+  // classes. Up to 30 V: column 5 (common practice for Class 2 cable). Over 30 V: the Class 1 columns,
+  // 1 for direct-burial cable and 3 for nonmetallic raceway (common practice, conservative).
+  const cases = LOCATIONS.flatMap((location) =>
+    (['direct_burial', 'conduit'] as const).flatMap((method) => [
+      [method, location, 'up_to_30v', 5] as const,
+      [method, location, 'over_30v', method === 'direct_burial' ? 1 : 3] as const,
+    ]),
+  );
+  it.each(cases)('should take %s in %s (%s) from NEC 300.5 column %i', (method, location, circuit, col) => {
+    const rule = findDepthRule(DEFAULT_DEPTH_RULES, method, location, circuit)!;
+    let expectedMm = necMm(NEC_ROW[location]!, col);
+    // Column 5, slab row: 6 in direct, 4 in (100 mm) in a raceway (the row's own note).
+    if (col === 5 && location === 'under_hardscape' && method === 'conduit') expectedMm = 100;
+    expect(rule.minCoverM).toBeCloseTo(expectedMm / 1000, 9);
+    // The NEC sets no cover for Class 2/3 cable: every default is common practice, never "code".
     expect(rule.basis).toBe('common_practice');
     expect(rule.source).toMatch(/300\.5/);
   });
@@ -40,15 +57,22 @@ describe('DEFAULT_DEPTH_RULES', () => {
     expect(findDepthRule(DEFAULT_DEPTH_RULES, 'under_hardscape_sleeve', 'under_hardscape')!.minCoverM).toBe(0.1);
   });
 
-  // NEC Table 300.5 columns 1 and 3 for a Class 1 amplifier output (640.9(C)).
-  it.each([
-    ['direct_burial', 'general', 'all_locations_not_specified_below', 1],
-    ['conduit', 'general', 'all_locations_not_specified_below', 3],
-    ['conduit', 'trench_below_concrete', 'in_trench_below_2in_concrete_or_equivalent', 3],
-    ['direct_burial', 'under_driveway', 'one_and_two_family_dwelling_driveways_and_outdoor_parking_dwelling_use_only', 1],
-  ] as const)('should take Class 1 %s in %s from NEC 300.5 row %s, column %i', (method, location, row, col) => {
-    expect(findDepthRule(NEC_300_5_CLASS1_RULES, method, location)!.minCoverM).toBeCloseTo(necMm(row, col) / 1000, 9);
+  it('should fall back to a rule for any circuit in a company table that names none', () => {
+    const table = { name: 'Own', rules: [{ method: 'direct_burial' as const, location: 'general' as const, minCoverM: 0.2, basis: 'company' as const, source: 'Ours' }] };
+    expect(findDepthRule(table, 'direct_burial', 'general', 'over_30v')!.minCoverM).toBe(0.2);
+    expect(findDepthRule(table, 'direct_burial', 'under_driveway', 'up_to_30v')!.minCoverM).toBe(0.2);
   });
+
+  // NEC Table 300.5 columns 1 and 3 for a Class 1 amplifier output (640.9(C)): every row, code basis.
+  it.each(LOCATIONS.flatMap((location) => [['direct_burial', location, 1] as const, ['conduit', location, 3] as const]))(
+    'should take Class 1 %s in %s from NEC 300.5 column %i',
+    (method, location, col) => {
+      const rule = findDepthRule(NEC_300_5_CLASS1_RULES, method, location)!;
+      expect(rule.location).toBe(location);
+      expect(rule.minCoverM).toBeCloseTo(necMm(NEC_ROW[location]!, col) / 1000, 9);
+      expect(rule.basis).toBe('code');
+    },
+  );
 
   it('should be valid against its own schema', () => {
     expect(DepthRuleTableSchema.safeParse(DEFAULT_DEPTH_RULES).success).toBe(true);
@@ -130,6 +154,16 @@ describe(checkRunDepth.name, () => {
     const table = { name: 'Empty', rules: [] };
     expect(checkRunDepth(buried([{ stationM: 1, depthM: 0.2 }]), 0, table, findings).status).toBe('no_rule');
     expect(findings[0]!.code).toBe('DEPTH_NO_RULE');
+  });
+
+  it('should check a 70 V line against the over-30 V cover and ask for the authority having jurisdiction', () => {
+    const findings: Finding[] = [];
+    const circuit = { circuit: 'over_30v' as const, voltageV: 70.7, description: 'a 70V constant-voltage line' };
+    const sut = checkRunDepth(buried([{ stationM: 1, depthM: 0.3 }]), 4, DEFAULT_DEPTH_RULES, findings, circuit);
+    // 0.3 m passes column 5 (150 mm) but not column 1 (600 mm).
+    expect(sut).toMatchObject({ status: 'shallow', circuit: 'over_30v', circuitVoltageV: 70.7 });
+    expect(findings.map((f) => f.code).sort()).toEqual(['DEPTH_RULE_OVER_30V', 'DEPTH_SHALLOW']);
+    expect(findings.find((f) => f.code === 'DEPTH_RULE_OVER_30V')!.message).toMatch(/60 cm \(23\.6 in\).*authority having jurisdiction/);
   });
 
   it('should stay quiet about abandoned runs', () => {

@@ -1,7 +1,7 @@
 import type { BurialLocation, InstallMethod, Run } from '../as-built/run.schema.js';
 import { metresToInches } from '../as-built/units.js';
 import { fmt, type Finding } from '../analysis/finding.js';
-import type { DepthRule, DepthRuleTable } from './depth-rules.schema.js';
+import type { CircuitClass, DepthRule, DepthRuleTable } from './depth-rules.schema.js';
 import { findDepthRule } from './depth-rules.js';
 
 export interface DepthStationResult {
@@ -13,10 +13,23 @@ export interface DepthStationResult {
   marginM: number | null;
 }
 
+/** What a run carries, for the depth rules (see `CircuitClassSchema`). */
+export interface RunCircuit {
+  circuit: CircuitClass;
+  /** Highest voltage on the run's pairs, V rms (line voltage or the amplifier's rated output); null for a spare. */
+  voltageV: number | null;
+  /** Plain words for the finding, e.g. "a 70V constant-voltage line". */
+  description: string;
+}
+
+export const SPARE_CIRCUIT: RunCircuit = { circuit: 'up_to_30v', voltageV: null, description: 'nothing (no channel on its pairs)' };
+
 export interface RunDepthResult {
   runId: string;
   method: InstallMethod;
   location: BurialLocation;
+  circuit: CircuitClass;
+  circuitVoltageV: number | null;
   rule: DepthRule | null;
   status: 'ok' | 'shallow' | 'not_recorded' | 'not_buried' | 'no_rule';
   readingCount: number;
@@ -38,9 +51,15 @@ function inches(m: number): string {
  * for a buried live run without readings (warning), DEPTH_NO_RULE when the table has no rule (info).
  * Indoor runs (rule with null cover) are 'not_buried'. Abandoned runs are reported but raise no findings.
  */
-export function checkRunDepth(run: Run, runIndex: number, table: DepthRuleTable, findings: Finding[]): RunDepthResult {
+export function checkRunDepth(
+  run: Run,
+  runIndex: number,
+  table: DepthRuleTable,
+  findings: Finding[],
+  circuit: RunCircuit = SPARE_CIRCUIT,
+): RunDepthResult {
   const location = run.location ?? 'general';
-  const rule = findDepthRule(table, run.method, location) ?? null;
+  const rule = findDepthRule(table, run.method, location, circuit.circuit) ?? null;
   const readings = run.depthReadings ?? [];
   const minCover = rule?.minCoverM ?? null;
   const stations: DepthStationResult[] = readings.map((r, i) => ({
@@ -59,6 +78,8 @@ export function checkRunDepth(run: Run, runIndex: number, table: DepthRuleTable,
     runId: run.id,
     method: run.method,
     location,
+    circuit: circuit.circuit,
+    circuitVoltageV: circuit.voltageV,
     rule,
     status: 'ok',
     readingCount: readings.length,
@@ -86,6 +107,20 @@ export function checkRunDepth(run: Run, runIndex: number, table: DepthRuleTable,
   if (rule.minCoverM === null) {
     result.status = 'not_buried';
     return result;
+  }
+  if (circuit.circuit === 'over_30v' && !isQuiet) {
+    findings.push({
+      code: 'DEPTH_RULE_OVER_30V',
+      severity: 'info',
+      message:
+        `Run "${run.label}" carries ${circuit.description}, above the 30 V that NEC Table 300.5 column 5 covers; ` +
+        `it is checked against ${fmt(rule.minCoverM * 100, 1)} cm (${inches(rule.minCoverM)}) of cover` +
+        `${rule.circuit === 'over_30v' ? ', the conservative cover Class 1 wiring would need' : ''}. ` +
+        'Confirm the cover required here with the authority having jurisdiction.',
+      path: ['runs', runIndex, 'method'],
+      runId: run.id,
+      data: { voltageV: circuit.voltageV, minCoverM: rule.minCoverM },
+    });
   }
   if (readings.length === 0) {
     result.status = 'not_recorded';
