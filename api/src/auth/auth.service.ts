@@ -18,6 +18,7 @@ import type {
 import { OutgoingMailService } from '../outgoing-mail/outgoing-mail.service.js';
 import { AuthRepository, type UserWithCompany } from './auth.repository.js';
 import { PasswordHasher } from './password-hasher.js';
+import { PasswordResetQueue } from './password-reset-queue.js';
 import { hashToken, newOpaqueToken, successorKey, successorToken } from './tokens.js';
 
 export interface ClientMeta {
@@ -63,6 +64,7 @@ export class AuthService {
     private readonly config: ConfigService<Env, true>,
     private readonly audit: AuditService,
     private readonly outgoingMail: OutgoingMailService,
+    private readonly resetRequests: PasswordResetQueue,
   ) {
     this.successorKey = successorKey(this.config.get('JWT_ACCESS_SECRET', { infer: true }));
   }
@@ -218,11 +220,17 @@ export class AuthService {
   }
 
   /**
-   * Queues a reset link when the address belongs to an enabled account. The answer is the same either
-   * way, and no SMTP is in the request path (the e-mail goes from the account-mail queue), so neither
-   * the answer nor its timing tells who has an account, even while the mail server is down.
+   * Queues the request and answers: for an address with an account and one without, the request does
+   * exactly the same work (one queue message, nothing looked up), so neither the answer nor its timing
+   * tells who has an account, even while the mail server is down. The lookup and the e-mail happen in
+   * the background (`processPasswordResetRequest`).
    */
   async requestPasswordReset(email: string): Promise<void> {
+    await this.resetRequests.enqueue({ email });
+  }
+
+  /** A queued reset request: a reset link is queued when the address belongs to an enabled account. */
+  async processPasswordResetRequest(email: string): Promise<void> {
     const user = await this.repository.findUserByEmail(email);
     if (!user || user.isDisabled) return;
     const minutes = this.config.get('PASSWORD_RESET_TTL_MINUTES', { infer: true });

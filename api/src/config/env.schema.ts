@@ -16,6 +16,11 @@ export const EnvSchema = z.object({
   /** Folder of the built web app (web/dist); when absent the API serves only /api. */
   WEB_DIST_DIR: z.string().min(1).optional(),
   LOG_FORMAT: z.enum(['json', 'text']).default('json'),
+  /**
+   * The OpenAPI UI and JSON (`/api/docs`, `/api/docs-json`) for everyone: by default outside
+   * production only; in production `1` serves them, otherwise only to signed-in staff (bearer token).
+   */
+  API_DOCS: z.stringbool().optional(),
   /** Public base URL used in links that leave the app (e-mails, QR codes); defaults to http://HOST:PORT. */
   APP_URL: z.url().optional(),
   /** Signs access tokens. No default: `npm start` generates one into .data/ on first start. */

@@ -25,7 +25,6 @@ export class DeliveryQueue extends PgBossQueue<PacketSendJob> {
       retryLimit: this.config.get('PACKET_SEND_RETRIES', { infer: true }),
       retryDelay: this.config.get('PACKET_SEND_RETRY_DELAY_SECONDS', { infer: true }),
       expireInSeconds: 5 * 60,
-      poolSize: 2,
     };
   }
 }

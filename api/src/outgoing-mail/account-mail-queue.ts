@@ -24,7 +24,6 @@ export class AccountMailQueue extends PgBossQueue<AccountMailJob> {
       retryDelay: this.config.get('ACCOUNT_MAIL_RETRY_DELAY_SECONDS', { infer: true }),
       // Far above one attempt, which the SMTP timeouts bound to well under a minute.
       expireInSeconds: 5 * 60,
-      poolSize: 2,
     };
   }
 }

@@ -26,7 +26,6 @@ export class PacketQueue extends PgBossQueue<PacketRenderJob> {
       retryDelay: 5,
       // A worker killed mid-render leaves its job active; past this it is expired and retried.
       expireInSeconds: this.config.get('PACKET_RENDER_STALE_SECONDS', { infer: true }),
-      poolSize: 4,
     };
   }
 }

@@ -23,8 +23,23 @@ const CaptionSchema = z
   .max(500)
   .transform((caption) => (caption === '' ? null : caption));
 
-/** When the photo was taken, as the phone reports it (ISO 8601 with an offset or Z). */
-const TakenAtSchema = z.iso.datetime({ offset: true });
+/** The earliest taken-at date accepted (no job photo in this product predates it). */
+export const PHOTO_TAKEN_AT_EARLIEST = '1990-01-01T00:00:00Z';
+/** How far past the server's clock a taken-at date may lie (phones with a wrong time zone or clock). */
+export const PHOTO_TAKEN_AT_FUTURE_SLACK_MS = 24 * 60 * 60 * 1000;
+
+/**
+ * When the photo was taken, as the phone reports it (ISO 8601 with an offset or Z), between 1990 and a
+ * day after now: a year 9999 would sort every list wrong and print in the packet as a fact.
+ */
+const TakenAtSchema = z.iso
+  .datetime({ offset: true })
+  .refine((value) => Date.parse(value) >= Date.parse(PHOTO_TAKEN_AT_EARLIEST), {
+    message: 'must not be before 1 January 1990',
+  })
+  .refine((value) => Date.parse(value) <= Date.now() + PHOTO_TAKEN_AT_FUTURE_SLACK_MS, {
+    message: 'must not be more than a day in the future',
+  });
 
 /** One text field of a multipart form, which clients may send as JSON (`target={"type":"run",…}`). */
 const jsonField = <T extends z.ZodType>(schema: T) =>
