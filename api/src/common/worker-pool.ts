@@ -18,6 +18,8 @@ interface Slot<TIn, TOut> {
   worker: Worker;
   task: Task<TIn, TOut> | undefined;
   timer: NodeJS.Timeout | undefined;
+  /** True once the thread has started: the task's time limit counts from then, not from spawning. */
+  isOnline: boolean;
 }
 
 /** What a worker posts back: the result, or an error message (structured clone keeps no Error class). */
@@ -83,7 +85,11 @@ export class WorkerPool<TIn, TOut> {
     const worker = new Worker(this.script);
     // An idle worker must not keep the process alive on shutdown.
     worker.unref();
-    const slot: Slot<TIn, TOut> = { worker, task: undefined, timer: undefined };
+    const slot: Slot<TIn, TOut> = { worker, task: undefined, timer: undefined, isOnline: false };
+    worker.once('online', () => {
+      slot.isOnline = true;
+      if (slot.task && !slot.timer) this.startTimer(slot);
+    });
     worker.on('message', (reply: WorkerReply<TOut>) => {
       const task = slot.task;
       this.finish(slot);
@@ -123,16 +129,20 @@ export class WorkerPool<TIn, TOut> {
       const task = this.queue.shift()!;
       slot.task = task;
       slot.worker.ref();
-      slot.timer = setTimeout(() => {
-        const index = this.slots.indexOf(slot);
-        const running = slot.task;
-        this.finish(slot);
-        void slot.worker.terminate();
-        if (index >= 0 && !this.isClosed) this.slots[index] = this.spawn();
-        running?.reject(new Error(`${this.options.name}: task took longer than ${this.options.taskTimeoutMs} ms`));
-        this.dispatch();
-      }, this.options.taskTimeoutMs);
+      if (slot.isOnline) this.startTimer(slot);
       slot.worker.postMessage(task.input);
     }
+  }
+
+  private startTimer(slot: Slot<TIn, TOut>): void {
+    slot.timer = setTimeout(() => {
+      const index = this.slots.indexOf(slot);
+      const running = slot.task;
+      this.finish(slot);
+      void slot.worker.terminate();
+      if (index >= 0 && !this.isClosed) this.slots[index] = this.spawn();
+      running?.reject(new Error(`${this.options.name}: task took longer than ${this.options.taskTimeoutMs} ms`));
+      this.dispatch();
+    }, this.options.taskTimeoutMs);
   }
 }
