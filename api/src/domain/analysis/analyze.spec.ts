@@ -4,6 +4,8 @@ import { AsBuiltSchema, type AsBuilt } from '../as-built/as-built.schema.js';
 import { DEMO_AS_BUILT } from '../as-built/demo-as-built.js';
 import type { Item } from '../as-built/item.schema.js';
 import type { Run } from '../as-built/run.schema.js';
+import { getIssues } from '@placemarkio/check-geojson';
+
 import { validateGeoJson } from '../geometry/geojson-validate.js';
 import { analyzeAsBuilt } from './analyze.js';
 
@@ -99,6 +101,8 @@ describe(analyzeAsBuilt.name, () => {
     it('should produce valid RFC 7946 GeoJSON in [lon, lat] order', () => {
       const gj = sut.geojson!;
       expect(validateGeoJson(gj)).toEqual([]);
+      // [CHK] an independent validator agrees (docs/reference.md §6).
+      expect(getIssues(JSON.stringify(gj))).toEqual([]);
       expect(gj.features).toHaveLength(DEMO_AS_BUILT.runs.length + DEMO_AS_BUILT.items.length);
       expect('crs' in gj).toBe(false);
       const point = gj.features.find((f) => f.id === 'sp-p1')!.geometry!;

@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 
-import { distance, length, lineString, point } from '@turf/turf';
+import geographiclib from 'geographiclib-geodesic';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 
@@ -87,31 +87,46 @@ describe(planToWgs84.name, () => {
     expect(n).toBeCloseTo(0, 3);
   });
 
-  // Turf (haversine, sphere R = 6 371 008.8 m) as a general-purpose reference: a spherical model is
-  // off by up to 0.56 % against the ellipsoid (docs/reference.md §6), so agreement is tested to 0.6 %.
-  it('should agree with Turf distances from the origin in every direction', () => {
+  // [GL] GeographicLib geodesics on the WGS 84 ellipsoid as an independent oracle (docs/reference.md §6):
+  // the ellipsoidal local plane keeps distance and direction from the origin to within 5 mm and 0.001°
+  // at 500 m (its error grows with the square of the distance: < 1 mm at 100 m, < 5 cm at 1 km).
+  const WGS84 = geographiclib.Geodesic.WGS84;
+
+  it('should agree with GeographicLib on distance and azimuth from the origin in every direction', () => {
     for (const az of [0, 30, 45, 90, 135, 200, 290]) {
       const rad = (az * Math.PI) / 180;
-      const p = { x: 500 * Math.sin(rad), y: 500 * Math.cos(rad) };
-      const g = planToWgs84(frame, p);
-      const turf = distance(point([-105, 40]), point([g.lon, g.lat]), { units: 'meters' });
-      expect(Math.abs(turf / 500 - 1)).toBeLessThan(0.006);
+      const g = planToWgs84(frame, { x: 500 * Math.sin(rad), y: 500 * Math.cos(rad) });
+      const inverse = WGS84.Inverse(40, -105, g.lat, g.lon);
+      expect(Math.abs(inverse.s12! - 500)).toBeLessThan(0.005);
+      expect(Math.abs(((inverse.azi1! - az + 540) % 360) - 180)).toBeLessThan(0.001);
     }
   });
 
-  it('should agree with Turf on a route length', () => {
+  it('should place the end of a GeographicLib geodesic where the plan says', () => {
+    for (const [az, s] of [
+      [10, 100],
+      [250, 100],
+      [120, 1000],
+    ] as const) {
+      const direct = WGS84.Direct(40, -105, az, s);
+      const p = wgs84ToPlan(frame, direct.lat2!, direct.lon2!);
+      const rad = (az * Math.PI) / 180;
+      const miss = Math.hypot(p.x - s * Math.sin(rad), p.y - s * Math.cos(rad));
+      expect(miss).toBeLessThan(s <= 100 ? 0.001 : 0.05);
+    }
+  });
+
+  it('should agree with GeographicLib on a route length', () => {
     const route = [
       { x: 0, y: 0 },
       { x: 40, y: 12 },
       { x: 55, y: 60 },
       { x: 10, y: 90 },
     ];
-    const coords = route.map((p) => {
-      const g = planToWgs84(frame, p);
-      return [g.lon, g.lat];
-    });
-    const turf = length(lineString(coords), { units: 'meters' });
-    expect(Math.abs(turf / polylineLengthM(route) - 1)).toBeLessThan(0.006);
+    const points = route.map((p) => planToWgs84(frame, p));
+    let geodesicM = 0;
+    for (let i = 1; i < points.length; i++) geodesicM += WGS84.Inverse(points[i - 1]!.lat, points[i - 1]!.lon, points[i]!.lat, points[i]!.lon).s12!;
+    expect(Math.abs(geodesicM - polylineLengthM(route))).toBeLessThan(0.005);
   });
 
   it('should round-trip plan → WGS84 → plan within 1 mm (property)', () => {

@@ -1,3 +1,4 @@
+import { getIssues } from '@placemarkio/check-geojson';
 import { describe, expect, it } from 'vitest';
 
 import { analyzeAsBuilt } from '../analysis/analyze.js';
@@ -31,6 +32,8 @@ describe(buildSiteMap.name, () => {
     expect(feature.geometry?.type).toBe('LineString');
     expect(feature.properties).toMatchObject({ featureKind: 'run', revisionId: REV_A.id });
     expect(feature.properties.planRoute).toEqual(sut.runs[0]!.route!.map((p) => [p.x, p.y]));
+    // [CHK] the locate map's GeoJSON passes an independent RFC 7946 validator (docs/reference.md §6).
+    expect(getIssues(JSON.stringify(sut.geojson))).toEqual([]);
   });
 
   it('should add a later job’s runs, let a later revision replace a feature it records again, and mark abandoned runs', () => {
