@@ -3,6 +3,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { analyzeAsBuilt } from '../domain/analysis/analyze.js';
 import type { AsBuilt } from '../domain/as-built/as-built.schema.js';
 import { DEMO_AS_BUILT } from '../domain/as-built/demo-as-built.js';
+import { DEMO_SITE_FEATURES } from '../domain/sites/demo-site-features.js';
 import { drawDepthProfile } from './depth-profile.js';
 import { APWA_COLOURS, MARKING_LEGEND, markingMeaning, REFERENCE_INK, RUN_ORANGE, RUN_STROKES } from './marking-palette.js';
 import { createNodeSvgCanvas } from './node-svg-window.js';
@@ -116,6 +117,28 @@ describe('stroke colours by role in the generated SVGs', () => {
       expectNoOtherUtilityColour(doc);
     }, 60_000);
   }
+
+  it('should draw site features in muted grey under the runs, with their names', () => {
+    const asBuilt: AsBuilt = {
+      ...DEMO_AS_BUILT,
+      site: { ...DEMO_AS_BUILT.site, features: DEMO_SITE_FEATURES.map((f, i) => ({ ...f, id: `feature-${i}` })) },
+    };
+    const svg = drawSitePlan(asBuilt, analyzeAsBuilt(asBuilt), opts);
+    const doc = parse(svg);
+    const features = all(doc, '[data-layer="features"] [data-kind="feature"]');
+    expect(features.length).toBe(DEMO_SITE_FEATURES.length);
+    for (const el of all(doc, '[data-layer="features"] [stroke], [data-layer="features"] [fill]')) {
+      for (const attr of ['stroke', 'fill']) {
+        const value = el.getAttribute(attr);
+        if (value !== null) expect(markingMeaning(value), `${attr}=${value}`).toBe('neutral');
+      }
+    }
+    // Under the runs: the features layer comes first in document order.
+    expect(svg.indexOf('data-layer="features"')).toBeLessThan(svg.indexOf('data-layer="runs"'));
+    expect(all(doc, '[data-label-kind="feature"]').map((e) => e.getAttribute('data-label-for'))).toContain('feature-0');
+    expect(all(doc, '[data-legend="feature"]').length).toBe(1);
+    expectNoOtherUtilityColour(doc);
+  }, 60_000);
 
   it('should draw the schematic runs orange and nothing in another utility colour', async () => {
     const asBuilt = varied();

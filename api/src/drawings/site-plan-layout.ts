@@ -22,6 +22,7 @@ export const ITEM_LABEL_FONT_PT = 7;
 export const RUN_LABEL_FONT_PT = 6.5;
 export const REF_LABEL_FONT_PT = 6.5;
 export const TIE_LABEL_FONT_PT = 6;
+export const FEATURE_LABEL_FONT_PT = 6;
 
 export type RunStyleKey = InstallMethod | 'spare' | 'abandoned';
 
@@ -65,7 +66,16 @@ export interface PlanAccuracy {
   accuracyM: number;
 }
 
-export type LabelKind = 'item' | 'run' | 'reference' | 'tie';
+export type LabelKind = 'item' | 'run' | 'reference' | 'tie' | 'feature';
+
+/** A site feature (house, fence …) in paper points, drawn in muted grey under the runs. */
+export interface PlanFeatureShape {
+  featureId: string;
+  kind: string;
+  name: string;
+  shape: 'polygon' | 'line';
+  points: Point[];
+}
 
 export interface PlanLabel extends PlacedLabel {
   kind: LabelKind;
@@ -89,6 +99,8 @@ export interface SitePlanModel {
   northAzimuthDeg: number | null;
   image: { href: string; box: Box } | null;
   runs: PlanRun[];
+  /** Site features (landmarks), in drawing order; not counted in the plan's extent (clipped to the frame). */
+  features: PlanFeatureShape[];
   items: PlanItem[];
   references: PlanReference[];
   ties: PlanTie[];
@@ -100,6 +112,12 @@ export interface SitePlanModel {
   /** Items without a plan position, and runs that cannot be drawn (no route and an end without a position). */
   notShown: { id: string; text: string }[];
   layers: SitePlanLayers;
+}
+
+/** The vertex average of an outline: where its name goes. */
+function centroidOf(points: readonly Point[]): Point {
+  const n = Math.max(points.length, 1);
+  return { x: points.reduce((a, p) => a + p.x, 0) / n, y: points.reduce((a, p) => a + p.y, 0) / n };
 }
 
 function runStyle(run: AsBuilt['runs'][number]): RunStyleKey {
@@ -204,6 +222,13 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
   const cx = frame.x + frame.width / 2;
   const cy = frame.y + frame.height / 2;
   const toPaper = (p: PlanPoint): Point => ({ x: cx + (p.x - centre.x) * k, y: cy - (p.y - centre.y) * k });
+  const features: PlanFeatureShape[] = (asBuilt.site?.features ?? []).map((f) => ({
+    featureId: f.id,
+    kind: f.kind,
+    name: f.name,
+    shape: f.shape,
+    points: f.points.map(toPaper),
+  }));
 
   let image: SitePlanModel['image'] = null;
   if (options.planImage !== undefined) {
@@ -314,6 +339,29 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
         preferred: pointLabelCandidates(ref.point, SYMBOL_RADIUS_PT, size.width, size.height),
       });
     }
+    // Feature names last: the first to give way when space runs out (never counted as left off).
+    for (const feature of features) {
+      const lines = [feature.name];
+      const size = labelSize(lines, FEATURE_LABEL_FONT_PT);
+      const anchor = feature.shape === 'polygon' ? centroidOf(feature.points) : lineLabelAnchor(feature.points);
+      const inFrame = anchor.x > frame.x && anchor.x < frame.x + frame.width && anchor.y > frame.y && anchor.y < frame.y + frame.height;
+      if (!inFrame) continue;
+      requests.push({
+        id: `feature:${feature.featureId}`,
+        kind: 'feature',
+        forId: feature.featureId,
+        lines,
+        fontSize: FEATURE_LABEL_FONT_PT,
+        ...size,
+        priority: 10,
+        allowDisplacement: false,
+        anchor,
+        preferred:
+          feature.shape === 'polygon'
+            ? [anchor, { x: anchor.x, y: anchor.y - size.height }, { x: anchor.x, y: anchor.y + size.height }]
+            : lineLabelCandidates(feature.points, size.width, size.height),
+      });
+    }
     for (const tie of ties) {
       const lines = [formatLength(tie.distanceM, units)];
       const size = labelSize(lines, TIE_LABEL_FONT_PT);
@@ -361,12 +409,13 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
     northAzimuthDeg: asBuilt.site?.northAzimuthDeg ?? null,
     image,
     runs,
+    features,
     items,
     references,
     ties,
     accuracy,
     labels,
-    omittedLabelCount: placement.unplaced.length,
+    omittedLabelCount: placement.unplaced.filter((id) => !id.startsWith('feature:')).length,
     notShown,
     layers,
   };

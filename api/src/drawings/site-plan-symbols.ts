@@ -150,3 +150,26 @@ export function drawAccuracyCircle(parent: Container, centre: Point, radiusPt: n
     .stroke({ color: LEADER_INK, width: 0.7 });
   return g;
 }
+
+/**
+ * A site feature (house, fence, patio …) in muted grey: outlines filled light grey, lines as a grey
+ * stroke (fences and walls heavier, paths dashed). Never a marking colour; drawn under everything.
+ */
+export function drawFeature(parent: Container, feature: { shape: 'polygon' | 'line'; kind: string; points: readonly Point[] }): Container {
+  const g = parent.group();
+  const attr = pointsAttr(feature.points);
+  if (feature.shape === 'polygon') {
+    const dash = feature.kind === 'bed' || feature.kind === 'tree' ? '2 1.5' : undefined;
+    const poly = g.polygon(attr).fill(FEATURE_FILL).stroke({ color: FEATURE_STROKE, width: feature.kind === 'house' || feature.kind === 'outbuilding' ? 1 : 0.6, linejoin: 'round' });
+    if (dash !== undefined) poly.attr('stroke-dasharray', dash);
+  } else {
+    const heavy = feature.kind === 'fence' || feature.kind === 'wall';
+    const line = g.polyline(attr).fill('none').stroke({ color: FEATURE_STROKE, width: heavy ? 1.1 : 0.7, linejoin: 'round' });
+    if (feature.kind === 'path') line.attr('stroke-dasharray', '3 1.5');
+    if (feature.kind === 'fence') {
+      // Posts along a fence, as small ticks every 10 pt.
+      for (const c of crossesAlong(feature.points, 10)) g.circle(1.6).attr({ cx: r2(c.x), cy: r2(c.y) }).fill(FEATURE_STROKE);
+    }
+  }
+  return g;
+}

@@ -8,9 +8,9 @@ import { formatNumber } from './drawing-units.js';
 import { formatScale, paperName } from './paper.js';
 import { BASELINE_EM, LABEL_PAD_PT, LINE_HEIGHT_EM, wrapText, type Box } from './text-box.js';
 import { layoutSitePlan, type RunStyleKey, type SitePlanModel } from './site-plan-layout.js';
-import { drawAccuracyCircle, drawItemSymbol, drawReferenceSymbol, drawRunLine, drawShallowMarker, drawTieLine } from './site-plan-symbols.js';
+import { drawAccuracyCircle, drawFeature, drawItemSymbol, drawReferenceSymbol, drawRunLine, drawShallowMarker, drawTieLine } from './site-plan-symbols.js';
 import { addText, r2 } from './svg-canvas.js';
-import { LEADER_INK, MARKING_LEGEND, REFERENCE_INK, type LegendKey } from './marking-palette.js';
+import { FEATURE_LABEL, LEADER_INK, MARKING_LEGEND, REFERENCE_INK, type LegendKey } from './marking-palette.js';
 
 export const SITE_PLAN_NOTE = 'Positions are as recorded; verify by hand-digging before any excavation.';
 const LOCATE_NOTE = 'Private low-voltage lines are not marked by public one-call locating services.';
@@ -22,6 +22,7 @@ export function sitePlanLegendKeys(model: SitePlanModel): LegendKey[] {
   const present = new Set<LegendKey>();
   for (const item of model.items) present.add(item.kind);
   if (model.references.length > 0) present.add('reference_point');
+  if (model.features.length > 0) present.add('feature');
   if (model.ties.length > 0) present.add('tie');
   if (model.accuracy.length > 0) present.add('accuracy');
   for (const run of model.runs) {
@@ -66,6 +67,9 @@ export function renderSitePlan(model: SitePlanModel, options: SitePlanOptions): 
       'data-layer': 'plan-image',
     });
   }
+  // Site features first, in muted grey: everything else is drawn over them.
+  const featureLayer = plan.group().attr('data-layer', 'features');
+  for (const feature of model.features) drawFeature(featureLayer, feature).attr({ 'data-id': feature.featureId, 'data-kind': 'feature', 'data-feature-kind': feature.kind });
   const ties = plan.group().attr('data-layer', 'ties');
   for (const tie of model.ties) drawTieLine(ties, tie.from, tie.to).attr({ 'data-tie': `${tie.itemId}:${tie.referencePointId}` });
   const runs = plan.group().attr('data-layer', 'runs');
@@ -110,8 +114,8 @@ export function renderSitePlan(model: SitePlanModel, options: SitePlanOptions): 
         size: label.fontSize,
         halo: true,
         weight: label.kind === 'item' || (label.kind === 'run' && i === 0) ? 'bold' : 'normal',
-        italic: label.kind === 'reference',
-        fill: REFERENCE_INK,
+        italic: label.kind === 'reference' || label.kind === 'feature',
+        fill: label.kind === 'feature' ? FEATURE_LABEL : REFERENCE_INK,
       });
     });
   }
@@ -195,6 +199,7 @@ function drawLegendSwatch(g: Container, key: LegendKey, x: number, y: number): v
   else if (key === 'tie') drawTieLine(g, { x: x - 6.5, y }, { x: x + 24.5, y });
   else if (key === 'accuracy') drawAccuracyCircle(g, c, 4.5);
   else if (key === 'shallow') drawShallowMarker(g, c);
+  else if (key === 'feature') drawFeature(g, { shape: 'polygon', kind: 'house', points: [{ x, y: y - 3.5 }, { x: x + 18, y: y - 3.5 }, { x: x + 18, y: y + 3.5 }, { x, y: y + 3.5 }] });
   else if (key === 'route_not_recorded') drawRunLine(g, 'direct_burial', [{ x, y }, { x: x + 18, y }], false);
   else if (key.startsWith('run:')) drawRunLine(g, key.slice(4) as RunStyleKey, [{ x, y }, { x: x + 18, y }], true);
   else drawItemSymbol(g, key as ItemKind, c);

@@ -3,6 +3,7 @@ import type { AmplifierChannel, Item, Position } from '../domain/as-built/item.s
 import type { Run } from '../domain/as-built/run.schema.js';
 import type { CommissioningCheck } from '../domain/checks/commissioning-check.schema.js';
 import type { ChannelSetup } from '../domain/jobs/job-record.schema.js';
+import type { SiteFeatureKind, SiteFeatureShape } from '../domain/sites/site-feature.schema.js';
 import type {
   AmplifierChannelRow,
   CommissioningCheckRow,
@@ -17,6 +18,7 @@ import type {
   NewRunRoutePointRow,
   NewRunRow,
   ReferencePointRow,
+  SiteFeatureRow,
   RunPairRow,
   RunRoutePointRow,
   RunRow,
@@ -35,6 +37,8 @@ export interface JobRecordRows {
   site: Pick<Site, 'northAzimuthDeg' | 'originLat' | 'originLon'>;
   zones: ZoneRow[];
   referencePoints: ReferencePointRow[];
+  /** The site's features (landmarks); absent where the caller does not load them. */
+  features?: SiteFeatureRow[];
   items: ItemRow[];
   channels: AmplifierChannelRow[];
   ties: ItemTieRow[];
@@ -217,6 +221,13 @@ export function toAsBuilt(rows: JobRecordRows): AsBuilt {
     site: {
       northAzimuthDeg,
       ...(originLat !== null && originLon !== null ? { origin: { lat: originLat, lon: originLon } } : {}),
+      ...(rows.features !== undefined && rows.features.length > 0
+        ? {
+            features: [...rows.features]
+              .sort(bySeq)
+              .map((f) => ({ id: f.id, kind: f.kind as SiteFeatureKind, name: f.name, shape: f.shape as SiteFeatureShape, points: f.points.map((p) => ({ x: p.x, y: p.y })) })),
+          }
+        : {}),
     },
     zones: [...rows.zones].sort(bySeq).map((z) => ({ id: z.id, name: z.name })),
     referencePoints: [...rows.referencePoints].sort(bySeq).map((p) => ({ id: p.id, label: p.label, x: p.x, y: p.y })),

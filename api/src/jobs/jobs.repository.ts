@@ -25,6 +25,7 @@ import {
   type NewRunRow,
   referencePoints,
   runPairs,
+  siteFeatures,
   runRoutePoints,
   runs,
   sites,
@@ -241,6 +242,7 @@ export class JobsRepository {
       .from(referencePoints)
       .where(eq(referencePoints.siteId, job.siteId))
       .orderBy(asc(referencePoints.seq));
+    const featureRows = await tx.select().from(siteFeatures).where(eq(siteFeatures.siteId, job.siteId)).orderBy(asc(siteFeatures.seq));
     const itemRows = await tx.select().from(items).where(eq(items.jobId, job.id)).orderBy(asc(items.seq));
     const channelRows = await tx
       .select({ channel: amplifierChannels })
@@ -281,6 +283,7 @@ export class JobsRepository {
       site: site!,
       zones: zoneRows,
       referencePoints: pointRows,
+      features: featureRows,
       items: itemRows,
       channels: channelRows.map((r) => r.channel),
       ties: tieRows.map((r) => r.tie),

@@ -7,6 +7,7 @@ import pg from 'pg';
 
 import { DEMO_AS_BUILT } from '../../domain/as-built/demo-as-built.js';
 import type { AsBuilt } from '../../domain/as-built/as-built.schema.js';
+import { DEMO_SITE_FEATURES } from '../../domain/sites/demo-site-features.js';
 import { toRecordRows } from '../../jobs/as-built-rows.js';
 import * as schema from '../schema/index.js';
 import {
@@ -148,6 +149,9 @@ export async function seedDemo(database: string | pg.Pool): Promise<{ lines: str
       const inProgressJob = await job(inProgressSite, DEMO_JOB_TITLES.inProgress, 'in_progress', ['2026-06-01', '2026-06-03']);
       await insertRecord(tx, IN_PROGRESS_AS_BUILT, inProgressJob, inProgressSite);
       await job(draftSite, DEMO_JOB_TITLES.draft, 'draft', ['2026-07-06', '2026-07-08']);
+
+      // Landmarks of the recorded site (house, fences, patio …): the locate map and drawings orient by them.
+      await tx.insert(schema.siteFeatures).values(DEMO_SITE_FEATURES.map((f) => ({ siteId: recordedSite, kind: f.kind, name: f.name, shape: f.shape, points: f.points })));
 
       const homeowner = userId(DEMO_EMAILS.homeowner);
       if (homeowner) await tx.insert(schema.siteHomeowners).values({ siteId: recordedSite, userId: homeowner });

@@ -1,7 +1,8 @@
 import { z } from 'zod';
 
 import { CommissioningCheckSchema } from '../checks/commissioning-check.schema.js';
-import { AS_BUILT_LIMITS, FiniteSchema, IdSchema, LabelSchema } from './common.schema.js';
+import { SITE_FEATURE_LIMITS, SiteFeatureKindSchema, SiteFeatureShapeSchema } from '../sites/site-feature.schema.js';
+import { AS_BUILT_LIMITS, FiniteSchema, IdSchema, LabelSchema, PlanPointSchema } from './common.schema.js';
 import { ItemSchema, ReferencePointSchema, type Item } from './item.schema.js';
 import { RunSchema, type Run } from './run.schema.js';
 
@@ -13,7 +14,22 @@ export type Zone = z.infer<typeof ZoneSchema>;
  * `northAzimuthDeg` is the true bearing (clockwise from true north) of the plan's +y axis: 0 when the
  * plan is drawn north-up. `origin` is the WGS84 position of plan (0, 0); without it no GeoJSON is made.
  */
+/**
+ * A landmark of the site (house, fence, patio …) as the drawings show it: read from the site, never
+ * written through a job's as-built (the site's own routes change them).
+ */
+export const PlanFeatureSchema = z.object({
+  id: IdSchema,
+  kind: SiteFeatureKindSchema,
+  name: LabelSchema,
+  shape: SiteFeatureShapeSchema,
+  points: z.array(PlanPointSchema).min(2).max(SITE_FEATURE_LIMITS.maxPoints),
+});
+export type PlanFeature = z.infer<typeof PlanFeatureSchema>;
+
 export const SiteFrameSchema = z.object({
+  /** The site's features (landmarks), drawn under the runs. */
+  features: z.array(PlanFeatureSchema).max(SITE_FEATURE_LIMITS.maxFeaturesPerSite).optional(),
   northAzimuthDeg: FiniteSchema.min(-360).max(360).optional(),
   origin: z
     .object({
