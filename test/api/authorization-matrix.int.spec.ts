@@ -9,6 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { analyzeAsBuilt } from '../../api/src/domain/analysis/analyze.js';
 import { DEMO_AS_BUILT } from '../../api/src/domain/as-built/demo-as-built.js';
+import { DEFAULT_DEPTH_RULES } from '../../api/src/domain/depth/depth-rules.js';
 import { ROLES, type Role } from '../../api/src/domain/auth/roles.js';
 import { DiskStorage } from '../../api/src/storage/disk-storage.js';
 import { OBJECT_STORAGE } from '../../api/src/storage/object-storage.js';
@@ -291,6 +292,37 @@ describe('authorization matrix', () => {
       call: () => ({ path: '/api/company/settings', body: { paperSize: 'letter' } }),
     },
     'GET /api/me/preferences': { expect: signedIn(200), call: () => ({ path: '/api/me/preferences' }) },
+    // The company profile: the admin writes it, the office reads it; each company's admin reaches only their own.
+    'GET /api/company/profile': { expect: only(['admin', 'office'], 200, 200), call: () => ({ path: '/api/company/profile' }) },
+    'PATCH /api/company/profile': {
+      expect: only(['admin'], 200, 200),
+      call: () => ({ path: '/api/company/profile', body: { phone: '(555) 010-0150', timeZone: 'America/Denver' } }),
+    },
+    'PUT /api/company/profile/logo': {
+      expect: only(['admin'], 200, 200),
+      call: () => ({ path: '/api/company/profile/logo', files: [{ field: 'file', name: 'logo.png', content: photoPng }] }),
+    },
+    // Both companies have a logo (arranged through each admin), so B's admin gets B's own.
+    'GET /api/company/profile/logo': {
+      expect: only(['admin', 'office'], 200, 200),
+      call: async () => {
+        await logosOfBothCompanies();
+        return { path: '/api/company/profile/logo' };
+      },
+    },
+    'DELETE /api/company/profile/logo': {
+      expect: only(['admin'], 200, 200),
+      call: async () => {
+        await logosOfBothCompanies();
+        return { path: '/api/company/profile/logo' };
+      },
+    },
+    'GET /api/company/depth-rules': { expect: only(['admin', 'office'], 200, 200), call: () => ({ path: '/api/company/depth-rules' }) },
+    'PUT /api/company/depth-rules': {
+      expect: only(['admin'], 200, 200),
+      call: () => ({ path: '/api/company/depth-rules', body: DEFAULT_DEPTH_RULES }),
+    },
+    'DELETE /api/company/depth-rules': { expect: only(['admin'], 200, 200), call: () => ({ path: '/api/company/depth-rules' }) },
     'PATCH /api/me/preferences': { expect: signedIn(200), call: () => ({ path: '/api/me/preferences', body: { lengthUnits: null } }) },
     'GET /api/jobs': { expect: staff(200, 200), isList: true, call: () => ({ path: '/api/jobs' }) },
     'POST /api/jobs': {
@@ -605,6 +637,14 @@ describe('authorization matrix', () => {
       call: async () => ({ path: `/api/locate/${(await locateLinkA()).token}/photos/${await trenchPhotoA()}/thumb` }),
     },
   };
+
+  /** Uploads a logo for company A and for company B through their admins. */
+  async function logosOfBothCompanies(): Promise<void> {
+    for (const caller of ['admin', 'otherCompany'] as const) {
+      const res = await request(app.getHttpServer()).put('/api/company/profile/logo').set(bearer(sessions.get(caller)!)).attach('file', photoPng, 'logo.png');
+      if (res.status !== 200) throw new Error(`logo upload → ${res.status} ${JSON.stringify(res.body)}`);
+    }
+  }
 
   /** A fresh locate link of site A (made by A's office), with its token. */
   async function locateLinkA(): Promise<{ id: string; token: string }> {

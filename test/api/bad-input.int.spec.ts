@@ -10,6 +10,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, beforeEach, describe, expect, inject, it } from 'vitest';
 
 import { DEMO_AS_BUILT } from '../../api/src/domain/as-built/demo-as-built.js';
+import { DEFAULT_DEPTH_RULES } from '../../api/src/domain/depth/depth-rules.js';
 import { ROLES } from '../../api/src/domain/auth/roles.js';
 import { DiskStorage } from '../../api/src/storage/disk-storage.js';
 import { OBJECT_STORAGE } from '../../api/src/storage/object-storage.js';
@@ -446,6 +447,49 @@ describe('bad input on every write route', () => {
         paperSize: { type: 'enum', values: ['letter', 'a4'] },
       },
     },
+    'PATCH /api/company/profile': {
+      input: 'json',
+      arrange: async () => ({
+        params: {},
+        body: {
+          tradeName: 'Bad Input Outdoor Sound',
+          phone: '(555) 010-0190',
+          email: 'office@bad-input.example',
+          website: 'https://bad-input.example',
+          postalAddress: '1 Test Row\nNowhere',
+          licenceNumbers: ['LV-0000 (invented)'],
+          timeZone: 'America/Denver',
+          locale: 'en-US',
+        },
+      }),
+      fields: {
+        tradeName: label,
+        phone: { type: 'string', max: 40, format: 'phone', nullable: true },
+        email: { ...email, nullable: true },
+        website: { type: 'string', max: 200, nullable: true },
+        postalAddress: { type: 'string', max: 500, nullable: true },
+        licenceNumbers: { type: 'array', max: 10 },
+        timeZone: { type: 'string', max: 64, nullable: true },
+        locale: { type: 'string', max: 35 },
+      },
+      texts: { tradeName: (r) => r.tradeName, postalAddress: (r) => r.postalAddress },
+    },
+    'PUT /api/company/profile/logo': { input: 'multipart', fileField: 'file', arrange: async () => ({ params: {}, body: {} }) },
+    'DELETE /api/company/profile/logo': {
+      input: 'none',
+      arrange: async (ctx) => {
+        const res = await request(server()).put('/api/company/profile/logo').set(bearer(ctx.session)).attach('file', photoPng, 'logo.png');
+        if (res.status !== 200) throw new Error(`logo upload → ${res.status} ${JSON.stringify(res.body)}`);
+        return { params: {} };
+      },
+    },
+    'PUT /api/company/depth-rules': {
+      input: 'json',
+      arrange: async () => ({ params: {}, body: structuredClone(DEFAULT_DEPTH_RULES) as unknown as Json }),
+      fields: { name: label, rules: { type: 'array', max: 200 } },
+      texts: { name: (r) => r.table.name },
+    },
+    'DELETE /api/company/depth-rules': { input: 'none', arrange: async () => ({ params: {} }) },
     'PATCH /api/me/preferences': {
       input: 'json',
       arrange: async () => ({ params: {}, body: { lengthUnits: 'metric', gaugeUnits: null } }),
@@ -1097,6 +1141,17 @@ describe('bad input on every write route', () => {
             jobId: base.jobId,
           });
         }
+      }
+    });
+
+    // Routes on the company's own record (its logo, its depth rules) take no path params and no JSON body:
+    // a malformed body must be refused before it reaches them.
+    itWhen(paramNames.length === 0 && (spec.input === 'none' || spec.input === 'multipart'))('refuses a malformed JSON body and changes nothing', async () => {
+      const base = await arranged(route, spec);
+      for (const { name, text } of MALFORMED_JSON_BODIES.slice(0, 3)) {
+        await expectRefused({ ...sentFor(route, spec, base), multipart: undefined, raw: { text, contentType: 'application/json' } }, `a body that is ${name}`, {
+          statuses: [400],
+        });
       }
     });
 
