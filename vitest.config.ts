@@ -1,4 +1,5 @@
 import react from '@vitejs/plugin-react';
+import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 
@@ -8,8 +9,16 @@ const drawings = fileURLToPath(new URL('./api/src/drawings', import.meta.url));
 // Nest's dependency injection needs decorator metadata; vite 8 transforms TypeScript with oxc.
 const nestTransform = { decorator: { legacy: true, emitDecoratorMetadata: true } };
 
+// Test files run side by side on every core: Vitest's default (cores - 1) would leave one of two cores
+// idle. Projects that run in parallel must share this number (Vitest groups them); LOAMLINE_TEST_WORKERS
+// overrides it. At most 4 by default: each integration worker runs a whole API (about 20 connections
+// at most) against PostgreSQL's default limit of 100. Files of the `system` project (faults and load
+// against real processes) run one at a time, after the rest.
+const workers = Number(process.env.LOAMLINE_TEST_WORKERS) || Math.min(Math.max(availableParallelism(), 2), 4);
+
 export default defineConfig({
   test: {
+    maxWorkers: workers,
     projects: [
       {
         oxc: nestTransform,
@@ -35,9 +44,11 @@ export default defineConfig({
           include: ['test/api/**/*.int.spec.ts'],
           globalSetup: ['test/setup/database.global.ts'],
           setupFiles: ['test/setup/api-env.ts'],
-          fileParallelism: false,
+          // Files run in parallel, each worker on its own copy of the database (test/setup/database.global.ts).
+          provide: { perWorkerDatabases: true },
           testTimeout: 30_000,
-          hookTimeout: 60_000,
+          // An app bootstrap (beforeAll) takes far longer while the other workers load both cores.
+          hookTimeout: 120_000,
         },
       },
       {
@@ -45,8 +56,8 @@ export default defineConfig({
           name: 'e2e',
           environment: 'node',
           include: ['test/e2e/**/*.e2e.spec.ts'],
-          globalSetup: ['test/setup/database.global.ts', 'test/setup/server.global.ts'],
-          fileParallelism: false,
+          globalSetup: ['test/setup/database.global.ts', 'test/setup/server.global.ts', 'test/setup/browser.global.ts'],
+          // Files run in parallel against the one server: each arranges its own company (createCompany).
           testTimeout: 60_000,
           hookTimeout: 120_000,
         },

@@ -27,8 +27,19 @@ try {
   rmSync(report, { force: true });
   const result = spawnSync(
     'npx',
-    ['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${report}`, ...process.argv.slice(2)],
-    { cwd: root, stdio: 'inherit' },
+    [
+      'vitest',
+      'run',
+      '--reporter=default',
+      '--reporter=json',
+      `--outputFile.json=${report}`,
+      // Per-file durations (imports and hooks included) for `npm run bench -- test-suite`.
+      '--reporter=./test/setup/suite-durations.reporter.ts',
+      ...process.argv.slice(2),
+    ],
+    // The builds above are what the browser and system tests run: their global set-ups need not hash the
+    // sources again (nor rebuild half-way through the run when a file changes meanwhile).
+    { cwd: root, stdio: 'inherit', env: { ...process.env, LOAMLINE_BUILDS_READY: '1' } },
   );
   status = result.status ?? 1;
   if (existsSync(report)) {

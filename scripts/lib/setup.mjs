@@ -308,6 +308,35 @@ export async function ensureDatabase(pg, database, { fresh = false } = {}) {
   return withDatabase(adminUrl, database);
 }
 
+/**
+ * Returns a URL for `database`, made afresh as a copy of `template` (CREATE DATABASE … TEMPLATE: the
+ * migrated schema and rows are copied, no migration runs again). Nobody may be connected to the template
+ * while it is copied; a session that is still closing gets a few moments.
+ */
+export async function cloneDatabase(pg, template, database) {
+  const { Client } = await importProjectPackage('pg');
+  const adminUrl = new URL(pg.adminUrl);
+  const client = new Client({ connectionString: pg.external ? withDatabase(adminUrl, 'postgres') : pg.adminUrl });
+  await client.connect();
+  try {
+    const quote = (name) => `"${name.replaceAll('"', '""')}"`;
+    await client.query(`drop database if exists ${quote(database)} with (force)`);
+    for (let attempt = 1; ; attempt += 1) {
+      try {
+        await client.query(`create database ${quote(database)} template ${quote(template)}`);
+        break;
+      } catch (error) {
+        // 55006 object_in_use: a session on the template has not ended yet.
+        if (error?.code !== '55006' || attempt >= 20) throw error;
+        await new Promise((resolve) => setTimeout(resolve, 100));
+      }
+    }
+  } finally {
+    await client.end();
+  }
+  return withDatabase(adminUrl, database);
+}
+
 function withDatabase(url, database) {
   const copy = new URL(url);
   copy.pathname = `/${database}`;

@@ -17,6 +17,7 @@ import { makePng } from '../fixtures/photos/make-photos.js';
 import { createCompany, createUser, TEST_PASSWORD, type TestCompany, withDb } from '../support/fixtures.js';
 import { type Api, apiAs, createJob, createSite, insertRecordedJob, insertSmallRecordedJob, moveJob } from '../support/records.js';
 import { bearer, type Session, signIn } from '../support/session.js';
+import { thisPartOf } from '../support/file-parts.js';
 import { createTestApp } from '../support/test-app.js';
 
 /**
@@ -765,7 +766,8 @@ describe('authorization matrix', () => {
     expect(new Set(served)).toEqual(new Set(Object.keys(routes)));
   });
 
-  describe.each(Object.entries(routes))('%s', (route, spec) => {
+  // Dealt out over this file and authorization-matrix.part-*.int.spec.ts, which run in parallel.
+  describe.each(thisPartOf(import.meta.url, Object.entries(routes)))('%s', (route, spec) => {
     const method = route.split(' ')[0]!.toLowerCase() as 'get' | 'post' | 'patch' | 'delete' | 'put';
     // A refused call changes nothing, so the refused callers of a route can share one arranged record.
     let refusedCall: Promise<Call> | undefined;

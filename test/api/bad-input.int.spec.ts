@@ -29,6 +29,7 @@ import { changedTables, type DbFingerprint, fingerprintDatabase } from '../suppo
 import { createCompany, createUser, type TestCompany, withDb } from '../support/fixtures.js';
 import { type Api, apiAs, createSite, insertRecordedJob, insertSmallRecordedJob } from '../support/records.js';
 import { bearer, type Session, signIn } from '../support/session.js';
+import { thisPartOf } from '../support/file-parts.js';
 import { createTestApp } from '../support/test-app.js';
 
 /**
@@ -1119,7 +1120,8 @@ describe('bad input on every write route', () => {
     expect(gone, `these cases name routes the API no longer serves: ${gone.join(', ')}`).toEqual([]);
   });
 
-  describe.each(Object.entries(routes).map(([route, spec], i) => [route, spec, i] as const))('%s', (route, spec, routeIndex) => {
+  // Dealt out over this file and bad-input.part-*.int.spec.ts, which run in parallel.
+  describe.each(thisPartOf(import.meta.url, Object.entries(routes).map(([route, spec], i) => [route, spec, i] as const)))('%s', (route, spec, routeIndex) => {
     // A failed check leaves whatever it wrote; start each test from the database as it is.
     beforeEach(async () => {
       fingerprint = await fingerprintDatabase(db);

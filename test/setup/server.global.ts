@@ -30,8 +30,11 @@ function freePort(): Promise<number> {
  * database, for the browser tests.
  */
 export default async function setup(project: TestProject): Promise<() => Promise<void>> {
-  ensureApiBuilt();
-  ensureWebBuilt();
+  // `npm test` builds both before Vitest starts (LOAMLINE_BUILDS_READY); a direct `npx vitest` builds here.
+  if (!process.env.LOAMLINE_BUILDS_READY) {
+    ensureApiBuilt();
+    ensureWebBuilt();
+  }
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
   const server: ChildProcess = spawn(process.execPath, [join(root, 'api/dist/main.js')], {
@@ -48,7 +51,8 @@ export default async function setup(project: TestProject): Promise<() => Promise
       LOCAL_SMTP_PORT: '0',
     },
   });
-  const deadline = Date.now() + 30_000;
+  // Generous: on two cores busy with other test files the API can take half a minute to boot.
+  const deadline = Date.now() + 90_000;
   for (;;) {
     if (server.exitCode !== null) throw new Error(`the server exited with ${server.exitCode}`);
     try {
@@ -56,7 +60,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
     } catch {
       // not listening yet
     }
-    if (Date.now() > deadline) throw new Error('the server did not become healthy within 30 s');
+    if (Date.now() > deadline) throw new Error('the server did not become healthy within 90 s');
     await new Promise((resolve) => setTimeout(resolve, 150));
   }
   project.provide('baseUrl', baseUrl);

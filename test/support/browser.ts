@@ -2,11 +2,12 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 
-import { type Browser, chromium } from 'playwright-core';
+import { type Browser, chromium, type LaunchOptions } from 'playwright-core';
+import { inject } from 'vitest';
 
 /** Debian's Chromium, launched the way this machine allows (no sandbox as root, no background network). */
-export async function launchChromium(): Promise<Browser> {
-  return chromium.launch({
+export function chromiumLaunchOptions(): LaunchOptions {
+  return {
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
     args: [
       '--no-sandbox',
@@ -18,7 +19,18 @@ export async function launchChromium(): Promise<Browser> {
       '--disable-sync',
       '--disable-dev-shm-usage',
     ],
-  });
+  };
+}
+
+/**
+ * A Chromium for this test file: the project's shared one (test/setup/browser.global.ts) when it runs,
+ * else a new one. Close it in afterAll either way (for the shared one that only disconnects); work in
+ * `browser.newContext()` so files do not share cookies.
+ */
+export async function launchChromium(): Promise<Browser> {
+  const wsEndpoint = inject('browserWsEndpoint');
+  if (wsEndpoint) return chromium.connect(wsEndpoint);
+  return chromium.launch(chromiumLaunchOptions());
 }
 
 /** A throwaway folder for screenshots or downloads, removed by the returned function. */

@@ -6,5 +6,6 @@ import { ensureApiBuilt } from '../../../scripts/lib/setup.mjs';
  * production; build the API first when its sources changed (as `npm test` does before Vitest).
  */
 export default function setup(): void {
-  ensureApiBuilt();
+  // `npm test` has built it just before Vitest started (LOAMLINE_BUILDS_READY).
+  if (!process.env.LOAMLINE_BUILDS_READY) ensureApiBuilt();
 }
