@@ -5,6 +5,7 @@ import { JwtService } from '@nestjs/jwt';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
+import { PasswordResetRequests } from '../../api/src/auth/password-reset-requests.js';
 import { createCompany, createUser, TEST_PASSWORD, type TestCompany, withDb } from '../support/fixtures.js';
 import { findToken, waitForMail } from '../support/mail.js';
 import { bearer, refreshCookieOf, signIn } from '../support/session.js';
@@ -203,7 +204,8 @@ describe('auth', () => {
       const res = await http().post('/api/auth/password-reset').send({ email }).expect(202);
       expect(res.body.message).toMatch(/if that address has an account/i);
       expect({ status: res.status, body: res.body }).toEqual({ status: known.status, body: known.body });
-      // Nothing was queued for it, so nothing can be sent later either.
+      // Once the requests are worked (in the background, for both alike), nothing was queued for it.
+      await app.get(PasswordResetRequests).idle();
       const counts = await withDb(async (db) =>
         (
           await db.query(

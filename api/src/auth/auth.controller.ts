@@ -93,10 +93,8 @@ export class AuthController {
   @HttpCode(HttpStatus.ACCEPTED)
   @UseGuards(SignInThrottlerGuard)
   @ApiOperation({ summary: 'E-mail a reset link (the answer is the same whether or not the account exists)' })
-  async requestPasswordReset(
-    @Body(new ZodValidationPipe(RequestPasswordResetSchema)) body: RequestPasswordResetInput,
-  ): Promise<{ message: string }> {
-    await this.authService.requestPasswordReset(body.email);
+  requestPasswordReset(@Body(new ZodValidationPipe(RequestPasswordResetSchema)) body: RequestPasswordResetInput): { message: string } {
+    this.authService.requestPasswordReset(body.email);
     return { message: 'If that address has an account, a reset link is on its way.' };
   }
 

@@ -1,4 +1,4 @@
-import { type BeforeApplicationShutdown, Module, type OnApplicationBootstrap } from '@nestjs/common';
+import { Module } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { JwtModule } from '@nestjs/jwt';
 import { PassportModule } from '@nestjs/passport';
@@ -13,8 +13,7 @@ import { AuthService } from './auth.service.js';
 import { JwtStrategy } from './jwt.strategy.js';
 import { LocalStrategy } from './local.strategy.js';
 import { PasswordHasher } from './password-hasher.js';
-import { PasswordResetQueue } from './password-reset-queue.js';
-import { PasswordResetRequestWorker } from './password-reset-request.worker.js';
+import { PasswordResetRequests } from './password-reset-requests.js';
 
 /** The account a sign-in or reset request names (lower-cased), or '' when it names none. */
 function accountOf(req: Record<string, unknown>): string {
@@ -77,19 +76,8 @@ function accountTracker(req: Record<string, unknown>): Promise<string> {
     PasswordHasher,
     LocalStrategy,
     JwtStrategy,
-    PasswordResetQueue,
-    PasswordResetRequestWorker,
+    PasswordResetRequests,
   ],
   exports: [AuthService, PasswordHasher],
 })
-export class AuthModule implements OnApplicationBootstrap, BeforeApplicationShutdown {
-  constructor(private readonly resetRequestWorker: PasswordResetRequestWorker) {}
-
-  onApplicationBootstrap(): void {
-    this.resetRequestWorker.startInBackground();
-  }
-
-  beforeApplicationShutdown(): void {
-    this.resetRequestWorker.stop();
-  }
-}
+export class AuthModule {}

@@ -18,7 +18,7 @@ import type {
 import { OutgoingMailService } from '../outgoing-mail/outgoing-mail.service.js';
 import { AuthRepository, type UserWithCompany } from './auth.repository.js';
 import { PasswordHasher } from './password-hasher.js';
-import { PasswordResetQueue } from './password-reset-queue.js';
+import { PasswordResetRequests } from './password-reset-requests.js';
 import { hashToken, newOpaqueToken, successorKey, successorToken } from './tokens.js';
 
 export interface ClientMeta {
@@ -64,9 +64,10 @@ export class AuthService {
     private readonly config: ConfigService<Env, true>,
     private readonly audit: AuditService,
     private readonly outgoingMail: OutgoingMailService,
-    private readonly resetRequests: PasswordResetQueue,
+    private readonly resetRequests: PasswordResetRequests,
   ) {
     this.successorKey = successorKey(this.config.get('JWT_ACCESS_SECRET', { infer: true }));
+    this.resetRequests.setWorker((email) => this.processPasswordResetRequest(email));
   }
 
   /**
@@ -221,12 +222,12 @@ export class AuthService {
 
   /**
    * Queues the request and answers: for an address with an account and one without, the request does
-   * exactly the same work (one queue message, nothing looked up), so neither the answer nor its timing
+   * exactly the same work (it is queued, nothing is looked up), so neither the answer nor its timing
    * tells who has an account, even while the mail server is down. The lookup and the e-mail happen in
-   * the background (`processPasswordResetRequest`).
+   * the background (`PasswordResetRequests`, then `processPasswordResetRequest`).
    */
-  async requestPasswordReset(email: string): Promise<void> {
-    await this.resetRequests.enqueue({ email });
+  requestPasswordReset(email: string): void {
+    this.resetRequests.add(email);
   }
 
   /** A queued reset request: a reset link is queued when the address belongs to an enabled account. */

@@ -31,6 +31,12 @@ class SharedBoss {
   private readonly logger = new Logger('PgBoss');
   private boss: Promise<PgBoss> | undefined;
   private readonly queues = new Map<string, Promise<void>>();
+  /**
+   * Queues are created one after another: pg-boss makes a table per queue, and two created at once
+   * (a worker starting while the first message of another queue is sent) failed with "deadlock
+   * detected", losing that send until the next sweep.
+   */
+  private creating: Promise<unknown> = Promise.resolve();
   private users = 0;
 
   private constructor(
@@ -63,10 +69,13 @@ class SharedBoss {
     const boss = await this.start();
     let created = this.queues.get(name);
     if (!created) {
-      created = boss.createQueue(name, { name, retryLimit, retryDelay, retryBackoff: true, expireInSeconds }).catch((error: unknown) => {
-        this.queues.delete(name);
-        throw error;
-      });
+      created = this.creating
+        .then(() => boss.createQueue(name, { name, retryLimit, retryDelay, retryBackoff: true, expireInSeconds }))
+        .catch((error: unknown) => {
+          this.queues.delete(name);
+          throw error;
+        });
+      this.creating = created.catch(() => undefined);
       this.queues.set(name, created);
     }
     await created;
@@ -115,6 +124,7 @@ class SharedBoss {
  */
 export abstract class PgBossQueue<T extends object> implements BeforeApplicationShutdown {
   private shared: SharedBoss | undefined;
+  private isStopped = false;
   private readonly workerIds: string[] = [];
   private readonly inFlight = new Set<Promise<void>>();
 
@@ -156,6 +166,7 @@ export abstract class PgBossQueue<T extends object> implements BeforeApplication
   }
 
   async beforeApplicationShutdown(): Promise<void> {
+    this.isStopped = true;
     const shared = this.shared;
     this.shared = undefined;
     if (!shared) return;
@@ -171,6 +182,9 @@ export abstract class PgBossQueue<T extends object> implements BeforeApplication
   }
 
   private boss(): Promise<PgBoss> {
+    // Late work during shutdown must not start a new instance nobody stops (committed rows that never
+    // reached the queue are swept up by the next start).
+    if (this.isStopped) return Promise.reject(new Error(`queue ${this.settings().name} is stopped`));
     this.shared ??= SharedBoss.acquire(this.config);
     return this.shared.queue(this.settings());
   }
