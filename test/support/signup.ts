@@ -22,7 +22,7 @@ export async function signUpCompany(app: NestExpressApplication, label: string):
   const http = () => request(app.getHttpServer());
   const asked = await http().post('/api/signup').send({ companyName: name, name: `Founder ${suffix}`, email, password: TEST_PASSWORD });
   if (asked.status !== 202) throw new Error(`sign-up of ${name} → ${asked.status} ${JSON.stringify(asked.body)}`);
-  const token = findToken(await waitForMail(email, { subject: 'Confirm your address' }), '/sign-up/verify');
+  const token = findToken(await waitForMail(email, { subject: 'Confirm your address', timeoutMs: 30_000 }), '/sign-up/verify');
   const verified = await http().post('/api/signup/verify').send({ token });
   if (verified.status !== 200) throw new Error(`verifying ${name} → ${verified.status} ${JSON.stringify(verified.body)}`);
   return {
@@ -46,7 +46,7 @@ export async function inviteAndAccept(
   const http = () => request(app.getHttpServer());
   const invited = await http().post('/api/invitations').set(bearer(admin)).send({ email, role });
   if (invited.status !== 201) throw new Error(`inviting ${role} → ${invited.status} ${JSON.stringify(invited.body)}`);
-  const token = findToken(await waitForMail(email), '/accept-invitation');
+  const token = findToken(await waitForMail(email, { timeoutMs: 30_000 }), '/accept-invitation');
   const accepted = await http().post('/api/auth/invitations/accept').send({ token, name: `Invited ${role}`, password: TEST_PASSWORD });
   if (accepted.status !== 200) throw new Error(`accepting ${role} → ${accepted.status} ${JSON.stringify(accepted.body)}`);
   return {
