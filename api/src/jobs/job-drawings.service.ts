@@ -10,6 +10,12 @@ import { DrawingRenderer, drawingEtag, type RenderedDrawing } from './drawing-re
 import type { DrawingTask } from './drawing-task.js';
 import { JobsService } from './jobs.service.js';
 
+/** What a load yields: the drawing to make and its ETag. */
+interface Loaded {
+  task: DrawingTask;
+  etag: string;
+}
+
 /** A drawing answer: the SVG, or only its ETag when the client already holds that version. */
 export type DrawingAnswer = { etag: string; isNotModified: true } | ({ isNotModified: false } & RenderedDrawing);
 
@@ -31,7 +37,7 @@ export const DRAWING_LOADS_AT_ONCE = 3;
 export class JobDrawingsService {
   private readonly loads = new ConcurrencyLimiter({ concurrency: DRAWING_LOADS_AT_ONCE, maxQueue: 2000, maxWaitMs: 60_000, name: 'drawing requests' });
   /** Loads queued but not started, by request key; a load leaves this map when it starts. */
-  private readonly queuedLoads = new Map<string, Promise<{ data: JobAsBuiltResponse; task: DrawingTask }>>();
+  private readonly queuedLoads = new Map<string, Promise<Loaded>>();
 
   constructor(
     private readonly jobs: JobsService,
@@ -44,13 +50,15 @@ export class JobDrawingsService {
   }
 
   /** Loads once for every identical request that arrives while this one waits for its turn. */
-  private load(actor: AuthUser, key: string, work: () => Promise<{ data: JobAsBuiltResponse; task: DrawingTask }>) {
+  private load(actor: AuthUser, key: string, work: () => Promise<{ data: JobAsBuiltResponse; task: DrawingTask }>): Promise<Loaded> {
     const fullKey = `${actor.id}:${actor.role}:${key}`;
     const queued = this.queuedLoads.get(fullKey);
     if (queued) return queued;
-    const loading = this.loads.run(() => {
+    const loading = this.loads.run(async () => {
       if (this.queuedLoads.get(fullKey) === loading) this.queuedLoads.delete(fullKey);
-      return work();
+      const { data, task } = await work();
+      // Hashed once per load, not once per request sharing it.
+      return { task, etag: drawingEtag(task, { jobId: data.job.id, version: data.job.version, revision: data.job.revision }) };
     });
     this.queuedLoads.set(fullKey, loading);
     // A load refused in the queue (busy) must not stay behind for later requests.
@@ -62,7 +70,7 @@ export class JobDrawingsService {
 
   async sitePlan(actor: AuthUser, jobId: string, query: SitePlanDrawingQuery, ifNoneMatch: string | undefined): Promise<DrawingAnswer> {
     const key = JSON.stringify(['site-plan', jobId, query.units ?? null, query.paper ?? null, query.layers ?? []]);
-    const { data, task } = await this.load(actor, key, async () => {
+    const loaded = await this.load(actor, key, async () => {
       const data = await this.jobs.asBuilt(actor, jobId);
       const planImage = await this.planImages.forDrawing(actor.companyId, data.job.site.id);
       const { job } = data;
@@ -78,30 +86,29 @@ export class JobDrawingsService {
       };
       return { data, task };
     });
-    return this.answer(data, task, ifNoneMatch);
+    return this.answer(loaded, ifNoneMatch);
   }
 
   async schematic(actor: AuthUser, jobId: string, query: DrawingQuery, ifNoneMatch: string | undefined): Promise<DrawingAnswer> {
-    const { data, task } = await this.load(actor, JSON.stringify(['schematic', jobId, query.units ?? null]), async () => {
+    const loaded = await this.load(actor, JSON.stringify(['schematic', jobId, query.units ?? null]), async () => {
       const data = await this.jobs.asBuilt(actor, jobId);
       return { data, task: { kind: 'schematic', ...this.base(data, query) } };
     });
-    return this.answer(data, task, ifNoneMatch);
+    return this.answer(loaded, ifNoneMatch);
   }
 
   async depthProfile(actor: AuthUser, jobId: string, runId: string, query: DrawingQuery, ifNoneMatch: string | undefined): Promise<DrawingAnswer> {
-    const { data, task } = await this.load(actor, JSON.stringify(['depth-profile', jobId, runId, query.units ?? null]), async () => {
+    const loaded = await this.load(actor, JSON.stringify(['depth-profile', jobId, runId, query.units ?? null]), async () => {
       const data = await this.jobs.asBuilt(actor, jobId);
       if (!data.asBuilt.runs.some((run) => run.id === runId)) {
         throw new NotFoundException({ message: 'No such run on this job.', code: 'RUN_NOT_FOUND' });
       }
       return { data, task: { kind: 'depth-profile', ...this.base(data, query), runId } };
     });
-    return this.answer(data, task, ifNoneMatch);
+    return this.answer(loaded, ifNoneMatch);
   }
 
-  private async answer(data: JobAsBuiltResponse, task: DrawingTask, ifNoneMatch: string | undefined): Promise<DrawingAnswer> {
-    const etag = drawingEtag(task, { jobId: data.job.id, version: data.job.version, revision: data.job.revision });
+  private async answer({ task, etag }: Loaded, ifNoneMatch: string | undefined): Promise<DrawingAnswer> {
     if (ifNoneMatch !== undefined && matchesEtag(ifNoneMatch, etag)) return { etag, isNotModified: true };
     return { isNotModified: false, ...(await this.renderer.render(task, etag)) };
   }
