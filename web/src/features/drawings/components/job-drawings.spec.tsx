@@ -32,6 +32,7 @@ function site(overrides: Partial<SiteResponse> = {}): SiteResponse {
     referencePoints: [],
     homeowners: [],
     jobs: [],
+    version: 1,
     createdAt: '2026-04-18T09:00:00.000Z',
     updatedAt: '2026-04-18T09:00:00.000Z',
     ...overrides,

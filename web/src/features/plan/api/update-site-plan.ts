@@ -4,18 +4,33 @@ import type { PlanCalibration, SiteResponse } from '@domain/sites/site.schema';
 import { apiRequest } from '../../../lib/api-client';
 import { responseOf } from '../../jobs/api/response';
 import { getSiteQueryOptions } from '../../sites/api/get-site';
+import { sendSiteWrite, siteIfMatch, type SiteVersionResponse } from '../../sites/api/site-write';
 
 /** What the plan editor changes on a site: the image calibration or the north direction. */
 export type SitePlanChange = { planCalibration: PlanCalibration } | { northAzimuthDeg: number };
 
-export function updateSitePlan({ siteId, change }: { siteId: string; change: SitePlanChange }): Promise<SiteResponse> {
-  return apiRequest(`/api/sites/${encodeURIComponent(siteId)}`, responseOf<SiteResponse>(), { method: 'PATCH', body: change });
+/** Changes the plan's frame on top of the site's `version` (If-Match). */
+export function updateSitePlan({
+  siteId,
+  change,
+  version,
+}: {
+  siteId: string;
+  change: SitePlanChange;
+  version: number;
+}): Promise<SiteResponse & SiteVersionResponse> {
+  return apiRequest(`/api/sites/${encodeURIComponent(siteId)}`, responseOf<SiteResponse & SiteVersionResponse>(), {
+    method: 'PATCH',
+    body: change,
+    headers: siteIfMatch(version),
+  });
 }
 
 export function useUpdateSitePlan() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: updateSitePlan,
+    mutationFn: (args: { siteId: string; change: SitePlanChange }) =>
+      sendSiteWrite(queryClient, args.siteId, (version) => updateSitePlan({ ...args, version })),
     onSuccess: (site, { siteId }) => {
       queryClient.setQueryData(getSiteQueryOptions(siteId).queryKey, site);
       return Promise.all([

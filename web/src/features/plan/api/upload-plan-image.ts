@@ -1,20 +1,22 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { SiteResponse } from '@domain/sites/site.schema';
+import type { PlanImageUploadResponse } from '@domain/sites/site.schema';
 
 import { apiRequest } from '../../../lib/api-client';
 import { responseOf } from '../../jobs/api/response';
 import { getSiteQueryOptions } from '../../sites/api/get-site';
+import { sendSiteWrite, siteIfMatch, type SiteVersionResponse } from '../../sites/api/site-write';
 
 /** The image types the API takes for a site plan. */
 export const PLAN_IMAGE_TYPES = ['image/jpeg', 'image/png', 'image/webp'] as const;
 
-/** Puts `file` as the site's plan image (replacing one, which also clears the calibration). */
-export function uploadPlanImage({ siteId, file }: { siteId: string; file: File }): Promise<SiteResponse> {
+/** Puts `file` as the site's plan image on top of the site's `version` (replacing one also clears the calibration). */
+export function uploadPlanImage({ siteId, file, version }: { siteId: string; file: File; version: number }): Promise<PlanImageUploadResponse & SiteVersionResponse> {
   const form = new FormData();
   form.append('file', file);
-  return apiRequest(`/api/sites/${encodeURIComponent(siteId)}/plan-image`, responseOf<SiteResponse>(), {
+  return apiRequest(`/api/sites/${encodeURIComponent(siteId)}/plan-image`, responseOf<PlanImageUploadResponse & SiteVersionResponse>(), {
     method: 'PUT',
     body: form,
+    headers: siteIfMatch(version),
     timeoutMs: 120_000,
   });
 }
@@ -22,10 +24,13 @@ export function uploadPlanImage({ siteId, file }: { siteId: string; file: File }
 export function useUploadPlanImage() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: uploadPlanImage,
+    mutationFn: (args: { siteId: string; file: File }) => sendSiteWrite(queryClient, args.siteId, (version) => uploadPlanImage({ ...args, version })),
     onSuccess: (site, { siteId }) => {
       queryClient.setQueryData(getSiteQueryOptions(siteId).queryKey, site);
-      return queryClient.invalidateQueries({ queryKey: getSiteQueryOptions(siteId).queryKey });
+      return Promise.all([
+        queryClient.invalidateQueries({ queryKey: getSiteQueryOptions(siteId).queryKey }),
+        queryClient.invalidateQueries({ queryKey: ['jobs', 'detail'] }),
+      ]);
     },
   });
 }

@@ -17,6 +17,7 @@ import { useJobWriter } from '../../jobs/hooks/job-writer';
 import { jobPermissions } from '../../jobs/utils/job-permissions';
 import type { SiteResponse } from '../../sites/api/get-site';
 import { useSaveReferencePoint } from '../../sites/api/save-reference-point';
+import { useSiteConflict } from '../../sites/hooks/use-site-conflict';
 import { usePlanImageUrl } from '../api/get-plan-image';
 import { planImageOf } from '../api/site-plan-image';
 import { useUpdateSitePlan } from '../api/update-site-plan';
@@ -106,9 +107,11 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
   const { job, asBuilt, analysis } = data;
   const permissions = jobPermissions(actor, job);
   const canRecord = permissions.canRecord;
-  const canSite = canChangeSitePlan(actor.role);
-  const canUpload = canUploadPlanImage(actor.role);
-  const canReference = canAddReferencePoint(actor.role);
+  // A crew lead changes the site's plan only from an open job they are on (the API's rule, issue 18 §2).
+  const isSiteCrew = actor.role !== 'lead' || canRecord;
+  const canSite = canChangeSitePlan(actor.role) && isSiteCrew;
+  const canUpload = canUploadPlanImage(actor.role) && isSiteCrew;
+  const canReference = canAddReferencePoint(actor.role) && isSiteCrew;
   const tools = useMemo<PlanTool[]>(
     () => [
       'select',
@@ -169,6 +172,8 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
   const saveReference = useSaveReferencePoint();
   const uploadImage = useUploadPlanImage();
   const updateSite = useUpdateSitePlan();
+  // Site writes name the site's version: "someone changed this site first" asks as job writes do.
+  const siteConflict = useSiteConflict();
 
   const planImage = planImageOf(site);
   const { href: imageHref, isError: isImageError } = usePlanImageUrl(planImage);
@@ -350,7 +355,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
     );
   };
 
-  const addReference = (label: string) => {
+  const addReference = (label: string): void => {
     if (!pendingReference) return;
     const point = roundPlanPoint(pendingReference.point);
     setReferenceError(undefined);
@@ -361,12 +366,14 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
           setPendingReference(undefined);
           notify.success('Reference point added', created.label);
         },
-        onError: (error) => setReferenceError(describeRequestError(error)),
+        onError: (error) => {
+          if (!siteConflict.handle(error, `adding the reference point “${label}”`, () => addReference(label))) setReferenceError(describeRequestError(error));
+        },
       },
     );
   };
 
-  const saveCalibration = () => {
+  const saveCalibration = (): void => {
     const { a, b } = calibration;
     if (!a || !b) return;
     const distance = parseLength(calibration.distance, units.length, 'long');
@@ -382,12 +389,15 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
           setCalibration({ distance: '' });
           notify.success('Scale saved', `A to B is ${formatLong(distance.metres)}.`);
         },
-        onError: (error) => setCalibration((current) => ({ ...current, error: describeRequestError(error) })),
+        onError: (error) => {
+          if (siteConflict.handle(error, 'the plan’s scale', saveCalibration)) return;
+          setCalibration((current) => ({ ...current, error: describeRequestError(error) }));
+        },
       },
     );
   };
 
-  const upload = (file: File) => {
+  const upload = (file: File): void => {
     uploadImage.mutate(
       { siteId: site.id, file },
       {
@@ -398,12 +408,14 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
             canSite ? 'Now tap two points on it and give the distance between them.' : 'The office sets its scale; until then it is shown at a rough size.',
           );
         },
-        onError: (error) => notify.error('Could not upload the image', describeRequestError(error)),
+        onError: (error) => {
+          if (!siteConflict.handle(error, 'the plan image', () => upload(file))) notify.error('Could not upload the image', describeRequestError(error));
+        },
       },
     );
   };
 
-  const saveNorth = () => {
+  const saveNorth = (): void => {
     const value = Number((northDraft ?? '').replace(',', '.'));
     if (northDraft === undefined || northDraft.trim() === '' || !Number.isFinite(value) || value < -360 || value > 360) {
       setNorthError('Enter a bearing in degrees, from 0 to 360.');
@@ -417,7 +429,9 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
           setNorthDraft(undefined);
           notify.success('North saved', `The plan’s top faces ${value}°.`);
         },
-        onError: (error) => setNorthError(describeRequestError(error)),
+        onError: (error) => {
+          if (!siteConflict.handle(error, 'the plan’s north', saveNorth)) setNorthError(describeRequestError(error));
+        },
       },
     );
   };
@@ -628,6 +642,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
   return (
     <>
       <title>{`Plan: ${job.title} · Loamline`}</title>
+      {siteConflict.dialog}
       <header className={styles.header}>
         <Link to={paths.job.getHref(job.id)} className={styles.back} aria-label={`Back to the job ${job.title}`}>
           <ArrowLeft24Regular aria-hidden />

@@ -5,28 +5,33 @@ import { apiRequest } from '../../../lib/api-client';
 import { responseOf } from '../../jobs/api/response';
 
 import { getSiteQueryOptions } from './get-site';
+import { sendSiteWrite, siteIfMatch, type SiteVersionResponse } from './site-write';
 
-/** Adds a reference point to a site (no `pointId`) or changes one. */
+/** Adds a reference point to a site (no `pointId`) or changes one, on top of the site's `version`. */
 export function saveReferencePoint({
   siteId,
   pointId,
   input,
+  version,
 }: {
   siteId: string;
   pointId?: string;
   input: CreateReferencePointInput;
-}): Promise<ReferencePointResponse> {
+  version: number;
+}): Promise<ReferencePointResponse & SiteVersionResponse> {
   const base = `/api/sites/${encodeURIComponent(siteId)}/reference-points`;
-  return apiRequest(pointId ? `${base}/${encodeURIComponent(pointId)}` : base, responseOf<ReferencePointResponse>(), {
+  return apiRequest(pointId ? `${base}/${encodeURIComponent(pointId)}` : base, responseOf<ReferencePointResponse & SiteVersionResponse>(), {
     method: pointId ? 'PATCH' : 'POST',
     body: input,
+    headers: siteIfMatch(version),
   });
 }
 
 export function useSaveReferencePoint() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: saveReferencePoint,
+    mutationFn: (args: { siteId: string; pointId?: string; input: CreateReferencePointInput }) =>
+      sendSiteWrite(queryClient, args.siteId, (version) => saveReferencePoint({ ...args, version })),
     onSuccess: (_point, { siteId }) =>
       Promise.all([
         queryClient.invalidateQueries({ queryKey: getSiteQueryOptions(siteId).queryKey }),

@@ -10,6 +10,7 @@ import { formatLength, lengthInputValue, parseLength } from '../../../lib/units'
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 import { useDeleteReferencePoint } from '../api/delete-reference-point';
 import { useSaveReferencePoint } from '../api/save-reference-point';
+import { useSiteConflict } from '../hooks/use-site-conflict';
 
 const useStyles = makeStyles({
   list: { listStyle: 'none', margin: 0, padding: 0, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
@@ -54,11 +55,25 @@ export function ReferencePoints({ siteId, points, canEdit }: { siteId: string; p
   const restore = useSaveReferencePoint();
   const [deleting, setDeleting] = useState<ReferencePointResponse | undefined>();
   const [deleteError, setDeleteError] = useState<string | undefined>();
+  const conflict = useSiteConflict();
 
   const askDelete = (point: ReferencePointResponse) => {
     setDeleteError(undefined);
     setDeleting(point);
   };
+
+  const putBack = (point: ReferencePointResponse) =>
+    restore.mutate(
+      { siteId, input: { label: point.label, x: point.x, y: point.y } },
+      {
+        onSuccess: () => notify.success('Reference point put back', point.label),
+        onError: (error) => {
+          if (!conflict.handle(error, `putting back “${point.label}”`, () => putBack(point))) {
+            notify.error('Could not put the point back', describeRequestError(error));
+          }
+        },
+      },
+    );
 
   const confirmDelete = () => {
     if (!deleting) return;
@@ -69,17 +84,12 @@ export function ReferencePoints({ siteId, points, canEdit }: { siteId: string; p
         onSuccess: () => {
           setDeleting(undefined);
           // Cheap to take back: the same name and coordinates, as a new point.
-          notify.undoable(`Reference point “${point.label}” deleted`, () =>
-            restore.mutate(
-              { siteId, input: { label: point.label, x: point.x, y: point.y } },
-              {
-                onSuccess: () => notify.success('Reference point put back', point.label),
-                onError: (error) => notify.error('Could not put the point back', describeRequestError(error)),
-              },
-            ),
-          );
+          notify.undoable(`Reference point “${point.label}” deleted`, () => putBack(point));
         },
-        onError: (error) => setDeleteError(describeRequestError(error)),
+        onError: (error) => {
+          if (conflict.handle(error, `deleting “${point.label}”`, confirmDelete)) setDeleting(undefined);
+          else setDeleteError(describeRequestError(error));
+        },
       },
     );
   };
@@ -125,6 +135,7 @@ export function ReferencePoints({ siteId, points, canEdit }: { siteId: string; p
             </Button>
           </div>
         ))}
+      {conflict.dialog}
       <ConfirmDialog
         open={deleting !== undefined}
         title={`Delete the reference point “${deleting?.label ?? ''}”?`}
@@ -151,6 +162,7 @@ function PointForm({ siteId, point, onDone }: { siteId: string; point?: Referenc
   const styles = useStyles();
   const notify = useNotify();
   const save = useSaveReferencePoint();
+  const conflict = useSiteConflict();
   const [units] = useUnitPreferences();
   const [label, setLabel] = useState(point?.label ?? '');
   const [x, setX] = useState(point ? lengthInputValue(point.x, units.length, 'long') : '');
@@ -164,8 +176,8 @@ function PointForm({ siteId, point, onDone }: { siteId: string; point?: Referenc
     return parsed.ok ? (isNegative ? -parsed.metres : parsed.metres) : undefined;
   };
 
-  const submit = (event: FormEvent) => {
-    event.preventDefault();
+  const submit = (event?: FormEvent) => {
+    event?.preventDefault();
     const parsed = CreateReferencePointSchema.safeParse({ label, x: coordinate(x), y: coordinate(y) });
     if (!parsed.success) {
       setErrors(fieldErrorsFromZod<Field>(parsed.error));
@@ -179,6 +191,7 @@ function PointForm({ siteId, point, onDone }: { siteId: string; point?: Referenc
           onDone();
         },
         onError: (error) => {
+          if (conflict.handle(error, point ? `changing “${point.label}”` : `adding “${parsed.data.label}”`, () => submit())) return;
           const found = fieldErrorsFromApi<Field>(error);
           if (Object.keys(found).length === 0) notify.error('Could not save the point', describeRequestError(error));
           setErrors(found);
@@ -206,6 +219,7 @@ function PointForm({ siteId, point, onDone }: { siteId: string; point?: Referenc
           Cancel
         </Button>
       </div>
+      {conflict.dialog}
     </form>
   );
 }

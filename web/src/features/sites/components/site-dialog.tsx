@@ -19,6 +19,7 @@ import { CreateSiteSchema, type SiteResponse } from '@domain/sites/site.schema';
 import { useNotify } from '../../../components/notify';
 import { describeRequestError, fieldErrorsFromApi, fieldErrorsFromZod, type FieldErrors } from '../../../lib/form-errors';
 import { useSaveSite } from '../api/save-site';
+import { useSiteConflict } from '../hooks/use-site-conflict';
 
 const useStyles = makeStyles({
   form: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },
@@ -41,6 +42,7 @@ export function SiteDialog({ customerId, site, onSaved }: { customerId: string; 
   const styles = useStyles();
   const notify = useNotify();
   const save = useSaveSite();
+  const conflict = useSiteConflict();
   const [open, setOpen] = useState(false);
   const [values, setValues] = useState<Record<Key, string>>({
     label: site?.label ?? '',
@@ -53,8 +55,8 @@ export function SiteDialog({ customerId, site, onSaved }: { customerId: string; 
   });
   const [errors, setErrors] = useState<FieldErrors<Key>>({});
 
-  const submit = (event: FormEvent) => {
-    event.preventDefault();
+  const submit = (event?: FormEvent) => {
+    event?.preventDefault();
     const orNull = (value: string) => (value.trim() === '' ? null : value);
     const parsed = CreateSiteSchema.safeParse({
       customerId,
@@ -77,6 +79,8 @@ export function SiteDialog({ customerId, site, onSaved }: { customerId: string; 
           onSaved?.(saved);
         },
         onError: (error) => {
+          // Someone changed the site meanwhile: keep what was typed, and ask (the form stays open).
+          if (site && conflict.handle(error, `the address of ${site.label}`, () => submit())) return;
           const found = fieldErrorsFromApi<Key>(error);
           if (Object.keys(found).length === 0) notify.error('Could not save the site', describeRequestError(error));
           setErrors(found);
@@ -118,6 +122,7 @@ export function SiteDialog({ customerId, site, onSaved }: { customerId: string; 
             </DialogActions>
           </DialogBody>
         </form>
+        {conflict.dialog}
       </DialogSurface>
     </Dialog>
   );

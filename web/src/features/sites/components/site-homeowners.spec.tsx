@@ -29,6 +29,7 @@ function buildSite(homeowners: SiteResponse['homeowners']): SiteResponse {
     referencePoints: [],
     homeowners,
     jobs: [],
+    version: 1,
     createdAt: '2026-04-01T09:00:00.000Z',
     updatedAt: '2026-04-01T09:00:00.000Z',
   };
