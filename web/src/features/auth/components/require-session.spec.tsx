@@ -6,7 +6,7 @@ import { apiErrorResponse, mockApi } from '../../../testing/mock-api';
 import { jsonResponse, renderApp } from '../../../testing/render-app';
 
 const admin = buildSessionUser('admin');
-const noLocalMail = () => apiErrorResponse(404, { message: 'No local mail.', code: 'NO_LOCAL_MAIL' });
+const noLocalMail = () => jsonResponse({ captured: false, destination: 'smtp://mail.relay.example:587' });
 
 describe('the signed-in area', () => {
   it('should send a signed-out visitor to sign-in with the way back', async () => {
@@ -24,7 +24,7 @@ describe('the signed-in area', () => {
       'POST /api/auth/refresh': () => jsonResponse(buildSessionResponse(admin, 'restored')),
       'GET /api/users': () => jsonResponse([buildUserResponse('admin')]),
       'GET /api/invitations': () => jsonResponse([]),
-      'GET /api/outbox?page=1&pageSize=25': noLocalMail,
+      'GET /api/outbox/status': noLocalMail,
     });
 
     renderApp({ url: '/users', signedInAs: 'unknown' });
@@ -38,7 +38,7 @@ describe('the signed-in area', () => {
     mockApi({
       'GET /api/users': () => apiErrorResponse(401, { message: 'Token expired.' }),
       'POST /api/auth/refresh': ended,
-      'GET /api/outbox?page=1&pageSize=25': noLocalMail,
+      'GET /api/outbox/status': noLocalMail,
     });
 
     const { router } = renderApp({ url: '/users', signedInAs: admin });

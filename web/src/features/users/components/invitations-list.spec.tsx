@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import type { InvitationResponse } from '@domain/auth/auth.schema';
 
 import { buildSessionUser, buildUserResponse } from '../../../testing/data';
-import { apiErrorResponse, mockApi } from '../../../testing/mock-api';
+import { mockApi } from '../../../testing/mock-api';
 import { jsonResponse, renderApp } from '../../../testing/render-app';
 
 const FAILED_ID = '3e0a6c1b-8d2f-4a57-9b1c-6f2e0d4a8b13';
@@ -22,7 +22,7 @@ function mockUsersPage(extra: Parameters<typeof mockApi>[0] = {}) {
   return mockApi({
     'GET /api/users': () => jsonResponse([buildUserResponse('admin')]),
     'GET /api/invitations': () => jsonResponse(invitations),
-    'GET /api/outbox?page=1&pageSize=25': () => apiErrorResponse(404, { message: 'No local mail.', code: 'NO_LOCAL_MAIL' }),
+    'GET /api/outbox/status': () => jsonResponse({ captured: false, destination: 'smtp://mail.relay.example:587' }),
     ...extra,
   });
 }

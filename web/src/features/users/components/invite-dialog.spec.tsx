@@ -10,7 +10,7 @@ function mockUsersPage(extra: Parameters<typeof mockApi>[0] = {}) {
   return mockApi({
     'GET /api/users': () => jsonResponse([buildUserResponse('admin'), buildUserResponse('office')]),
     'GET /api/invitations': () => jsonResponse([]),
-    'GET /api/outbox?page=1&pageSize=25': () => apiErrorResponse(404, { message: 'No local mail.', code: 'NO_LOCAL_MAIL' }),
+    'GET /api/outbox/status': () => jsonResponse({ captured: false, destination: 'smtp://mail.relay.example:587' }),
     ...extra,
   });
 }

@@ -2,7 +2,7 @@ import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 
 import { buildSessionUser, buildUserResponse } from '../../../testing/data';
-import { apiErrorResponse, mockApi } from '../../../testing/mock-api';
+import { mockApi } from '../../../testing/mock-api';
 import { jsonResponse, renderApp } from '../../../testing/render-app';
 
 const people = [
@@ -15,7 +15,7 @@ function mockUsersPage(extra: Parameters<typeof mockApi>[0] = {}) {
   return mockApi({
     'GET /api/users': () => jsonResponse(people),
     'GET /api/invitations': () => jsonResponse([]),
-    'GET /api/outbox?page=1&pageSize=25': () => apiErrorResponse(404, { message: 'No local mail.', code: 'NO_LOCAL_MAIL' }),
+    'GET /api/outbox/status': () => jsonResponse({ captured: false, destination: 'smtp://mail.relay.example:587' }),
     ...extra,
   });
 }
