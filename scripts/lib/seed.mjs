@@ -8,7 +8,20 @@ import { log, root } from './setup.mjs';
 /** Seeds the invented demo company, its users and jobs into `databaseUrl`; returns lines to print. */
 export async function seedDemo(databaseUrl) {
   const { seedDemo: seed } = await import(pathToFileURL(join(root, 'api/dist/db/seed/demo-seed.js')).href);
-  return seed(databaseUrl);
+  // The demo logo goes where the API keeps uploads (the same settings and defaults as api/src/config/env.schema.ts).
+  const { createObjectStorage } = await import(pathToFileURL(join(root, 'api/dist/storage/storage.module.js')).href);
+  const env = process.env;
+  const storage = createObjectStorage({
+    STORAGE_DRIVER: env.STORAGE_DRIVER === 's3' ? 's3' : 'disk',
+    UPLOADS_DIR: env.UPLOADS_DIR || '.data/uploads',
+    S3_BUCKET: env.S3_BUCKET,
+    S3_REGION: env.S3_REGION || 'us-east-1',
+    S3_ENDPOINT: env.S3_ENDPOINT,
+    S3_ACCESS_KEY_ID: env.S3_ACCESS_KEY_ID,
+    S3_SECRET_ACCESS_KEY: env.S3_SECRET_ACCESS_KEY,
+    S3_FORCE_PATH_STYLE: env.S3_FORCE_PATH_STYLE === 'true',
+  });
+  return seed(databaseUrl, { storage });
 }
 
 /**

@@ -1,14 +1,16 @@
-import { randomUUID } from 'node:crypto';
+import { createHash, randomUUID } from 'node:crypto';
 
 import { hash } from '@node-rs/argon2';
 import { and, eq, inArray } from 'drizzle-orm';
 import { drizzle } from 'drizzle-orm/node-postgres';
 import pg from 'pg';
+import sharp from 'sharp';
 
 import { DEMO_AS_BUILT } from '../../domain/as-built/demo-as-built.js';
 import type { AsBuilt } from '../../domain/as-built/as-built.schema.js';
 import { DEMO_SITE_FEATURES } from '../../domain/sites/demo-site-features.js';
 import { toRecordRows } from '../../jobs/as-built-rows.js';
+import type { ObjectStorage } from '../../storage/object-storage.js';
 import * as schema from '../schema/index.js';
 import {
   DEMO_COMPANY_NAME,
@@ -39,6 +41,35 @@ async function insertSite(tx: SeedTx, companyId: string, demo: DemoSite): Promis
     .values({ companyId, customerId: customer!.id, ...demo.site })
     .returning({ id: schema.sites.id });
   return site!.id;
+}
+
+/**
+ * The demo company's invented logo: a rounded orange square with a white sound wave and a small
+ * ground line, drawn here (no real brand), rasterised to the PNG the profile stores.
+ */
+export const DEMO_LOGO_SVG = `<svg xmlns="http://www.w3.org/2000/svg" width="480" height="480" viewBox="0 0 120 120">
+  <rect x="6" y="6" width="108" height="108" rx="24" fill="#c8581c"/>
+  <path d="M22 64 C 34 34, 46 94, 60 60 S 86 30, 98 58" stroke="#ffffff" stroke-width="9" fill="none" stroke-linecap="round"/>
+  <line x1="24" y1="92" x2="96" y2="92" stroke="#ffe3cf" stroke-width="5" stroke-linecap="round"/>
+</svg>`;
+
+/** The demo company's profile (invented contact details; 555-01xx numbers are reserved for fiction). */
+export const DEMO_PROFILE = {
+  contactPhone: '(555) 010-0199',
+  contactEmail: 'service@quillmoss.example',
+  website: 'https://quillmoss.example',
+  postalAddress: '400 Fernwhistle Road, Suite 2\nBramblecote, ZZ 00000',
+  licenceNumbers: ['Low-voltage contractor licence LV-000000 (invented)'],
+  timeZone: 'America/Denver',
+  locale: 'en-US',
+} as const;
+
+/** Stores the demo logo (a PNG under its SHA-256, as uploads are) and returns its key. */
+async function storeDemoLogo(storage: ObjectStorage, companyId: string): Promise<string> {
+  const png = await sharp(Buffer.from(DEMO_LOGO_SVG)).png({ compressionLevel: 9 }).toBuffer();
+  const key = `companies/${companyId}/logo/${createHash('sha256').update(png).digest('hex')}.png`;
+  if (!(await storage.exists(key))) await storage.put(key, png, 'image/png');
+  return key;
 }
 
 /**
@@ -96,7 +127,7 @@ async function seedCompanyAndUsers(tx: SeedTx): Promise<string> {
  * one draft; the demo homeowner is linked to the recorded job's site. Idempotent: when the company
  * already has its demo customers, no records are written. Returns lines to print (the sign-ins).
  */
-export async function seedDemo(database: string | pg.Pool): Promise<{ lines: string[] }> {
+export async function seedDemo(database: string | pg.Pool, options: { storage?: ObjectStorage } = {}): Promise<{ lines: string[] }> {
   const pool = typeof database === 'string' ? new pg.Pool({ connectionString: database, max: 1 }) : database;
   const db = drizzle(pool, { schema });
   try {
@@ -114,6 +145,13 @@ export async function seedDemo(database: string | pg.Pool): Promise<{ lines: str
         `demo jobs: "${DEMO_JOB_TITLES.recorded}" (submitted, fully recorded), "${DEMO_JOB_TITLES.inProgress}" (in progress), "${DEMO_JOB_TITLES.draft}" (draft)`,
       ];
       if (existing) return { lines };
+
+      // The company profile: contact, licence, time zone and (when a storage driver is given) the logo.
+      const logoKey = options.storage ? await storeDemoLogo(options.storage, company.id) : null;
+      await tx
+        .insert(schema.companySettings)
+        .values({ companyId: company.id, ...DEMO_PROFILE, licenceNumbers: [...DEMO_PROFILE.licenceNumbers], logoKey })
+        .onConflictDoUpdate({ target: schema.companySettings.companyId, set: { ...DEMO_PROFILE, licenceNumbers: [...DEMO_PROFILE.licenceNumbers], logoKey } });
 
       const people = await tx
         .select({ id: schema.users.id, email: schema.users.email })

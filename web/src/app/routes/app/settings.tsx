@@ -1,4 +1,4 @@
-import { makeStyles, Text, tokens } from '@fluentui/react-components';
+import { makeStyles, Spinner, Text, tokens } from '@fluentui/react-components';
 import type { QueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router';
 import { ROLES } from '@domain/auth/roles';
@@ -8,7 +8,10 @@ import { PageHeader } from '../../../components/page-header';
 import { requireRole } from '../../../features/auth/utils/require-user';
 import { UnitsChooser } from '../../../features/jobs/components/units-chooser';
 import { getCompanySettingsQueryOptions, useCompanySettings } from '../../../features/settings/api/get-company-settings';
+import { useCompanyProfile, useDepthRules } from '../../../features/settings/api/company-profile';
+import { CompanyProfileForm } from '../../../features/settings/components/company-profile-form';
 import { CompanySettingsForm } from '../../../features/settings/components/company-settings-form';
+import { DepthRulesEditor } from '../../../features/settings/components/depth-rules-editor';
 import { useSessionUser } from '../../../lib/session';
 
 const useStyles = makeStyles({
@@ -40,6 +43,30 @@ export const clientLoader =
     return null;
   };
 
+/** The company profile and depth rules, for the admin (who changes them) and the office (who reads them). */
+function CompanySections({ canChange }: { canChange: boolean }) {
+  const styles = useStyles();
+  const profile = useCompanyProfile();
+  const depthRules = useDepthRules();
+  return (
+    <>
+      <section className={styles.section} aria-labelledby="settings-profile">
+        <Text as="h3" id="settings-profile" size={500} weight="semibold" className={styles.title}>
+          Company profile
+        </Text>
+        <Text className={styles.muted}>What homeowners and anyone digging at a site see about you: packets, packet e-mails, the portal and the locate view.</Text>
+        {profile.data ? <CompanyProfileForm profile={profile.data} canChange={canChange} /> : <Spinner size="small" label="Loading the profile" />}
+      </section>
+      <section className={styles.section} aria-labelledby="settings-depth">
+        <Text as="h3" id="settings-depth" size={500} weight="semibold" className={styles.title}>
+          Depth rules
+        </Text>
+        {depthRules.data ? <DepthRulesEditor rules={depthRules.data} canChange={canChange} /> : <Spinner size="small" label="Loading the depth rules" />}
+      </section>
+    </>
+  );
+}
+
 /** Your own units, and the company's defaults (changed by an admin). */
 export default function SettingsRoute() {
   const styles = useStyles();
@@ -64,6 +91,7 @@ export default function SettingsRoute() {
           </Text>
           <CompanySettingsForm settings={settings} canChange={user.role === 'admin'} />
         </section>
+        {(user.role === 'admin' || user.role === 'office') && <CompanySections canChange={user.role === 'admin'} />}
       </div>
     </>
   );

@@ -5,7 +5,10 @@ import { apiRequest } from '../../../lib/api-client';
 import type { PacketRevision } from './get-job-packets';
 import { responseOf } from './response';
 
-export type IssuePacketResponse = PacketRevision & { jobVersion: number };
+/** Something the office should know about the issued packet (e.g. no contact phone in the company profile); it is issued all the same. */
+export type IssueWarning = { code: string; message: string };
+
+export type IssuePacketResponse = PacketRevision & { jobVersion: number; warnings?: IssueWarning[] };
 
 /** Issues the job's next packet revision on top of `version` (If-Match); the render is queued. */
 export function issuePacket(jobId: string, version: number): Promise<IssuePacketResponse> {

@@ -1,4 +1,4 @@
-import { Button, makeStyles, ProgressBar, Spinner, Text, tokens } from '@fluentui/react-components';
+import { Button, makeStyles, MessageBar, MessageBarBody, ProgressBar, Spinner, Text, tokens } from '@fluentui/react-components';
 import {
   ArrowDownload20Regular,
   CheckmarkCircle20Filled,
@@ -72,6 +72,11 @@ export function PacketCard({ jobId, jobVersion, canIssue }: PacketCardProps) {
         )}
       </div>
       {issue.isError && <Text className={styles.failed}>{describeRequestError(issue.error)}</Text>}
+      {issue.data?.warnings?.map((warning) => (
+        <MessageBar key={warning.code} intent="warning" layout="multiline">
+          <MessageBarBody>{warning.message}</MessageBarBody>
+        </MessageBar>
+      ))}
       {packets.isPending && <Spinner size="small" label="Loading revisions" />}
       {packets.isError && <Text className={styles.failed}>{describeRequestError(packets.error)}</Text>}
       {packets.data?.length === 0 && <Text>No revision issued yet.</Text>}
