@@ -4,6 +4,7 @@ import type { QueryClient } from '@tanstack/react-query';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router';
 
 import { RouteErrorPage } from '../../../components/errors/route-error-page';
+import { InstallerCard } from '../../../components/installer-card';
 import { PageHeader } from '../../../components/page-header';
 import { paths } from '../../../config/paths';
 import { requireRole } from '../../../features/auth/utils/require-user';
@@ -29,7 +30,6 @@ const useStyles = makeStyles({
   section: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
   heading: { margin: 0 },
   muted: { color: tokens.colorNeutralForeground2 },
-  contact: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalL },
   revisions: { margin: 0, paddingInlineStart: tokens.spacingHorizontalXL },
 });
 
@@ -83,15 +83,7 @@ export default function PortalSiteRoute() {
       </Link>
       <PageHeader title={site.label} description={`${site.addressLine1}, ${[site.postalCode, site.city].filter(Boolean).join(' ')}`} />
       <div className={styles.layout}>
-        <section className={styles.section} aria-labelledby="portal-installer">
-          <Text as="h3" id="portal-installer" size={500} weight="semibold" className={styles.heading}>
-            Installed by {installer.companyName}
-          </Text>
-          <div className={styles.contact}>
-            {installer.phone && <a href={`tel:${installer.phone.replace(/[^\d+]/g, '')}`}>{installer.phone}</a>}
-            {installer.email && <a href={`mailto:${installer.email}`}>{installer.email}</a>}
-          </div>
-        </section>
+        <InstallerCard installer={installer} headingId="portal-installer" headingLevel="h3" reason="portal" />
         <section className={styles.section} aria-labelledby="portal-packets">
           <Text as="h3" id="portal-packets" size={500} weight="semibold" className={styles.heading}>
             Handover packets

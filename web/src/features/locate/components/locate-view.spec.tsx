@@ -16,7 +16,7 @@ describe('Locate view', () => {
     expect(screen.getByText('Hand-dig within 18 in of any line on this map.')).toBeInTheDocument();
     expect(screen.getByText(/Depths are as installed/)).toBeInTheDocument();
     expect(screen.getByText('Buried cables · Garden Sound Co')).toBeInTheDocument();
-    expect(screen.getByRole('link', { name: /Call \+1 555 0100/ })).toHaveAttribute('href', 'tel:+15550100');
+    expect(screen.getByRole('link', { name: /Call the installer: \+1 555 0100/ })).toHaveAttribute('href', 'tel:+15550100');
     expect(screen.getByRole('link', { name: /E-mail office@gardensound.test/ })).toHaveAttribute('href', 'mailto:office@gardensound.test');
     expect(screen.queryByRole('navigation', { name: 'Main' })).not.toBeInTheDocument();
 

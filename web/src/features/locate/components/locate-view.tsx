@@ -1,7 +1,8 @@
 import { Button, makeStyles, Text, tokens } from '@fluentui/react-components';
-import { ArrowDownload20Regular, Call20Regular, Mail20Regular, Warning24Filled } from '@fluentui/react-icons';
+import { ArrowDownload20Regular, Warning24Filled } from '@fluentui/react-icons';
 import { useState } from 'react';
 
+import { InstallerCard } from '../../../components/installer-card';
 import { formatDate } from '../../../lib/format-date';
 import { formatLength } from '../../../lib/units';
 import type { LocateViewResponse } from '../api/get-locate-view';
@@ -180,26 +181,7 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
         {view.link.note && <Text>Note from the homeowner: {view.link.note}</Text>}
       </section>
 
-      <section className={styles.section} aria-labelledby="locate-installer">
-        <Text as="h2" id="locate-installer" size={500} weight="semibold" className={styles.heading}>
-          Installed by {installer.companyName}
-        </Text>
-        <div className={styles.contact}>
-          {installer.phone && (
-            <a href={`tel:${installer.phone.replace(/[^\d+]/g, '')}`} className={styles.contactLink}>
-              <Call20Regular aria-hidden="true" />
-              Call {installer.phone}
-            </a>
-          )}
-          {installer.email && (
-            <a href={`mailto:${installer.email}`} className={styles.contactLink}>
-              <Mail20Regular aria-hidden="true" />
-              E-mail {installer.email}
-            </a>
-          )}
-        </div>
-        {installer.licenceNumbers.length > 0 && <Text className={styles.muted}>Licence {installer.licenceNumbers.join(', ')}</Text>}
-      </section>
+      <InstallerCard installer={installer} headingId="locate-installer" reason="locate" />
 
       <section className={styles.section} aria-labelledby="locate-map">
         <Text as="h2" id="locate-map" size={500} weight="semibold" className={styles.heading}>
