@@ -78,6 +78,11 @@ if (existsSync(durationsFile)) {
   process.exit(1);
 }
 
+if (suite.files.length === 0) {
+  console.error(`${source} records no test file (did that run fail before its tests?): run \`npm test\` again.`);
+  process.exit(1);
+}
+
 const seconds = (ms: number) => ms / 1000;
 const busyOf = (f: FileDuration) => f.collect + f.setup + f.environment + f.tests;
 console.log(`from ${source}, recorded ${suite.recordedAt} (${suite.files.length} files, run ${suite.reason})`);

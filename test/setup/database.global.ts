@@ -13,6 +13,8 @@ declare module 'vitest' {
     workerDatabaseUrls: string[];
     /** Set in a project's `provide` (vitest.config.ts) to give each of its workers its own database. */
     perWorkerDatabases?: boolean;
+    /** The file filters of this `vitest run` (none: every file), for test/support/file-parts.ts. */
+    testFileFilters: string[];
   }
 }
 
@@ -50,5 +52,8 @@ export default async function setup(project: TestProject): Promise<() => void> {
   else for (let i = 1; i <= workers; i += 1) workerDatabaseUrls.push(await cloneDatabase(pg, name, `${name}_w${i}`));
   project.provide('databaseUrl', databaseUrl);
   project.provide('workerDatabaseUrls', workerDatabaseUrls);
+  // Vitest keeps the command line's file filters here (not a public field; absent means no filter).
+  const filters = (project.vitest as unknown as { filenamePattern?: string[] }).filenamePattern;
+  project.provide('testFileFilters', Array.isArray(filters) ? filters : []);
   return () => stopPostgres(pg);
 }

@@ -60,7 +60,11 @@ export default async function setup(project: TestProject): Promise<() => Promise
     } catch {
       // not listening yet
     }
-    if (Date.now() > deadline) throw new Error('the server did not become healthy within 90 s');
+    if (Date.now() > deadline) {
+      // No teardown runs when set-up throws: stop it here, or it outlives the run on its own.
+      server.kill('SIGKILL');
+      throw new Error('the server did not become healthy within 90 s');
+    }
     await new Promise((resolve) => setTimeout(resolve, 150));
   }
   project.provide('baseUrl', baseUrl);

@@ -1,8 +1,15 @@
 import { readdirSync } from 'node:fs';
-import { basename, dirname } from 'node:path';
+import { basename, dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
-import { expect } from 'vitest';
+import { expect, inject } from 'vitest';
+
+/** Whether Vitest's file filters of this run (substrings of the path; none: every file) select any of `files`. */
+function partsAreInThisRun(files: string[]): boolean {
+  const filters = inject('testFileFilters') ?? [];
+  if (files.length === 0) return false;
+  return filters.length === 0 || files.some((file) => filters.some((filter) => file.includes(filter)));
+}
 
 /**
  * Splits the table of a long table-driven test file (authorization-matrix, bad-input) into parts that
@@ -11,8 +18,9 @@ import { expect } from 'vitest';
  * Entries are dealt out in turn (entry i goes to part i mod count + 1), so each part gets a similar mix;
  * whatever the file does outside the table (beforeAll, whole-API checks) runs in every part.
  *
- * To run every part of one file, name it as a filter rather than a path:
- * `npx vitest run --project integration authorization-matrix`.
+ * Named by its path alone (`npx vitest run test/api/x.int.spec.ts`), the main file runs the whole
+ * table; a name filter (`npx vitest run --project integration authorization-matrix`) or a full run
+ * selects the part files too, and each runs its share.
  */
 export function thisPartOf<T>(mainFileUrl: string, entries: readonly T[]): T[] {
   const mainFile = fileURLToPath(mainFileUrl);
@@ -30,5 +38,8 @@ export function thisPartOf<T>(mainFileUrl: string, entries: readonly T[]): T[] {
   const running = expect.getState().testPath ?? mainFile;
   const index = running === mainFile ? 1 : Number(partPattern.exec(basename(running))?.[1]);
   if (!index) throw new Error(`${basename(running)} is not a part of ${basename(mainFile)}`);
+  // The main file named by its path alone (`npx vitest run test/api/x.int.spec.ts`): no part file is in
+  // this run, so the main file runs the whole table.
+  if (index === 1 && !partsAreInThisRun(parts.map((n) => join(dirname(mainFile), `${stem}.part-${n}.int.spec.ts`)))) return [...entries];
   return entries.filter((_, i) => i % count === index - 1);
 }
