@@ -100,12 +100,21 @@ function dependencyFingerprint() {
 
 const installStamp = () => join(root, 'node_modules', '.loamline-install-stamp');
 
-/** Installs npm dependencies with `npm ci` when node_modules is absent or does not match the lockfile. */
+/**
+ * Installs npm dependencies when node_modules is absent or does not match the lockfile: `npm ci` on a
+ * fresh clone; `npm install` (adds and updates in place, from the lockfile) when node_modules exists,
+ * because `npm ci` first deletes node_modules, under any test or server already running from it.
+ */
 export function ensureNpmDependencies() {
   const wanted = dependencyFingerprint();
   if (existsSync(installStamp()) && readFileSync(installStamp(), 'utf8') === wanted) return;
-  log('installing npm dependencies (npm ci)');
-  run('npm', ['ci', '--no-audit', '--no-fund'], { cwd: root });
+  if (existsSync(join(root, 'node_modules'))) {
+    log('updating npm dependencies (npm install)');
+    run('npm', ['install', '--no-audit', '--no-fund'], { cwd: root });
+  } else {
+    log('installing npm dependencies (npm ci)');
+    run('npm', ['ci', '--no-audit', '--no-fund'], { cwd: root });
+  }
   writeFileSync(installStamp(), wanted);
 }
 
