@@ -3,7 +3,7 @@ import ELKImport from 'elkjs/lib/elk.bundled.js';
 import type { ElkExtendedEdge, ElkNode } from 'elkjs/lib/elk.bundled.js';
 
 import type { AsBuiltAnalysis } from '../domain/analysis/analyze.js';
-import type { Finding, FindingSeverity } from '../domain/analysis/finding.js';
+import { FINDING_SEVERITY_LABELS, type Finding, type FindingSeverity } from '../domain/analysis/finding.js';
 import type { AsBuilt } from '../domain/as-built/as-built.schema.js';
 import type { Item } from '../domain/as-built/item.schema.js';
 import type { DrawingBaseOptions } from './drawing-options.js';
@@ -288,7 +288,6 @@ function drawBadge(parent: Container, badge: Badge, x: number, y: number): void 
   }
 }
 
-const SEVERITY_WORD: Record<FindingSeverity, string> = { critical: 'CRITICAL', warning: 'Warning', info: 'Note' };
 
 /**
  * Draws the wiring schematic: amplifier channels (with computed load, with and without cable, and the
@@ -346,7 +345,7 @@ export async function drawWiringSchematic(asBuilt: AsBuilt, analysis: AsBuiltAna
   const headerH = 16;
   const unconnectedHeadH = 14;
   const graphH = laidOut.reduce((sum, l) => sum + (l.graph.height ?? 0) * scale, 0) + (hasUnconnected ? unconnectedHeadH : 0);
-  const listLines = listed.map(({ badge, finding }) => wrapText(`${SEVERITY_WORD[badge.severity]}: ${finding.message}`, Math.floor((W - 20) / (6 * 0.6))));
+  const listLines = listed.map(({ badge, finding }) => wrapText(`${FINDING_SEVERITY_LABELS[badge.severity]}: ${finding.message}`, Math.floor((W - 20) / (6 * 0.6))));
   const listH = listed.length === 0 ? 12 : 14 + listLines.reduce((s, l) => s + l.length * 7.5 + 2, 0);
   const H = headerH + graphH + 8 + listH;
 

@@ -2,6 +2,9 @@ import type { ChannelRef } from '../as-built/common.schema.js';
 
 export type FindingSeverity = 'info' | 'warning' | 'critical';
 
+/** The one set of words for a finding's severity, on every screen, drawing and printed page. */
+export const FINDING_SEVERITY_LABELS: Record<FindingSeverity, string> = { critical: 'Must fix', warning: 'Check', info: 'Note' };
+
 /**
  * One thing the crew lead or the office should look at. `message` is plain English for a crew lead;
  * `path` points into the as-built (e.g. ['runs', 3, 'depthReadings', 1]) so a form can highlight the

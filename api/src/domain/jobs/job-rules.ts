@@ -7,7 +7,7 @@ export type JobStatus = (typeof JOB_STATUSES)[number];
 export const JOB_STATUS_LABELS: Record<JobStatus, string> = {
   draft: 'Draft',
   in_progress: 'In progress',
-  submitted: 'Submitted',
+  submitted: 'Submitted for review',
   ready_to_issue: 'Ready to issue',
   issued: 'Issued',
 };

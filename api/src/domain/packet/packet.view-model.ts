@@ -1,4 +1,4 @@
-import type { Finding } from '../analysis/finding.js';
+import { FINDING_SEVERITY_LABELS, type Finding } from '../analysis/finding.js';
 import type { Item, ItemKind } from '../as-built/item.schema.js';
 import type { InstallMethod } from '../as-built/run.schema.js';
 import { LOCATE_STEPS, ONE_CALL_US, SAFETY_CAUTIONS, TOLERANCE_ZONE_M } from './packet-cautions.js';
@@ -171,7 +171,6 @@ const METHOD_LABELS: Record<InstallMethod, string> = {
   indoor: 'Indoor',
 };
 
-const SEVERITY_LABELS: Record<Finding['severity'], string> = { critical: 'Must fix', warning: 'Check', info: 'Note' };
 
 const CHECK_RESULT_LABELS: Record<string, string> = {
   ok: 'Within range',
@@ -325,7 +324,7 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
         summary.critical + summary.warning === 0
           ? 'No open findings.'
           : `${summary.critical} to fix, ${summary.warning} to check at issue.`,
-      findings: findings.map((f) => ({ severity: SEVERITY_LABELS[f.severity], severityClass: f.severity, message: f.message })),
+      findings: findings.map((f) => ({ severity: FINDING_SEVERITY_LABELS[f.severity], severityClass: f.severity, message: f.message })),
       hasFindings: findings.length > 0,
       channels: analysis.channels.map((c) => {
         const worst = c.loads.reduce((max, l) => Math.max(max, l.cableLossDb), 0);

@@ -1,7 +1,7 @@
 import { Button, makeStyles, mergeClasses, Text, tokens } from '@fluentui/react-components';
 import { CheckmarkCircle20Regular, ErrorCircle20Filled, Info20Regular, Warning20Filled } from '@fluentui/react-icons';
 import type { AsBuiltAnalysis } from '@domain/analysis/analyze';
-import type { FindingSeverity } from '@domain/analysis/finding';
+import { FINDING_SEVERITY_LABELS, type FindingSeverity } from '@domain/analysis/finding';
 import type { AsBuilt } from '@domain/as-built/as-built.schema';
 import type { ReactElement } from 'react';
 
@@ -47,7 +47,6 @@ const useStyles = makeStyles({
 });
 
 // Words as well as icons and colours: a severity must read the same in grey-scale and to a screen reader.
-const SEVERITY: Record<FindingSeverity, string> = { critical: 'Must fix', warning: 'Check', info: 'Note' };
 
 type FindingsPanelProps = {
   analysis: AsBuiltAnalysis;
@@ -96,7 +95,7 @@ export function FindingsPanel({ analysis, asBuilt, headingId = 'findings-heading
               <li key={`${finding.code}-${finding.path.join('.')}-${i}`} className={mergeClasses(styles.finding, styles[finding.severity])}>
                 {icon(finding.severity)}
                 <div className={styles.body}>
-                  <Text weight="semibold">{SEVERITY[finding.severity]}</Text>
+                  <Text weight="semibold">{FINDING_SEVERITY_LABELS[finding.severity]}</Text>
                   <Text className={styles.message}>{finding.message}</Text>
                   {target && (
                     <Button appearance="transparent" className={styles.link} onClick={() => focus(target)}>
