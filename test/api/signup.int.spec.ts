@@ -148,9 +148,13 @@ describe('company sign-up (SIGNUP_MODE=open)', () => {
     expect(await rowCounts(input.email, input.companyName)).toEqual({ signups: 1, companies: 0, users: 0 });
   });
 
-  it('should refuse an unknown link with 404', async () => {
+  it('should refuse an unknown link with 404, limiting verifications per client address only (no shared account bucket)', async () => {
     const res = await http().post('/api/signup/verify').send({ token: 'x'.repeat(43) }).expect(404);
     expect(res.body.code).toBe('LINK_NOT_VALID');
+    // More than the per-account sign-in limit (9): these name no account, so only the per-address limit applies.
+    const statuses: number[] = [];
+    for (let i = 0; i < 12; i++) statuses.push((await http().post('/api/signup/verify').send({ token: `${'y'.repeat(40)}${i}` })).status);
+    expect(statuses).toEqual(Array(12).fill(404));
   });
 
   it('should name each bad field (same password rule as invitations) and store nothing', async () => {

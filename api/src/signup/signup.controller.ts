@@ -1,5 +1,6 @@
 import { Body, Controller, Get, HttpCode, HttpStatus, Param, Post, Req, Res, UseGuards } from '@nestjs/common';
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
+import { SkipThrottle } from '@nestjs/throttler';
 import type { Request, Response } from 'express';
 
 import { setRefreshCookie } from '../auth/refresh-cookie.js';
@@ -54,6 +55,9 @@ export class SignupController {
   @Post('verify')
   @HttpCode(HttpStatus.OK)
   @UseGuards(SignInThrottlerGuard)
+  // Limited per client address only: the body names no account, and one shared "account" bucket would
+  // let a few visitors use up everyone's verifications.
+  @SkipThrottle({ account: true, 'account-global': true })
   @ApiOperation({ summary: 'Follow the verification link: create the company and its first admin, and sign in' })
   async verify(
     @Body(new ZodValidationPipe(VerifySignupSchema)) body: VerifySignupInput,
