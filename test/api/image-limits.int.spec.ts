@@ -76,7 +76,8 @@ describe('image limits and upload concurrency', () => {
     office = await signIn(app, company.users.office);
     as = { office: apiAs(app, office), lead: apiAs(app, lead) };
     siteId = (await createSite(as.office)).siteId;
-  });
+    // The whole app is imported and started here: allow for a machine loaded by other suites.
+  }, 300_000);
 
   afterAll(async () => {
     await app?.close();

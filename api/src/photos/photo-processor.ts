@@ -39,6 +39,12 @@ export interface ProcessedPhoto {
   derivatives: ProcessedDerivative[];
 }
 
+/** A file whose header passed the checks: its sniffed type and its header's metadata. */
+export interface InspectedImage {
+  type: SniffedImageType;
+  metadata: Metadata;
+}
+
 /**
  * True when libvips here decodes HEVC-coded HEIF (iPhone photos). The prebuilt sharp binaries ship
  * libheif with the AV1 decoder only (AVIF), for patent reasons, and then list just `.avif`.
@@ -95,7 +101,16 @@ export class PhotoProcessor {
   }
 
   /** `label` names the file in error messages (e.g. `files[2] "IMG_0042.JPG"`). */
-  async process(bytes: Buffer, label: string): Promise<ProcessedPhoto> {
+  async process(bytes: Buffer, label: string, inspected?: InspectedImage): Promise<ProcessedPhoto> {
+    const { type, metadata } = inspected ?? (await this.inspect(bytes, label));
+    return this.queue.run(() => this.derive(bytes, label, type, metadata));
+  }
+
+  /**
+   * The checks that need only the file's header: its type from the bytes, then the image limits.
+   * Milliseconds per file and no queue, so a hostile file is refused at once (415, 413 or 422).
+   */
+  async inspect(bytes: Buffer, label: string): Promise<InspectedImage> {
     const type = sniffImageType(bytes);
     if (type === 'heic' && !this.isHeicDecodable) throw heicNotSupported(label);
     if (type === undefined || type === 'avif') throw unsupportedImage(label);
@@ -109,8 +124,7 @@ export class PhotoProcessor {
     }
     const problem = imageLimitProblem(metadata.width ?? 0, metadata.height ?? 0, this.limits);
     if (problem) throw imageRefused(problem.status, `${label} ${problem.message}`, problem.code);
-
-    return this.queue.run(() => this.derive(bytes, label, type, metadata));
+    return { type, metadata };
   }
 
   private async derive(bytes: Buffer, label: string, type: SniffedImageType, metadata: Metadata): Promise<ProcessedPhoto> {

@@ -100,6 +100,11 @@ export class PhotosService {
     const replay = await this.replay(actor, jobId, clientUploadIds);
     if (replay) return replay;
 
+    // Every file's header first (type, area, side, aspect ratio: 415/413/422 in milliseconds, before
+    // the job row is locked, so hostile files do not queue behind each other on that lock).
+    const inspected = [];
+    for (const [index, file] of files.entries()) inspected.push(await this.processor.inspect(file.buffer, fileLabel(index, file)));
+
     // Refuse early (404/403/409, bad target) before spending CPU on the files; checked again when writing.
     const target: PhotoTarget = fields.target ?? { type: 'job' };
     await this.jobs.transaction((tx) => this.checkWrite(actor, jobId, expectedVersion, target, tx));
@@ -111,7 +116,7 @@ export class PhotosService {
       // One file at a time keeps the memory of a 10-file request at one decoded photo.
       for (const [index, file] of files.entries()) {
         const label = fileLabel(index, file);
-        const processed = await this.processor.process(file.buffer, label);
+        const processed = await this.processor.process(file.buffer, label, inspected[index]);
         const photoId = randomUUID();
         const prefix = `companies/${actor.companyId}/jobs/${jobId}/photos/${photoId}`;
         const original = await this.storage.put(`${prefix}/original.${processed.extension}`, file.buffer, processed.contentType);
