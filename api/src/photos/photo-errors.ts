@@ -15,8 +15,8 @@ export function unsupportedImage(label: string): UnsupportedMediaTypeException {
 export function heicNotSupported(label: string): UnsupportedMediaTypeException {
   return new UnsupportedMediaTypeException({
     message:
-      `${label} is a HEIC photo, which this server cannot read. Send JPEG instead: on an iPhone choose ` +
-      'Settings → Camera → Formats → "Most Compatible" (or share the photo as JPEG); most Android cameras already save JPEG.',
+      `${label} is a HEIC photo, which this server cannot read. Send JPEG instead: set the phone's camera to its ` +
+      'most compatible format (JPEG) rather than high efficiency, or share the photo as JPEG.',
     code: 'HEIC_NOT_SUPPORTED',
   });
 }

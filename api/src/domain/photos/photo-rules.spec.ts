@@ -14,7 +14,7 @@ describe(sniffImageType.name, () => {
     ['JPEG', bytes(0xff, 0xd8, 0xff, 0xe1, 0, 0), 'jpeg'],
     ['PNG', bytes(0x89, 'PNG', 0x0d, 0x0a, 0x1a, 0x0a, 0, 0), 'png'],
     ['WebP', bytes('RIFF', 0, 0, 0, 0, 'WEBP', 'VP8 '), 'webp'],
-    ['HEIC (iPhone)', ftyp('heic', 'mif1', 'heic'), 'heic'],
+    ['HEIC (a phone\'s high-efficiency format)', ftyp('heic', 'mif1', 'heic'), 'heic'],
     ['HEIC by mif1 only', ftyp('mif1', 'mif1'), 'heic'],
     ['AVIF', ftyp('avif', 'mif1', 'avif'), 'avif'],
     ['text named .jpg', bytes('hello, this is not a photo'), undefined],
@@ -64,7 +64,7 @@ describe(parseExifDateTime.name, () => {
 
 describe(validGpsPosition.name, () => {
   it.each([
-    [45.5, -122.675, { lat: 45.5, lon: -122.675 }],
+    [40.0003, -105.0004, { lat: 40.0003, lon: -105.0004 }],
     [0, 0, undefined],
     [91, 0, undefined],
     [10, 181, undefined],

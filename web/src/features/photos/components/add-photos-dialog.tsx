@@ -108,7 +108,7 @@ export function AddPhotosDialog({ jobId, target, options, onClose }: AddPhotosDi
               onChange={(event) => void onFiles(event)}
             />
             <Text size={200} className={styles.hint}>
-              JPEG, PNG or WebP. On an iPhone set Camera → Formats → “Most Compatible” so photos are saved as JPEG.
+              JPEG, PNG or WebP. If the phone saves photos in its high-efficiency format (HEIC), set its camera to the most compatible format so photos are saved as JPEG.
             </Text>
           </DialogContent>
           <DialogActions>

@@ -11,12 +11,12 @@ const LINK_ID = '00000000-0000-4000-8000-000000000011';
 
 const site = {
   id: SITE_ID,
-  label: 'Maple Street',
-  addressLine1: '12 Maple Street',
+  label: 'Wrenfold Close',
+  addressLine1: '12 Wrenfold Close',
   addressLine2: null,
-  city: 'Springfield',
-  region: 'IL',
-  postalCode: '62701',
+  city: 'Quellbrook',
+  region: 'XX',
+  postalCode: '00000',
   country: 'US',
   installer: { companyName: 'Garden Sound Co', phone: null, email: 'office@gardensound.test', licenceNumbers: [] },
   packetCount: 1,
@@ -75,7 +75,7 @@ describe('Portal locate links', () => {
 
     const { user } = renderApp({ url: `/portal/sites/${SITE_ID}`, signedInAs: buildSessionUser('homeowner') });
 
-    expect(await screen.findByRole('heading', { name: 'Maple Street' })).toBeInTheDocument();
+    expect(await screen.findByRole('heading', { name: 'Wrenfold Close' })).toBeInTheDocument();
     expect(screen.getByText(`SHA-256 ${'a'.repeat(64)}`)).toBeInTheDocument();
     expect(await screen.findByText('No locate links yet.')).toBeInTheDocument();
 
