@@ -6,6 +6,7 @@ import type { NestExpressApplication } from '@nestjs/platform-express';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
+import { JOB_STATUS_LABELS } from '../../api/src/domain/jobs/job-rules.js';
 import { DiskStorage } from '../../api/src/storage/disk-storage.js';
 import { OBJECT_STORAGE } from '../../api/src/storage/object-storage.js';
 import { makePng } from '../fixtures/photos/make-photos.js';
@@ -134,7 +135,7 @@ describe('site versions and site geometry behind jobs', () => {
         expect(res.status, JSON.stringify(res.body)).toBe(409);
         expect(res.body.code).toBe('SITE_JOBS_IN_REVIEW');
         expect(res.body.message).toContain('“Fixture job');
-        expect(res.body.message).toContain('(ready to issue)');
+        expect(res.body.message).toContain(`(${JOB_STATUS_LABELS.ready_to_issue.toLowerCase()})`);
       }
       expect(await stateOf(siteId)).toEqual(before);
       expect(await jobVersion(job.id)).toBe(job.version);
@@ -168,7 +169,8 @@ describe('site versions and site geometry behind jobs', () => {
           const res = await send('office', write, ifMatch(before.site.version));
           expect(res.status, `${write.name}: ${JSON.stringify(res.body)}`).toBe(409);
           expect(res.body.code).toBe('SITE_JOBS_IN_REVIEW');
-          expect(res.body.message).toMatch(/“Fixture job \d+” \((submitted|ready to issue)\)/);
+          const label = JOB_STATUS_LABELS[statuses.at(-1) as 'submitted' | 'ready_to_issue'].toLowerCase();
+          expect(res.body.message).toMatch(new RegExp(`“Fixture job \\d+” \\(${label}\\)`));
           expect(await stateOf(siteId), write.name).toEqual(before);
         }
       }
@@ -227,6 +229,45 @@ describe('site versions and site geometry behind jobs', () => {
       await withDb((db) => db.query(`update jobs set status = 'issued' where id = $1`, [job.id]));
       expect((await move('lead', 5)).status).toBe(403);
       expect((await move('office', 5)).status).toBe(200);
+    });
+  });
+
+  describe('issued packets stay frozen', () => {
+    it('should keep the plan image an issued packet names when the site’s image is replaced or removed', async () => {
+      const { siteId, job } = await arrange(['in_progress']);
+      const refs = async () =>
+        (await withDb((db) => db.query('select plan_image_ref, plan_image_screen_ref from sites where id = $1', [siteId]))).rows[0] as {
+          plan_image_ref: string | null;
+          plan_image_screen_ref: string | null;
+        };
+      const issuedWith = await refs();
+      // A stand-in issued revision whose snapshot names the current screen copy as its plan underlay.
+      const snapshot = { site: { planImage: { screenKey: issuedWith.plan_image_screen_ref, widthPx: 300, heightPx: 200, calibration: CALIBRATION } } };
+      await withDb((db) =>
+        db.query(
+          `insert into packet_revisions (company_id, job_id, revision, status, snapshot, paper_size, pdf_key, pdf_sha256, zip_key, zip_sha256, attempts)
+           values ($1, $2, 1, 'ready', $3, 'letter', 'stand-in.pdf', $4, 'stand-in.zip', $4, 1)`,
+          [company.id, job.id, JSON.stringify(snapshot), '0'.repeat(64)],
+        ),
+      );
+      const stored = async (key: string | null) => new DiskStorage(uploadsDir).getBuffer(key!).then(() => true, () => false);
+      expect(await stored(issuedWith.plan_image_screen_ref)).toBe(true);
+
+      const replaced = await request(app.getHttpServer())
+        .put(`/api/sites/${siteId}/plan-image`)
+        .set(bearer(sessions.office))
+        .set(ifMatch(await siteVersion(as.office, siteId)))
+        .attach('file', await makePng(320, 200), 'plan.png');
+      expect(replaced.status, JSON.stringify(replaced.body)).toBe(200);
+      const now = await refs();
+      expect(now.plan_image_screen_ref).not.toBe(issuedWith.plan_image_screen_ref);
+      // The full-size original no packet names is gone; the issued packet's underlay stays.
+      expect(await stored(issuedWith.plan_image_ref)).toBe(false);
+      expect(await stored(issuedWith.plan_image_screen_ref)).toBe(true);
+
+      await siteWrite(as.office, 'delete', siteId, '/plan-image');
+      expect(await stored(now.plan_image_screen_ref)).toBe(false);
+      expect(await stored(issuedWith.plan_image_screen_ref)).toBe(true);
     });
   });
 

@@ -122,9 +122,20 @@ describe('drawings view (visual regression)', () => {
     ).json()) as { accessToken: string };
     const form = new FormData();
     form.append('file', new Blob([new Uint8Array(await makePlanImage())], { type: 'image/png' }), 'plan.png');
-    const upload = await fetch(`${baseUrl}/api/sites/${site.id}/plan-image`, { method: 'PUT', headers: { Authorization: `Bearer ${accessToken}` }, body: form });
+    // Site writes name the site's version (If-Match): the upload builds on the site as created (1).
+    const upload = await fetch(`${baseUrl}/api/sites/${site.id}/plan-image`, {
+      method: 'PUT',
+      headers: { Authorization: `Bearer ${accessToken}`, 'If-Match': '"1"' },
+      body: form,
+    });
     expect(upload.status, await upload.clone().text()).toBe(200);
-    await office.expectOk('patch', `/api/sites/${site.id}`, { planCalibration: { a: { x: 100, y: 1900 }, b: { x: 2900, y: 1900 }, distanceM: 28 } });
+    const { siteVersion } = (await upload.json()) as { siteVersion: number };
+    await office.expectOk(
+      'patch',
+      `/api/sites/${site.id}`,
+      { planCalibration: { a: { x: 100, y: 1900 }, b: { x: 2900, y: 1900 }, distanceM: 28 } },
+      { 'If-Match': `"${siteVersion}"` },
+    );
   });
 
   afterAll(async () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 
 import type { Role } from '../auth/roles.js';
-import type { JobStatus } from '../jobs/job-rules.js';
+import { JOB_STATUS_LABELS, type JobStatus } from '../jobs/job-rules.js';
 import { canWriteSite, type SiteJobFacts, type SiteWriteKind } from './site-rules.js';
 
 const ME = 'user-me';
@@ -61,8 +61,8 @@ describe('canWriteSite', () => {
     );
     expect(decision).toMatchObject({ isAllowed: false, kind: 'state', code: 'SITE_JOBS_IN_REVIEW' });
     if (decision.isAllowed) throw new Error('refused above');
-    expect(decision.message).toContain('“Back lawn speakers” (submitted)');
-    expect(decision.message).toContain('“Pool house” (ready to issue)');
+    expect(decision.message).toContain(`“Back lawn speakers” (${JOB_STATUS_LABELS.submitted.toLowerCase()})`);
+    expect(decision.message).toContain(`“Pool house” (${JOB_STATUS_LABELS.ready_to_issue.toLowerCase()})`);
     expect(decision.message).not.toContain('Deck');
     expect(decision.jobs?.map((j) => j.title)).toEqual(['Back lawn speakers', 'Pool house']);
   });
