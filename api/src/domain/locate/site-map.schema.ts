@@ -13,6 +13,15 @@ const FromRevisionShape = {
 
 export const SiteMapReferencePointSchema = z.object({ id: z.string(), label: z.string(), x: z.number(), y: z.number() });
 
+export const SiteMapFeatureSchema = z.object({
+  id: z.string(),
+  kind: z.string(),
+  name: z.string(),
+  shape: z.enum(['polygon', 'line']),
+  points: z.array(PlanPointResponseSchema),
+});
+export type SiteMapFeature = z.infer<typeof SiteMapFeatureSchema>;
+
 export const SiteMapItemSchema = z.object({
   ...FromRevisionShape,
   id: z.string(),
@@ -89,6 +98,8 @@ export const SiteMapSchema = z.object({
   frame: z.object({ northAzimuthDeg: z.number(), origin: z.object({ lat: z.number(), lon: z.number() }).nullable() }),
   revisions: z.array(z.object({ ...FromRevisionShape, issuedAt: z.string() })),
   referencePoints: z.array(SiteMapReferencePointSchema),
+  /** Landmarks (house, fences, patio …) of the newest revision, drawn in grey under the runs. */
+  siteFeatures: z.array(SiteMapFeatureSchema),
   items: z.array(SiteMapItemSchema),
   runs: z.array(SiteMapRunSchema),
   geojson: SiteMapGeoJsonSchema.nullable(),

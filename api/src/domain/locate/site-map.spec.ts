@@ -66,6 +66,6 @@ describe(buildSiteMap.name, () => {
   });
 
   it('should answer an empty map for a site without issued revisions', () => {
-    expect(buildSiteMap([])).toEqual({ frame: { northAzimuthDeg: 0, origin: null }, revisions: [], referencePoints: [], items: [], runs: [], geojson: null });
+    expect(buildSiteMap([])).toEqual({ frame: { northAzimuthDeg: 0, origin: null }, revisions: [], referencePoints: [], siteFeatures: [], items: [], runs: [], geojson: null });
   });
 });

@@ -144,6 +144,7 @@ export function buildSiteMap(sources: readonly SiteMapSource[]): SiteMap {
     frame: { northAzimuthDeg: newest?.asBuilt.site?.northAzimuthDeg ?? 0, origin: origin ? { lat: origin.lat, lon: origin.lon } : null },
     revisions: ordered.map((s) => ({ revisionId: s.revisionId, revision: s.revision, jobId: s.jobId, jobTitle: s.jobTitle, issuedAt: s.issuedAt })),
     referencePoints: [...referencePoints.values()],
+    siteFeatures: (newest?.asBuilt.site?.features ?? []).map((f) => ({ id: f.id, kind: f.kind, name: f.name, shape: f.shape, points: f.points.map((p) => ({ x: p.x, y: p.y })) })),
     items: [...items.values()],
     runs: [...runs.values()],
     geojson: hasGeo ? ({ type: 'FeatureCollection', features: orderedFeatures } as SiteMapGeoJson) : null,

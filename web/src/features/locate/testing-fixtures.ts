@@ -10,6 +10,10 @@ export function buildSiteMap(): SiteMap {
     frame: { northAzimuthDeg: 15, origin: null },
     revisions: [{ ...from, issuedAt: '2026-05-01T10:00:00.000Z' }],
     referencePoints: [{ id: 'rp-1', label: 'House corner NE', x: 0, y: 0 }],
+    siteFeatures: [
+      { id: 'f-house', kind: 'house', name: 'House', shape: 'polygon', points: [{ x: -6, y: 0 }, { x: 0, y: 0 }, { x: 0, y: -5 }, { x: -6, y: -5 }] },
+      { id: 'f-fence', kind: 'fence', name: 'East fence', shape: 'line', points: [{ x: 11, y: -2 }, { x: 11, y: 9 }] },
+    ],
     items: [
       { ...from, id: 'it-wall', kind: 'wall_entry', label: 'Garage wall', position: { x: 1, y: 1, source: 'ties', accuracyM: 0.05 }, ties: [], wallEntry: { wallMaterial: 'brick', holeDiameterM: 0.02, sleeve: null, sealant: null, insideLocation: null, outsideLocation: null }, isCapped: null },
       { ...from, id: 'it-spk', kind: 'speaker', label: 'Speaker L', position: { x: 9, y: 6, source: 'ties', accuracyM: 0.05 }, ties: [], wallEntry: null, isCapped: null },

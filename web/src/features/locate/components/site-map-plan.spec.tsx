@@ -52,6 +52,12 @@ describe('SiteMapPlan marking colours', () => {
         expect(OTHER_UTILITIES, `${el.tagName} ${attr}=${value}`).not.toContain(markingMeaning(value));
       }
     }
+    // Landmarks in muted grey, drawn first (under the runs), named.
+    const features = container.querySelector('[data-layer="features"]')!;
+    expect(features.querySelectorAll('[data-feature-id]').length).toBe(2);
+    expect(features.compareDocumentPosition(container.querySelector('[data-run-id]')!) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    for (const el of Array.from(features.querySelectorAll('polygon, polyline'))) expect(markingMeaning(el.getAttribute('stroke')!)).toBe('neutral');
+    expect(screen.getByText('East fence')).toBeInTheDocument();
     // The legend names the colour and the white of a dig area, in the words of the printed legend.
     expect(screen.getByText(/Orange: buried speaker and signal cable/)).toBeInTheDocument();
     expect(screen.getByText('Cable in conduit (heavy)')).toBeInTheDocument();

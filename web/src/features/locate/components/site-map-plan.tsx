@@ -2,7 +2,7 @@ import { makeStyles, tokens } from '@fluentui/react-components';
 import { useId } from 'react';
 import type { SiteMap } from '@domain/locate/site-map.schema';
 
-import { PAPER, REFERENCE_INK, RUN_STROKES, scaleDash, type LegendKey, type RunStyleKey } from '@drawings/marking-palette';
+import { FEATURE_FILL, FEATURE_LABEL, FEATURE_STROKE, PAPER, REFERENCE_INK, RUN_STROKES, scaleDash, type LegendKey, type RunStyleKey } from '@drawings/marking-palette';
 
 import { MarkingLegend } from '../../../components/marking-legend';
 import { formatLength, type LengthSystem } from '../../../lib/units';
@@ -25,6 +25,7 @@ export function siteMapLegendKeys(map: SiteMap): LegendKey[] {
   }
   if (map.items.some((i) => i.position !== null && i.kind === 'wall_entry')) keys.add('wall_entry');
   if (map.referencePoints.length > 0) keys.add('reference_point');
+  if (map.siteFeatures.length > 0) keys.add('feature');
   const order: LegendKey[] = [
     'run:direct_burial',
     'run:conduit',
@@ -76,6 +77,11 @@ export function depthLabel(minDepthM: number | null, units: LengthSystem): strin
   return minDepthM === null ? 'depth not recorded' : `min ${formatLength(minDepthM, units, 'short')}`;
 }
 
+function centroid(points: readonly Point[]): Point {
+  const n = Math.max(points.length, 1);
+  return { x: points.reduce((a, p) => a + p.x, 0) / n, y: points.reduce((a, p) => a + p.y, 0) / n };
+}
+
 function boundsOf(points: Point[]) {
   const xs = points.map((p) => p.x);
   const ys = points.map((p) => p.y);
@@ -114,6 +120,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun }: SiteMapP
   const located = map.items.filter((item) => item.position !== null);
   const runs = map.runs.filter((run) => run.route && run.route.length >= 2);
   const points: Point[] = [
+    ...map.siteFeatures.flatMap((f) => f.points),
     ...map.referencePoints,
     ...located.map((item) => item.position!),
     ...runs.flatMap((run) => run.route!),
@@ -144,6 +151,25 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun }: SiteMapP
           <text y={font * 2} fontSize={font * 1.1} textAnchor="middle" fill={tokens.colorNeutralForeground1} fontWeight="bold">
             N
           </text>
+        </g>
+        <g data-layer="features" aria-label="Landmarks">
+          {map.siteFeatures.map((f) => {
+            const pts = f.points.map((p) => `${sx(p.x)},${sy(p.y)}`).join(' ');
+            const heavy = f.kind === 'fence' || f.kind === 'wall' || f.kind === 'house';
+            const centre = f.shape === 'polygon' ? centroid(f.points) : midpointOf(f.points).point;
+            return (
+              <g key={f.id} data-feature-id={f.id} aria-label={f.name}>
+                {f.shape === 'polygon' ? (
+                  <polygon points={pts} fill={FEATURE_FILL} stroke={FEATURE_STROKE} strokeWidth={heavy ? 1.6 : 1} vectorEffect="non-scaling-stroke" />
+                ) : (
+                  <polyline points={pts} fill="none" stroke={FEATURE_STROKE} strokeWidth={heavy ? 2 : 1.2} strokeDasharray={f.kind === 'path' ? '6 3' : undefined} vectorEffect="non-scaling-stroke" />
+                )}
+                <text x={sx(centre.x)} y={sy(centre.y)} fontSize={font * 0.75} textAnchor="middle" fill={FEATURE_LABEL} fontStyle="italic" stroke={PAPER} strokeWidth={font * 0.2} paintOrder="stroke">
+                  {f.name}
+                </text>
+              </g>
+            );
+          })}
         </g>
         {runs.map((run) => {
           const route = run.route!;

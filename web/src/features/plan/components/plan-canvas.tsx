@@ -5,7 +5,7 @@ import { zoom, zoomIdentity, type ZoomBehavior, type ZoomTransform } from 'd3-zo
 import { useCallback, useEffect, useLayoutEffect, useRef, useState, type MouseEvent as ReactMouseEvent, type PointerEvent as ReactPointerEvent, type ReactNode } from 'react';
 import type { PlanPoint } from '@domain/as-built/common.schema';
 import type { ItemKind } from '@domain/as-built/item.schema';
-import { LEADER_INK, REFERENCE_INK } from '@drawings/marking-palette';
+import { FEATURE_FILL, FEATURE_LABEL, FEATURE_STROKE, LEADER_INK, REFERENCE_INK } from '@drawings/marking-palette';
 
 import { layoutLabels, type PlacedLabel } from '../utils/label-layout';
 import { imagePlanBox, normalizeDegrees, scaleBarFor, type ImagePlacement } from '../utils/plan-geometry';
@@ -26,7 +26,11 @@ export type CanvasReference = { id: string; label: string; x: number; y: number;
 export type CanvasRun = { id: string; label: string; style: RunStyle; points: PlanPoint[]; isRouteRecorded: boolean; isActive: boolean; badge?: string };
 export type CanvasMark = { x: number; y: number; label: string };
 
+/** A site landmark (house, fence …), drawn in muted grey under everything else. */
+export type CanvasFeature = { id: string; kind: string; name: string; shape: 'polygon' | 'line'; points: PlanPoint[]; isSelected: boolean };
+
 export type CanvasModel = {
+  features?: CanvasFeature[];
   items: CanvasItem[];
   references: CanvasReference[];
   ties: { from: PlanPoint; to: PlanPoint }[];
@@ -358,6 +362,28 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
             data-testid="plan-image"
           />
         )}
+        <g data-layer="features">
+          {(model.features ?? []).map((f) => {
+            const pts = f.points.map((p) => `${sx(p.x)},${sy(p.y)}`).join(' ');
+            const width = (f.kind === 'fence' || f.kind === 'wall' || f.kind === 'house' ? 2 : 1.3) * (f.isSelected ? 2 : 1);
+            const n = Math.max(f.points.length, 1);
+            const centre = { x: f.points.reduce((a, p) => a + p.x, 0) / n, y: f.points.reduce((a, p) => a + p.y, 0) / n };
+            return (
+              <g key={f.id} data-feature-id={f.id} aria-label={f.name}>
+                {f.shape === 'polygon' ? (
+                  <polygon points={pts} fill={FEATURE_FILL} fillOpacity={0.7} stroke={FEATURE_STROKE} strokeWidth={width} />
+                ) : (
+                  <polyline points={pts} fill="none" stroke={FEATURE_STROKE} strokeWidth={width + 1} strokeDasharray={f.kind === 'path' ? '8 4' : undefined} />
+                )}
+                {model.showLabels && (
+                  <text x={sx(centre.x)} y={sy(centre.y)} textAnchor="middle" fontSize={12} fontStyle="italic" fill={FEATURE_LABEL} stroke="#fff" strokeWidth={3} paintOrder="stroke">
+                    {f.name}
+                  </text>
+                )}
+              </g>
+            );
+          })}
+        </g>
         <g data-layer="ties">
           {model.ties.map((tie, i) => (
             <line key={i} x1={sx(tie.from.x)} y1={sy(tie.from.y)} x2={sx(tie.to.x)} y2={sy(tie.to.y)} stroke={REFERENCE_INK} strokeWidth={1.2} strokeDasharray="8 3 2 3" />

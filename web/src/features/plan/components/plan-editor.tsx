@@ -57,6 +57,9 @@ import { LayersMenu } from './layers-menu';
 import { NorthPanel } from './north-panel';
 import { PlanCanvas, type CanvasModel, type PlanHit } from './plan-canvas';
 import { PlanToolbar, type PlanTool } from './plan-toolbar';
+import { useWriteSiteFeature } from '../../sites/api/save-site-feature';
+
+import { FeaturePanel, type FeatureDraft } from './feature-panel';
 import { ReferencePointDialog } from './reference-point-dialog';
 import { RoutePanel, type RouteMode } from './route-panel';
 import { SelectionCard, type PlanSelection } from './selection-card';
@@ -115,7 +118,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
   const tools = useMemo<PlanTool[]>(
     () => [
       'select',
-      ...(canReference ? (['reference'] as const) : []),
+      ...(canReference ? (['reference', 'feature'] as const) : []),
       ...(canRecord ? (['route', 'ties'] as const) : []),
       ...(canSite || canUpload ? (['calibrate'] as const) : []),
       ...(canSite ? (['north'] as const) : []),
@@ -166,6 +169,60 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
   const [northError, setNorthError] = useState<string | undefined>();
   const savedNorth = site.northAzimuthDeg ?? 0;
 
+  // Landmarks (site features): a draft of the one being drawn or changed.
+  const siteFeatures = asBuilt.site?.features ?? [];
+  const NEW_FEATURE: FeatureDraft = { featureId: '', kind: 'house', name: '', shape: 'polygon' };
+  const [featureDraft, setFeatureDraft] = useState<FeatureDraft>(NEW_FEATURE);
+  const [featurePoints, setFeaturePoints] = useState<PlanPoint[]>([]);
+  const [featureError, setFeatureError] = useState<string | undefined>();
+  const writeFeature = useWriteSiteFeature();
+  const pickFeature = (featureId: string) => {
+    const f = siteFeatures.find((candidate) => candidate.id === featureId);
+    setFeatureError(undefined);
+    setSelectedVertex(undefined);
+    if (!f) {
+      setFeatureDraft(NEW_FEATURE);
+      setFeaturePoints([]);
+      return;
+    }
+    setFeatureDraft({ featureId: f.id, kind: f.kind, name: f.name, shape: f.shape });
+    setFeaturePoints(f.points.map((p) => ({ x: p.x, y: p.y })));
+  };
+  const saveFeature = (): void => {
+    const input = { kind: featureDraft.kind, name: featureDraft.name.trim(), shape: featureDraft.shape, points: featurePoints.map(roundPlanPoint) };
+    writeFeature.mutate(
+      { siteId: site.id, ...(featureDraft.featureId ? { featureId: featureDraft.featureId } : {}), input },
+      {
+        onSuccess: () => {
+          notify.success('Landmark saved', input.name);
+          setFeatureDraft(NEW_FEATURE);
+          setFeaturePoints([]);
+          setSelectedVertex(undefined);
+        },
+        onError: (error) => {
+          if (!siteConflict.handle(error, `the landmark “${input.name}”`, saveFeature)) setFeatureError(describeRequestError(error));
+        },
+      },
+    );
+  };
+  const deleteFeature = (): void => {
+    const { featureId, name } = featureDraft;
+    if (!featureId) return;
+    writeFeature.mutate(
+      { siteId: site.id, featureId, isDelete: true },
+      {
+        onSuccess: () => {
+          notify.success('Landmark deleted', name);
+          setFeatureDraft(NEW_FEATURE);
+          setFeaturePoints([]);
+        },
+        onError: (error) => {
+          if (!siteConflict.handle(error, `deleting the landmark “${name}”`, deleteFeature)) setFeatureError(describeRequestError(error));
+        },
+      },
+    );
+  };
+
   // Reference points.
   const [pendingReference, setPendingReference] = useState<{ key: number; point: PlanPoint } | undefined>();
   const [referenceError, setReferenceError] = useState<string | undefined>();
@@ -205,6 +262,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
 
   // ---- What the plan shows -------------------------------------------------------------------
   const model: CanvasModel = {
+    features: siteFeatures.map((f) => ({ ...f, isSelected: tool === 'feature' && f.id === featureDraft.featureId })),
     items: asBuilt.items.flatMap((item) => {
       const p = positions.get(item.id);
       if (!p) return [];
@@ -256,7 +314,9 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
     draftRoute:
       tool === 'route' && routeRun
         ? { points: routePoints, selectedIndex: selectedVertex, isEditable: true, canInsert: routeMode === 'edit' }
-        : undefined,
+        : tool === 'feature'
+          ? { points: featureDraft.shape === 'polygon' && featurePoints.length >= 3 ? [...featurePoints, featurePoints[0]!] : featurePoints, selectedIndex: selectedVertex, isEditable: true, canInsert: false }
+          : undefined,
     marks:
       tool === 'calibrate' && placement && canSite
         ? [
@@ -437,7 +497,12 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
   };
 
   // ---- Taps and drags ------------------------------------------------------------------------
-  const snapTargets = [...model.items, ...asBuilt.referencePoints.map((rp) => ({ ...rp }))];
+  // Points snap to items, reference points and the corners of other landmarks.
+  const snapTargets = [
+    ...model.items,
+    ...asBuilt.referencePoints.map((rp) => ({ ...rp })),
+    ...siteFeatures.filter((f) => f.id !== featureDraft.featureId).flatMap((f) => f.points.map((p) => ({ x: p.x, y: p.y }))),
+  ];
   const snapped = (p: PlanPoint) => {
     const hit = snapPoint(p, snapTargets, SNAP_PX / Math.max(transformK, 1e-9));
     return hit ? { x: hit.x, y: hit.y } : p;
@@ -453,6 +518,14 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
       case 'reference':
         setReferenceError(undefined);
         setPendingReference({ key: Date.now(), point });
+        return;
+      case 'feature':
+        setFeatureError(undefined);
+        if (hit?.type === 'vertex' && hit.index < featurePoints.length) {
+          setSelectedVertex(hit.index === selectedVertex ? undefined : hit.index);
+          return;
+        }
+        setFeaturePoints([...featurePoints, snapped(point)]);
         return;
       case 'route': {
         if (!routeRun) {
@@ -502,6 +575,10 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
 
   const handleDragEnd = (hit: PlanHit, point: PlanPoint) => {
     if (hit.type === 'item' && tool === 'select') void moveItem(hit.id, point);
+    if (hit.type === 'vertex' && tool === 'feature' && hit.index < featurePoints.length) {
+      setFeaturePoints(featurePoints.map((p, i) => (i === hit.index ? snapped(point) : p)));
+      setSelectedVertex(hit.index);
+    }
     if (hit.type === 'vertex' && tool === 'route') {
       routeDraft.setValue(moveRoutePoint(routePoints, hit.index, snapped(point)));
       setSelectedVertex(hit.index);
@@ -515,6 +592,10 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
         return canRecord ? 'Tap something to see it. Drag an item placed by hand to move it.' : 'Tap something to see it. You can look at this plan but not change it.';
       case 'reference':
         return 'Tap the plan where the reference point is: a house corner, a gate post, the meter base.';
+      case 'feature':
+        return featurePoints.length === 0
+          ? 'Name the landmark, then tap its corners on the plan (they snap to nearby corners and reference points).'
+          : `Tap the next corner (point ${featurePoints.length + 1}). Drag a corner to move it.`;
       case 'route':
         if (!routeRun) return 'Choose the run whose route you are drawing.';
         if (routeMode === 'draw') {
@@ -620,6 +701,31 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
             onUpload={upload}
             onPickAgain={() => setCalibration({ distance: calibration.distance })}
             onSave={saveCalibration}
+          />
+        );
+      case 'feature':
+        return (
+          <FeaturePanel
+            features={siteFeatures}
+            draft={featureDraft}
+            pointCount={featurePoints.length}
+            isSaving={writeFeature.isPending}
+            error={featureError}
+            onPick={pickFeature}
+            onChange={(next) => {
+              setFeatureDraft(next);
+              setFeatureError(undefined);
+            }}
+            onUndo={() => {
+              setFeaturePoints(featurePoints.slice(0, -1));
+              setSelectedVertex(undefined);
+            }}
+            onClearPoints={() => {
+              setFeaturePoints([]);
+              setSelectedVertex(undefined);
+            }}
+            onSave={saveFeature}
+            onDelete={deleteFeature}
           />
         );
       case 'north':

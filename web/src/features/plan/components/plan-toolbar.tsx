@@ -5,15 +5,17 @@ import {
   Location24Regular,
   Ruler24Regular,
   Pen24Regular,
+  Shapes24Regular,
   TargetArrow24Regular,
 } from '@fluentui/react-icons';
 import type { ReactElement } from 'react';
 
-export type PlanTool = 'select' | 'reference' | 'route' | 'ties' | 'calibrate' | 'north';
+export type PlanTool = 'select' | 'reference' | 'feature' | 'route' | 'ties' | 'calibrate' | 'north';
 
 export const TOOL_LABELS: Record<PlanTool, string> = {
   select: 'Select',
   reference: 'Ref. point',
+  feature: 'Landmark',
   route: 'Route',
   ties: 'Ties',
   calibrate: 'Scale',
@@ -23,6 +25,7 @@ export const TOOL_LABELS: Record<PlanTool, string> = {
 const TOOL_NAMES: Record<PlanTool, string> = {
   select: 'Select and move',
   reference: 'Add a reference point',
+  feature: 'Draw landmarks (house, fences, patio …)',
   route: 'Draw a run route',
   ties: 'Place by ties',
   calibrate: 'Plan image and scale',
@@ -32,6 +35,7 @@ const TOOL_NAMES: Record<PlanTool, string> = {
 const TOOL_ICONS: Record<PlanTool, ReactElement> = {
   select: <CursorClick24Regular />,
   reference: <Location24Regular />,
+  feature: <Shapes24Regular />,
   route: <Pen24Regular />,
   ties: <TargetArrow24Regular />,
   calibrate: <Ruler24Regular />,
