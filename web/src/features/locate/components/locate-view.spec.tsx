@@ -11,7 +11,7 @@ describe('Locate view', () => {
 
     const { user } = renderApp({ url: '/locate/tok', signedInAs: null });
 
-    expect(await screen.findByRole('heading', { name: 'Before you dig' })).toBeInTheDocument();
+    expect(await screen.findByRole('heading', { name: 'Before you dig' }, { timeout: 15_000 })).toBeInTheDocument();
     expect(screen.getByText(/one-call locators do not mark them/)).toBeInTheDocument();
     expect(screen.getByText('Hand-dig within 18 in of any line on this map.')).toBeInTheDocument();
     expect(screen.getByText(/Depths are as installed/)).toBeInTheDocument();

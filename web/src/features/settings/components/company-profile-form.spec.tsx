@@ -57,7 +57,7 @@ describe('Company profile form', () => {
       },
     );
     const { user } = renderApp({ url: '/settings', signedInAs: buildSessionUser('admin') });
-    const form = await screen.findByRole('form', { name: 'Company profile' }, { timeout: 10_000 });
+    const form = await screen.findByRole('form', { name: 'Company profile' }, { timeout: 30_000 });
     const phone = within(form).getByRole('textbox', { name: 'Phone' });
     await waitFor(() => expect(phone).toHaveValue('(555) 010-0131'));
 
@@ -91,22 +91,22 @@ describe('Company profile form', () => {
   it('should warn that packets carry no number when the phone is cleared', async () => {
     api(() => PROFILE, (request) => jsonResponse({ ...PROFILE, ...(request.body as object) }));
     const { user } = renderApp({ url: '/settings', signedInAs: buildSessionUser('admin') });
-    const form = await screen.findByRole('form', { name: 'Company profile' }, { timeout: 10_000 });
+    const form = await screen.findByRole('form', { name: 'Company profile' }, { timeout: 30_000 });
     const phone = within(form).getByRole('textbox', { name: 'Phone' });
     await waitFor(() => expect(phone).toHaveValue('(555) 010-0131'));
     expect(within(form).queryByText(/packets carry no number/)).not.toBeInTheDocument();
     await user.clear(phone);
     expect(within(form).getByText(/packets carry no number/)).toBeInTheDocument();
-  }, 30_000);
+  }, 60_000);
 
   it('should show the office the profile without a way to change it', async () => {
     api(() => PROFILE);
     renderApp({ url: '/settings', signedInAs: buildSessionUser('office') });
-    const form = await screen.findByRole('form', { name: 'Company profile' }, { timeout: 10_000 });
+    const form = await screen.findByRole('form', { name: 'Company profile' }, { timeout: 30_000 });
     await waitFor(() => expect(within(form).getByRole('textbox', { name: /Trade name/ })).toHaveValue('Larchwhistle Garden Audio'));
     expect(within(form).getByRole('textbox', { name: /Trade name/ })).toBeDisabled();
     expect(within(form).getByText('Only an admin changes the company profile.')).toBeInTheDocument();
     expect(within(form).queryByRole('button', { name: 'Save company profile' })).not.toBeInTheDocument();
     expect(within(form).queryByRole('button', { name: /Upload logo/ })).not.toBeInTheDocument();
-  }, 30_000);
+  }, 60_000);
 });
