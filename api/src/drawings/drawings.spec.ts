@@ -381,7 +381,7 @@ describe('drawWiringSchematic', () => {
     expect(patio.textContent).toContain('4.18 Ω with cable');
     expect(patio.textContent).toContain('amp minimum 4 Ω');
     expect(doc.querySelector('[data-id="amp-1/ch-spa"]')?.textContent).toContain('load 5.33 Ω nominal');
-    expect(doc.querySelector('[data-node][data-id="sp-p1"]')?.textContent).toContain('cable loss 0.38 dB');
+    expect(doc.querySelector('[data-node][data-id="sp-p1"]')?.textContent).toContain('level drop 0.38 dB');
     expect(doc.querySelector('[data-node][data-id="sub-1"]')?.textContent).toContain('series = 16 Ω');
   });
 

@@ -68,7 +68,7 @@ function ohms(value: number | null): string {
 }
 
 function itemFacts(item: Item, lossDb: number | undefined): string[] {
-  const loss = lossDb === undefined ? [] : [`cable loss ${formatNumber(lossDb, 2)} dB`];
+  const loss = lossDb === undefined ? [] : [`level drop ${formatNumber(lossDb, 2)} dB`];
   switch (item.kind) {
     case 'speaker':
       return [

@@ -78,7 +78,7 @@ export interface AsBuiltAnalysis {
 const NOTES = [
   'Conductor resistance: AWG from the ASTM B258 diameter and IACS copper (1/58 Ω·mm²/m at 20 °C, α = 0.00393/°C), solid-wire values (stranded cable is about 2 % higher); mm² from the IEC 60228 class 5 maximum.',
   'Loads are nominal impedances driven by an ideal amplifier at its rated output: V = √(P·Z) from the 8 Ω rating for loads of 8 Ω or more, else the 4 Ω rating; constant-voltage outputs at the line voltage.',
-  'Cable loss is the level at each speaker with the recorded cable against zero-resistance cable at the same amplifier voltage.',
+  'Level drop at the speaker: the level each speaker gets through the recorded cable against zero-resistance cable at the same amplifier voltage, in dB (and as the share of power it loses against that ideal cable). Power dissipated in the cable: the share of the amplifier\'s output turned to heat in a channel\'s cable, the figure the trade\'s tables quote. The two differ: 1.03 dB of level drop is 21 % less power at the speaker, while the cable dissipates 11 % of the output.',
   'Depth rules: the NEC sets no minimum cover for Class 2/3 speaker cable. As common practice, lines up to 30 V are checked against NEC Table 300.5 column 5, and 70 V / 100 V lines (or outputs above 30 V) against the more conservative cover Class 1 wiring would need (columns 1 and 3). Always defer to the authority having jurisdiction — these checks are not code approval.',
 ];
 

@@ -337,6 +337,7 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
           minimum: formatOhm(c.minimumImpedanceOhm),
           output: formatWatts(c.amplifierOutputW),
           worstLoss: c.loads.length > 0 ? formatDb(worst) : '—',
+          cableShare: c.loads.length > 0 ? `${c.cableDissipationPct.toFixed(1)} %` : '—',
           status: !c.isSolved ? 'Not solved' : isBelow ? 'Below amplifier minimum' : c.loadOhmNominal === null ? 'Nothing connected' : 'OK',
           statusClass: !c.isSolved || isBelow || c.loadOhmNominal === null ? 'bad' : 'ok',
         };

@@ -13,7 +13,10 @@ function ohms(value: number | null): string {
   return `${Number(value.toFixed(value < 10 ? 1 : 0))} Ω`;
 }
 
-/** One line per amplifier channel: the load it sees and the worst cable loss to a speaker on it. */
+/**
+ * One line per amplifier channel: the load it sees, the worst level drop at a speaker on it (against ideal
+ * cable) and the share of the amplifier's output dissipated in its cable.
+ */
 export function ChannelSummaries({ analysis, asBuilt }: { analysis: AsBuiltAnalysis; asBuilt: AsBuilt }) {
   const styles = useStyles();
   if (analysis.channels.length === 0) return null;
@@ -36,7 +39,9 @@ export function ChannelSummaries({ analysis, asBuilt }: { analysis: AsBuiltAnaly
             </Text>
             <Text>{load}</Text>
             <Text className={styles.muted}>
-              {worst === null ? 'no speakers' : `worst loss ${worst.toFixed(2)} dB`}
+              {worst === null
+                ? 'no speakers'
+                : `worst level drop at a speaker ${worst.toFixed(2)} dB · cable dissipates ${channel.cableDissipationPct.toFixed(1)} % of the output`}
             </Text>
           </li>
         );

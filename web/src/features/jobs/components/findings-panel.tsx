@@ -56,7 +56,7 @@ type FindingsPanelProps = {
 
 /**
  * Everything the analysis found, most serious first, each with a link to the field it is about, and a
- * line per amplifier channel (load and worst loss).
+ * line per amplifier channel (load, worst level drop, share dissipated in the cable).
  */
 export function FindingsPanel({ analysis, asBuilt, headingId = 'findings-heading' }: FindingsPanelProps) {
   const styles = useStyles();
