@@ -80,9 +80,9 @@ const WebsiteSchema = z
     { error: 'must be a web address starting with https:// or http://' },
   );
 
-/** Blank text is the same as no value: null. */
+/** Blank text (empty or only spaces) is the same as no value: null. */
 const blankToNull = <T extends z.ZodType<string, string>>(schema: T) =>
-  z.union([z.literal('').transform(() => null), z.null(), schema]);
+  z.union([z.string().trim().length(0).transform(() => null), z.null(), schema]);
 
 /** `PATCH /api/company/profile` (admin): any of the profile's fields; `null` (or blank) clears an optional one. */
 export const UpdateCompanyProfileSchema = z
