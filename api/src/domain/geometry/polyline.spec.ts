@@ -28,6 +28,8 @@ describe(polylineLengthM.name, () => {
 });
 
 describe(compareRouteLength.name, () => {
+  // Common practice (no published source): a drawn route may differ from the measured cable by the larger of
+  // 1 m and 10 % (slack, risers and service loops at each end).
   it.each([
     [20, 21.5, false], // within 10 % of 21.5 m = 2.15 m
     [20, 23, true],

@@ -99,6 +99,23 @@ describe(solvePositionFromTies.name, () => {
     expect(solvePositionFromTies([{ x: 0, y: 0, distanceM: 2 }])).toMatchObject({ ok: false, reason: 'too_few_ties' });
   });
 
+  // Worked by hand on [BRK]'s 6-8-10 case: from A(0,0) 6 m and B(10,0) 8 m the item is at (3.6, 4.8); a third
+  // tie from C(3.6, 10) taped as 5.2 m agrees exactly, so least squares must land on (3.6, 4.8) with no residual,
+  // and a tie from straight above the item narrows the accuracy below the two-tie fix's σ·√2.
+  it('should land three consistent ties on the hand-worked point with no residual', () => {
+    const observations = [
+      { x: 0, y: 0, distanceM: 6 },
+      { x: 10, y: 0, distanceM: 8 },
+      { x: 3.6, y: 10, distanceM: 5.2 },
+    ];
+    const sut = solvePositionFromTies(observations, { tapeToleranceM: 0.05 });
+    expect(sut).toMatchObject({ ok: true, method: 'least_squares', isWeak: false });
+    if (!sut.ok) return;
+    expect(Math.hypot(sut.x - 3.6, sut.y - 4.8)).toBeLessThan(1e-6);
+    expect(sut.residualRmsM).toBeLessThan(1e-6);
+    expect(sut.accuracyM).toBeLessThan(0.05 * Math.SQRT2);
+  });
+
   it('should spread inconsistent ties into the residual with three or more', () => {
     const refs = [{ x: 0, y: 0 }, { x: 20, y: 0 }, { x: 10, y: 25 }];
     const sut = solvePositionFromTies(ties({ x: 8, y: 9 }, refs, [0.3, -0.2, 0.25]), { sideHint: 'left' });
