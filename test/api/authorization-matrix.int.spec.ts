@@ -15,7 +15,17 @@ import { DiskStorage } from '../../api/src/storage/disk-storage.js';
 import { OBJECT_STORAGE } from '../../api/src/storage/object-storage.js';
 import { makePng } from '../fixtures/photos/make-photos.js';
 import { createCompany, createUser, TEST_PASSWORD, type TestCompany, withDb } from '../support/fixtures.js';
-import { type Api, apiAs, createJob, createSite, insertRecordedJob, insertSmallRecordedJob, moveJob } from '../support/records.js';
+import {
+  type Api,
+  apiAs,
+  createJob,
+  createSite,
+  insertRecordedJob,
+  insertSmallRecordedJob,
+  moveJob,
+  siteVersion,
+  siteWrite,
+} from '../support/records.js';
 import { bearer, type Session, signIn } from '../support/session.js';
 import { thisPartOf } from '../support/file-parts.js';
 import { createTestApp } from '../support/test-app.js';
@@ -101,8 +111,27 @@ describe('authorization matrix', () => {
     return (await arrange.expectOk('post', '/api/customers', { name: 'Matrix customer' })).id;
   }
 
-  async function referencePointA(siteId = siteA): Promise<string> {
-    return (await arrange.expectOk('post', `/api/sites/${siteId}/reference-points`, { label: 'Corner', x: 0, y: 0 })).id;
+  /** If-Match with the site's current version (every site write names it). */
+  async function siteIfMatch(siteId: string): Promise<Record<string, string>> {
+    return { 'If-Match': `"${await siteVersion(arrange, siteId)}"` };
+  }
+
+  /**
+   * A fresh site of company A with an open (draft) job led by A's lead: a crew lead changes only the
+   * plan and reference points of such a site (issue 18 §2), and no job on it is under review.
+   */
+  async function leadSiteA(): Promise<string> {
+    const { siteId } = await createSite(arrange);
+    await createJob(arrange, siteId, { crewLeadUserId: a.users.lead.id });
+    return siteId;
+  }
+
+  async function referencePointA(siteId: string): Promise<string> {
+    return (await siteWrite(arrange, 'post', siteId, '/reference-points', { label: 'Corner', x: 0, y: 0 })).id;
+  }
+
+  async function featureA(siteId: string): Promise<string> {
+    return (await siteWrite(arrange, 'post', siteId, '/features', { kind: 'fence', name: 'Fence', shape: 'line', points: [{ x: 0, y: 0 }, { x: 5, y: 0 }] })).id;
   }
 
   /** A draft job on site A led by A's lead with A's tech on the crew. */
@@ -253,22 +282,66 @@ describe('authorization matrix', () => {
       }),
     },
     'GET /api/sites/:id': { expect: staff(200), call: () => ({ path: `/api/sites/${siteA}` }) },
-    'PATCH /api/sites/:id': { expect: officeOnly(200), call: () => ({ path: `/api/sites/${siteA}`, body: { notes: 'Dog in the yard' } }) },
+    'PATCH /api/sites/:id': {
+      expect: officeOnly(200),
+      call: async () => ({ path: `/api/sites/${siteA}`, body: { notes: 'Dog in the yard' }, headers: await siteIfMatch(siteA) }),
+    },
     'DELETE /api/sites/:id': {
       expect: officeOnly(204),
       call: async () => ({ path: `/api/sites/${(await createSite(arrange)).siteId}` }),
     },
+    // Site geometry: the office, and a crew lead on an open job's crew at the site (leadSiteA).
     'POST /api/sites/:siteId/reference-points': {
       expect: recorders(201),
-      call: () => ({ path: `/api/sites/${siteA}/reference-points`, body: { label: 'Gate post', x: 3, y: 4 } }),
+      call: async () => {
+        const siteId = await leadSiteA();
+        return { path: `/api/sites/${siteId}/reference-points`, body: { label: 'Gate post', x: 3, y: 4 }, headers: await siteIfMatch(siteId) };
+      },
     },
     'PATCH /api/sites/:siteId/reference-points/:pointId': {
       expect: recorders(200),
-      call: async () => ({ path: `/api/sites/${siteA}/reference-points/${await referencePointA()}`, body: { x: 1 } }),
+      call: async () => {
+        const siteId = await leadSiteA();
+        const pointId = await referencePointA(siteId);
+        return { path: `/api/sites/${siteId}/reference-points/${pointId}`, body: { x: 1 }, headers: await siteIfMatch(siteId) };
+      },
     },
     'DELETE /api/sites/:siteId/reference-points/:pointId': {
-      expect: only(['admin', 'office', 'lead'], 204, 404),
-      call: async () => ({ path: `/api/sites/${siteA}/reference-points/${await referencePointA()}` }),
+      expect: recorders(200),
+      call: async () => {
+        const siteId = await leadSiteA();
+        const pointId = await referencePointA(siteId);
+        return { path: `/api/sites/${siteId}/reference-points/${pointId}`, headers: await siteIfMatch(siteId) };
+      },
+    },
+    // Site features (issue 15): staff read; the office and a crew lead on an open job's crew draw them.
+    'GET /api/sites/:siteId/features': { expect: staff(200), call: () => ({ path: `/api/sites/${siteA}/features` }) },
+    'POST /api/sites/:siteId/features': {
+      expect: recorders(201),
+      call: async () => {
+        const siteId = await leadSiteA();
+        return {
+          path: `/api/sites/${siteId}/features`,
+          body: { kind: 'patio', name: 'Patio', shape: 'polygon', points: [{ x: 0, y: 0 }, { x: 4, y: 0 }, { x: 4, y: 3 }] },
+          headers: await siteIfMatch(siteId),
+        };
+      },
+    },
+    'PATCH /api/sites/:siteId/features/:featureId': {
+      expect: recorders(200),
+      call: async () => {
+        const siteId = await leadSiteA();
+        const featureId = await featureA(siteId);
+        return { path: `/api/sites/${siteId}/features/${featureId}`, body: { name: 'North fence' }, headers: await siteIfMatch(siteId) };
+      },
+    },
+    'DELETE /api/sites/:siteId/features/:featureId': {
+      expect: recorders(200),
+      call: async () => {
+        const siteId = await leadSiteA();
+        const featureId = await featureA(siteId);
+        return { path: `/api/sites/${siteId}/features/${featureId}`, headers: await siteIfMatch(siteId) };
+      },
     },
     'POST /api/sites/:siteId/homeowners': {
       expect: officeOnly(201),
@@ -472,7 +545,10 @@ describe('authorization matrix', () => {
     },
     'PUT /api/sites/:siteId/plan-image': {
       expect: recorders(200),
-      call: async () => ({ path: `/api/sites/${(await createSite(arrange)).siteId}/plan-image`, files: [{ field: 'file', name: 'plan.png', content: photoPng }] }),
+      call: async () => {
+        const siteId = await leadSiteA();
+        return { path: `/api/sites/${siteId}/plan-image`, headers: await siteIfMatch(siteId), files: [{ field: 'file', name: 'plan.png', content: photoPng }] };
+      },
     },
     'GET /api/sites/:siteId/plan-image': {
       expect: { ...staff(200), homeowner: 200 },
@@ -480,7 +556,10 @@ describe('authorization matrix', () => {
     },
     'DELETE /api/sites/:siteId/plan-image': {
       expect: recorders(200),
-      call: async () => ({ path: `/api/sites/${await sitePlanImageA()}/plan-image` }),
+      call: async () => {
+        const siteId = await sitePlanImageA();
+        return { path: `/api/sites/${siteId}/plan-image`, headers: await siteIfMatch(siteId) };
+      },
     },
     'GET /api/jobs/:id/drawings/site-plan.svg': {
       expect: staff(200),
@@ -666,11 +745,15 @@ describe('authorization matrix', () => {
     return res.body.photos[0].id as string;
   }
 
-  /** A fresh site of company A with a plan image, linked to A's homeowner. */
+  /** A fresh site of company A with a plan image and an open job led by A's lead, linked to A's homeowner. */
   async function sitePlanImageA(): Promise<string> {
-    const { siteId } = await createSite(arrange);
+    const siteId = await leadSiteA();
     await arrange.expectOk('post', `/api/sites/${siteId}/homeowners`, { userId: a.users.homeowner.id });
-    const res = await request(app.getHttpServer()).put(`/api/sites/${siteId}/plan-image`).set(bearer(sessions.get('office')!)).attach('file', photoPng, 'plan.png');
+    const res = await request(app.getHttpServer())
+      .put(`/api/sites/${siteId}/plan-image`)
+      .set(bearer(sessions.get('office')!))
+      .set(await siteIfMatch(siteId))
+      .attach('file', photoPng, 'plan.png');
     if (res.status !== 200) throw new Error(`plan image upload → ${res.status} ${JSON.stringify(res.body)}`);
     return siteId;
   }
