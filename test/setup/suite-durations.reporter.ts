@@ -41,7 +41,8 @@ export default class SuiteDurationsReporter implements Reporter {
   private readonly queuedAt = new Map<string, number>();
   private readonly endedAt = new Map<string, number>();
 
-  constructor(private readonly outputFile = process.env.LOAMLINE_DURATIONS_FILE ?? '.data/vitest-durations.json') {}
+  // Vitest passes a reporter its options as the constructor argument: the file comes from the environment.
+  private readonly outputFile = process.env.LOAMLINE_DURATIONS_FILE ?? '.data/vitest-durations.json';
 
   onTestModuleQueued(module: TestModule): void {
     this.queuedAt.set(module.id, Date.now() - this.started);
