@@ -117,6 +117,43 @@ describe('PlanEditor', () => {
     expect(body).not.toHaveProperty('depthReadings');
   }, 30_000);
 
+  it('should draw a landmark by tapping its corners, snapping onto an item, and send it with the site version', async () => {
+    const posts: MockRequest[] = [];
+    const asBuilt = placedAsBuilt();
+    asBuilt.site = { ...asBuilt.site, features: [{ id: 'f-fence', kind: 'fence', name: 'East fence', shape: 'line', points: [{ x: 14, y: -2 }, { x: 14, y: 8 }] }] };
+    mockApi({
+      [AS_BUILT]: () => jsonResponse(buildJobAsBuilt(asBuilt)),
+      [SITE]: () => jsonResponse(buildSite()),
+      [`POST /api/sites/${JOB_IDS.site}/features`]: (request) => {
+        posts.push(request);
+        return jsonResponse({ id: 'f-new', ...(request.body as object), siteVersion: 9, jobVersions: {} }, 201);
+      },
+    });
+    const { user } = renderApp({ url: PLAN_URL, signedInAs: buildSessionUser('lead') });
+    await chooseTool(user, 'Draw landmarks (house, fences, patio …)');
+    // The site's landmarks are drawn (grey, under the runs) and listed.
+    expect(document.querySelector('[data-feature-id="f-fence"]')).not.toBeNull();
+    await user.selectOptions(screen.getByRole('combobox', { name: 'Kind' }), 'patio');
+    await user.type(screen.getByRole('textbox', { name: /Name/ }), 'Back patio');
+    tapPlanAt({ x: 0.1, y: -0.1 });
+    tapPlanAt({ x: 6, y: 0 });
+    tapPlanAt({ x: 6, y: 4 });
+    await waitFor(() => expect(screen.getByText('3 points')).toBeInTheDocument());
+    await user.click(screen.getByRole('button', { name: 'Save landmark' }));
+    await waitFor(() => expect(posts).toHaveLength(1));
+    expect(posts[0]!.headers.get('If-Match')).toMatch(/^"\d+"$/);
+    expect(posts[0]!.body).toEqual({
+      kind: 'patio',
+      name: 'Back patio',
+      shape: 'polygon',
+      points: [
+        { x: 0, y: 0 },
+        { x: 6, y: 0 },
+        { x: 6, y: 4 },
+      ],
+    });
+  }, 90_000);
+
   it('should keep a route being drawn on the device across a reload', async () => {
     mockApi({
       [AS_BUILT]: () => jsonResponse(buildJobAsBuilt(placedAsBuilt())),
