@@ -12,8 +12,8 @@ const nestTransform = { decorator: { legacy: true, emitDecoratorMetadata: true }
 // Test files run side by side on every core: Vitest's default (cores - 1) would leave one of two cores
 // idle. Projects that run in parallel must share this number (Vitest groups them); LOAMLINE_TEST_WORKERS
 // overrides it. At most 4 by default: each integration worker runs a whole API (about 20 connections
-// at most) against PostgreSQL's default limit of 100. Files of the `system` project (faults and load
-// against real processes) run one at a time, after the rest.
+// at most) against PostgreSQL's default limit of 100. Files of the `e2e` and `system` projects (browser
+// flows; faults and load against real processes) run one at a time, after the rest.
 const workers = Number(process.env.LOAMLINE_TEST_WORKERS) || Math.min(Math.max(availableParallelism(), 2), 4);
 
 export default defineConfig({
@@ -57,7 +57,9 @@ export default defineConfig({
           environment: 'node',
           include: ['test/e2e/**/*.e2e.spec.ts'],
           globalSetup: ['test/setup/database.global.ts', 'test/setup/server.global.ts', 'test/setup/browser.global.ts'],
-          // Files run in parallel against the one server: each arranges its own company (createCompany).
+          // One file at a time, after the parallel projects: browser steps have fixed time limits, and in
+          // a full run beside the integration workers on two cores they ran out of them.
+          fileParallelism: false,
           testTimeout: 60_000,
           hookTimeout: 120_000,
         },
