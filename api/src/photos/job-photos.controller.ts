@@ -55,7 +55,7 @@ export class JobPhotosController {
     status: 413,
     description: 'A file exceeds UPLOAD_MAX_FILE_BYTES, or more than UPLOAD_MAX_FILES files, or an image over UPLOAD_MAX_INPUT_PIXELS or UPLOAD_MAX_IMAGE_SIDE_PX.',
   })
-  @ApiResponse({ status: 415, description: 'Not a JPEG, PNG or WebP image (HEIC: send JPEG, the camera's most compatible format).' })
+  @ApiResponse({ status: 415, description: 'Not a JPEG, PNG or WebP image (HEIC: send JPEG, the camera’s most compatible format).' })
   @ApiResponse({ status: 422, description: 'An image more elongated than UPLOAD_MAX_ASPECT_RATIO (IMAGE_TOO_ELONGATED).' })
   @ApiResponse({ status: 429, description: 'UPLOAD_MAX_CONCURRENT_PER_USER uploads of this user already in flight (TOO_MANY_UPLOADS, with Retry-After).' })
   // Outermost first: the per-user slot is taken before Multer buffers the body, and the limits
