@@ -1,28 +1,138 @@
-import { existsSync } from 'node:fs';
-import { join, resolve } from 'node:path';
+import { existsSync, readdirSync, statSync } from 'node:fs';
+import { extname, join, resolve, sep } from 'node:path';
 
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import express, { type NextFunction, type Request, type Response } from 'express';
 
+/** Hashed build output (`/assets/…`): its name changes with its content, so it never goes stale. */
+export const IMMUTABLE_CACHE_CONTROL = 'public, max-age=31536000, immutable';
+
+type Encoding = 'br' | 'gzip';
+const SUFFIX: Record<Encoding, string> = { br: '.br', gzip: '.gz' };
+
 /**
- * Serves the built single-page app from `dir` on the same port as the API: hashed assets with a long
- * cache lifetime, and `index.html` (never cached) for any other GET outside `/api` so client-side
- * routes survive a reload.
+ * Serves the built single-page app from `dir` on the same port as the API: hashed assets with a long,
+ * immutable cache lifetime, and `index.html` (never cached without asking) for any other GET outside
+ * `/api` so client-side routes survive a reload.
+ *
+ * The web build writes brotli (`.br`) and gzip (`.gz`) copies beside its text files (web/vite.config.ts,
+ * `precompress`); a request whose `Accept-Encoding` allows one gets that copy with `Content-Encoding`,
+ * brotli first, and every answer for a file that has copies says `Vary: Accept-Encoding`. Nothing is
+ * compressed per request.
  */
 export function serveWebApp(app: NestExpressApplication, dir: string): void {
   const root = resolve(dir);
   const indexHtml = join(root, 'index.html');
   if (!existsSync(indexHtml)) throw new Error(`WEB_DIST_DIR has no index.html: ${root}`);
+  // The build does not change while the server runs: list its compressed copies once.
+  const copies = listCompressedCopies(root);
 
+  app.use(precompressed(root, copies));
   app.use(
     '/assets',
-    express.static(join(root, 'assets'), { immutable: true, maxAge: '1y', index: false, fallthrough: false }),
+    express.static(join(root, 'assets'), {
+      index: false,
+      fallthrough: false,
+      setHeaders: (res) => res.setHeader('Cache-Control', IMMUTABLE_CACHE_CONTROL),
+    }),
   );
-  app.use(express.static(root, { index: false, maxAge: '1h' }));
+  app.use(
+    express.static(root, {
+      index: false,
+      maxAge: '1h',
+      setHeaders: (res, path) => {
+        if (path === indexHtml) res.setHeader('Cache-Control', 'no-cache');
+      },
+    }),
+  );
   app.use((req: Request, res: Response, next: NextFunction) => {
     const isPageRequest = (req.method === 'GET' || req.method === 'HEAD') && !/^\/api(\/|$)/.test(req.path);
     if (!isPageRequest) return next();
-    res.setHeader('Cache-Control', 'no-cache');
-    res.sendFile(indexHtml);
+    sendIndex(req, res, indexHtml, copies, next);
+  });
+}
+
+/** Relative paths (`/assets/index-abc.js.br`) of every `.br` and `.gz` file under `root`. */
+function listCompressedCopies(root: string): Set<string> {
+  const found = new Set<string>();
+  const walk = (dir: string) => {
+    for (const entry of readdirSync(dir)) {
+      if (entry === '.vite') continue;
+      const path = join(dir, entry);
+      if (statSync(path).isDirectory()) walk(path);
+      else if (entry.endsWith('.br') || entry.endsWith('.gz')) found.add('/' + path.slice(root.length + 1).split(sep).join('/'));
+    }
+  };
+  walk(root);
+  return found;
+}
+
+/** The encodings `Accept-Encoding` allows (q above 0), of the two we keep copies in. */
+export function acceptedEncodings(header: string | undefined): Set<Encoding> {
+  const accepted = new Set<Encoding>();
+  for (const part of (header ?? '').split(',')) {
+    const [name = '', ...params] = part.trim().toLowerCase().split(';');
+    const q = params.map((p) => p.trim()).find((p) => p.startsWith('q='));
+    if (q !== undefined && !(Number(q.slice(2)) > 0)) continue;
+    if (name === 'br' || name === 'gzip') accepted.add(name);
+    if (name === '*') {
+      accepted.add('br');
+      accepted.add('gzip');
+    }
+  }
+  return accepted;
+}
+
+/** The copy to send for `path`, brotli before gzip, or none. */
+function chooseCopy(path: string, header: string | undefined, copies: Set<string>): Encoding | undefined {
+  const accepted = acceptedEncodings(header);
+  return (['br', 'gzip'] as const).find((encoding) => accepted.has(encoding) && copies.has(path + SUFFIX[encoding]));
+}
+
+function hasCopies(path: string, copies: Set<string>): boolean {
+  return copies.has(path + '.br') || copies.has(path + '.gz');
+}
+
+/** Sends the compressed copy of a built file when the browser takes one; otherwise leaves it to express.static. */
+function precompressed(root: string, copies: Set<string>) {
+  return (req: Request, res: Response, next: NextFunction) => {
+    if (req.method !== 'GET' && req.method !== 'HEAD') return next();
+    if (/^\/api(\/|$)/.test(req.path)) return next();
+    let path: string;
+    try {
+      path = decodeURIComponent(req.path);
+    } catch {
+      return next();
+    }
+    if (!hasCopies(path, copies)) return next();
+    res.vary('Accept-Encoding');
+    const encoding = chooseCopy(path, req.headers['accept-encoding'], copies);
+    if (!encoding) return next();
+    const isAsset = path.startsWith('/assets/');
+    res.setHeader('Content-Encoding', encoding);
+    res.type(extname(path));
+    // The path is one of the listed copies, so it cannot leave `root`.
+    res.sendFile(join(root, path + SUFFIX[encoding]), {
+      headers: { 'Cache-Control': isAsset ? IMMUTABLE_CACHE_CONTROL : path === '/index.html' ? 'no-cache' : 'public, max-age=3600' },
+    }, (error) => {
+      if (error) next(error);
+    });
+  };
+}
+
+function sendIndex(req: Request, res: Response, indexHtml: string, copies: Set<string>, next: NextFunction): void {
+  res.setHeader('Cache-Control', 'no-cache');
+  let file = indexHtml;
+  if (hasCopies('/index.html', copies)) {
+    res.vary('Accept-Encoding');
+    const encoding = chooseCopy('/index.html', req.headers['accept-encoding'], copies);
+    if (encoding) {
+      res.setHeader('Content-Encoding', encoding);
+      res.type('html');
+      file = indexHtml + SUFFIX[encoding];
+    }
+  }
+  res.sendFile(file, (error) => {
+    if (error) next(error);
   });
 }

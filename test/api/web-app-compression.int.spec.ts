@@ -1,0 +1,143 @@
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { request as httpRequest } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { brotliCompressSync, brotliDecompressSync, gunzipSync, gzipSync } from 'node:zlib';
+
+import type { NestExpressApplication } from '@nestjs/platform-express';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+// A stand-in web build as `vite build` writes it (web/vite.config.ts, `precompress`): a hashed script and
+// stylesheet with their .br and .gz copies, a hashed image with none, and index.html.
+const WEB_DIST_DIR = mkdtempSync(join(tmpdir(), 'loamline-web-compress-'));
+const SCRIPT = `export const rows = [${Array.from({ length: 400 }, (_, i) => `{"run":${i},"depth":"18 in"}`).join(',')}];\n`;
+const STYLE = `.row{margin:0;padding:0}\n`.repeat(200);
+const INDEX = `<!doctype html><html><head><script type="module" src="/assets/index-Ab12Cd34.js"></script></head><body><div id="root"></div>${'<!-- - -->'.repeat(150)}</body></html>`;
+mkdirSync(join(WEB_DIST_DIR, 'assets'));
+for (const [name, text] of [
+  ['assets/index-Ab12Cd34.js', SCRIPT],
+  ['assets/index-Ef56Gh78.css', STYLE],
+  ['index.html', INDEX],
+] as const) {
+  writeFileSync(join(WEB_DIST_DIR, name), text);
+  writeFileSync(join(WEB_DIST_DIR, `${name}.br`), brotliCompressSync(text));
+  writeFileSync(join(WEB_DIST_DIR, `${name}.gz`), gzipSync(text));
+}
+const PNG = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da63f8cfc0f01f0005000201a1d1f1b80000000049454e44ae426082', 'hex');
+writeFileSync(join(WEB_DIST_DIR, 'assets', 'logo-Zz99Yy88.png'), PNG);
+
+type Answer = { status: number; headers: Record<string, string | string[] | undefined>; body: Buffer };
+
+let app: NestExpressApplication;
+let port: number;
+
+/** A GET with the raw bytes of the answer (fetch and supertest would undo the compression). */
+function get(path: string, acceptEncoding?: string): Promise<Answer> {
+  return new Promise((resolvePromise, reject) => {
+    const req = httpRequest(
+      { host: '127.0.0.1', port, path, headers: acceptEncoding === undefined ? {} : { 'Accept-Encoding': acceptEncoding } },
+      (res) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (chunk: Buffer) => chunks.push(chunk));
+        res.on('end', () => resolvePromise({ status: res.statusCode ?? 0, headers: res.headers, body: Buffer.concat(chunks) }));
+        res.on('error', reject);
+      },
+    );
+    req.on('error', reject);
+    req.end();
+  });
+}
+
+const varyNames = (answer: Answer) =>
+  String(answer.headers.vary ?? '')
+    .split(',')
+    .map((v) => v.trim().toLowerCase());
+
+describe('the built web app, precompressed (issue 17: fast on a weak signal)', () => {
+  beforeAll(async () => {
+    process.env.WEB_DIST_DIR = WEB_DIST_DIR;
+    const { createTestApp } = await import('../support/test-app.js');
+    app = await createTestApp();
+    await app.listen(0, '127.0.0.1');
+    port = (app.getHttpServer().address() as AddressInfo).port;
+  });
+
+  afterAll(async () => {
+    await app?.close();
+    delete process.env.WEB_DIST_DIR;
+    rmSync(WEB_DIST_DIR, { recursive: true, force: true });
+  });
+
+  it('should send the brotli copy of a hashed script to a browser that takes brotli, cached for a year as immutable', async () => {
+    const res = await get('/assets/index-Ab12Cd34.js', 'gzip, deflate, br, zstd');
+    expect(res.status).toBe(200);
+    expect(res.headers['content-encoding']).toBe('br');
+    expect(res.headers['content-type']).toMatch(/^text\/javascript|^application\/javascript/);
+    expect(varyNames(res)).toContain('accept-encoding');
+    expect(res.headers['cache-control']).toBe('public, max-age=31536000, immutable');
+    expect(Number(res.headers['content-length'])).toBe(res.body.length);
+    expect(res.body.length).toBeLessThan(Buffer.byteLength(SCRIPT) / 4);
+    expect(brotliDecompressSync(res.body).toString()).toBe(SCRIPT);
+  });
+
+  it('should send the gzip copy when brotli is not accepted, or refused with q=0', async () => {
+    for (const header of ['gzip, deflate', 'br;q=0, gzip']) {
+      const res = await get('/assets/index-Ef56Gh78.css', header);
+      expect(res.headers['content-encoding'], header).toBe('gzip');
+      expect(res.headers['content-type'], header).toMatch(/^text\/css/);
+      expect(varyNames(res), header).toContain('accept-encoding');
+      expect(res.headers['cache-control'], header).toBe('public, max-age=31536000, immutable');
+      expect(gunzipSync(res.body).toString(), header).toBe(STYLE);
+    }
+  });
+
+  it('should send the file itself, still varying on Accept-Encoding, when no encoding is accepted', async () => {
+    for (const header of [undefined, 'identity', 'gzip;q=0, br;q=0']) {
+      const res = await get('/assets/index-Ab12Cd34.js', header);
+      expect(res.status).toBe(200);
+      expect(res.headers['content-encoding'], String(header)).toBeUndefined();
+      expect(varyNames(res), String(header)).toContain('accept-encoding');
+      expect(res.headers['cache-control'], String(header)).toBe('public, max-age=31536000, immutable');
+      expect(res.body.toString(), String(header)).toBe(SCRIPT);
+    }
+  });
+
+  it('should send a hashed file that has no compressed copy as it is, immutable', async () => {
+    const res = await get('/assets/logo-Zz99Yy88.png', 'br, gzip');
+    expect(res.status).toBe(200);
+    expect(res.headers['content-encoding']).toBeUndefined();
+    expect(res.headers['content-type']).toBe('image/png');
+    expect(res.headers['cache-control']).toBe('public, max-age=31536000, immutable');
+    expect(res.body.equals(PNG)).toBe(true);
+  });
+
+  it('should answer a missing asset 404, not index.html', async () => {
+    const res = await get('/assets/index-Missing0.js', 'br');
+    expect(res.status).toBe(404);
+    expect(res.headers['content-encoding']).toBeUndefined();
+  });
+
+  it('should send index.html for a client route, compressed, with no-cache and the Content-Security-Policy', async () => {
+    for (const path of ['/', '/jobs', '/locate/some-token', '/index.html']) {
+      const res = await get(path, 'gzip, deflate, br');
+      expect(res.status, path).toBe(200);
+      expect(res.headers['content-type'], path).toMatch(/^text\/html/);
+      expect(res.headers['content-encoding'], path).toBe('br');
+      expect(varyNames(res), path).toContain('accept-encoding');
+      expect(res.headers['cache-control'], path).toBe('no-cache');
+      expect(String(res.headers['content-security-policy']), path).toContain("script-src 'self'");
+      expect(brotliDecompressSync(res.body).toString(), path).toBe(INDEX);
+    }
+    const plain = await get('/jobs');
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    expect(plain.headers['cache-control']).toBe('no-cache');
+    expect(plain.body.toString()).toBe(INDEX);
+  });
+
+  it('should leave the API uncompressed by these copies and uncached', async () => {
+    const res = await get('/api/health', 'br, gzip');
+    expect(res.headers['content-encoding']).toBeUndefined();
+    expect(res.headers['cache-control']).toBe('no-store');
+  });
+});
