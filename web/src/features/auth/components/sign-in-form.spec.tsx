@@ -6,6 +6,7 @@ import { apiErrorResponse, mockApi } from '../../../testing/mock-api';
 import { jsonResponse, renderApp } from '../../../testing/render-app';
 
 const office = buildSessionUser('office');
+const signupStatus = { mode: 'open', hasCompanies: true, mailCaptured: true, contact: null };
 
 describe('SignInForm', () => {
   it('should say which boxes are empty or wrong without asking the server', async () => {
@@ -62,6 +63,8 @@ describe('SignInForm', () => {
       'POST /api/auth/sign-in': () => jsonResponse(buildSessionResponse(office, 'fresh-token')),
       'GET /api/users': () => jsonResponse([]),
       'GET /api/invitations': () => jsonResponse([]),
+      'GET /api/signup/status': () => jsonResponse(signupStatus),
+      'GET /api/outbox/status': () => jsonResponse({ captured: true, destination: null }),
     });
     const { user, router } = renderApp({ url: '/sign-in?next=%2Fusers', signedInAs: null });
 
@@ -84,6 +87,8 @@ describe('SignInForm', () => {
   it('should not follow a `next` that leaves the app', async () => {
     mockApi({
       'POST /api/auth/sign-in': () => jsonResponse(buildSessionResponse(office)),
+      'GET /api/signup/status': () => jsonResponse(signupStatus),
+      'GET /api/outbox/status': () => jsonResponse({ captured: true, destination: null }),
       'GET /api/health': () => jsonResponse({ status: 'ok', database: { status: 'up', latencyMs: 1 }, version: '0.1.0', uptimeSeconds: 1 }),
     });
     const { user, router } = renderApp({ url: '/sign-in?next=%2F%2Fevil.example%2F', signedInAs: null });
