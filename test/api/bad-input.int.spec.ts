@@ -27,7 +27,7 @@ import {
 } from '../support/bad-input-arbitraries.js';
 import { changedTables, type DbFingerprint, fingerprintDatabase } from '../support/db-fingerprint.js';
 import { createCompany, createUser, type TestCompany, withDb } from '../support/fixtures.js';
-import { type Api, apiAs, createSite, insertRecordedJob, insertSmallRecordedJob } from '../support/records.js';
+import { type Api, apiAs, createSite, insertRecordedJob, insertSmallRecordedJob, siteVersion } from '../support/records.js';
 import { bearer, type Session, signIn } from '../support/session.js';
 import { thisPartOf } from '../support/file-parts.js';
 import { createTestApp } from '../support/test-app.js';
@@ -162,8 +162,34 @@ describe('bad input on every write route', () => {
     return (await ctx.api.expectOk('post', '/api/customers', { name: 'Bad input customer' })).id;
   }
 
-  async function referencePoint(ctx: Ctx): Promise<string> {
-    return (await ctx.api.expectOk('post', `/api/sites/${ctx.siteId}/reference-points`, { label: 'Corner', x: 0, y: 0 })).id;
+  /**
+   * A reference point arranged straight in the database: the API refuses site geometry changes while a
+   * job on the site is under review, and the company's main site gets ready-to-issue jobs along the way.
+   */
+  async function referencePoint(ctx: Ctx, siteId = ctx.siteId): Promise<string> {
+    return withDb(
+      async (client) =>
+        (await client.query(`insert into reference_points (site_id, label, x, y) values ($1, 'Corner', 0, 0) returning id`, [siteId])).rows[0].id as string,
+    );
+  }
+
+  /** A site feature (a fence line) arranged straight in the database, as the reference points are. */
+  async function siteFeature(siteId: string): Promise<string> {
+    return withDb(
+      async (client) =>
+        (
+          await client.query(
+            `insert into site_features (site_id, kind, name, shape, points) values ($1, 'fence', 'Fence', 'line', '[{"x":0,"y":0},{"x":5,"y":0}]') returning id`,
+            [siteId],
+          )
+        ).rows[0].id as string,
+    );
+  }
+
+  /** A fresh site of the company (no jobs under review), with If-Match for its current version. */
+  async function versionedSite(ctx: Ctx): Promise<{ siteId: string; headers: Record<string, string> }> {
+    const { siteId } = await createSite(ctx.api);
+    return { siteId, headers: { 'If-Match': String(await siteVersion(ctx.api, siteId)) } };
   }
 
   async function invitation(ctx: Ctx): Promise<string> {
@@ -546,12 +572,14 @@ describe('bad input on every write route', () => {
       refs: ['customerId'],
       texts: { label: (r) => r.label, notes: (r) => r.notes },
     },
+    // Site writes name the site's version (If-Match), as job writes name the job's.
     'PATCH /api/sites/:id': {
       input: 'json',
-      arrange: async (ctx) => ({
-        params: { id: ctx.siteId },
-        body: { customerId: await customer(ctx), notes: 'Dog in the yard', origin: { lat: 40, lon: -105 } },
-      }),
+      isVersioned: true,
+      arrange: async (ctx) => {
+        const { siteId, headers } = await versionedSite(ctx);
+        return { params: { id: siteId }, headers, body: { customerId: await customer(ctx), notes: 'Dog in the yard', origin: { lat: 40, lon: -105 } } };
+      },
       fields: siteFields,
       refs: ['customerId'],
     },
@@ -559,31 +587,89 @@ describe('bad input on every write route', () => {
     'PUT /api/sites/:siteId/plan-image': {
       input: 'multipart',
       fileField: 'file',
-      arrange: async (ctx) => ({ params: { siteId: (await createSite(ctx.api)).siteId }, body: {} }),
+      isVersioned: true,
+      arrange: async (ctx) => {
+        const { siteId, headers } = await versionedSite(ctx);
+        return { params: { siteId }, headers, body: {} };
+      },
     },
     'DELETE /api/sites/:siteId/plan-image': {
       input: 'none',
+      isVersioned: true,
       arrange: async (ctx) => {
-        const { siteId } = await createSite(ctx.api);
-        const res = await request(server()).put(`/api/sites/${siteId}/plan-image`).set(bearer(ctx.session)).attach('file', photoPng, 'plan.png');
+        const { siteId, headers } = await versionedSite(ctx);
+        const res = await request(server()).put(`/api/sites/${siteId}/plan-image`).set(bearer(ctx.session)).set(headers).attach('file', photoPng, 'plan.png');
         if (res.status !== 200) throw new Error(`plan image upload → ${res.status} ${JSON.stringify(res.body)}`);
-        return { params: { siteId } };
+        return { params: { siteId }, headers: { 'If-Match': String(res.body.siteVersion) } };
       },
     },
     'POST /api/sites/:siteId/reference-points': {
       input: 'json',
-      arrange: async (ctx) => ({ params: { siteId: ctx.siteId }, body: { label: 'Gate post', x: 3, y: 4, notes: 'Painted orange' } }),
+      isVersioned: true,
+      arrange: async (ctx) => {
+        const { siteId, headers } = await versionedSite(ctx);
+        return { params: { siteId }, headers, body: { label: 'Gate post', x: 3, y: 4, notes: 'Painted orange' } };
+      },
       fields: { label, x: coordinate, y: coordinate, notes: nullableText2000 },
       texts: { label: (r) => r.label },
     },
     'PATCH /api/sites/:siteId/reference-points/:pointId': {
       input: 'json',
-      arrange: async (ctx) => ({ params: { siteId: ctx.siteId, pointId: await referencePoint(ctx) }, body: { x: 1 } }),
+      isVersioned: true,
+      arrange: async (ctx) => {
+        const { siteId, headers } = await versionedSite(ctx);
+        return { params: { siteId, pointId: await referencePoint(ctx, siteId) }, headers, body: { x: 1 } };
+      },
       fields: { label, x: coordinate, y: coordinate, notes: nullableText2000 },
     },
     'DELETE /api/sites/:siteId/reference-points/:pointId': {
       input: 'none',
-      arrange: async (ctx) => ({ params: { siteId: ctx.siteId, pointId: await referencePoint(ctx) } }),
+      isVersioned: true,
+      arrange: async (ctx) => {
+        const { siteId, headers } = await versionedSite(ctx);
+        return { params: { siteId, pointId: await referencePoint(ctx, siteId) }, headers };
+      },
+    },
+    // Site features (issue 15): named outlines and lines, written as site geometry (If-Match).
+    'POST /api/sites/:siteId/features': {
+      input: 'json',
+      isVersioned: true,
+      arrange: async (ctx) => {
+        const { siteId, headers } = await versionedSite(ctx);
+        return { params: { siteId }, headers, body: { kind: 'fence', name: 'East fence', shape: 'line', points: [{ x: 0, y: 0 }, { x: 10, y: 0 }] } };
+      },
+      fields: {
+        kind: { type: 'enum', values: ['house', 'outbuilding', 'fence', 'wall', 'patio', 'path', 'pool', 'spa', 'driveway', 'tree', 'bed', 'other'] },
+        name: label,
+        shape: { type: 'enum', values: ['polygon', 'line'] },
+        points: { type: 'array', max: 500 },
+        'points.0.x': coordinate,
+        'points.1.y': coordinate,
+      },
+      texts: { name: (r) => r.name },
+    },
+    'PATCH /api/sites/:siteId/features/:featureId': {
+      input: 'json',
+      isVersioned: true,
+      arrange: async (ctx) => {
+        const { siteId, headers } = await versionedSite(ctx);
+        return { params: { siteId, featureId: await siteFeature(siteId) }, headers, body: { name: 'Back fence' } };
+      },
+      fields: {
+        kind: { type: 'enum', values: ['house', 'outbuilding', 'fence', 'wall', 'patio', 'path', 'pool', 'spa', 'driveway', 'tree', 'bed', 'other'] },
+        name: label,
+        shape: { type: 'enum', values: ['polygon', 'line'] },
+        points: { type: 'array', max: 500 },
+      },
+      texts: { name: (r) => r.name },
+    },
+    'DELETE /api/sites/:siteId/features/:featureId': {
+      input: 'none',
+      isVersioned: true,
+      arrange: async (ctx) => {
+        const { siteId, headers } = await versionedSite(ctx);
+        return { params: { siteId, featureId: await siteFeature(siteId) }, headers };
+      },
     },
     'POST /api/sites/:siteId/homeowners': {
       input: 'json',
