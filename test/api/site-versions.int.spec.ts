@@ -159,7 +159,7 @@ describe('site versions and site geometry behind jobs', () => {
         expect(malformed.body.issues[0].path).toBe('If-Match');
         expect(await stateOf(siteId), write.name).toEqual(before);
       }
-    });
+    }, 90_000);
 
     it('should refuse each while a job on the site is submitted or ready to issue (409 naming the job), changing nothing', async () => {
       for (const statuses of [['in_progress', 'submitted'], ['in_progress', 'submitted', 'ready_to_issue']]) {
@@ -174,7 +174,7 @@ describe('site versions and site geometry behind jobs', () => {
           expect(await stateOf(siteId), write.name).toEqual(before);
         }
       }
-    });
+    }, 90_000);
 
     it('should apply each on the current version, bump the site and every open job on it (not issued ones), so a stale job write conflicts', async () => {
       const { siteId, pointId, job } = await arrange(['in_progress']);
@@ -198,7 +198,7 @@ describe('site versions and site geometry behind jobs', () => {
       const stale = await as.office.send('patch', `/api/jobs/${job.id}`, { title: 'Renamed' }, ifMatch(job.version));
       expect(stale.status).toBe(409);
       expect(stale.body).toMatchObject({ code: 'VERSION_CONFLICT', currentVersion: open[job.id] });
-    });
+    }, 90_000);
 
     it('should let the office change a site’s name and notes while a job is under review, bumping only the site', async () => {
       const { siteId, job } = await arrange(['in_progress', 'submitted']);
@@ -229,7 +229,7 @@ describe('site versions and site geometry behind jobs', () => {
       await withDb((db) => db.query(`update jobs set status = 'issued' where id = $1`, [job.id]));
       expect((await move('lead', 5)).status).toBe(403);
       expect((await move('office', 5)).status).toBe(200);
-    });
+    }, 90_000);
   });
 
   describe('issued packets stay frozen', () => {
