@@ -9,6 +9,7 @@ import { waitForMail } from '../support/mail.js';
 import { type Api, createJob, createSite, moveJob, recordAsBuilt } from '../support/records.js';
 
 const PHONE = { width: 390, height: 844 };
+const DESK = { width: 1280, height: 800 };
 
 async function signIn(page: Page, email: string): Promise<void> {
   await page.getByRole('heading', { name: 'Sign in' }).waitFor();
@@ -30,6 +31,7 @@ describe('delivery: the office sends the packet, the homeowner shares a locate l
   let browser: Browser;
   let company: TestCompany;
   let siteId: string;
+  let jobId: string;
   let revisionId: string;
 
   beforeAll(async () => {
@@ -46,6 +48,7 @@ describe('delivery: the office sends the packet, the homeowner shares a locate l
     const issued = await office.send('post', `/api/jobs/${ready.id}/packets`, undefined, { 'If-Match': `"${ready.version}"` });
     if (issued.status !== 201) throw new Error(`issue → ${issued.status} ${JSON.stringify(issued.body)}`);
     revisionId = issued.body.id;
+    jobId = ready.id;
     const deadline = Date.now() + 100_000;
     for (;;) {
       const body = await office.expectOk('get', `/api/packets/${revisionId}`);
@@ -58,6 +61,51 @@ describe('delivery: the office sends the packet, the homeowner shares a locate l
   afterAll(async () => {
     await browser?.close();
   });
+
+  it('should let the office send the issued packet from the job page, see it sent, and find the e-mail in the Outbox', async () => {
+    const context = await browser.newContext({ viewport: DESK });
+    const page = await context.newPage();
+    const errors: string[] = [];
+    page.on('pageerror', (error) => errors.push(error.message));
+    await page.goto(`${baseUrl}/jobs/${jobId}`);
+    await signIn(page, company.users.office.email);
+    await page.waitForURL(`**/jobs/${jobId}`);
+
+    // The ready revision offers Send to homeowner; the dialog starts with the site's homeowner ticked.
+    const revision = page.getByRole('listitem', { name: 'Revision 1' });
+    await revision.getByText(/^Ready/).waitFor({ timeout: 30_000 });
+    await revision.getByRole('button', { name: 'Send to homeowner' }).click();
+    const dialog = page.getByRole('dialog');
+    const homeowner = dialog.getByRole('checkbox', { name: company.users.homeowner.email });
+    await homeowner.waitFor();
+    expect(await homeowner.isChecked()).toBe(true);
+    // A second address with no account: invited to the portal in the same e-mail.
+    const newOwner = `second.owner.${Date.now()}@delivery-flow.example`;
+    await dialog.getByRole('textbox', { name: 'Another address' }).fill(newOwner);
+    await dialog.getByRole('button', { name: 'Add' }).click();
+    await dialog.getByRole('textbox', { name: /Message/ }).fill('Thank you for having us in your garden.');
+    await dialog.getByRole('button', { name: 'Send to 2 recipients' }).click();
+    await dialog.waitFor({ state: 'detached' });
+
+    // Each recipient's e-mail goes queued → sending → sent, with its time.
+    const log = page.getByRole('list', { name: 'E-mails to the homeowner' });
+    for (const to of [company.users.homeowner.email, newOwner]) {
+      await log.getByRole('listitem', { name: `E-mail to ${to}` }).getByRole('status').filter({ hasText: /^Sent / }).waitFor({ timeout: 30_000 });
+    }
+    await log.getByRole('listitem', { name: `E-mail to ${newOwner}` }).getByText(/with an invitation to the portal/).waitFor();
+
+    // The Outbox has the e-mail, with the PDF attached and the invitation link.
+    await page.goto(`${baseUrl}/outbox`);
+    const message = page.getByRole('list', { name: 'Captured messages' }).getByRole('link').filter({ hasText: `To ${newOwner}` });
+    await message.filter({ hasText: /Your handover packet from/ }).first().click();
+    await page.getByRole('button', { name: /^Download .+\.pdf$/ }).waitFor();
+    await page.getByText(/\/accept-invitation\?token=/).first().waitFor();
+    await page.getByText('Thank you for having us in your garden.').first().waitFor();
+
+    expect(errors).toEqual([]);
+    await context.close();
+    // Generous: on two cores shared with other suites each page and the send queue are slow.
+  }, 180_000);
 
   it('should carry the e-mail link to the portal, and a locate link to a phone until it is revoked', async () => {
     // The office sends the ready packet to the site's homeowner.
