@@ -66,6 +66,19 @@ export default defineConfig({
       },
       {
         test: {
+          name: 'journeys',
+          environment: 'node',
+          include: ['test/journeys/**/*.journey.spec.ts'],
+          // No shared database or server: each journey runs scripts/start.mjs as `npm start` does (its own
+          // data folder, PostgreSQL cluster and port, NODE_ENV=production, no SMTP_URL, no demo seed).
+          // One file at a time, after the parallel projects; a first start initialises a cluster.
+          fileParallelism: false,
+          testTimeout: 900_000,
+          hookTimeout: 660_000,
+        },
+      },
+      {
+        test: {
           name: 'system',
           environment: 'node',
           include: ['test/system/**/*.system.spec.ts'],
