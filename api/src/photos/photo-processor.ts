@@ -46,7 +46,7 @@ export interface InspectedImage {
 }
 
 /**
- * True when libvips here decodes HEVC-coded HEIF (iPhone photos). The prebuilt sharp binaries ship
+ * True when libvips here decodes HEVC-coded HEIF (phones' high-efficiency photos). The prebuilt sharp binaries ship
  * libheif with the AV1 decoder only (AVIF), for patent reasons, and then list just `.avif`.
  */
 export function canDecodeHeic(): boolean {

@@ -50,7 +50,7 @@ export function buildSiteMap(): SiteMap {
 export function buildLocateView(token = 'tok'): LocateViewResponse {
   const base = `/api/locate/${token}`;
   return {
-    site: { label: 'Maple Street', addressLine1: '12 Maple Street', addressLine2: null, city: 'Springfield', region: 'IL', postalCode: '62701', country: 'US', northAzimuthDeg: 15 },
+    site: { label: 'Wrenfold Close', addressLine1: '12 Wrenfold Close', addressLine2: null, city: 'Quellbrook', region: 'XX', postalCode: '00000', country: 'US', northAzimuthDeg: 15 },
     installer: { companyName: 'Garden Sound Co', phone: '+1 555 0100', email: 'office@gardensound.test', licenceNumbers: ['LV-1234'] },
     locateSteps: [{ title: 'Call 811', body: 'Contact the one-call centre before digging.' }],
     cautions: [{ title: 'Hand-dig', body: 'Hand-dig within 18 in of a mapped route.' }],
