@@ -33,7 +33,8 @@ describe('parseLength', () => {
 describe('formatLength', () => {
   it.each([
     [0.1524, 'imperial', 'short', '6 in'],
-    [0.1, 'imperial', 'short', '4 in'],
+    [0.1, 'imperial', 'short', '3 7/8 in'], // 3.937 in to the nearest 1/8 (1 in = 25.4 mm exactly, NIST SP 811)
+    [0.105, 'imperial', 'short', '4 1/8 in'],
     [0.15, 'metric', 'short', '15 cm'],
     [12.192, 'imperial', 'long', '40 ft'],
     [12.5, 'imperial', 'long', '41 ft'],

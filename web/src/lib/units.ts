@@ -1,4 +1,11 @@
-import { METRES_PER_FOOT, METRES_PER_INCH, metresToInches, toFeetAndInches } from '@domain/as-built/units';
+import { parseLengthInput, type LengthParse } from '@domain/as-built/length-input';
+import {
+  formatLength as formatDomainLength,
+  lengthEditText,
+  unitFactor,
+  unitSymbol,
+  type LengthScale as DomainLengthScale,
+} from '@domain/format/length';
 import type { Gauge } from '@domain/as-built/run.schema';
 import { isKnownMm2, MAX_AWG, MIN_AWG } from '@domain/cable/wire';
 
@@ -17,108 +24,39 @@ export const GAUGE_UNIT_LABELS: Record<GaugeSystem, string> = { awg: 'AWG', mm2:
  * - `long`: run lengths, stations, ties (feet / metres);
  * - `short`: depths and hole sizes (inches / centimetres).
  */
-export type LengthScale = 'long' | 'short';
+export type LengthScale = DomainLengthScale;
 
-export type ParseResult = { ok: true; metres: number } | { ok: false; message: string };
-
-const UNIT_FACTORS: Record<string, number> = {
-  m: 1,
-  metre: 1,
-  metres: 1,
-  meter: 1,
-  meters: 1,
-  cm: 0.01,
-  mm: 0.001,
-  ft: METRES_PER_FOOT,
-  feet: METRES_PER_FOOT,
-  foot: METRES_PER_FOOT,
-  "'": METRES_PER_FOOT,
-  '′': METRES_PER_FOOT,
-  in: METRES_PER_INCH,
-  inch: METRES_PER_INCH,
-  inches: METRES_PER_INCH,
-  '"': METRES_PER_INCH,
-  '″': METRES_PER_INCH,
-  "''": METRES_PER_INCH,
-};
+export type ParseResult = LengthParse;
 
 /** The unit a bare number is read in, for each system and scale. */
 export function defaultUnitFactor(system: LengthSystem, scale: LengthScale): number {
-  if (system === 'metric') return scale === 'long' ? 1 : 0.01;
-  return scale === 'long' ? METRES_PER_FOOT : METRES_PER_INCH;
+  return unitFactor(system, scale);
 }
 
 export function unitLabel(system: LengthSystem, scale: LengthScale): string {
-  if (system === 'metric') return scale === 'long' ? 'm' : 'cm';
-  return scale === 'long' ? 'ft' : 'in';
+  return unitSymbol(system, scale);
 }
 
-// A number (comma or point for decimals) optionally followed by a unit: "6 in", "0.15m", "2'", "6\"".
-const TERM = /(\d+(?:[.,]\d+)?|[.,]\d+)\s*(mm|cm|metres?|meters?|m|ft|feet|foot|inch(?:es)?|in|''|'|′|"|″)?/giy;
-
 /**
- * Reads a length typed in the field: a bare number in the chosen unit (`6` is 6 in for a depth in
- * imperial), or with units, also mixed: `6 in`, `0.15 m`, `15 cm`, `2' 6"`, `2 ft 6 in`, `1,5 m`.
- * Returns metres, unrounded.
+ * Reads a length typed in a field (the domain's one parser): `18' 6"`, `18 6`, `18ft 6in`, `18.5`, `6"`,
+ * `4 1/4 in`, `4¼`, `2.5 m`, `15 cm`; a bare number is in the field's unit. `field` names the field in the
+ * message. Returns metres, unrounded.
  */
-export function parseLength(input: string, system: LengthSystem, scale: LengthScale): ParseResult {
-  const text = input.trim().toLowerCase();
-  if (text === '') return { ok: false, message: 'Enter a length.' };
-  if (text.startsWith('-')) return { ok: false, message: 'A length cannot be negative.' };
-  let total = 0;
-  let terms = 0;
-  let hasBare = false;
-  let index = 0;
-  TERM.lastIndex = 0;
-  while (index < text.length) {
-    while (text[index] === ' ') index += 1;
-    if (index >= text.length) break;
-    TERM.lastIndex = index;
-    const match = TERM.exec(text);
-    if (!match) return { ok: false, message: `Cannot read "${input.trim()}" as a length, e.g. ${example(system, scale)}.` };
-    const value = Number(match[1]!.replace(',', '.'));
-    const unit = match[2];
-    if (unit === undefined) {
-      // A bare number after a foot term is inches (2' 6); alone it is in the field's unit.
-      if (hasBare) return { ok: false, message: `Cannot read "${input.trim()}" as a length, e.g. ${example(system, scale)}.` };
-      hasBare = true;
-      const previousWasFeet = terms > 0 && /(ft|feet|foot|'|′)\s*$/.test(text.slice(0, index).trim());
-      total += value * (previousWasFeet ? METRES_PER_INCH : defaultUnitFactor(system, scale));
-    } else {
-      total += value * UNIT_FACTORS[unit]!;
-    }
-    terms += 1;
-    index = TERM.lastIndex;
-  }
-  if (!Number.isFinite(total)) return { ok: false, message: 'Enter a length.' };
-  return { ok: true, metres: total };
-}
-
-function example(system: LengthSystem, scale: LengthScale): string {
-  if (system === 'metric') return scale === 'long' ? '12.5 m' : '15 cm';
-  return scale === 'long' ? `40 ft or 40' 6"` : '6 in';
-}
-
-function trimNumber(value: number, digits: number): string {
-  return String(Number(value.toFixed(digits)));
+export function parseLength(input: string, system: LengthSystem, scale: LengthScale, field?: string): ParseResult {
+  return parseLengthInput(input, { system, scale, field });
 }
 
 /**
- * Metres for display: long lengths as `12.5 m` or `41 ft 2 in`, short ones as `15 cm` or `6 in`
- * (to the nearest ¼ in).
+ * Metres for display (the domain's one formatter): ground lengths as `26 ft 3 in` or `8.01 m`, depths
+ * as `4 1/8 in` (nearest eighth) or `11.5 cm`.
  */
 export function formatLength(metres: number, system: LengthSystem, scale: LengthScale): string {
-  if (system === 'metric') {
-    return scale === 'long' ? `${trimNumber(metres, 2)} m` : `${trimNumber(metres * 100, 1)} cm`;
-  }
-  if (scale === 'short') return `${trimNumber(Math.round(metresToInches(metres) * 4) / 4, 2)} in`;
-  const { feet, inches } = toFeetAndInches(metres);
-  return inches === 0 ? `${feet} ft` : `${feet} ft ${Math.abs(inches)} in`;
+  return formatDomainLength(metres, system, scale);
 }
 
-/** The value put back into an input for editing: a plain number in the field's unit. */
+/** The value put back into an input for editing: `18' 6"`, `7 3/4` (in), `12.5` (m), `15` (cm). */
 export function lengthInputValue(metres: number, system: LengthSystem, scale: LengthScale): string {
-  return trimNumber(metres / defaultUnitFactor(system, scale), system === 'metric' ? 3 : 2);
+  return lengthEditText(metres, system, scale);
 }
 
 /**

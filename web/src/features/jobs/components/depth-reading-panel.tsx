@@ -69,8 +69,8 @@ function depthReadingFormSchema(units: UnitPreferences) {
   return z
     .object({ station: z.string(), depth: z.string(), editing: z.number().int().min(0).optional() })
     .transform((draft, ctx): DepthReadingOutput => {
-      const station = readLength(draft.station, units, 'long');
-      const cover = readLength(draft.depth, units, 'short');
+      const station = readLength(draft.station, units, 'long', 'Station');
+      const cover = readLength(draft.depth, units, 'short', 'Cover depth');
       if (station.error) ctx.addIssue({ code: 'custom', path: ['station'], message: station.error });
       if (cover.error) ctx.addIssue({ code: 'custom', path: ['depth'], message: cover.error });
       if (station.metres === undefined || cover.metres === undefined) return z.NEVER;

@@ -92,7 +92,7 @@ function runFormSchema(units: UnitPreferences, route: Run['route']) {
     .transform((draft, ctx): RunBody => {
       const issue = (field: RunField, message: string) => ctx.addIssue({ code: 'custom', path: [field], message });
       const gauge = parseGauge(draft.gauge, units.gauge);
-      const length = readLength(draft.measuredLength, units, 'long');
+      const length = readLength(draft.measuredLength, units, 'long', 'Measured length');
       const pairCount = Math.max(1, Math.floor((Number(draft.conductors) || 2) / 2));
       const pairs = Array.from({ length: pairCount }, (_, i) => {
         const [amplifierItemId, channelId] = (draft.pairs[String(i + 1)] ?? '').split('|');
