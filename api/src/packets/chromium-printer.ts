@@ -89,6 +89,8 @@ export class ChromiumPrinter {
           preferCSSPageSize: true,
           displayHeaderFooter: !request.isDraft,
           tagged: !request.isDraft,
+          // Bookmarks from the headings (h1–h6), one per section, for PDF readers' side panel.
+          outline: !request.isDraft,
           headerTemplate: '<span></span>',
           footerTemplate: request.footerTemplate,
           timeout: this.options.pdfTimeoutMs,

@@ -12,7 +12,7 @@ import { drawJobDepthProfile, drawJobSchematic, drawJobSitePlan, jobTitleBlock }
 import { COLOUR_KEY_NOTE, RUN_ORANGE } from '../drawings/marking-palette.js';
 import { createNodeSvgCanvas } from '../drawings/node-svg-window.js';
 import { type ChromiumPrinter } from './chromium-printer.js';
-import { readPdfOutline } from './pdf-destinations.js';
+import { readPdfLayout, withDocumentInfo } from './pdf-document-info.js';
 
 /**
  * templates/packet and fonts/inter-static at the repository root (the same relative path from api/src
@@ -179,8 +179,8 @@ export interface RenderedPacket {
 
 /**
  * The whole packet pipeline: view model → drawings → HTML → PDF. Page numbers for the contents are found
- * by a first print (photos and drawings replaced by empty boxes of the same size, which is cheap) whose named destinations
- * give each section's page; the second print carries them. The contents page has a fixed layout, so
+ * by a first print (photos and drawings replaced by empty boxes of the same size, which is cheap) whose named destinations,
+ * read with pdf.js, give each section's page; the second print carries them. The contents page has a fixed layout, so
  * filling in the numbers cannot move a section.
  */
 export async function renderPacket(
@@ -200,10 +200,21 @@ export async function renderPacket(
     qrSvg,
     logoDataUri: input.logoDataUri,
   });
-  const first = readPdfOutline(await printer.print({ html: firstHtml, footerTemplate, isDraft: true, onBlockedRequest: input.onBlockedRequest }));
+  const first = await readPdfLayout(await printer.print({ html: firstHtml, footerTemplate, isDraft: true, onBlockedRequest: input.onBlockedRequest }));
   const pageNumbers = Object.fromEntries(draft.toc.map((entry) => [entry.id, first.destinations.get(entry.id)]).filter(([, page]) => page !== undefined));
   const vm = buildPacketViewModel({ ...input, pageNumbers });
   const html = renderPacketHtml({ vm, drawings, qrSvg, logoDataUri: input.logoDataUri });
-  const pdf = await printer.print({ html, footerTemplate, onBlockedRequest: input.onBlockedRequest });
-  return { pdf, pageCount: readPdfOutline(pdf).pageCount, html, drawings };
+  const printed = await printer.print({ html, footerTemplate, onBlockedRequest: input.onBlockedRequest });
+  const pdf = await withDocumentInfo(printed, packetDocumentInfo(vm, input.snapshot), input.snapshot.issuedAt);
+  return { pdf, pageCount: (await readPdfLayout(pdf)).pageCount, html, drawings };
+}
+
+/** The PDF's document information: what a file browser or PDF reader shows before anyone opens it. */
+export function packetDocumentInfo(vm: PacketViewModel, snapshot: PacketSnapshot) {
+  return {
+    title: vm.documentTitle,
+    author: snapshot.company.name,
+    subject: `As-built handover packet for ${snapshot.site.label}: ${snapshot.job.title}, revision ${snapshot.revision}`,
+    keywords: ['as-built', 'handover packet', 'low-voltage landscape audio', snapshot.site.label, snapshot.job.title, `revision ${snapshot.revision}`],
+  };
 }

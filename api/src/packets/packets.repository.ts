@@ -111,7 +111,14 @@ export class PacketsRepository {
 
   async findFiles(companyId: string, id: string) {
     const [row] = await this.db
-      .select({ ...summaryColumns, pdfKey: packetRevisions.pdfKey, zipKey: packetRevisions.zipKey })
+      .select({
+        ...summaryColumns,
+        pdfKey: packetRevisions.pdfKey,
+        zipKey: packetRevisions.zipKey,
+        // The names frozen at issue, for the download's file name.
+        siteLabel: sql<string | null>`${packetRevisions.snapshot}->'site'->>'label'`,
+        jobTitle: sql<string | null>`${packetRevisions.snapshot}->'job'->>'title'`,
+      })
       .from(packetRevisions)
       .where(and(eq(packetRevisions.companyId, companyId), eq(packetRevisions.id, id)));
     return row;

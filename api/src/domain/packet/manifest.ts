@@ -20,3 +20,11 @@ export function safeFileName(text: string, fallback: string): string {
     .replace(/-+$/, '');
   return slug === '' ? fallback : slug;
 }
+
+/**
+ * The packet's file name without extension, `<site>-<job>-rev-<n>` (e.g. `back-yard-garden-audio-rev-2`),
+ * from the names frozen in the revision: safe characters only, the same for the download and the archive.
+ */
+export function packetFileBase(siteLabel: string, jobTitle: string, revision: number): string {
+  return `${safeFileName(siteLabel, 'site')}-${safeFileName(jobTitle, 'job')}-rev-${revision}`;
+}
