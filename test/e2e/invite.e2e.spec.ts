@@ -68,7 +68,7 @@ describe('invitations and sessions in the browser', () => {
     await leadPage.getByLabel('Type the password again').fill('trench-and-conduit-42');
     await leadPage.getByRole('button', { name: 'Join and sign in' }).click();
 
-    await leadPage.getByRole('heading', { name: 'Welcome' }).waitFor();
+    await leadPage.getByRole('heading', { name: 'Today' }).waitFor();
     expect(new URL(leadPage.url()).pathname).toBe('/');
     await leadPage.getByRole('button', { name: 'Account: Marlo Quint' }).waitFor();
 
@@ -83,7 +83,7 @@ describe('invitations and sessions in the browser', () => {
     const page = await context.newPage();
     await page.goto(`${baseUrl}/sign-in`);
     await signInThroughForm(page, company.users.office.email);
-    await page.getByRole('heading', { name: 'Welcome' }).waitFor();
+    await page.getByRole('heading', { name: 'Work queue' }).waitFor();
 
     const refreshes: number[] = [];
     page.on('response', (response) => {
@@ -91,7 +91,7 @@ describe('invitations and sessions in the browser', () => {
     });
     await page.reload();
 
-    await page.getByRole('heading', { name: 'Welcome' }).waitFor();
+    await page.getByRole('heading', { name: 'Work queue' }).waitFor();
     await page.getByRole('button', { name: `Account: ${company.users.office.name}` }).waitFor();
     expect(new URL(page.url()).pathname).toBe('/');
     expect(refreshes).toEqual([200]);

@@ -10,7 +10,7 @@ describe('NotFoundRoute', () => {
     expect(await screen.findByRole('heading', { name: 'Page not found' })).toBeInTheDocument();
     await user.click(screen.getByRole('link', { name: 'Go to the home page' }));
 
-    expect(await screen.findByRole('heading', { name: 'Welcome' })).toBeInTheDocument();
+    expect(await screen.findByRole('heading', { name: 'Today' })).toBeInTheDocument();
     expect(router.state.location.pathname).toBe('/');
   });
 });

@@ -12,7 +12,12 @@ const healthy = {
 
 describe('AppShell', () => {
   beforeEach(() => {
-    vi.spyOn(globalThis, 'fetch').mockImplementation(() => Promise.resolve(jsonResponse(healthy)));
+    // The default user is a crew lead, who lands on Today (its jobs list); anything else gets the health answer.
+    vi.spyOn(globalThis, 'fetch').mockImplementation((input) =>
+      Promise.resolve(
+        jsonResponse(String(input).startsWith('/api/jobs?') ? { items: [], total: 0, page: 1, pageSize: 25 } : healthy),
+      ),
+    );
   });
 
   it('should show the product name as the top heading', async () => {

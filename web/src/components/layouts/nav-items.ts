@@ -31,16 +31,17 @@ type NavContext = {
 /** The main navigation, in order, for who is looking. Pages are added here as they are built. */
 export function buildNavItems({ role, hasOutbox = false }: NavContext): NavItem[] {
   if (!role) return [{ label: 'System status', href: paths.status.getHref(), icon: HeartPulse24Regular }];
-  const items: NavItem[] = [{ label: 'Home', href: paths.home.getHref(), icon: Home24Regular, end: true }];
+  // A homeowner's home is their property: their menu has no contractor home page at all.
+  const items: NavItem[] =
+    role === 'homeowner'
+      ? [{ label: 'My property', href: paths.portal.getHref(), icon: Map24Regular }]
+      : [{ label: 'Home', href: paths.home.getHref(), icon: Home24Regular, end: true }];
   if (isStaffRole(role)) {
     items.push({ label: 'Jobs', href: paths.jobs.getHref(), icon: ClipboardTextLtr24Regular });
     items.push({ label: 'Customers', href: paths.customers.getHref(), icon: BuildingHome24Regular });
   }
   if (role === 'admin' || role === 'office') {
     items.push({ label: 'Users', href: paths.users.getHref(), icon: People24Regular });
-  }
-  if (role === 'homeowner') {
-    items.push({ label: 'My property', href: paths.portal.getHref(), icon: Map24Regular });
   }
   if ((role === 'admin' || role === 'office') && hasOutbox) {
     items.push({ label: 'Outbox', href: paths.outbox.getHref(), icon: MailInbox24Regular });

@@ -72,7 +72,7 @@ describe('SignInForm', () => {
     await user.type(screen.getByLabelText(/^Password/), 'correct horse battery');
     await user.click(screen.getByRole('button', { name: 'Sign in' }));
 
-    expect(await screen.findByRole('heading', { name: 'Users' })).toBeInTheDocument();
+    expect(await screen.findByRole('heading', { name: 'Users' }, { timeout: 20_000 })).toBeInTheDocument();
     expect(router.state.location.pathname).toBe('/users');
     const signInCall = fetchMock.mock.calls.find(([url]) => url === '/api/auth/sign-in');
     expect(JSON.parse(String(signInCall?.[1]?.body))).toEqual({
@@ -82,14 +82,17 @@ describe('SignInForm', () => {
     const usersCall = fetchMock.mock.calls.find(([url]) => url === '/api/users');
     expect(new Headers(usersCall?.[1]?.headers).get('Authorization')).toBe('Bearer fresh-token');
     expect(screen.getByRole('button', { name: `Account: ${office.name}` })).toBeInTheDocument();
-  });
+  }, 40_000);
 
   it('should not follow a `next` that leaves the app', async () => {
     mockApi({
       'POST /api/auth/sign-in': () => jsonResponse(buildSessionResponse(office)),
       'GET /api/signup/status': () => jsonResponse(signupStatus),
       'GET /api/outbox/status': () => jsonResponse({ captured: true, destination: null }),
-      'GET /api/health': () => jsonResponse({ status: 'ok', database: { status: 'up', latencyMs: 1 }, version: '0.1.0', uptimeSeconds: 1 }),
+      // The office lands on the work queue (app/routes/app/home.tsx).
+      'GET /api/jobs?status=submitted&sort=updatedAt&page=1&pageSize=25': () => jsonResponse({ items: [], total: 0, page: 1, pageSize: 25 }),
+      'GET /api/jobs?status=ready_to_issue&sort=updatedAt&page=1&pageSize=25': () => jsonResponse({ items: [], total: 0, page: 1, pageSize: 25 }),
+      'GET /api/deliveries/failed': () => jsonResponse([]),
     });
     const { user, router } = renderApp({ url: '/sign-in?next=%2F%2Fevil.example%2F', signedInAs: null });
 
@@ -97,7 +100,8 @@ describe('SignInForm', () => {
     await user.type(screen.getByLabelText(/^Password/), 'correct horse battery');
     await user.click(screen.getByRole('button', { name: 'Sign in' }));
 
-    expect(await screen.findByRole('heading', { name: 'Welcome' })).toBeInTheDocument();
+    expect(await screen.findByRole('heading', { name: 'Work queue' }, { timeout: 20_000 })).toBeInTheDocument();
+    expect(screen.getByText('No job is waiting for review.')).toBeInTheDocument();
     expect(router.state.location.pathname).toBe('/');
-  });
+  }, 40_000);
 });
