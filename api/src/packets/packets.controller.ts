@@ -1,10 +1,12 @@
-import { Controller, Get, HttpCode, HttpStatus, Param, ParseUUIDPipe, Post, Res, StreamableFile } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, HttpStatus, Param, ParseUUIDPipe, Post, Res, StreamableFile } from '@nestjs/common';
 import { ApiBearerAuth, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
+import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
+import { type IssuePacketInput, IssuePacketInputSchema } from '../domain/packet/known-exceptions.js';
 import { ApiJobVersion } from '../jobs/api-job-version.decorator.js';
 import { type IssuePacketResponse, type PacketFile, type PacketRevisionResponse, PacketsService } from './packets.service.js';
 
@@ -34,15 +36,19 @@ export class PacketsController {
     summary: 'Issue the job’s handover packet (the next revision)',
     description:
       'The job must be ready to issue. Freezes the as-built into revision N, moves the job to `issued` and queues the ' +
-      'PDF render; poll GET /api/packets/:id until `status` is `ready` (or `failed` with `failureReason`).',
+      'PDF render; poll GET /api/packets/:id until `status` is `ready` (or `failed` with `failureReason`). Every open ' +
+      'must-fix finding needs an entry in `acknowledgements` ({ code, path, reason }, `path` joined with dots); ' +
+      'acknowledged findings print as Known exceptions in the homeowner’s words.',
   })
+  @ApiResponse({ status: 400, description: '`FINDINGS_NOT_ACKNOWLEDGED` (names the finding) or `VALIDATION_FAILED`' })
   @ApiResponse({ status: 409, description: '`JOB_NOT_READY_TO_ISSUE`, `VERSION_CONFLICT` or `PACKET_ALREADY_ISSUED`' })
   issue(
     @CurrentUser() user: AuthUser,
     @Param('jobId', ParseUUIDPipe) jobId: string,
     @ExpectedVersion() expectedVersion: number,
+    @Body(new ZodValidationPipe(IssuePacketInputSchema)) body: IssuePacketInput,
   ): Promise<IssuePacketResponse> {
-    return this.packets.issue(user, jobId, expectedVersion);
+    return this.packets.issue(user, jobId, expectedVersion, body);
   }
 
   @Get('jobs/:jobId/packets')

@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 
-import { ConflictException, Inject, Injectable, InternalServerErrorException, Logger, NotFoundException } from '@nestjs/common';
+import { BadRequestException, ConflictException, Inject, Injectable, InternalServerErrorException, Logger, NotFoundException } from '@nestjs/common';
 
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
@@ -9,6 +9,7 @@ import type { Site } from '../db/schema/index.js';
 import { analyzeAsBuilt } from '../domain/analysis/analyze.js';
 import { canIssuePacket } from '../domain/jobs/job-rules.js';
 import { packetFileBase } from '../domain/packet/manifest.js';
+import { findingKey, type IssuePacketInput, matchAcknowledgements } from '../domain/packet/known-exceptions.js';
 import type { PacketSnapshot } from '../domain/packet/packet-snapshot.js';
 import { toAsBuilt, toChannelSetup } from '../jobs/as-built-rows.js';
 import { denied, jobNotFound, versionConflict } from '../jobs/job-errors.js';
@@ -81,6 +82,37 @@ function toResponse(row: PacketRevisionSummary): PacketRevisionResponse {
   };
 }
 
+/**
+ * 400 for an issue whose acknowledgements do not match the open findings: names the first missing
+ * must-fix finding (code and path) or the bad entry, and lists every problem in `issues`.
+ */
+function acknowledgementsRefused(problems: ReturnType<typeof matchAcknowledgements>['problems']): BadRequestException {
+  const issues = problems.map((p) =>
+    p.kind === 'missing'
+      ? {
+          path: 'acknowledgements',
+          message: `must acknowledge the must-fix finding ${findingKey(p.finding)} with a reason`,
+          code: p.finding.code,
+          findingPath: p.finding.path.join('.'),
+        }
+      : {
+          path: `acknowledgements.${p.index}`,
+          message:
+            p.kind === 'unknown'
+              ? `${p.code} at "${p.path}" is not an open finding of this job`
+              : `${p.code} at "${p.path}" is acknowledged twice`,
+          code: p.code,
+          findingPath: p.path,
+        },
+  );
+  const first = issues[0]!;
+  return new BadRequestException({
+    message: `${first.path}: ${first.message}`,
+    code: problems.some((p) => p.kind === 'missing') ? 'FINDINGS_NOT_ACKNOWLEDGED' : 'VALIDATION_FAILED',
+    issues,
+  });
+}
+
 const packetNotFound = () => new NotFoundException({ message: 'No such packet revision.', code: 'PACKET_NOT_FOUND' });
 
 export interface PacketFile {
@@ -121,7 +153,7 @@ export class PacketsService {
    * unique (job, revision) constraint backs this up. The render is queued after the commit; a message
    * lost in between is re-sent when a worker starts.
    */
-  async issue(actor: AuthUser, jobId: string, expectedVersion: number): Promise<IssuePacketResponse> {
+  async issue(actor: AuthUser, jobId: string, expectedVersion: number, input: IssuePacketInput = {}): Promise<IssuePacketResponse> {
     const { revision, jobVersion, warnings } = await this.jobs.transaction(async (tx) => {
       const job = await this.jobs.lock(actor.companyId, jobId, tx);
       if (!job) throw jobNotFound();
@@ -135,6 +167,10 @@ export class PacketsService {
       const rows = await this.jobs.loadRecord(job, tx);
       const asBuilt = toAsBuilt(rows);
       const settings = await this.repository.settings(actor.companyId, tx);
+      // The company's depth rules (its own table, or the shipped defaults); other options keep their defaults.
+      const analysis = analyzeAsBuilt(asBuilt, settings.depthRules ? { depthRules: settings.depthRules } : {});
+      const { problems, accepted } = matchAcknowledgements(analysis.findings, input.acknowledgements ?? []);
+      if (problems.length > 0) throw acknowledgementsRefused(problems);
       const issuedAt = new Date();
       const snapshot: PacketSnapshot = {
         format: 1,
@@ -171,9 +207,9 @@ export class PacketsService {
         crewLead: job.crewLeadUserId && view.crewLeadName !== null ? { id: job.crewLeadUserId, name: view.crewLeadName } : null,
         technicians: await this.jobs.technicians(jobId, tx),
         asBuilt,
-        // The company's depth rules (its own table, or the shipped defaults); other options keep their defaults.
-        analysis: analyzeAsBuilt(asBuilt, settings.depthRules ? { depthRules: settings.depthRules } : {}),
+        analysis,
         channelSetups: Object.fromEntries(rows.channels.map((c) => [c.id, toChannelSetup(c)])),
+        ...(accepted.length > 0 ? { acknowledgements: accepted } : {}),
       };
       let inserted: PacketRevisionSummary;
       try {
@@ -208,7 +244,13 @@ export class PacketsService {
           action: 'packet.issue',
           targetType: 'packet_revision',
           targetId: inserted.id,
-          details: { jobId, revision: job.revision, jobVersion: version, signatureCount },
+          details: {
+            jobId,
+            revision: job.revision,
+            jobVersion: version,
+            signatureCount,
+            acknowledgedFindings: accepted.map((a) => ({ code: a.code, path: a.path, reason: a.reason })),
+          },
         },
         tx,
       );

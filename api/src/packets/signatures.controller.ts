@@ -24,7 +24,7 @@ class ParseSignatureRolePipe implements PipeTransform<string, SignatureRole> {
 
 /**
  * The sign-off block's signatures, captured on the lead's device at the walkthrough before the packet is
- * issued; issuing copies them into the revision (a revision issued without them prints "Not signed").
+ * issued; issuing copies them into the revision (a revision issued without them says in one line that the walkthrough was not signed).
  */
 @ApiTags('packets')
 @ApiBearerAuth()

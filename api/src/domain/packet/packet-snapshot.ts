@@ -1,6 +1,7 @@
 import type { AsBuiltAnalysis } from '../analysis/analyze.js';
 import type { AsBuilt } from '../as-built/as-built.schema.js';
 import type { ChannelSetup } from '../jobs/job-record.schema.js';
+import type { FindingAcknowledgement } from './known-exceptions.js';
 
 export type PaperSize = 'letter' | 'a4';
 export type PacketUnits = 'imperial' | 'metric';
@@ -77,6 +78,11 @@ export interface PacketSnapshot {
   analysis: AsBuiltAnalysis;
   /** Amplifier channel setup by channel id (not part of the as-built contract). */
   channelSetups: Record<string, ChannelSetup>;
+  /**
+   * Open findings the office acknowledged when issuing, with its reason (every must-fix finding has one).
+   * They print as Known exceptions in the homeowner's words. Absent in revisions issued before this existed.
+   */
+  acknowledgements?: FindingAcknowledgement[];
 }
 
 /** A photo as it prints in the appendix: already resized for print and inlined. */

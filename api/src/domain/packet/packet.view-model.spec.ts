@@ -55,13 +55,69 @@ describe('packet formatting', () => {
 describe(buildPacketViewModel.name, () => {
   const sut = () => buildPacketViewModel({ snapshot: demoPacketSnapshot(), locateUrl });
 
-  it('should list the sections of PRODUCT.md in order, pages unknown until the first pass', () => {
+  it('should list the sections of PRODUCT.md in order, leaving out those with nothing recorded, pages unknown until the first pass', () => {
     const vm = sut();
-    expect(vm.toc.map((t) => t.title)).toEqual(PACKET_SECTIONS.map((s) => s.title));
+    // No photos are passed and nothing was acknowledged at issue.
+    const absent = new Set(['known-exceptions', 'photos']);
+    expect(vm.toc.map((t) => t.title)).toEqual(PACKET_SECTIONS.filter((s) => !absent.has(s.id)).map((s) => s.title));
+    expect(vm.toc.map((t) => t.number)).toEqual(vm.toc.map((_, i) => String(i + 1)));
+    expect(vm.num['photos']).toBeUndefined();
+    const noWalls = buildPacketViewModel({
+      snapshot: demoPacketSnapshot({ asBuilt: { ...DEMO_AS_BUILT, items: DEMO_AS_BUILT.items.filter((i) => i.kind !== 'wall_entry'), runs: [] } }),
+      locateUrl,
+    });
+    expect(noWalls.toc.map((t) => t.id)).not.toContain('wall-entries');
+    expect(noWalls.toc.map((t) => t.id)).not.toContain('depth-profiles');
     expect(vm.toc.every((t) => t.page === '–')).toBe(true);
-    const numbered = buildPacketViewModel({ snapshot: demoPacketSnapshot(), locateUrl, pageNumbers: { summary: 3, 'sign-off': 19 } });
+    const numbered = buildPacketViewModel({ snapshot: demoPacketSnapshot(), locateUrl, pageNumbers: { summary: 3, engineering: 19 } });
     expect(numbered.toc[0]).toMatchObject({ number: '1', title: 'System summary', page: '3' });
-    expect(numbered.toc.at(-1)).toMatchObject({ title: 'Sign-off', page: '19' });
+    // The Engineering notes appendix comes last, after the sign-off.
+    expect(numbered.toc.at(-2)).toMatchObject({ title: 'Sign-off' });
+    expect(numbered.toc.at(-1)).toMatchObject({ title: 'Engineering notes', page: '19' });
+  });
+
+  it('should list acknowledged findings as known exceptions in homeowner words, never as instructions', () => {
+    const plain = sut();
+    expect(plain.knownExceptions).toEqual([]);
+    expect(plain.summary.exceptionsNote).toBe('');
+    const snapshot = demoPacketSnapshot();
+    const shallow = snapshot.analysis.findings.find((f) => f.code === 'DEPTH_SHALLOW')!;
+    snapshot.acknowledgements = [
+      { code: 'DEPTH_SHALLOW', path: shallow.path.join('.'), severity: 'warning', reason: 'Rock shelf under the patio edge; sleeved instead.', message: shallow.message },
+    ];
+    const vm = buildPacketViewModel({ snapshot, locateUrl });
+    expect(vm.toc.map((t) => t.id)).toContain('known-exceptions');
+    expect(vm.num['known-exceptions']).toBe('2');
+    expect(vm.knownExceptions).toHaveLength(1);
+    const text = vm.knownExceptions[0]!.text;
+    // 11 cm ≈ 4.3 in of cover, the default general rule 15 cm ≈ 5.9 in, written in the company's units.
+    expect(text).toContain('runs shallower than our standard');
+    expect(text).toContain('Patio splice to P2');
+    expect(text).toMatch(/4¼ in of cover where our standard is 6 in/);
+    expect(text).toContain('marked on the site plan');
+    expect(text).not.toMatch(/Bury it deeper|cm\b/);
+    expect(vm.knownExceptions[0]!.reason).toBe('Rock shelf under the patio edge; sleeved instead.');
+    expect(vm.summary.exceptionsNote).toBe('One known exception is described on the next page.');
+    expect(vm.engineering.findings.find((f) => f.message === shallow.message)?.acknowledged).toContain('Rock shelf');
+  });
+
+  it('should keep the engineering figures out of the summary and in the appendix', () => {
+    const vm = sut();
+    expect(Object.keys(vm.summary.channels[0]!)).not.toContain('output');
+    expect(vm.summary.channels[0]).toMatchObject({ status: 'Working as designed' });
+    expect(vm.engineering.channels[0]).toMatchObject({ output: expect.stringMatching(/W$/) });
+    expect(vm.engineering.assumptions.length).toBeGreaterThan(0);
+  });
+
+  it('should print only the amplifier settings that were recorded', () => {
+    const snapshot = demoPacketSnapshot();
+    for (const id of Object.keys(snapshot.channelSetups)) snapshot.channelSetups[id] = {} as (typeof snapshot.channelSetups)[string];
+    const vm = buildPacketViewModel({ snapshot, locateUrl });
+    for (const channel of vm.amplifiers[0]!.channels) {
+      expect(channel.settings.map((s) => s.label)).toEqual(['Load']);
+      expect(channel.isEmpty).toBe(true);
+    }
+    expect(sut().amplifiers[0]!.channels[0]!.settings.every((s) => s.value !== '—')).toBe(true);
   });
 
   it('should fill the cover from the snapshot', () => {
@@ -108,19 +164,22 @@ describe(buildPacketViewModel.name, () => {
 
   it('should summarise the channels and the commissioning comparison', () => {
     const vm = sut();
-    expect(vm.summary.channels.map((c) => c.load)).toEqual(['4 Ω', '5.33 Ω']);
+    expect(vm.engineering.channels.map((c) => c.load)).toEqual(['4 Ω', '5.33 Ω']);
     expect(vm.commissioning.rows.length).toBe(DEMO_AS_BUILT.checks.length);
     expect(vm.commissioning.rows[0]).toMatchObject({ quantity: expect.any(String), measured: expect.stringMatching(/Ω$/) });
   });
 
-  it('should print "Not signed" without signatures, and the signer with one', () => {
-    expect(sut().signOff.lead).toMatchObject({ isSigned: false, signedAt: 'Not signed', name: 'Riley Crewlead' });
+  it('should leave out signatures not collected, with one line saying so, and print the signer with one', () => {
+    expect(sut().signOff).toMatchObject({ signatures: [], unsignedNote: 'The walkthrough was not signed.' });
     const signed = buildPacketViewModel({
       snapshot: demoPacketSnapshot(),
       locateUrl,
       signatures: [{ role: 'homeowner', signerName: 'Dara Penhallow', signedAt: '2026-05-20T17:00:00Z', svgPath: 'M 1 1 L 10 10' }],
     });
-    expect(signed.signOff.homeowner).toMatchObject({ isSigned: true, signedAt: '20 May 2026, 17:00 UTC', svgPath: 'M 1 1 L 10 10' });
+    expect(signed.signOff.signatures).toEqual([
+      { role: 'Homeowner', name: 'Dara Penhallow', isSigned: true, signedAt: '20 May 2026, 17:00 UTC', svgPath: 'M 1 1 L 10 10' },
+    ]);
+    expect(signed.signOff.unsignedNote).toBe('The walkthrough was signed by the homeowner only.');
   });
 
   it('should pass photos through with their captions and a readable time', () => {

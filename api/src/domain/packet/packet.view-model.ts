@@ -1,6 +1,7 @@
 import { FINDING_SEVERITY_LABELS, type Finding } from '../analysis/finding.js';
 import type { Item, ItemKind } from '../as-built/item.schema.js';
 import type { InstallMethod } from '../as-built/run.schema.js';
+import { type FindingAcknowledgement, findingKey, homeownerException } from './known-exceptions.js';
 import { LOCATE_STEPS, ONE_CALL_US, SAFETY_CAUTIONS, TOLERANCE_ZONE_M } from './packet-cautions.js';
 import {
   formatDate,
@@ -15,9 +16,14 @@ import {
 } from './packet-format.js';
 import type { PacketPhoto, PacketSignature, PacketSnapshot, PacketUnits } from './packet-snapshot.js';
 
-/** The sections of the packet, in print order (PRODUCT.md "The handover packet"). */
+/**
+ * The sections of the packet, in print order (PRODUCT.md "The handover packet"). The homeowner's pages
+ * come first; the Engineering notes appendix is last. A section with nothing recorded is left out of
+ * the packet and its contents (`isPresent` in the view model); the others say so in one line.
+ */
 export const PACKET_SECTIONS = [
   { id: 'summary', title: 'System summary' },
+  { id: 'known-exceptions', title: 'Known exceptions' },
   { id: 'site-plan', title: 'Site plan' },
   { id: 'wiring', title: 'Wiring schematic' },
   { id: 'equipment', title: 'Equipment schedule' },
@@ -31,6 +37,7 @@ export const PACKET_SECTIONS = [
   { id: 'care', title: 'Care and maintenance' },
   { id: 'photos', title: 'Photo appendix' },
   { id: 'sign-off', title: 'Sign-off' },
+  { id: 'engineering', title: 'Engineering notes' },
 ] as const;
 export type PacketSectionId = (typeof PACKET_SECTIONS)[number]['id'];
 
@@ -66,12 +73,23 @@ export interface PacketViewModel {
     workDates: string;
     locateUrl: string;
   };
+  /** The printed sections only, numbered in order. */
   toc: { number: string; id: PacketSectionId; title: string; page: string }[];
+  /** Each printed section's number (absent sections are not printed at all). */
+  num: Partial<Record<PacketSectionId, string>>;
   summary: {
     facts: LabelValue[];
     zones: string;
+    /** One plain line about known exceptions (empty when there are none). */
+    exceptionsNote: string;
+    channels: { name: string; amplifier: string; speakers: string; status: string; statusClass: string }[];
+    cableTotals: { cableType: string; runs: string; length: string; spare: string }[];
+  };
+  knownExceptions: { text: string; reason: string }[];
+  /** The appendix for whoever services the system: full figures, findings in engineering terms, method. */
+  engineering: {
     findingCounts: string;
-    findings: { severity: string; severityClass: string; message: string }[];
+    findings: { severity: string; severityClass: string; message: string; acknowledged: string }[];
     hasFindings: boolean;
     channels: {
       name: string;
@@ -84,7 +102,6 @@ export interface PacketViewModel {
       status: string;
       statusClass: string;
     }[];
-    cableTotals: { cableType: string; runs: string; length: string; spare: string }[];
     assumptions: string[];
   };
   sitePlan: { scaleNote: string; legend: LabelValue[] };
@@ -118,7 +135,7 @@ export interface PacketViewModel {
     serial: string;
     rating: string;
     notes: string;
-    channels: { name: string; settings: LabelValue[] }[];
+    channels: { name: string; settings: LabelValue[]; isEmpty: boolean }[];
   }[];
   commissioning: {
     rows: { channel: string; quantity: string; measured: string; expected: string; range: string; result: string; resultClass: string; explanation: string }[];
@@ -131,8 +148,9 @@ export interface PacketViewModel {
   photos: { caption: string; takenAt: string; dataUri: string }[];
   hasPhotos: boolean;
   signOff: {
-    lead: SignatureView;
-    homeowner: SignatureView;
+    /** Only the signatures collected; unsigned roles are left out and `unsignedNote` says so in one line. */
+    signatures: SignatureView[];
+    unsignedNote: string;
     statement: string;
   };
 }
@@ -242,13 +260,13 @@ function installerContact(snapshot: PacketSnapshot): string[] {
   return [snapshot.company.name, call, ...contactLines(snapshot).filter((line) => line !== phone)];
 }
 
-function signatureView(role: 'lead' | 'homeowner', fallbackName: string, signature: PacketSignature | undefined): SignatureView {
+function signatureView(role: 'lead' | 'homeowner', signature: PacketSignature): SignatureView {
   return {
     role: role === 'lead' ? 'Crew lead' : 'Homeowner',
-    name: signature?.signerName ?? fallbackName,
-    isSigned: signature !== undefined,
-    signedAt: signature ? formatDateTime(signature.signedAt) : 'Not signed',
-    svgPath: signature?.svgPath ?? '',
+    name: signature.signerName,
+    isSigned: true,
+    signedAt: formatDateTime(signature.signedAt),
+    svgPath: signature.svgPath,
   };
 }
 
@@ -278,10 +296,40 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
   const isPaperA4 = settings.paperSize === 'a4';
 
   const findings = analysis.findings.filter((f) => f.severity !== 'info');
+  const acknowledgements: readonly FindingAcknowledgement[] = snapshot.acknowledgements ?? [];
+  const acknowledged = new Map(acknowledgements.map((a) => [`${a.code}@${a.path}`, a]));
+  const findingByKey = new Map(analysis.findings.map((f) => [findingKey(f), f]));
+  const knownExceptions = acknowledgements.map((a) => ({
+    text: homeownerException(a, findingByKey.get(`${a.code}@${a.path}`), asBuilt, units),
+    reason: a.reason,
+  }));
+  const photos = input.photos ?? [];
+  const signatures = (['lead', 'homeowner'] as const).flatMap((role) => {
+    const signature = input.signatures?.find((s) => s.role === role);
+    return signature ? [signatureView(role, signature)] : [];
+  });
+  const isPresent: Record<PacketSectionId, boolean> = {
+    summary: true,
+    'known-exceptions': knownExceptions.length > 0,
+    'site-plan': true,
+    wiring: true,
+    equipment: true,
+    cables: true,
+    'depth-profiles': asBuilt.runs.some((run) => !run.isAbandoned && run.method !== 'indoor' && (run.depthReadings?.length ?? 0) > 0),
+    'wall-entries': asBuilt.items.some((item) => item.kind === 'wall_entry'),
+    amplifier: asBuilt.items.some((item) => item.kind === 'amplifier'),
+    commissioning: true,
+    locate: true,
+    cautions: true,
+    care: true,
+    photos: photos.length > 0,
+    'sign-off': true,
+    engineering: true,
+  };
+  const printed = PACKET_SECTIONS.filter((section) => isPresent[section.id]);
   const { summary } = analysis;
 
   const liveRuns = asBuilt.runs.filter((r) => !r.isAbandoned);
-  const sectionNumber = (i: number) => String(i + 1);
 
   return {
     paper: { size: settings.paperSize, cssSize: isPaperA4 ? 'A4' : 'Letter', name: isPaperA4 ? 'A4' : 'US Letter' },
@@ -306,10 +354,11 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
           : formatDate(snapshot.job.endDate ?? snapshot.job.startDate),
       locateUrl: input.locateUrl,
     },
-    toc: PACKET_SECTIONS.map((section, i) => {
+    toc: printed.map((section, i) => {
       const page = input.pageNumbers?.[section.id];
-      return { number: sectionNumber(i), id: section.id, title: section.title, page: page === undefined ? '–' : String(page) };
+      return { number: String(i + 1), id: section.id, title: section.title, page: page === undefined ? '–' : String(page) };
     }),
+    num: Object.fromEntries(printed.map((section, i) => [section.id, String(i + 1)])),
     summary: {
       facts: [
         { label: 'Equipment items', value: String(summary.itemCount) },
@@ -320,11 +369,45 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
         { label: 'Crew lead', value: crewLead },
       ],
       zones: asBuilt.zones.length > 0 ? asBuilt.zones.map((z) => z.name).join(', ') : '—',
+      exceptionsNote:
+        knownExceptions.length === 0
+          ? ''
+          : knownExceptions.length === 1
+            ? 'One known exception is described on the next page.'
+            : `${knownExceptions.length} known exceptions are described on the next page.`,
+      channels: analysis.channels.map((c) => {
+        const isBelow = c.loadOhmNominal !== null && c.loadOhmNominal < c.minimumImpedanceOhm - 1e-9;
+        const speakers = c.loads.length;
+        return {
+          name: c.channelName,
+          amplifier: itemLabel(items, c.channel.amplifierItemId),
+          speakers: speakers === 0 ? 'None' : speakers === 1 ? '1 speaker' : `${speakers} speakers`,
+          status: !c.isSolved || isBelow ? 'See Engineering notes' : c.loadOhmNominal === null ? 'Nothing connected' : 'Working as designed',
+          statusClass: !c.isSolved || isBelow || c.loadOhmNominal === null ? 'bad' : 'ok',
+        };
+      }),
+      cableTotals: analysis.cableTotals.map((t) => ({
+        cableType: t.cableType,
+        runs: String(t.runCount),
+        length: formatLength(t.lengthM, units),
+        spare: t.spareLengthM > 0 ? formatLength(t.spareLengthM, units) : '—',
+      })),
+    },
+    knownExceptions,
+    engineering: {
       findingCounts:
         summary.critical + summary.warning === 0
           ? 'No open findings.'
           : `${summary.critical} to fix, ${summary.warning} to check at issue.`,
-      findings: findings.map((f) => ({ severity: FINDING_SEVERITY_LABELS[f.severity], severityClass: f.severity, message: f.message })),
+      findings: findings.map((f) => {
+        const ack = acknowledged.get(findingKey(f));
+        return {
+          severity: FINDING_SEVERITY_LABELS[f.severity],
+          severityClass: f.severity,
+          message: f.message,
+          acknowledged: ack ? `Acknowledged at issue: ${ack.reason}` : '',
+        };
+      }),
       hasFindings: findings.length > 0,
       channels: analysis.channels.map((c) => {
         const worst = c.loads.reduce((max, l) => Math.max(max, l.cableLossDb), 0);
@@ -342,12 +425,6 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
           statusClass: !c.isSolved || isBelow || c.loadOhmNominal === null ? 'bad' : 'ok',
         };
       }),
-      cableTotals: analysis.cableTotals.map((t) => ({
-        cableType: t.cableType,
-        runs: String(t.runCount),
-        length: formatLength(t.lengthM, units),
-        spare: t.spareLengthM > 0 ? formatLength(t.spareLengthM, units) : '—',
-      })),
       assumptions: analysis.assumptions.notes,
     },
     sitePlan: {
@@ -448,9 +525,8 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
         channels: amp.channels.map((channel) => {
           const setup = snapshot.channelSetups[channel.id];
           const load = analysis.channels.find((c) => c.channel.channelId === channel.id);
-          return {
-            name: channel.name,
-            settings: [
+          // Only what was recorded prints: rows of dashes for settings nobody wrote down help no one.
+          const settings = [
               { label: 'Load', value: load ? formatOhm(load.loadOhmNominal) : '—' },
               ...(channel.constantVoltage
                 ? [{ label: 'Line', value: `${channel.constantVoltage.lineVoltage}, rated ${formatWatts(channel.constantVoltage.ratedWatts)}` }]
@@ -464,8 +540,8 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
               { label: 'Firmware', value: dash(setup?.firmware) },
               { label: 'Network name', value: dash(setup?.networkName) },
               { label: 'Notes', value: dash(setup?.notes) },
-            ],
-          };
+            ].filter((row) => row.label === 'Load' || row.value !== '—');
+          return { name: channel.name, settings, isEmpty: settings.length <= 1 };
         }),
       })),
     commissioning: (() => {
@@ -503,11 +579,16 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
     },
     cautions: SAFETY_CAUTIONS.map((c) => ({ title: c.title, body: fillZone(c.body) })),
     care: [...CARE_AND_MAINTENANCE],
-    photos: (input.photos ?? []).map((p) => ({ caption: p.caption, takenAt: p.takenAt ? formatDateTime(p.takenAt) : '', dataUri: p.dataUri })),
-    hasPhotos: (input.photos?.length ?? 0) > 0,
+    photos: photos.map((p) => ({ caption: p.caption, takenAt: p.takenAt ? formatDateTime(p.takenAt) : '', dataUri: p.dataUri })),
+    hasPhotos: photos.length > 0,
     signOff: {
-      lead: signatureView('lead', crewLead, input.signatures?.find((s) => s.role === 'lead')),
-      homeowner: signatureView('homeowner', snapshot.customer.name, input.signatures?.find((s) => s.role === 'homeowner')),
+      signatures,
+      unsignedNote:
+        signatures.length === 0
+          ? 'The walkthrough was not signed.'
+          : signatures.length === 1
+            ? `The walkthrough was signed by the ${signatures[0]!.role.toLowerCase()} only.`
+            : '',
       statement:
         'The homeowner acknowledges the walkthrough of the system, receipt of this packet, and the locate and safety cautions it contains.',
     },

@@ -61,7 +61,7 @@ export function SignOffCard({ jobId, canSign, crewLeadName, homeownerName }: Sig
       <Text as="h2" size={500} weight="semibold" id="sign-off-title" className={card.title}>
         Sign-off
       </Text>
-      <Text>Signed at the walkthrough; the signatures print in the next packet revision. Unsigned, the packet says “Not signed”.</Text>
+      <Text>Signed at the walkthrough; the signatures print in the next packet revision. Unsigned, the packet says in one line that the walkthrough was not signed.</Text>
       {signatures.isPending && <Spinner size="small" label="Loading signatures" />}
       {signatures.isError && <Text className={styles.error}>{describeRequestError(signatures.error)}</Text>}
       {signatures.data && (
