@@ -33,11 +33,14 @@ export function showToast(request: ToastRequest): void {
  * (notify.tsx) right after the first page rather than with it.
  */
 export function ToasterSurface() {
-  const { dispatchToast } = useToastController(TOASTER_ID);
+  const { dispatchToast, dismissAllToasts } = useToastController(TOASTER_ID);
 
   // Runs after the Toaster's own effects, so it is listening before anything is dispatched.
   useEffect(() => {
     const dispatch = (request: ToastRequest) => {
+      // One at a time: a newer message replaces the one showing (three readings saved in a row leave
+      // one toast, not three stacked over the form).
+      dismissAllToasts();
       if (request.kind === 'undoable') {
         dispatchToast(
           <Toast>
@@ -69,7 +72,9 @@ export function ToasterSurface() {
     return () => {
       if (dispatchNow === dispatch) dispatchNow = undefined;
     };
-  }, [dispatchToast]);
+  }, [dispatchToast, dismissAllToasts]);
 
-  return <Toaster toasterId={TOASTER_ID} position="bottom" pauseOnHover pauseOnWindowBlur />;
+  // At the top of the screen, clear of the save buttons and the bottom of a form on a phone where the
+  // thumb just tapped; never more than one.
+  return <Toaster toasterId={TOASTER_ID} position="top" limit={1} offset={{ vertical: 8 }} pauseOnHover pauseOnWindowBlur />;
 }

@@ -151,7 +151,7 @@ function ChannelSetupCard({ jobId, amp, channel, setup, canRecord }: ChannelSetu
                   ref={field.ref}
                   className={formStyles.control}
                   value={field.value}
-                  placeholder={text.placeholder}
+                  placeholder={`e.g. ${text.placeholder}`}
                   readOnly={!canRecord}
                   autoComplete="off"
                   onChange={(_e, d) => field.onChange(d.value)}

@@ -35,8 +35,9 @@ const EMPTY_CHECK: CheckDraft = {
   quantity: 'dc_resistance',
   measuredOhm: '',
   frequencyHz: '',
-  isPolarityOk: true,
-  isInsulationOk: true,
+  // Nothing is ticked for the lead: a pass is recorded only when it was looked at.
+  isPolarityOk: false,
+  isInsulationOk: false,
   notes: '',
 };
 type CheckBody = Omit<CheckInput, 'id'>;
@@ -177,7 +178,7 @@ export function ChecksSection({ data, canAddField }: { data: JobAsBuiltResponse;
                 name="frequencyHz"
                 render={({ field, fieldState }) => (
                   <Field label="At (Hz)" validationMessage={fieldState.error?.message}>
-                    <Input className={formStyles.control} inputMode="decimal" value={field.value} placeholder="1000" onChange={(_e, d) => field.onChange(d.value)} onBlur={field.onBlur} />
+                    <Input className={formStyles.control} inputMode="decimal" value={field.value} placeholder="e.g. 1000" onChange={(_e, d) => field.onChange(d.value)} onBlur={field.onBlur} />
                   </Field>
                 )}
               />

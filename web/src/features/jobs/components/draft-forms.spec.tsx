@@ -86,6 +86,13 @@ describe('Job forms kept as drafts (react-hook-form)', () => {
 
     await user.selectOptions(within(form).getByLabelText(/Channel/), `${JOB_IDS.amp}|${JOB_IDS.ch1}`);
     await user.type(within(form).getByLabelText(/Reading/), '7,6');
+    // The pass boxes start unticked: a pass is recorded only when the lead ticks it.
+    const polarity = within(form).getByRole('checkbox', { name: /Polarity correct/ });
+    const insulation = within(form).getByRole('checkbox', { name: /No short to ground/ });
+    expect(polarity).not.toBeChecked();
+    expect(insulation).not.toBeChecked();
+    await user.click(polarity);
+    await user.click(insulation);
     await user.click(within(form).getByRole('button', { name: 'Save check' }));
     await waitFor(() => expect(posts).toHaveLength(1));
     expect(posts[0]!.body).toEqual({
@@ -202,7 +209,10 @@ describe('Job forms kept as drafts (react-hook-form)', () => {
     await user.type(tap, '7,5');
     await user.click(screen.getByRole('button', { name: 'Add' }));
     await waitFor(() => expect(posts).toHaveLength(1));
-    expect(posts[0]!.body).toEqual({ kind: 'speaker', label: 'Spa satellite', constantVoltage: { lineVoltage: '70V', tapWatts: 7.5 } });
+    // "Installed on" starts at today's date on the phone's calendar.
+    const now = new Date();
+    const today = `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}-${String(now.getDate()).padStart(2, '0')}`;
+    expect(posts[0]!.body).toEqual({ kind: 'speaker', label: 'Spa satellite', installDate: today, constantVoltage: { lineVoltage: '70V', tapWatts: 7.5 } });
   }, 30_000);
 
   it('should keep an amplifier channel’s id when it is renamed', async () => {

@@ -10,7 +10,13 @@ export const useFormStyles = makeStyles({
     '@media (min-width: 640px)': { gridTemplateColumns: 'repeat(2, minmax(0, 1fr))', columnGap: tokens.spacingHorizontalL },
   },
   wide: { gridColumn: '1 / -1' },
-  control: { minHeight: '48px', fontSize: tokens.fontSizeBase400, minWidth: 0 },
+  control: {
+    minHeight: '48px',
+    fontSize: tokens.fontSizeBase400,
+    minWidth: 0,
+    // An example in an empty field must never read as a value: lighter and slanted, and its text starts "e.g.".
+    '& input::placeholder, & textarea::placeholder, &::placeholder': { color: tokens.colorNeutralForeground4, fontStyle: 'italic', opacity: 1 },
+  },
   actions: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM },
   button: { minHeight: '48px', minWidth: '48px' },
   bigButton: { minHeight: '56px', paddingInline: tokens.spacingHorizontalXL, fontSize: tokens.fontSizeBase400 },

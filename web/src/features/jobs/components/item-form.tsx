@@ -76,7 +76,8 @@ function draftOf(item: Item | undefined, kind: ItemKind, units: { length: 'imper
     model: item?.model ?? '',
     serial: item?.serial ?? '',
     zoneId: item?.zoneId ?? '',
-    installDate: item?.installDate ?? '',
+    // A new item is usually installed the day it is recorded.
+    installDate: item ? (item.installDate ?? '') : todayLocalIso(),
     warrantyEnd: item?.warrantyEnd ?? '',
     notes: item?.notes ?? '',
     ties: (item?.ties ?? []).map((tie) => ({ referencePointId: tie.referencePointId, distance: lengthInputValue(tie.distanceM, units.length, 'long') })),
@@ -309,7 +310,7 @@ export function ItemForm({ jobId, asBuilt, item, kind, kinds, focusField, onDone
             type={type}
             className={styles.control}
             value={String(input.value)}
-            placeholder={placeholder}
+            placeholder={placeholder === undefined ? undefined : `e.g. ${placeholder}`}
             onChange={(_e, d) => input.onChange(d.value)}
             onBlur={input.onBlur}
           />
@@ -557,4 +558,10 @@ export function ItemForm({ jobId, asBuilt, item, kind, kinds, focusField, onDone
       />
     </form>
   );
+}
+
+/** Today's date on the phone's own calendar (not UTC), as a date input wants it: `2026-12-02`. */
+function todayLocalIso(now = new Date()): string {
+  const pad = (n: number) => String(n).padStart(2, '0');
+  return `${now.getFullYear()}-${pad(now.getMonth() + 1)}-${pad(now.getDate())}`;
 }

@@ -207,7 +207,7 @@ export function RunForm({ jobId, asBuilt, run, focusField, onDone }: RunFormProp
           value={field.value}
           onChange={(_e, d) => field.onChange(d.value)}
           onBlur={field.onBlur}
-          placeholder={placeholder}
+          placeholder={`e.g. ${placeholder}`}
         />
       )}
     />
