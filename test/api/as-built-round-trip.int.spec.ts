@@ -65,6 +65,9 @@ describe('GET /api/jobs/:id/as-built (the demo job recorded through the API)', (
     const { withQueryCount } = await import('../support/query-count.js');
     const small = await createJob(office, (await createSite(office)).siteId);
     const smallCount = await withQueryCount(() => lead.expectOk('get', `/api/jobs/${small.id}/as-built`));
+    // A notes change bumps the demo job's version, so its next read is computed afresh (not from the as-built cache).
+    const { version: current } = await lead.expectOk('get', `/api/jobs/${jobId}`);
+    await lead.expectOk('patch', `/api/jobs/${jobId}`, { notes: 'Fixture note' }, { 'If-Match': `"${current}"` });
     const demoCount = await withQueryCount(() => lead.expectOk('get', `/api/jobs/${jobId}/as-built`));
     expect(smallCount).toBeGreaterThan(10);
     expect(demoCount).toBe(smallCount);

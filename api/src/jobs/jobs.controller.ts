@@ -1,6 +1,9 @@
-import { Body, Controller, Delete, Get, HttpCode, HttpStatus, Param, ParseUUIDPipe, Patch, Post, Query } from '@nestjs/common';
+import { Body, Controller, Delete, Get, Headers, HttpCode, HttpStatus, Param, ParseUUIDPipe, Patch, Post, Query, Res, UseInterceptors } from '@nestjs/common';
 import { ApiBearerAuth, ApiBody, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
 
+import type { Response } from 'express';
+
+import { ContentEtagInterceptor, isNotModified, setEtagHeaders } from '../common/content-etag.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
@@ -10,7 +13,6 @@ import {
   ChangeJobStatusSchema,
   type CreateJobInput,
   CreateJobSchema,
-  type JobAsBuiltResponse,
   type JobListQuery,
   JobListQuerySchema,
   type JobListResponse,
@@ -52,6 +54,8 @@ export class JobsController {
   }
 
   @Get(':id')
+  @UseInterceptors(ContentEtagInterceptor)
+  @ApiOperation({ summary: 'One job', description: 'Answers with an `ETag`; `If-None-Match` with it answers 304 while the job is unchanged.' })
   get(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<JobResponse> {
     return this.jobsService.get(user, id);
   }
@@ -61,10 +65,25 @@ export class JobsController {
     summary: 'The whole as-built of a job with its analysis, in one response',
     description:
       '`asBuilt` follows the as-built contract (ids are the database uuids); `analysis` is the engineering analysis of it; ' +
-      '`records` adds the ids of depth readings and the amplifier channel setups.',
+      '`records` adds the ids of depth readings and the amplifier channel setups. Answers with an `ETag`; ' +
+      '`If-None-Match` with it answers 304 while nothing the answer shows has changed.',
   })
-  asBuilt(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<JobAsBuiltResponse> {
-    return this.jobsService.asBuilt(user, id);
+  @ApiResponse({ status: 200, description: 'JobAsBuiltResponse (JSON)' })
+  @ApiResponse({ status: 304, description: 'Not modified (If-None-Match named the current ETag)' })
+  async asBuilt(
+    @CurrentUser() user: AuthUser,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Headers('if-none-match') ifNoneMatch: string | undefined,
+    @Res() res: Response,
+  ): Promise<void> {
+    // The answer is spliced from JSON text kept in the as-built cache (see JobsService.asBuiltAnswer).
+    const answer = await this.jobsService.asBuiltAnswer(user, id);
+    setEtagHeaders(res, answer.etag);
+    if (isNotModified(ifNoneMatch, answer.etag)) {
+      res.status(304).end();
+      return;
+    }
+    res.type('application/json').send(answer.json);
   }
 
   @Patch(':id')

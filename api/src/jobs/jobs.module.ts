@@ -1,6 +1,7 @@
 import { Module } from '@nestjs/common';
 
 import { SitesModule } from '../sites/sites.module.js';
+import { AsBuiltCache } from './as-built-cache.js';
 import { DrawingRenderer } from './drawing-renderer.js';
 import { JobDrawingsController } from './job-drawings.controller.js';
 import { JobDrawingsService } from './job-drawings.service.js';
@@ -14,6 +15,6 @@ import { JobsService } from './jobs.service.js';
 @Module({
   imports: [SitesModule],
   controllers: [JobsController, JobRecordsController, JobDrawingsController],
-  providers: [JobsService, JobRecordsService, JobWriter, JobsRepository, JobDrawingsService, DrawingRenderer],
+  providers: [AsBuiltCache, JobsService, JobRecordsService, JobWriter, JobsRepository, JobDrawingsService, DrawingRenderer],
 })
 export class JobsModule {}

@@ -67,6 +67,14 @@ export type JobView = {
   crewLeadName: string | null;
 };
 
+/** What the as-built read looks up before the record itself (see JobsRepository.findAsBuiltHead). */
+export interface AsBuiltHead {
+  view: JobView;
+  technicians: { id: string; name: string }[];
+  siteVersion: number;
+  depthRules: DepthRuleTable | undefined;
+}
+
 /**
  * Jobs and their as-built rows. Methods that look a job up take the company id from the signed-in
  * user; child rows are always addressed through their job id (checked by the service first), so nothing
@@ -150,6 +158,32 @@ export class JobsRepository {
       .leftJoin(crewLead, eq(crewLead.id, jobs.crewLeadUserId))
       .where(and(eq(jobs.companyId, companyId), eq(jobs.id, id)));
     return row;
+  }
+
+  /**
+   * In ONE query: the job's view, its technicians (by name), its site's version and the company's own
+   * depth rule table — everything the as-built read needs to find its analysis in the cache (the key is
+   * job version + site version + rule table) and to answer the job part fresh.
+   */
+  async findAsBuiltHead(companyId: string, id: string, tx?: Tx): Promise<AsBuiltHead | undefined> {
+    const [row] = await (tx ?? this.db)
+      .select({
+        ...jobViewColumns,
+        siteVersion: sites.version,
+        technicians: sql<{ id: string; name: string }[]>`coalesce((
+          select json_agg(json_build_object('id', ${users.id}, 'name', ${users.name}) order by ${users.name}, ${users.id})
+          from ${jobTechnicians} inner join ${users} on ${users.id} = ${jobTechnicians.userId}
+          where ${jobTechnicians.jobId} = ${jobs.id}), '[]'::json)`,
+        depthRules: sql<DepthRuleTable | null>`(select ${companySettings.depthRules} from ${companySettings} where ${companySettings.companyId} = ${jobs.companyId})`,
+      })
+      .from(jobs)
+      .innerJoin(sites, eq(sites.id, jobs.siteId))
+      .innerJoin(customers, eq(customers.id, sites.customerId))
+      .leftJoin(crewLead, eq(crewLead.id, jobs.crewLeadUserId))
+      .where(and(eq(jobs.companyId, companyId), eq(jobs.id, id)));
+    if (!row) return undefined;
+    const { siteVersion, technicians, depthRules, ...view } = row;
+    return { view, siteVersion, technicians, depthRules: depthRules ?? undefined };
   }
 
   /** Reads the job and locks its row until the transaction ends: writes to one job run one at a time. */

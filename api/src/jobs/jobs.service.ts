@@ -17,6 +17,7 @@ import type {
   UpdateJobInput,
 } from '../domain/jobs/job.schema.js';
 import type { FieldIssue } from '../domain/jobs/record-validation.js';
+import { AsBuiltCache, type CachedAsBuilt, sha1 } from './as-built-cache.js';
 import { depthReadingIdsByRun, toAsBuilt, toChannelSetup } from './as-built-rows.js';
 import { denied, invalid, jobNotFound, versionConflict } from './job-errors.js';
 import { JobWriter } from './job-writer.js';
@@ -59,6 +60,7 @@ export class JobsService {
     private readonly repository: JobsRepository,
     private readonly writer: JobWriter,
     private readonly audit: AuditService,
+    private readonly cache: AsBuiltCache,
   ) {}
 
   async list(actor: AuthUser, query: JobListQuery): Promise<JobListResponse> {
@@ -203,31 +205,48 @@ export class JobsService {
   }
 
   /**
-   * The job, its whole as-built (ids are the rows' uuids) and the analysis, read in one snapshot with a
-   * fixed number of queries however large the job is.
+   * The job, its whole as-built (ids are the rows' uuids) and the analysis. The job part is read fresh
+   * on every call (names of its crew, site and customer change without a job version); the rest comes
+   * from the AsBuiltCache under the job version, site version and depth rule table read in the same
+   * single query, or is computed from one consistent snapshot (a fixed number of queries however large
+   * the job is) and kept there.
    */
   async asBuilt(actor: AuthUser, id: string): Promise<JobAsBuiltResponse> {
-    const { job, rows, depthRules } = await this.repository.snapshot(async (tx) => {
-      const view = await this.repository.findView(actor.companyId, id, tx);
-      if (!view) throw jobNotFound();
-      const technicians = await this.repository.technicians(id, tx);
-      return {
-        job: toJobResponse(view, technicians),
-        rows: await this.repository.loadRecord(view.job, tx),
-        depthRules: await this.repository.companyDepthRules(actor.companyId, tx),
-      };
+    const { job, cached } = await this.asBuiltParts(actor, id);
+    return { job, ...cached.part };
+  }
+
+  /**
+   * The as-built answer as JSON text with its ETag (a hash of the job part and of the cached part), so
+   * a cache hit is neither analysed nor serialised again.
+   */
+  async asBuiltAnswer(actor: AuthUser, id: string): Promise<{ json: string; etag: string }> {
+    const { job, cached } = await this.asBuiltParts(actor, id);
+    const jobJson = JSON.stringify(job);
+    return { json: `{"job":${jobJson},${cached.partJson}}`, etag: `"${sha1(`${sha1(jobJson)}.${cached.partHash}`)}"` };
+  }
+
+  private async asBuiltParts(actor: AuthUser, id: string): Promise<{ job: JobResponse; cached: CachedAsBuilt }> {
+    const head = await this.repository.findAsBuiltHead(actor.companyId, id);
+    if (!head) throw jobNotFound();
+    const hit = this.cache.get(AsBuiltCache.key(id, head.view.job.version, head.siteVersion, head.depthRules));
+    if (hit) return { job: toJobResponse(head.view, head.technicians), cached: hit };
+    const { fresh, rows } = await this.repository.snapshot(async (tx) => {
+      const fresh = await this.repository.findAsBuiltHead(actor.companyId, id, tx);
+      if (!fresh) throw jobNotFound();
+      return { fresh, rows: await this.repository.loadRecord(fresh.view.job, tx) };
     });
     const asBuilt = toAsBuilt(rows);
-    return {
-      job,
+    const cached = this.cache.set(AsBuiltCache.key(id, fresh.view.job.version, fresh.siteVersion, fresh.depthRules), {
       asBuilt,
       // The company's depth rules (Settings → Depth rules); the other analysis options keep their documented defaults.
-      analysis: analyzeAsBuilt(asBuilt, depthRules ? { depthRules } : {}),
+      analysis: analyzeAsBuilt(asBuilt, fresh.depthRules ? { depthRules: fresh.depthRules } : {}),
       records: {
         depthReadingIds: depthReadingIdsByRun(rows),
         channelSetups: Object.fromEntries(rows.channels.map((c) => [c.id, toChannelSetup(c)])),
       },
-    };
+    });
+    return { job: toJobResponse(fresh.view, fresh.technicians), cached };
   }
 }
 

@@ -3,6 +3,7 @@ import { FileInterceptor } from '@nestjs/platform-express';
 import { ApiBearerAuth, ApiBody, ApiConsumes, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
 import type { Request, Response } from 'express';
 
+import { ContentEtagInterceptor } from '../common/content-etag.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
@@ -26,6 +27,7 @@ export class CompanyProfileController {
   constructor(private readonly profiles: CompanyProfileService) {}
 
   @Get()
+  @UseInterceptors(ContentEtagInterceptor)
   @Roles('admin', 'office')
   @ApiOperation({ summary: 'The company profile: trade name, contact, licences, time zone, locale and logo' })
   get(@CurrentUser() user: AuthUser): Promise<CompanyProfileResponse> {
@@ -91,6 +93,7 @@ export class CompanyDepthRulesController {
   constructor(private readonly profiles: CompanyProfileService) {}
 
   @Get()
+  @UseInterceptors(ContentEtagInterceptor)
   @Roles('admin', 'office')
   @ApiOperation({ summary: 'The company’s depth rule table (its own, or the shipped defaults) and the defaults with their basis' })
   get(@CurrentUser() user: AuthUser): Promise<CompanyDepthRulesResponse> {

@@ -1,6 +1,7 @@
-import { Body, Controller, Get, Patch } from '@nestjs/common';
+import { Body, Controller, Get, Patch, UseInterceptors } from '@nestjs/common';
 import { ApiBearerAuth, ApiBody, ApiOperation, ApiTags } from '@nestjs/swagger';
 
+import { ContentEtagInterceptor } from '../common/content-etag.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
@@ -22,6 +23,7 @@ export class CompanySettingsController {
   constructor(private readonly settings: SettingsService) {}
 
   @Get()
+  @UseInterceptors(ContentEtagInterceptor)
   @ApiOperation({ summary: 'The company’s default units (lengths, wire sizes) and the paper its packets print on' })
   get(@CurrentUser() user: AuthUser): Promise<CompanySettingsResponse> {
     return this.settings.companySettings(user);
@@ -47,6 +49,7 @@ export class MyPreferencesController {
   constructor(private readonly settings: SettingsService) {}
 
   @Get()
+  @UseInterceptors(ContentEtagInterceptor)
   @ApiOperation({ summary: 'Your own unit choices, the company defaults, and the units the app shows you (`effective`)' })
   get(@CurrentUser() user: AuthUser): Promise<MyPreferencesResponse> {
     return this.settings.myPreferences(user);
