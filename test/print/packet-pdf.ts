@@ -2,7 +2,9 @@ import { execFileSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 
+import * as fontkit from 'fontkit';
 import { extractText, getDocumentProxy } from 'unpdf';
 
 /** The text of each page of a PDF (unpdf, pdf.js), whitespace collapsed to single spaces. */
@@ -16,6 +18,50 @@ function toFile(pdf: Buffer): string {
   const path = join(mkdtempSync(join(tmpdir(), 'packet-test-')), 'packet.pdf');
   writeFileSync(path, pdf);
   return path;
+}
+
+const INTER_FACES = ['400-normal', '500-normal', '600-normal', '700-normal', '400-italic'].map((face) =>
+  fontkit.openSync(fileURLToPath(new URL(`../../fonts/inter-static/inter-latin-${face}.woff2`, import.meta.url))),
+);
+
+export interface HyphenRun {
+  text: string;
+  page: number;
+  /** Width of the run as printed (pdf.js glyph positions), points. */
+  printedPt: number;
+  /** Width the shipped font gives the same text at the same size without / with tabular figures. */
+  plainPt: number;
+  tabularPt: number;
+}
+
+/**
+ * Every printed text run with a hyphen between letters, its printed width read from the PDF's glyph
+ * positions (pdf.js), and what the shipped Inter font (fontkit) makes of the same text at the same size
+ * with and without the `tnum` feature, in whichever weight fits the printed width best. Inter's `tnum`
+ * swaps the hyphen for a tabular glyph about 0.19 em wider, which printed "Back - yard".
+ */
+export async function hyphenRuns(pdf: Buffer): Promise<HyphenRun[]> {
+  const doc = await getDocumentProxy(new Uint8Array(pdf));
+  const runs: HyphenRun[] = [];
+  for (let p = 1; p <= doc.numPages; p++) {
+    const content = await (await doc.getPage(p)).getTextContent();
+    for (const item of content.items) {
+      if (!('str' in item) || !/\p{L}-\p{L}/u.test(item.str)) continue;
+      const size = Math.hypot(item.transform[0]!, item.transform[1]!);
+      const widths = INTER_FACES.map((face) => {
+        const at = (features: string[]) => (face.layout(item.str, features).advanceWidth * size) / face.unitsPerEm;
+        return { plainPt: at([]), tabularPt: at(['tnum']) };
+      });
+      const best = widths.reduce((a, b) =>
+        Math.min(Math.abs(a.plainPt - item.width), Math.abs(a.tabularPt - item.width)) <=
+        Math.min(Math.abs(b.plainPt - item.width), Math.abs(b.tabularPt - item.width))
+          ? a
+          : b,
+      );
+      runs.push({ text: item.str, page: p, printedPt: item.width, ...best });
+    }
+  }
+  return runs;
 }
 
 export interface PdfFontRow {
@@ -62,4 +108,11 @@ export function verifyArchive(zip: Buffer): { files: string[]; check: string } {
     .sort();
   const check = execFileSync('sha256sum', ['-c', 'MANIFEST.sha256'], { cwd: join(dir, 'out'), encoding: 'utf8' });
   return { files, check };
+}
+
+/** One file's bytes from a zip (`unzip -p`). */
+export function readArchiveFile(zip: Buffer, path: string): Buffer {
+  const dir = mkdtempSync(join(tmpdir(), 'packet-zip-'));
+  writeFileSync(join(dir, 'archive.zip'), zip);
+  return execFileSync('unzip', ['-p', 'archive.zip', path], { cwd: dir, maxBuffer: 64 * 1024 * 1024 });
 }
