@@ -1,4 +1,4 @@
-import { lazy, Suspense, useMemo } from 'react';
+import { lazy, Suspense, useMemo, useSyncExternalStore } from 'react';
 
 import type { ToastRequest } from './toaster';
 
@@ -6,12 +6,29 @@ import type { ToastRequest } from './toaster';
 const loadToaster = () => import('./toaster');
 const ToasterSurface = lazy(() => loadToaster().then(({ ToasterSurface }) => ({ default: ToasterSurface })));
 
+// Nothing about toasts loads until the first one is asked for: a page that never shows one (the public
+// locate view, the sign-in page) never downloads the toaster's chunk (issue 17, fast on a weak signal).
+let isWanted = false;
+const listeners = new Set<() => void>();
+
+function subscribe(listener: () => void): () => void {
+  listeners.add(listener);
+  return () => listeners.delete(listener);
+}
+
 function notify(request: ToastRequest): void {
+  if (!isWanted) {
+    isWanted = true;
+    for (const listener of listeners) listener();
+  }
+  // Waits in the toaster's queue until the surface is on the page (toaster.tsx, `showToast`).
   void loadToaster().then(({ showToast }) => showToast(request));
 }
 
-/** Where toasts appear; rendered once, by the app provider. */
+/** Where toasts appear; rendered once, by the app provider. Mounts the toaster with the first toast. */
 export function AppToaster() {
+  const wanted = useSyncExternalStore(subscribe, () => isWanted, () => false);
+  if (!wanted) return null;
   return (
     <Suspense fallback={null}>
       <ToasterSurface />
