@@ -213,7 +213,7 @@ describe('Job forms kept as drafts (react-hook-form)', () => {
     const now = new Date();
     const today = `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}-${String(now.getDate()).padStart(2, '0')}`;
     expect(posts[0]!.body).toEqual({ kind: 'speaker', label: 'Spa satellite', installDate: today, constantVoltage: { lineVoltage: '70V', tapWatts: 7.5 } });
-  }, 30_000);
+  }, 60_000);
 
   it('should keep an amplifier channel’s id when it is renamed', async () => {
     const puts: MockRequest[] = [];
