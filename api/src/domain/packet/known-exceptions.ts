@@ -72,22 +72,27 @@ export function matchAcknowledgements(
   findings: readonly Finding[],
   acknowledgements: readonly FindingAcknowledgementInput[],
 ): { problems: AcknowledgementProblem[]; accepted: FindingAcknowledgement[] } {
-  const open = new Map(findings.filter((f) => f.severity !== 'info').map((f) => [findingKey(f), f]));
+  // Findings sharing code and path (e.g. two channels of one amplifier) are acknowledged together.
+  const open = new Map<string, Finding[]>();
+  for (const f of findings) if (f.severity !== 'info') open.set(findingKey(f), [...(open.get(findingKey(f)) ?? []), f]);
   const seen = new Set<string>();
   const problems: AcknowledgementProblem[] = [];
   const accepted: FindingAcknowledgement[] = [];
   acknowledgements.forEach((a, index) => {
     const key = findingKey(a);
-    const finding = open.get(key);
-    if (!finding) problems.push({ kind: 'unknown', index, code: a.code, path: a.path });
+    const group = open.get(key);
+    const finding = group?.[0];
+    if (!group || !finding) problems.push({ kind: 'unknown', index, code: a.code, path: a.path });
     else if (seen.has(key)) problems.push({ kind: 'duplicate', index, code: a.code, path: a.path });
     else {
       seen.add(key);
-      accepted.push({ code: finding.code, path: a.path, severity: finding.severity, reason: a.reason.trim(), message: finding.message });
+      const severity = group.some((f) => f.severity === 'critical') ? 'critical' : finding.severity;
+      accepted.push({ code: finding.code, path: a.path, severity, reason: a.reason.trim(), message: group.map((f) => f.message).join(' ') });
     }
   });
-  for (const finding of open.values()) {
-    if (finding.severity === 'critical' && !seen.has(findingKey(finding))) problems.push({ kind: 'missing', finding });
+  for (const [key, group] of open) {
+    const critical = group.find((f) => f.severity === 'critical');
+    if (critical && !seen.has(key)) problems.push({ kind: 'missing', finding: critical });
   }
   return { problems, accepted };
 }
@@ -124,6 +129,11 @@ export function homeownerException(
       const figures = depth !== null && rule !== null ? `: ${formatDepth(depth, units)} of cover where our standard is ${formatDepth(rule, units)}` : '';
       return `One cable${onRun} runs shallower than our standard${where}${figures}. The spot is marked on the site plan; dig there by hand only.`;
     }
+    case 'LOAD_BELOW_AMP_MINIMUM':
+    case 'CABLE_LOSS_OVER_LIMIT':
+    case 'CV_TAPS_OVER_HEADROOM':
+    case 'CV_OVERLOAD':
+      return 'One amplifier channel is asked for more than its maker rates it for. It worked at handover; if it shuts off or the sound distorts at high volume, turn it down and call us.';
     case 'DEPTH_NOT_RECORDED':
       return `The depth of one buried cable${onRun} was not measured. Treat it as shallow: dig by hand anywhere near its route on the site plan.`;
     case 'DEPTH_NO_RULE':
