@@ -6,8 +6,10 @@ import { pipeline } from 'node:stream/promises';
 
 import { ZipArchive } from 'archiver';
 
-import { cableScheduleCsv } from '../domain/packet/cable-schedule-csv.js';
-import { safeFileName, sha256Manifest } from '../domain/packet/manifest.js';
+import { featureCollectionToKml } from '../domain/geometry/kml.js';
+import { archiveReadme } from '../domain/packet/archive-readme.js';
+import { CSV_BOM, cableScheduleCsv } from '../domain/packet/cable-schedule-csv.js';
+import { packetFileBase, safeFileName, sha256Manifest } from '../domain/packet/manifest.js';
 import type { PacketPhoto, PacketSnapshot } from '../domain/packet/packet-snapshot.js';
 
 export interface ArchiveInput {
@@ -33,18 +35,21 @@ const sha256 = (data: Buffer | string) => createHash('sha256').update(data).dige
 const PHOTO_EXTENSIONS: Record<string, string> = { jpeg: 'jpg', png: 'png', webp: 'webp' };
 
 /**
- * The revision's archive: the PDF, both drawings, the cable schedule CSV, the as-built JSON, GeoJSON of
- * runs and items (when the site has a GPS origin), the print photos and `MANIFEST.sha256` (verify with
- * `sha256sum -c MANIFEST.sha256`). The zip is streamed to a temporary file while its SHA-256 is
+ * The revision's archive: `README.txt`, the PDF (`<site>-<job>-rev-<n>.pdf`), both drawings, the cable
+ * schedule CSV (UTF-8 with a byte-order mark; SI and, for an imperial company, feet and inches), the
+ * as-built JSON, GeoJSON and KML of runs and items (when the site has a WGS 84 origin), the print photos
+ * in `photos/` and `MANIFEST.sha256` (verify with `sha256sum -c MANIFEST.sha256`). Archives already
+ * stored are never rebuilt, so earlier revisions keep their bytes. The zip is streamed to a temporary file while its SHA-256 is
  * computed, never assembled in memory.
  */
 export async function buildPacketArchive(input: ArchiveInput): Promise<BuiltArchive> {
   const { snapshot } = input;
+  const pdfName = `${packetFileBase(snapshot.site.label, snapshot.job.title, snapshot.revision)}.pdf`;
   const files: { path: string; data: Buffer }[] = [
-    { path: 'packet.pdf', data: input.pdf },
+    { path: pdfName, data: input.pdf },
     { path: 'site-plan.svg', data: Buffer.from(input.sitePlanSvg, 'utf8') },
     { path: 'wiring-schematic.svg', data: Buffer.from(input.schematicSvg, 'utf8') },
-    { path: 'cable-schedule.csv', data: Buffer.from(cableScheduleCsv(snapshot), 'utf8') },
+    { path: 'cable-schedule.csv', data: Buffer.from(CSV_BOM + cableScheduleCsv(snapshot), 'utf8') },
     {
       path: 'as-built.json',
       data: Buffer.from(
@@ -55,13 +60,19 @@ export async function buildPacketArchive(input: ArchiveInput): Promise<BuiltArch
   ];
   if (snapshot.analysis.geojson) {
     files.push({ path: 'runs-and-items.geojson', data: Buffer.from(`${JSON.stringify(snapshot.analysis.geojson, null, 2)}\n`, 'utf8') });
+    const kmlName = `${snapshot.site.label}: ${snapshot.job.title}, revision ${snapshot.revision}`;
+    files.push({ path: 'runs-and-items.kml', data: Buffer.from(featureCollectionToKml(snapshot.analysis.geojson, kmlName), 'utf8') });
   }
+  let photoCount = 0;
   input.photos.forEach((photo, i) => {
     const match = /^data:image\/(jpeg|png|webp);base64,(.*)$/s.exec(photo.dataUri);
     if (!match) return;
     const name = `${String(i + 1).padStart(2, '0')}-${safeFileName(photo.caption, 'photo')}.${PHOTO_EXTENSIONS[match[1]!]}`;
     files.push({ path: `photos/${name}`, data: Buffer.from(match[2]!, 'base64') });
+    photoCount += 1;
   });
+  const readme = archiveReadme({ snapshot, pdfName, hasGeoJson: snapshot.analysis.geojson !== null, photoCount });
+  files.unshift({ path: 'README.txt', data: Buffer.from(readme, 'utf8') });
   const manifest = sha256Manifest(files.map((f) => ({ path: f.path, sha256: sha256(f.data) })));
 
   const dir = mkdtempSync(join(tmpdir(), 'loamline-archive-'));

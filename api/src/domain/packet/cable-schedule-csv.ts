@@ -1,3 +1,4 @@
+import { metresToFeet, metresToInches } from '../as-built/units.js';
 import { formatGauge } from '../cable/wire.js';
 import type { PacketSnapshot } from './packet-snapshot.js';
 
@@ -16,13 +17,22 @@ const round = (value: number | null | undefined, digits: number): number | null 
   value === null || value === undefined ? null : Number(value.toFixed(digits));
 
 /**
+ * UTF-8 byte-order mark for the archive's CSV: without it some spreadsheet programs read the file in a
+ * legacy code page and print "mm²" or a site name with accents as mojibake.
+ */
+export const CSV_BOM = '\uFEFF';
+
+/**
  * The cable schedule as CSV (RFC 4180, CRLF line ends), in SI units with fixed columns so it can be
- * re-imported; one row per run in record order.
+ * re-imported; one row per run in record order. An imperial company also gets its own units in extra
+ * columns at the end (`length_ft`, `min_depth_in`, `max_depth_in`), so the SI columns keep their places.
  */
 export function cableScheduleCsv(snapshot: PacketSnapshot): string {
   const { asBuilt, analysis } = snapshot;
   const items = new Map(asBuilt.items.map((i) => [i.id, i.label]));
   const depth = new Map(analysis.depth.map((d) => [d.runId, d]));
+  const imperial = snapshot.settings.units === 'imperial';
+  const inches = (m: number | null | undefined) => (m === null || m === undefined ? null : round(metresToInches(m), 2));
   const header = [
     'run',
     'from',
@@ -38,6 +48,7 @@ export function cableScheduleCsv(snapshot: PacketSnapshot): string {
     'depth_check',
     'is_spare',
     'is_abandoned',
+    ...(imperial ? ['length_ft', 'min_depth_in', 'max_depth_in'] : []),
   ];
   const rows = asBuilt.runs.map((run) => {
     const d = depth.get(run.id);
@@ -56,6 +67,7 @@ export function cableScheduleCsv(snapshot: PacketSnapshot): string {
       d?.status ?? '',
       run.isSpare ?? false,
       run.isAbandoned ?? false,
+      ...(imperial ? [round(metresToFeet(run.measuredLengthM), 2), inches(d?.minDepthM), inches(d?.maxDepthM)] : []),
     ];
   });
   return [header, ...rows].map((row) => row.map(csvCell).join(',')).join('\r\n') + '\r\n';
