@@ -8,6 +8,7 @@ import { PageHeader } from '../../../components/page-header';
 import { paths } from '../../../config/paths';
 import { useMediaQuery } from '../../../lib/use-media-query';
 import { PhotosProvider } from '../../photos/components/photos-provider';
+import { useJobPhotos } from '../../photos/api/get-job-photos';
 import { PhotosSection } from '../../photos/components/photos-section';
 import type { JobAsBuiltResponse } from '../api/get-job-as-built';
 import { WorkspaceFocusContext } from '../hooks/workspace-focus';
@@ -22,11 +23,11 @@ import { JobDetailsDialog } from './job-details-dialog';
 import { JobStatusActions } from './job-status-actions';
 import { JobStatusBadge } from './job-status-badge';
 import { NotesSection } from './notes-section';
+import { IssuePacketDialog } from './issue-packet-dialog';
 import { PacketCard } from './packet-card';
 import { RunsSection } from './runs-section';
 import { SaveStateBar } from './save-state-bar';
 import { SignOffCard } from './sign-off-card';
-import { UnitsChooser } from './units-chooser';
 import { ZonesSection } from './zones-section';
 
 const useStyles = makeStyles({
@@ -39,12 +40,33 @@ const useStyles = makeStyles({
   },
   main: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL, minWidth: 0 },
   aside: { '@media (min-width: 1024px)': { position: 'sticky', top: tokens.spacingVerticalL, maxHeight: 'calc(100vh - 2rem)', overflowY: 'auto' } },
+  // Every section and its count in view on a 390 px phone: four to a row, two rows, no sideways scroll.
   tabs: {
-    overflowX: 'auto',
-    '@media (min-width: 1024px)': { flexWrap: 'wrap', overflowX: 'visible' }, backgroundColor: tokens.colorNeutralBackground1, borderRadius: tokens.borderRadiusLarge, boxShadow: tokens.shadow2 },
-  tab: { minHeight: '48px', flexShrink: 0 },
+    display: 'grid',
+    gridTemplateColumns: 'repeat(4, minmax(0, 1fr))',
+    '@media (min-width: 1024px)': { gridTemplateColumns: 'repeat(8, minmax(0, 1fr))' },
+    backgroundColor: tokens.colorNeutralBackground1,
+    borderRadius: tokens.borderRadiusLarge,
+    boxShadow: tokens.shadow2,
+  },
+  tab: {
+    minHeight: '56px',
+    minWidth: 0,
+    paddingInline: tokens.spacingHorizontalXS,
+    justifyContent: 'center',
+    '& .fui-Tab__content': { display: 'flex', flexDirection: 'column', alignItems: 'center', whiteSpace: 'normal', textAlign: 'center', lineHeight: tokens.lineHeightBase200 },
+  },
+  tabLabel: { fontSize: tokens.fontSizeBase200, overflowWrap: 'anywhere' },
+  tabCount: { fontSize: tokens.fontSizeBase200, color: tokens.colorNeutralForeground3 },
   meta: { display: 'flex', flexWrap: 'wrap', alignItems: 'center', gap: `${tokens.spacingVerticalS} ${tokens.spacingHorizontalM}` },
-  link: { color: tokens.colorBrandForegroundLink },
+  // Links in the header are targets too: 44 px tall on a touch screen, not 22 px of inline text.
+  link: {
+    color: tokens.colorBrandForegroundLink,
+    display: 'inline-flex',
+    alignItems: 'center',
+    minHeight: '44px',
+    paddingInline: tokens.spacingHorizontalXS,
+  },
   phoneSummary: {
     display: 'flex',
     alignItems: 'center',
@@ -71,6 +93,8 @@ export function JobWorkspace({ data, actor }: JobWorkspaceProps) {
     ? (searchParams.get('section') as SectionId)
     : 'runs';
   const permissions = jobPermissions(actor, job);
+  const { data: photoList } = useJobPhotos(job.id);
+  const counts = sectionCounts(data, photoList?.items.length ?? 0);
 
   const showSection = useCallback(
     (next: SectionId) => {
@@ -147,6 +171,7 @@ export function JobWorkspace({ data, actor }: JobWorkspaceProps) {
           <>
             <JobDetailsDialog job={job} canChange={permissions.canChangeDetails} />
             <JobStatusActions job={job} analysis={analysis} actor={actor} />
+            {permissions.canIssue && <IssuePacketDialog jobId={job.id} jobVersion={job.version} findings={analysis.findings} />}
           </>
         }
       />
@@ -182,8 +207,9 @@ export function JobWorkspace({ data, actor }: JobWorkspaceProps) {
             aria-label="Parts of the as-built"
           >
             {SECTIONS.map((id) => (
-              <Tab key={id} value={id} className={styles.tab}>
-                {SECTION_LABELS[id]}
+              <Tab key={id} value={id} className={styles.tab} aria-label={`${SECTION_LABELS[id]} (${counts[id]})`}>
+                <span className={styles.tabLabel}>{SHORT_SECTION_LABELS[id]}</span>
+                <span className={styles.tabCount}>{counts[id]}</span>
               </Tab>
             ))}
           </TabList>
@@ -204,13 +230,30 @@ export function JobWorkspace({ data, actor }: JobWorkspaceProps) {
             />
           )}
           {(job.status === 'ready_to_issue' || job.status === 'issued') && (
-            <PacketCard jobId={job.id} jobVersion={job.version} canIssue={permissions.canIssue} />
+            <PacketCard jobId={job.id} />
           )}
-          <UnitsChooser />
         </div>
         {isWide && <aside className={styles.aside}>{findings}</aside>}
       </div>
       </PhotosProvider>
     </WorkspaceFocusContext.Provider>
   );
+}
+
+/** Names short enough for a quarter of a phone's width; the tab's accessible name keeps the full one. */
+const SHORT_SECTION_LABELS: Record<SectionId, string> = { ...SECTION_LABELS, walls: 'Walls', amp: 'Amp setup' };
+
+/** How many records each section holds, shown under its name. */
+function sectionCounts({ asBuilt, job }: JobAsBuiltResponse, photos: number): Record<SectionId, number> {
+  const walls = asBuilt.items.filter((item) => item.kind === 'wall_entry').length;
+  return {
+    runs: asBuilt.runs.length,
+    equipment: asBuilt.items.length - walls,
+    walls,
+    zones: asBuilt.zones.length,
+    amp: asBuilt.items.filter((item) => item.kind === 'amplifier').length,
+    checks: asBuilt.checks.length,
+    photos,
+    notes: job.notes && job.notes.trim() !== '' ? 1 : 0,
+  };
 }

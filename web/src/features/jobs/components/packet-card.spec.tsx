@@ -1,7 +1,6 @@
 import { FluentProvider } from '@fluentui/react-components';
 import { QueryClientProvider } from '@tanstack/react-query';
 import { render, screen, within } from '@testing-library/react';
-import userEvent from '@testing-library/user-event';
 import { beforeEach, describe, expect, it } from 'vitest';
 
 import { lightTheme } from '../../../app/theme';
@@ -34,12 +33,12 @@ function revision(overrides: Partial<PacketRevision>): PacketRevision {
   };
 }
 
-function renderCard(props: { canIssue: boolean; jobVersion?: number }) {
+function renderCard() {
   setSession(buildSessionResponse(buildSessionUser('office')));
   return render(
     <FluentProvider theme={lightTheme}>
       <QueryClientProvider client={createTestQueryClient()}>
-        <PacketCard jobId={JOB_ID} jobVersion={props.jobVersion ?? 5} canIssue={props.canIssue} />
+        <PacketCard jobId={JOB_ID} />
       </QueryClientProvider>
     </FluentProvider>,
   );
@@ -48,8 +47,8 @@ function renderCard(props: { canIssue: boolean; jobVersion?: number }) {
 describe('PacketCard', () => {
   beforeEach(() => localStorage.clear());
 
-  it('should issue with If-Match, then follow the render queued → rendering → ready and offer the downloads', async () => {
-    const answers = [[], [revision({ status: 'queued' })], [revision({ status: 'rendering', attempts: 1 })]];
+  it('should follow the render queued → rendering → ready and offer the downloads (issuing is at the top of the job page)', async () => {
+    const answers = [[revision({ status: 'queued' })], [revision({ status: 'rendering', attempts: 1 })]];
     const ready = revision({
       status: 'ready',
       attempts: 1,
@@ -57,20 +56,12 @@ describe('PacketCard', () => {
       pdf: { bytes: 10, sha256: 'a'.repeat(64), url: '/api/packets/x/pdf' },
       archive: { bytes: 20, sha256: 'b'.repeat(64), url: '/api/packets/x/archive.zip' },
     });
-    let issuedWith: string | null = null;
     mockApi({
       [`GET /api/jobs/${JOB_ID}/packets`]: () => jsonResponse(answers.shift() ?? [ready]),
       [`GET /api/jobs/${JOB_ID}/deliveries`]: () => jsonResponse([]),
-      [`POST /api/jobs/${JOB_ID}/packets`]: ({ headers }) => {
-        issuedWith = headers.get('If-Match');
-        return jsonResponse({ ...revision({ status: 'queued' }), jobVersion: 6 }, 201);
-      },
     });
-    renderCard({ canIssue: true });
-    expect(await screen.findByText('No revision issued yet.')).toBeInTheDocument();
-
-    await userEvent.setup().click(screen.getByRole('button', { name: 'Issue packet' }));
-    expect(issuedWith).toBe('"5"');
+    renderCard();
+    expect(screen.queryByRole('button', { name: 'Issue packet' })).not.toBeInTheDocument();
     expect(await screen.findByText('Queued for rendering')).toBeInTheDocument();
     expect(screen.getByRole('progressbar')).toBeInTheDocument();
     // Polled every 2 s while queued or rendering.
@@ -84,13 +75,13 @@ describe('PacketCard', () => {
     expect(screen.queryByRole('progressbar')).not.toBeInTheDocument();
   }, 20_000);
 
-  it('should show a failed render with its reason, and no issue button for someone who may not issue', async () => {
+  it('should show a failed render with its reason', async () => {
     mockApi({
       [`GET /api/jobs/${JOB_ID}/packets`]: () =>
         jsonResponse([revision({ status: 'failed', attempts: 3, failureReason: 'Chromium timed out after 60 s' })]),
       [`GET /api/jobs/${JOB_ID}/deliveries`]: () => jsonResponse([]),
     });
-    renderCard({ canIssue: false });
+    renderCard();
     expect(await screen.findByText('Failed')).toBeInTheDocument();
     expect(screen.getByText('Reason: Chromium timed out after 60 s')).toBeInTheDocument();
     expect(screen.queryByRole('button', { name: 'Issue packet' })).not.toBeInTheDocument();

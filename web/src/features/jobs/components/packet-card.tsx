@@ -1,8 +1,7 @@
-import { Button, makeStyles, MessageBar, MessageBarBody, ProgressBar, Spinner, Text, tokens } from '@fluentui/react-components';
+import { Button, makeStyles, ProgressBar, Spinner, Text, tokens } from '@fluentui/react-components';
 import {
   ArrowDownload20Regular,
   CheckmarkCircle20Filled,
-  DocumentArrowUp20Regular,
   ErrorCircle20Filled,
   HourglassHalf20Regular,
 } from '@fluentui/react-icons';
@@ -13,7 +12,6 @@ import { JobDeliveries } from '../../delivery/components/job-deliveries';
 import { SendPacketDialog } from '../../delivery/components/send-packet-dialog';
 import { useDownloadPacketFile } from '../api/get-packet-file';
 import { isPacketInProgress, useJobPackets, type PacketRevision, type PacketStatus } from '../api/get-job-packets';
-import { useIssuePacket } from '../api/issue-packet';
 
 import { useCardStyles } from './card-styles';
 
@@ -34,23 +32,20 @@ const STATUS_WORDS: Record<PacketStatus, string> = {
 
 type PacketCardProps = {
   jobId: string;
-  jobVersion: number;
-  /** Office/admin on a job that is ready to issue. */
-  canIssue: boolean;
 };
 
 /**
- * The job's handover packet: issue the next revision, follow its render, download its files; the
- * office sends a ready revision to the homeowner and follows its e-mails here.
+ * The job's handover packet: follow each revision's render, download its files; the office sends a
+ * ready revision to the homeowner and follows its e-mails here. Issuing is at the top of the job page
+ * (`IssuePacketDialog`, with its confirmation step).
  */
-export function PacketCard({ jobId, jobVersion, canIssue }: PacketCardProps) {
+export function PacketCard({ jobId }: PacketCardProps) {
   const card = useCardStyles();
   const styles = useStyles();
   const user = useSessionUser();
   // Sending (and the delivery log) is for admin and office, as the API allows.
   const canSend = user?.role === 'admin' || user?.role === 'office';
   const packets = useJobPackets(jobId);
-  const issue = useIssuePacket(jobId);
   const download = useDownloadPacketFile();
 
   return (
@@ -59,24 +54,7 @@ export function PacketCard({ jobId, jobVersion, canIssue }: PacketCardProps) {
         <Text as="h2" size={500} weight="semibold" id="packet-card-title" className={card.title}>
           Handover packet
         </Text>
-        {canIssue && (
-          <Button
-            appearance="primary"
-            className={styles.action}
-            icon={issue.isPending ? <Spinner size="tiny" /> : <DocumentArrowUp20Regular />}
-            disabled={issue.isPending}
-            onClick={() => issue.mutate(jobVersion)}
-          >
-            Issue packet
-          </Button>
-        )}
       </div>
-      {issue.isError && <Text className={styles.failed}>{describeRequestError(issue.error)}</Text>}
-      {issue.data?.warnings?.map((warning) => (
-        <MessageBar key={warning.code} intent="warning" layout="multiline">
-          <MessageBarBody>{warning.message}</MessageBarBody>
-        </MessageBar>
-      ))}
       {packets.isPending && <Spinner size="small" label="Loading revisions" />}
       {packets.isError && <Text className={styles.failed}>{describeRequestError(packets.error)}</Text>}
       {packets.data?.length === 0 && <Text>No revision issued yet.</Text>}
