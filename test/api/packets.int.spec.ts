@@ -116,12 +116,17 @@ describe('handover packets (the demo job, rendered in Chromium)', () => {
     expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
     const contents = pages[1]!;
     expect(contents).toContain('Contents');
-    for (const section of PACKET_SECTIONS) {
+    // Nothing was acknowledged at issue, so there is no Known exceptions section; every other section has content.
+    const printed = PACKET_SECTIONS.filter((section) => section.id !== 'known-exceptions');
+    expect(contents).not.toContain('Known exceptions');
+    for (const section of printed) {
       const entry = new RegExp(`${section.title} (\\d+)`).exec(contents);
       expect(entry, section.title).not.toBeNull();
       const page = Number(entry![1]);
       expect(pages[page - 1], `${section.title} on page ${page}`).toContain(section.title);
     }
+    // The Engineering notes appendix is the last section, at the back.
+    expect(pages.at(-1)).toContain('How the figures were computed');
   });
 
   it("should print the job's photos with their captions in the appendix", () => {
@@ -149,7 +154,9 @@ describe('handover packets (the demo job, rendered in Chromium)', () => {
     expect(text).toContain('must be done by a licensed electrician');
     expect(text).toContain('Line-voltage work is not part of this installation');
     expect(text).toContain('they are not a code inspection or approval');
-    expect(text).toContain('Not signed');
+    // Signatures not collected are left out, with one line saying so.
+    expect(text).toContain('The walkthrough was not signed.');
+    expect(text).not.toContain('Not signed');
   });
 
   it('should embed Inter only (no fallback font) on A4 paper', () => {
