@@ -992,12 +992,17 @@ describe('bad input on every write route', () => {
       },
     },
     'POST /api/jobs/:jobId/packets': {
-      input: 'none',
+      input: 'json',
       isVersioned: true,
+      // Without open must-fix findings no acknowledgement is needed, so `{}` is a valid issue.
+      isEmptyObjectValid: true,
+      // A successful issue queues the render after answering.
+      hasLaterWrites: true,
       arrange: async (ctx) => {
         const job = await readyToIssueJob(ctx);
-        return { params: { jobId: job.id }, jobId: job.id, headers: { 'If-Match': String(job.version) } };
+        return { params: { jobId: job.id }, jobId: job.id, headers: { 'If-Match': String(job.version) }, body: {} };
       },
+      fields: { acknowledgements: { type: 'array', max: 200 }, expectedVersion },
     },
     'PUT /api/jobs/:jobId/signatures/:role': {
       input: 'json',
