@@ -1,4 +1,5 @@
-import { metresToFeet, metresToInches, toFeetAndInches } from '../domain/as-built/units.js';
+import { metresToFeet, metresToInches } from '../domain/as-built/units.js';
+import { formatCoverDepth, formatGroundLength } from '../domain/format/length.js';
 
 /** Units for the labels on a drawing. Geometry is always computed in SI. */
 export type UnitSystem = 'metric' | 'imperial';
@@ -10,29 +11,19 @@ export function formatNumber(value: number, maxDecimals: number): string {
 }
 
 /**
- * A plan length (tie, run length, station): metric to the centimetre, e.g. `8.01 m`; imperial in
- * feet and inches to the nearest inch in drafting form, e.g. `26'-3"`.
+ * A plan length (tie, run length, station) as everywhere else (domain/format/length): `8.01 m`, or
+ * feet and inches to the nearest inch, `26 ft 3 in`.
  */
 export function formatLength(m: number, units: UnitSystem): string {
-  if (units === 'metric') return `${formatNumber(m, 2)} m`;
-  const { feet, inches } = toFeetAndInches(m);
-  const sign = m < 0 && (feet !== 0 || inches !== 0) ? '-' : '';
-  return `${sign}${Math.abs(feet)}'-${Math.abs(inches)}"`;
+  return formatGroundLength(m, units);
 }
 
-const QUARTERS = ['', ' 1/4', ' 1/2', ' 3/4'] as const;
-
 /**
- * A burial depth (cover): metric in whole centimetres, e.g. `11 cm`; imperial in inches to the nearest
- * quarter inch, e.g. `4 1/4 in` (0.15 m reads `6 in`, the usual 6-inch rule).
+ * A burial depth (cover) as in the packet (domain/format/length formatCoverDepth): `11 cm`, or inches
+ * to the nearest 1/4 in, `4 1/4 in` (0.15 m reads `6 in`, the usual 6-inch rule).
  */
 export function formatDepth(m: number, units: UnitSystem): string {
-  if (units === 'metric') return `${formatNumber(m * 100, 0)} cm`;
-  const quarters = Math.round(metresToInches(m) * 4);
-  const whole = Math.floor(quarters / 4);
-  const rest = quarters - whole * 4;
-  if (whole === 0 && rest > 0) return `${QUARTERS[rest]!.trim()} in`;
-  return `${whole}${QUARTERS[rest]!} in`;
+  return formatCoverDepth(m, units);
 }
 
 /** Value of a length in the unit an axis or scale bar counts in: metres or feet. */

@@ -96,3 +96,16 @@ export function unitFactor(system: LengthSystem, scale: LengthScale): number {
   if (system === 'metric') return scale === 'long' ? 1 : 0.01;
   return scale === 'long' ? METRES_PER_FOOT : METRES_PER_INCH;
 }
+
+/**
+ * A burial cover on print (packet, drawings, findings): inches to the nearest 1/4 in in the same
+ * fraction style as {@link formatDepthLength} (`4 1/4 in`), whole centimetres in metric (`11 cm`).
+ * Coarser than the 1/8 in of screens on purpose: the cover rules are stored in metres from tables that
+ * give both units ("6 in (150 mm)"), and 0.15 m to the nearest 1/8 in would print the 6-inch rule as
+ * `5 7/8 in`. Until the rules are stored in their source units, print rounds to the quarter.
+ */
+export function formatCoverDepth(m: number, system: LengthSystem): string {
+  if (system === 'metric') return `${trimNumber(m * 100, 0)} cm`;
+  const quarters = Math.round(Math.abs(m) / METRES_PER_INCH * 4) / 4;
+  return `${m < 0 && quarters > 0 ? '-' : ''}${formatInchesEighths(quarters)} in`;
+}

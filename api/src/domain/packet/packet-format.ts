@@ -1,5 +1,5 @@
 import type { Gauge } from '../as-built/run.schema.js';
-import { metresToInches, toFeetAndInches } from '../as-built/units.js';
+import { formatCoverDepth, formatGroundLength } from '../format/length.js';
 import { formatGauge, gaugeAreaMm2, mm2ToEquivalentAwg } from '../cable/wire.js';
 import type { PacketUnits } from './packet-snapshot.js';
 
@@ -9,22 +9,14 @@ export function formatNumber(value: number, digits: number): string {
   return (Object.is(fixed, -0) ? 0 : fixed).toLocaleString('en-US', { maximumFractionDigits: digits });
 }
 
-/** A length along the ground: `26 ft 3 in` (nearest inch) or `8.01 m` (nearest centimetre). */
+/** A length along the ground: `26 ft 3 in` (nearest inch) or `8.01 m` (nearest centimetre); domain/format/length. */
 export function formatLength(m: number, units: PacketUnits): string {
-  if (units === 'metric') return `${formatNumber(m, 2)} m`;
-  const { feet, inches } = toFeetAndInches(m);
-  return `${feet} ft ${Math.abs(inches)} in`;
+  return formatGroundLength(m, units);
 }
 
-const QUARTERS = ['', '¼', '½', '¾'] as const;
-
-/** A burial depth (cover): `4¼ in` (nearest quarter inch) or `11 cm` (nearest centimetre). */
+/** A burial depth (cover): `4 1/4 in` (nearest 1/4 in) or `11 cm`; domain/format/length formatCoverDepth. */
 export function formatDepth(m: number, units: PacketUnits): string {
-  if (units === 'metric') return `${formatNumber(m * 100, 0)} cm`;
-  const quarters = Math.round(metresToInches(m) * 4);
-  const whole = Math.floor(quarters / 4);
-  const rest = quarters - whole * 4;
-  return `${whole === 0 && rest > 0 ? '' : whole}${QUARTERS[rest]} in`;
+  return formatCoverDepth(m, units);
 }
 
 /**

@@ -12,17 +12,18 @@ const locateUrl = 'https://app.example/locate/rev-1';
 describe('packet formatting', () => {
   it.each([
     [8.01, 'imperial', '26 ft 3 in'],
-    [0.3048, 'imperial', '1 ft 0 in'],
+    [0.3048, 'imperial', '1 ft'],
     [8.01, 'metric', '8.01 m'],
-    [1234.5, 'metric', '1,234.5 m'],
+    [1234.5, 'metric', '1234.5 m'],
   ] as const)('should format a length of %s m (%s) as %s', (m, units, expected) => {
     expect(formatLength(m, units)).toBe(expected);
   });
 
   it.each([
-    [0.11, 'imperial', '4¼ in'],
+    // 0.11 m = 4.331 in → nearest 1/4 in is 4 1/4 (1 in = 0.0254 m exactly, NIST SP 811 B.8)
+    [0.11, 'imperial', '4 1/4 in'],
     [0.1524, 'imperial', '6 in'],
-    [0.005, 'imperial', '¼ in'],
+    [0.005, 'imperial', '1/4 in'],
     [0.11, 'metric', '11 cm'],
     [0.455, 'metric', '46 cm'],
   ] as const)('should format a depth of %s m (%s) as %s', (m, units, expected) => {
@@ -93,7 +94,7 @@ describe(buildPacketViewModel.name, () => {
     // 11 cm ≈ 4.3 in of cover, the default general rule 15 cm ≈ 5.9 in, written in the company's units.
     expect(text).toContain('runs shallower than our standard');
     expect(text).toContain('Patio splice to P2');
-    expect(text).toMatch(/4¼ in of cover where our standard is 6 in/);
+    expect(text).toMatch(/4 1\/4 in of cover where our standard is 6 in/);
     expect(text).toContain('marked on the site plan');
     expect(text).not.toMatch(/Bury it deeper|cm\b/);
     expect(vm.knownExceptions[0]!.reason).toBe('Rock shelf under the patio edge; sleeved instead.');
@@ -137,7 +138,7 @@ describe(buildPacketViewModel.name, () => {
     const { rows } = sut().cables;
     expect(rows).toHaveLength(DEMO_AS_BUILT.runs.length);
     const p2 = rows.find((r) => r.label === 'Patio splice to P2')!;
-    expect(p2).toMatchObject({ gauge: '14 AWG, 2-cond.', method: 'Direct burial', minDepth: '4¼ in', depthStatus: 'Shallow reading', depthClass: 'bad' });
+    expect(p2).toMatchObject({ gauge: '14 AWG, 2-cond.', method: 'Direct burial', minDepth: '4 1/4 in', depthStatus: 'Shallow reading', depthClass: 'bad' });
     expect(rows.find((r) => r.label.startsWith('Spare'))).toMatchObject({ spare: 'Spare run' });
   });
 
