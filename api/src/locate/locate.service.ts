@@ -77,6 +77,8 @@ export class LocateService {
         method: run.method,
         minDepthM: run.minDepthM,
         maxDepthM: run.maxDepthM,
+        minCoverM: run.minCoverM,
+        isShallow: run.isShallow,
         isSpare: run.isSpare,
         isAbandoned: run.isAbandoned,
         revision: run.revision,

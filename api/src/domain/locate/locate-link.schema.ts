@@ -50,6 +50,9 @@ export const LocateRunSchema = z.object({
   method: z.enum(['direct_burial', 'conduit', 'under_hardscape_sleeve', 'indoor']),
   minDepthM: z.number().nullable(),
   maxDepthM: z.number().nullable(),
+  /** The depth rule's minimum cover, metres (null when none applies), and whether any reading is shallower. */
+  minCoverM: z.number().nullable(),
+  isShallow: z.boolean(),
   isSpare: z.boolean(),
   isAbandoned: z.boolean(),
   revision: z.number().int(),

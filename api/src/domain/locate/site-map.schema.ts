@@ -61,6 +61,10 @@ export const SiteMapRunSchema = z.object({
   minDepthM: z.number().nullable(),
   maxDepthM: z.number().nullable(),
   depthReadings: z.array(z.object({ stationM: z.number(), depthM: z.number() })),
+  /** The minimum cover of the depth rule this run was checked against, metres; null when no rule applies (indoors, no rule). */
+  minCoverM: z.number().nullable(),
+  /** A live run with any reading shallower than that rule (the packet's depth check: a shallow station). */
+  isShallow: z.boolean(),
   /** The drawn route, or the straight line between its end items when no route was drawn; null when unknown. */
   route: z.array(PlanPointResponseSchema).nullable(),
   isRouteDrawn: z.boolean(),

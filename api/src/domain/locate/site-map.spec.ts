@@ -65,6 +65,21 @@ describe(buildSiteMap.name, () => {
     expect(text).not.toContain('SN-123');
   });
 
+  it('should flag a live run with a reading under its depth rule as shallow, with the rule’s cover; an abandoned one never', () => {
+    const [first, second, ...rest] = DEMO_AS_BUILT.runs;
+    // 0.1 m of cover on a direct-burial run: under the 150 mm of NEC Table 300.5 column 5 the depth rules use
+    // (NEC (NFPA 70) 2017/2020 Table 300.5, column 5, direct burial, general location: 6 in / 150 mm).
+    const shallow = { ...first!, method: 'direct_burial' as const, location: 'general' as const, isAbandoned: false, depthReadings: [{ stationM: 1, depthM: 0.1 }] };
+    const abandoned = { ...second!, method: 'direct_burial' as const, location: 'general' as const, isAbandoned: true, depthReadings: [{ stationM: 1, depthM: 0.1 }] };
+    const sut = buildSiteMap([source({ ...DEMO_AS_BUILT, runs: [shallow, abandoned, ...rest] }, REV_A)]);
+    const a = sut.runs.find((r) => r.id === shallow.id)!;
+    expect(a.isShallow).toBe(true);
+    expect(a.minCoverM).toBe(0.15);
+    expect(sut.runs.find((r) => r.id === abandoned.id)!.isShallow).toBe(false);
+    const demo = buildSiteMap([source(DEMO_AS_BUILT, REV_A)]);
+    for (const run of demo.runs) expect(run.isShallow).toBe(run.depthReadings.some((d) => run.minCoverM !== null && d.depthM < run.minCoverM - 0.0005) && !run.isAbandoned);
+  });
+
   it('should answer an empty map for a site without issued revisions', () => {
     expect(buildSiteMap([])).toEqual({ frame: { northAzimuthDeg: 0, origin: null }, revisions: [], referencePoints: [], siteFeatures: [], items: [], runs: [], geojson: null });
   });

@@ -83,6 +83,9 @@ export function buildSiteMap(sources: readonly SiteMapSource[]): SiteMap {
         minDepthM: depth?.minDepthM ?? null,
         maxDepthM: depth?.maxDepthM ?? null,
         depthReadings: [...(run.depthReadings ?? [])].sort((x, y) => x.stationM - y.stationM).map((r) => ({ stationM: r.stationM, depthM: r.depthM })),
+        minCoverM: depth?.rule?.minCoverM ?? null,
+        // Abandoned runs are reported by the depth check but are no hazard to flag as shallow.
+        isShallow: run.isAbandoned !== true && (depth?.shallowStations.length ?? 0) > 0,
         route: route ? route.map((p) => ({ x: p.x, y: p.y })) : null,
         isRouteDrawn: run.route !== undefined,
         isSpare: run.isSpare === true,

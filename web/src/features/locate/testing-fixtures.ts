@@ -33,7 +33,13 @@ export function buildSiteMap(): SiteMap {
         measuredLengthM: 11,
         minDepthM: 0.3048,
         maxDepthM: 0.4572,
-        depthReadings: [],
+        depthReadings: [
+          { stationM: 0, depthM: 0.4572 },
+          { stationM: 5.5, depthM: 0.3048 },
+          { stationM: 11, depthM: 0.4 },
+        ],
+        minCoverM: 0.15,
+        isShallow: false,
         route: [
           { x: 1, y: 1 },
           { x: 9, y: 6 },
@@ -67,6 +73,8 @@ export function buildLocateView(token = 'tok'): LocateViewResponse {
         method: 'direct_burial',
         minDepthM: 0.3048,
         maxDepthM: 0.4572,
+        minCoverM: 0.15,
+        isShallow: false,
         isSpare: false,
         isAbandoned: false,
         revision: 1,

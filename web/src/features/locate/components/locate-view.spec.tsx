@@ -21,7 +21,8 @@ describe('Locate view', () => {
     expect(screen.queryByRole('navigation', { name: 'Main' })).not.toBeInTheDocument();
 
     const map = screen.getByRole('img', { name: /Site plan/ });
-    expect(within(map).getByText('min 12 in')).toBeInTheDocument();
+    // Labels are placed once the map has fitted the site to its frame.
+    expect(await within(map).findByText('min 12 in')).toBeInTheDocument();
     expect(within(map).getByText('Wall entry: Garage wall')).toBeInTheDocument();
     expect(within(map).getByText('House corner NE')).toBeInTheDocument();
     expect(screen.getByRole('link', { name: 'Download GeoJSON' })).toHaveAttribute('href', '/api/locate/tok/map.geojson');
@@ -34,7 +35,39 @@ describe('Locate view', () => {
     // Public: no token is sent.
     const [, init] = fetchMock.mock.calls.find(([url]) => String(url) === '/api/locate/tok')!;
     expect(new Headers(init?.headers).has('Authorization')).toBe(false);
-  });
+  }, 60_000);
+
+  it('should list shallow runs first with the rule, toggle the ties and list what to measure from', async () => {
+    const view = buildLocateView('tok');
+    const second = { ...view.runs[0]!, id: 'run-2', label: 'Run B', minDepthM: 0.1016, maxDepthM: 0.2, minCoverM: 0.1524, isShallow: true, photos: [] };
+    view.runs = [view.runs[0]!, second];
+    view.map.runs = [view.map.runs[0]!, { ...view.map.runs[0]!, id: 'run-2', label: 'Run B', minDepthM: 0.1016, isShallow: true, route: [{ x: 1, y: 1 }, { x: 1, y: 8 }] }];
+    view.map.items[1]!.ties = [{ referencePointId: 'rp-1', distanceM: Math.hypot(9, 6) }];
+    mockApi({ 'GET /api/locate/tok': () => jsonResponse(view) });
+    const { user } = renderApp({ url: '/locate/tok', signedInAs: null });
+    expect(await screen.findByRole('heading', { name: 'Cable runs' }, { timeout: 15_000 })).toBeInTheDocument();
+
+    const items = screen.getAllByRole('listitem').filter((li) => li.id.startsWith('locate-run-'));
+    expect(items.map((li) => li.id)).toEqual(['locate-run-run-2', 'locate-run-run-1']);
+    expect(within(items[0]!).getByText(/Shallower than the depth rule: 4 in where the rule asks 6 in/)).toBeInTheDocument();
+
+    const map = screen.getByRole('img', { name: /Site plan/ });
+    expect(await within(map).findByText('⚠ min 4 in')).toBeInTheDocument();
+    expect(map.querySelectorAll('[data-tie]').length).toBe(0);
+    await user.click(screen.getByRole('switch', { name: 'Show taped ties on the map' }));
+    expect(map.querySelectorAll('[data-tie]').length).toBe(1);
+    const measure = screen.getByRole('region', { name: 'Measure from' });
+    expect(within(measure).getByText('House corner NE')).toBeInTheDocument();
+    expect(within(measure).getByText(/10 ft 10 in to Speaker L|10′ 10″ to Speaker L|to Speaker L/)).toBeInTheDocument();
+  }, 60_000);
+
+  it('should say there are no ties when none were taped (no switch, no list)', async () => {
+    mockApi({ 'GET /api/locate/tok': () => jsonResponse(buildLocateView('tok')) });
+    renderApp({ url: '/locate/tok', signedInAs: null });
+    expect(await screen.findByText('No taped ties were recorded at this site.', {}, { timeout: 15_000 })).toBeInTheDocument();
+    expect(screen.queryByRole('switch')).not.toBeInTheDocument();
+    expect(screen.queryByRole('region', { name: 'Measure from' })).not.toBeInTheDocument();
+  }, 60_000);
 
   it('should show only a clear page for a link that no longer works', async () => {
     mockApi({ 'GET /api/locate/gone': () => apiErrorResponse(404, { message: 'Not valid.', code: 'LOCATE_LINK_NOT_VALID' }) });

@@ -1,6 +1,6 @@
-import { Button, makeStyles, Text, tokens } from '@fluentui/react-components';
+import { Button, makeStyles, Switch, Text, tokens } from '@fluentui/react-components';
 import { ArrowDownload20Regular, Warning24Filled } from '@fluentui/react-icons';
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 
 import { InstallerCard } from '../../../components/installer-card';
 import { formatDate } from '../../../lib/format-date';
@@ -62,6 +62,13 @@ const useStyles = makeStyles({
     boxShadow: tokens.shadow2,
   },
   runButton: { justifyContent: 'space-between', minHeight: '56px', width: '100%', textAlign: 'start' },
+  mapLayout: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL, [WIDE]: { flexDirection: 'row', alignItems: 'flex-start' } },
+  mapMain: { flexGrow: 1, minWidth: 0 },
+  mapSide: { [WIDE]: { flexBasis: '16rem', flexShrink: 0 } },
+  shallowNote: { display: 'flex', alignItems: 'center', gap: tokens.spacingHorizontalXS, fontWeight: tokens.fontWeightSemibold },
+  shallowRun: { borderLeftWidth: '6px', borderLeftStyle: 'solid', borderLeftColor: tokens.colorNeutralForeground1 },
+  measureFrom: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS, margin: 0 },
+  measureList: { margin: 0, paddingInlineStart: tokens.spacingHorizontalL, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXS },
   profile: { width: '100%', height: 'auto', backgroundColor: '#fff', borderRadius: tokens.borderRadiusMedium },
   photos: { display: 'grid', gridTemplateColumns: 'repeat(auto-fill, minmax(96px, 1fr))', gap: tokens.spacingHorizontalS, [WIDE]: { gridTemplateColumns: 'repeat(auto-fill, minmax(140px, 1fr))' } },
   thumbButton: { padding: 0, border: 'none', background: 'none', cursor: 'pointer', minHeight: '44px' },
@@ -159,11 +166,67 @@ function RunDetails({ run }: { run: LocateViewResponse['runs'][number] }) {
   );
 }
 
+/** Runs shallower than the depth rule first (the ones that can hurt), otherwise in the order recorded. */
+export function runsShallowFirst<T extends { isShallow: boolean }>(runs: readonly T[]): T[] {
+  return [...runs.filter((r) => r.isShallow), ...runs.filter((r) => !r.isShallow)];
+}
+
+/** Every taped tie, grouped by the reference point it was measured from, in the viewer's units. */
+function MeasureFrom({ view }: { view: LocateViewResponse }) {
+  const styles = useStyles();
+  const groups = view.map.referencePoints
+    .map((ref) => ({
+      ref,
+      ties: view.map.items.flatMap((item) => item.ties.filter((t) => t.referencePointId === ref.id).map((t) => ({ item, distanceM: t.distanceM }))),
+    }))
+    .filter((g) => g.ties.length > 0);
+  return (
+    <section className={styles.measureFrom} aria-labelledby="locate-measure-from">
+      <Text as="h3" id="locate-measure-from" size={400} weight="semibold" className={styles.heading}>
+        Measure from
+      </Text>
+      {groups.length === 0 ? (
+        <Text className={styles.muted}>No taped ties were recorded at this site: positions on the map are as drawn.</Text>
+      ) : (
+        groups.map(({ ref, ties }) => (
+          <div key={ref.id}>
+            <Text weight="semibold" block>
+              {ref.label}
+            </Text>
+            <ul className={styles.measureList}>
+              {ties.map(({ item, distanceM }) => (
+                <li key={item.id}>
+                  <Text>
+                    {formatLength(distanceM, view.units, 'long')} to {item.kind === 'wall_entry' ? `wall entry ${item.label}` : item.label}
+                  </Text>
+                </li>
+              ))}
+            </ul>
+          </div>
+        ))
+      )}
+      <Text size={200} className={styles.muted}>
+        Tape from the reference point on the ground; where two ties meet is the spot.
+      </Text>
+    </section>
+  );
+}
+
 /** The contractor's view of a site: cautions first, then who installed it, the map and the runs. */
 export function LocateView({ view }: { view: LocateViewResponse }) {
   const styles = useStyles();
   const [selectedRunId, setSelectedRunId] = useState<string | undefined>();
+  const [showTies, setShowTies] = useState(false);
   const { site, installer } = view;
+  const runs = useMemo(() => runsShallowFirst(view.runs), [view.runs]);
+  const shallowRunIds = useMemo(() => new Set(view.runs.filter((r) => r.isShallow).map((r) => r.id)), [view.runs]);
+  const hasTies = view.map.items.some((item) => item.position !== null && item.ties.length > 0);
+
+  const selectFromMap = (runId: string) => {
+    setSelectedRunId(runId);
+    // The profile opens in the list: bring it into view (the list is below the map on a phone).
+    requestAnimationFrame(() => document.getElementById(`locate-run-${runId}`)?.scrollIntoView?.({ behavior: 'smooth', block: 'start' }));
+  };
 
   return (
     <div className={styles.root}>
@@ -187,7 +250,21 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
         <Text as="h2" id="locate-map" size={500} weight="semibold" className={styles.heading}>
           Map of buried cables
         </Text>
-        <SiteMapPlan map={view.map} units={view.units} selectedRunId={selectedRunId} onSelectRun={setSelectedRunId} />
+        {hasTies ? (
+          <Switch checked={showTies} onChange={(_, data) => setShowTies(data.checked)} label="Show taped ties on the map" />
+        ) : (
+          <Text className={styles.muted}>No taped ties were recorded at this site.</Text>
+        )}
+        <div className={styles.mapLayout}>
+          <div className={styles.mapMain}>
+            <SiteMapPlan map={view.map} units={view.units} selectedRunId={selectedRunId} onSelectRun={selectFromMap} shallowRunIds={shallowRunIds} showTies={showTies} />
+          </div>
+          {hasTies && (
+            <div className={styles.mapSide}>
+              <MeasureFrom view={view} />
+            </div>
+          )}
+        </div>
         {view.geojsonUrl && (
           <a href={view.geojsonUrl} download className={styles.secondaryLink}>
             <ArrowDownload20Regular aria-hidden="true" />
@@ -200,14 +277,14 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
         <Text as="h2" id="locate-runs" size={500} weight="semibold" className={styles.heading}>
           Cable runs
         </Text>
-        {view.runs.length === 0 ? (
+        {runs.length === 0 ? (
           <Text className={styles.muted}>No runs have been recorded at this site.</Text>
         ) : (
           <ul className={styles.runs}>
-            {view.runs.map((run) => {
+            {runs.map((run) => {
               const open = run.id === selectedRunId;
               return (
-                <li key={run.id} className={styles.run}>
+                <li key={run.id} id={`locate-run-${run.id}`} className={run.isShallow ? `${styles.run} ${styles.shallowRun}` : styles.run} data-shallow={run.isShallow ? 'true' : undefined}>
                   <Button
                     appearance="subtle"
                     className={styles.runButton}
@@ -222,6 +299,13 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
                       <Text size={200} className={styles.muted} block>
                         {run.cable} {run.gauge} · {METHOD_LABELS[run.method]} · revision {run.revision}
                       </Text>
+                      {run.isShallow && run.minDepthM !== null && (
+                        <Text size={200} className={styles.shallowNote} block>
+                          <Warning24Filled aria-hidden="true" />
+                          Shallower than the depth rule: {formatLength(run.minDepthM, view.units, 'short')} where the rule asks
+                          {run.minCoverM !== null ? ` ${formatLength(run.minCoverM, view.units, 'short')}` : ' more'}. Hand-dig.
+                        </Text>
+                      )}
                     </span>
                     <Text weight="semibold">
                       {depthLabel(run.minDepthM, view.units)}
