@@ -5,12 +5,13 @@ import type { Request, Response } from 'express';
 import { map, type Observable } from 'rxjs';
 
 /**
- * Headers of a versioned record's GET: its ETag, revalidated on every use (`no-cache`: the browser
- * keeps the answer and asks with `If-None-Match`; a 304 hands the kept body to `fetch` as a 200), kept
- * by nobody between the API and the browser (`private`), and per signed-in user (`Vary`).
+ * Headers of a versioned record's GET: its ETag, so a client that keeps the answer can ask again with
+ * `If-None-Match` and get a 304. These answers carry personal data (homeowners' and customers' names and
+ * contacts, the company's), so nothing may store them on disk: `no-store`, as every authenticated API
+ * answer (issue 18 §5). A browser therefore refetches; API clients that keep answers in memory revalidate.
  */
 export function setEtagHeaders(res: Response, etag: string): void {
-  res.set({ ETag: etag, 'Cache-Control': 'private, no-cache', Vary: 'Authorization' });
+  res.set({ ETag: etag, 'Cache-Control': 'no-store', Vary: 'Authorization' });
 }
 
 /** True when `If-None-Match` (a list, `*`, or weak forms) names `etag`. */

@@ -63,7 +63,7 @@ export class SitesController {
   ): Promise<SiteResponse> {
     const site = await this.sitesService.get(user, id);
     // The version as an entity tag, for If-Match; revalidated on every use (the site may change any time).
-    res.set({ ETag: `"${site.version}"`, 'Cache-Control': 'private, no-cache' });
+    res.set({ ETag: `"${site.version}"`, 'Cache-Control': 'no-store' });
     return site;
   }
 
