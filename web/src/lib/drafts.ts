@@ -160,8 +160,13 @@ export function useDraftForm<TForm extends FieldValues, TOutput = TForm>(
   );
 
   useEffect(() => {
-    const subscription = form.watch((values) => {
-      if (!isResetting.current) writeDraft(key, values);
+    const subscription = form.watch((values, info) => {
+      // Only an edit makes a draft: a reset (after Save, after Discard) reports no field name and may
+      // arrive after `isResetting` is back to false, which used to write the draft straight back.
+      if (isResetting.current || info.name === undefined) return;
+      // Typed back to what the record holds: nothing left to save.
+      if (JSON.stringify(values) === JSON.stringify(initialRef.current)) clearDraft(key);
+      else writeDraft(key, values);
     });
     return () => subscription.unsubscribe();
   }, [form, key]);

@@ -4,6 +4,16 @@ import type { CircuitClass, DepthRule, DepthRuleTable } from './depth-rules.sche
 /** NEC Table 300.5 gives its own metric values (6 in → 150 mm, not 152.4); we use them. */
 const NEC_MM_BY_INCHES: Record<number, number> = { 0: 0, 4: 100, 6: 150, 12: 300, 18: 450, 24: 600 };
 
+/**
+ * The inches a cover rule was written in, when `minCoverM` is one of the NEC's metric equivalents above
+ * (150 mm is the code's 6 in, not 5 7/8 in): imperial screens show and compare against that value.
+ */
+export function nominalCoverInches(minCoverM: number): number | undefined {
+  const mm = Math.round(minCoverM * 1000 * 10) / 10;
+  const hit = Object.entries(NEC_MM_BY_INCHES).find(([, value]) => value === mm);
+  return hit === undefined ? undefined : Number(hit[0]);
+}
+
 function necCoverM(inches: number): number {
   const mm = NEC_MM_BY_INCHES[inches];
   if (mm === undefined) throw new RangeError(`no NEC metric value for ${inches} in`);

@@ -6,8 +6,9 @@ import { Controller } from 'react-hook-form';
 import { z } from 'zod';
 import type { RunDepthResult } from '@domain/depth/depth-check';
 import { checkRunDepth } from '@domain/depth/depth-check';
-import { DEFAULT_DEPTH_RULES, findDepthRule } from '@domain/depth/depth-rules';
+import { DEFAULT_DEPTH_RULES, findDepthRule, nominalCoverInches } from '@domain/depth/depth-rules';
 import type { Run } from '@domain/as-built/run.schema';
+import { METRES_PER_INCH } from '@domain/as-built/units';
 import { DepthReadingInputSchema, type DepthReadingInput } from '@domain/jobs/job-record.schema';
 
 import { useNotify } from '../../../components/notify';
@@ -119,7 +120,10 @@ export function DepthReadingPanel({ jobId, run, depth, readingIds, canWrite, tar
 
   // The rule the server used; before the first reading, the default table's rule for this method.
   const rule = depth?.rule ?? findDepthRule(DEFAULT_DEPTH_RULES, run.method, run.location ?? 'general') ?? null;
-  const minCoverM = rule?.minCoverM ?? null;
+  // An imperial screen shows a rule written in inches as those inches (150 mm → 6 in, not 5 7/8 in).
+  const ruleCoverM = rule?.minCoverM ?? null;
+  const nominalInches = ruleCoverM === null || units.length !== 'imperial' ? undefined : nominalCoverInches(ruleCoverM);
+  const minCoverM = nominalInches === undefined ? ruleCoverM : nominalInches * METRES_PER_INCH;
 
   useEffect(() => {
     if (targetReading === undefined) return;

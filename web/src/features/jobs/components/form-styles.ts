@@ -16,6 +16,8 @@ export const useFormStyles = makeStyles({
     minWidth: 0,
     // An example in an empty field must never read as a value: lighter and slanted, and its text starts "e.g.".
     '& input::placeholder, & textarea::placeholder, &::placeholder': { color: tokens.colorNeutralForeground4, fontStyle: 'italic', opacity: 1 },
+    // A dropdown as tall as the fields beside it (Fluent draws its <select> 32 px tall).
+    '& select': { height: '48px', minHeight: '48px', fontSize: tokens.fontSizeBase400 },
   },
   actions: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM },
   button: { minHeight: '48px', minWidth: '48px' },

@@ -23,7 +23,7 @@ function serverWith(initial: JobAsBuiltResponse) {
 }
 
 async function openDepthFlow(user: ReturnType<typeof renderApp>['user']) {
-  const run = await screen.findByRole('listitem', { name: 'Run Patio trunk' });
+  const run = await screen.findByRole('listitem', { name: 'Run Patio trunk' }, { timeout: 30_000 });
   await user.click(within(run).getByRole('button', { name: 'Add depth reading' }));
   return run;
 }
@@ -61,7 +61,7 @@ describe('JobWorkspace', () => {
     await within(run).findByText('Too shallow');
     expect(within(run).getByLabelText('Station (from the start)')).toHaveValue('');
     expect(within(run).getByRole('button', { name: 'Save reading' })).toBeInTheDocument();
-  }, 30_000);
+  }, 60_000);
 
   it('should link a shallow-depth finding to the reading it is about', async () => {
     const server = serverWith(buildJobAsBuilt(buildAsBuilt([{ stationM: 1, depthM: 0.2 }, { stationM: 6, depthM: 0.08 }])));
@@ -69,7 +69,7 @@ describe('JobWorkspace', () => {
     const { user } = renderApp({ url: JOB_URL, signedInAs: buildSessionUser('lead') });
 
     // A phone-width layout in jsdom: the findings sit above the sections behind one button.
-    await user.click(await screen.findByRole('button', { name: /^Findings: 1 to look at/ }));
+    await user.click(await screen.findByRole('button', { name: /^Findings: 1 to look at/ }, { timeout: 15_000 }));
     const findings = screen.getByRole('list', { name: 'Findings' });
     const shallow = within(findings).getByText(/has 8 cm .* of cover at 6 m/).closest('li')!;
     expect(within(shallow).getByText('Check')).toBeInTheDocument();
@@ -118,8 +118,10 @@ describe('JobWorkspace', () => {
     first.unmount();
 
     const second = renderApp({ url: JOB_URL, signedInAs: buildSessionUser('lead') });
-    expect(await screen.findByText(/One form has input that is not saved yet/)).toBeInTheDocument();
+    // The banner names the form and links to it.
+    expect(await screen.findByText('Not saved yet', undefined, { timeout: 15_000 })).toBeInTheDocument();
+    expect(screen.getByRole('link', { name: 'Depth reading on Patio trunk' })).toHaveAttribute('href', `/jobs/${JOB_IDS.job}`);
     const again = await openDepthFlow(second.user);
     expect(within(again).getByLabelText('Station (from the start)')).toHaveValue('12');
-  }, 30_000);
+  }, 60_000);
 });

@@ -177,7 +177,7 @@ export function JobWorkspace({ data, actor }: JobWorkspaceProps) {
       />
       <div className={styles.layout}>
         <div className={styles.main}>
-          <SaveStateBar jobId={job.id} />
+          <SaveStateBar jobId={job.id} asBuilt={asBuilt} canEdit={permissions.canRecord || permissions.canAddField || permissions.canChangeNotes} />
           {!isWide &&
             (isFindingsOpen ? (
               <>
