@@ -5,6 +5,7 @@ import { join } from 'node:path';
 
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import request from 'supertest';
+import { getDocumentProxy, getMeta } from 'unpdf';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { DEMO_AS_BUILT } from '../../api/src/domain/as-built/demo-as-built.js';
@@ -12,7 +13,7 @@ import { PACKET_SECTIONS } from '../../api/src/domain/packet/packet.view-model.j
 import { createCompany, type TestCompany, withDb } from '../support/fixtures.js';
 import { type Api, apiAs, createJob, createSite, type JobFixture, moveJob, recordAsBuilt } from '../support/records.js';
 import { bearer, signIn } from '../support/session.js';
-import { pdfFontNames, pdfFonts, pdfPages, pdfPageSize, verifyArchive } from '../print/packet-pdf.js';
+import { pdfFontNames, pdfFonts, pdfPages, pdfPageSize, readArchiveFile, verifyArchive } from '../print/packet-pdf.js';
 import { makeFieldPhoto } from '../fixtures/photos/make-photos.js';
 
 const PHOTO_CAPTION = 'Open trench at the patio splice, tape at 30 cm';
@@ -43,6 +44,7 @@ describe('handover packets (the demo job, rendered in Chromium)', () => {
   let packet: { id: string; status: string; revision: number; jobVersion: number };
   let pdf: Buffer;
   let pages: string[];
+  let pdfDisposition: string;
 
   /** A job with the demo as-built, moved to ready to issue. */
   async function readyJob(): Promise<JobFixture> {
@@ -91,6 +93,7 @@ describe('handover packets (the demo job, rendered in Chromium)', () => {
       });
     expect(download.status).toBe(200);
     expect(download.headers['content-type']).toBe('application/pdf');
+    pdfDisposition = String(download.headers['content-disposition']);
     pdf = download.body as Buffer;
     expect(download.headers.etag).toBe(`"${createHash('sha256').update(pdf).digest('hex')}"`);
     pages = await pdfPages(pdf);
@@ -192,11 +195,62 @@ describe('handover packets (the demo job, rendered in Chromium)', () => {
     const { files, check } = verifyArchive(res.body as Buffer);
     const photoFiles = files.filter((f) => f.startsWith('photos/'));
     expect(photoFiles).toHaveLength(1);
+    const pdfName = /^attachment; filename="([a-z0-9-]+\.pdf)"$/.exec(pdfDisposition)?.[1];
+    expect(pdfName).toMatch(/^fixture-yard-\d+-fixture-job-\d+-rev-1\.pdf$/);
+    expect(res.headers['content-disposition']).toBe(`attachment; filename="${pdfName!.replace(/\.pdf$/, '.zip')}"`);
     expect(files.filter((f) => !f.startsWith('photos/'))).toEqual(
-      ['MANIFEST.sha256', 'as-built.json', 'cable-schedule.csv', 'packet.pdf', 'runs-and-items.geojson', 'site-plan.svg', 'wiring-schematic.svg'].sort(),
+      [
+        'MANIFEST.sha256',
+        'README.txt',
+        'as-built.json',
+        'cable-schedule.csv',
+        pdfName!,
+        'runs-and-items.geojson',
+        'runs-and-items.kml',
+        'site-plan.svg',
+        'wiring-schematic.svg',
+      ].sort(),
     );
     expect(check.trim().split('\n')).toHaveLength(files.length - 1);
     expect(check).not.toContain('FAILED');
+    // The PDF in the archive is the one downloaded.
+    expect(readArchiveFile(res.body as Buffer, pdfName!).equals(pdf)).toBe(true);
+    // The CSV starts with a UTF-8 byte-order mark; a metric company gets the SI columns only.
+    const csv = readArchiveFile(res.body as Buffer, 'cable-schedule.csv');
+    expect([...csv.subarray(0, 3)]).toEqual([0xef, 0xbb, 0xbf]);
+    const header = csv.subarray(3).toString('utf8').split('\r\n')[0]!;
+    expect(header).toMatch(/^run,from,to,cable_type,gauge,conductors,length_m,method,min_depth_m,max_depth_m,/);
+    expect(header).not.toContain('_ft');
+    const readme = readArchiveFile(res.body as Buffer, 'README.txt').toString('utf8');
+    for (const file of files.filter((f) => !f.startsWith('photos/') && f !== 'README.txt')) expect(readme, file).toContain(file);
+    expect(readme).toContain('photos/');
+    expect(readme).toContain('WGS 84');
+    expect(readme).toContain('plan metres');
+    const kml = readArchiveFile(res.body as Buffer, 'runs-and-items.kml').toString('utf8');
+    expect(kml).toContain('<kml xmlns="http://www.opengis.net/kml/2.2">');
+    expect((kml.match(/<Placemark>/g) ?? []).length).toBe(DEMO_AS_BUILT.runs.length + DEMO_AS_BUILT.items.length);
+  });
+
+  it('should carry title, author, subject and keywords, and a bookmark per section (read back with pdf.js)', async () => {
+    const doc = await getDocumentProxy(new Uint8Array(pdf));
+    const info = (await getMeta(doc)).info as Record<string, unknown>;
+    const outline = (await doc.getOutline()) ?? [];
+    const tree = (await (await doc.getPage(1)).getStructTree()) as { children?: unknown[] } | null;
+    await doc.destroy();
+    expect(info.Title).toMatch(/^Handover packet — Fixture job \d+ — Revision 1$/);
+    expect(info.Author).toMatch(/^Packet Render \w+$/);
+    expect(info.Subject).toMatch(/^As-built handover packet for Fixture yard \d+/);
+    expect(info.Keywords).toContain('as-built');
+    // Chromium nests the outline by heading level: walk the whole tree.
+    type Node = { title: string; items: Node[] };
+    const all = (nodes: Node[]): string[] => nodes.flatMap((n) => [n.title, ...all(n.items)]);
+    const titles = all(outline as Node[]).join(' | ');
+    // Every section the contents page lists has its bookmark.
+    const listed = PACKET_SECTIONS.filter((section) => pages[1]!.includes(section.title));
+    expect(listed.length).toBeGreaterThan(10);
+    for (const section of listed) expect(titles, section.title).toContain(section.title);
+    // Tagged: page 1 has a structure tree (Chromium's tagged PDF).
+    expect(tree?.children?.length ?? 0).toBeGreaterThan(0);
   });
 
   it('should refuse to issue a job that is not ready to issue, or with a stale version', async () => {
