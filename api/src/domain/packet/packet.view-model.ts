@@ -382,7 +382,14 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
           name: c.channelName,
           amplifier: itemLabel(items, c.channel.amplifierItemId),
           speakers: speakers === 0 ? 'None' : speakers === 1 ? '1 speaker' : `${speakers} speakers`,
-          status: !c.isSolved || isBelow ? 'See Engineering notes' : c.loadOhmNominal === null ? 'Nothing connected' : 'Working as designed',
+          status:
+            isBelow && acknowledgements.some((a) => a.code === 'LOAD_BELOW_AMP_MINIMUM')
+              ? 'Known exception'
+              : !c.isSolved || isBelow
+                ? 'See Engineering notes'
+                : c.loadOhmNominal === null
+                  ? 'Nothing connected'
+                  : 'Working as designed',
           statusClass: !c.isSolved || isBelow || c.loadOhmNominal === null ? 'bad' : 'ok',
         };
       }),
