@@ -1,5 +1,5 @@
 import { screen, within } from '@testing-library/react';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 
 import { apiErrorResponse, mockApi } from '../../../testing/mock-api';
 import { jsonResponse, renderApp } from '../../../testing/render-app';
@@ -67,6 +67,25 @@ describe('Locate view', () => {
     expect(await screen.findByText('No taped ties were recorded at this site.', {}, { timeout: 15_000 })).toBeInTheDocument();
     expect(screen.queryByRole('switch')).not.toBeInTheDocument();
     expect(screen.queryByRole('region', { name: 'Measure from' })).not.toBeInTheDocument();
+  }, 60_000);
+
+  it('should share the link with the share sheet, and copy it where there is none', async () => {
+    mockApi({ 'GET /api/locate/tok': () => jsonResponse(buildLocateView('tok')) });
+    const { user } = renderApp({ url: '/locate/tok', signedInAs: null });
+    const button = await screen.findByRole('button', { name: 'Share this map' }, { timeout: 15_000 });
+    const writeText = vi.fn(async () => undefined);
+    Object.defineProperty(navigator, 'clipboard', { value: { writeText }, configurable: true });
+    Object.defineProperty(navigator, 'share', { value: undefined, configurable: true });
+    await user.click(button);
+    expect(writeText).toHaveBeenCalledWith(expect.stringMatching(/\/locate\/tok$/));
+    expect(await screen.findByText('Link copied: paste it in a message to whoever is digging.')).toBeInTheDocument();
+
+    const share = vi.fn(async () => undefined);
+    Object.defineProperty(navigator, 'share', { value: share, configurable: true });
+    await user.click(button);
+    expect(share).toHaveBeenCalledWith(expect.objectContaining({ title: 'Wrenfold Close', url: expect.stringMatching(/\/locate\/tok$/) }));
+    expect(await screen.findByText('Link shared.')).toBeInTheDocument();
+    Object.defineProperty(navigator, 'share', { value: undefined, configurable: true });
   }, 60_000);
 
   it('should show only a clear page for a link that no longer works', async () => {

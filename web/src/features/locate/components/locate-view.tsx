@@ -1,6 +1,7 @@
 import { Button, makeStyles, Switch, Text, tokens } from '@fluentui/react-components';
-import { ArrowDownload20Regular, Warning24Filled } from '@fluentui/react-icons';
+import { ArrowDownload20Regular, Share20Regular, Warning24Filled } from '@fluentui/react-icons';
 import { useMemo, useState } from 'react';
+import { useLocation } from 'react-router';
 
 import { InstallerCard } from '../../../components/installer-card';
 import { formatDate } from '../../../lib/format-date';
@@ -166,6 +167,45 @@ function RunDetails({ run }: { run: LocateViewResponse['runs'][number] }) {
   );
 }
 
+type ShareState = 'idle' | 'shared' | 'copied' | 'failed';
+
+/**
+ * Shares this page's link with the phone's share sheet (Web Share API); where there is none, copies it.
+ * A share the user cancels is no failure.
+ */
+export async function shareLocateLink(url: string, title: string): Promise<ShareState> {
+  if (typeof navigator.share === 'function') {
+    try {
+      await navigator.share({ title, text: `Buried cable map: ${title}`, url });
+      return 'shared';
+    } catch (error) {
+      if (error instanceof DOMException && error.name === 'AbortError') return 'idle';
+    }
+  }
+  try {
+    await navigator.clipboard.writeText(url);
+    return 'copied';
+  } catch {
+    return 'failed';
+  }
+}
+
+function ShareButton({ title }: { title: string }) {
+  const [state, setState] = useState<ShareState>('idle');
+  // The page's own link (the token is in its path), whatever router drew it.
+  const url = new URL(useLocation().pathname, window.location.origin).href;
+  return (
+    <div style={{ display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXS }}>
+      <Button icon={<Share20Regular />} style={{ minHeight: '44px', alignSelf: 'flex-start' }} onClick={async () => setState(await shareLocateLink(url, title))}>
+        Share this map
+      </Button>
+      <Text role="status" aria-live="polite">
+        {state === 'copied' ? 'Link copied: paste it in a message to whoever is digging.' : state === 'shared' ? 'Link shared.' : state === 'failed' ? `Copy this link: ${url}` : ''}
+      </Text>
+    </div>
+  );
+}
+
 /** Runs shallower than the depth rule first (the ones that can hurt), otherwise in the order recorded. */
 export function runsShallowFirst<T extends { isShallow: boolean }>(runs: readonly T[]): T[] {
   return [...runs.filter((r) => r.isShallow), ...runs.filter((r) => !r.isShallow)];
@@ -242,6 +282,7 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
           <Text>{[site.postalCode, site.city, site.region].filter(Boolean).join(' ')}</Text>
         </address>
         {view.link.note && <Text>Note from the homeowner: {view.link.note}</Text>}
+        <ShareButton title={site.label} />
       </section>
 
       <InstallerCard installer={installer} headingId="locate-installer" reason="locate" />
