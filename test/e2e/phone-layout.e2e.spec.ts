@@ -120,7 +120,7 @@ describe('a crew lead’s pages on a 390 px phone', () => {
   it('should catch a page that scrolls sideways and a small target (the check can fail)', async () => {
     const context = await browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
     const page = await context.newPage();
-    await page.setContent('<div style="width:600px">wide</div><button style="height:22px;width:80px">Drawings</button>');
+    await page.setContent('<meta name="viewport" content="width=device-width, initial-scale=1"><div style="width:600px">wide</div><button style="height:22px;width:80px">Drawings</button>');
     const { overflowPx, small } = await measure(page);
     await context.close();
     expect(overflowPx).toBeGreaterThan(1);

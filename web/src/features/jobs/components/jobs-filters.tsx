@@ -15,7 +15,7 @@ const useStyles = makeStyles({
   search: { flex: '2 1 16rem', minWidth: 0 },
   searchBox: { width: '100%', maxWidth: 'none', minHeight: '48px' },
   select: { flex: '1 1 12rem', minWidth: 0 },
-  control: { minHeight: '48px' },
+  control: { minHeight: '48px', '& select': { height: '48px', minHeight: '48px' }, '& .fui-Combobox__expandIcon': { minWidth: '44px', minHeight: '44px', display: 'inline-flex', alignItems: 'center', justifyContent: 'center' } },
   tabs: { flex: '1 1 100%' },
   tab: { minHeight: '48px' },
 });

@@ -12,7 +12,15 @@ import { LengthInput } from './length-input';
 
 const useStyles = makeStyles({
   root: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
-  tie: { display: 'grid', gridTemplateColumns: 'minmax(0, 1.2fr) minmax(0, 1fr) auto', gap: tokens.spacingHorizontalS, alignItems: 'end' },
+  // The point on its own row on a phone, so its full name shows ("Choose a point", "NE house corner").
+  tie: {
+    display: 'grid',
+    gridTemplateColumns: 'minmax(0, 1fr) auto',
+    gap: tokens.spacingHorizontalS,
+    alignItems: 'end',
+    '& > :first-child': { gridColumn: '1 / -1' },
+    '@media (min-width: 640px)': { gridTemplateColumns: 'minmax(0, 1.2fr) minmax(0, 1fr) auto', '& > :first-child': { gridColumn: 'auto' } },
+  },
   solution: {
     display: 'flex',
     alignItems: 'flex-start',
@@ -53,6 +61,10 @@ export function TiesEditor({ recordId, referencePoints, ties, sideHint, onChange
   const solution = observations.length >= 2 ? solvePositionFromTies(observations, { sideHint: sideHint || undefined }) : undefined;
   const first = referencePoints.find((p) => p.id === ties[0]?.referencePointId)?.label ?? 'the first point';
   const second = referencePoints.find((p) => p.id === ties[1]?.referencePointId)?.label ?? 'the second point';
+  // How far apart the first two chosen points are: two ties longer in sum than this can meet.
+  const pointA = referencePoints.find((p) => p.id === ties[0]?.referencePointId);
+  const pointB = referencePoints.find((p) => p.id === ties[1]?.referencePointId);
+  const baseline = pointA && pointB && pointA.id !== pointB.id ? Math.hypot(pointB.x - pointA.x, pointB.y - pointA.y) : undefined;
 
   if (referencePoints.length === 0) {
     return <Text>This site has no reference points yet. Add house corners or posts on the site page, then tape ties from them.</Text>;
@@ -106,6 +118,11 @@ export function TiesEditor({ recordId, referencePoints, ties, sideHint, onChange
             <Radio className={formStyles.control} value="right" label="Right" />
           </RadioGroup>
         </Field>
+      )}
+      {baseline !== undefined && (
+        <Text>
+          {pointA!.label} to {pointB!.label}: {formatLength(baseline, units.length, 'long')} apart.
+        </Text>
       )}
       {solution && (
         <div className={styles.solution} aria-live="polite">
