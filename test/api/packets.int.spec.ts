@@ -13,7 +13,7 @@ import { PACKET_SECTIONS } from '../../api/src/domain/packet/packet.view-model.j
 import { createCompany, type TestCompany, withDb } from '../support/fixtures.js';
 import { type Api, apiAs, createJob, createSite, type JobFixture, moveJob, recordAsBuilt } from '../support/records.js';
 import { bearer, signIn } from '../support/session.js';
-import { pdfFontNames, pdfFonts, pdfPages, pdfPageSize, readArchiveFile, verifyArchive } from '../print/packet-pdf.js';
+import { hyphenRuns, pdfFontNames, pdfFonts, pdfPages, pdfPageSize, readArchiveFile, verifyArchive } from '../print/packet-pdf.js';
 import { makeFieldPhoto } from '../fixtures/photos/make-photos.js';
 
 const PHOTO_CAPTION = 'Open trench at the patio splice, tape at 30 cm';
@@ -160,6 +160,18 @@ describe('handover packets (the demo job, rendered in Chromium)', () => {
     // Signatures not collected are left out, with one line saying so.
     expect(text).toContain('The walkthrough was not signed.');
     expect(text).not.toContain('Not signed');
+  });
+
+  it('should print hyphens tight: every hyphenated run as wide as the plain font makes it, not the tabular one', async () => {
+    // Inter's `tnum` feature swaps the hyphen for a tabular glyph 0.19 em wider; set on the whole page it
+    // printed "low - voltage" and "one - call". Tabular figures now apply to numeric cells only. Each run's
+    // printed width (pdf.js glyph positions) is compared with fontkit's layout of the shipped font.
+    const runs = await hyphenRuns(pdf);
+    expect(runs.map((r) => r.text).join(' ')).toMatch(/low-voltage|one-call/);
+    const telling = runs.filter((r) => r.tabularPt - r.plainPt > 0.5);
+    expect(telling.length).toBeGreaterThan(3);
+    const wide = telling.filter((r) => Math.abs(r.printedPt - r.plainPt) > Math.abs(r.printedPt - r.tabularPt));
+    expect(wide.map((r) => `p${r.page}: ${r.text}`)).toEqual([]);
   });
 
   it('should embed Inter only (no fallback font) on A4 paper', () => {
