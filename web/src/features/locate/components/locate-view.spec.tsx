@@ -67,6 +67,9 @@ describe('Locate view', () => {
     expect(await screen.findByText('No taped ties were recorded at this site.', {}, { timeout: 15_000 })).toBeInTheDocument();
     expect(screen.queryByRole('switch')).not.toBeInTheDocument();
     expect(screen.queryByRole('region', { name: 'Measure from' })).not.toBeInTheDocument();
+    // No GPS origin: the KML button is there, disabled, and says why.
+    expect(screen.getByRole('button', { name: 'Download KML' })).toBeDisabled();
+    expect(screen.getByText(/No KML or GeoJSON: this site has no GPS origin/)).toBeInTheDocument();
   }, 60_000);
 
   it('should share the link with the share sheet, and copy it where there is none', async () => {

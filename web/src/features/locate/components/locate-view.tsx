@@ -8,6 +8,8 @@ import { formatDate } from '../../../lib/format-date';
 import { formatLength } from '../../../lib/units';
 import type { LocateViewResponse } from '../api/get-locate-view';
 
+import { geoJsonToKml, kmlFileName } from '../utils/kml';
+
 import { depthLabel, SiteMapPlan } from './site-map-plan';
 
 const WIDE = '@media (min-width: 720px)';
@@ -311,6 +313,21 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
             <ArrowDownload20Regular aria-hidden="true" />
             Download GeoJSON
           </a>
+        )}
+        {view.map.geojson ? (
+          <a href={`data:application/vnd.google-earth.kml+xml;charset=utf-8,${encodeURIComponent(geoJsonToKml(view.map.geojson, site.label))}`} download={kmlFileName(site.label)} className={styles.secondaryLink}>
+            <ArrowDownload20Regular aria-hidden="true" />
+            Download KML
+          </a>
+        ) : (
+          <div>
+            <Button disabled icon={<ArrowDownload20Regular />} aria-describedby="locate-kml-why">
+              Download KML
+            </Button>
+            <Text id="locate-kml-why" size={200} className={styles.muted} block>
+              No KML or GeoJSON: this site has no GPS origin, so the map has plan positions only. Measure from the reference points.
+            </Text>
+          </div>
         )}
       </section>
 
