@@ -47,6 +47,8 @@ const useStyles = makeStyles({
   },
   profile: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS, minWidth: 0, margin: 0 },
   link: { color: tokens.colorBrandForegroundLink },
+  /** Touch targets at least 44 px (WCAG 2.5.5), also on a phone. */
+  touch: { minHeight: '44px', minWidth: '44px' },
   muted: { color: tokens.colorNeutralForeground2 },
 });
 
@@ -112,6 +114,7 @@ export function JobDrawings({ data }: JobDrawingsProps) {
             Site plan
           </Text>
           <Button
+            className={styles.touch}
             icon={<ArrowDownload20Regular />}
             onClick={() => save(drawingUrls.sitePlan(job.id, { units, layersOff }), 'site-plan.svg')}
             disabled={download.isPending}
@@ -124,6 +127,7 @@ export function JobDrawings({ data }: JobDrawingsProps) {
           {SITE_PLAN_LAYER_NAMES.map((name) => (
             <Switch
               key={name}
+              className={styles.touch}
               label={SITE_PLAN_LAYER_LABELS[name]}
               checked={!layersOff.includes(name)}
               onChange={(_event, value) => toggleLayer(name, value.checked)}
@@ -143,7 +147,7 @@ export function JobDrawings({ data }: JobDrawingsProps) {
           <Text as="h3" size={500} weight="semibold" className={styles.heading}>
             Wiring schematic
           </Text>
-          <Button icon={<ArrowDownload20Regular />} onClick={() => save(drawingUrls.schematic(job.id, units), 'schematic.svg')} disabled={download.isPending}>
+          <Button className={styles.touch} icon={<ArrowDownload20Regular />} onClick={() => save(drawingUrls.schematic(job.id, units), 'schematic.svg')} disabled={download.isPending}>
             Download schematic (SVG)
           </Button>
         </div>
@@ -192,7 +196,7 @@ function DepthProfile({ label, runId, input, onDownload, isDownloading }: DepthP
         <figcaption>
           <Text weight="semibold">{label}</Text>
         </figcaption>
-        <Button size="small" appearance="subtle" icon={<ArrowDownload20Regular />} onClick={onDownload} disabled={isDownloading} aria-label={`Download the depth profile of ${label} (SVG)`}>
+        <Button className={styles.touch} size="small" appearance="subtle" icon={<ArrowDownload20Regular />} onClick={onDownload} disabled={isDownloading} aria-label={`Download the depth profile of ${label} (SVG)`}>
           SVG
         </Button>
       </div>
