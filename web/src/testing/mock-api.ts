@@ -22,6 +22,6 @@ export function mockApi(routes: Record<string, Handler>) {
 }
 
 /** An error body as the API sends it. */
-export function apiErrorResponse(status: number, body: { message: string; code?: string; issues?: unknown[] }) {
+export function apiErrorResponse(status: number, body: { message: string; code?: string; issues?: unknown[]; [field: string]: unknown }) {
   return jsonResponse({ statusCode: status, error: 'Error', ...body }, status);
 }
