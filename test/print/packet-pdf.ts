@@ -20,6 +20,14 @@ function toFile(pdf: Buffer): string {
   return path;
 }
 
+/**
+ * The PDF's text as poppler's `pdftotext -layout` reads it (words broken where the glyph positions
+ * leave a gap), for text that pdf.js would split across items.
+ */
+export function pdfLayoutText(pdf: Buffer): string {
+  return execFileSync('pdftotext', ['-layout', toFile(pdf), '-'], { encoding: 'utf8' });
+}
+
 const INTER_FACES = ['400-normal', '500-normal', '600-normal', '700-normal', '400-italic'].map((face) =>
   fontkit.openSync(fileURLToPath(new URL(`../../fonts/inter-static/inter-latin-${face}.woff2`, import.meta.url))),
 );
