@@ -106,9 +106,12 @@ describe('site versions and site geometry behind jobs', () => {
     const res = await request(app.getHttpServer()).get(`/api/sites/${siteId}`).set(bearer(sessions.tech));
     expect(res.status).toBe(200);
     expect(res.body.version).toBe(1);
-    expect(res.headers.etag).toBe('"1"');
+    // The ETag hashes the whole answer (it also shows homeowners, whose changes bump no version).
+    expect(res.headers.etag).toMatch(/^"[\w-]+"$/);
     await siteWrite(as.office, 'patch', siteId, '', { notes: 'Gate code with the office' });
-    expect((await request(app.getHttpServer()).get(`/api/sites/${siteId}`).set(bearer(sessions.tech))).headers.etag).toBe('"2"');
+    const after = await request(app.getHttpServer()).get(`/api/sites/${siteId}`).set(bearer(sessions.tech));
+    expect(after.body.version).toBe(2);
+    expect(after.headers.etag).not.toBe(res.headers.etag);
   });
 
   describe('the probe of issue 18 §2', () => {
