@@ -168,7 +168,8 @@ describe('PlanEditor', () => {
     first.unmount();
 
     const second = renderApp({ url: PLAN_URL, signedInAs: buildSessionUser('lead') });
-    expect(await screen.findByText(/One form has input that is not saved yet/)).toBeInTheDocument();
+    // The banner names the unsaved form and links to it.
+    expect(await screen.findByRole('link', { name: /Route on the plan/ }, { timeout: 10_000 })).toBeInTheDocument();
     await chooseTool(second.user, 'Draw a run route');
     await second.user.selectOptions(screen.getByRole('combobox', { name: 'Run' }), JOB_IDS.run);
     expect(screen.getByTestId('draft-route')).toHaveAttribute('data-points', '2');
@@ -344,6 +345,7 @@ describe('PlanEditor', () => {
     expect(within(toolbar).getAllByRole('radio').map((radio) => radio.getAttribute('aria-label'))).toEqual([
       'Select and move',
       'Add a reference point',
+      'Draw landmarks (house, fences, patio …)',
       'Draw a run route',
       'Place by ties',
       'Plan image and scale',
