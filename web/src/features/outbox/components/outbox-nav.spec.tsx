@@ -22,7 +22,8 @@ describe('Outbox in the navigation', () => {
     renderApp({ url: '/', signedInAs: buildSessionUser(role) });
 
     const nav = await mainNav();
-    expect(nav.getByRole('link', { name: 'Home' })).toBeInTheDocument();
+    // A homeowner's first item is their own property, never the contractor's home.
+    expect(nav.getByRole('link', { name: role === 'homeowner' ? 'My property' : 'Home' })).toBeInTheDocument();
     expect(nav.queryByRole('link', { name: 'Outbox' })).not.toBeInTheDocument();
     expect(fetchMock.mock.calls.some(([url]) => String(url).startsWith('/api/outbox'))).toBe(false);
   });
