@@ -100,7 +100,8 @@ describe('delivery: the office sends the packet, the homeowner shares a locate l
     await message.filter({ hasText: /Your handover packet from/ }).first().click();
     await page.getByRole('button', { name: /^Download .+\.pdf$/ }).waitFor();
     await page.getByText(/\/accept-invitation\?token=/).first().waitFor();
-    await page.getByText('Thank you for having us in your garden.').first().waitFor();
+    // The message as formatted shows in a sandboxed frame.
+    await page.frameLocator('iframe[title="The message as formatted"]').getByText('Thank you for having us in your garden.').first().waitFor();
 
     expect(errors).toEqual([]);
     await context.close();
