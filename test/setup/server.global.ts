@@ -49,6 +49,12 @@ export default async function setup(project: TestProject): Promise<() => Promise
       LOG_LEVEL: 'warn',
       JWT_ACCESS_SECRET: randomBytes(32).toString('hex'),
       LOCAL_SMTP_PORT: '0',
+      // Every browser test signs in from 127.0.0.1 against this one server; the limits themselves are
+      // tested in the integration project, so here they must not turn a later file's sign-in into a 429.
+      SIGN_IN_LIMIT_PER_ADDRESS_PER_MINUTE: '10000',
+      SIGN_IN_LIMIT_PER_ACCOUNT: '10000',
+      SIGN_IN_LIMIT_PER_ACCOUNT_GLOBAL: '10000',
+      LOCATE_RATE_LIMIT_PER_MINUTE: '10000',
     },
   });
   // Generous: on two cores busy with other test files the API can take half a minute to boot.
