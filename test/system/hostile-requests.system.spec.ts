@@ -94,6 +94,7 @@ describe('the built API under hostile images and a burst of drawings', () => {
       UPLOADS_DIR,
       SIGN_IN_LIMIT_PER_ADDRESS_PER_MINUTE: '100000',
       SIGN_IN_LIMIT_PER_ACCOUNT: '100000',
+      SIGN_IN_LIMIT_PER_ACCOUNT_GLOBAL: '100000',
       // Eight hostile files from one user at once: each must meet its image limit, not the per-user cap.
       UPLOAD_MAX_CONCURRENT_PER_USER: '10',
     });
