@@ -5,7 +5,7 @@ import { zoom, zoomIdentity, type ZoomBehavior, type ZoomTransform } from 'd3-zo
 import { useCallback, useEffect, useId, useLayoutEffect, useRef, useState } from 'react';
 import type { SiteMap } from '@domain/locate/site-map.schema';
 
-import { FEATURE_FILL, FEATURE_LABEL, FEATURE_STROKE, PAPER, REFERENCE_INK, RUN_STROKES, scaleDash, type LegendKey, type RunStyleKey } from '@drawings/marking-palette';
+import { FEATURE_FILL, FEATURE_LABEL, FEATURE_STROKE, INK, PAPER, REFERENCE_INK, RUN_STROKES, scaleDash, type LegendKey, type RunStyleKey } from '@drawings/marking-palette';
 
 import { MarkingLegend } from '../../../components/marking-legend';
 import { formatLength, type LengthSystem } from '../../../lib/units';
@@ -449,7 +449,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
                   fontWeight={label.fontWeight}
                   fontStyle={isFeature ? 'italic' : undefined}
                   textAnchor={label.textAnchor}
-                  fill={isFeature ? FEATURE_LABEL : isRef ? REFERENCE_INK : '#1b1b1b'}
+                  fill={isFeature ? FEATURE_LABEL : isRef ? REFERENCE_INK : INK}
                   stroke={PAPER}
                   strokeWidth={3}
                   paintOrder="stroke"
@@ -461,9 +461,9 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
           </g>
           <g data-layer="scale-bar" transform={`translate(14, ${size.height - 20})`} pointerEvents="none">
             <rect x={-8} y={-24} width={bar.pixels + 16} height={36} rx={4} fill="rgba(255,255,255,0.9)" />
-            <rect x={0} y={0} width={bar.pixels / 2} height={6} fill="#1b1b1b" />
-            <rect x={bar.pixels / 2} y={0} width={bar.pixels / 2} height={6} fill={PAPER} stroke="#1b1b1b" strokeWidth={1} />
-            <text x={0} y={-8} fontSize={13} fill="#1b1b1b" data-testid="scale-bar-label">
+            <rect x={0} y={0} width={bar.pixels / 2} height={6} fill={INK} />
+            <rect x={bar.pixels / 2} y={0} width={bar.pixels / 2} height={6} fill={PAPER} stroke={INK} strokeWidth={1} />
+            <text x={0} y={-8} fontSize={13} fill={INK} data-testid="scale-bar-label">
               {bar.label}
             </text>
           </g>
@@ -471,8 +471,8 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
             <circle r={26} fill="rgba(255,255,255,0.9)" stroke="#8a8886" strokeWidth={1} />
             {/* Plan +y points at bearing `northAzimuthDeg`: true north is that many degrees anticlockwise of up. */}
             <g transform={`rotate(${-map.frame.northAzimuthDeg})`} data-testid="north-arrow">
-              <polygon points="0,-20 7,8 0,3 -7,8" fill="#1b1b1b" />
-              <text textAnchor="middle" y={19} fontSize={12} fontWeight={700} fill="#1b1b1b">
+              <polygon points="0,-20 7,8 0,3 -7,8" fill={INK} />
+              <text textAnchor="middle" y={19} fontSize={12} fontWeight={700} fill={INK}>
                 N
               </text>
             </g>

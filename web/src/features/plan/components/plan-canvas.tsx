@@ -5,7 +5,7 @@ import { zoom, zoomIdentity, type ZoomBehavior, type ZoomTransform } from 'd3-zo
 import { useCallback, useEffect, useLayoutEffect, useRef, useState, type MouseEvent as ReactMouseEvent, type PointerEvent as ReactPointerEvent, type ReactNode } from 'react';
 import type { PlanPoint } from '@domain/as-built/common.schema';
 import type { ItemKind } from '@domain/as-built/item.schema';
-import { FEATURE_FILL, FEATURE_LABEL, FEATURE_STROKE, LEADER_INK, REFERENCE_INK } from '@drawings/marking-palette';
+import { FEATURE_FILL, FEATURE_LABEL, FEATURE_STROKE, LEADER_INK, PAPER, REFERENCE_INK, WARNING_INK } from '@drawings/marking-palette';
 
 import { layoutLabels, type PlacedLabel } from '../utils/label-layout';
 import { imagePlanBox, normalizeDegrees, scaleBarFor, type ImagePlacement } from '../utils/plan-geometry';
@@ -440,7 +440,7 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
             >
               <circle cx={sx(item.x)} cy={sy(item.y)} r={HIT_RADIUS_PX} fill="transparent" />
               <ItemSymbol kind={item.kind} x={sx(item.x)} y={sy(item.y)} isSelected={item.isSelected} />
-              {item.hasFinding && <circle cx={sx(item.x) + 11} cy={sy(item.y) - 11} r={5} fill="#d13438" stroke="#fff" strokeWidth={1.5} />}
+              {item.hasFinding && <circle cx={sx(item.x) + 11} cy={sy(item.y) - 11} r={5} fill={WARNING_INK} stroke={PAPER} strokeWidth={1.5} />}
               {model.showLabels && (
                 <text {...labels.get(`item:${item.id}`)} fontSize={12} fontWeight={600} fill="#1b1b1b" stroke="#fff" strokeWidth={3} paintOrder="stroke">
                   {item.label}
@@ -460,8 +460,8 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
                 const y = sy((mid.y + next.y) / 2);
                 return (
                   <g key={run.id} data-badge-for={run.id}>
-                    <rect x={x - 4} y={y - 22} width={run.badge!.length * 6.6 + 12} height={20} rx={10} fill="#fde7e9" stroke="#d13438" />
-                    <text x={x + 2} y={y - 8} fontSize={11} fill="#a4262c">
+                    <rect x={x - 4} y={y - 22} width={run.badge!.length * 6.6 + 12} height={20} rx={10} fill={PAPER} stroke={WARNING_INK} />
+                    <text x={x + 2} y={y - 8} fontSize={11} fill={WARNING_INK}>
                       {run.badge}
                     </text>
                   </g>
