@@ -1,5 +1,5 @@
 import type { QueryClient } from '@tanstack/react-query';
-import { redirect } from 'react-router';
+import { Navigate, redirect } from 'react-router';
 
 import { RouteErrorPage } from '../../../components/errors/route-error-page';
 import { paths } from '../../../config/paths';
@@ -34,6 +34,9 @@ export const clientLoader = (queryClient: QueryClient) => async () => {
 export default function HomeRoute() {
   const user = useSessionUser();
   if (!user) return null;
+  // The loader may run before the session is known (a reload): send a homeowner on here too, before any
+  // staff list is asked for.
+  if (user.role === 'homeowner') return <Navigate to={paths.portal.getHref()} replace />;
   if (user.role === 'admin' || user.role === 'office') return <WorkQueue role={user.role} />;
   return <Today role={user.role} />;
 }
