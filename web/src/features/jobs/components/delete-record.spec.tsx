@@ -79,7 +79,7 @@ describe('Deleting records in the job workspace', () => {
 
     await waitFor(() => expect(requests).toHaveLength(1));
     expect(await dialog.findByText(/This item is still in use/)).toBeInTheDocument();
-    expect(screen.getByRole('listitem', { name: 'Patio satellite' })).toBeInTheDocument();
+    expect(screen.getByRole('listitem', { name: 'Patio satellite', hidden: true })).toBeInTheDocument();
     await user.click(dialog.getByRole('button', { name: 'Cancel', hidden: true }));
     await waitFor(() => expect(screen.queryByText('Delete the speaker “Patio satellite”?')).not.toBeInTheDocument());
   }, 30_000);
