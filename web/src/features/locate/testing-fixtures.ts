@@ -85,6 +85,7 @@ export function buildLocateView(token = 'tok'): LocateViewResponse {
       },
     ],
     geojsonUrl: `${base}/map.geojson`,
+    sheetUrl: `${base}/sheet.pdf`,
     link: { expiresAt: '2026-12-31T00:00:00.000Z', note: 'For the fence crew' },
     generatedAt: '2026-06-01T00:00:00.000Z',
   };

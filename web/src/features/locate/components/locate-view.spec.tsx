@@ -70,6 +70,43 @@ describe('Locate view', () => {
     // No GPS origin: the KML button is there, disabled, and says why.
     expect(screen.getByRole('button', { name: 'Download KML' })).toBeDisabled();
     expect(screen.getByText(/No KML or GeoJSON: this site has no GPS origin/)).toBeInTheDocument();
+    // … and no "Show my position", with the reason on one line; the locate sheet is there either way.
+    expect(screen.queryByRole('button', { name: 'Show my position' })).not.toBeInTheDocument();
+    expect(screen.getByTestId('no-position-reason')).toHaveTextContent(/this site has no GPS origin/);
+    expect(screen.getByRole('link', { name: /Print locate sheet/ })).toHaveAttribute('href', '/api/locate/tok/sheet.pdf');
+  }, 60_000);
+
+  it('should draw the phone’s position with its accuracy when the site has an origin, and explain a refusal', async () => {
+    const view = buildLocateView('tok');
+    view.map.frame = { northAzimuthDeg: 0, origin: { lat: 40, lon: -105 } };
+    mockApi({ 'GET /api/locate/tok': () => jsonResponse(view) });
+    type Watch = (ok: PositionCallback, fail: PositionErrorCallback, options: PositionOptions) => number;
+    const watchPosition = vi.fn<Watch>((ok) => {
+      // About 1.1 m north and 0.85 m east of the origin (0.00001° of latitude ≈ 1.11 m there).
+      ok({ coords: { latitude: 40.00001, longitude: -104.99999, accuracy: 4 } } as GeolocationPosition);
+      return 7;
+    });
+    const clearWatch = vi.fn();
+    Object.defineProperty(navigator, 'geolocation', { value: { watchPosition, clearWatch }, configurable: true });
+    const { user } = renderApp({ url: '/locate/tok', signedInAs: null });
+    await user.click(await screen.findByRole('button', { name: 'Show my position' }, { timeout: 15_000 }));
+    expect(watchPosition.mock.calls[0]![2]).toMatchObject({ enableHighAccuracy: true });
+    const map = screen.getByRole('img', { name: /Site plan/ });
+    expect(map.querySelector('[data-role="my-position"] [data-role="dot"]')).not.toBeNull();
+    expect(screen.getByText('Your phone puts you within about 13 ft 1 in of the black dot.')).toBeInTheDocument();
+    expect(screen.getByText(/never in place of the taped ties/)).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Hide my position' }));
+    expect(clearWatch).toHaveBeenCalledWith(7);
+    expect(map.querySelector('[data-role="my-position"]')).toBeNull();
+
+    watchPosition.mockImplementation((_ok, fail) => {
+      fail({ code: 1, message: 'denied', PERMISSION_DENIED: 1, POSITION_UNAVAILABLE: 2, TIMEOUT: 3 } as GeolocationPositionError);
+      return 8;
+    });
+    await user.click(screen.getByRole('button', { name: 'Show my position' }));
+    expect(screen.getByText(/Location permission was refused/)).toBeInTheDocument();
+    expect(map.querySelector('[data-role="my-position"]')).toBeNull();
+    Object.defineProperty(navigator, 'geolocation', { value: undefined, configurable: true });
   }, 60_000);
 
   it('should share the link with the share sheet, and copy it where there is none', async () => {

@@ -1,5 +1,5 @@
 import { Button, makeStyles, Switch, Text, tokens } from '@fluentui/react-components';
-import { ArrowDownload20Regular, Share20Regular, Warning24Filled } from '@fluentui/react-icons';
+import { ArrowDownload20Regular, Location20Regular, Print20Regular, Share20Regular, Warning24Filled } from '@fluentui/react-icons';
 import { useMemo, useState } from 'react';
 import { useLocation } from 'react-router';
 
@@ -8,6 +8,7 @@ import { formatDate } from '../../../lib/format-date';
 import { formatLength } from '../../../lib/units';
 import type { LocateViewResponse } from '../api/get-locate-view';
 
+import { useMyPosition } from '../hooks/use-my-position';
 import { geoJsonToKml, kmlFileName } from '../utils/kml';
 
 import { depthLabel, SiteMapPlan } from './site-map-plan';
@@ -68,6 +69,8 @@ const useStyles = makeStyles({
   mapLayout: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL, [WIDE]: { flexDirection: 'row', alignItems: 'flex-start' } },
   mapMain: { flexGrow: 1, minWidth: 0 },
   mapSide: { [WIDE]: { flexBasis: '16rem', flexShrink: 0 } },
+  positionBox: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXS, alignItems: 'flex-start' },
+  tallButton: { minHeight: '44px' },
   shallowNote: { display: 'flex', alignItems: 'center', gap: tokens.spacingHorizontalXS, fontWeight: tokens.fontWeightSemibold },
   shallowRun: { borderLeftWidth: '6px', borderLeftStyle: 'solid', borderLeftColor: tokens.colorNeutralForeground1 },
   measureFrom: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS, margin: 0 },
@@ -254,6 +257,42 @@ function MeasureFrom({ view }: { view: LocateViewResponse }) {
   );
 }
 
+/**
+ * "Show my position": only when the site has a GPS origin (else one line saying why). The phone's fix is
+ * drawn on the map by the caller; this says plainly what it is worth.
+ */
+function MyPositionControl({ view, position }: { view: LocateViewResponse; position: ReturnType<typeof useMyPosition> }) {
+  const styles = useStyles();
+  if (!view.map.frame.origin) {
+    return (
+      <Text size={200} className={styles.muted} data-testid="no-position-reason">
+        No “Show my position”: this site has no GPS origin, so a phone position cannot be placed on its plan.
+      </Text>
+    );
+  }
+  const { state, toggle } = position;
+  const on = state.status === 'on' || state.status === 'waiting';
+  return (
+    <div className={styles.positionBox}>
+      <Button icon={<Location20Regular />} className={styles.tallButton} aria-pressed={on} onClick={toggle}>
+        {on ? 'Hide my position' : 'Show my position'}
+      </Button>
+      <Text size={200} role="status" aria-live="polite">
+        {state.status === 'waiting'
+          ? 'Finding your position…'
+          : state.status === 'on'
+            ? `Your phone puts you within about ${formatLength(state.position.accuracyM, view.units, 'long')} of the black dot.`
+            : state.status === 'error'
+              ? state.message
+              : ''}
+      </Text>
+      <Text size={200} className={styles.muted}>
+        Phone positions are good to several metres at best: use the dot to find your way around the yard, never in place of the taped ties.
+      </Text>
+    </div>
+  );
+}
+
 /** The contractor's view of a site: cautions first, then who installed it, the map and the runs. */
 export function LocateView({ view }: { view: LocateViewResponse }) {
   const styles = useStyles();
@@ -263,6 +302,7 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
   const runs = useMemo(() => runsShallowFirst(view.runs), [view.runs]);
   const shallowRunIds = useMemo(() => new Set(view.runs.filter((r) => r.isShallow).map((r) => r.id)), [view.runs]);
   const hasTies = view.map.items.some((item) => item.position !== null && item.ties.length > 0);
+  const position = useMyPosition(view.map.frame);
 
   const selectFromMap = (runId: string) => {
     setSelectedRunId(runId);
@@ -293,6 +333,7 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
         <Text as="h2" id="locate-map" size={500} weight="semibold" className={styles.heading}>
           Map of buried cables
         </Text>
+        <MyPositionControl view={view} position={position} />
         {hasTies ? (
           <Switch checked={showTies} onChange={(_, data) => setShowTies(data.checked)} label="Show taped ties on the map" />
         ) : (
@@ -300,7 +341,15 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
         )}
         <div className={styles.mapLayout}>
           <div className={styles.mapMain}>
-            <SiteMapPlan map={view.map} units={view.units} selectedRunId={selectedRunId} onSelectRun={selectFromMap} shallowRunIds={shallowRunIds} showTies={showTies} />
+            <SiteMapPlan
+              map={view.map}
+              units={view.units}
+              selectedRunId={selectedRunId}
+              onSelectRun={selectFromMap}
+              shallowRunIds={shallowRunIds}
+              showTies={showTies}
+              myPosition={position.state.status === 'on' ? position.state.position : undefined}
+            />
           </div>
           {hasTies && (
             <div className={styles.mapSide}>
@@ -308,6 +357,10 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
             </div>
           )}
         </div>
+        <a href={view.sheetUrl} target="_blank" rel="noopener" className={styles.secondaryLink}>
+          <Print20Regular aria-hidden="true" />
+          Print locate sheet (PDF, one page)
+        </a>
         {view.geojsonUrl && (
           <a href={view.geojsonUrl} download className={styles.secondaryLink}>
             <ArrowDownload20Regular aria-hidden="true" />

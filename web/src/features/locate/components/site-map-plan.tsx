@@ -11,6 +11,7 @@ import { MarkingLegend } from '../../../components/marking-legend';
 import { formatLength, type LengthSystem } from '../../../lib/units';
 import { scaleBarFor } from '../../plan/utils/plan-geometry';
 import { placeMapLabels, type Box, type MapLabelRequest } from '../utils/map-labels';
+import type { PlanPosition } from '../utils/my-position';
 
 /** Screen pixels per print point for run strokes (as the plan editor). */
 const SCREEN_SCALE = 1.9;
@@ -91,6 +92,8 @@ type SiteMapPlanProps = {
   shallowRunIds?: ReadonlySet<string>;
   /** Draws the taped ties from the reference points to every tied item. */
   showTies?: boolean;
+  /** The viewer's phone position on the plan, drawn as a dot in its accuracy circle. */
+  myPosition?: PlanPosition;
 };
 
 /** The min depth as the label of a run on the map. */
@@ -156,7 +159,7 @@ function reservedBoxes(size: { width: number; height: number }): Box[] {
  * scale bar in the viewer's units follows the zoom; a north arrow; labels of at least 12 px placed
  * where they fit, the least important left out when there is no room.
  */
-export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRunIds, showTies = false }: SiteMapPlanProps) {
+export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRunIds, showTies = false, myPosition }: SiteMapPlanProps) {
   const styles = useStyles();
   const titleId = useId();
   const svgRef = useRef<SVGSVGElement>(null);
@@ -292,6 +295,10 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
   if (selectedRun && shallowest) {
     const p = { x: sx(shallowest.point.x), y: sy(shallowest.point.y) };
     requests.push({ id: 'shallowest', text: `shallowest ${formatLength(shallowest.depthM, units, 'short')}`, fontSize: LABEL_PX, fontWeight: 'bold', priority: 1, spots: around(p, 14, LABEL_PX) });
+  }
+  if (myPosition) {
+    const p = { x: sx(myPosition.x), y: sy(myPosition.y) };
+    requests.push({ id: 'me', text: `You (± ${formatLength(myPosition.accuracyM, units, 'long')})`, fontSize: LABEL_PX, fontWeight: 'bold', priority: 1, spots: around(p, 14, LABEL_PX) });
   }
   for (const tie of ties) {
     const mid = { x: (sx(tie.from.x) + sx(tie.to.x)) / 2, y: (sy(tie.from.y) + sy(tie.to.y)) / 2 };
@@ -433,6 +440,13 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
                 stroke={REFERENCE_INK}
                 strokeWidth={2.5}
               />
+            </g>
+          )}
+          {myPosition && (
+            <g data-role="my-position" aria-label={`Your position, good to about ${formatLength(myPosition.accuracyM, units, 'long')}`} pointerEvents="none">
+              {/* Black and grey only: every colour of the marking code means a utility. */}
+              <circle cx={sx(myPosition.x)} cy={sy(myPosition.y)} r={Math.max(myPosition.accuracyM * transform.k, 8)} fill="rgba(0,0,0,0.08)" stroke={INK} strokeWidth={1} strokeDasharray="3 3" data-role="accuracy" />
+              <circle cx={sx(myPosition.x)} cy={sy(myPosition.y)} r={7} fill={INK} stroke={PAPER} strokeWidth={3} data-role="dot" />
             </g>
           )}
           <g data-layer="labels" pointerEvents="none">
