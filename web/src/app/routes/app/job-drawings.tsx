@@ -5,7 +5,7 @@ import { STAFF_ROLES } from '@domain/auth/roles';
 import { RouteErrorPage } from '../../../components/errors/route-error-page';
 import { requireRole } from '../../../features/auth/utils/require-user';
 import { JobDrawings } from '../../../features/drawings/components/job-drawings';
-import { getJobAsBuiltQueryOptions, useJobAsBuilt } from '../../../features/jobs/api/get-job-as-built';
+import { getJobAsBuiltQueryOptions, useJobAsBuilt } from '../../../features/job-record/api/get-job-as-built';
 
 export const clientLoader =
   (queryClient: QueryClient) =>

@@ -4,7 +4,7 @@ import { STAFF_ROLES } from '@domain/auth/roles';
 
 import { RouteErrorPage } from '../../../components/errors/route-error-page';
 import { requireRole } from '../../../features/auth/utils/require-user';
-import { getJobAsBuiltQueryOptions, useJobAsBuilt } from '../../../features/jobs/api/get-job-as-built';
+import { getJobAsBuiltQueryOptions, useJobAsBuilt } from '../../../features/job-record/api/get-job-as-built';
 import { JobWriterProvider } from '../../../features/jobs/hooks/job-writer';
 import { PlanEditor } from '../../../features/plan/components/plan-editor';
 import { getSiteQueryOptions, useSite } from '../../../features/sites/api/get-site';

@@ -4,7 +4,7 @@ import { STAFF_ROLES } from '@domain/auth/roles';
 
 import { RouteErrorPage } from '../../../components/errors/route-error-page';
 import { requireRole } from '../../../features/auth/utils/require-user';
-import { getJobAsBuiltQueryOptions, useJobAsBuilt } from '../../../features/jobs/api/get-job-as-built';
+import { getJobAsBuiltQueryOptions, useJobAsBuilt } from '../../../features/job-record/api/get-job-as-built';
 import { JobWorkspace } from '../../../features/jobs/components/job-workspace';
 import { JobWriterProvider } from '../../../features/jobs/hooks/job-writer';
 import { useSessionUser } from '../../../lib/session';

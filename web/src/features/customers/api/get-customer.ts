@@ -2,7 +2,7 @@ import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
 import type { CustomerResponse } from '@domain/customers/customer.schema';
 
 import { apiRequest } from '../../../lib/api-client';
-import { responseOf } from '../../jobs/api/response';
+import { responseOf } from '../../../lib/response';
 
 export function getCustomer(customerId: string, { signal }: { signal?: AbortSignal } = {}): Promise<CustomerResponse> {
   return apiRequest(`/api/customers/${encodeURIComponent(customerId)}`, responseOf<CustomerResponse>(), { signal });

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateCustomerInput, CustomerResponse, UpdateCustomerInput } from '@domain/customers/customer.schema';
 
 import { apiRequest } from '../../../lib/api-client';
-import { responseOf } from '../../jobs/api/response';
+import { responseOf } from '../../../lib/response';
 
 /** Creates a customer (no `id`) or changes one. */
 export function saveCustomer({ id, input }: { id?: string; input: CreateCustomerInput | UpdateCustomerInput }): Promise<CustomerResponse> {

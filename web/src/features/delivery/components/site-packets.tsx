@@ -3,7 +3,7 @@ import { Link } from 'react-router';
 
 import { paths } from '../../../config/paths';
 import { describeRequestError } from '../../../lib/form-errors';
-import { useJobPackets } from '../../jobs/api/get-job-packets';
+import { useJobPackets } from '../api/get-job-packets';
 import { JobDeliveries } from './job-deliveries';
 import { SendPacketDialog } from './send-packet-dialog';
 

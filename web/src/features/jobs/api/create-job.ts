@@ -3,7 +3,7 @@ import type { CreateJobInput, JobResponse } from '@domain/jobs/job.schema';
 
 import { apiRequest } from '../../../lib/api-client';
 
-import { responseOf } from './response';
+import { responseOf } from '../../../lib/response';
 
 export function createJob(input: CreateJobInput): Promise<JobResponse> {
   return apiRequest('/api/jobs', responseOf<JobResponse>(), { method: 'POST', body: input });

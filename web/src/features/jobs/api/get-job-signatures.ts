@@ -3,7 +3,7 @@ import type { JobSignatureResponse } from '@domain/packet/signature.schema';
 
 import { apiRequest } from '../../../lib/api-client';
 
-import { responseOf } from './response';
+import { responseOf } from '../../../lib/response';
 
 export type { JobSignatureResponse };
 

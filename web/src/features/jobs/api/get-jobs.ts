@@ -4,7 +4,7 @@ import type { JobStatus } from '@domain/jobs/job-rules';
 
 import { apiRequest } from '../../../lib/api-client';
 
-import { responseOf } from './response';
+import { responseOf } from '../../../lib/response';
 
 export type { JobListResponse, JobSummaryResponse };
 

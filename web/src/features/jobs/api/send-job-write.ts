@@ -1,6 +1,6 @@
 import { apiRequest } from '../../../lib/api-client';
 
-import { responseOf } from './response';
+import { responseOf } from '../../../lib/response';
 
 /**
  * One change to a job or its records, in a form that can wait in localStorage while there is no

@@ -7,12 +7,12 @@ import { ChannelSetupSchema, type ChannelSetup } from '@domain/jobs/job-record.s
 
 import { useNotify } from '../../../components/notify';
 import { useDraftForm } from '../../../lib/drafts';
-import type { JobAsBuiltResponse } from '../api/get-job-as-built';
+import type { JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
 import { useJobWriter } from '../hooks/job-writer';
 import { saveErrors } from '../utils/save-errors';
 
-import { useCardStyles } from './card-styles';
-import { useFormStyles } from './form-styles';
+import { useCardStyles } from '../../../components/card-styles';
+import { useFormStyles } from '../../../components/form-styles';
 
 type SetupDraft = Record<'source' | 'gain' | 'volumeLimit' | 'eq' | 'crossover' | 'firmware' | 'networkName' | 'notes', string> & {
   polarity: '' | 'normal' | 'inverted';

@@ -9,15 +9,15 @@ import { CheckInputSchema, type CheckInput } from '@domain/jobs/job-record.schem
 import { useNotify } from '../../../components/notify';
 import { useDraftForm } from '../../../lib/drafts';
 import { toSentence } from '../../../lib/form-errors';
-import type { JobAsBuiltResponse } from '../api/get-job-as-built';
+import type { JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
 import { useJobWriter } from '../hooks/job-writer';
 import { checkDeleteRequest } from '../utils/delete-requests';
 import { fieldDomId } from '../utils/finding-target';
 import { saveErrors } from '../utils/save-errors';
 
-import { useCardStyles } from './card-styles';
+import { useCardStyles } from '../../../components/card-styles';
 import { useDeleteRecord } from './delete-record';
-import { useFormStyles } from './form-styles';
+import { useFormStyles } from '../../../components/form-styles';
 
 /** The check as typed: the channel as "amplifier|channel", numbers as text. */
 type CheckDraft = {

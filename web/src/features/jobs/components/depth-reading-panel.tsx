@@ -24,7 +24,7 @@ import { fieldDomId } from '../utils/finding-target';
 import { saveErrors } from '../utils/save-errors';
 
 import { useDeleteRecord } from './delete-record';
-import { useFormStyles } from './form-styles';
+import { useFormStyles } from '../../../components/form-styles';
 import { LengthInput, readLength } from './length-input';
 
 const useStyles = makeStyles({

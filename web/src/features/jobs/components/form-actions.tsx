@@ -1,6 +1,6 @@
 import { Button, Spinner } from '@fluentui/react-components';
 
-import { useFormStyles } from './form-styles';
+import { useFormStyles } from '../../../components/form-styles';
 
 type FormActionsProps = {
   submitLabel: string;

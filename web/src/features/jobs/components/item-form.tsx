@@ -15,11 +15,11 @@ import { lengthInputValue, parseLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 import { useJobWriter } from '../hooks/job-writer';
 import { fieldDomId } from '../utils/finding-target';
-import { ITEM_KIND_LABELS } from '../utils/record-labels';
+import { ITEM_KIND_LABELS } from '../../job-record/utils/record-labels';
 import { saveErrors } from '../utils/save-errors';
 
 import { FormActions } from './form-actions';
-import { useFormStyles } from './form-styles';
+import { useFormStyles } from '../../../components/form-styles';
 import { LengthInput } from './length-input';
 import { TiesEditor, type TieDraft } from './ties-editor';
 

@@ -7,14 +7,14 @@ import { formatLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 import { PhotoStrip } from '../../photos/components/photo-strip';
 import { usePhotoActions } from '../../photos/hooks/photo-actions';
-import type { JobAsBuiltResponse } from '../api/get-job-as-built';
+import type { JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
 import { useWorkspaceFocus } from '../hooks/workspace-focus';
 import { itemDeleteRequest } from '../utils/delete-requests';
-import { ITEM_KIND_LABELS } from '../utils/record-labels';
+import { ITEM_KIND_LABELS } from '../../job-record/utils/record-labels';
 
-import { useCardStyles } from './card-styles';
+import { useCardStyles } from '../../../components/card-styles';
 import { useDeleteRecord } from './delete-record';
-import { useFormStyles } from './form-styles';
+import { useFormStyles } from '../../../components/form-styles';
 import { ItemForm } from './item-form';
 
 const EQUIPMENT_KINDS: readonly ItemKind[] = ['speaker', 'subwoofer', 'amplifier', 'junction', 'spare_end'];

@@ -10,7 +10,7 @@ import { useMediaQuery } from '../../../lib/use-media-query';
 import { PhotosProvider } from '../../photos/components/photos-provider';
 import { useJobPhotos } from '../../photos/api/get-job-photos';
 import { PhotosSection } from '../../photos/components/photos-section';
-import type { JobAsBuiltResponse } from '../api/get-job-as-built';
+import type { JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
 import { WorkspaceFocusContext } from '../hooks/workspace-focus';
 import { fieldDomId, SECTION_LABELS, SECTIONS, type FieldTarget, type SectionId } from '../utils/finding-target';
 import { jobPermissions } from '../utils/job-permissions';

@@ -6,12 +6,12 @@ import { JobDetailsSchema } from '@domain/jobs/job.schema';
 
 import { useNotify } from '../../../components/notify';
 import { useDraftForm } from '../../../lib/drafts';
-import type { JobAsBuiltResponse } from '../api/get-job-as-built';
+import type { JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
 import { useJobWriter } from '../hooks/job-writer';
 import { saveErrors } from '../utils/save-errors';
 
-import { useCardStyles } from './card-styles';
-import { useFormStyles } from './form-styles';
+import { useCardStyles } from '../../../components/card-styles';
+import { useFormStyles } from '../../../components/form-styles';
 
 /** The notes as typed; blank means "no notes" (null), as the job's schema has it. */
 const NotesFormSchema = z

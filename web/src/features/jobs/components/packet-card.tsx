@@ -11,9 +11,9 @@ import { useSessionUser } from '../../../lib/session';
 import { JobDeliveries } from '../../delivery/components/job-deliveries';
 import { SendPacketDialog } from '../../delivery/components/send-packet-dialog';
 import { useDownloadPacketFile } from '../api/get-packet-file';
-import { isPacketInProgress, useJobPackets, type PacketRevision, type PacketStatus } from '../api/get-job-packets';
+import { isPacketInProgress, useJobPackets, type PacketRevision, type PacketStatus } from '../../delivery/api/get-job-packets';
 
-import { useCardStyles } from './card-styles';
+import { useCardStyles } from '../../../components/card-styles';
 
 const useStyles = makeStyles({
   row: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS, paddingBlock: tokens.spacingVerticalS },

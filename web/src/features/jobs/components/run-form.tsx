@@ -22,11 +22,11 @@ import { gaugeInputValue, lengthInputValue, parseGauge, type UnitPreferences } f
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 import { useJobWriter } from '../hooks/job-writer';
 import { fieldDomId } from '../utils/finding-target';
-import { ITEM_KIND_LABELS, LOCATION_LABELS, METHOD_LABELS } from '../utils/record-labels';
+import { ITEM_KIND_LABELS, LOCATION_LABELS, METHOD_LABELS } from '../../job-record/utils/record-labels';
 import { saveErrors } from '../utils/save-errors';
 
 import { FormActions } from './form-actions';
-import { useFormStyles } from './form-styles';
+import { useFormStyles } from '../../../components/form-styles';
 import { LengthInput, readLength } from './length-input';
 
 type RunDraft = {

@@ -8,15 +8,15 @@ import { formatLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 import { PhotoStrip } from '../../photos/components/photo-strip';
 import { usePhotoActions } from '../../photos/hooks/photo-actions';
-import type { JobAsBuiltResponse } from '../api/get-job-as-built';
+import type { JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
 import { useWorkspaceFocus } from '../hooks/workspace-focus';
 import { runDeleteRequest } from '../utils/delete-requests';
-import { METHOD_LABELS } from '../utils/record-labels';
+import { METHOD_LABELS } from '../../job-record/utils/record-labels';
 
-import { useCardStyles } from './card-styles';
+import { useCardStyles } from '../../../components/card-styles';
 import { useDeleteRecord } from './delete-record';
 import { DepthReadingPanel } from './depth-reading-panel';
-import { useFormStyles } from './form-styles';
+import { useFormStyles } from '../../../components/form-styles';
 import { RunForm } from './run-form';
 
 type Mode = { runId: string; view: 'edit' | 'depth'; field?: string; readingIndex?: number } | { runId: 'new'; view: 'edit'; field?: undefined; readingIndex?: undefined };

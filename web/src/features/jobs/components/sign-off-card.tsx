@@ -8,7 +8,7 @@ import { describeRequestError } from '../../../lib/form-errors';
 import { getJobSignaturesQueryOptions, useJobSignatures, type JobSignatureResponse } from '../api/get-job-signatures';
 import { useJobWriter } from '../hooks/job-writer';
 
-import { useCardStyles } from './card-styles';
+import { useCardStyles } from '../../../components/card-styles';
 
 /** The box the packet prints signatures in (SVG user units). */
 const BOX = { width: 400, height: 120 };

@@ -7,7 +7,7 @@ import { formatLength, parseLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 import { fieldDomId } from '../utils/finding-target';
 
-import { useFormStyles } from './form-styles';
+import { useFormStyles } from '../../../components/form-styles';
 import { LengthInput } from './length-input';
 
 const useStyles = makeStyles({

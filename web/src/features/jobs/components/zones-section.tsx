@@ -7,15 +7,15 @@ import { ZoneInputSchema } from '@domain/jobs/job-record.schema';
 
 import { useDraftForm } from '../../../lib/drafts';
 import { toSentence } from '../../../lib/form-errors';
-import type { JobAsBuiltResponse } from '../api/get-job-as-built';
+import type { JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
 import { useJobWriter } from '../hooks/job-writer';
 import { zoneDeleteRequest } from '../utils/delete-requests';
 import { fieldDomId } from '../utils/finding-target';
 import { saveErrors } from '../utils/save-errors';
 
-import { useCardStyles } from './card-styles';
+import { useCardStyles } from '../../../components/card-styles';
 import { useDeleteRecord } from './delete-record';
-import { useFormStyles } from './form-styles';
+import { useFormStyles } from '../../../components/form-styles';
 
 /** A blank name is the usual mistake: say what to do; everything else is the shared schema's rule. */
 const ZoneFormSchema = z.object({ name: z.string().trim().min(1, { error: 'Enter a name.' }) }).pipe(ZoneInputSchema);

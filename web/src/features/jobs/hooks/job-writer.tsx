@@ -26,7 +26,7 @@ import { useNotify } from '../../../components/notify';
 import { isApiError } from '../../../lib/api-client';
 import { clearDraft } from '../../../lib/drafts';
 import { describeRequestError } from '../../../lib/form-errors';
-import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../api/get-job-as-built';
+import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
 import { sendJobWrite, versionAfter, type JobWrite } from '../api/send-job-write';
 import {
   enqueuePendingWrite,

@@ -2,8 +2,8 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { PhotoResponse, PhotoTarget } from '@domain/photos/photo.schema';
 
 import { apiRequest, isApiError } from '../../../lib/api-client';
-import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../../jobs/api/get-job-as-built';
-import { responseOf } from '../../jobs/api/response';
+import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
+import { responseOf } from '../../../lib/response';
 
 import { getJobPhotosQueryOptions } from './get-job-photos';
 import { getJobVersion } from './get-job-version';

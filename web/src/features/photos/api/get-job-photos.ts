@@ -2,7 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { PhotoListResponse, PhotoResponse } from '@domain/photos/photo.schema';
 
 import { apiRequest } from '../../../lib/api-client';
-import { responseOf } from '../../jobs/api/response';
+import { responseOf } from '../../../lib/response';
 
 export type { PhotoResponse };
 

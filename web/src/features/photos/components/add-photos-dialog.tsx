@@ -16,7 +16,7 @@ import { Camera24Regular, ImageMultiple24Regular } from '@fluentui/react-icons';
 import { useEffect, useRef, useState, type ChangeEvent } from 'react';
 import type { PhotoTarget } from '@domain/photos/photo.schema';
 
-import { useFormStyles } from '../../jobs/components/form-styles';
+import { useFormStyles } from '../../../components/form-styles';
 import { getUploadQueue } from '../hooks/use-upload-queue';
 import type { TargetOption } from '../utils/photo-targets';
 

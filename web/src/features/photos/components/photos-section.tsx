@@ -2,8 +2,8 @@ import { Button, makeStyles, mergeClasses, Spinner, Text, tokens } from '@fluent
 import { Camera24Regular } from '@fluentui/react-icons';
 import { useMemo } from 'react';
 
-import { useCardStyles } from '../../jobs/components/card-styles';
-import { useFormStyles } from '../../jobs/components/form-styles';
+import { useCardStyles } from '../../../components/card-styles';
+import { useFormStyles } from '../../../components/form-styles';
 import { usePhotoActions } from '../hooks/photo-actions';
 import { getUploadQueue, useJobUploads } from '../hooks/use-upload-queue';
 import { targetKey } from '../utils/photo-targets';

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { PlanImageUploadResponse } from '@domain/sites/site.schema';
 
 import { apiRequest } from '../../../lib/api-client';
-import { responseOf } from '../../jobs/api/response';
+import { responseOf } from '../../../lib/response';
 import { getSiteQueryOptions } from '../../sites/api/get-site';
 import { sendSiteWrite, siteIfMatch, type SiteVersionResponse } from '../../sites/api/site-write';
 

@@ -11,7 +11,7 @@ import { usePersistedDraft } from '../../../lib/drafts';
 import { describeRequestError } from '../../../lib/form-errors';
 import { formatLength, lengthInputValue, parseLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
-import type { JobAsBuiltResponse } from '../../jobs/api/get-job-as-built';
+import type { JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
 import { SaveStateBar } from '../../jobs/components/save-state-bar';
 import { useJobWriter } from '../../jobs/hooks/job-writer';
 import { jobPermissions } from '../../jobs/utils/job-permissions';

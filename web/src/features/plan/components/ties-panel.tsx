@@ -4,7 +4,7 @@ import type { AsBuilt } from '@domain/as-built/as-built.schema';
 import type { TieSolution } from '@domain/geometry/ties';
 
 import { TiesEditor } from '../../jobs/components/ties-editor';
-import { ITEM_KIND_LABELS } from '../../jobs/utils/record-labels';
+import { ITEM_KIND_LABELS } from '../../job-record/utils/record-labels';
 import { tieableItems, type TieDraft } from '../utils/plan-records';
 
 import { usePanelStyles } from './panel-styles';

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateReferencePointInput, ReferencePointResponse } from '@domain/sites/site.schema';
 
 import { apiRequest } from '../../../lib/api-client';
-import { responseOf } from '../../jobs/api/response';
+import { responseOf } from '../../../lib/response';
 
 import { getSiteQueryOptions } from './get-site';
 import { sendSiteWrite, siteIfMatch, type SiteVersionResponse } from './site-write';

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateSiteInput, SiteResponse, UpdateSiteInput } from '@domain/sites/site.schema';
 
 import { apiRequest } from '../../../lib/api-client';
-import { responseOf } from '../../jobs/api/response';
+import { responseOf } from '../../../lib/response';
 
 import { sendSiteWrite, siteIfMatch, type SiteVersionResponse } from './site-write';
 

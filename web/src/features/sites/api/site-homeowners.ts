@@ -4,7 +4,7 @@ import type { InviteHomeownerInput } from '@domain/sites/homeowner-invitation.sc
 import type { SiteResponse } from '@domain/sites/site.schema';
 
 import { apiRequest } from '../../../lib/api-client';
-import { responseOf } from '../../jobs/api/response';
+import { responseOf } from '../../../lib/response';
 import { getInvitationsQueryOptions } from '../../users/api/get-invitations';
 
 import { getSiteQueryOptions } from './get-site';

@@ -2,7 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 
 import { apiRequest } from '../../../lib/api-client';
 
-import { responseOf } from './response';
+import { responseOf } from '../../../lib/response';
 
 export type PacketStatus = 'queued' | 'rendering' | 'ready' | 'failed';
 

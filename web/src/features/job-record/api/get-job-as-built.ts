@@ -3,7 +3,7 @@ import type { JobAsBuiltResponse } from '@domain/jobs/job.schema';
 
 import { apiRequest } from '../../../lib/api-client';
 
-import { responseOf } from './response';
+import { responseOf } from '../../../lib/response';
 
 export type { JobAsBuiltResponse };
 
