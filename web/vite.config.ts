@@ -6,6 +6,7 @@ import { brotliCompress, constants, gzip } from 'node:zlib';
 
 import react from '@vitejs/plugin-react';
 import { defineConfig, type Plugin } from 'vite';
+import { VitePWA } from 'vite-plugin-pwa';
 
 const repoRoot = fileURLToPath(new URL('..', import.meta.url));
 const domain = fileURLToPath(new URL('../api/src/domain', import.meta.url));
@@ -67,8 +68,66 @@ async function listFiles(dir: string): Promise<string[]> {
   return files;
 }
 
+/**
+ * The installable, offline-capable app (issue 17): a web app manifest and a Workbox service worker
+ * (`sw.js`, generated at build time) that precaches every built file the app can ask for — the shell,
+ * every route chunk, the fonts and the icons — so any screen opens with no signal after the first visit.
+ *
+ * - Nothing under `/api/` is cached by the worker: the answers hold people's and companies' contacts
+ *   and are per user. What a crew lead needs offline is kept by the app itself (the TanStack Query
+ *   cache persisted to IndexedDB per user, cleared on sign-out; web/src/lib/query-persistence.ts).
+ * - `registerType: 'prompt'`: a new version installs in the background and waits; the app says
+ *   "A new version is ready" with a Reload button (web/src/components/app-update.tsx) rather than
+ *   swapping code under a half-typed form.
+ * - The worker is registered by our own code (no inline script: the Content-Security-Policy forbids it).
+ */
+const pwa = VitePWA({
+  strategies: 'generateSW',
+  registerType: 'prompt',
+  injectRegister: false,
+  filename: 'sw.js',
+  manifestFilename: 'manifest.webmanifest',
+  includeAssets: ['favicon.svg', 'apple-touch-icon.png'],
+  manifest: {
+    id: '/',
+    name: 'Loamline',
+    short_name: 'Loamline',
+    description: 'As-built records, cable checks and handover packets for low-voltage and outdoor-audio crews.',
+    start_url: '/',
+    scope: '/',
+    display: 'standalone',
+    orientation: 'any',
+    background_color: '#ffffff',
+    theme_color: '#335c1c',
+    icons: [
+      { src: '/icon-192.png', sizes: '192x192', type: 'image/png', purpose: 'any' },
+      { src: '/icon-512.png', sizes: '512x512', type: 'image/png', purpose: 'any' },
+      { src: '/icon-maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+      { src: '/favicon.svg', sizes: 'any', type: 'image/svg+xml', purpose: 'any' },
+    ],
+  },
+  workbox: {
+    // Every file of the build the app can load (the compressed .br/.gz copies are the server's business).
+    globPatterns: ['**/*.{js,css,html,svg,png,woff2,webmanifest}'],
+    // The largest route chunk (the plan editor with elkjs) is above Workbox's 2 MiB default.
+    maximumFileSizeToCacheInBytes: 8 * 1024 * 1024,
+    // A reload of any client-side route with no signal gets the precached shell…
+    navigateFallback: '/index.html',
+    // …but never for the API, nor for the public locate view's own links that the server answers.
+    navigateFallbackDenylist: [/^\/api(\/|$)/],
+    // Nothing at run time: /api answers are never kept by the worker (see above).
+    runtimeCaching: [],
+    cleanupOutdatedCaches: true,
+    // One file: no workbox-<hash>.js beside sw.js for the server to keep fresh.
+    inlineWorkboxRuntime: true,
+    // The hashed file names are the revision already.
+    dontCacheBustURLsMatching: /^assets\//,
+  },
+  devOptions: { enabled: false },
+});
+
 export default defineConfig({
-  plugins: [react(), precompress()],
+  plugins: [react(), pwa, precompress()],
   resolve: {
     alias: { '@domain': domain, '@drawings': drawings },
   },

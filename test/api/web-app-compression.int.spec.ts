@@ -24,6 +24,14 @@ for (const [name, text] of [
   writeFileSync(join(WEB_DIST_DIR, `${name}.br`), brotliCompressSync(text));
   writeFileSync(join(WEB_DIST_DIR, `${name}.gz`), gzipSync(text));
 }
+// The service worker (vite-plugin-pwa's sw.js, compressed like any script) and the web app manifest (too
+// small for copies), as the PWA build writes them at the root.
+const SW = `self.__WB_MANIFEST=${JSON.stringify(Array.from({ length: 200 }, (_, i) => ({ url: `assets/chunk-${i}.js`, revision: null })))};\n`;
+const MANIFEST = '{"name":"Loamline","start_url":"/"}';
+writeFileSync(join(WEB_DIST_DIR, 'sw.js'), SW);
+writeFileSync(join(WEB_DIST_DIR, 'sw.js.br'), brotliCompressSync(SW));
+writeFileSync(join(WEB_DIST_DIR, 'sw.js.gz'), gzipSync(SW));
+writeFileSync(join(WEB_DIST_DIR, 'manifest.webmanifest'), MANIFEST);
 const PNG = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da63f8cfc0f01f0005000201a1d1f1b80000000049454e44ae426082', 'hex');
 writeFileSync(join(WEB_DIST_DIR, 'assets', 'logo-Zz99Yy88.png'), PNG);
 
@@ -139,5 +147,20 @@ describe('the built web app, precompressed (issue 17: fast on a weak signal)', (
     const res = await get('/api/health', 'br, gzip');
     expect(res.headers['content-encoding']).toBeUndefined();
     expect(res.headers['cache-control']).toBe('no-store');
+  });
+
+  it('should make the browser ask about the service worker and the manifest every time (an installed app updates at once)', async () => {
+    // sw.js compressed or not: never served from an HTTP cache without revalidating.
+    for (const header of ['br', 'gzip', undefined]) {
+      const res = await get('/sw.js', header);
+      expect(res.status, String(header)).toBe(200);
+      expect(res.headers['cache-control'], String(header)).toBe('no-cache');
+      expect(res.headers['content-type'], String(header)).toMatch(/^(text|application)\/javascript/);
+    }
+    const manifest = await get('/manifest.webmanifest', 'br, gzip');
+    expect(manifest.status).toBe(200);
+    expect(manifest.headers['cache-control']).toBe('no-cache');
+    expect(manifest.headers['content-type']).toMatch(/^application\/manifest\+json/);
+    expect(manifest.body.toString()).toBe(MANIFEST);
   });
 });

@@ -7,6 +7,7 @@ import { createRoot } from 'react-dom/client';
 import { AppProvider } from './app/provider';
 import { AppRouter } from './app/router';
 import { createQueryClient } from './lib/query-client';
+import { registerServiceWorker } from './lib/service-worker';
 import { startSessionSync } from './lib/session-sync';
 // Parsed at start-up so a bad build-time variable stops the app with a list of what is wrong.
 import './config/env';
@@ -17,6 +18,8 @@ if (!container) throw new Error('index.html has no #root element');
 const queryClient = createQueryClient();
 // Hear other tabs' refreshes and sign-outs from the start (one refreshes, the others use its result).
 startSessionSync();
+// Precaches the whole app for use with no signal, and announces new versions (production builds only).
+void registerServiceWorker().catch(() => undefined);
 
 createRoot(container).render(
   <StrictMode>

@@ -7,6 +7,20 @@ import express, { type NextFunction, type Request, type Response } from 'express
 /** Hashed build output (`/assets/…`): its name changes with its content, so it never goes stale. */
 export const IMMUTABLE_CACHE_CONTROL = 'public, max-age=31536000, immutable';
 
+/**
+ * Files at the root of the build that must be asked about on every use: the page itself, the service
+ * worker (a cached `sw.js` would hold a phone on an old version; browsers cap its HTTP cache at a day
+ * anyway, but `no-cache` makes the update check immediate) and the web app manifest.
+ */
+const ALWAYS_REVALIDATE = new Set(['/index.html', '/sw.js', '/manifest.webmanifest']);
+
+/** The Cache-Control for a built file at `path` (`/assets/…`, `/sw.js`, `/favicon.svg` …). */
+export function cacheControlFor(path: string): string {
+  if (path.startsWith('/assets/')) return IMMUTABLE_CACHE_CONTROL;
+  if (ALWAYS_REVALIDATE.has(path)) return 'no-cache';
+  return 'public, max-age=3600';
+}
+
 type Encoding = 'br' | 'gzip';
 const SUFFIX: Record<Encoding, string> = { br: '.br', gzip: '.gz' };
 
@@ -41,7 +55,9 @@ export function serveWebApp(app: NestExpressApplication, dir: string): void {
       index: false,
       maxAge: '1h',
       setHeaders: (res, path) => {
-        if (path === indexHtml) res.setHeader('Cache-Control', 'no-cache');
+        const relative = '/' + path.slice(root.length + 1).split(sep).join('/');
+        res.setHeader('Cache-Control', cacheControlFor(relative));
+        if (relative === '/manifest.webmanifest') res.setHeader('Content-Type', 'application/manifest+json');
       },
     }),
   );
@@ -108,12 +124,12 @@ function precompressed(root: string, copies: Set<string>) {
     res.vary('Accept-Encoding');
     const encoding = chooseCopy(path, req.headers['accept-encoding'], copies);
     if (!encoding) return next();
-    const isAsset = path.startsWith('/assets/');
     res.setHeader('Content-Encoding', encoding);
-    res.type(extname(path));
+    if (path === '/manifest.webmanifest') res.type('application/manifest+json');
+    else res.type(extname(path));
     // The path is one of the listed copies, so it cannot leave `root`.
     res.sendFile(join(root, path + SUFFIX[encoding]), {
-      headers: { 'Cache-Control': isAsset ? IMMUTABLE_CACHE_CONTROL : path === '/index.html' ? 'no-cache' : 'public, max-age=3600' },
+      headers: { 'Cache-Control': cacheControlFor(path) },
     }, (error) => {
       if (error) next(error);
     });

@@ -2,6 +2,7 @@ import { FluentProvider } from '@fluentui/react-components';
 import { QueryClientProvider, type QueryClient } from '@tanstack/react-query';
 import type { ReactNode } from 'react';
 
+import { AppUpdateBar } from '../components/app-update';
 import { AppErrorBoundary } from '../components/errors/app-error-boundary';
 import { AppToaster } from '../components/notify';
 import { usePrefersDarkScheme } from '../lib/use-prefers-dark-scheme';
@@ -21,6 +22,7 @@ export function AppProvider({ queryClient, children }: AppProviderProps) {
         <QueryClientProvider client={queryClient}>
           {children}
           <AppToaster />
+          <AppUpdateBar />
         </QueryClientProvider>
       </AppErrorBoundary>
     </FluentProvider>

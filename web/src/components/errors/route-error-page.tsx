@@ -53,9 +53,16 @@ function describeError(error: unknown): ErrorDescription {
       status: error.status,
     };
   }
-  // A lazy route chunk fails to load after a new version is deployed; a reload picks up the new one.
-  if (error instanceof TypeError && /dynamically imported module|module script/i.test(error.message)) {
-    return { title: 'A new version is ready', text: 'Reload the page to get the latest version.' };
+  // A lazy route chunk did not load. The service worker keeps every chunk of the installed version, so
+  // this is a screen that was never fetched (no service worker yet, first visit without signal) or a
+  // network failure: not a new version (that one is announced by AppUpdateBar).
+  if (error instanceof TypeError && /dynamically imported module|module script|importing a module/i.test(error.message)) {
+    return typeof navigator !== 'undefined' && !navigator.onLine
+      ? {
+          title: 'This screen is not on this device yet',
+          text: 'There is no connection, and this screen has not been opened here with signal before. It opens as soon as the phone is back online.',
+        }
+      : { title: 'This screen could not be loaded', text: 'Part of the app did not arrive. Check your connection and reload the page.' };
   }
   return { title: 'Something went wrong', text: 'This page hit an unexpected problem. Reloading usually fixes it.' };
 }
