@@ -42,7 +42,7 @@ export class AsBuiltCache {
   private readonly entries = new Map<string, CachedAsBuilt>();
   private readonly capacity = AS_BUILT_CACHE_ENTRIES;
 
-  static key(jobId: string, jobVersion: number, siteVersion: number, depthRules: DepthRuleTable | undefined): string {
+  static key(jobId: string, jobVersion: number, siteVersion: number | string, depthRules: DepthRuleTable | undefined): string {
     return `${jobId}:${jobVersion}:${siteVersion}:${depthRulesHash(depthRules)}`;
   }
 

@@ -24,6 +24,7 @@ function asStored(asBuilt = DEMO_AS_BUILT): JobRecordRows {
   const rows = toRecordRows(asBuilt, {
     jobId: 'job-1',
     siteId: 'site-1',
+    installedOn: '2026-05-14',
     idFor: (id) => `db:${id}`,
     newId: () => `db:reading-${(readingId += 1)}`,
   });
@@ -32,7 +33,7 @@ function asStored(asBuilt = DEMO_AS_BUILT): JobRecordRows {
     site: { northAzimuthDeg: asBuilt.site?.northAzimuthDeg ?? 0, originLat: asBuilt.site?.origin?.lat ?? null, originLon: asBuilt.site?.origin?.lon ?? null },
     zones: seq(rows.zones) as ZoneRow[],
     referencePoints: seq(rows.referencePoints).map((p) => ({ ...p, notes: null, createdAt: now })) as ReferencePointRow[],
-    items: seq(rows.items).map((i) => ({ ...i, createdAt: now, updatedAt: now })) as ItemRow[],
+    items: seq(rows.items).map((i) => ({ ...i, abandonedByJobId: null, abandonedOn: null, removedByJobId: null, removedOn: null, createdAt: now, updatedAt: now })) as ItemRow[],
     channels: seq(rows.channels).map((c) => ({
       ...c,
       source: null,
@@ -46,7 +47,7 @@ function asStored(asBuilt = DEMO_AS_BUILT): JobRecordRows {
       setupNotes: null,
     })) as AmplifierChannelRow[],
     ties: rows.ties.map((t, i) => ({ ...t, id: `tie-${i}` })) as ItemTieRow[],
-    runs: seq(rows.runs).map((r) => ({ ...r, createdAt: now, updatedAt: now })) as RunRow[],
+    runs: seq(rows.runs).map((r) => ({ ...r, abandonedByJobId: null, abandonedOn: null, removedByJobId: null, removedOn: null, createdAt: now, updatedAt: now })) as RunRow[],
     pairs: rows.pairs.map((p, i) => ({ ...p, id: `pair-${i}` })) as RunPairRow[],
     routePoints: rows.routePoints.map((p, i) => ({ ...p, id: `point-${i}` })) as RunRoutePointRow[],
     depthReadings: seq(rows.depthReadings).map((r) => ({ ...r, recordedByUserId: null, recordedAt: now })) as DepthReadingRow[],

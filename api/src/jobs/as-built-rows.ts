@@ -3,6 +3,7 @@ import type { AmplifierChannel, Item, Position } from '../domain/as-built/item.s
 import type { Run } from '../domain/as-built/run.schema.js';
 import type { CommissioningCheck } from '../domain/checks/commissioning-check.schema.js';
 import type { ChannelSetup } from '../domain/jobs/job-record.schema.js';
+import type { SiteRecordInfo } from '../domain/jobs/job.schema.js';
 import type { SiteFeatureKind, SiteFeatureShape } from '../domain/sites/site-feature.schema.js';
 import type {
   AmplifierChannelRow,
@@ -19,6 +20,7 @@ import type {
   NewRunRow,
   ReferencePointRow,
   SiteFeatureRow,
+  SiteRecordChangeRow,
   RunPairRow,
   RunRoutePointRow,
   RunRow,
@@ -47,6 +49,17 @@ export interface JobRecordRows {
   routePoints: RunRoutePointRow[];
   depthReadings: DepthReadingRow[];
   checks: CommissioningCheckRow[];
+  /** Who installed and changed the records of the site's system (absent where the caller does not load it). */
+  system?: {
+    /** The job whose view of the system this is. */
+    jobId: string;
+    /** Titles of the site's jobs by id. */
+    jobTitles: Record<string, string>;
+    /** Changes by jobs to records earlier jobs installed, oldest first. */
+    changes: SiteRecordChangeRow[];
+    /** Records of earlier jobs this job removed (no longer part of its system). */
+    removedByThisJob: { kind: 'item' | 'run'; id: string; label: string; removedOn: string }[];
+  };
 }
 
 type Defined<T> = { [K in keyof T]: Exclude<T[K], null> };
@@ -252,6 +265,37 @@ export function depthReadingIdsByRun(rows: Pick<JobRecordRows, 'depthReadings'>)
   return out;
 }
 
+/**
+ * Provenance of every record in the job's view of the site's system, by record id: installed by which
+ * job and when (this job or an existing one), changed by which jobs, abandoned by which job since when.
+ */
+export function toSiteRecords(rows: JobRecordRows): Record<string, SiteRecordInfo> {
+  const system = rows.system;
+  if (!system) return {};
+  const title = (jobId: string) => system.jobTitles[jobId] ?? '';
+  const changesByRecord = groupBy(system.changes, (c) => c.recordId);
+  const out: Record<string, SiteRecordInfo> = {};
+  const add = (kind: 'item' | 'run', row: ItemRow | RunRow) => {
+    out[row.id] = {
+      kind,
+      isThisJob: row.jobId === system.jobId,
+      installedBy: { jobId: row.jobId, jobTitle: title(row.jobId) },
+      installedOn: row.installedOn,
+      changedBy: (changesByRecord.get(row.id) ?? []).map((c) => ({
+        jobId: c.jobId,
+        jobTitle: title(c.jobId),
+        change: c.change,
+        on: c.changedOn,
+        isIssued: c.issuedAt !== null,
+      })),
+      abandoned: row.abandonedByJobId !== null && row.abandonedOn !== null ? { jobId: row.abandonedByJobId, jobTitle: title(row.abandonedByJobId), on: row.abandonedOn } : null,
+    };
+  };
+  for (const row of [...rows.items].sort(bySeq)) add('item', row);
+  for (const row of [...rows.runs].sort(bySeq)) add('run', row);
+  return out;
+}
+
 export function toChannelSetup(row: AmplifierChannelRow): ChannelSetup {
   return {
     source: row.source,
@@ -272,7 +316,18 @@ export function toChannelSetup(row: AmplifierChannelRow): ChannelSetup {
  * The `items` row of an item. Every kind-specific column is written (null when it does not apply), so
  * replacing an item clears what its previous version had.
  */
-export function toItemRow(item: Item, jobId: string, id: string): Omit<NewItemRow, 'seq'> {
+/** Where a new record of the site's system goes: the site, and its installing job's work date. */
+export interface RecordPlace {
+  siteId: string;
+  installedOn: string;
+}
+
+/** A job's work date: its end date, else its start date, else the day it was created (ISO date). */
+export function jobWorkDate(job: { startDate: string | null; endDate: string | null; createdAt: Date }): string {
+  return job.endDate ?? job.startDate ?? job.createdAt.toISOString().slice(0, 10);
+}
+
+export function toItemRow(item: Item, jobId: string, id: string, place: RecordPlace): Omit<NewItemRow, 'seq'> {
   const amp = item.kind === 'amplifier' ? item : undefined;
   const speaker = item.kind === 'speaker' ? item : undefined;
   const sub = item.kind === 'subwoofer' ? item : undefined;
@@ -282,6 +337,8 @@ export function toItemRow(item: Item, jobId: string, id: string): Omit<NewItemRo
   return {
     id,
     jobId,
+    siteId: place.siteId,
+    installedOn: place.installedOn,
     kind: item.kind,
     label: item.label,
     model: item.model ?? null,
@@ -340,10 +397,12 @@ export function toTieRows(item: Item, itemId: string): NewItemTieRow[] {
   }));
 }
 
-export function toRunRow(run: Run, jobId: string, id: string): Omit<NewRunRow, 'seq'> {
+export function toRunRow(run: Run, jobId: string, id: string, place: RecordPlace): Omit<NewRunRow, 'seq'> {
   return {
     id,
     jobId,
+    siteId: place.siteId,
+    installedOn: place.installedOn,
     label: run.label,
     fromItemId: run.fromItemId,
     toItemId: run.toItemId,
@@ -411,9 +470,10 @@ export interface NewJobRecordRows {
  */
 export function toRecordRows(
   asBuilt: AsBuilt,
-  ids: { jobId: string; siteId: string; idFor: (asBuiltId: string) => string; newId: () => string },
+  ids: { jobId: string; siteId: string; installedOn: string; idFor: (asBuiltId: string) => string; newId: () => string },
 ): NewJobRecordRows {
   const { jobId, siteId, idFor, newId } = ids;
+  const place: RecordPlace = { siteId, installedOn: ids.installedOn };
   const mapChannel = (c: { amplifierItemId: string; channelId: string }) => ({
     amplifierItemId: idFor(c.amplifierItemId),
     channelId: idFor(c.channelId),
@@ -435,10 +495,10 @@ export function toRecordRows(
   return {
     referencePoints: asBuilt.referencePoints.map((p) => ({ id: idFor(p.id), siteId, label: p.label, x: p.x, y: p.y })),
     zones: asBuilt.zones.map((z) => ({ id: idFor(z.id), jobId, name: z.name })),
-    items: items.map((item) => toItemRow(item, jobId, item.id)),
+    items: items.map((item) => toItemRow(item, jobId, item.id, place)),
     channels: items.flatMap((item) => (item.kind === 'amplifier' ? item.channels.map((c) => toChannelRow(c, item.id, c.id)) : [])),
     ties: items.flatMap((item) => toTieRows(item, item.id)),
-    runs: runs.map((run) => toRunRow(run, jobId, run.id)),
+    runs: runs.map((run) => toRunRow(run, jobId, run.id, place)),
     pairs: runs.flatMap((run) => toPairRows(run, run.id)),
     routePoints: runs.flatMap((run) => toRoutePointRows(run, run.id)),
     depthReadings: runs.flatMap((run) => (run.depthReadings ?? []).map((r) => ({ id: newId(), runId: run.id, ...r }))),

@@ -47,3 +47,12 @@ export function inUse(what: string, issues: FieldIssue[]): ConflictException {
     issues,
   });
 }
+
+/** Another open job of the site has an unissued change to the same record of the site's system. */
+export function recordHeldByOtherJob(what: 'item' | 'run', other: { jobId: string; title: string }): ConflictException {
+  return new ConflictException({
+    message: `This ${what} is being changed by another open job on this property ("${other.title}"). Issue or undo that job's change first, then change it here.`,
+    code: 'RECORD_CHANGED_BY_OTHER_JOB',
+    otherJobId: other.jobId,
+  });
+}

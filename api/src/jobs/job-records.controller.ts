@@ -159,6 +159,7 @@ export class JobRecordsController {
   }
 
   @Delete('runs/:runId')
+  @ApiOperation({ summary: 'Delete a run of this job; a run an earlier job installed is recorded as removed by this job instead' })
   deleteRun(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,
@@ -166,6 +167,17 @@ export class JobRecordsController {
     @ExpectedVersion() version: number,
   ) {
     return this.records.deleteRun(user, jobId, runId, version);
+  }
+
+  @Delete('site-changes/:recordId')
+  @ApiOperation({ summary: 'Undo this job’s change to an item or run an earlier job installed (changed, abandoned or removed)' })
+  undoChange(
+    @CurrentUser() user: AuthUser,
+    @Param('jobId', uuid) jobId: string,
+    @Param('recordId', uuid) recordId: string,
+    @ExpectedVersion() version: number,
+  ) {
+    return this.records.undoChange(user, jobId, recordId, version);
   }
 
   @Post('runs/:runId/depth-readings')

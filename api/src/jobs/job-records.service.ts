@@ -1,10 +1,11 @@
 import { randomUUID } from 'node:crypto';
 
-import { Injectable } from '@nestjs/common';
+import { Injectable, NotFoundException } from '@nestjs/common';
 
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import type { AsBuilt, Zone } from '../domain/as-built/as-built.schema.js';
 import type { Item } from '../domain/as-built/item.schema.js';
+import type { Job } from '../db/schema/index.js';
 import type { DepthReading, Run } from '../domain/as-built/run.schema.js';
 import type { CommissioningCheck } from '../domain/checks/commissioning-check.schema.js';
 import {
@@ -21,6 +22,8 @@ import type { JobVersionResponse } from '../domain/jobs/job.schema.js';
 import { type FieldIssue, validateRecord } from '../domain/jobs/record-validation.js';
 import {
   depthReadingIdsByRun,
+  jobWorkDate,
+  type RecordPlace,
   toChannelRow,
   toChannelSetup,
   toCheckRow,
@@ -30,8 +33,8 @@ import {
   toRunRow,
   toTieRows,
 } from './as-built-rows.js';
-import { inUse, invalid, recordNotFound } from './job-errors.js';
-import { JobWriter } from './job-writer.js';
+import { inUse, invalid, recordHeldByOtherJob, recordNotFound } from './job-errors.js';
+import { JobWriter, type WriteContext } from './job-writer.js';
 import { JobsRepository } from './jobs.repository.js';
 
 type WithVersion<T> = T & JobVersionResponse;
@@ -43,6 +46,17 @@ function assertValid(asBuilt: AsBuilt, focus: (string | number)[]): void {
 
 function replaceAt<T>(list: readonly T[], index: number, value: T): T[] {
   return list.map((entry, i) => (i === index ? value : entry));
+}
+
+/** Where this job's new records go: its site, on its work date. */
+function placeOf(job: Job): RecordPlace {
+  return { siteId: job.siteId, installedOn: jobWorkDate(job) };
+}
+
+/** What a record looked like before this job's first change to it (kept to show and undo the change). */
+export interface RecordBefore {
+  record: Item | Run;
+  abandoned: { jobId: string; on: string } | null;
 }
 
 /**
@@ -117,7 +131,7 @@ export class JobRecordsService {
       const { item, channels } = assignChannelIds({ ...input, id }, new Set());
       assertValid({ ...asBuilt, items: [...asBuilt.items, item] }, ['items', asBuilt.items.length]);
       await this.repository.insertItem(
-        toItemRow(item, job.id, id),
+        toItemRow(item, job.id, id, placeOf(job)),
         item.kind === 'amplifier' ? item.channels.map((c, i) => toChannelRow(c, id, channels[i]!.id)) : [],
         toTieRows(item, id),
         tx,
@@ -137,16 +151,18 @@ export class JobRecordsService {
     expectedVersion: number,
     input: ItemInput,
   ): Promise<WithVersion<{ item: Item }>> {
-    return this.writer.write(actor, jobId, expectedVersion, 'record', async ({ tx, job, record }) => {
+    return this.writer.write(actor, jobId, expectedVersion, 'record', async (ctx) => {
+      const { tx, job, record } = ctx;
       const { rows, asBuilt } = await record();
       const index = asBuilt.items.findIndex((i) => i.id === itemId);
       if (index < 0) throw recordNotFound('item');
       const existing = new Set(rows.channels.filter((c) => c.itemId === itemId).map((c) => c.id));
       const { item, channels } = assignChannelIds({ ...input, id: itemId }, existing);
       assertValid({ ...asBuilt, items: replaceAt(asBuilt.items, index, item) }, ['items', index]);
+      await this.hold(ctx, 'item', itemId, 'changed');
       await this.repository.replaceItem(
         job.id,
-        { ...toItemRow(item, job.id, itemId), id: itemId },
+        { ...toItemRow(item, job.id, itemId, placeOf(job)), id: itemId },
         item.kind === 'amplifier'
           ? item.channels.map((c, i) => ({ row: { ...toChannelRow(c, itemId, channels[i]!.id), id: channels[i]!.id }, isNew: channels[i]!.isNew }))
           : [],
@@ -157,12 +173,27 @@ export class JobRecordsService {
     });
   }
 
+  /**
+   * Deletes one of this job's items. An item an earlier job installed is not deleted: it is recorded as
+   * removed by this job (taken out of the ground) on the job's work date, and leaves the system.
+   */
   deleteItem(actor: AuthUser, jobId: string, itemId: string, expectedVersion: number): Promise<JobVersionResponse> {
-    return this.writer.write(actor, jobId, expectedVersion, 'record', async ({ tx, job, record }) => {
-      const { asBuilt } = await record();
+    return this.writer.write(actor, jobId, expectedVersion, 'record', async (ctx) => {
+      const { tx, job, record } = ctx;
+      const { rows, asBuilt } = await record();
       if (!asBuilt.items.some((i) => i.id === itemId)) throw recordNotFound('item');
       const issues = validateRecord({ ...asBuilt, items: asBuilt.items.filter((i) => i.id !== itemId) });
       if (issues.length > 0) throw inUse('item', issues);
+      const isExisting = rows.items.find((i) => i.id === itemId)!.jobId !== job.id;
+      const otherRuns = await this.repository.runsOfOtherJobsAt(itemId, job.id, tx);
+      if (!isExisting && otherRuns.length > 0) {
+        throw inUse('item', [{ path: 'runs', message: `run "${otherRuns[0]!.label}" of another job starts or ends here` }]);
+      }
+      await this.hold(ctx, 'item', itemId, 'removed');
+      if (isExisting) {
+        await this.repository.setRemoved('item', itemId, { jobId: job.id, on: jobWorkDate(job) }, tx);
+        return { result: {}, audit: { action: 'job.item.remove', targetType: 'item', targetId: itemId } };
+      }
       await this.repository.deleteItem(job.id, itemId, tx);
       return { result: {}, audit: { action: 'job.item.delete', targetType: 'item', targetId: itemId } };
     });
@@ -177,9 +208,11 @@ export class JobRecordsService {
     expectedVersion: number,
     input: ChannelSetup,
   ): Promise<WithVersion<{ channelSetup: ChannelSetup }>> {
-    return this.writer.write(actor, jobId, expectedVersion, 'record', async ({ tx, record }) => {
+    return this.writer.write(actor, jobId, expectedVersion, 'record', async (ctx) => {
+      const { tx, record } = ctx;
       const { rows } = await record();
       if (!rows.channels.some((c) => c.id === channelId && c.itemId === itemId)) throw recordNotFound('channel');
+      await this.hold(ctx, 'item', itemId, 'changed');
       const row = await this.repository.updateChannelSetup(
         itemId,
         channelId,
@@ -212,7 +245,7 @@ export class JobRecordsService {
       const run: Run = { ...input, id };
       assertValid({ ...asBuilt, runs: [...asBuilt.runs, run] }, ['runs', asBuilt.runs.length]);
       await this.repository.insertRun(
-        toRunRow(run, job.id, id),
+        toRunRow(run, job.id, id, placeOf(job)),
         toPairRows(run, id),
         toRoutePointRows(run, id),
         (run.depthReadings ?? []).map((r) => ({ id: randomUUID(), runId: id, ...r, recordedByUserId: actor.id })),
@@ -224,17 +257,26 @@ export class JobRecordsService {
 
   /** Replaces a run with the body; its depth readings are replaced only when the body lists them. */
   replaceRun(actor: AuthUser, jobId: string, runId: string, expectedVersion: number, input: RunInput): Promise<WithVersion<{ run: Run }>> {
-    return this.writer.write(actor, jobId, expectedVersion, 'record', async ({ tx, job, record }) => {
-      const { asBuilt } = await record();
+    return this.writer.write(actor, jobId, expectedVersion, 'record', async (ctx) => {
+      const { tx, job, record } = ctx;
+      const { rows, asBuilt } = await record();
       const index = asBuilt.runs.findIndex((r) => r.id === runId);
       if (index < 0) throw recordNotFound('run');
       const current = asBuilt.runs[index]!;
       const keptReadings = input.depthReadings === undefined && current.depthReadings ? { depthReadings: current.depthReadings } : {};
       const run: Run = { ...input, id: runId, ...keptReadings };
       assertValid({ ...asBuilt, runs: replaceAt(asBuilt.runs, index, run) }, ['runs', index]);
+      const wasAbandoned = current.isAbandoned === true;
+      const isAbandoned = run.isAbandoned === true;
+      const abandonedBy = rows.runs.find((r) => r.id === runId)?.abandonedByJobId ?? null;
+      await this.hold(ctx, 'run', runId, isAbandoned && (!wasAbandoned || abandonedBy === job.id) ? 'abandoned' : 'changed', { isExact: true });
+      // Abandoning in place is dated: by this job, on its work date (cleared when the run is put back in service).
+      if (isAbandoned !== wasAbandoned) {
+        await this.repository.setAbandoned('run', runId, isAbandoned ? { jobId: job.id, on: jobWorkDate(job) } : null, tx);
+      }
       await this.repository.replaceRun(
         job.id,
-        { ...toRunRow(run, job.id, runId), id: runId },
+        { ...toRunRow(run, job.id, runId, placeOf(job)), id: runId },
         toPairRows(run, runId),
         toRoutePointRows(run, runId),
         input.depthReadings?.map((r) => ({ id: randomUUID(), runId, ...r, recordedByUserId: actor.id })),
@@ -244,13 +286,108 @@ export class JobRecordsService {
     });
   }
 
+  /** Deletes one of this job's runs; an earlier job's run is recorded as removed by this job instead. */
   deleteRun(actor: AuthUser, jobId: string, runId: string, expectedVersion: number): Promise<JobVersionResponse> {
-    return this.writer.write(actor, jobId, expectedVersion, 'record', async ({ tx, job, record }) => {
-      const { asBuilt } = await record();
+    return this.writer.write(actor, jobId, expectedVersion, 'record', async (ctx) => {
+      const { tx, job, record } = ctx;
+      const { rows, asBuilt } = await record();
       if (!asBuilt.runs.some((r) => r.id === runId)) throw recordNotFound('run');
+      await this.hold(ctx, 'run', runId, 'removed');
+      if (rows.runs.find((r) => r.id === runId)!.jobId !== job.id) {
+        await this.repository.setRemoved('run', runId, { jobId: job.id, on: jobWorkDate(job) }, tx);
+        return { result: {}, audit: { action: 'job.run.remove', targetType: 'run', targetId: runId } };
+      }
       await this.repository.deleteRun(job.id, runId, tx);
       return { result: {}, audit: { action: 'job.run.delete', targetType: 'run', targetId: runId } };
     });
+  }
+
+  /**
+   * Undoes this job's change to an earlier job's record: the record gets back its fields (and channel
+   * set-up, readings …) as they were before this job's first change, and is no longer abandoned or
+   * removed by this job.
+   */
+  undoChange(actor: AuthUser, jobId: string, recordId: string, expectedVersion: number): Promise<JobVersionResponse> {
+    return this.writer.write(actor, jobId, expectedVersion, 'record', async ({ tx, job, record }) => {
+      const change = await this.repository.findChange(job.id, recordId, tx);
+      if (!change) throw new NotFoundException({ message: 'This job has no change to that record.', code: 'CHANGE_NOT_FOUND' });
+      const before = change.before as unknown as RecordBefore;
+      const { rows, asBuilt } = await record();
+      if (change.recordKind === 'item') {
+        const item = before.record as Item;
+        const index = asBuilt.items.findIndex((i) => i.id === recordId);
+        const items = index < 0 ? [...asBuilt.items, item] : replaceAt(asBuilt.items, index, item);
+        assertValid({ ...asBuilt, items }, ['asBuiltAfterUndo', 'items']);
+        if (index >= 0) {
+          const existing = new Set(rows.channels.filter((c) => c.itemId === recordId).map((c) => c.id));
+          await this.repository.replaceItem(
+            job.id,
+            { ...toItemRow(item, job.id, recordId, placeOf(job)), id: recordId },
+            item.kind === 'amplifier' ? item.channels.map((c) => ({ row: { ...toChannelRow(c, recordId, c.id), id: c.id }, isNew: !existing.has(c.id) })) : [],
+            toTieRows(item, recordId),
+            tx,
+          );
+        }
+        await this.repository.setRemoved('item', recordId, null, tx);
+        await this.repository.setAbandoned('item', recordId, before.abandoned, tx);
+      } else {
+        const run = before.record as Run;
+        const index = asBuilt.runs.findIndex((r) => r.id === recordId);
+        const runs = index < 0 ? [...asBuilt.runs, run] : replaceAt(asBuilt.runs, index, run);
+        assertValid({ ...asBuilt, runs }, ['asBuiltAfterUndo', 'runs']);
+        await this.repository.replaceRun(
+          job.id,
+          { ...toRunRow(run, job.id, recordId, placeOf(job)), id: recordId },
+          toPairRows(run, recordId),
+          toRoutePointRows(run, recordId),
+          (run.depthReadings ?? []).map((r) => ({ id: randomUUID(), runId: recordId, ...r, recordedByUserId: null })),
+          tx,
+        );
+        await this.repository.setRemoved('run', recordId, null, tx);
+        await this.repository.setAbandoned('run', recordId, before.abandoned, tx);
+      }
+      await this.repository.deleteChange(job.id, recordId, tx);
+      return { result: {}, audit: { action: 'job.change.undo', targetType: change.recordKind, targetId: recordId } };
+    });
+  }
+
+  /**
+   * Before this job writes to a record of the site's system: locks the record's row, refuses (409) when
+   * another open job of the site has an unissued change to it, and, when an earlier job installed it,
+   * records this job's change (keeping the record as it was before the first one).
+   */
+  private async hold(
+    ctx: WriteContext,
+    kind: 'item' | 'run',
+    id: string,
+    change: 'changed' | 'abandoned' | 'removed',
+    options: { isExact?: boolean } = {},
+  ): Promise<void> {
+    const { tx, job, record } = ctx;
+    const row = await this.repository.lockSystemRecord(kind, id, job.siteId, tx);
+    if (!row) throw recordNotFound(kind);
+    const other = await this.repository.openChangeByOtherJob(id, job.id, tx);
+    if (other) throw recordHeldByOtherJob(kind, other);
+    if (row.jobId === job.id) return;
+    const { rows, asBuilt } = await record();
+    const source = kind === 'item' ? rows.items.find((i) => i.id === id) : rows.runs.find((r) => r.id === id);
+    const before: RecordBefore = {
+      record: (kind === 'item' ? asBuilt.items.find((i) => i.id === id) : asBuilt.runs.find((r) => r.id === id))!,
+      abandoned: source?.abandonedByJobId && source.abandonedOn ? { jobId: source.abandonedByJobId, on: source.abandonedOn } : null,
+    };
+    await this.repository.upsertChange(
+      {
+        siteId: job.siteId,
+        jobId: job.id,
+        recordKind: kind,
+        recordId: id,
+        // A further change (a depth reading) to a record this job abandoned keeps it listed as abandoned.
+        change: change === 'changed' && !options.isExact && source?.abandonedByJobId === job.id ? 'abandoned' : change,
+        before: before as unknown as Record<string, unknown>,
+        changedOn: jobWorkDate(job),
+      },
+      tx,
+    );
   }
 
   // ---- depth readings ---------------------------------------------------------------------------
@@ -263,10 +400,12 @@ export class JobRecordsService {
     expectedVersion: number,
     input: DepthReadingInput,
   ): Promise<WithVersion<{ depthReading: DepthReading & { id: string } }>> {
-    return this.writer.write(actor, jobId, expectedVersion, 'field', async ({ tx, record }) => {
+    return this.writer.write(actor, jobId, expectedVersion, 'field', async (ctx) => {
+      const { tx, record } = ctx;
       const { asBuilt } = await record();
       const index = asBuilt.runs.findIndex((r) => r.id === runId);
       if (index < 0) throw recordNotFound('run');
+      await this.hold(ctx, 'run', runId, 'changed');
       const run = asBuilt.runs[index]!;
       const readings = [...(run.depthReadings ?? []), input];
       assertValid(
@@ -289,10 +428,12 @@ export class JobRecordsService {
     expectedVersion: number,
     input: UpdateDepthReadingInput,
   ): Promise<WithVersion<{ depthReading: DepthReading & { id: string } }>> {
-    return this.writer.write(actor, jobId, expectedVersion, 'field', async ({ tx, record }) => {
+    return this.writer.write(actor, jobId, expectedVersion, 'field', async (ctx) => {
+      const { tx, record } = ctx;
       const { rows, asBuilt } = await record();
       const index = asBuilt.runs.findIndex((r) => r.id === runId);
       if (index < 0) throw recordNotFound('run');
+      await this.hold(ctx, 'run', runId, 'changed');
       const position = (depthReadingIdsByRun(rows)[runId] ?? []).indexOf(readingId);
       if (position < 0) throw recordNotFound('depth reading');
       const run = asBuilt.runs[index]!;
@@ -310,10 +451,12 @@ export class JobRecordsService {
   }
 
   deleteDepthReading(actor: AuthUser, jobId: string, runId: string, readingId: string, expectedVersion: number): Promise<JobVersionResponse> {
-    return this.writer.write(actor, jobId, expectedVersion, 'field', async ({ tx, record }) => {
+    return this.writer.write(actor, jobId, expectedVersion, 'field', async (ctx) => {
+      const { tx, record } = ctx;
       const { rows } = await record();
       if (!rows.runs.some((r) => r.id === runId)) throw recordNotFound('run');
       if (!rows.depthReadings.some((r) => r.id === readingId && r.runId === runId)) throw recordNotFound('depth reading');
+      await this.hold(ctx, 'run', runId, 'changed');
       await this.repository.deleteReading(runId, readingId, tx);
       return { result: {}, audit: { action: 'job.depth_reading.delete', targetType: 'depth_reading', targetId: readingId, details: { runId } } };
     });

@@ -1,6 +1,6 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, asc, count, desc, eq, exists, ilike, inArray, notInArray, or, type SQL, sql } from 'drizzle-orm';
-import { alias } from 'drizzle-orm/pg-core';
+import { and, asc, count, desc, eq, exists, ilike, inArray, isNull, ne, not, notInArray, or, type SQL, sql } from 'drizzle-orm';
+import { alias, type AnyPgColumn } from 'drizzle-orm/pg-core';
 
 import { DB, type Db, type Tx } from '../db/db.module.js';
 import {
@@ -23,11 +23,15 @@ import {
   type NewRunPairRow,
   type NewRunRoutePointRow,
   type NewRunRow,
+  type NewSiteRecordChangeRow,
+  packetRevisions,
   referencePoints,
   runPairs,
   siteFeatures,
   runRoutePoints,
   runs,
+  type SiteRecordChangeRow,
+  siteRecordChanges,
   sites,
   users,
   zones,
@@ -42,6 +46,24 @@ function likePattern(q: string): string {
 }
 
 const crewLead = alias(users, 'crew_lead');
+
+/** The job has an issued packet revision: its records are in the ground for every later job of the site. */
+function hasRevision(jobIdColumn: AnyPgColumn): SQL {
+  return sql`exists (select 1 from ${packetRevisions} where ${packetRevisions.jobId} = ${jobIdColumn})`;
+}
+
+/**
+ * The records of the site's system as a job sees it: its own records and those installed by jobs of the
+ * site that were issued, less those removed by this job or by an issued job (a removal by another open
+ * job has not happened yet).
+ */
+function systemRecordVisible(table: typeof items | typeof runs, job: Pick<Job, 'id' | 'siteId'>): SQL {
+  return and(
+    eq(table.siteId, job.siteId),
+    or(eq(table.jobId, job.id), hasRevision(table.jobId)),
+    or(isNull(table.removedByJobId), and(ne(table.removedByJobId, job.id), not(hasRevision(table.removedByJobId)))),
+  )!;
+}
 
 const SORT_COLUMNS: Record<JobSortField, SQL | typeof jobs.title> = {
   updatedAt: sql`${jobs.updatedAt}`,
@@ -72,6 +94,12 @@ export interface AsBuiltHead {
   view: JobView;
   technicians: { id: string; name: string }[];
   siteVersion: number;
+  /**
+   * The state of the site's other jobs (count, sum of versions, latest write): the job's as-built is
+   * the site's system, so a write to any job of the site (an issue, a change to an earlier record)
+   * changes it.
+   */
+  systemState: string;
   depthRules: DepthRuleTable | undefined;
 }
 
@@ -170,6 +198,8 @@ export class JobsRepository {
       .select({
         ...jobViewColumns,
         siteVersion: sites.version,
+        systemState: sql<string>`(select count(*)::text || '.' || coalesce(sum(sj.version), 0)::text || '.' || coalesce(max(extract(epoch from sj.updated_at)), 0)::text
+          from ${jobs} sj where sj.site_id = ${jobs.siteId})`,
         technicians: sql<{ id: string; name: string }[]>`coalesce((
           select json_agg(json_build_object('id', ${users.id}, 'name', ${users.name}) order by ${users.name}, ${users.id})
           from ${jobTechnicians} inner join ${users} on ${users.id} = ${jobTechnicians.userId}
@@ -182,8 +212,8 @@ export class JobsRepository {
       .leftJoin(crewLead, eq(crewLead.id, jobs.crewLeadUserId))
       .where(and(eq(jobs.companyId, companyId), eq(jobs.id, id)));
     if (!row) return undefined;
-    const { siteVersion, technicians, depthRules, ...view } = row;
-    return { view, siteVersion, technicians, depthRules: depthRules ?? undefined };
+    const { siteVersion, systemState, technicians, depthRules, ...view } = row;
+    return { view, siteVersion, systemState, technicians, depthRules: depthRules ?? undefined };
   }
 
   /** Reads the job and locks its row until the transaction ends: writes to one job run one at a time. */
@@ -270,52 +300,69 @@ export class JobsRepository {
       .select({ northAzimuthDeg: sites.northAzimuthDeg, originLat: sites.originLat, originLon: sites.originLon })
       .from(sites)
       .where(eq(sites.id, job.siteId));
-    const zoneRows = await tx.select().from(zones).where(eq(zones.jobId, job.id)).orderBy(asc(zones.seq));
+    const itemVisible = systemRecordVisible(items, job);
+    const runVisible = systemRecordVisible(runs, job);
+    const zoneRows = await tx
+      .select({ zone: zones })
+      .from(zones)
+      .innerJoin(jobs, eq(jobs.id, zones.jobId))
+      .where(and(eq(jobs.siteId, job.siteId), or(eq(zones.jobId, job.id), hasRevision(zones.jobId))))
+      .orderBy(asc(zones.seq));
     const pointRows = await tx
       .select()
       .from(referencePoints)
       .where(eq(referencePoints.siteId, job.siteId))
       .orderBy(asc(referencePoints.seq));
     const featureRows = await tx.select().from(siteFeatures).where(eq(siteFeatures.siteId, job.siteId)).orderBy(asc(siteFeatures.seq));
-    const itemRows = await tx.select().from(items).where(eq(items.jobId, job.id)).orderBy(asc(items.seq));
+    const itemRows = await tx.select().from(items).where(itemVisible).orderBy(asc(items.seq));
     const channelRows = await tx
       .select({ channel: amplifierChannels })
       .from(amplifierChannels)
       .innerJoin(items, eq(items.id, amplifierChannels.itemId))
-      .where(eq(items.jobId, job.id))
+      .where(itemVisible)
       .orderBy(asc(amplifierChannels.seq));
     const tieRows = await tx
       .select({ tie: itemTies })
       .from(itemTies)
       .innerJoin(items, eq(items.id, itemTies.itemId))
-      .where(eq(items.jobId, job.id))
+      .where(itemVisible)
       .orderBy(asc(itemTies.itemId), asc(itemTies.ordinal));
-    const runRows = await tx.select().from(runs).where(eq(runs.jobId, job.id)).orderBy(asc(runs.seq));
+    const runRows = await tx.select().from(runs).where(runVisible).orderBy(asc(runs.seq));
     const pairRows = await tx
       .select({ pair: runPairs })
       .from(runPairs)
       .innerJoin(runs, eq(runs.id, runPairs.runId))
-      .where(eq(runs.jobId, job.id));
+      .where(runVisible);
     const routeRows = await tx
       .select({ point: runRoutePoints })
       .from(runRoutePoints)
       .innerJoin(runs, eq(runs.id, runRoutePoints.runId))
-      .where(eq(runs.jobId, job.id))
+      .where(runVisible)
       .orderBy(asc(runRoutePoints.runId), asc(runRoutePoints.ordinal));
     const readingRows = await tx
       .select({ reading: depthReadings })
       .from(depthReadings)
       .innerJoin(runs, eq(runs.id, depthReadings.runId))
-      .where(eq(runs.jobId, job.id))
+      .where(runVisible)
       .orderBy(asc(depthReadings.runId), asc(depthReadings.stationM), asc(depthReadings.seq));
     const checkRows = await tx
       .select()
       .from(commissioningChecks)
       .where(eq(commissioningChecks.jobId, job.id))
       .orderBy(asc(commissioningChecks.seq));
+    const siteJobs = await tx.select({ id: jobs.id, title: jobs.title }).from(jobs).where(eq(jobs.siteId, job.siteId));
+    const changeRows = await tx.select().from(siteRecordChanges).where(eq(siteRecordChanges.siteId, job.siteId)).orderBy(asc(siteRecordChanges.createdAt));
+    const removedItems = await tx
+      .select({ id: items.id, label: items.label, removedOn: items.removedOn })
+      .from(items)
+      .where(eq(items.removedByJobId, job.id));
+    const removedRuns = await tx
+      .select({ id: runs.id, label: runs.label, removedOn: runs.removedOn })
+      .from(runs)
+      .where(eq(runs.removedByJobId, job.id));
     return {
       site: site!,
-      zones: zoneRows,
+      zones: zoneRows.map((r) => r.zone),
       referencePoints: pointRows,
       features: featureRows,
       items: itemRows,
@@ -326,7 +373,116 @@ export class JobsRepository {
       routePoints: routeRows.map((r) => r.point),
       depthReadings: readingRows.map((r) => r.reading),
       checks: checkRows,
+      system: {
+        jobId: job.id,
+        jobTitles: Object.fromEntries(siteJobs.map((j) => [j.id, j.title])),
+        changes: changeRows,
+        removedByThisJob: [
+          ...removedItems.map((r) => ({ kind: 'item' as const, id: r.id, label: r.label, removedOn: r.removedOn! })),
+          ...removedRuns.map((r) => ({ kind: 'run' as const, id: r.id, label: r.label, removedOn: r.removedOn! })),
+        ],
+      },
     };
+  }
+
+  // ---- the site's system: changes to earlier jobs' records ---------------------------------------
+
+  /** Locks an item or run row of the site until the transaction ends and returns who installed it. */
+  async lockSystemRecord(kind: 'item' | 'run', id: string, siteId: string, tx: Tx): Promise<{ jobId: string } | undefined> {
+    const table = kind === 'item' ? items : runs;
+    const [row] = await tx
+      .select({ jobId: table.jobId })
+      .from(table)
+      .where(and(eq(table.id, id), eq(table.siteId, siteId)))
+      .for('update');
+    return row;
+  }
+
+  /** Another job's change to the record that is not issued yet (it holds the record), with that job's title. */
+  async openChangeByOtherJob(recordId: string, jobId: string, tx: Tx): Promise<{ jobId: string; title: string } | undefined> {
+    const [row] = await tx
+      .select({ jobId: siteRecordChanges.jobId, title: jobs.title })
+      .from(siteRecordChanges)
+      .innerJoin(jobs, eq(jobs.id, siteRecordChanges.jobId))
+      .where(and(eq(siteRecordChanges.recordId, recordId), ne(siteRecordChanges.jobId, jobId), isNull(siteRecordChanges.issuedAt)))
+      .limit(1);
+    return row;
+  }
+
+  /** The job's change row for a record, if it already changed it. */
+  async findChange(jobId: string, recordId: string, tx: Tx): Promise<SiteRecordChangeRow | undefined> {
+    const [row] = await tx
+      .select()
+      .from(siteRecordChanges)
+      .where(and(eq(siteRecordChanges.jobId, jobId), eq(siteRecordChanges.recordId, recordId)));
+    return row;
+  }
+
+  /** Records (or updates) the job's change to an earlier record; `before` is kept from the first change. */
+  async upsertChange(change: Omit<NewSiteRecordChangeRow, 'id'>, tx: Tx): Promise<void> {
+    await tx
+      .insert(siteRecordChanges)
+      .values(change)
+      .onConflictDoUpdate({
+        target: [siteRecordChanges.jobId, siteRecordChanges.recordId],
+        set: { change: change.change, changedOn: change.changedOn, issuedAt: null, updatedAt: new Date() },
+      });
+  }
+
+  async deleteChange(jobId: string, recordId: string, tx: Tx): Promise<void> {
+    await tx.delete(siteRecordChanges).where(and(eq(siteRecordChanges.jobId, jobId), eq(siteRecordChanges.recordId, recordId)));
+  }
+
+  /** Sets (or clears, with null) the abandoned-by columns of a record. */
+  async setAbandoned(kind: 'item' | 'run', id: string, by: { jobId: string; on: string } | null, tx: Tx): Promise<void> {
+    const table = kind === 'item' ? items : runs;
+    await tx
+      .update(table)
+      .set({ abandonedByJobId: by?.jobId ?? null, abandonedOn: by?.on ?? null, updatedAt: new Date() })
+      .where(eq(table.id, id));
+  }
+
+  /** Marks a record removed by the job on its work date (or puts it back, with null). */
+  async setRemoved(kind: 'item' | 'run', id: string, by: { jobId: string; on: string } | null, tx: Tx): Promise<void> {
+    const table = kind === 'item' ? items : runs;
+    await tx
+      .update(table)
+      .set({ removedByJobId: by?.jobId ?? null, removedOn: by?.on ?? null, updatedAt: new Date() })
+      .where(eq(table.id, id));
+  }
+
+  /** Runs of other jobs that start or end at the item (they keep it in use). */
+  async runsOfOtherJobsAt(itemId: string, jobId: string, tx: Tx): Promise<{ id: string; label: string }[]> {
+    return tx
+      .select({ id: runs.id, label: runs.label })
+      .from(runs)
+      .where(and(ne(runs.jobId, jobId), or(eq(runs.fromItemId, itemId), eq(runs.toItemId, itemId))));
+  }
+
+  /**
+   * At issue: what the job did since its previous issue (records it added, runs it abandoned or removed)
+   * takes its work date; what an earlier revision already dated keeps its date. Its changes to earlier
+   * jobs' records become issued (they no longer hold those records).
+   */
+  async markIssued(jobId: string, workDate: string, tx: Tx): Promise<void> {
+    const lastIssue = sql`(select max(${packetRevisions.issuedAt}) from ${packetRevisions} where ${packetRevisions.jobId} = ${jobId})`;
+    const since = (column: AnyPgColumn) => sql`(${lastIssue} is null or ${column} > ${lastIssue})`;
+    await tx.update(items).set({ installedOn: workDate }).where(and(eq(items.jobId, jobId), since(items.createdAt)));
+    await tx.update(runs).set({ installedOn: workDate }).where(and(eq(runs.jobId, jobId), since(runs.createdAt)));
+    await tx.update(items).set({ abandonedOn: workDate }).where(and(eq(items.abandonedByJobId, jobId), since(items.updatedAt)));
+    await tx.update(runs).set({ abandonedOn: workDate }).where(and(eq(runs.abandonedByJobId, jobId), since(runs.updatedAt)));
+    await tx.update(items).set({ removedOn: workDate }).where(and(eq(items.removedByJobId, jobId), since(items.updatedAt)));
+    await tx.update(runs).set({ removedOn: workDate }).where(and(eq(runs.removedByJobId, jobId), since(runs.updatedAt)));
+    await tx
+      .update(siteRecordChanges)
+      .set({ changedOn: workDate, issuedAt: sql`now()` })
+      .where(and(eq(siteRecordChanges.jobId, jobId), isNull(siteRecordChanges.issuedAt)));
+  }
+
+  /** Whether the job changed records of earlier jobs (such a job cannot simply be deleted). */
+  async changedEarlierRecords(jobId: string, tx: Tx): Promise<number> {
+    const [row] = await tx.select({ n: count() }).from(siteRecordChanges).where(eq(siteRecordChanges.jobId, jobId));
+    return row?.n ?? 0;
   }
 
   // ---- zones ------------------------------------------------------------------------------------
@@ -378,10 +534,13 @@ export class JobsRepository {
     ties: NewItemTieRow[],
     tx: Tx,
   ): Promise<void> {
+    // The record may be an earlier job's (a change by this job): who installed it, where and when stays.
+    const { jobId: _installedBy, siteId: _siteId, installedOn: _installedOn, ...fields } = item;
+    void jobId;
     await tx
       .update(items)
-      .set({ ...item, updatedAt: new Date() })
-      .where(and(eq(items.jobId, jobId), eq(items.id, item.id)));
+      .set({ ...fields, updatedAt: new Date() })
+      .where(eq(items.id, item.id));
     const keptIds = channels.filter((c) => !c.isNew).map((c) => c.row.id);
     await tx
       .delete(amplifierChannels)
@@ -439,10 +598,13 @@ export class JobsRepository {
     readings: Omit<NewDepthReadingRow, 'seq'>[] | undefined,
     tx: Tx,
   ): Promise<void> {
+    // The record may be an earlier job's (a change by this job): who installed it, where and when stays.
+    const { jobId: _installedBy, siteId: _siteId, installedOn: _installedOn, ...fields } = run;
+    void jobId;
     await tx
       .update(runs)
-      .set({ ...run, updatedAt: new Date() })
-      .where(and(eq(runs.jobId, jobId), eq(runs.id, run.id)));
+      .set({ ...fields, updatedAt: new Date() })
+      .where(eq(runs.id, run.id));
     await tx.delete(runPairs).where(eq(runPairs.runId, run.id));
     if (pairs.length > 0) await tx.insert(runPairs).values(pairs);
     await tx.delete(runRoutePoints).where(eq(runRoutePoints.runId, run.id));

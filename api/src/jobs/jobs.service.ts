@@ -1,4 +1,4 @@
-import { Injectable } from '@nestjs/common';
+import { ConflictException, Injectable } from '@nestjs/common';
 
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
@@ -18,7 +18,7 @@ import type {
 } from '../domain/jobs/job.schema.js';
 import type { FieldIssue } from '../domain/jobs/record-validation.js';
 import { AsBuiltCache, type CachedAsBuilt, sha1 } from './as-built-cache.js';
-import { depthReadingIdsByRun, toAsBuilt, toChannelSetup } from './as-built-rows.js';
+import { depthReadingIdsByRun, toAsBuilt, toChannelSetup, toSiteRecords } from './as-built-rows.js';
 import { denied, invalid, jobNotFound, versionConflict } from './job-errors.js';
 import { JobWriter } from './job-writer.js';
 import { type JobView, JobsRepository } from './jobs.repository.js';
@@ -160,6 +160,12 @@ export class JobsService {
   async remove(actor: AuthUser, id: string, expectedVersion: number): Promise<void> {
     await this.repository.transaction(async (tx) => {
       const job = await this.writer.lockChecked(actor, id, expectedVersion, 'delete', tx);
+      if ((await this.repository.changedEarlierRecords(id, tx)) > 0) {
+        throw new ConflictException({
+          message: 'This job changed records earlier jobs installed on this property. Undo those changes first, then delete the job.',
+          code: 'JOB_CHANGED_SITE_RECORDS',
+        });
+      }
       await this.repository.delete(id, tx);
       await this.audit.record(
         { companyId: actor.companyId, actorUserId: actor.id, action: 'job.delete', targetType: 'job', targetId: id, details: { title: job.title } },
@@ -229,7 +235,7 @@ export class JobsService {
   private async asBuiltParts(actor: AuthUser, id: string): Promise<{ job: JobResponse; cached: CachedAsBuilt }> {
     const head = await this.repository.findAsBuiltHead(actor.companyId, id);
     if (!head) throw jobNotFound();
-    const hit = this.cache.get(AsBuiltCache.key(id, head.view.job.version, head.siteVersion, head.depthRules));
+    const hit = this.cache.get(AsBuiltCache.key(id, head.view.job.version, `${head.siteVersion}/${head.systemState}`, head.depthRules));
     if (hit) return { job: toJobResponse(head.view, head.technicians), cached: hit };
     const { fresh, rows } = await this.repository.snapshot(async (tx) => {
       const fresh = await this.repository.findAsBuiltHead(actor.companyId, id, tx);
@@ -237,13 +243,15 @@ export class JobsService {
       return { fresh, rows: await this.repository.loadRecord(fresh.view.job, tx) };
     });
     const asBuilt = toAsBuilt(rows);
-    const cached = this.cache.set(AsBuiltCache.key(id, fresh.view.job.version, fresh.siteVersion, fresh.depthRules), {
+    const cached = this.cache.set(AsBuiltCache.key(id, fresh.view.job.version, `${fresh.siteVersion}/${fresh.systemState}`, fresh.depthRules), {
       asBuilt,
       // The company's depth rules (Settings → Depth rules); the other analysis options keep their documented defaults.
       analysis: analyzeAsBuilt(asBuilt, fresh.depthRules ? { depthRules: fresh.depthRules } : {}),
       records: {
         depthReadingIds: depthReadingIdsByRun(rows),
         channelSetups: Object.fromEntries(rows.channels.map((c) => [c.id, toChannelSetup(c)])),
+        siteRecords: toSiteRecords(rows),
+        removedByThisJob: rows.system?.removedByThisJob ?? [],
       },
     });
     return { job: toJobResponse(fresh.view, fresh.technicians), cached };

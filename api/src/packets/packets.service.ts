@@ -11,7 +11,7 @@ import { canIssuePacket } from '../domain/jobs/job-rules.js';
 import { packetFileBase } from '../domain/packet/manifest.js';
 import { findingKey, type IssuePacketInput, matchAcknowledgements } from '../domain/packet/known-exceptions.js';
 import type { PacketSnapshot } from '../domain/packet/packet-snapshot.js';
-import { toAsBuilt, toChannelSetup } from '../jobs/as-built-rows.js';
+import { jobWorkDate, toAsBuilt, toChannelSetup, toSiteRecords } from '../jobs/as-built-rows.js';
 import { denied, jobNotFound, versionConflict } from '../jobs/job-errors.js';
 import { JobsRepository } from '../jobs/jobs.repository.js';
 import { LocateLinksService } from '../locate/locate-links.service.js';
@@ -164,6 +164,9 @@ export class PacketsService {
       const view = await this.jobs.findView(actor.companyId, jobId, tx);
       const place = await this.repository.siteWithCustomer(job.siteId, tx);
       if (!view || !place) throw jobNotFound();
+      // Issuing dates this job's records and its changes to earlier ones with its work date, so the
+      // frozen system says when each record went in (and since when it is abandoned or removed).
+      await this.jobs.markIssued(job.id, jobWorkDate(job), tx);
       const rows = await this.jobs.loadRecord(job, tx);
       const asBuilt = toAsBuilt(rows);
       const settings = await this.repository.settings(actor.companyId, tx);

@@ -8,6 +8,7 @@ import {
   foreignKey,
   index,
   integer,
+  jsonb,
   pgEnum,
   pgTable,
   primaryKey,
@@ -126,9 +127,22 @@ export const items = pgTable(
   'items',
   {
     id: uuid('id').primaryKey().defaultRandom(),
+    /** The job that installed the item (a draft job deleted whole takes its items with it). */
     jobId: uuid('job_id')
       .notNull()
       .references(() => jobs.id, { onDelete: 'cascade' }),
+    /** The property the item is installed at: the record belongs to the site, later jobs build on it. */
+    siteId: uuid('site_id')
+      .notNull()
+      .references(() => sites.id),
+    /** The installing job's work date (its end date, else its start date, else the day it was recorded). */
+    installedOn: date('installed_on', { mode: 'string' }).notNull(),
+    /** The job that left the item abandoned in place, and its work date; null while in service. */
+    abandonedByJobId: uuid('abandoned_by_job_id').references(() => jobs.id),
+    abandonedOn: date('abandoned_on', { mode: 'string' }),
+    /** The job that took the item out, and its work date; a removed item is no longer part of the system. */
+    removedByJobId: uuid('removed_by_job_id').references(() => jobs.id),
+    removedOn: date('removed_on', { mode: 'string' }),
     seq: bigserial('seq', { mode: 'number' }).notNull(),
     kind: itemKind('kind').notNull(),
     label: text('label').notNull(),
@@ -177,7 +191,10 @@ export const items = pgTable(
   },
   (t) => [
     index('items_job_id_idx').on(t.jobId, t.seq),
+    index('items_site_id_idx').on(t.siteId, t.seq),
     index('items_zone_id_idx').on(t.zoneId),
+    check('items_abandoned_complete', sql`(${t.abandonedByJobId} is null) = (${t.abandonedOn} is null)`),
+    check('items_removed_complete', sql`(${t.removedByJobId} is null) = (${t.removedOn} is null)`),
     check(
       'items_position_complete',
       sql`(${t.positionX} is null) = (${t.positionY} is null) and (${t.positionX} is null) = (${t.positionSource} is null)`,
@@ -258,14 +275,26 @@ export const gaugeSystem = pgEnum('gauge_system', ['awg', 'mm2']);
 export const installMethod = pgEnum('install_method', values(InstallMethodSchema.options));
 export const burialLocation = pgEnum('burial_location', values(BurialLocationSchema.options));
 
-/** One cable between two items of the same job. */
+/**
+ * One cable between two items of the site's system (a later job's run may start at an earlier job's
+ * spare end, splice or amplifier). Lifecycle columns as on `items`.
+ */
 export const runs = pgTable(
   'runs',
   {
     id: uuid('id').primaryKey().defaultRandom(),
+    /** The job that installed the run. */
     jobId: uuid('job_id')
       .notNull()
       .references(() => jobs.id, { onDelete: 'cascade' }),
+    siteId: uuid('site_id')
+      .notNull()
+      .references(() => sites.id),
+    installedOn: date('installed_on', { mode: 'string' }).notNull(),
+    abandonedByJobId: uuid('abandoned_by_job_id').references(() => jobs.id),
+    abandonedOn: date('abandoned_on', { mode: 'string' }),
+    removedByJobId: uuid('removed_by_job_id').references(() => jobs.id),
+    removedOn: date('removed_on', { mode: 'string' }),
     seq: bigserial('seq', { mode: 'number' }).notNull(),
     label: text('label').notNull(),
     fromItemId: uuid('from_item_id')
@@ -290,7 +319,10 @@ export const runs = pgTable(
   },
   (t) => [
     index('runs_job_id_idx').on(t.jobId, t.seq),
+    index('runs_site_id_idx').on(t.siteId, t.seq),
     index('runs_from_item_id_idx').on(t.fromItemId),
+    check('runs_abandoned_complete', sql`(${t.abandonedByJobId} is null) = (${t.abandonedOn} is null)`),
+    check('runs_removed_complete', sql`(${t.removedByJobId} is null) = (${t.removedOn} is null)`),
     index('runs_to_item_id_idx').on(t.toItemId),
     check(
       'runs_gauge_matches_system',
@@ -397,6 +429,42 @@ export const commissioningChecks = pgTable(
   ],
 );
 
+export const siteRecordKind = pgEnum('site_record_kind', ['item', 'run']);
+export const siteRecordChange = pgEnum('site_record_change', ['changed', 'abandoned', 'removed']);
+
+/**
+ * A job's change to a record of the site's system that an earlier job installed: the record's fields
+ * changed (a spare run made live, an amplifier setting), or it was abandoned in place or removed. One
+ * row per job and record; `before` is the record (as-built JSON) as it stood before this job's first
+ * change, so the change can be shown and undone. `issuedAt` is set when the job's packet is issued: an
+ * unissued change locks the record against changes by another open job of the site (409).
+ */
+export const siteRecordChanges = pgTable(
+  'site_record_changes',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    siteId: uuid('site_id')
+      .notNull()
+      .references(() => sites.id),
+    jobId: uuid('job_id')
+      .notNull()
+      .references(() => jobs.id, { onDelete: 'cascade' }),
+    recordKind: siteRecordKind('record_kind').notNull(),
+    recordId: uuid('record_id').notNull(),
+    change: siteRecordChange('change').notNull(),
+    before: jsonb('before').$type<Record<string, unknown>>().notNull(),
+    changedOn: date('changed_on', { mode: 'string' }).notNull(),
+    issuedAt: timestamp('issued_at', { withTimezone: true }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    unique('site_record_changes_job_id_record_id_key').on(t.jobId, t.recordId),
+    index('site_record_changes_record_id_idx').on(t.recordId),
+    index('site_record_changes_site_id_idx').on(t.siteId),
+  ],
+);
+
 export type Job = typeof jobs.$inferSelect;
 export type NewJob = typeof jobs.$inferInsert;
 export type JobStatus = (typeof jobStatus.enumValues)[number];
@@ -415,5 +483,7 @@ export type RunRoutePointRow = typeof runRoutePoints.$inferSelect;
 export type NewRunRoutePointRow = typeof runRoutePoints.$inferInsert;
 export type DepthReadingRow = typeof depthReadings.$inferSelect;
 export type NewDepthReadingRow = typeof depthReadings.$inferInsert;
+export type SiteRecordChangeRow = typeof siteRecordChanges.$inferSelect;
+export type NewSiteRecordChangeRow = typeof siteRecordChanges.$inferInsert;
 export type CommissioningCheckRow = typeof commissioningChecks.$inferSelect;
 export type NewCommissioningCheckRow = typeof commissioningChecks.$inferInsert;

@@ -9,7 +9,7 @@ import sharp from 'sharp';
 import { DEMO_AS_BUILT } from '../../domain/as-built/demo-as-built.js';
 import type { AsBuilt } from '../../domain/as-built/as-built.schema.js';
 import { DEMO_SITE_FEATURES } from '../../domain/sites/demo-site-features.js';
-import { toRecordRows } from '../../jobs/as-built-rows.js';
+import { jobWorkDate, toRecordRows } from '../../jobs/as-built-rows.js';
 import type { ObjectStorage } from '../../storage/object-storage.js';
 import * as schema from '../schema/index.js';
 import {
@@ -84,9 +84,15 @@ export async function insertRecord(
   siteId: string,
 ): Promise<{ ids: Map<string, string>; depthReadingIds: Map<string, string[]> }> {
   const ids = new Map<string, string>();
+  // Records are installed by their job on its work date (see jobWorkDate).
+  const [job] = await tx
+    .select({ startDate: schema.jobs.startDate, endDate: schema.jobs.endDate, createdAt: schema.jobs.createdAt })
+    .from(schema.jobs)
+    .where(eq(schema.jobs.id, jobId));
   const rows = toRecordRows(asBuilt, {
     jobId,
     siteId,
+    installedOn: jobWorkDate(job!),
     idFor: (id) => ids.get(id) ?? (ids.set(id, randomUUID()), ids.get(id)!),
     newId: randomUUID,
   });

@@ -136,7 +136,29 @@ export interface JobAsBuiltResponse {
   records: {
     depthReadingIds: Record<string, string[]>;
     channelSetups: Record<string, ChannelSetup>;
+    /**
+     * The as-built is the site's installed system as it will stand after this job: records installed by
+     * earlier issued jobs and this job's own. Per record id: who installed it and when, its changes, and
+     * whether it was abandoned (`isThisJob` false = existing, read-only until this job changes it).
+     */
+    siteRecords?: Record<string, SiteRecordInfo>;
+    /** Earlier records this job removes (taken out of the ground; no longer in the as-built). */
+    removedByThisJob?: { kind: 'item' | 'run'; id: string; label: string; removedOn: string }[];
   };
+}
+
+/** Provenance of one record of a site's installed system (see JobAsBuiltResponse.records.siteRecords). */
+export interface SiteRecordInfo {
+  kind: 'item' | 'run';
+  /** Installed by the job being viewed (false: an earlier job's record, already in the ground). */
+  isThisJob: boolean;
+  installedBy: { jobId: string; jobTitle: string };
+  /** ISO date: the installing job's work date. */
+  installedOn: string;
+  /** Jobs that changed the record after it went in, oldest first (`isIssued` false: not issued yet). */
+  changedBy: { jobId: string; jobTitle: string; change: 'changed' | 'abandoned' | 'removed'; on: string; isIssued: boolean }[];
+  /** Abandoned in place: by which job, since when. */
+  abandoned: { jobId: string; jobTitle: string; on: string } | null;
 }
 
 /** Every write to a job's children answers with the job's new version. */
