@@ -7,6 +7,7 @@ import { createRoot } from 'react-dom/client';
 import { AppProvider } from './app/provider';
 import { AppRouter } from './app/router';
 import { createQueryClient } from './lib/query-client';
+import { startQueryPersistence } from './lib/query-persistence';
 import { registerServiceWorker } from './lib/service-worker';
 import { startSessionSync } from './lib/session-sync';
 // Parsed at start-up so a bad build-time variable stops the app with a list of what is wrong.
@@ -21,10 +22,16 @@ startSessionSync();
 // Precaches the whole app for use with no signal, and announces new versions (production builds only).
 void registerServiceWorker().catch(() => undefined);
 
-createRoot(container).render(
-  <StrictMode>
-    <AppProvider queryClient={queryClient}>
-      <AppRouter queryClient={queryClient} />
-    </AppProvider>
-  </StrictMode>,
-);
+// The jobs kept on this device for the person last signed in are back in the cache before the first
+// route loader runs, so a job opens with no signal (a quick IndexedDB read; nothing for a new visitor).
+void startQueryPersistence(queryClient)
+  .catch(() => undefined)
+  .finally(() => {
+    createRoot(container).render(
+      <StrictMode>
+        <AppProvider queryClient={queryClient}>
+          <AppRouter queryClient={queryClient} />
+        </AppProvider>
+      </StrictMode>,
+    );
+  });

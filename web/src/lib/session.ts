@@ -9,6 +9,11 @@ export type Session = {
   /** Epoch milliseconds at which the server stops accepting `accessToken`. */
   expiresAt: number;
   user: SessionUser;
+  /**
+   * Opened with no signal for the person last signed in on this device (lib/offline-user.ts): no access
+   * token yet. The first request that reaches the server refreshes the session (or ends it).
+   */
+  offline?: true;
 };
 
 /**
@@ -49,6 +54,16 @@ export function setSession(response: SessionResponse, now = Date.now()): Session
     expiresAt: now + response.expiresInSeconds * 1000,
     user: response.user,
   };
+  publish({ status: 'signed-in', session });
+  return session;
+}
+
+/**
+ * Opens the app for `user` with no connection to ask the server (see `Session.offline`). The
+ * keep-alive and the first 401 refresh it as soon as the server can be reached.
+ */
+export function startOfflineSession(user: SessionUser): Session {
+  const session: Session = { accessToken: '', expiresAt: 0, user, offline: true };
   publish({ status: 'signed-in', session });
   return session;
 }
