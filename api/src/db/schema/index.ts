@@ -12,3 +12,4 @@ export * from './signatures.js';
 export * from './preferences.js';
 export * from './outgoing-mail.js';
 export * from './signups.js';
+export * from './idempotency.js';
