@@ -708,6 +708,10 @@ describe('authorization matrix', () => {
       expect: everyone(200),
       call: async () => ({ path: `/api/locate/${(await locateLinkA()).token}/map.geojson` }),
     },
+    'GET /api/locate/:token/sheet.pdf': {
+      expect: everyone(200),
+      call: async () => ({ path: `/api/locate/${(await locateLinkA()).token}/sheet.pdf` }),
+    },
     'GET /api/locate/:token/runs/:runId/depth-profile.svg': {
       expect: everyone(200),
       call: async () => ({ path: `/api/locate/${(await locateLinkA()).token}/runs/${DEMO_AS_BUILT.runs[0]!.id}/depth-profile.svg` }),

@@ -180,6 +180,20 @@ describe('locate links, the public locate view and the homeowner portal (a real 
       expect(feature.properties).toMatchObject({ featureKind: 'run', revisionId, revision: 1 });
       expect(Array.isArray(feature.properties.planRoute)).toBe(true);
     });
+    it('should print the one-page locate sheet: installer phone, every run, address and steps; no-store', async () => {
+      const res = await binary(anonymous(`/api/locate/${qrToken}/sheet.pdf`));
+      expect(res.status).toBe(200);
+      expect(res.headers['content-type']).toBe('application/pdf');
+      expect(res.headers['cache-control']).toBe('no-store');
+      expect(res.headers['content-disposition']).toMatch(/^inline; filename=".+-locate-sheet\.pdf"$/);
+      const pages = await pdfPages(res.body as Buffer);
+      expect(pages).toHaveLength(1);
+      const text = pages[0]!.replace(/\s+/g, '');
+      for (const expected of ['+15550142', company.name, 'ImaginaryLane', 'Beforeyoudig', 'Outlinethedigareainwhite', ...DEMO_AS_BUILT.runs.map((r) => r.label)]) {
+        expect(text, expected).toContain(expected.replace(/\s+/g, ''));
+      }
+      for (const secret of [STAFF_NOTE, CUSTOMER_PHONE, company.users.lead.name]) expect(text, secret).not.toContain(secret.replace(/\s+/g, ''));
+    }, 60_000);
   });
 
   describe('locate links', () => {
@@ -211,6 +225,10 @@ describe('locate links, the public locate view and the homeowner portal (a real 
       expect(expired.status).toBe(404);
       expect(expired.body.code).toBe('LOCATE_LINK_NOT_VALID');
       expect(Object.keys(expired.body).sort()).toEqual(['code', 'error', 'message', 'statusCode']);
+      // The printable sheet answers as the view does.
+      const sheet = await anonymous(`/api/locate/${token}/sheet.pdf`);
+      expect(sheet.status).toBe(404);
+      expect(sheet.body.code).toBe('LOCATE_LINK_NOT_VALID');
     });
 
     it('should stop working once revoked (by the office too), and refuse revoking another company’s link', async () => {
@@ -224,6 +242,9 @@ describe('locate links, the public locate view and the homeowner portal (a real 
       expect(revoked.status).toBe(404);
       expect(revoked.body.code).toBe('LOCATE_LINK_NOT_VALID');
       expect((await anonymous(`/api/locate/${created.token}/map.geojson`)).status).toBe(404);
+      expect((await anonymous(`/api/locate/${created.token}/sheet.pdf`)).status).toBe(404);
+      // Not even shaped like a token: the same 404, no query.
+      expect((await anonymous('/api/locate/not%20a%20token/sheet.pdf')).body.code).toBe('LOCATE_LINK_NOT_VALID');
     });
 
     it('should validate expiry days and keep a homeowner to their own sites', async () => {

@@ -42,6 +42,16 @@ export class LocateController {
     return new StreamableFile(Buffer.from(`${JSON.stringify(geojson, null, 2)}\n`, 'utf8'));
   }
 
+  @Get('sheet.pdf')
+  @ApiOperation({ summary: 'The one-page printable locate sheet (PDF): map with scale bar and ties, runs with depths, locate steps, cautions, installer' })
+  @ApiResponse({ status: 404, description: '`LOCATE_LINK_NOT_VALID`: unknown, expired or revoked' })
+  async sheet(@Param('token') token: string, @Req() req: Request, @Res({ passthrough: true }) res: Response): Promise<StreamableFile> {
+    const { pdf, fileName } = await this.locate.sheet(token, clientOf(req));
+    res.setHeader('Content-Type', 'application/pdf');
+    res.setHeader('Content-Disposition', `inline; filename="${fileName}"`);
+    return new StreamableFile(pdf);
+  }
+
   @Get('runs/:runId/depth-profile.svg')
   @ApiOperation({ summary: 'One run’s depth profile (SVG), drawn from the issued revision' })
   async depthProfile(

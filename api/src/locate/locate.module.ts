@@ -3,6 +3,7 @@ import { ConfigService } from '@nestjs/config';
 import { ThrottlerModule } from '@nestjs/throttler';
 
 import type { Env } from '../config/env.schema.js';
+import { PacketRenderingModule } from '../packets/packet-rendering.module.js';
 import { LocateLinksController } from './locate-links.controller.js';
 import { LocateLinksService } from './locate-links.service.js';
 import { LocateMissLimiter } from './locate-miss-limiter.js';
@@ -14,6 +15,8 @@ import { LocateService } from './locate.service.js';
 /** Locate links (owner side) and the public locate view; exports what issuing and the portal reuse. */
 @Module({
   imports: [
+    // The packet's Chromium renderer prints the locate sheet (one browser per process).
+    PacketRenderingModule,
     // This module's own throttler (ThrottlerModule is not global): the auth module keeps its limits.
     ThrottlerModule.forRootAsync({
       inject: [ConfigService],

@@ -145,6 +145,7 @@ export class LocateRepository {
         email: companySettings.contactEmail,
         licenceNumbers: companySettings.licenceNumbers,
         units: companySettings.units,
+        paperSize: companySettings.paperSize,
       })
       .from(companies)
       .leftJoin(companySettings, eq(companySettings.companyId, companies.id))
@@ -155,6 +156,7 @@ export class LocateRepository {
       email: row?.email ?? null,
       licenceNumbers: row?.licenceNumbers ?? [],
       units: row?.units ?? ('imperial' as const),
+      paperSize: row?.paperSize ?? ('letter' as const),
     };
   }
 

@@ -9,7 +9,9 @@ import type { SiteMap, SiteMapGeoJson } from '../domain/locate/site-map.schema.j
 import { TOLERANCE_ZONE_M } from '../domain/packet/packet-cautions.js';
 import { drawDepthProfile } from '../drawings/depth-profile.js';
 import { createNodeSvgCanvas } from '../drawings/node-svg-window.js';
+import { PdfRendererService } from '../packets/pdf-renderer.service.js';
 import { OBJECT_STORAGE, type ObjectStorage } from '../storage/object-storage.js';
+import { renderLocateSheetHtml } from './locate-sheet.js';
 import { LocateMissLimiter } from './locate-miss-limiter.js';
 import { LocateRepository } from './locate.repository.js';
 
@@ -37,9 +39,25 @@ export class LocateService {
     private readonly repository: LocateRepository,
     private readonly limiter: LocateMissLimiter,
     @Inject(OBJECT_STORAGE) private readonly storage: ObjectStorage,
+    private readonly pdf: PdfRendererService,
   ) {}
 
   async view(token: string, client: LocateClient): Promise<LocateViewResponse> {
+    return (await this.viewWithPaper(token, client)).view;
+  }
+
+  /**
+   * The one-page printable locate sheet (PDF through the packet's sandboxed Chromium): the same data as
+   * the view, so an expired or revoked link answers exactly as the view does.
+   */
+  async sheet(token: string, client: LocateClient): Promise<{ pdf: Buffer; fileName: string }> {
+    const { view, paperSize } = await this.viewWithPaper(token, client);
+    const pdf = await this.pdf.printPage(renderLocateSheetHtml(view, paperSize));
+    const slug = view.site.label.replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '').toLowerCase() || 'site';
+    return { pdf, fileName: `${slug}-locate-sheet.pdf` };
+  }
+
+  private async viewWithPaper(token: string, client: LocateClient): Promise<{ view: LocateViewResponse; paperSize: 'letter' | 'a4' }> {
     const link = await this.resolve(token, client);
     await this.repository.logAccess(link.id, client.ip, client.userAgent?.slice(0, 500) ?? null);
     const [site, installer, map] = await Promise.all([
@@ -51,7 +69,7 @@ export class LocateService {
     const cautions = locateCautions(installer.units);
     const photos = await this.repository.runPhotos(link.siteId, map.runs.map((r) => r.id));
     const base = `/api/locate/${token}`;
-    return {
+    const view: LocateViewResponse = {
       site: {
         label: site.label,
         addressLine1: site.addressLine1,
@@ -94,9 +112,11 @@ export class LocateService {
           })),
       })),
       geojsonUrl: map.geojson ? `${base}/map.geojson` : null,
+      sheetUrl: `${base}/sheet.pdf`,
       link: { expiresAt: link.expiresAt.toISOString(), note: link.note },
       generatedAt: new Date().toISOString(),
     };
+    return { view, paperSize: installer.paperSize };
   }
 
   async geojson(token: string, client: LocateClient): Promise<{ geojson: SiteMapGeoJson; fileName: string }> {

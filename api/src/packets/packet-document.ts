@@ -85,6 +85,11 @@ function loadAssets(): PacketAssets {
   return assets;
 }
 
+/** The shipped Inter faces as inline @font-face rules (data: URIs), for other printed pages (the locate sheet). */
+export function printFontFaceCss(): string {
+  return loadAssets().fontFaceCss;
+}
+
 /**
  * The three kinds of drawing of the snapshot's as-built, in the packet's units and paper, through the
  * same functions as the drawing routes and the web app (drawings/job-drawings.ts). `planImage` is the

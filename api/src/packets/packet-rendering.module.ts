@@ -24,6 +24,6 @@ import { PdfRendererService } from './pdf-renderer.service.js';
     PhotosRepository,
     { provide: PACKET_PHOTO_SOURCE, useClass: JobPhotosForPacket },
   ],
-  exports: [PacketsRepository, PacketQueue, PacketRenderWorker],
+  exports: [PacketsRepository, PacketQueue, PacketRenderWorker, PdfRendererService],
 })
 export class PacketRenderingModule {}

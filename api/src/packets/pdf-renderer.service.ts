@@ -37,6 +37,15 @@ export class PdfRendererService implements OnApplicationShutdown {
     });
   }
 
+  /** A one-off print of a self-contained page (only data: URIs load; no footer), e.g. the locate sheet. */
+  printPage(html: string): Promise<Buffer> {
+    return this.printer.print({
+      html,
+      footerTemplate: '<span></span>',
+      onBlockedRequest: (url) => this.logger.warn(`printed page tried to load a refused URL (${url.slice(0, 80)})`),
+    });
+  }
+
   async onApplicationShutdown(): Promise<void> {
     await this.printer.close();
   }

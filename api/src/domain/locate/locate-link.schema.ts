@@ -94,6 +94,8 @@ export const LocateViewResponseSchema = z.object({
   runs: z.array(LocateRunSchema),
   /** null when the site has no GPS origin (the map is in plan coordinates only). */
   geojsonUrl: z.string().nullable(),
+  /** The one-page printable locate sheet (PDF) of this link. */
+  sheetUrl: z.string(),
   link: z.object({ expiresAt: z.string(), note: z.string().nullable() }),
   generatedAt: z.string(),
 });
