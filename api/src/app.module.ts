@@ -12,6 +12,7 @@ import { CustomersModule } from './customers/customers.module.js';
 import { DbModule } from './db/db.module.js';
 import { DeliveryModule } from './delivery/delivery.module.js';
 import { HealthModule } from './health/health.module.js';
+import { IdempotencyModule } from './idempotency/idempotency.module.js';
 import { JobsModule } from './jobs/jobs.module.js';
 import { LocateModule } from './locate/locate.module.js';
 import { MailModule } from './mail/mail.module.js';
@@ -33,6 +34,7 @@ import { UsersModule } from './users/users.module.js';
     MailModule,
     HealthModule,
     AuthModule,
+    IdempotencyModule,
     UsersModule,
     AnalysisModule,
     CustomersModule,
