@@ -21,6 +21,7 @@ import {
   createJob,
   createSite,
   insertRecordedJob,
+  insertSiteChange,
   insertSmallRecordedJob,
   moveJob,
   siteVersion,
@@ -488,6 +489,13 @@ describe('authorization matrix', () => {
       call: async () => {
         const r = await recordedJobA();
         return { path: `${r.base}/runs/${r.run.id}`, headers: r.headers };
+      },
+    },
+    'DELETE /api/jobs/:jobId/site-changes/:recordId': {
+      expect: recorders(200),
+      call: async () => {
+        const change = await insertSiteChange(a, siteA);
+        return { path: `/api/jobs/${change.jobId}/site-changes/${change.recordId}`, headers: { 'If-Match': String(change.version) } };
       },
     },
     'POST /api/jobs/:jobId/runs/:runId/depth-readings': {

@@ -27,7 +27,7 @@ import {
 } from '../support/bad-input-arbitraries.js';
 import { changedTables, type DbFingerprint, fingerprintDatabase } from '../support/db-fingerprint.js';
 import { createCompany, createUser, type TestCompany, withDb } from '../support/fixtures.js';
-import { type Api, apiAs, createSite, insertRecordedJob, insertSmallRecordedJob, siteVersion } from '../support/records.js';
+import { type Api, apiAs, createSite, insertRecordedJob, insertSiteChange, insertSmallRecordedJob, siteVersion } from '../support/records.js';
 import { bearer, type Session, signIn } from '../support/session.js';
 import { thisPartOf } from '../support/file-parts.js';
 import { createTestApp } from '../support/test-app.js';
@@ -875,6 +875,14 @@ describe('bad input on every write route', () => {
       arrange: async (ctx) => {
         const r = await recordedJob(ctx);
         return { params: { jobId: r.jobId, runId: r.runId }, jobId: r.jobId, headers: r.headers };
+      },
+    },
+    'DELETE /api/jobs/:jobId/site-changes/:recordId': {
+      input: 'none',
+      isVersioned: true,
+      arrange: async (ctx) => {
+        const change = await insertSiteChange(ctx.company, ctx.siteId);
+        return { params: { jobId: change.jobId, recordId: change.recordId }, jobId: change.jobId, headers: { 'If-Match': String(change.version) } };
       },
     },
     'POST /api/jobs/:jobId/runs/:runId/depth-readings': {

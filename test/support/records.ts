@@ -232,3 +232,34 @@ export async function insertSmallRecordedJob(company: { id: string; users: { lea
     checkBody: { ...checkBody, channel },
   };
 }
+
+/**
+ * Issue 21: an earlier job of `siteId` that was issued (a small recorded job with a packet revision row),
+ * and a second job in progress on the same site that changed the earlier job's run (a
+ * `site_record_changes` row, as `PUT /runs/:runId` from the second job writes it). Returns the second
+ * job, its version and the changed run's id.
+ */
+export async function insertSiteChange(company: { id: string; users: { lead: { id: string }; tech: { id: string } } }, siteId: string) {
+  const earlier = await insertSmallRecordedJob(company, siteId);
+  const later = await insertRecordedJob(company, siteId, { crewLeadUserId: company.users.lead.id, technicianUserIds: [company.users.tech.id] }, {
+    zones: [],
+    referencePoints: [],
+    items: [],
+    runs: [],
+    checks: [],
+  });
+  await withDb(async (client) => {
+    await client.query(`update jobs set status = 'issued' where id = $1`, [earlier.jobId]);
+    await client.query(
+      `insert into packet_revisions (company_id, job_id, revision, status, snapshot, paper_size) values ($1, $2, 1, 'failed', '{"format":1}', 'letter')`,
+      [company.id, earlier.jobId],
+    );
+    const before = { record: { id: earlier.runId, ...earlier.runBody, depthReadings: [{ stationM: 2, depthM: 0.3 }] }, abandoned: null };
+    await client.query(`update runs set label = 'Changed by the later job' where id = $1`, [earlier.runId]);
+    await client.query(
+      `insert into site_record_changes (site_id, job_id, record_kind, record_id, change, before, changed_on) values ($1, $2, 'run', $3, 'changed', $4, current_date)`,
+      [siteId, later.id, earlier.runId, JSON.stringify(before)],
+    );
+  });
+  return { jobId: later.id, version: later.version, recordId: earlier.runId };
+}

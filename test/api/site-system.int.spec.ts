@@ -1,0 +1,202 @@
+import type { NestExpressApplication } from '@nestjs/platform-express';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+import { createCompany, type TestCompany, withDb } from '../support/fixtures.js';
+import { type Api, apiAs, createJob, createSite, type JobFixture, moveJob } from '../support/records.js';
+import { signIn } from '../support/session.js';
+import { createTestApp } from '../support/test-app.js';
+
+/*
+ * Issue 21: the property's installed system is the record and a job is a change to it. A first job
+ * installs an amplifier, a speaker and a capped spare run; once it is issued, a second job on the same
+ * property connects to that spare end and amplifier channel, its analysis sees the first job's load,
+ * and two open jobs cannot change the same record at once.
+ */
+
+const AMP = { kind: 'amplifier', label: 'Pool house amplifier', channels: [{ name: 'Garden' }], ratedWatts8Ohm: 100, ratedWatts4Ohm: 160, minimumImpedanceOhm: 4 };
+const speaker = (label: string) => ({ kind: 'speaker', label, nominalImpedanceOhm: 8 });
+const run = (label: string, fromItemId: string, toItemId: string, channel: { amplifierItemId: string; channelId: string } | null, extra: object = {}) => ({
+  label,
+  fromItemId,
+  toItemId,
+  cableType: '14/2 direct burial',
+  gauge: { system: 'awg', awg: 14 },
+  conductors: 2,
+  pairs: [{ pairIndex: 1, channel }],
+  measuredLengthM: 12,
+  method: 'direct_burial',
+  depthReadings: [{ stationM: 6, depthM: 0.2 }],
+  ...extra,
+});
+
+interface Finding {
+  code: string;
+  severity: string;
+  path: (string | number)[];
+  itemId?: string;
+  runId?: string;
+  channel?: { channelId: string };
+}
+
+describe('the site system: a later job builds on what is in the ground', () => {
+  let app: NestExpressApplication;
+  let company: TestCompany;
+  let office: Api;
+  let lead: Api;
+  let siteId: string;
+  const first = {} as { job: JobFixture; amp: { id: string; channels: { id: string }[] }; speaker: string; spareEnd: string; liveRun: string; spareRun: string };
+
+  /** A job in progress on the site, led by the company's lead; `write` keeps its version. */
+  async function openJob(title?: string) {
+    let job = await moveJob(office, await createJob(office, siteId, { crewLeadUserId: company.users.lead.id }), 'in_progress');
+    if (title) job = { ...job, version: (await office.expectOk('patch', `/api/jobs/${job.id}`, { title, expectedVersion: job.version })).version };
+    const send = (method: 'post' | 'put' | 'delete', path: string, body?: object) =>
+      lead.send(method, `/api/jobs/${job.id}${path}`, body, { 'If-Match': `"${job.version}"` }).then((res) => {
+        if (res.status < 300) job = { ...job, version: res.body.jobVersion };
+        return res;
+      });
+    const write = async (method: 'post' | 'put' | 'delete', path: string, body?: object) => {
+      const res = await send(method, path, body);
+      expect(res.status, JSON.stringify(res.body)).toBeLessThan(300);
+      return res.body;
+    };
+    return { job: () => job, send, write, asBuilt: () => lead.expectOk('get', `/api/jobs/${job.id}/as-built`) };
+  }
+
+  /** Moves the job to ready and issues it, acknowledging its open must-fix findings. */
+  async function issue(job: JobFixture) {
+    const ready = await moveJob(office, job, 'submitted', 'ready_to_issue');
+    const { analysis } = await office.expectOk('get', `/api/jobs/${job.id}/as-built`);
+    const acknowledgements = (analysis.findings as Finding[])
+      .filter((f) => f.severity === 'critical')
+      .map((f) => ({ code: f.code, path: f.path.join('.'), reason: 'Accepted for this test.' }));
+    return office.expectOk('post', `/api/jobs/${job.id}/packets`, { acknowledgements }, { 'If-Match': `"${ready.version}"` });
+  }
+
+  beforeAll(async () => {
+    app = await createTestApp();
+    company = await createCompany('Site system');
+    office = apiAs(app, await signIn(app, company.users.office));
+    lead = apiAs(app, await signIn(app, company.users.lead));
+    ({ siteId } = await createSite(office));
+
+    // The first job: amplifier → speaker on the channel, and a capped spare run to a spare end by the planter.
+    const a = await openJob('Garden speakers');
+    first.amp = (await a.write('post', '/items', AMP)).item;
+    first.speaker = (await a.write('post', '/items', speaker('Lawn speaker'))).item.id;
+    first.spareEnd = (await a.write('post', '/items', { kind: 'spare_end', label: 'Spare end by the planter', isCapped: true })).item.id;
+    const channel = { amplifierItemId: first.amp.id, channelId: first.amp.channels[0]!.id };
+    first.liveRun = (await a.write('post', '/runs', run('Amp to lawn speaker', first.amp.id, first.speaker, channel))).run.id;
+    first.spareRun = (await a.write('post', '/runs', run('Spare to planter', first.amp.id, first.spareEnd, null, { isSpare: true }))).run.id;
+    await withDb((db) => db.query(`update jobs set start_date = '2026-05-11', end_date = '2026-05-14' where id = $1`, [a.job().id]));
+    first.job = a.job();
+    await issue(first.job);
+  });
+
+  afterAll(async () => {
+    await app?.close();
+  });
+
+  it('connects a second job to the first job’s spare end and channel, and checks the combined load', async () => {
+    const b = await openJob('Fire pit zone');
+    await withDb((db) => db.query(`update jobs set start_date = '2027-04-02', end_date = null where id = $1`, [b.job().id]));
+    const channel = { amplifierItemId: first.amp.id, channelId: first.amp.channels[0]!.id };
+
+    // What is already installed shows in the second job, marked as the first job's, dated.
+    const before = await b.asBuilt();
+    expect(before.asBuilt.items.map((i: { id: string }) => i.id)).toEqual([first.amp.id, first.speaker, first.spareEnd]);
+    expect(before.records.siteRecords[first.spareRun]).toMatchObject({
+      kind: 'run',
+      isThisJob: false,
+      installedBy: { jobId: first.job.id, jobTitle: 'Garden speakers' },
+      installedOn: '2026-05-14',
+      changedBy: [],
+      abandoned: null,
+    });
+
+    // A speaker by the fire pit, fed from the spare end (refused as "no item with id" before issue 21).
+    const firePit = (await b.write('post', '/items', speaker('Fire pit speaker'))).item.id;
+    const newRun = (await b.write('post', '/runs', run('Planter to fire pit', first.spareEnd, firePit, channel))).run.id;
+    // The spare run goes live on the channel: a change by this job to the first job's record.
+    await b.write('put', `/runs/${first.spareRun}`, run('Spare to planter', first.amp.id, first.spareEnd, channel, { isSpare: false }));
+
+    const after = await b.asBuilt();
+    const findings = after.analysis.findings as Finding[];
+    // The new speaker is on the first job's channel: not an open circuit, not on a spare-only run.
+    expect(findings.filter((f) => f.itemId === firePit || f.runId === newRun).map((f) => f.code)).not.toEqual(
+      expect.arrayContaining([expect.stringMatching(/^(CHANNEL_OPEN|SPEAKER_ON_NO_CHANNEL|SPEAKER_ONLY_ON_SPARE_RUN|RUN_NOT_CONNECTED_TO_AMP)$/)]),
+    );
+    const load = () => (after.analysis.channels as { channel: { channelId: string }; loadOhmNominal: number | null }[]).find((c) => c.channel.channelId === channel.channelId)!;
+    // Two 8 Ω speakers in parallel on the channel: 1/R = 1/8 + 1/8, R = 4 Ω (parallel resistance,
+    // Horowitz & Hill, The Art of Electronics, 3rd ed., §1.2.2 — from memory).
+    expect(load().loadOhmNominal).toBeCloseTo(4, 6);
+    expect(after.records.siteRecords[newRun]).toMatchObject({ isThisJob: true, installedBy: { jobId: b.job().id }, installedOn: '2027-04-02' });
+    expect(after.records.siteRecords[first.spareRun]).toMatchObject({
+      isThisJob: false,
+      installedOn: '2026-05-14',
+      changedBy: [{ jobId: b.job().id, jobTitle: 'Fire pit zone', change: 'changed', on: '2027-04-02', isIssued: false }],
+    });
+    expect(after.asBuilt.runs.find((r: { id: string }) => r.id === first.spareRun).isSpare).toBeUndefined();
+
+    // A third speaker on the same channel: 8 Ω ∥ 8 Ω ∥ 8 Ω = 8/3 ≈ 2.67 Ω, below the amplifier's 4 Ω
+    // minimum (same source); the analysis sees the first job's load and says so.
+    const bench = (await b.write('post', '/items', speaker('Bench speaker'))).item.id;
+    await b.write('post', '/runs', run('Planter to bench', first.spareEnd, bench, channel));
+    const third = await b.asBuilt();
+    const thirdLoad = (third.analysis.channels as { channel: { channelId: string }; loadOhmNominal: number }[]).find((c) => c.channel.channelId === channel.channelId)!;
+    expect(thirdLoad.loadOhmNominal).toBeCloseTo(8 / 3, 6);
+    expect((third.analysis.findings as Finding[]).some((f) => f.code === 'LOAD_BELOW_AMP_MINIMUM')).toBe(true);
+
+    // The first job's revision is untouched: its frozen as-built still has the run as a spare.
+    const [revision] = await office.expectOk('get', `/api/jobs/${first.job.id}/packets`);
+    const snapshot = await withDb(async (db) => (await db.query(`select snapshot from packet_revisions where id = $1`, [revision.id])).rows[0].snapshot);
+    expect(snapshot.asBuilt.runs.find((r: { id: string }) => r.id === first.spareRun).isSpare).toBe(true);
+  });
+
+  it('abandons and removes an earlier record with this job’s date, and undoes it', async () => {
+    const c = await openJob('Lawn rework');
+    await withDb((db) => db.query(`update jobs set start_date = '2027-06-01', end_date = '2027-06-02' where id = $1`, [c.job().id]));
+    // The live run (held by no other open job) is abandoned in place by this job.
+    const channel = { amplifierItemId: first.amp.id, channelId: first.amp.channels[0]!.id };
+    await c.write('put', `/runs/${first.liveRun}`, run('Amp to lawn speaker', first.amp.id, first.speaker, channel, { isAbandoned: true }));
+    let view = await c.asBuilt();
+    expect(view.records.siteRecords[first.liveRun]).toMatchObject({
+      abandoned: { jobId: c.job().id, jobTitle: 'Lawn rework', on: '2027-06-02' },
+      changedBy: [{ jobId: c.job().id, change: 'abandoned', on: '2027-06-02' }],
+    });
+    // Deleting the first job's speaker records its removal instead: it leaves this job's system, kept in the database.
+    await c.write('delete', `/runs/${first.liveRun}`);
+    view = await c.asBuilt();
+    expect(view.asBuilt.runs.some((r: { id: string }) => r.id === first.liveRun)).toBe(false);
+    expect(view.records.removedByThisJob).toEqual([{ kind: 'run', id: first.liveRun, label: 'Amp to lawn speaker', removedOn: '2027-06-02' }]);
+    const row = await withDb(async (db) => (await db.query(`select removed_by_job_id, removed_on::text, job_id from runs where id = $1`, [first.liveRun])).rows[0]);
+    expect(row).toEqual({ removed_by_job_id: c.job().id, removed_on: '2027-06-02', job_id: first.job.id });
+    // Undo: the run is back as the first job left it, in service, and no longer held.
+    await c.write('delete', `/site-changes/${first.liveRun}`);
+    view = await c.asBuilt();
+    expect(view.records.siteRecords[first.liveRun]).toMatchObject({ abandoned: null, changedBy: [] });
+    expect(view.asBuilt.runs.find((r: { id: string }) => r.id === first.liveRun).isAbandoned).toBeUndefined();
+    expect(view.records.removedByThisJob).toEqual([]);
+    expect((await c.send('delete', `/site-changes/${first.liveRun}`)).status).toBe(404);
+  });
+
+  it('answers 409 when two open jobs change the same earlier record, also when they race', async () => {
+    const channel = { amplifierItemId: first.amp.id, channelId: first.amp.channels[0]!.id };
+    const d = await openJob('Patio refresh');
+    const e = await openJob('Gate speakers');
+    const body = (label: string) => run(label, first.amp.id, first.speaker, channel);
+    // Both at once: one wins, the other is told which job holds the run; nothing half-written.
+    const [one, two] = await Promise.all([d.send('put', `/runs/${first.liveRun}`, body('Patio label')), e.send('put', `/runs/${first.liveRun}`, body('Gate label'))]);
+    expect([one.status, two.status].sort()).toEqual([200, 409]);
+    const loser = one.status === 409 ? one : two;
+    const winner = one.status === 409 ? e : d;
+    expect(loser.body).toMatchObject({ code: 'RECORD_CHANGED_BY_OTHER_JOB', message: expect.stringContaining(one.status === 409 ? 'Gate speakers' : 'Patio refresh') });
+    const label = await withDb(async (db) => (await db.query(`select label from runs where id = $1`, [first.liveRun])).rows[0].label);
+    expect(label).toBe(one.status === 409 ? 'Gate label' : 'Patio label');
+    // The record stays held until the winner undoes (or issues) its change; then the other job may change it.
+    const other = one.status === 409 ? d : e;
+    expect((await other.send('put', `/runs/${first.liveRun}`, body('Again'))).status).toBe(409);
+    await winner.write('delete', `/site-changes/${first.liveRun}`);
+    expect((await other.send('put', `/runs/${first.liveRun}`, body('Again'))).status).toBe(200);
+  });
+});
