@@ -6,6 +6,7 @@ import { createRoot } from 'react-dom/client';
 
 import { AppProvider } from './app/provider';
 import { AppRouter } from './app/router';
+import { loadPendingWrites } from './features/jobs/utils/pending-writes';
 import { createQueryClient } from './lib/query-client';
 import { startQueryPersistence } from './lib/query-persistence';
 import { registerServiceWorker } from './lib/service-worker';
@@ -23,9 +24,9 @@ startSessionSync();
 void registerServiceWorker().catch(() => undefined);
 
 // The jobs kept on this device for the person last signed in are back in the cache before the first
-// route loader runs, so a job opens with no signal (a quick IndexedDB read; nothing for a new visitor).
-void startQueryPersistence(queryClient)
-  .catch(() => undefined)
+// route loader runs, so a job opens with no signal, and the changes waiting to send are known (quick
+// IndexedDB reads; nothing for a new visitor).
+void Promise.all([startQueryPersistence(queryClient).catch(() => undefined), loadPendingWrites()])
   .finally(() => {
     createRoot(container).render(
       <StrictMode>

@@ -8,6 +8,7 @@ import { buildNavItems } from '../../../components/layouts/nav-items';
 import { paths } from '../../../config/paths';
 import { restoreSession } from '../../../features/auth/api/restore-session';
 import { currentPathOf } from '../../../features/auth/utils/safe-next-path';
+import { WaitingToSend } from '../../../features/jobs/components/waiting-to-send';
 import { useHasOutbox } from '../../../features/outbox/api/get-outbox';
 import { useSessionUser } from '../../../lib/session';
 
@@ -55,9 +56,12 @@ export default function AppRoot() {
       navItems={buildNavItems({ role: user?.role, hasOutbox })}
       headerEnd={
         user ? (
-          <Suspense fallback={<div className={styles.userMenuPlaceholder} />}>
-            <UserMenu user={user} />
-          </Suspense>
+          <>
+            <WaitingToSend />
+            <Suspense fallback={<div className={styles.userMenuPlaceholder} />}>
+              <UserMenu user={user} />
+            </Suspense>
+          </>
         ) : (
           <Link to={paths.signIn.getHref(currentPathOf(location))} className={styles.signIn}>
             Sign in

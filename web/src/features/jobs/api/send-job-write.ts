@@ -3,8 +3,8 @@ import { apiRequest } from '../../../lib/api-client';
 import { responseOf } from '../../../lib/response';
 
 /**
- * One change to a job or its records, in a form that can wait in localStorage while there is no
- * connection and be sent again later.
+ * One change to a job or its records, in a form that can wait in IndexedDB while there is no
+ * connection and be sent again later (utils/pending-writes.ts).
  */
 export type JobWrite = {
   method: 'POST' | 'PUT' | 'PATCH' | 'DELETE';
@@ -20,6 +20,11 @@ export type JobWrite = {
   draftKey?: string;
   /** Plain words for lists and dialogs: "Depth reading on Patio trunk". */
   label: string;
+  /**
+   * Sent as `Idempotency-Key`: made once before the first attempt and kept with the queued write, so
+   * a change whose answer was lost is written once however often it is sent again.
+   */
+  idempotencyKey?: string;
 };
 
 /** The answer of a write: records answer `jobVersion`, job-level writes the whole job with `version`. */
@@ -30,7 +35,7 @@ export function sendJobWrite(jobId: string, version: number, write: JobWrite): P
   return apiRequest(`/api/jobs/${encodeURIComponent(jobId)}${write.path}`, responseOf<JobWriteResponse>(), {
     method: write.method,
     body: write.body,
-    headers: { 'If-Match': `"${version}"` },
+    headers: { 'If-Match': `"${version}"`, ...(write.idempotencyKey ? { 'Idempotency-Key': write.idempotencyKey } : {}) },
   }).then((response) => response ?? {});
 }
 

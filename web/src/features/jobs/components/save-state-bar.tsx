@@ -67,9 +67,8 @@ export function SaveStateBar({ jobId, asBuilt, canEdit = true }: { jobId: string
     return (
       <MessageBar intent="warning" layout="multiline">
         <MessageBarBody>
-          <MessageBarTitle>
-            {pending.length === 1 ? '1 change is' : `${pending.length} changes are`} kept on this device, not yet saved
-          </MessageBarTitle>
+          <MessageBarTitle>Waiting to send ({pending.length})</MessageBarTitle>
+          {pending.length === 1 ? 'One change is' : `${pending.length} changes are`} kept on this device and not on the server yet.{' '}
           {isOnline ? 'Sending them now and again every few seconds.' : 'No connection. They are sent as soon as the phone is back online.'}{' '}
           ({pending.map((entry) => entry.write.label).join('; ')})
         </MessageBarBody>

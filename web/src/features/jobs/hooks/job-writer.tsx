@@ -26,10 +26,11 @@ import { useNotify } from '../../../components/notify';
 import { isApiError } from '../../../lib/api-client';
 import { clearDraft } from '../../../lib/drafts';
 import { describeRequestError } from '../../../lib/form-errors';
-import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
+import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../../job-record';
 import { sendJobWrite, versionAfter, type JobWrite } from '../api/send-job-write';
 import {
   enqueuePendingWrite,
+  newIdempotencyKey,
   readPendingWrites,
   removePendingWrite,
   subscribePendingWrites,
@@ -37,6 +38,17 @@ import {
 } from '../utils/pending-writes';
 
 const useStyles = makeStyles({ action: { minHeight: '48px' } });
+
+/**
+ * A failure that another try may get past: no connection (status 0), the server or its database busy
+ * or down, a session that could not be refreshed with no signal, or the same change still being saved
+ * (`IDEMPOTENCY_IN_PROGRESS`). Such a write is queued, never dropped.
+ */
+export function isWorthRetrying(error: unknown): boolean {
+  if (!isApiError(error)) return false;
+  if (error.status === 0 || error.status === 429 || error.status === 502 || error.status === 503 || error.status === 504) return true;
+  return error.status === 409 && error.code === 'IDEMPOTENCY_IN_PROGRESS';
+}
 
 /** What `save` did with a write. */
 export type SaveOutcome = 'saved' | 'queued' | 'conflict';
@@ -102,15 +114,18 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
   );
 
   const save = useCallback(
-    async (write: JobWrite): Promise<SaveOutcome> => {
+    async (unkeyed: JobWrite): Promise<SaveOutcome> => {
+      // One key per change, before the first attempt: if this attempt reaches the server but its answer
+      // is lost, the queued copy sent later is recognised and not written twice.
+      const write: JobWrite = { ...unkeyed, idempotencyKey: unkeyed.idempotencyKey ?? newIdempotencyKey() };
       const version = currentVersion();
       try {
         await send(write, version);
         await refresh();
         return 'saved';
       } catch (error) {
-        if (isApiError(error) && error.status === 0) {
-          enqueuePendingWrite(jobId, write, version);
+        if (isWorthRetrying(error)) {
+          await enqueuePendingWrite(jobId, write, version);
           return 'queued';
         }
         if (isApiError(error) && error.code === 'VERSION_CONFLICT') {
@@ -143,14 +158,19 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
           await send(entry.write, version);
           rebased.set(entry.baseVersion, currentVersion());
           rebased.set(before, currentVersion());
-          removePendingWrite(jobId, entry.id);
+          await removePendingWrite(jobId, entry.id);
           sent += 1;
         } catch (error) {
-          if (isApiError(error) && error.status === 0) break;
-          removePendingWrite(jobId, entry.id);
+          // No signal yet, the server busy, or this very change still being saved: stop here and keep
+          // the order; the rest goes out on the next try.
+          if (isWorthRetrying(error)) break;
           if (isApiError(error) && error.code === 'VERSION_CONFLICT') {
-            await new Promise<SaveOutcome>((resolve) => setConflict({ write: entry.write, currentVersion: undefined, resolve }));
+            // The entry stays queued until the crew has chosen (a reload meanwhile asks again).
+            await new Promise<SaveOutcome>((resolve) => setConflict({ write: entry.write, currentVersion: error.currentVersion, resolve }));
+            await removePendingWrite(jobId, entry.id);
           } else {
+            // Refused for good (the job was closed, a record deleted…): said, not silently dropped.
+            await removePendingWrite(jobId, entry.id);
             notify.error(`Could not save: ${entry.write.label}`, describeRequestError(error));
           }
         }
@@ -159,7 +179,7 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
       flushing.current = false;
       setIsSending(false);
       if (sent > 0) {
-        notify.success(sent === 1 ? 'Saved the change made offline' : `Saved ${sent} changes made offline`);
+        notify.success(sent === 1 ? 'Sent the change made offline' : `Sent ${sent} changes made offline`);
         await refresh();
       }
     }

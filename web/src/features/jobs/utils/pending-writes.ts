@@ -1,55 +1,176 @@
+import { createStore, del, entries, set, type UseStore } from 'idb-keyval';
+
+import { getSessionUser, subscribeSession } from '../../../lib/session';
 import type { JobWrite } from '../api/send-job-write';
 
-/** A write that could not reach the server yet, with the job version it was made on. */
-export type PendingWrite = { id: string; write: JobWrite; baseVersion: number; queuedAt: string };
+/**
+ * A job write that could not reach the server yet (issue 17, a field app with no signal), with the job
+ * version it was made on. `write.idempotencyKey` was made once, before the first attempt, and goes with
+ * every attempt: the server writes the change once even when an answer was lost on the way.
+ */
+export type PendingWrite = {
+  id: string;
+  jobId: string;
+  /** Whose change it is: only they send it (with their session), and only they see it waiting. */
+  userId: string;
+  write: JobWrite;
+  baseVersion: number;
+  queuedAt: string;
+  /** Order of queuing on this device (sent in this order). */
+  seq: number;
+};
 
-const PREFIX = 'loamline.pending.';
+/**
+ * The queue lives in IndexedDB (`loamline-writes`), so it survives a reload, a crash or a closed tab;
+ * a copy in memory answers the screens synchronously. `loadPendingWrites()` fills it at start-up.
+ */
 const listeners = new Set<() => void>();
-const cache = new Map<string, { raw: string | null; value: PendingWrite[] }>();
+let all: PendingWrite[] = [];
+let snapshot = new Map<string, PendingWrite[]>();
+let loaded: Promise<void> | undefined;
+let store: UseStore | undefined;
+let lastSeq = 0;
 
-function raw(jobId: string): string | null {
-  try {
-    return localStorage.getItem(PREFIX + jobId);
-  } catch {
-    return null;
-  }
-}
+const hasIndexedDb = () => typeof indexedDB !== 'undefined';
+const writesStore = () => (store ??= createStore('loamline-writes', 'writes'));
+const LEGACY_PREFIX = 'loamline.pending.';
 
-/** Writes waiting for a connection, oldest first. */
-export function readPendingWrites(jobId: string): PendingWrite[] {
-  const current = raw(jobId);
-  const cached = cache.get(jobId);
-  if (cached && cached.raw === current) return cached.value;
-  let value: PendingWrite[] = [];
-  try {
-    value = current ? (JSON.parse(current) as PendingWrite[]) : [];
-  } catch {
-    value = [];
-  }
-  cache.set(jobId, { raw: current, value });
-  return value;
-}
-
-function store(jobId: string, writes: PendingWrite[]): void {
-  try {
-    if (writes.length === 0) localStorage.removeItem(PREFIX + jobId);
-    else localStorage.setItem(PREFIX + jobId, JSON.stringify(writes));
-  } catch {
-    // Storage unavailable: the write stays only in the form's draft.
-  }
+function publish(): void {
+  snapshot = new Map();
   for (const listener of listeners) listener();
 }
 
-export function enqueuePendingWrite(jobId: string, write: JobWrite, baseVersion: number): void {
-  const id = `${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 8)}`;
-  store(jobId, [...readPendingWrites(jobId), { id, write, baseVersion, queuedAt: new Date().toISOString() }]);
+function nextSeq(): number {
+  lastSeq = Math.max(lastSeq + 1, Date.now() * 1000);
+  return lastSeq;
 }
 
-export function removePendingWrite(jobId: string, id: string): void {
-  store(jobId, readPendingWrites(jobId).filter((entry) => entry.id !== id));
+/** A new key for one change (a UUID where the browser has one). */
+export function newIdempotencyKey(): string {
+  if (typeof crypto !== 'undefined' && typeof crypto.randomUUID === 'function') return crypto.randomUUID();
+  return `${Date.now().toString(36)}-${Math.random().toString(36).slice(2)}-${Math.random().toString(36).slice(2)}`;
 }
 
+/**
+ * Reads the queue from IndexedDB once per page load (main.tsx awaits it before the first render).
+ * Writes queued by an earlier version of the app in localStorage are moved over.
+ */
+export function loadPendingWrites(): Promise<void> {
+  loaded ??= (async () => {
+    try {
+      if (hasIndexedDb()) {
+        const stored = (await entries<string, PendingWrite>(writesStore())).map(([, value]) => value);
+        all = [...all.filter((entry) => !stored.some((s) => s.id === entry.id)), ...stored].sort((a, b) => a.seq - b.seq);
+        lastSeq = Math.max(lastSeq, ...all.map((entry) => entry.seq));
+      }
+      await moveLegacyWrites();
+    } catch {
+      // IndexedDB refused (private mode, storage cleared): the queue works in memory for this page.
+    }
+    publish();
+  })();
+  return loaded;
+}
+
+async function moveLegacyWrites(): Promise<void> {
+  const user = getSessionUser();
+  let keys: string[] = [];
+  try {
+    keys = Object.keys(localStorage).filter((key) => key.startsWith(LEGACY_PREFIX));
+  } catch {
+    return;
+  }
+  for (const key of keys) {
+    const jobId = key.slice(LEGACY_PREFIX.length);
+    try {
+      const legacy = JSON.parse(localStorage.getItem(key) ?? '[]') as { id: string; write: JobWrite; baseVersion: number; queuedAt: string }[];
+      for (const entry of legacy) {
+        const moved: PendingWrite = { ...entry, jobId, userId: user?.id ?? '', seq: nextSeq(), write: { ...entry.write, idempotencyKey: newIdempotencyKey() } };
+        all.push(moved);
+        if (hasIndexedDb()) await set(moved.id, moved, writesStore());
+      }
+      localStorage.removeItem(key);
+    } catch {
+      // Unreadable: left where it is.
+    }
+  }
+}
+
+function mine(entry: PendingWrite, userId: string | undefined): boolean {
+  // Entries moved from localStorage before anyone was known belong to whoever signs in first.
+  return entry.userId === '' || entry.userId === userId;
+}
+
+/** This job's writes waiting for a connection, oldest first (the same array until the queue changes). */
+export function readPendingWrites(jobId: string): PendingWrite[] {
+  const userId = getSessionUser()?.id;
+  const cacheKey = `${userId ?? ''}|${jobId}`;
+  let value = snapshot.get(cacheKey);
+  if (!value) {
+    value = all.filter((entry) => entry.jobId === jobId && mine(entry, userId));
+    snapshot.set(cacheKey, value);
+  }
+  return value;
+}
+
+/** Every write of the signed-in person waiting on this device, oldest first (the indicator). */
+export function readAllPendingWrites(): PendingWrite[] {
+  const userId = getSessionUser()?.id;
+  const cacheKey = `${userId ?? ''}|*`;
+  let value = snapshot.get(cacheKey);
+  if (!value) {
+    value = userId ? all.filter((entry) => mine(entry, userId)) : [];
+    snapshot.set(cacheKey, value);
+  }
+  return value;
+}
+
+/**
+ * Queues `write` (which must carry its idempotency key) and resolves once it is stored durably, so a
+ * "kept on this device" message is true when it shows.
+ */
+export async function enqueuePendingWrite(jobId: string, write: JobWrite, baseVersion: number): Promise<PendingWrite> {
+  const entry: PendingWrite = {
+    id: `${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 10)}`,
+    jobId,
+    userId: getSessionUser()?.id ?? '',
+    write: { ...write, idempotencyKey: write.idempotencyKey ?? newIdempotencyKey() },
+    baseVersion,
+    queuedAt: new Date().toISOString(),
+    seq: nextSeq(),
+  };
+  all = [...all, entry];
+  publish();
+  if (hasIndexedDb()) {
+    try {
+      await set(entry.id, entry, writesStore());
+    } catch {
+      // Stored in memory only for this page; the form's draft still holds the input.
+    }
+  }
+  return entry;
+}
+
+export async function removePendingWrite(jobId: string, id: string): Promise<void> {
+  all = all.filter((entry) => !(entry.jobId === jobId && entry.id === id));
+  publish();
+  if (hasIndexedDb()) await del(id, writesStore()).catch(() => undefined);
+}
+
+/** Calls `listener` when the queue changes or someone else signs in (whose queue is another). */
 export function subscribePendingWrites(listener: () => void): () => void {
   listeners.add(listener);
-  return () => listeners.delete(listener);
+  const unsubscribeSession = subscribeSession(listener);
+  return () => {
+    listeners.delete(listener);
+    unsubscribeSession();
+  };
+}
+
+/** Tests: forget the in-memory queue and what was loaded. */
+export function resetPendingWritesForTests(): void {
+  all = [];
+  loaded = undefined;
+  lastSeq = 0;
+  publish();
 }
