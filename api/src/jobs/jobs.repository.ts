@@ -38,6 +38,7 @@ import {
 } from '../db/schema/index.js';
 import type { DepthRuleTable } from '../domain/depth/depth-rules.schema.js';
 import type { JobListQuery, JobSortField } from '../domain/jobs/job.schema.js';
+import type { PacketSnapshot } from '../domain/packet/packet-snapshot.js';
 import type { JobRecordRows } from './as-built-rows.js';
 
 /** Escapes LIKE wildcards so a search for "50%" finds the text "50%". */
@@ -477,6 +478,28 @@ export class JobsRepository {
       .update(siteRecordChanges)
       .set({ changedOn: workDate, issuedAt: sql`now()` })
       .where(and(eq(siteRecordChanges.jobId, jobId), isNull(siteRecordChanges.issuedAt)));
+  }
+
+  /**
+   * The site's newest issued packet revision (of any job), with its frozen as-built: the packet a new
+   * issue supersedes. Undefined for the site's first packet.
+   */
+  async latestSitePacket(siteId: string, tx: Tx) {
+    const [row] = await tx
+      .select({
+        revisionId: packetRevisions.id,
+        jobId: packetRevisions.jobId,
+        jobTitle: jobs.title,
+        revision: packetRevisions.revision,
+        issuedAt: packetRevisions.issuedAt,
+        asBuilt: sql<PacketSnapshot['asBuilt'] | null>`${packetRevisions.snapshot} -> 'asBuilt'`,
+      })
+      .from(packetRevisions)
+      .innerJoin(jobs, eq(jobs.id, packetRevisions.jobId))
+      .where(eq(jobs.siteId, siteId))
+      .orderBy(desc(packetRevisions.issuedAt), desc(packetRevisions.revision))
+      .limit(1);
+    return row;
   }
 
   /** Whether the job changed records of earlier jobs (such a job cannot simply be deleted). */

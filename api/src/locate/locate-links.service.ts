@@ -104,18 +104,22 @@ export class LocateLinksService {
   }
 
   /**
-   * At issue: the locate URL the revision's QR code prints. Reuses the site's active long-lived link
-   * when a revision already prints it (its token is known only there); otherwise makes a new one.
+   * At issue: the locate URL the revision's QR code prints. Reuses (and renews) the site's active
+   * long-lived link when a revision already prints it (its token is known only there); otherwise makes a
+   * new one.
    * Runs inside the issue transaction, so a revision never exists without its locate URL.
    */
   async urlForIssuedRevision(actor: AuthUser, siteId: string, revisionId: string, tx: Tx): Promise<string> {
     const existing = await this.repository.activeLongLivedUrl(siteId, tx);
+    const days = this.config.get('LOCATE_LONG_LIVED_DAYS', { infer: true });
     if (existing) {
+      // One link per site for every packet's QR code: each issue renews it for the full term from now
+      // (never shortens it), so the newest packet's code works as long as a first packet's would.
+      await this.repository.renewLink(existing.linkId, new Date(Date.now() + days * DAY_MS), tx);
       await this.repository.attachToRevision(revisionId, existing.linkId, existing.url, tx);
       return existing.url;
     }
     const token = newOpaqueToken();
-    const days = this.config.get('LOCATE_LONG_LIVED_DAYS', { infer: true });
     const link = await this.repository.insertLink(
       {
         companyId: actor.companyId,

@@ -132,6 +132,14 @@ export class LocateRepository {
     return row;
   }
 
+  /** Moves a link's expiry to `expiresAt` when that is later (a renewal never shortens a link). */
+  async renewLink(linkId: string, expiresAt: Date, tx: Tx): Promise<void> {
+    await tx
+      .update(locateLinks)
+      .set({ expiresAt: sql`greatest(${locateLinks.expiresAt}, ${expiresAt.toISOString()}::timestamptz)` })
+      .where(eq(locateLinks.id, linkId));
+  }
+
   async attachToRevision(revisionId: string, linkId: string, url: string, tx: Tx): Promise<void> {
     await tx.insert(revisionLocateLinks).values({ revisionId, linkId, url });
   }

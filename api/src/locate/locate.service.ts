@@ -173,6 +173,9 @@ export class LocateService {
         issuedAt: r.issuedAt.toISOString(),
         asBuilt: r.snapshot.asBuilt,
         analysis: r.snapshot.analysis,
+        workDate: r.snapshot.job?.endDate ?? r.snapshot.job?.startDate ?? null,
+        ...(r.snapshot.siteRecords ? { siteRecords: r.snapshot.siteRecords } : {}),
+        ...(r.snapshot.removedRecords ? { removedIds: r.snapshot.removedRecords.map((x) => x.id) } : {}),
       }));
     return buildSiteMap(sources);
   }

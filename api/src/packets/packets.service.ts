@@ -11,6 +11,7 @@ import { canIssuePacket } from '../domain/jobs/job-rules.js';
 import { packetFileBase } from '../domain/packet/manifest.js';
 import { findingKey, type IssuePacketInput, matchAcknowledgements } from '../domain/packet/known-exceptions.js';
 import type { PacketSnapshot } from '../domain/packet/packet-snapshot.js';
+import { whatChanged } from '../domain/packet/what-changed.js';
 import { jobWorkDate, toAsBuilt, toChannelSetup, toSiteRecords } from '../jobs/as-built-rows.js';
 import { denied, jobNotFound, versionConflict } from '../jobs/job-errors.js';
 import { JobsRepository } from '../jobs/jobs.repository.js';
@@ -175,6 +176,22 @@ export class PacketsService {
       const { problems, accepted } = matchAcknowledgements(analysis.findings, input.acknowledgements ?? []);
       if (problems.length > 0) throw acknowledgementsRefused(problems);
       const issuedAt = new Date();
+      // The site's record: provenance of every record, what this job took out, and what changed
+      // against the site's previous packet (which this one supersedes).
+      const siteRecords = toSiteRecords(rows);
+      const removedRecords = rows.system?.removedByThisJob ?? [];
+      const previous = await this.jobs.latestSitePacket(job.siteId, tx);
+      const changes =
+        previous && previous.asBuilt
+          ? whatChanged({
+              supersedes: { revisionId: previous.revisionId, jobId: previous.jobId, jobTitle: previous.jobTitle, revision: previous.revision, issuedAt: previous.issuedAt.toISOString() },
+              previous: previous.asBuilt,
+              current: asBuilt,
+              records: siteRecords,
+              removed: removedRecords,
+              job: { id: job.id, title: job.title, workDate: jobWorkDate(job) },
+            })
+          : undefined;
       const snapshot: PacketSnapshot = {
         format: 1,
         revision: job.revision,
@@ -213,6 +230,9 @@ export class PacketsService {
         analysis,
         channelSetups: Object.fromEntries(rows.channels.map((c) => [c.id, toChannelSetup(c)])),
         ...(accepted.length > 0 ? { acknowledgements: accepted } : {}),
+        siteRecords,
+        removedRecords,
+        ...(changes ? { whatChanged: changes } : {}),
       };
       let inserted: PacketRevisionSummary;
       try {

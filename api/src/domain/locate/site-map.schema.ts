@@ -11,6 +11,19 @@ const FromRevisionShape = {
   jobTitle: z.string(),
 };
 
+/**
+ * Provenance of a run or item (issue 21): the job that installed it and its work date (ISO date; for
+ * packets issued before provenance was kept, the work date of the revision's job, or null when
+ * unknown), and since when it is abandoned in place. Always set by buildSiteMap.
+ */
+const ProvenanceShape = {
+  installedByJobId: z.uuid().optional(),
+  installedByJobTitle: z.string().optional(),
+  installedOn: z.string().nullable().optional(),
+  /** Abandoned in place since (ISO date), or null while in service or when not recorded. */
+  abandonedOn: z.string().nullable().optional(),
+};
+
 export const SiteMapReferencePointSchema = z.object({ id: z.string(), label: z.string(), x: z.number(), y: z.number() });
 
 export const SiteMapFeatureSchema = z.object({
@@ -24,6 +37,7 @@ export type SiteMapFeature = z.infer<typeof SiteMapFeatureSchema>;
 
 export const SiteMapItemSchema = z.object({
   ...FromRevisionShape,
+  ...ProvenanceShape,
   id: z.string(),
   kind: z.enum(['amplifier', 'speaker', 'subwoofer', 'junction', 'spare_end', 'wall_entry']),
   label: z.string(),
@@ -47,6 +61,7 @@ export const SiteMapItemSchema = z.object({
 
 export const SiteMapRunSchema = z.object({
   ...FromRevisionShape,
+  ...ProvenanceShape,
   id: z.string(),
   label: z.string(),
   fromItemId: z.string(),

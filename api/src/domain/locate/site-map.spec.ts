@@ -50,6 +50,45 @@ describe(buildSiteMap.name, () => {
     expect(sut.runs.find((r) => r.id === rest[1]!.id)).toMatchObject({ revisionId: REV_A.id });
   });
 
+  it('should say per run which job installed it and when, since when it is abandoned, and drop removed runs (issue 21)', () => {
+    const [first, second, third] = DEMO_AS_BUILT.runs;
+    const info = (jobId: string, jobTitle: string, on: string, abandoned: { jobId: string; jobTitle: string; on: string } | null = null) => ({
+      kind: 'run' as const,
+      isThisJob: false,
+      installedBy: { jobId, jobTitle },
+      installedOn: on,
+      changedBy: [],
+      abandoned,
+    });
+    // The later job's snapshot is the whole site system: the first job's runs with their own provenance,
+    // its own new run, the first run abandoned by it, and the third run taken out (not in its system).
+    const later: AsBuilt = {
+      ...DEMO_AS_BUILT,
+      runs: [{ ...first!, isAbandoned: true }, second!, { ...second!, id: 'run-new', label: 'Planter to fire pit' }],
+    };
+    const sut = buildSiteMap([
+      {
+        ...source(later, REV_B),
+        workDate: '2027-04-02',
+        siteRecords: {
+          [first!.id]: info(REV_A.jobId, 'Garden speakers', '2026-05-14', { jobId: REV_B.jobId, jobTitle: 'Fire pit zone', on: '2027-04-02' }),
+          [second!.id]: info(REV_A.jobId, 'Garden speakers', '2026-05-14'),
+          'run-new': { ...info(REV_B.jobId, 'Fire pit zone', '2027-04-02'), isThisJob: true },
+        },
+        removedIds: [third!.id],
+      },
+      { ...source(DEMO_AS_BUILT, REV_A), workDate: '2026-05-14' },
+    ]);
+    expect(sut.runs.find((r) => r.id === second!.id)).toMatchObject({ installedByJobTitle: 'Garden speakers', installedOn: '2026-05-14', abandonedOn: null });
+    expect(sut.runs.find((r) => r.id === first!.id)).toMatchObject({ installedByJobTitle: 'Garden speakers', isAbandoned: true, abandonedOn: '2027-04-02' });
+    expect(sut.runs.find((r) => r.id === 'run-new')).toMatchObject({ label: 'Planter to fire pit', installedByJobId: REV_B.jobId, installedOn: '2027-04-02' });
+    expect(sut.runs.some((r) => r.id === third!.id)).toBe(false);
+    expect(sut.geojson!.features.some((f) => f.id === third!.id)).toBe(false);
+    // A revision issued before provenance was kept: its own job, on that job's work date.
+    const old = buildSiteMap([{ ...source(DEMO_AS_BUILT, REV_A), workDate: '2026-05-14' }]);
+    expect(old.runs[0]).toMatchObject({ installedByJobId: REV_A.jobId, installedOn: '2026-05-14', abandonedOn: null });
+  });
+
   it('should copy no notes, serials or models, and give no GeoJSON without a GPS origin', () => {
     const noted: AsBuilt = {
       ...DEMO_AS_BUILT,

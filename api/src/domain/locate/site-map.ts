@@ -1,5 +1,6 @@
 import type { AsBuiltAnalysis } from '../analysis/analyze.js';
 import type { AsBuilt } from '../as-built/as-built.schema.js';
+import type { SiteRecordInfo } from '../jobs/job.schema.js';
 import type { PlanPoint } from '../as-built/common.schema.js';
 import { formatGauge } from '../cable/wire.js';
 import { buildFeatureCollection, type GeoJsonFeature, type GeoJsonItemInput, type GeoJsonRunInput } from '../geometry/geojson.js';
@@ -15,6 +16,12 @@ export interface SiteMapSource {
   issuedAt: string;
   asBuilt: AsBuilt;
   analysis: AsBuiltAnalysis;
+  /** The revision's job's work date (end, else start date), for records without provenance. */
+  workDate?: string | null;
+  /** Provenance of each record (snapshots issued since issue 21). */
+  siteRecords?: Record<string, SiteRecordInfo>;
+  /** Records this revision's job took out of the ground: dropped from the map. */
+  removedIds?: readonly string[];
 }
 
 /**
@@ -35,6 +42,13 @@ export function buildSiteMap(sources: readonly SiteMapSource[]): SiteMap {
   for (const source of ordered) {
     const { asBuilt, analysis } = source;
     const from = { revisionId: source.revisionId, revision: source.revision, jobId: source.jobId, jobTitle: source.jobTitle };
+    // Who put each record in and when: the snapshot's provenance, else the revision's own job and work date.
+    const provenance = (id: string) => {
+      const info = source.siteRecords?.[id];
+      return info
+        ? { installedByJobId: info.installedBy.jobId, installedByJobTitle: info.installedBy.jobTitle, installedOn: info.installedOn, abandonedOn: info.abandoned?.on ?? null }
+        : { installedByJobId: source.jobId, installedByJobTitle: source.jobTitle, installedOn: source.workDate ?? null, abandonedOn: null };
+    };
     for (const p of asBuilt.referencePoints) referencePoints.set(p.id, { id: p.id, label: p.label, x: p.x, y: p.y });
 
     const positions = new Map(analysis.positions.map((p) => [p.itemId, p]));
@@ -42,6 +56,7 @@ export function buildSiteMap(sources: readonly SiteMapSource[]): SiteMap {
       const pos = positions.get(item.id);
       items.set(item.id, {
         ...from,
+        ...provenance(item.id),
         id: item.id,
         kind: item.kind,
         label: item.label,
@@ -70,6 +85,7 @@ export function buildSiteMap(sources: readonly SiteMapSource[]): SiteMap {
       const route: PlanPoint[] | null = run.route ?? (a && b ? [{ x: a.x, y: a.y }, { x: b.x, y: b.y }] : null);
       return {
         ...from,
+        ...provenance(run.id),
         id: run.id,
         label: run.label,
         fromItemId: run.fromItemId,
@@ -93,6 +109,11 @@ export function buildSiteMap(sources: readonly SiteMapSource[]): SiteMap {
       };
     });
     for (const run of runList) runs.set(run.id, run);
+    for (const id of source.removedIds ?? []) {
+      runs.delete(id);
+      items.delete(id);
+      features.delete(id);
+    }
 
     const origin = asBuilt.site?.origin;
     if (origin !== undefined) {

@@ -1,7 +1,9 @@
 import type { AsBuiltAnalysis } from '../analysis/analyze.js';
 import type { AsBuilt } from '../as-built/as-built.schema.js';
 import type { ChannelSetup } from '../jobs/job-record.schema.js';
+import type { SiteRecordInfo } from '../jobs/job.schema.js';
 import type { FindingAcknowledgement } from './known-exceptions.js';
+import type { WhatChanged } from './what-changed.js';
 
 export type PaperSize = 'letter' | 'a4';
 export type PacketUnits = 'imperial' | 'metric';
@@ -83,6 +85,15 @@ export interface PacketSnapshot {
    * They print as Known exceptions in the homeowner's words. Absent in revisions issued before this existed.
    */
   acknowledgements?: FindingAcknowledgement[];
+  /**
+   * Issue 21: `asBuilt` is the site's whole installed system as this issue left it. Per record id: who
+   * installed it and when, who changed or abandoned it. Absent in revisions issued before.
+   */
+  siteRecords?: Record<string, SiteRecordInfo>;
+  /** Records this job took out of the ground (not in `asBuilt` any more), with the date. */
+  removedRecords?: { kind: 'item' | 'run'; id: string; label: string; removedOn: string }[];
+  /** What changed against the site's previous packet, which this one supersedes; absent for a site's first packet. */
+  whatChanged?: WhatChanged;
 }
 
 /** A photo as it prints in the appendix: already resized for print and inlined. */

@@ -15,6 +15,7 @@ import {
   formatWatts,
 } from './packet-format.js';
 import type { PacketPhoto, PacketSignature, PacketSnapshot, PacketUnits } from './packet-snapshot.js';
+import { type WhatChangedView, whatChangedView } from './what-changed.js';
 
 /**
  * The sections of the packet, in print order (PRODUCT.md "The handover packet"). The homeowner's pages
@@ -24,6 +25,7 @@ import type { PacketPhoto, PacketSignature, PacketSnapshot, PacketUnits } from '
 export const PACKET_SECTIONS = [
   { id: 'summary', title: 'System summary' },
   { id: 'known-exceptions', title: 'Known exceptions' },
+  { id: 'what-changed', title: 'What changed' },
   { id: 'site-plan', title: 'Site plan' },
   { id: 'wiring', title: 'Wiring schematic' },
   { id: 'equipment', title: 'Equipment schedule' },
@@ -86,6 +88,8 @@ export interface PacketViewModel {
     cableTotals: { cableType: string; runs: string; length: string; spare: string }[];
   };
   knownExceptions: { text: string; reason: string }[];
+  /** Against the site's previous packet, which this one supersedes (null for a site's first packet). */
+  whatChanged: WhatChangedView | null;
   /** The appendix for whoever services the system: full figures, findings in engineering terms, method. */
   engineering: {
     findingCounts: string;
@@ -311,6 +315,7 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
   const isPresent: Record<PacketSectionId, boolean> = {
     summary: true,
     'known-exceptions': knownExceptions.length > 0,
+    'what-changed': snapshot.whatChanged !== undefined,
     'site-plan': true,
     wiring: true,
     equipment: true,
@@ -401,6 +406,7 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
       })),
     },
     knownExceptions,
+    whatChanged: whatChangedView(snapshot),
     engineering: {
       findingCounts:
         summary.critical + summary.warning === 0

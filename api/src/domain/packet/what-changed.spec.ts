@@ -1,0 +1,51 @@
+import { describe, expect, it } from 'vitest';
+
+import type { AsBuilt } from '../as-built/as-built.schema.js';
+import { DEMO_AS_BUILT } from '../as-built/demo-as-built.js';
+import { whatChanged, whatChangedView } from './what-changed.js';
+
+const supersedes = { revisionId: 'rev-1', jobId: 'job-a', jobTitle: 'Garden speakers', revision: 1, issuedAt: '2026-05-14T16:00:00.000Z' };
+const job = { id: 'job-b', title: 'Fire pit zone', workDate: '2027-04-02' };
+
+describe(whatChanged.name, () => {
+  const [first, second, third, ...rest] = DEMO_AS_BUILT.runs;
+  // Against the first packet: the first run abandoned in place, the second changed (its spare flag),
+  // the third taken out, a new run added; everything else as it was.
+  const current: AsBuilt = {
+    ...DEMO_AS_BUILT,
+    runs: [
+      { ...first!, isAbandoned: true },
+      { ...second!, isSpare: !(second!.isSpare ?? false) },
+      ...rest,
+      { ...second!, id: 'run-new', label: 'Planter to fire pit' },
+    ],
+  };
+
+  it('lists what was added, changed, abandoned and removed against the superseded packet, with dates and jobs', () => {
+    const sut = whatChanged({
+      supersedes,
+      previous: DEMO_AS_BUILT,
+      current,
+      records: {
+        'run-new': { kind: 'run', isThisJob: true, installedBy: { jobId: 'job-b', jobTitle: 'Fire pit zone' }, installedOn: '2027-04-02', changedBy: [], abandoned: null },
+      },
+      removed: [{ kind: 'run', id: third!.id, label: third!.label, removedOn: '2027-04-03' }],
+      job,
+    });
+    expect(sut.supersedes).toBe(supersedes);
+    expect(sut.added).toEqual([{ kind: 'run', id: 'run-new', label: 'Planter to fire pit', on: '2027-04-02', jobTitle: 'Fire pit zone' }]);
+    expect(sut.abandoned.map((r) => r.id)).toEqual([first!.id]);
+    expect(sut.changed.map((r) => r.id)).toEqual([second!.id]);
+    expect(sut.removed).toEqual([{ kind: 'run', id: third!.id, label: third!.label, on: '2027-04-03', jobTitle: 'Fire pit zone' }]);
+    // Items the later system still has unchanged are not listed.
+    expect([...sut.added, ...sut.changed, ...sut.abandoned, ...sut.removed].some((r) => r.kind === 'item')).toBe(false);
+  });
+
+  it('prints the superseded packet and only the groups that have rows, dates written out', () => {
+    const changes = whatChanged({ supersedes, previous: DEMO_AS_BUILT, current: DEMO_AS_BUILT, records: {}, removed: [], job });
+    const view = whatChangedView({ whatChanged: changes, settings: { timeZone: 'UTC', locale: 'en-US' } });
+    expect(view!.supersedes).toContain('supersedes revision 1 of "Garden speakers", issued May 14, 2026');
+    expect(view!.groups).toEqual([]);
+    expect(whatChangedView({ settings: {} })).toBeNull();
+  });
+});

@@ -1,0 +1,118 @@
+import type { AsBuilt } from '../as-built/as-built.schema.js';
+import { type DateStyle, formatDate } from '../format/date-time.js';
+import type { SiteRecordInfo } from '../jobs/job.schema.js';
+
+/*
+ * Issue 21: a packet is a revision of the site's record. When it follows an earlier packet of the same
+ * property (a later revision of the job, or a later job), it says which packet it supersedes and what
+ * changed against that packet's frozen system: records added, changed, abandoned in place and removed,
+ * each with its date. Frozen into the snapshot at issue, so the printed page never changes.
+ */
+
+/** The earlier packet of the site this one replaces as the current record. */
+export interface SupersededPacket {
+  revisionId: string;
+  jobId: string;
+  jobTitle: string;
+  revision: number;
+  /** ISO timestamp of that packet's issue. */
+  issuedAt: string;
+}
+
+export interface ChangedRecord {
+  kind: 'item' | 'run';
+  id: string;
+  label: string;
+  /** ISO date the change happened (the work date of the job that made it). */
+  on: string;
+  /** The job that made the change. */
+  jobTitle: string;
+}
+
+export interface WhatChanged {
+  supersedes: SupersededPacket;
+  added: ChangedRecord[];
+  changed: ChangedRecord[];
+  abandoned: ChangedRecord[];
+  removed: ChangedRecord[];
+}
+
+type SystemRecord = { kind: 'item' | 'run'; id: string; label: string; isAbandoned: boolean; json: string };
+
+function recordsOf(asBuilt: AsBuilt): Map<string, SystemRecord> {
+  const out = new Map<string, SystemRecord>();
+  for (const item of asBuilt.items) out.set(item.id, { kind: 'item', id: item.id, label: item.label, isAbandoned: false, json: JSON.stringify(item) });
+  for (const run of asBuilt.runs) out.set(run.id, { kind: 'run', id: run.id, label: run.label, isAbandoned: run.isAbandoned === true, json: JSON.stringify(run) });
+  return out;
+}
+
+/**
+ * What changed from the superseded packet's system to this one. `records` is the provenance of the
+ * current system (who installed, changed, abandoned each record, and when); `removed` lists the records
+ * this job took out (absent from the current system), with their dates; `job` is the issuing job.
+ */
+export function whatChanged(input: {
+  supersedes: SupersededPacket;
+  previous: AsBuilt;
+  current: AsBuilt;
+  records: Readonly<Record<string, SiteRecordInfo>>;
+  removed: readonly { kind: 'item' | 'run'; id: string; label: string; removedOn: string }[];
+  job: { id: string; title: string; workDate: string };
+}): WhatChanged {
+  const before = recordsOf(input.previous);
+  const after = recordsOf(input.current);
+  const result: WhatChanged = { supersedes: input.supersedes, added: [], changed: [], abandoned: [], removed: [] };
+  for (const record of after.values()) {
+    const info = input.records[record.id];
+    const old = before.get(record.id);
+    const entry = (on: string, jobTitle: string): ChangedRecord => ({ kind: record.kind, id: record.id, label: record.label, on, jobTitle });
+    if (!old) {
+      result.added.push(entry(info?.installedOn ?? input.job.workDate, info?.installedBy.jobTitle ?? input.job.title));
+    } else if (record.isAbandoned && !old.isAbandoned) {
+      result.abandoned.push(entry(info?.abandoned?.on ?? input.job.workDate, info?.abandoned?.jobTitle ?? input.job.title));
+    } else if (record.json !== old.json) {
+      const last = info?.changedBy.at(-1);
+      result.changed.push(entry(last?.on ?? input.job.workDate, last?.jobTitle ?? input.job.title));
+    }
+  }
+  const removedById = new Map(input.removed.map((r) => [r.id, r]));
+  for (const record of before.values()) {
+    if (after.has(record.id)) continue;
+    const removal = removedById.get(record.id);
+    result.removed.push({ kind: record.kind, id: record.id, label: record.label, on: removal?.removedOn ?? input.job.workDate, jobTitle: input.job.title });
+  }
+  return result;
+}
+
+/** The packet's "What changed" section, every date written out. */
+export interface WhatChangedView {
+  supersedes: string;
+  groups: { title: string; rows: { label: string; kind: string; on: string; job: string }[] }[];
+}
+
+const KIND_WORDS: Record<'item' | 'run', string> = { item: 'Equipment', run: 'Cable run' };
+
+/**
+ * The "What changed" section of a packet from its frozen snapshot, or null for a site's first packet
+ * (and for revisions issued before the site record existed). Dates in the company's zone and locale.
+ */
+export function whatChangedView(snapshot: {
+  whatChanged?: WhatChanged;
+  settings: { timeZone?: string | null; locale?: string };
+}): WhatChangedView | null {
+  const changes = snapshot.whatChanged;
+  if (!changes) return null;
+  const style: DateStyle = { timeZone: snapshot.settings.timeZone ?? null, locale: snapshot.settings.locale ?? null };
+  const rows = (list: readonly ChangedRecord[]) =>
+    list.map((r) => ({ label: r.label, kind: KIND_WORDS[r.kind], on: formatDate(r.on, style), job: r.jobTitle }));
+  const { supersedes } = changes;
+  return {
+    supersedes: `This packet supersedes revision ${supersedes.revision} of "${supersedes.jobTitle}", issued ${formatDate(supersedes.issuedAt, style)}. It describes the whole system at this property as it stands now; the earlier packet shows it as it stood then.`,
+    groups: [
+      { title: 'Added', rows: rows(changes.added) },
+      { title: 'Changed', rows: rows(changes.changed) },
+      { title: 'Abandoned in place (still in the ground)', rows: rows(changes.abandoned) },
+      { title: 'Removed', rows: rows(changes.removed) },
+    ].filter((g) => g.rows.length > 0),
+  };
+}
