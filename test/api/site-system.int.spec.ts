@@ -151,6 +151,27 @@ describe('the site system: a later job builds on what is in the ground', () => {
     const [revision] = await office.expectOk('get', `/api/jobs/${first.job.id}/packets`);
     const snapshot = await withDb(async (db) => (await db.query(`select snapshot from packet_revisions where id = $1`, [revision.id])).rows[0].snapshot);
     expect(snapshot.asBuilt.runs.find((r: { id: string }) => r.id === first.spareRun).isSpare).toBe(true);
+
+    // Issuing the second job freezes the whole site system, says what changed against the first job's
+    // packet (which it supersedes), and renews the site's one locate link instead of making another.
+    const linkBefore = await withDb(async (db) => (await db.query(`select id, expires_at from locate_links where site_id = $1`, [siteId])).rows);
+    expect(linkBefore).toHaveLength(1);
+    await withDb((db) => db.query(`update locate_links set expires_at = now() + interval '400 days' where id = $1`, [linkBefore[0].id]));
+    const issued = await issue(b.job());
+    const second = await withDb(async (db) => (await db.query(`select snapshot from packet_revisions where id = $1`, [issued.id])).rows[0].snapshot);
+    expect(second.asBuilt.runs.map((r: { id: string }) => r.id)).toEqual(expect.arrayContaining([first.liveRun, first.spareRun, newRun]));
+    expect(second.siteRecords[first.speaker]).toMatchObject({ installedBy: { jobId: first.job.id }, installedOn: '2026-05-14', isThisJob: false });
+    expect(second.whatChanged.supersedes).toMatchObject({ revisionId: revision.id, jobId: first.job.id, jobTitle: 'Garden speakers', revision: 1 });
+    expect(second.whatChanged.added.map((r: { label: string; on: string }) => `${r.label} ${r.on}`).sort()).toEqual(
+      ['Bench speaker 2027-04-02', 'Fire pit speaker 2027-04-02', 'Planter to bench 2027-04-02', 'Planter to fire pit 2027-04-02'],
+    );
+    expect(second.whatChanged.changed).toEqual([{ kind: 'run', id: first.spareRun, label: 'Spare to planter', on: '2027-04-02', jobTitle: 'Fire pit zone' }]);
+    const linkAfter = await withDb(async (db) => (await db.query(`select id, expires_at from locate_links where site_id = $1`, [siteId])).rows);
+    expect(linkAfter.map((l: { id: string }) => l.id)).toEqual([linkBefore[0].id]);
+    // Renewed for the full term (LOCATE_LONG_LIVED_DAYS, ten years by default) from this issue, not the 400 days left.
+    expect(new Date(linkAfter[0].expires_at).getTime() - Date.now()).toBeGreaterThan(3000 * 86_400_000);
+    const urls = await withDb(async (db) => (await db.query(`select distinct url from revision_locate_links where link_id = $1`, [linkBefore[0].id])).rows);
+    expect(urls).toHaveLength(1);
   });
 
   it('abandons and removes an earlier record with this job’s date, and undoes it', async () => {

@@ -39,10 +39,19 @@ export interface WhatChanged {
 
 type SystemRecord = { kind: 'item' | 'run'; id: string; label: string; isAbandoned: boolean; json: string };
 
+/** JSON with object keys sorted, so a record read back from jsonb (which reorders keys) compares equal. */
+function canonical(value: unknown): string {
+  return JSON.stringify(value, (_key, v: unknown) =>
+    v !== null && typeof v === 'object' && !Array.isArray(v)
+      ? Object.fromEntries(Object.entries(v as Record<string, unknown>).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0)))
+      : v,
+  );
+}
+
 function recordsOf(asBuilt: AsBuilt): Map<string, SystemRecord> {
   const out = new Map<string, SystemRecord>();
-  for (const item of asBuilt.items) out.set(item.id, { kind: 'item', id: item.id, label: item.label, isAbandoned: false, json: JSON.stringify(item) });
-  for (const run of asBuilt.runs) out.set(run.id, { kind: 'run', id: run.id, label: run.label, isAbandoned: run.isAbandoned === true, json: JSON.stringify(run) });
+  for (const item of asBuilt.items) out.set(item.id, { kind: 'item', id: item.id, label: item.label, isAbandoned: false, json: canonical(item) });
+  for (const run of asBuilt.runs) out.set(run.id, { kind: 'run', id: run.id, label: run.label, isAbandoned: run.isAbandoned === true, json: canonical(run) });
   return out;
 }
 
