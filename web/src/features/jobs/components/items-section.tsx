@@ -10,6 +10,7 @@ import { usePhotoActions } from '../../photos/hooks/photo-actions';
 import type { JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
 import { useWorkspaceFocus } from '../hooks/workspace-focus';
 import { itemDeleteRequest } from '../utils/delete-requests';
+import { existingRemoveRequest, RemovedRecords, SiteRecordNote } from './site-record-note';
 import { ITEM_KIND_LABELS } from '../../job-record/utils/record-labels';
 
 import { useCardStyles } from '../../../components/card-styles';
@@ -111,6 +112,7 @@ export function ItemsSection({ data, canRecord, kinds }: ItemsSectionProps) {
                     item.kind !== 'amplifier' && <span>No position yet</span>
                   )}
                 </div>
+                <SiteRecordNote data={data} recordId={item.id} label={item.label} canRecord={canRecord} />
                 <PhotoStrip target={{ type: 'item', id: item.id }} label={item.label} />
                 {editing?.id !== item.id && (canRecord || photos.canChange) && (
                   <div className={styles.actions}>
@@ -124,7 +126,9 @@ export function ItemsSection({ data, canRecord, kinds }: ItemsSectionProps) {
                         className={formStyles.bigButton}
                         icon={<Delete20Regular />}
                         aria-label={`Delete ${item.label}`}
-                        onClick={() => deletion.ask(itemDeleteRequest(asBuilt, item))}
+                        onClick={() =>
+                          deletion.ask(data.records.siteRecords?.[item.id]?.isThisJob === false ? existingRemoveRequest('item', item) : itemDeleteRequest(asBuilt, item))
+                        }
                       >
                         Delete
                       </Button>
@@ -152,6 +156,7 @@ export function ItemsSection({ data, canRecord, kinds }: ItemsSectionProps) {
           })}
         </ul>
       )}
+      {kinds === 'equipment' && <RemovedRecords data={data} kind="item" canRecord={canRecord} />}
       {deletion.dialog}
     </section>
   );

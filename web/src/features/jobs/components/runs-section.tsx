@@ -18,6 +18,7 @@ import { useDeleteRecord } from './delete-record';
 import { DepthReadingPanel } from './depth-reading-panel';
 import { useFormStyles } from '../../../components/form-styles';
 import { RunForm } from './run-form';
+import { existingRemoveRequest, RemovedRecords, SiteRecordNote } from './site-record-note';
 
 type Mode = { runId: string; view: 'edit' | 'depth'; field?: string; readingIndex?: number } | { runId: 'new'; view: 'edit'; field?: undefined; readingIndex?: undefined };
 
@@ -82,11 +83,14 @@ export function RunsSection({ data, canRecord, canAddField }: RunsSectionProps) 
               canRecord={canRecord}
               canAddField={canAddField}
               onMode={setMode}
-              onDelete={() => deletion.ask(runDeleteRequest(run))}
+              onDelete={() =>
+                deletion.ask(data.records.siteRecords?.[run.id]?.isThisJob === false ? existingRemoveRequest('run', run) : runDeleteRequest(run))
+              }
             />
           ))}
         </ul>
       )}
+      <RemovedRecords data={data} kind="run" canRecord={canRecord} />
       {deletion.dialog}
     </section>
   );
@@ -153,6 +157,7 @@ function RunCard({ run, index, data, mode, canRecord, canAddField, onMode, onDel
         {run.isSpare && <span>Spare</span>}
         {run.isAbandoned && <span>Abandoned</span>}
       </div>
+      <SiteRecordNote data={data} recordId={run.id} label={run.label} canRecord={canRecord} />
       <PhotoStrip target={{ type: 'run', id: run.id }} label={`Run ${run.label}`} />
       {mode?.view === 'edit' ? (
         <RunForm jobId={job.id} asBuilt={asBuilt} run={run} focusField={mode.field} onDone={() => onMode(undefined)} />

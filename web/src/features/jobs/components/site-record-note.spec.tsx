@@ -1,0 +1,32 @@
+import { describe, expect, it } from 'vitest';
+
+import { existingRemoveRequest, siteRecordText } from './site-record-note';
+
+const earlier = {
+  kind: 'run' as const,
+  isThisJob: false,
+  installedBy: { jobId: 'job-a', jobTitle: 'Garden speakers' },
+  installedOn: '2026-05-14',
+  changedBy: [],
+  abandoned: null,
+};
+
+describe('site record note (issue 21)', () => {
+  it('says who put an earlier record in and when, and that it is read-only until this job changes it', () => {
+    expect(siteRecordText(earlier, 'job-b')).toBe('Already in the ground: installed May 14, 2026 by “Garden speakers”. Read-only until this job changes it.');
+  });
+
+  it('says what this job did to it, and since when another job left it abandoned', () => {
+    const changed = { ...earlier, changedBy: [{ jobId: 'job-b', jobTitle: 'Fire pit zone', change: 'abandoned' as const, on: '2027-04-02', isIssued: false }] };
+    expect(siteRecordText(changed, 'job-b')).toBe('Already in the ground: installed May 14, 2026 by “Garden speakers”. This job abandons it in place.');
+    const abandonedEarlier = { ...earlier, abandoned: { jobId: 'job-x', jobTitle: 'Lawn rework', on: '2026-09-01' } };
+    expect(siteRecordText(abandonedEarlier, 'job-b')).toContain('Abandoned in place since Sep 1, 2026 (“Lawn rework”).');
+  });
+
+  it('takes an earlier record out instead of deleting it, with Undo as the undo of this job’s change', () => {
+    const request = existingRemoveRequest('run', { id: 'run-1', label: 'Spare to planter' });
+    expect(request.write).toMatchObject({ method: 'DELETE', path: '/runs/run-1' });
+    expect(request.undo).toMatchObject({ method: 'DELETE', path: '/site-changes/run-1' });
+    expect(request.title).toBe('Take out the run “Spare to planter”?');
+  });
+});

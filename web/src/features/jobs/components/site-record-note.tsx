@@ -1,0 +1,132 @@
+import { Button, Text } from '@fluentui/react-components';
+import { ArrowUndo20Regular } from '@fluentui/react-icons';
+import { useState } from 'react';
+import { formatDate } from '@domain/format/date-time';
+import type { JobAsBuiltResponse, SiteRecordInfo } from '@domain/jobs/job.schema';
+
+import { useCardStyles } from '../../../components/card-styles';
+import { useFormStyles } from '../../../components/form-styles';
+import { useJobWriter } from '../hooks/job-writer';
+import type { DeleteRequest } from '../utils/delete-requests';
+
+/*
+ * Issue 21: a job's as-built is the property's installed system. Records an earlier job installed show
+ * here as already in the ground (who put them in and when), read-only until this job changes them; a
+ * change by this job says so and can be undone (the record goes back to how the earlier job left it).
+ */
+
+const CHANGE_WORDS: Record<SiteRecordInfo['changedBy'][number]['change'], string> = {
+  changed: 'This job changes it.',
+  abandoned: 'This job abandons it in place.',
+  removed: 'This job takes it out.',
+};
+
+/** The provenance of an existing record, in one line. */
+export function siteRecordText(info: SiteRecordInfo, jobId: string): string {
+  const parts = [`Already in the ground: installed ${formatDate(info.installedOn)} by “${info.installedBy.jobTitle}”.`];
+  if (info.abandoned && info.abandoned.jobId !== jobId) parts.push(`Abandoned in place since ${formatDate(info.abandoned.on)} (“${info.abandoned.jobTitle}”).`);
+  const mine = info.changedBy.find((c) => c.jobId === jobId);
+  parts.push(mine ? CHANGE_WORDS[mine.change] : 'Read-only until this job changes it.');
+  return parts.join(' ');
+}
+
+function useUndo(label: string, recordId: string) {
+  const writer = useJobWriter();
+  const [error, setError] = useState<string | undefined>();
+  const [isBusy, setBusy] = useState(false);
+  const undo = async () => {
+    setBusy(true);
+    setError(undefined);
+    try {
+      await writer.save({ method: 'DELETE', path: `/site-changes/${recordId}`, label: `Undoing this job’s change to “${label}”` });
+    } catch (e) {
+      setError(e instanceof Error ? e.message : 'The change could not be undone.');
+    } finally {
+      setBusy(false);
+    }
+  };
+  return { undo, error, isBusy };
+}
+
+type NoteProps = { data: JobAsBuiltResponse; recordId: string; label: string; canRecord: boolean };
+
+/** Under a run or item card: nothing for this job's own records; for an earlier job's, who and when. */
+export function SiteRecordNote({ data, recordId, label, canRecord }: NoteProps) {
+  const styles = useCardStyles();
+  const formStyles = useFormStyles();
+  const { undo, error, isBusy } = useUndo(label, recordId);
+  const info = data.records.siteRecords?.[recordId];
+  if (!info || info.isThisJob) return null;
+  const isChangedHere = info.changedBy.some((c) => c.jobId === data.job.id);
+  return (
+    <div role="note" aria-label={`Installed earlier: ${label}`}>
+      <Text block className={styles.empty}>
+        {siteRecordText(info, data.job.id)}
+      </Text>
+      {isChangedHere && canRecord && (
+        <Button className={formStyles.bigButton} icon={<ArrowUndo20Regular />} disabled={isBusy} onClick={() => void undo()}>
+          Undo this job’s change
+        </Button>
+      )}
+      {error && (
+        <Text block role="alert" className={styles.warn}>
+          {error}
+        </Text>
+      )}
+    </div>
+  );
+}
+
+/** Deleting an earlier job's run or item records that this job took it out; Undo puts it back. */
+export function existingRemoveRequest(kind: 'run' | 'item', record: { id: string; label: string }): DeleteRequest {
+  const noun = kind === 'run' ? 'run' : 'equipment';
+  return {
+    title: `Take out the ${noun} “${record.label}”?`,
+    consequences: `An earlier job installed it. It is recorded as taken out by this job, on this job’s work date, and leaves the system from this job on; the earlier packet still shows it as it was.`,
+    write: { method: 'DELETE', path: `/${kind === 'run' ? 'runs' : 'items'}/${record.id}`, label: `Taking out the ${noun} “${record.label}”` },
+    doneTitle: `“${record.label}” taken out`,
+    undo: { method: 'DELETE', path: `/site-changes/${record.id}`, label: `Putting back “${record.label}”` },
+  };
+}
+
+/** Under the runs (or equipment): what this job took out of the ground, each with Put back. */
+export function RemovedRecords({ data, kind, canRecord }: { data: JobAsBuiltResponse; kind: 'run' | 'item'; canRecord: boolean }) {
+  const styles = useCardStyles();
+  const removed = (data.records.removedByThisJob ?? []).filter((r) => r.kind === kind);
+  if (removed.length === 0) return null;
+  return (
+    <div aria-label={kind === 'run' ? 'Runs taken out by this job' : 'Equipment taken out by this job'}>
+      <Text as="h4" size={400} weight="semibold" className={styles.title}>
+        Taken out by this job
+      </Text>
+      <ul className={styles.list}>
+        {removed.map((r) => (
+          <RemovedRow key={r.id} id={r.id} label={r.label} on={r.removedOn} canRecord={canRecord} />
+        ))}
+      </ul>
+    </div>
+  );
+}
+
+function RemovedRow({ id, label, on, canRecord }: { id: string; label: string; on: string; canRecord: boolean }) {
+  const styles = useCardStyles();
+  const formStyles = useFormStyles();
+  const { undo, error, isBusy } = useUndo(label, id);
+  return (
+    <li className={styles.card}>
+      <Text block>
+        {label} — taken out {formatDate(on)}
+      </Text>
+      {canRecord && (
+        <Button className={formStyles.bigButton} icon={<ArrowUndo20Regular />} disabled={isBusy} onClick={() => void undo()}>
+          Put back
+        </Button>
+      )}
+      {error && (
+        <Text block role="alert" className={styles.warn}>
+          {error}
+        </Text>
+      )}
+    </li>
+  );
+}
