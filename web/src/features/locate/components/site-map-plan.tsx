@@ -513,6 +513,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
       </div>
       <figcaption className={styles.legend}>
         <MarkingLegend keys={legendKeys} />
+        {myPosition && <span>Black dot in a dashed circle: where your phone puts you, and how far off that may be.</span>}
         <span>Each run is labelled with its shallowest recorded depth. Pinch or scroll to zoom, drag to move; labels that do not fit are shown when you zoom in.</span>
         {runs.length < map.runs.length && (
           <span>
