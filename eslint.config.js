@@ -7,6 +7,7 @@ import { fileURLToPath } from 'node:url';
 import js from '@eslint/js';
 import { createTypeScriptImportResolver } from 'eslint-import-resolver-typescript';
 import { importX } from 'eslint-plugin-import-x';
+import reactHooks from 'eslint-plugin-react-hooks';
 import tseslint from 'typescript-eslint';
 
 const root = dirname(fileURLToPath(import.meta.url));
@@ -26,6 +27,13 @@ const featureZones = features.flatMap((feature) =>
       message: `Import the ${other} feature through web/src/features/${other}/index.ts (its public surface).`,
     })),
 );
+
+const domainZone = {
+  target: './api/src/domain',
+  from: './api/src',
+  except: ['./domain'],
+  message: 'The domain imports nothing but zod and other domain files.',
+};
 
 // A colour literal: #rgb, #rgba, #rrggbb, #rrggbbaa, or rgb()/rgba()/hsl()/hsla().
 const rawColour = String.raw`/^#(?:[0-9a-fA-F]{3,4}|[0-9a-fA-F]{6}|[0-9a-fA-F]{8})$|(?:rgba?|hsla?)\(/`;
@@ -64,10 +72,14 @@ export default tseslint.config(
     },
     plugins: { 'import-x': importX },
     settings: {
+      // import-x parses the files an import leads to (for no-cycle) with the TypeScript parser.
+      'import-x/extensions': ['.ts', '.tsx', '.js', '.mjs'],
+      'import-x/parsers': { '@typescript-eslint/parser': ['.ts', '.tsx'] },
       'import-x/resolver-next': [
         createTypeScriptImportResolver({
           project: ['api/tsconfig.json', 'web/tsconfig.json'],
           alwaysTryTypes: true,
+          noWarnOnMultipleProjects: true,
         }),
       ],
     },
@@ -81,21 +93,22 @@ export default tseslint.config(
       'no-empty': ['error', { allowEmptyCatch: true }],
       'import-x/no-cycle': ['error', { ignoreExternal: true }],
       'import-x/no-self-import': 'error',
-      'import-x/no-restricted-paths': [
-        'error',
-        {
-          basePath: root,
-          zones: [
-            {
-              target: './api/src/domain',
-              from: './api/src',
-              except: ['./domain'],
-              message: 'The domain imports nothing but zod and other domain files.',
-            },
-            ...featureZones,
-          ],
-        },
-      ],
+      'import-x/no-restricted-paths': ['error', { basePath: root, zones: [domainZone, ...featureZones] }],
+    },
+  },
+  {
+    files: ['web/src/**/*.ts', 'web/src/**/*.tsx'],
+    plugins: { 'react-hooks': reactHooks },
+    rules: {
+      'react-hooks/rules-of-hooks': 'error',
+      'react-hooks/exhaustive-deps': 'warn',
+    },
+  },
+  {
+    // A test may use another feature's test fixtures; the domain's boundary holds for tests too.
+    files: ['**/*.spec.ts', '**/*.spec.tsx'],
+    rules: {
+      'import-x/no-restricted-paths': ['error', { basePath: root, zones: [domainZone] }],
     },
   },
   {
@@ -117,7 +130,7 @@ export default tseslint.config(
     },
   },
   {
-    // Components take colours from the theme or the marking palette. Theme files (web/src/app/theme*.ts,
+    // Components take colours from the theme or the marking palette. Theme files (web/src/app/theme.ts, web/src/config/canvas-theme.ts,
     // web/src/config/brand.ts) and the palette are .ts, so this rule never sees them.
     files: ['web/src/**/*.tsx'],
     ignores: ['web/src/**/*.spec.tsx'],

@@ -20,6 +20,7 @@ let status = 1;
 try {
   ensureDebianPackages({ postgres: !process.env.DATABASE_URL, chromium: true, poppler: true, unzip: true });
   ensureNpmDependencies();
+  if (spawnSync('npm', ['run', 'lint'], { cwd: root, stdio: 'inherit' }).status !== 0) throw new Error('npm run lint found errors (see above)');
   pg = ensurePostgres();
   ensureApiBuilt();
   ensureWebBuilt();

@@ -24,7 +24,7 @@ export interface ErrorBody {
   currentVersion?: number;
 }
 
-const DOMAIN_STATUS = new Map<Function, HttpStatus>([
+const DOMAIN_STATUS = new Map<abstract new (...args: never[]) => unknown, HttpStatus>([
   [NotFoundError, HttpStatus.NOT_FOUND],
   [ConflictError, HttpStatus.CONFLICT],
   [RuleViolationError, HttpStatus.UNPROCESSABLE_ENTITY],

@@ -2,6 +2,7 @@
 const MAX_REPORTED = 20;
 
 /** NUL (PostgreSQL text and jsonb cannot hold it), or a UTF-16 surrogate without its pair (not Unicode). */
+// eslint-disable-next-line no-control-regex -- NUL is exactly what this looks for
 const UNSTORABLE = /\u0000|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
 
 function isUnstorable(text: string): boolean {

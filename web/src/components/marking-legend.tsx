@@ -3,6 +3,7 @@ import type { ItemKind } from '@domain/as-built/item.schema';
 import { COLOUR_KEY_NOTE, FEATURE_FILL, FEATURE_STROKE, legendText, REFERENCE_INK, WARNING_INK, type LegendKey } from '@drawings/marking-palette';
 
 import { ItemSymbol, ReferenceSymbol, RunLine } from '../features/plan/components/plan-symbols';
+import { HALO } from '../config/canvas-theme';
 
 const useStyles = makeStyles({
   root: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXS, margin: 0 },
@@ -39,7 +40,7 @@ function Swatch({ entry }: { entry: LegendKey }) {
       return (
         <g>
           <polygon points="14,3 30,3 22,17" fill={WARNING_INK} />
-          <rect x={21.2} y={5} width={1.6} height={6} fill="#fff" />
+          <rect x={21.2} y={5} width={1.6} height={6} fill={HALO} />
         </g>
       );
     case 'feature':

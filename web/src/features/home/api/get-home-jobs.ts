@@ -1,6 +1,6 @@
 import type { JobStatus } from '@domain/jobs/job-rules';
 
-import { getJobsQueryOptions, useJobs, type JobListParams } from '../../jobs/api/get-jobs';
+import { getJobsQueryOptions, useJobs, type JobListParams } from '../../jobs';
 import { OPEN_JOB_STATUSES } from '../utils/next-step';
 
 /**

@@ -6,7 +6,7 @@ import { Link } from 'react-router';
 
 import { paths } from '../../../config/paths';
 import { formatDate } from '../../../lib/format-date';
-import { JobStatusBadge } from '../../jobs/components/job-status-badge';
+import { JobStatusBadge } from '../../jobs';
 import { nextStepFor } from '../utils/next-step';
 
 const useStyles = makeStyles({

@@ -5,7 +5,7 @@ import { Link } from 'react-router';
 
 import { PageHeader } from '../../../components/page-header';
 import { paths } from '../../../config/paths';
-import { FailedDeliveriesCard } from '../../delivery/components/failed-deliveries-card';
+import { FailedDeliveriesCard } from '../../delivery';
 import { useQueueJobs } from '../api/get-home-jobs';
 
 import { HomeJobList } from './home-job-list';

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 
 import { apiRequest } from '../../../lib/api-client';
 
-import type { PacketRevision } from '../../delivery/api/get-job-packets';
+import type { PacketRevision } from '../../delivery';
 import { responseOf } from '../../../lib/response';
 
 /** Something the office should know about the issued packet (e.g. no contact phone in the company profile); it is issued all the same. */

@@ -7,7 +7,7 @@ import { ChannelSetupSchema, type ChannelSetup } from '@domain/jobs/job-record.s
 
 import { useNotify } from '../../../components/notify';
 import { useDraftForm } from '../../../lib/drafts';
-import type { JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
+import type { JobAsBuiltResponse } from '../../job-record';
 import { useJobWriter } from '../hooks/job-writer';
 import { saveErrors } from '../utils/save-errors';
 

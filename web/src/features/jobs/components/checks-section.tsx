@@ -9,7 +9,7 @@ import { CheckInputSchema, type CheckInput } from '@domain/jobs/job-record.schem
 import { useNotify } from '../../../components/notify';
 import { useDraftForm } from '../../../lib/drafts';
 import { toSentence } from '../../../lib/form-errors';
-import type { JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
+import type { JobAsBuiltResponse } from '../../job-record';
 import { useJobWriter } from '../hooks/job-writer';
 import { checkDeleteRequest } from '../utils/delete-requests';
 import { fieldDomId } from '../utils/finding-target';

@@ -25,8 +25,8 @@ import { CreateJobSchema } from '@domain/jobs/job.schema';
 import { paths } from '../../../config/paths';
 import { describeRequestError, fieldErrorsFromApi, fieldErrorsFromZod, type FieldErrors } from '../../../lib/form-errors';
 import { useNotify } from '../../../components/notify';
-import { useSites } from '../../sites/api/get-sites';
-import { getUsersQueryOptions } from '../../users/api/get-users';
+import { useSites } from '../../sites';
+import { getUsersQueryOptions } from '../../users';
 import { useCreateJob } from '../api/create-job';
 
 const useStyles = makeStyles({

@@ -5,13 +5,13 @@ import type { Item, ItemKind } from '@domain/as-built/item.schema';
 
 import { formatLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
-import { PhotoStrip } from '../../photos/components/photo-strip';
-import { usePhotoActions } from '../../photos/hooks/photo-actions';
-import type { JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
+import { PhotoStrip } from '../../photos';
+import { usePhotoActions } from '../../photos';
+import type { JobAsBuiltResponse } from '../../job-record';
 import { useWorkspaceFocus } from '../hooks/workspace-focus';
 import { itemDeleteRequest } from '../utils/delete-requests';
 import { existingRemoveRequest, RemovedRecords, SiteRecordNote } from './site-record-note';
-import { ITEM_KIND_LABELS } from '../../job-record/utils/record-labels';
+import { ITEM_KIND_LABELS } from '../../job-record';
 
 import { useCardStyles } from '../../../components/card-styles';
 import { useDeleteRecord } from './delete-record';

@@ -31,7 +31,7 @@ import { useNotify } from '../../../components/notify';
 import { isApiError } from '../../../lib/api-client';
 import { describeRequestError, toSentence } from '../../../lib/form-errors';
 import { formatDate } from '../../../lib/format-date';
-import { getUsersQueryOptions } from '../../users/api/get-users';
+import { getUsersQueryOptions } from '../../users';
 import { useJobWriter } from '../hooks/job-writer';
 
 const useStyles = makeStyles({

@@ -6,7 +6,7 @@ import { JobDetailsSchema } from '@domain/jobs/job.schema';
 
 import { useNotify } from '../../../components/notify';
 import { useDraftForm } from '../../../lib/drafts';
-import type { JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
+import type { JobAsBuiltResponse } from '../../job-record';
 import { useJobWriter } from '../hooks/job-writer';
 import { saveErrors } from '../utils/save-errors';
 

@@ -8,7 +8,7 @@ import { setSession } from '../../../lib/session';
 import { buildSessionResponse, buildSessionUser } from '../../../testing/data';
 import { mockApi } from '../../../testing/mock-api';
 import { createTestQueryClient, jsonResponse } from '../../../testing/render-app';
-import type { PacketRevision } from '../../delivery/api/get-job-packets';
+import type { PacketRevision } from '../../delivery';
 
 import { PacketCard } from './packet-card';
 

@@ -8,10 +8,10 @@ import {
 
 import { describeRequestError } from '../../../lib/form-errors';
 import { useSessionUser } from '../../../lib/session';
-import { JobDeliveries } from '../../delivery/components/job-deliveries';
-import { SendPacketDialog } from '../../delivery/components/send-packet-dialog';
+import { JobDeliveries } from '../../delivery';
+import { SendPacketDialog } from '../../delivery';
 import { useDownloadPacketFile } from '../api/get-packet-file';
-import { isPacketInProgress, useJobPackets, type PacketRevision, type PacketStatus } from '../../delivery/api/get-job-packets';
+import { isPacketInProgress, useJobPackets, type PacketRevision, type PacketStatus } from '../../delivery';
 
 import { useCardStyles } from '../../../components/card-styles';
 

@@ -22,7 +22,7 @@ import { gaugeInputValue, lengthInputValue, parseGauge, type UnitPreferences } f
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 import { useJobWriter } from '../hooks/job-writer';
 import { fieldDomId } from '../utils/finding-target';
-import { ITEM_KIND_LABELS, LOCATION_LABELS, METHOD_LABELS } from '../../job-record/utils/record-labels';
+import { ITEM_KIND_LABELS, LOCATION_LABELS, METHOD_LABELS } from '../../job-record';
 import { saveErrors } from '../utils/save-errors';
 
 import { FormActions } from './form-actions';

@@ -6,12 +6,12 @@ import { formatGauge } from '@domain/cable/wire';
 
 import { formatLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
-import { PhotoStrip } from '../../photos/components/photo-strip';
-import { usePhotoActions } from '../../photos/hooks/photo-actions';
-import type { JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
+import { PhotoStrip } from '../../photos';
+import { usePhotoActions } from '../../photos';
+import type { JobAsBuiltResponse } from '../../job-record';
 import { useWorkspaceFocus } from '../hooks/workspace-focus';
 import { runDeleteRequest } from '../utils/delete-requests';
-import { METHOD_LABELS } from '../../job-record/utils/record-labels';
+import { METHOD_LABELS } from '../../job-record';
 
 import { useCardStyles } from '../../../components/card-styles';
 import { useDeleteRecord } from './delete-record';

@@ -9,6 +9,7 @@ import { getJobSignaturesQueryOptions, useJobSignatures, type JobSignatureRespon
 import { useJobWriter } from '../hooks/job-writer';
 
 import { useCardStyles } from '../../../components/card-styles';
+import { SIGNATURE_INK } from '../../../config/canvas-theme';
 
 /** The box the packet prints signatures in (SVG user units). */
 const BOX = { width: 400, height: 120 };
@@ -105,7 +106,7 @@ function SignaturePadField({ jobId, role, canSign, defaultName, saved }: PadFiel
     canvas.width = (canvas.offsetWidth || BOX.width) * ratio;
     canvas.height = (canvas.offsetHeight || BOX.height) * ratio;
     canvas.getContext('2d')?.scale(ratio, ratio);
-    const pad = new SignaturePad(canvas, { penColor: '#111' });
+    const pad = new SignaturePad(canvas, { penColor: SIGNATURE_INK });
     const onEnd = () => setIsEmpty(pad.isEmpty());
     pad.addEventListener('endStroke', onEnd);
     padRef.current = pad;
@@ -154,7 +155,7 @@ function SignaturePadField({ jobId, role, canSign, defaultName, saved }: PadFiel
       {saved ? (
         <>
           <svg className={styles.preview} viewBox={`0 0 ${BOX.width} ${BOX.height}`} role="img" aria-label={`${ROLE_LABELS[role]} signature of ${saved.signerName}`}>
-            <path d={saved.svgPath} fill="none" stroke="#111" strokeWidth={2} strokeLinecap="round" strokeLinejoin="round" />
+            <path d={saved.svgPath} fill="none" stroke={SIGNATURE_INK} strokeWidth={2} strokeLinecap="round" strokeLinejoin="round" />
           </svg>
           <Text>
             {saved.signerName}, signed {new Date(saved.signedAt).toLocaleString()}

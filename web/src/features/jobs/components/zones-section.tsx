@@ -7,7 +7,7 @@ import { ZoneInputSchema } from '@domain/jobs/job-record.schema';
 
 import { useDraftForm } from '../../../lib/drafts';
 import { toSentence } from '../../../lib/form-errors';
-import type { JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
+import type { JobAsBuiltResponse } from '../../job-record';
 import { useJobWriter } from '../hooks/job-writer';
 import { zoneDeleteRequest } from '../utils/delete-requests';
 import { fieldDomId } from '../utils/finding-target';

@@ -5,7 +5,7 @@ import type { CommissioningCheck } from '@domain/checks/commissioning-check.sche
 
 import type { JobWrite } from '../api/send-job-write';
 
-import { ITEM_KIND_LABELS } from '../../job-record/utils/record-labels';
+import { ITEM_KIND_LABELS } from '../../job-record';
 
 /** One record to delete: what the dialog says, the DELETE itself and, where cheap, how to take it back. */
 export type DeleteRequest = {

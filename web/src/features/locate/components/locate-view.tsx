@@ -12,6 +12,7 @@ import { useMyPosition } from '../hooks/use-my-position';
 import { geoJsonToKml, kmlFileName } from '../utils/kml';
 
 import { depthLabel, SiteMapPlan } from './site-map-plan';
+import { PREVIEW_PAPER } from '../../../config/canvas-theme';
 
 const WIDE = '@media (min-width: 720px)';
 
@@ -75,7 +76,7 @@ const useStyles = makeStyles({
   shallowRun: { borderLeftWidth: '6px', borderLeftStyle: 'solid', borderLeftColor: tokens.colorNeutralForeground1 },
   measureFrom: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS, margin: 0 },
   measureList: { margin: 0, paddingInlineStart: tokens.spacingHorizontalL, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXS },
-  profile: { width: '100%', height: 'auto', backgroundColor: '#fff', borderRadius: tokens.borderRadiusMedium },
+  profile: { width: '100%', height: 'auto', backgroundColor: PREVIEW_PAPER, borderRadius: tokens.borderRadiusMedium },
   photos: { display: 'grid', gridTemplateColumns: 'repeat(auto-fill, minmax(96px, 1fr))', gap: tokens.spacingHorizontalS, [WIDE]: { gridTemplateColumns: 'repeat(auto-fill, minmax(140px, 1fr))' } },
   thumbButton: { padding: 0, border: 'none', background: 'none', cursor: 'pointer', minHeight: '44px' },
   thumb: { width: '100%', aspectRatio: '4 / 3', objectFit: 'cover', borderRadius: tokens.borderRadiusMedium, display: 'block' },

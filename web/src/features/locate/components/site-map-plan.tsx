@@ -9,9 +9,10 @@ import { FEATURE_FILL, FEATURE_LABEL, FEATURE_STROKE, INK, PAPER, REFERENCE_INK,
 
 import { MarkingLegend } from '../../../components/marking-legend';
 import { formatLength, type LengthSystem } from '../../../lib/units';
-import { scaleBarFor } from '../../plan/utils/plan-geometry';
+import { scaleBarFor } from '../../plan';
 import { placeMapLabels, type Box, type MapLabelRequest } from '../utils/map-labels';
 import type { PlanPosition } from '../utils/my-position';
+import { ACCURACY_SHADE, COMPASS_RING, OVERLAY_PAPER_MAP } from '../../../config/canvas-theme';
 
 /** Screen pixels per print point for run strokes (as the plan editor). */
 const SCREEN_SCALE = 1.9;
@@ -445,7 +446,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
           {myPosition && (
             <g data-role="my-position" aria-label={`Your position, good to about ${formatLength(myPosition.accuracyM, units, 'long')}`} pointerEvents="none">
               {/* Black and grey only: every colour of the marking code means a utility. */}
-              <circle cx={sx(myPosition.x)} cy={sy(myPosition.y)} r={Math.max(myPosition.accuracyM * transform.k, 8)} fill="rgba(0,0,0,0.08)" stroke={INK} strokeWidth={1} strokeDasharray="3 3" data-role="accuracy" />
+              <circle cx={sx(myPosition.x)} cy={sy(myPosition.y)} r={Math.max(myPosition.accuracyM * transform.k, 8)} fill={ACCURACY_SHADE} stroke={INK} strokeWidth={1} strokeDasharray="3 3" data-role="accuracy" />
               <circle cx={sx(myPosition.x)} cy={sy(myPosition.y)} r={7} fill={INK} stroke={PAPER} strokeWidth={3} data-role="dot" />
             </g>
           )}
@@ -474,7 +475,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
             })}
           </g>
           <g data-layer="scale-bar" transform={`translate(14, ${size.height - 20})`} pointerEvents="none">
-            <rect x={-8} y={-24} width={bar.pixels + 16} height={36} rx={4} fill="rgba(255,255,255,0.9)" />
+            <rect x={-8} y={-24} width={bar.pixels + 16} height={36} rx={4} fill={OVERLAY_PAPER_MAP} />
             <rect x={0} y={0} width={bar.pixels / 2} height={6} fill={INK} />
             <rect x={bar.pixels / 2} y={0} width={bar.pixels / 2} height={6} fill={PAPER} stroke={INK} strokeWidth={1} />
             <text x={0} y={-8} fontSize={13} fill={INK} data-testid="scale-bar-label">
@@ -482,7 +483,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
             </text>
           </g>
           <g data-layer="north-arrow" transform={`translate(${northCentre.x}, ${northCentre.y})`} pointerEvents="none" aria-label="North arrow">
-            <circle r={26} fill="rgba(255,255,255,0.9)" stroke="#8a8886" strokeWidth={1} />
+            <circle r={26} fill={OVERLAY_PAPER_MAP} stroke={COMPASS_RING} strokeWidth={1} />
             {/* Plan +y points at bearing `northAzimuthDeg`: true north is that many degrees anticlockwise of up. */}
             <g transform={`rotate(${-map.frame.northAzimuthDeg})`} data-testid="north-arrow">
               <polygon points="0,-20 7,8 0,3 -7,8" fill={INK} />

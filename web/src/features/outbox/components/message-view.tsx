@@ -7,6 +7,7 @@ import { extractLinks } from '../utils/extract-links';
 
 import { MessageAttachments } from './message-attachments';
 import { MessageLinks } from './message-links';
+import { PREVIEW_PAPER } from '../../../config/canvas-theme';
 
 const useStyles = makeStyles({
   root: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXL },
@@ -40,7 +41,7 @@ const useStyles = makeStyles({
     minHeight: '20rem',
     border: 'none',
     // Mail is written for a white page whatever the app's theme.
-    backgroundColor: '#fff',
+    backgroundColor: PREVIEW_PAPER,
   },
   text: {
     margin: 0,

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { PhotoResponse, PhotoTarget } from '@domain/photos/photo.schema';
 
 import { apiRequest, isApiError } from '../../../lib/api-client';
-import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
+import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../../job-record';
 import { responseOf } from '../../../lib/response';
 
 import { getJobPhotosQueryOptions } from './get-job-photos';

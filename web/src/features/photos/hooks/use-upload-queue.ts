@@ -2,7 +2,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useEffect, useMemo, useSyncExternalStore } from 'react';
 
 import { createIndexedDbUploadStore } from '../../../lib/upload-queue-store';
-import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
+import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../../job-record';
 import { getJobPhotosQueryOptions } from '../api/get-job-photos';
 import { getJobVersion } from '../api/get-job-version';
 import { uploadPhoto } from '../api/upload-photo';

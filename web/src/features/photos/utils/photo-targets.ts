@@ -2,7 +2,7 @@ import type { JobAsBuiltResponse } from '@domain/jobs/job.schema';
 import type { PhotoTarget } from '@domain/photos/photo.schema';
 
 import { formatLength, type LengthSystem } from '../../../lib/units';
-import { ITEM_KIND_LABELS } from '../../job-record/utils/record-labels';
+import { ITEM_KIND_LABELS } from '../../job-record';
 
 /** One thing of a job a photo can show, with words for pickers and gallery headings. */
 export type TargetOption = { key: string; target: PhotoTarget; label: string; group: 'Job' | 'Runs' | 'Equipment and wall entries' | 'Depth readings' };

@@ -3,8 +3,8 @@ import type { PlanCalibration, SiteResponse } from '@domain/sites/site.schema';
 
 import { apiRequest } from '../../../lib/api-client';
 import { responseOf } from '../../../lib/response';
-import { getSiteQueryOptions } from '../../sites/api/get-site';
-import { sendSiteWrite, siteIfMatch, type SiteVersionResponse } from '../../sites/api/site-write';
+import { getSiteQueryOptions } from '../../sites';
+import { sendSiteWrite, siteIfMatch, type SiteVersionResponse } from '../../sites';
 
 /** What the plan editor changes on a site: the image calibration or the north direction. */
 export type SitePlanChange = { planCalibration: PlanCalibration } | { northAzimuthDeg: number };

@@ -3,8 +3,8 @@ import type { PlanImageUploadResponse } from '@domain/sites/site.schema';
 
 import { apiRequest } from '../../../lib/api-client';
 import { responseOf } from '../../../lib/response';
-import { getSiteQueryOptions } from '../../sites/api/get-site';
-import { sendSiteWrite, siteIfMatch, type SiteVersionResponse } from '../../sites/api/site-write';
+import { getSiteQueryOptions } from '../../sites';
+import { sendSiteWrite, siteIfMatch, type SiteVersionResponse } from '../../sites';
 
 /** The image types the API takes for a site plan. */
 export const PLAN_IMAGE_TYPES = ['image/jpeg', 'image/png', 'image/webp'] as const;

@@ -2,7 +2,7 @@ import { Button, Spinner, Text } from '@fluentui/react-components';
 import { Checkmark24Regular, ImageAdd24Regular } from '@fluentui/react-icons';
 import { useRef } from 'react';
 
-import { LengthInput } from '../../jobs/components/length-input';
+import { LengthInput } from '../../jobs';
 import { PLAN_IMAGE_TYPES } from '../api/upload-plan-image';
 import type { ImagePoint } from '../utils/plan-geometry';
 

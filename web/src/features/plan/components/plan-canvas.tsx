@@ -12,6 +12,7 @@ import { imagePlanBox, normalizeDegrees, scaleBarFor, type ImagePlacement } from
 import type { RunStyle } from '../utils/plan-records';
 
 import { ItemSymbol, ReferenceSymbol, RunLine } from './plan-symbols';
+import { CANVAS_BACKGROUND, COMPASS_RING, HALO, MUTED_INK, OVERLAY_PAPER, OVERLAY_PAPER_STRONG, SCREEN_INK, SELECTION, SELECTION_WASH, SHADE } from '../../../config/canvas-theme';
 
 /** What a tap or a drag landed on. */
 export type PlanHit =
@@ -70,7 +71,7 @@ const useStyles = makeStyles({
     width: '100%',
     height: '100%',
     overflow: 'hidden',
-    backgroundColor: '#f4f1ea',
+    backgroundColor: CANVAS_BACKGROUND,
     borderRadius: tokens.borderRadiusLarge,
     border: `${tokens.strokeWidthThin} solid ${tokens.colorNeutralStroke2}`,
   },
@@ -93,7 +94,7 @@ const useStyles = makeStyles({
     minHeight: '44px',
     padding: `${tokens.spacingVerticalS} ${tokens.spacingHorizontalM}`,
     borderRadius: tokens.borderRadiusMedium,
-    backgroundColor: 'rgba(255, 255, 255, 0.92)',
+    backgroundColor: OVERLAY_PAPER_STRONG,
     boxShadow: tokens.shadow4,
     color: tokens.colorNeutralForeground1,
     fontSize: tokens.fontSizeBase300,
@@ -376,7 +377,7 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
                   <polyline points={pts} fill="none" stroke={FEATURE_STROKE} strokeWidth={width + 1} strokeDasharray={f.kind === 'path' ? '8 4' : undefined} />
                 )}
                 {model.showLabels && (
-                  <text x={sx(centre.x)} y={sy(centre.y)} textAnchor="middle" fontSize={12} fontStyle="italic" fill={FEATURE_LABEL} stroke="#fff" strokeWidth={3} paintOrder="stroke">
+                  <text x={sx(centre.x)} y={sy(centre.y)} textAnchor="middle" fontSize={12} fontStyle="italic" fill={FEATURE_LABEL} stroke={HALO} strokeWidth={3} paintOrder="stroke">
                     {f.name}
                   </text>
                 )}
@@ -406,7 +407,7 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
               cx={sx(model.solution.x)}
               cy={sy(model.solution.y)}
               r={Math.max(model.solution.accuracyM * transform.k, 4)}
-              fill="rgba(0, 0, 0, 0.06)"
+              fill={SHADE}
               stroke={LEADER_INK}
               strokeWidth={model.solution.isWeak ? 3 : 1.5}
               strokeDasharray={model.solution.isWeak ? '3 3' : '6 3'}
@@ -421,7 +422,7 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
               <circle cx={sx(ref.x)} cy={sy(ref.y)} r={HIT_RADIUS_PX} fill="transparent" />
               <ReferenceSymbol x={sx(ref.x)} y={sy(ref.y)} isSelected={ref.isSelected} />
               {model.showLabels && (
-                <text {...labels.get(`ref:${ref.id}`)} fontSize={12} fill={REFERENCE_INK} stroke="#fff" strokeWidth={3} paintOrder="stroke">
+                <text {...labels.get(`ref:${ref.id}`)} fontSize={12} fill={REFERENCE_INK} stroke={HALO} strokeWidth={3} paintOrder="stroke">
                   {ref.label}
                 </text>
               )}
@@ -442,7 +443,7 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
               <ItemSymbol kind={item.kind} x={sx(item.x)} y={sy(item.y)} isSelected={item.isSelected} />
               {item.hasFinding && <circle cx={sx(item.x) + 11} cy={sy(item.y) - 11} r={5} fill={WARNING_INK} stroke={PAPER} strokeWidth={1.5} />}
               {model.showLabels && (
-                <text {...labels.get(`item:${item.id}`)} fontSize={12} fontWeight={600} fill="#1b1b1b" stroke="#fff" strokeWidth={3} paintOrder="stroke">
+                <text {...labels.get(`item:${item.id}`)} fontSize={12} fontWeight={600} fill={SCREEN_INK} stroke={HALO} strokeWidth={3} paintOrder="stroke">
                   {item.label}
                 </text>
               )}
@@ -474,7 +475,7 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
             <polyline
               points={draftPoints.map((p) => `${sx(p.x)},${sy(p.y)}`).join(' ')}
               fill="none"
-              stroke="#0f6cbd"
+              stroke={SELECTION}
               strokeWidth={4}
               strokeLinejoin="round"
               data-testid="draft-route"
@@ -510,8 +511,8 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
                   cx={sx(p.x)}
                   cy={sy(p.y)}
                   r={model.draftRoute!.selectedIndex === index ? 10 : 7}
-                  fill={model.draftRoute!.selectedIndex === index ? '#0f6cbd' : '#fff'}
-                  stroke="#0f6cbd"
+                  fill={model.draftRoute!.selectedIndex === index ? SELECTION : HALO}
+                  stroke={SELECTION}
                   strokeWidth={3}
                 />
               </g>
@@ -521,34 +522,34 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
         <g data-layer="marks">
           {model.marks.map((mark) => (
             <g key={mark.label} data-mark={mark.label}>
-              <circle cx={sx(mark.x)} cy={sy(mark.y)} r={12} fill="rgba(15,108,189,0.2)" stroke="#0f6cbd" strokeWidth={3} />
-              <line x1={sx(mark.x) - 18} y1={sy(mark.y)} x2={sx(mark.x) + 18} y2={sy(mark.y)} stroke="#0f6cbd" strokeWidth={1.5} />
-              <line x1={sx(mark.x)} y1={sy(mark.y) - 18} x2={sx(mark.x)} y2={sy(mark.y) + 18} stroke="#0f6cbd" strokeWidth={1.5} />
-              <text x={sx(mark.x) + 16} y={sy(mark.y) - 14} fontSize={16} fontWeight={700} fill="#0f6cbd" stroke="#fff" strokeWidth={3} paintOrder="stroke">
+              <circle cx={sx(mark.x)} cy={sy(mark.y)} r={12} fill={SELECTION_WASH} stroke={SELECTION} strokeWidth={3} />
+              <line x1={sx(mark.x) - 18} y1={sy(mark.y)} x2={sx(mark.x) + 18} y2={sy(mark.y)} stroke={SELECTION} strokeWidth={1.5} />
+              <line x1={sx(mark.x)} y1={sy(mark.y) - 18} x2={sx(mark.x)} y2={sy(mark.y) + 18} stroke={SELECTION} strokeWidth={1.5} />
+              <text x={sx(mark.x) + 16} y={sy(mark.y) - 14} fontSize={16} fontWeight={700} fill={SELECTION} stroke={HALO} strokeWidth={3} paintOrder="stroke">
                 {mark.label}
               </text>
             </g>
           ))}
         </g>
         <g data-layer="scale-bar" transform={`translate(12, ${size.height - 20})`} pointerEvents="none">
-          <rect x={-6} y={-24} width={bar.pixels + 12} height={34} rx={4} fill="rgba(255,255,255,0.85)" />
-          <rect x={0} y={0} width={bar.pixels / 2} height={5} fill="#1b1b1b" />
-          <rect x={bar.pixels / 2} y={0} width={bar.pixels / 2} height={5} fill="#fff" stroke="#1b1b1b" strokeWidth={1} />
-          <text x={0} y={-8} fontSize={12} fill="#1b1b1b" data-testid="scale-bar-label">
+          <rect x={-6} y={-24} width={bar.pixels + 12} height={34} rx={4} fill={OVERLAY_PAPER} />
+          <rect x={0} y={0} width={bar.pixels / 2} height={5} fill={SCREEN_INK} />
+          <rect x={bar.pixels / 2} y={0} width={bar.pixels / 2} height={5} fill={HALO} stroke={SCREEN_INK} strokeWidth={1} />
+          <text x={0} y={-8} fontSize={12} fill={SCREEN_INK} data-testid="scale-bar-label">
             {bar.label}
           </text>
         </g>
         <g data-layer="north-arrow" transform={`translate(${northCentre.x}, ${northCentre.y})`} {...northHandlers} aria-label={onNorthTurn ? 'Turn the north arrow' : undefined}>
-          <circle r={26} fill="rgba(255,255,255,0.85)" stroke={onNorthTurn ? '#0f6cbd' : '#8a8886'} strokeWidth={onNorthTurn ? 3 : 1} />
+          <circle r={26} fill={OVERLAY_PAPER} stroke={onNorthTurn ? SELECTION : COMPASS_RING} strokeWidth={onNorthTurn ? 3 : 1} />
           {model.northAzimuthDeg === null ? (
-            <text textAnchor="middle" y={4} fontSize={10} fill="#616161">
+            <text textAnchor="middle" y={4} fontSize={10} fill={MUTED_INK}>
               North?
             </text>
           ) : (
             // Plan +y points at bearing `northAzimuthDeg`: true north is that many degrees anticlockwise of up.
             <g transform={`rotate(${-model.northAzimuthDeg})`} data-testid="north-arrow">
-              <polygon points="0,-20 7,8 0,3 -7,8" fill="#1b1b1b" />
-              <text textAnchor="middle" y={19} fontSize={10} fontWeight={700} fill="#1b1b1b">
+              <polygon points="0,-20 7,8 0,3 -7,8" fill={SCREEN_INK} />
+              <text textAnchor="middle" y={19} fontSize={10} fontWeight={700} fill={SCREEN_INK}>
                 N
               </text>
             </g>

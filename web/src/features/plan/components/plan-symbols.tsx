@@ -2,6 +2,7 @@ import type { ItemKind } from '@domain/as-built/item.schema';
 import { REFERENCE_INK, RUN_ORANGE, RUN_STROKES, scaleDash } from '@drawings/marking-palette';
 
 import type { RunStyle } from '../utils/plan-records';
+import { HALO, SELECTION } from '../../../config/canvas-theme';
 
 /**
  * The printed site plan's own symbols (api/src/drawings/site-plan-symbols.ts), drawn in screen pixels
@@ -18,13 +19,13 @@ function pts(points: readonly Point[]): string {
 
 export function ItemSymbol({ kind, x, y, isSelected = false }: { kind: ItemKind; x: number; y: number; isSelected?: boolean }) {
   const line = { stroke: INK, strokeWidth: 1.4 };
-  const halo = isSelected ? <circle cx={x} cy={y} r={15} fill="none" stroke="#0f6cbd" strokeWidth={3} /> : null;
+  const halo = isSelected ? <circle cx={x} cy={y} r={15} fill="none" stroke={SELECTION} strokeWidth={3} /> : null;
   switch (kind) {
     case 'amplifier':
       return (
         <g>
           {halo}
-          <rect x={x - 6 * S} y={y - 4.5 * S} width={12 * S} height={9 * S} fill="#fff" {...line} />
+          <rect x={x - 6 * S} y={y - 4.5 * S} width={12 * S} height={9 * S} fill={HALO} {...line} />
           <polygon points={pts([{ x: x - 3 * S, y: y - 3 * S }, { x: x + 3.5 * S, y }, { x: x - 3 * S, y: y + 3 * S }])} fill={INK} />
         </g>
       );
@@ -32,7 +33,7 @@ export function ItemSymbol({ kind, x, y, isSelected = false }: { kind: ItemKind;
       return (
         <g>
           {halo}
-          <circle cx={x} cy={y} r={4.5 * S} fill="#fff" {...line} />
+          <circle cx={x} cy={y} r={4.5 * S} fill={HALO} {...line} />
           <circle cx={x} cy={y} r={1.8 * S} fill={INK} />
         </g>
       );
@@ -40,7 +41,7 @@ export function ItemSymbol({ kind, x, y, isSelected = false }: { kind: ItemKind;
       return (
         <g>
           {halo}
-          <rect x={x - 5 * S} y={y - 5 * S} width={10 * S} height={10 * S} fill="#fff" {...line} />
+          <rect x={x - 5 * S} y={y - 5 * S} width={10 * S} height={10 * S} fill={HALO} {...line} />
           <circle cx={x} cy={y} r={3.5 * S} fill="none" {...line} />
           <circle cx={x} cy={y} r={1.2 * S} fill={INK} />
         </g>
@@ -49,14 +50,14 @@ export function ItemSymbol({ kind, x, y, isSelected = false }: { kind: ItemKind;
       return (
         <g>
           {halo}
-          <polygon points={pts([{ x, y: y - 5 * S }, { x: x + 5 * S, y }, { x, y: y + 5 * S }, { x: x - 5 * S, y }])} fill={INK} stroke="#fff" strokeWidth={1} />
+          <polygon points={pts([{ x, y: y - 5 * S }, { x: x + 5 * S, y }, { x, y: y + 5 * S }, { x: x - 5 * S, y }])} fill={INK} stroke={HALO} strokeWidth={1} />
         </g>
       );
     case 'spare_end':
       return (
         <g>
           {halo}
-          <polygon points={pts([{ x: x - 4 * S, y: y - 2 * S }, { x: x + 4 * S, y: y - 2 * S }, { x, y: y + 4.5 * S }])} fill="#fff" {...line} />
+          <polygon points={pts([{ x: x - 4 * S, y: y - 2 * S }, { x: x + 4 * S, y: y - 2 * S }, { x, y: y + 4.5 * S }])} fill={HALO} {...line} />
           <rect x={x - 5 * S} y={y - 4.8 * S} width={10 * S} height={2 * S} fill={INK} />
         </g>
       );
@@ -64,7 +65,7 @@ export function ItemSymbol({ kind, x, y, isSelected = false }: { kind: ItemKind;
       return (
         <g>
           {halo}
-          <rect x={x - 4.5 * S} y={y - 4.5 * S} width={9 * S} height={9 * S} fill="#fff" {...line} />
+          <rect x={x - 4.5 * S} y={y - 4.5 * S} width={9 * S} height={9 * S} fill={HALO} {...line} />
           <polygon points={pts([{ x: x - 4.5 * S, y: y - 4.5 * S }, { x: x - 4.5 * S, y: y + 4.5 * S }, { x: x + 4.5 * S, y: y + 4.5 * S }])} fill={INK} />
         </g>
       );
@@ -75,8 +76,8 @@ export function ItemSymbol({ kind, x, y, isSelected = false }: { kind: ItemKind;
 export function ReferenceSymbol({ x, y, isSelected = false }: { x: number; y: number; isSelected?: boolean }) {
   return (
     <g>
-      {isSelected && <circle cx={x} cy={y} r={15} fill="none" stroke="#0f6cbd" strokeWidth={3} />}
-      <circle cx={x} cy={y} r={3.5 * S} fill="#fff" stroke={INK} strokeWidth={1.3} />
+      {isSelected && <circle cx={x} cy={y} r={15} fill="none" stroke={SELECTION} strokeWidth={3} />}
+      <circle cx={x} cy={y} r={3.5 * S} fill={HALO} stroke={INK} strokeWidth={1.3} />
       <line x1={x - 6 * S} y1={y} x2={x + 6 * S} y2={y} stroke={INK} strokeWidth={1.3} />
       <line x1={x} y1={y - 6 * S} x2={x} y2={y + 6 * S} stroke={INK} strokeWidth={1.3} />
     </g>

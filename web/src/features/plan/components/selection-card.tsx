@@ -7,7 +7,7 @@ import type { AsBuilt } from '@domain/as-built/as-built.schema';
 import { paths } from '../../../config/paths';
 import { formatLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
-import { ITEM_KIND_LABELS, METHOD_LABELS } from '../../job-record/utils/record-labels';
+import { ITEM_KIND_LABELS, METHOD_LABELS } from '../../job-record';
 
 import { usePanelStyles } from './panel-styles';
 

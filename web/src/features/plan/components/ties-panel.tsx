@@ -3,8 +3,8 @@ import { Checkmark24Regular } from '@fluentui/react-icons';
 import type { AsBuilt } from '@domain/as-built/as-built.schema';
 import type { TieSolution } from '@domain/geometry/ties';
 
-import { TiesEditor } from '../../jobs/components/ties-editor';
-import { ITEM_KIND_LABELS } from '../../job-record/utils/record-labels';
+import { TiesEditor } from '../../jobs';
+import { ITEM_KIND_LABELS } from '../../job-record';
 import { tieableItems, type TieDraft } from '../utils/plan-records';
 
 import { usePanelStyles } from './panel-styles';

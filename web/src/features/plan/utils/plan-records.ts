@@ -7,7 +7,7 @@ import type { Role } from '@domain/auth/roles';
 import { solvePositionFromTies, type TieObservation, type TieSolution } from '@domain/geometry/ties';
 
 import { parseLength, type LengthSystem } from '../../../lib/units';
-import type { TieDraft } from '../../jobs/components/ties-editor';
+import type { TieDraft } from '../../jobs';
 
 /** A tie as typed: the reference point and the distance in the user's units (the workspace ties editor's own draft). */
 export type { TieDraft };

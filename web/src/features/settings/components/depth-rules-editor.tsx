@@ -7,7 +7,7 @@ import { useNotify } from '../../../components/notify';
 import { describeRequestError } from '../../../lib/form-errors';
 import { formatLength, lengthInputValue, parseLength, unitLabel } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
-import { LOCATION_LABELS, METHOD_LABELS } from '../../job-record/utils/record-labels';
+import { LOCATION_LABELS, METHOD_LABELS } from '../../job-record';
 import { useResetDepthRules, useUpdateDepthRules } from '../api/company-profile';
 
 const useStyles = makeStyles({

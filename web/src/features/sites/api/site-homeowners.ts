@@ -5,7 +5,7 @@ import type { SiteResponse } from '@domain/sites/site.schema';
 
 import { apiRequest } from '../../../lib/api-client';
 import { responseOf } from '../../../lib/response';
-import { getInvitationsQueryOptions } from '../../users/api/get-invitations';
+import { getInvitationsQueryOptions } from '../../users';
 
 import { getSiteQueryOptions } from './get-site';
 

@@ -3,7 +3,7 @@ import type { SiteResponse } from '@domain/sites/site.schema';
 import type { SiteVersionResponse } from '@domain/sites/site-rules';
 
 import { isApiError } from '../../../lib/api-client';
-import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../../job-record/api/get-job-as-built';
+import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../../job-record';
 
 import { getSiteQueryOptions } from './get-site';
 

@@ -32,7 +32,7 @@ import { ConfirmDialog } from '../../../components/confirm-dialog';
 import { useNotify } from '../../../components/notify';
 import { isApiError } from '../../../lib/api-client';
 import { describeRequestError, toSentence } from '../../../lib/form-errors';
-import { getUsersQueryOptions } from '../../users/api/get-users';
+import { getUsersQueryOptions } from '../../users';
 import { useInviteHomeowner, useLinkHomeowner, useUnlinkHomeowner } from '../api/site-homeowners';
 
 const useStyles = makeStyles({
