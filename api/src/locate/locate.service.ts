@@ -100,6 +100,9 @@ export class LocateService {
         isSpare: run.isSpare,
         isAbandoned: run.isAbandoned,
         revision: run.revision,
+        installedOn: run.installedOn ?? null,
+        installedByJobTitle: run.installedByJobTitle ?? run.jobTitle,
+        abandonedOn: run.abandonedOn ?? null,
         depthProfileUrl: `${base}/runs/${run.id}/depth-profile.svg`,
         photos: photos
           .filter((p) => p.runId === run.id)

@@ -56,6 +56,10 @@ export const LocateRunSchema = z.object({
   isSpare: z.boolean(),
   isAbandoned: z.boolean(),
   revision: z.number().int(),
+  /** Provenance (issue 21): when the run went in (ISO date; null when unknown), by which job, and abandoned since when. */
+  installedOn: z.string().nullable().optional(),
+  installedByJobTitle: z.string().optional(),
+  abandonedOn: z.string().nullable().optional(),
   depthProfileUrl: z.string(),
   photos: z.array(LocatePhotoSchema),
 });

@@ -5,6 +5,7 @@ import { useLocation } from 'react-router';
 
 import { InstallerCard } from '../../../components/installer-card';
 import { formatDate } from '../../../lib/format-date';
+import { formatDate as formatWorkDate } from '@domain/format/date-time';
 import { formatLength } from '../../../lib/units';
 import type { LocateViewResponse } from '../api/get-locate-view';
 
@@ -409,7 +410,10 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
                         {run.isAbandoned ? ' (abandoned)' : run.isSpare ? ' (spare)' : ''}
                       </Text>
                       <Text size={200} className={styles.muted} block>
-                        {run.cable} {run.gauge} · {METHOD_LABELS[run.method]} · revision {run.revision}
+                        {run.cable} {run.gauge} · {METHOD_LABELS[run.method]}
+                      </Text>
+                      <Text size={200} className={styles.muted} block>
+                        {runProvenance(run)}
                       </Text>
                       {run.isShallow && run.minDepthM !== null && (
                         <Text size={200} className={styles.shallowNote} block>
@@ -439,4 +443,11 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
       </Text>
     </div>
   );
+}
+
+/** When a run went in and by which job, and since when it is abandoned (issue 21: never a per-job revision number). */
+export function runProvenance(run: { installedOn?: string | null; installedByJobTitle?: string; abandonedOn?: string | null }): string {
+  const installed = run.installedOn ? `Installed ${formatWorkDate(run.installedOn)}` : 'Installed (date not recorded)';
+  const by = run.installedByJobTitle ? ` by “${run.installedByJobTitle}”` : '';
+  return `${installed}${by}${run.abandonedOn ? ` · abandoned since ${formatWorkDate(run.abandonedOn)}` : ''}`;
 }

@@ -392,7 +392,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
                 onClick={onSelectRun ? () => tapRun(run.id) : undefined}
                 style={onSelectRun ? { cursor: 'pointer' } : undefined}
               >
-                <title>{`${run.label} (${run.jobTitle}, revision ${run.revision})`}</title>
+                <title>{`${run.label} (installed ${run.installedOn ?? 'date not recorded'} by ${run.installedByJobTitle ?? run.jobTitle}${run.abandonedOn ? `, abandoned since ${run.abandonedOn}` : ''})`}</title>
                 {selected && <polyline points={path(run.route!)} fill="none" stroke={REFERENCE_INK} strokeOpacity={0.25} strokeWidth={width * 2 + 10} strokeLinecap="round" strokeLinejoin="round" data-role="highlight" />}
                 <polyline
                   points={path(run.route!)}
