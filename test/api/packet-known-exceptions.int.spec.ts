@@ -11,7 +11,7 @@ import { DEMO_AS_BUILT } from '../../api/src/domain/as-built/demo-as-built.js';
 import { createCompany, type TestCompany, withDb } from '../support/fixtures.js';
 import { type Api, apiAs, createJob, createSite, type JobFixture, moveJob, recordAsBuilt } from '../support/records.js';
 import { bearer, signIn } from '../support/session.js';
-import { pdfPages } from '../print/packet-pdf.js';
+import { metricValues, pdfPages } from '../print/packet-pdf.js';
 
 // ConfigModule reads the environment when AppModule is imported: set this file's settings first.
 Object.assign(process.env, {
@@ -135,8 +135,8 @@ describe('issuing with known exceptions (the demo job with an under-rated amplif
     expect(page).toBeDefined();
     const flat = page.replace(/\s+/g, ' ');
     expect(flat).toContain('One amplifier channel is asked for more than its maker rates it for');
-    // 11 cm = 4.33 in of cover, to the nearest 1/4 in (the depth formatter writes ¼ or, with the one formatter, 1/4).
-    expect(flat).toMatch(/One cable \(the cable “Patio splice to P2”\) runs shallower than our standard about 9 ft 10 in from where it starts: 4(¼| 1\/4) in of cover where our standard is 6 in\./);
+    // 11 cm = 4.33 in of cover, to the nearest 1/8 in 4 3/8 in (1 in = 0.0254 m, NIST SP 811 B.8); the rule's 150 mm is the NEC's 6 in.
+    expect(flat).toMatch(/One cable \(the cable “Patio splice to P2”\) runs shallower than our standard about 9 ft 10 in from where it starts: 4 3\/8 in of cover where our standard is 6 in\./);
     expect(flat).toContain('marked on the site plan');
     expect(flat).toContain('Why: Homeowner chose to keep this amplifier; volume limit set.');
     // Never as an instruction to the installer, never in the engineering wording.
@@ -158,6 +158,16 @@ describe('issuing with known exceptions (the demo job with an under-rated amplif
     expect(summary).not.toMatch(/Amp minimum|Output|ASTM|IACS/i);
     // The under-rated channels read as known exceptions there, not as a problem left open.
     expect(summary.match(/Known exception\b/g)).toHaveLength(2);
+  });
+
+  it('should write every quantity of an imperial packet in feet and inches, findings and drawings included', () => {
+    // Findings are composed from numbers and formatted in the reader's units: "4 3/8 in of cover … our rule is 6 in".
+    const text = pages.join('\n');
+    expect(metricValues(text)).toEqual([]);
+    expect(metricValues('12.7 cm of cover, 4 m, 150mm, 2.5 mm², 2.5 mm² (≈ 13 AWG), 3 min')).toEqual(['12.7 cm', '4 m', '150mm', '2.5 mm²']);
+    expect(text.replace(/\s+/g, ' ')).toMatch(/Patio splice to P2" has 4 3\/8 in of cover at 9 ft 10 in from its start; the rule for [a-z ]+ is 6 in/);
+    // One style for feet and inches everywhere, drawings included.
+    expect(text).not.toMatch(/\d+'-\d+"/);
   });
 
   it('should print no empty section: no photo appendix without photos, no unsigned boxes, no rows of dashes', () => {

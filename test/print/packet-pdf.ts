@@ -124,3 +124,15 @@ export function readArchiveFile(zip: Buffer, path: string): Buffer {
   writeFileSync(join(dir, 'archive.zip'), zip);
   return execFileSync('unzip', ['-p', 'archive.zip', path], { cwd: dir, maxBuffer: 64 * 1024 * 1024 });
 }
+
+/**
+ * Every metric quantity in a text: a number followed by km, m, cm or mm (`12.7 cm`, `4 m`, `150 mm`), and
+ * a conductor size in mm² that is not followed by its AWG equivalent (`2.5 mm² (≈ 13 AWG)` is how an
+ * imperial reader is shown a metric cable, `2.5 mm²` alone is not). Used on an imperial packet's text,
+ * where none may appear.
+ */
+export function metricValues(text: string): string[] {
+  const lengths = [...text.matchAll(/(?<![\w.,])\d+(?:[.,]\d+)?\s?(?:km|m|cm|mm)(?![\w²])/g)].map((m) => m[0]);
+  const areas = [...text.matchAll(/(?<![\w.,])\d+(?:[.,]\d+)?\s?mm²(?!\s*\(≈)/g)].map((m) => m[0]);
+  return [...lengths, ...areas];
+}

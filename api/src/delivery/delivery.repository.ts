@@ -272,6 +272,9 @@ export class DeliveryRepository {
         companyName: companies.name,
         companyEmail: companySettings.contactEmail,
         units: companySettings.units,
+        // Dates as the packet prints them: the zone and locale frozen into the revision, else the company's now.
+        timeZone: sql<string | null>`coalesce(${packetRevisions.snapshot} -> 'settings' ->> 'timeZone', ${companySettings.timeZone})`,
+        locale: sql<string | null>`coalesce(${packetRevisions.snapshot} -> 'settings' ->> 'locale', ${companySettings.locale})`,
       })
       .from(packetRevisions)
       .innerJoin(jobs, eq(jobs.id, packetRevisions.jobId))

@@ -5,7 +5,7 @@ import { hashToken, newOpaqueToken } from '../auth/tokens.js';
 import { QueueWorker } from '../common/queue-worker.js';
 import type { Env } from '../config/env.schema.js';
 import { locateCautions } from '../domain/locate/locate-cautions.js';
-import { formatDate } from '../domain/packet/packet-format.js';
+import { formatDate } from '../domain/format/date-time.js';
 import { LinkBuilder } from '../mail/link-builder.js';
 import { MailService } from '../mail/mail.service.js';
 import { PacketsService } from '../packets/packets.service.js';
@@ -83,7 +83,7 @@ export class PacketSendWorker extends QueueWorker {
           siteAddress: `${site.addressLine1}, ${site.city}`,
           jobTitle: context.jobTitle,
           revision: revision.revision,
-          issuedDate: formatDate(revision.issuedAt.toISOString()),
+          issuedDate: formatDate(revision.issuedAt, { timeZone: context.timeZone, locale: context.locale }),
           pageCount: revision.pageCount ?? 0,
           runCount: summary?.runCount ?? 0,
           itemCount: summary?.itemCount ?? 0,

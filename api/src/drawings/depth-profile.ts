@@ -3,7 +3,8 @@ import type { Container } from '@svgdotjs/svg.js';
 import type { AsBuiltAnalysis } from '../domain/analysis/analyze.js';
 import type { AsBuilt } from '../domain/as-built/as-built.schema.js';
 import type { DrawingBaseOptions } from './drawing-options.js';
-import { depthUnitSymbol, formatDepth, formatNumber, lengthUnitSymbol, niceStep, toAxisDepthUnit, toAxisLengthUnit, type UnitSystem } from './drawing-units.js';
+import { formatDepthLength, formatRuleDepth, trimNumber } from '../domain/format/length.js';
+import { depthUnitSymbol, lengthUnitSymbol, niceStep, toAxisDepthUnit, toAxisLengthUnit, type UnitSystem } from './drawing-units.js';
 import { lineObstacles, placeLabels, pointLabelCandidates, type LabelRequest } from './label-placement.js';
 import { PAPER, RUN_ORANGE, SHALLOW_ZONE_FILL, WARNING_INK } from './marking-palette.js';
 import { addText, pointsAttr, r2 } from './svg-canvas.js';
@@ -90,7 +91,7 @@ export function drawDepthProfile(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, ru
     const x = plot.left + (v / spanX) * (plot.right - plot.left);
     axes.line(r2(x), r2(plot.bottom), r2(x), r2(plot.bottom + 2.5)).stroke({ color: '#000000', width: 0.5 });
     axes.line(r2(x), r2(plot.top), r2(x), r2(plot.bottom)).stroke({ color: '#dddddd', width: 0.3 });
-    addText(axes, formatNumber(v, 2), x, plot.bottom + 9, { size: 5.5, anchor: 'middle' });
+    addText(axes, trimNumber(v, 2), x, plot.bottom + 9, { size: 5.5, anchor: 'middle' });
   }
   addText(axes, `station from ${truncate(asBuilt.items.find((i) => i.id === run.fromItemId)?.label ?? 'start', 28)}, ${lengthUnitSymbol(units)}`, plot.right, H - 2, {
     size: 5.5,
@@ -101,7 +102,7 @@ export function drawDepthProfile(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, ru
     const y = plot.top + (v / spanY) * (plot.bottom - plot.top);
     axes.line(r2(plot.left - 2.5), r2(y), r2(plot.left), r2(y)).stroke({ color: '#000000', width: 0.5 });
     axes.line(r2(plot.left), r2(y), r2(plot.right), r2(y)).stroke({ color: '#dddddd', width: 0.3 });
-    addText(axes, formatNumber(v, 2), plot.left - 4, y + 2, { size: 5.5, anchor: 'end' });
+    addText(axes, trimNumber(v, 2), plot.left - 4, y + 2, { size: 5.5, anchor: 'end' });
   }
   addText(axes, `cover, ${depthUnitSymbol(units)}`, 3, plot.bottom + 9, { size: 5.5, italic: true });
   axes.line(r2(plot.left), r2(plot.top), r2(plot.left), r2(plot.bottom)).stroke({ color: '#000000', width: 0.6 });
@@ -123,7 +124,7 @@ export function drawDepthProfile(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, ru
     coverGroup = canvas.group().attr({ 'data-role': 'required-cover', 'data-min-cover-m': minCover });
     coverGroup.element('title').words(depth.rule.source);
     coverGroup.line(r2(plot.left), r2(y), r2(plot.right), r2(y)).stroke({ color: WARNING_INK, width: 0.8 }).attr('stroke-dasharray', '4 2');
-    const text = [`required cover ${formatDepth(minCover, units)}`, `(${BASIS_TEXT[depth.rule.basis]})`];
+    const text = [`required cover ${formatRuleDepth(minCover, units)}`, `(${BASIS_TEXT[depth.rule.basis]})`];
     const size = labelSize(text, FONT);
     const above = y - size.height / 2 - 0.5;
     const below = y + size.height / 2 + 0.5;
@@ -161,7 +162,7 @@ export function drawDepthProfile(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, ru
         .fill(WARNING_INK)
         .stroke({ color: PAPER, width: 0.5 })
         .attr(attrs);
-      const text = [`${formatDepth(reading.depthM, units)} shallow`];
+      const text = [`${formatDepthLength(reading.depthM, units)} shallow`];
       const size = labelSize(text, FONT);
       requests.push({
         id: `shallow:${index}`,

@@ -1,6 +1,6 @@
 import type { PlanPoint } from '../domain/as-built/common.schema.js';
 import type { UnitSystem } from './drawing-units.js';
-import type { Orientation, PaperSize } from './paper.js';
+import type { Orientation, PaperSize, SheetMargins } from './paper.js';
 import type { SvgCanvasFactory } from './svg-canvas.js';
 
 /** Text for the title block. Every field is the caller's, already formatted (e.g. the issue date). */
@@ -51,9 +51,21 @@ export interface DrawingBaseOptions {
   units?: UnitSystem;
 }
 
+/**
+ * Which sheet of the plan: the site plan (runs, items, depths and landmarks) or the ties sheet (reference
+ * points, items and the taped tie distances between them, nothing else).
+ */
+export type PlanSheet = 'plan' | 'ties';
+
 export interface SitePlanOptions extends DrawingBaseOptions {
   paper?: PaperSize;
-  orientation?: Orientation;
+  /** `auto`: portrait or landscape, whichever lets the plan be drawn at the larger standard scale. */
+  orientation?: Orientation | 'auto';
+  /** Space the page keeps above and below the drawing (heading, caption), pt; the drawing is that much shorter. */
+  headroomPt?: number;
+  /** The page's margins, when not the default 0.5 in / 12.7 mm (the packet's own pages). */
+  margins?: SheetMargins;
+  sheet?: PlanSheet;
   layers?: Partial<SitePlanLayers>;
   titleBlock?: TitleBlockInfo;
   planImage?: PlanImage;

@@ -1,30 +1,13 @@
 import { metresToFeet, metresToInches } from '../domain/as-built/units.js';
-import { formatCoverDepth, formatGroundLength } from '../domain/format/length.js';
+
+/**
+ * Axis and scale-bar units of the drawings. Every length, depth and number a drawing writes goes through
+ * the one formatter, domain/format/length (`formatGroundLength`, `formatDepthLength`, `formatRuleDepth`,
+ * `trimNumber`); this file only converts values for axes.
+ */
 
 /** Units for the labels on a drawing. Geometry is always computed in SI. */
 export type UnitSystem = 'metric' | 'imperial';
-
-/** Formats a number with at most `maxDecimals` decimals, trailing zeros trimmed, never "-0". */
-export function formatNumber(value: number, maxDecimals: number): string {
-  const fixed = Number(value.toFixed(maxDecimals));
-  return String(Object.is(fixed, -0) ? 0 : fixed);
-}
-
-/**
- * A plan length (tie, run length, station) as everywhere else (domain/format/length): `8.01 m`, or
- * feet and inches to the nearest inch, `26 ft 3 in`.
- */
-export function formatLength(m: number, units: UnitSystem): string {
-  return formatGroundLength(m, units);
-}
-
-/**
- * A burial depth (cover) as in the packet (domain/format/length formatCoverDepth): `11 cm`, or inches
- * to the nearest 1/4 in, `4 1/4 in` (0.15 m reads `6 in`, the usual 6-inch rule).
- */
-export function formatDepth(m: number, units: UnitSystem): string {
-  return formatCoverDepth(m, units);
-}
 
 /** Value of a length in the unit an axis or scale bar counts in: metres or feet. */
 export function toAxisLengthUnit(m: number, units: UnitSystem): number {

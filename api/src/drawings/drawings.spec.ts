@@ -6,6 +6,7 @@ import { AsBuiltSchema, type AsBuilt } from '../domain/as-built/as-built.schema.
 import { DEMO_AS_BUILT } from '../domain/as-built/demo-as-built.js';
 import type { Item } from '../domain/as-built/item.schema.js';
 import type { Run } from '../domain/as-built/run.schema.js';
+import { generateSyntheticAsBuilt } from '../domain/as-built/synthetic-as-built.js';
 import { drawDepthProfile } from './depth-profile.js';
 import { createNodeSvgCanvas } from './node-svg-window.js';
 import { chooseScale, formatScale, IMPERIAL_SCALES, ptPerPlanMetre } from './paper.js';
@@ -95,19 +96,21 @@ describe('drawSitePlan', () => {
   });
 
   it('should state the scale it is drawn at, the largest standard scale that fits', () => {
-    // The demo is imperial. Its extent (x −0…22 m, y −3…16 m) fits 1/16" = 1'-0" but not 1" = 10'.
+    // The demo is imperial. Its extent (x −0…22 m, y −3…16 m) fits 1/16 in = 1 ft but not 3/32 in = 1 ft
+    // (22 m at 1:128 is 487 pt across, the frame less its label margins 444 pt), in either orientation.
     expect(model.scale).toEqual(IMPERIAL_SCALES.find((s) => s.ratio === 192));
     const doc = parseSvg(svg);
     expect(doc.querySelector('[data-role="scale"]')?.textContent).toBe(`Scale ${formatScale(model.scale!)}`);
-    expect(doc.querySelector('[data-role="scale"]')?.textContent).toBe(`Scale 1/16" = 1'-0" (1:192)`);
+    expect(doc.querySelector('[data-role="scale"]')?.textContent).toBe('Scale 1/16 in = 1 ft (1:192)');
     expect(model.ptPerMetre).toBeCloseTo(ptPerPlanMetre(192), 9);
     // The scale bar is as long on paper as it says: value (ft) × 0.3048 m × pt per metre.
     const bar = doc.querySelector('[data-role="scale-bar"]')!;
     const feet = Number(bar.getAttribute('data-length'));
     expect(Number(bar.getAttribute('data-width-pt'))).toBeCloseTo(feet * 0.3048 * ptPerPlanMetre(192), 1);
     const metric = layoutSitePlan(demo, demoAnalysis, { units: 'metric' });
-    expect(metric.scale?.label).toBe('1:200');
-    expect(chooseScale(22, 19, 540 - 96, 720 - 152 - 60, 'metric')?.label).toBe('1:200');
+    // 22 m at 1:150 is 146.7 mm = 416 pt ≤ 444 pt; at 1:125, 176 mm = 499 pt does not fit.
+    expect(metric.scale?.label).toBe('1:150');
+    expect(chooseScale(22, 19, 540 - 96, 720 - 152 - 60, 'metric')?.label).toBe('1:150');
   });
 
   it('should draw a run without a route as a dotted straight line with a note', () => {
@@ -151,7 +154,6 @@ describe('drawSitePlan', () => {
       'spare_end',
       'wall_entry',
       'reference_point',
-      'tie',
       'accuracy',
       'run:direct_burial',
       'run:under_hardscape_sleeve',
@@ -199,8 +201,9 @@ describe('drawSitePlan', () => {
 
   it('should place no two labels on top of each other, all inside the frame', () => {
     expect(model.omittedLabelCount).toBe(0);
-    // items, runs, reference points and ties: 13 + 11 + 3 + 27
-    expect(model.labels.length).toBe(13 + 11 + 3 + demo.items.reduce((s, i) => s + (i.ties?.length ?? 0), 0));
+    // items, runs and reference points: 13 + 11 + 3 (the ties are on the ties sheet)
+    expect(model.labels.length).toBe(13 + 11 + 3);
+    expect(model.ties).toEqual([]);
     for (let i = 0; i < model.labels.length; i += 1) {
       expect(boxContains(model.frame, model.labels[i]!.box)).toBe(true);
       for (let j = i + 1; j < model.labels.length; j += 1) {
@@ -297,6 +300,74 @@ describe('drawSitePlan', () => {
   });
 });
 
+describe('drawSitePlan: ties sheet and paper orientation', () => {
+  const tiesModel = layoutSitePlan(demo, demoAnalysis, { sheet: 'ties' });
+  const tieCount = demo.items.reduce((n, item) => n + (item.ties ?? []).filter((t) => demo.referencePoints.some((rp) => rp.id === t.referencePointId)).length, 0);
+
+  const expectApart = (m: ReturnType<typeof layoutSitePlan>): void => {
+    for (let i = 0; i < m.labels.length; i += 1) {
+      expect(boxContains(m.frame, m.labels[i]!.box)).toBe(true);
+      for (let j = i + 1; j < m.labels.length; j += 1) {
+        expect(boxesIntersect(m.labels[i]!.box, m.labels[j]!.box), `${m.labels[i]!.id} / ${m.labels[j]!.id}`).toBe(false);
+      }
+    }
+  };
+
+  it('should draw reference points, items and every tie with its taped distance, and no run or landmark', () => {
+    expect(tiesModel.runs).toEqual([]);
+    expect(tiesModel.features).toEqual([]);
+    expect(tiesModel.references.length).toBe(demo.referencePoints.length);
+    expect(tiesModel.ties.length).toBe(tieCount);
+    const tieLabels = tiesModel.labels.filter((l) => l.kind === 'tie');
+    expect(tieLabels.length + tiesModel.omittedLabelCount).toBe(tieCount);
+    // Written by the one formatter in the job's units: feet and inches, never `26'-3"`.
+    for (const label of tieLabels) expect(label.lines[0]).toMatch(/^\d+ ft( \d+ in)?$|^0 ft \d+ in$/);
+    expectApart(tiesModel);
+    const doc = parseSvg(drawSitePlan(demo, demoAnalysis, { ...opts, sheet: 'ties' }));
+    expect(doc.documentElement.getAttribute('data-drawing')).toBe('ties');
+    expect(doc.querySelector('[data-role="sheet-title"]')?.textContent).toMatch(/^TIES/);
+    expect(all(doc, '[data-tie]').length).toBe(tieCount);
+    expect(all(doc, '[data-kind="run"]')).toEqual([]);
+  });
+
+  it('should keep labels apart on the ties sheet of a crowded generated job (500 items, 3 reference points)', () => {
+    const crowded = generateSyntheticAsBuilt(7);
+    const m = layoutSitePlan(crowded, analyzeAsBuilt(crowded), { sheet: 'ties', units: 'imperial' });
+    expect(m.ties.length).toBeGreaterThan(500);
+    expect(m.labels.length).toBeGreaterThan(20);
+    expectApart(m);
+  });
+
+  it('should turn the sheet to landscape when a wide plan is drawn at a larger scale that way', () => {
+    const wide: AsBuilt = {
+      ...demo,
+      referencePoints: demo.referencePoints.map((rp) => ({ ...rp, x: rp.x * 3 })),
+      items: demo.items.map((item) => (item.position ? ({ ...item, position: { ...item.position, x: item.position.x * 3 } } as Item) : item)),
+      runs: demo.runs.map((run) => (run.route ? { ...run, route: run.route.map((p) => ({ ...p, x: p.x * 3 })) } : run)),
+    };
+    const analysis = analyzeAsBuilt(wide);
+    const portrait = layoutSitePlan(wide, analysis, { orientation: 'portrait' });
+    const auto = layoutSitePlan(wide, analysis, { orientation: 'auto' });
+    expect(auto.area.orientation).toBe('landscape');
+    expect(auto.scale!.ratio).toBeLessThan(portrait.scale!.ratio);
+    // The demo is drawn at 1:192 either way: the sheet it fills more of wins (landscape: 19 m of depth on
+    // 328 pt of frame height, 85 %; portrait: 22 m across 444 pt, 73 %).
+    const demoAuto = layoutSitePlan(demo, demoAnalysis, { orientation: 'auto' });
+    expect(demoAuto.scale?.ratio).toBe(192);
+    expect(demoAuto.area.orientation).toBe('landscape');
+    // The drawn extent fills the frame in one direction to within one step of the scale list.
+    expect(Math.max(auto.fill.width, auto.fill.height)).toBeGreaterThan(0.6);
+    expectApart(auto);
+  });
+
+  it('should leave room on the page for a heading: shorter by the headroom, the scale still true', () => {
+    const m = layoutSitePlan(demo, demoAnalysis, { headroomPt: 54 });
+    expect(m.area.heightPt).toBeCloseTo(720 - 54, 6);
+    expect(m.area.heightAttr).toBe('9.25in');
+    expect(m.ptPerMetre).toBeCloseTo(ptPerPlanMetre(m.scale!.ratio), 9);
+  });
+});
+
 describe('drawDepthProfile', () => {
   it('should highlight exactly the shallow station of the demo run to P2', () => {
     const doc = parseSvg(drawDepthProfile(demo, demoAnalysis, 'run-p2', opts));
@@ -314,7 +385,7 @@ describe('drawDepthProfile', () => {
     expect(shallow[0]!.tagName).toBe('polygon');
     expect(shallow[0]!.getAttribute('fill')).toBe('#000000');
     expect(readings.filter((r) => r.getAttribute('data-shallow') === 'false').every((r) => r.tagName === 'circle')).toBe(true);
-    expect(doc.querySelector('[data-role="shallow-label"]')?.textContent).toBe('4 1/4 in shallow');
+    expect(doc.querySelector('[data-role="shallow-label"]')?.textContent).toBe('4 3/8 in shallow');
   });
 
   it('should draw the required cover from the analysis with its value and basis', () => {
@@ -344,8 +415,36 @@ describe('drawWiringSchematic', () => {
   let svg: string;
   let doc: XmlDocument;
   beforeAll(async () => {
-    svg = await drawWiringSchematic(demo, demoAnalysis, opts);
+    svg = await drawWiringSchematic(demo, demoAnalysis, { ...opts, orientation: 'auto' });
     doc = parseSvg(svg);
+  });
+
+  it('should print every text at 8 pt or larger once scaled to the packet page', async () => {
+    // As the packet draws it (packet-document.ts): its drawing page less the heading, no finding badges
+    // (the findings are in the Engineering notes), the sheet turned whichever way prints the graph larger.
+    const packetDoc = parseSvg(
+      await drawWiringSchematic(demo, demoAnalysis, { ...opts, orientation: 'auto', margins: { acrossPt: 72, downPt: 90 }, headroomPt: 44, showFindings: false }),
+    );
+    const root = packetDoc.documentElement;
+    const scale = Number(root.getAttribute('data-scale'));
+    expect(Number(root.getAttribute('data-min-text-pt'))).toBeGreaterThanOrEqual(8);
+    // Text inside the scaled graph groups prints at its size × the group's scale.
+    const scaled = new Set(all(packetDoc, '[data-layer="graph"] text, [data-layer="unconnected"] text'));
+    expect(all(packetDoc, '[data-finding]')).toEqual([]);
+    for (const text of all(packetDoc, 'text')) {
+      const printed = Number(text.getAttribute('font-size')) * (scaled.has(text) ? scale : 1);
+      expect(printed, text.textContent ?? '').toBeGreaterThanOrEqual(8 - 1e-9);
+    }
+  });
+
+  it('should mark + and − where each live pair is connected', () => {
+    const live = all(doc, '[data-kind="run"][data-dead="false"]');
+    expect(live.length).toBeGreaterThan(0);
+    for (const edge of live) {
+      const marks = all(edge, '[data-role="polarity"] text').map((t) => t.textContent);
+      expect(marks, edge.getAttribute('data-edge') ?? '').toEqual(['+', '−']);
+    }
+    for (const edge of all(doc, '[data-kind="run"][data-dead="true"]')) expect(all(edge, '[data-role="polarity"]')).toEqual([]);
   });
 
   it('should name the channels a shared run carries by their names, not their ids', async () => {
@@ -377,10 +476,10 @@ describe('drawWiringSchematic', () => {
 
   it('should show each channel load with and without cable and each speaker loss', () => {
     const patio = doc.querySelector('[data-id="amp-1/ch-patio"]')!;
-    expect(patio.textContent).toContain('load 4 Ω nominal');
+    expect(patio.textContent).toContain('load 4 Ω4.18 Ω with cable');
     expect(patio.textContent).toContain('4.18 Ω with cable');
     expect(patio.textContent).toContain('amp minimum 4 Ω');
-    expect(doc.querySelector('[data-id="amp-1/ch-spa"]')?.textContent).toContain('load 5.33 Ω nominal');
+    expect(doc.querySelector('[data-id="amp-1/ch-spa"]')?.textContent).toContain('load 5.33 Ω5.61 Ω with cable');
     expect(doc.querySelector('[data-node][data-id="sp-p1"]')?.textContent).toContain('level drop 0.38 dB');
     expect(doc.querySelector('[data-node][data-id="sub-1"]')?.textContent).toContain('series = 16 Ω');
   });

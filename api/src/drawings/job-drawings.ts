@@ -2,9 +2,9 @@ import type { AsBuiltAnalysis } from '../domain/analysis/analyze.js';
 import type { AsBuilt } from '../domain/as-built/as-built.schema.js';
 import { SITE_PLAN_LAYER_NAMES, type SitePlanLayerName } from '../domain/jobs/job-drawings.schema.js';
 import { drawDepthProfile } from './depth-profile.js';
-import type { PixelPoint, PlanImage, SitePlanLayers, TitleBlockInfo } from './drawing-options.js';
+import type { PixelPoint, PlanImage, PlanSheet, SitePlanLayers, TitleBlockInfo } from './drawing-options.js';
 import type { UnitSystem } from './drawing-units.js';
-import type { Orientation, PaperSize } from './paper.js';
+import type { Orientation, PaperSize, SheetMargins } from './paper.js';
 import { drawSitePlan } from './site-plan.js';
 import type { SvgCanvasFactory } from './svg-canvas.js';
 import { drawWiringSchematic } from './wiring-schematic.js';
@@ -88,7 +88,12 @@ export interface JobDrawingInput {
 
 export interface JobSitePlanOptions {
   paper: PaperSize;
-  orientation?: Orientation;
+  orientation?: Orientation | 'auto';
+  /** Space kept above and below the drawing on its page (heading, caption), pt. */
+  headroomPt?: number;
+  margins?: SheetMargins;
+  /** The site plan (default) or the ties sheet. */
+  sheet?: PlanSheet;
   titleBlock?: TitleBlockInfo;
   planImage?: PlanImage;
   layersOff?: readonly SitePlanLayerName[];
@@ -100,14 +105,25 @@ export function drawJobSitePlan(input: JobDrawingInput, options: JobSitePlanOpti
     units: input.units,
     paper: options.paper,
     orientation: options.orientation ?? 'portrait',
+    ...(options.headroomPt !== undefined ? { headroomPt: options.headroomPt } : {}),
+    ...(options.margins ? { margins: options.margins } : {}),
+    ...(options.sheet ? { sheet: options.sheet } : {}),
     ...(options.titleBlock ? { titleBlock: options.titleBlock } : {}),
     ...(options.planImage ? { planImage: options.planImage } : {}),
     ...(options.layersOff && options.layersOff.length > 0 ? { layers: layersWithout(options.layersOff) } : {}),
   });
 }
 
-export function drawJobSchematic(input: JobDrawingInput): Promise<string> {
-  return drawWiringSchematic(input.asBuilt, input.analysis, { createCanvas: input.createCanvas, units: input.units });
+export interface JobSchematicOptions {
+  paper?: PaperSize;
+  orientation?: Orientation | 'auto';
+  headroomPt?: number;
+  margins?: SheetMargins;
+  showFindings?: boolean;
+}
+
+export function drawJobSchematic(input: JobDrawingInput, options: JobSchematicOptions = {}): Promise<string> {
+  return drawWiringSchematic(input.asBuilt, input.analysis, { createCanvas: input.createCanvas, units: input.units, ...options });
 }
 
 export function drawJobDepthProfile(input: JobDrawingInput, runId: string): string {

@@ -23,15 +23,15 @@ describe('paper', () => {
       expect(ptPerPlanMetre(100)).toBeCloseTo((10 / 25.4) * 72, 9);
     });
 
-    it('should put 20 ft of ground on 1 in of paper at 1" = 20\'', () => {
+    it('should put 20 ft of ground on 1 in of paper at 1 in = 20 ft', () => {
       expect(20 * 0.3048 * ptPerPlanMetre(240)).toBeCloseTo(72, 9);
     });
   });
 
   describe(chooseScale.name, () => {
     it('should choose the largest metric scale that fits', () => {
-      // 20 m at 1:100 is 200 mm = 566.9 pt: too wide for 540 pt; 1:200 fits.
-      expect(chooseScale(20, 10, 540, 540, 'metric')?.label).toBe('1:200');
+      // 20 m at 1:100 is 200 mm = 566.9 pt: too wide for 540 pt; at 1:125, 160 mm = 453.5 pt fits.
+      expect(chooseScale(20, 10, 540, 540, 'metric')?.label).toBe('1:125');
       expect(chooseScale(18, 10, 540, 540, 'metric')?.label).toBe('1:100');
     });
 
@@ -39,6 +39,10 @@ describe('paper', () => {
       // 20 m = 787 in; at 1:120 that is 6.56 in = 472 pt
       expect(chooseScale(20, 10, 540, 540, 'imperial')?.ratio).toBe(120);
       expect(IMPERIAL_SCALES.map((s) => s.ratio)).toEqual([...IMPERIAL_SCALES.map((s) => s.ratio)].sort((a, b) => a - b));
+      // Architect's 3/32 in = 1 ft is 1:128 (12 ÷ 3/32); engineer's 1 in = 30 ft is 1:360.
+      expect(IMPERIAL_SCALES.find((s) => s.ratio === 128)?.label).toBe('3/32 in = 1 ft');
+      expect(IMPERIAL_SCALES.find((s) => s.ratio === 360)?.label).toBe('1 in = 30 ft');
+      expect(IMPERIAL_SCALES.every((s) => !/['"]/.test(s.label))).toBe(true);
     });
 
     it('should return null when nothing fits', () => {
@@ -48,7 +52,7 @@ describe('paper', () => {
 
   describe(formatScale.name, () => {
     it('should add the ratio to imperial scales', () => {
-      expect(formatScale({ ratio: 240, label: `1" = 20'` })).toBe(`1" = 20' (1:240)`);
+      expect(formatScale({ ratio: 240, label: '1 in = 20 ft' })).toBe('1 in = 20 ft (1:240)');
       expect(formatScale({ ratio: 200, label: '1:200' })).toBe('1:200');
     });
   });

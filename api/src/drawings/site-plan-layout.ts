@@ -3,10 +3,11 @@ import type { AsBuilt } from '../domain/as-built/as-built.schema.js';
 import type { PlanPoint } from '../domain/as-built/common.schema.js';
 import type { ItemKind } from '../domain/as-built/item.schema.js';
 import type { InstallMethod } from '../domain/as-built/run.schema.js';
-import { DEFAULT_LAYERS, type PlanImage, type SitePlanLayers, type SitePlanOptions } from './drawing-options.js';
-import { formatDepth, formatLength, type UnitSystem } from './drawing-units.js';
+import { DEFAULT_LAYERS, type PlanImage, type PlanSheet, type SitePlanLayers, type SitePlanOptions } from './drawing-options.js';
+import { formatDepthLength, formatGroundLength } from '../domain/format/length.js';
+import type { UnitSystem } from './drawing-units.js';
 import { lineLabelAnchor, lineLabelCandidates, lineObstacles, placeLabels, pointLabelCandidates, type LabelRequest, type PlacedLabel } from './label-placement.js';
-import { chooseScale, printableArea, ptPerPlanMetre, type DrawingScale, type PrintableArea } from './paper.js';
+import { chooseScale, printableArea, ptPerPlanMetre, type DrawingScale, type Orientation, type PrintableArea } from './paper.js';
 import { labelSize, type Box, type Point } from './text-box.js';
 
 /** Height of the band under the plan that holds the legend, north arrow, scale bar and title block, pt. */
@@ -86,6 +87,7 @@ export interface PlanLabel extends PlacedLabel {
 }
 
 export interface SitePlanModel {
+  sheet: PlanSheet;
   area: PrintableArea;
   units: UnitSystem;
   frame: Box;
@@ -96,6 +98,8 @@ export interface SitePlanModel {
   notToScaleReason: string | null;
   /** Paper points per plan metre (also when not to scale: the factor used to fit the frame). */
   ptPerMetre: number;
+  /** Share of the frame's width and height the drawn extent takes (1 = edge to edge, inside the label margins). */
+  fill: { width: number; height: number };
   northAzimuthDeg: number | null;
   image: { href: string; box: Box } | null;
   runs: PlanRun[];
@@ -152,6 +156,65 @@ function imagePlanBox(image: PlanImage): { topLeft: PlanPoint; widthM: number; h
   };
 }
 
+interface SheetFit {
+  area: PrintableArea;
+  frame: Box;
+  band: Box;
+  scale: DrawingScale | null;
+  notToScaleReason: string | null;
+  k: number;
+  centre: PlanPoint;
+  fill: { width: number; height: number };
+}
+
+/**
+ * The frame and band of one sheet and the largest standard scale at which the extent fits the frame
+ * (inside the label margins), with how much of the frame the drawing then fills.
+ */
+function fitSheet(extentPoints: readonly PlanPoint[], area: PrintableArea, units: UnitSystem): SheetFit {
+  const frame: Box = { x: 0, y: 0, width: area.widthPt, height: area.heightPt - BAND_HEIGHT_PT - BAND_GAP_PT };
+  const band: Box = { x: 0, y: area.heightPt - BAND_HEIGHT_PT, width: area.widthPt, height: BAND_HEIGHT_PT };
+  const fitW = frame.width - 2 * FIT_PAD_X_PT;
+  const fitH = frame.height - 2 * FIT_PAD_Y_PT;
+  if (extentPoints.length === 0) {
+    return {
+      area,
+      frame,
+      band,
+      scale: null,
+      notToScaleReason: 'No item has a recorded position: nothing can be shown to scale.',
+      k: ptPerPlanMetre(100),
+      centre: { x: 0, y: 0 },
+      fill: { width: 0, height: 0 },
+    };
+  }
+  const xs = extentPoints.map((p) => p.x);
+  const ys = extentPoints.map((p) => p.y);
+  const spanX = Math.max(...xs) - Math.min(...xs);
+  const spanY = Math.max(...ys) - Math.min(...ys);
+  const centre = { x: (Math.min(...xs) + Math.max(...xs)) / 2, y: (Math.min(...ys) + Math.max(...ys)) / 2 };
+  const scale = chooseScale(spanX, spanY, fitW, fitH, units);
+  const k = scale !== null ? ptPerPlanMetre(scale.ratio) : Math.min(fitW / Math.max(spanX, 1e-9), fitH / Math.max(spanY, 1e-9));
+  return {
+    area,
+    frame,
+    band,
+    scale,
+    notToScaleReason: scale === null ? 'The recorded positions span more than the largest standard scale fits on this sheet.' : null,
+    k,
+    centre,
+    fill: { width: (spanX * k) / fitW, height: (spanY * k) / fitH },
+  };
+}
+
+/** A larger standard scale wins; at the same scale, the sheet the drawing fills more of (then the first tried). */
+function isBetterFit(a: SheetFit, b: SheetFit): boolean {
+  if (a.scale !== null && b.scale === null) return true;
+  if (a.scale === null || b.scale === null) return false;
+  if (a.scale.ratio !== b.scale.ratio) return a.scale.ratio < b.scale.ratio;
+  return Math.max(a.fill.width, a.fill.height) > Math.max(b.fill.width, b.fill.height) + 1e-9;
+}
+
 /**
  * Lays out the site plan without drawing it: chooses the scale, maps plan metres to paper points,
  * and places every label so that no two overlap. Pure; the SVG is drawn from this model by
@@ -159,10 +222,12 @@ function imagePlanBox(image: PlanImage): { topLeft: PlanPoint; widthM: number; h
  */
 export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, options: Omit<SitePlanOptions, 'createCanvas'>): SitePlanModel {
   const layers: SitePlanLayers = { ...DEFAULT_LAYERS, ...options.layers };
+  const sheet: PlanSheet = options.sheet ?? 'plan';
+  // The site plan shows runs, items, depths and landmarks; ties live on their own sheet with the
+  // reference points they were taped from.
+  const isTies = sheet === 'ties';
+  const showReferences = isTies || layers.referencePoints;
   const units: UnitSystem = options.units ?? asBuilt.units?.length ?? 'metric';
-  const area = printableArea(options.paper ?? 'letter', options.orientation ?? 'portrait');
-  const frame: Box = { x: 0, y: 0, width: area.widthPt, height: area.heightPt - BAND_HEIGHT_PT - BAND_GAP_PT };
-  const band: Box = { x: 0, y: area.heightPt - BAND_HEIGHT_PT, width: area.widthPt, height: BAND_HEIGHT_PT };
   if (options.planImage !== undefined && !options.planImage.href.startsWith('data:')) {
     throw new Error('planImage.href must be a data: URL (a printed packet never fetches from the network)');
   }
@@ -175,9 +240,9 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
   const runResultById = new Map(analysis.runs.map((r) => [r.runId, r]));
   const notShown: SitePlanModel['notShown'] = [];
 
-  // Which runs are drawn, in plan metres.
+  // Which runs are drawn, in plan metres (none on the ties sheet).
   const planRuns: { run: AsBuilt['runs'][number]; points: PlanPoint[]; isRouteRecorded: boolean }[] = [];
-  for (const run of asBuilt.runs) {
+  for (const run of isTies ? [] : asBuilt.runs) {
     if (!layers.spareAndAbandoned && (run.isSpare === true || run.isAbandoned === true)) continue;
     if (run.route !== undefined) {
       planRuns.push({ run, points: run.route, isRouteRecorded: true });
@@ -194,35 +259,19 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
 
   // Extent of everything drawn, plan metres.
   const extentPoints: PlanPoint[] = [...positions.values(), ...planRuns.flatMap((r) => r.points)];
-  if (layers.referencePoints) extentPoints.push(...asBuilt.referencePoints);
-  const fitW = frame.width - 2 * FIT_PAD_X_PT;
-  const fitH = frame.height - 2 * FIT_PAD_Y_PT;
-  let scale: DrawingScale | null = null;
-  let notToScaleReason: string | null = null;
-  let k: number;
-  let centre: PlanPoint = { x: 0, y: 0 };
-  if (extentPoints.length === 0) {
-    notToScaleReason = 'No item has a recorded position: nothing can be shown to scale.';
-    k = ptPerPlanMetre(100);
-  } else {
-    const xs = extentPoints.map((p) => p.x);
-    const ys = extentPoints.map((p) => p.y);
-    const minX = Math.min(...xs);
-    const maxX = Math.max(...xs);
-    const minY = Math.min(...ys);
-    const maxY = Math.max(...ys);
-    centre = { x: (minX + maxX) / 2, y: (minY + maxY) / 2 };
-    scale = chooseScale(maxX - minX, maxY - minY, fitW, fitH, units);
-    if (scale !== null) k = ptPerPlanMetre(scale.ratio);
-    else {
-      notToScaleReason = 'The recorded positions span more than the largest standard scale fits on this sheet.';
-      k = Math.min(fitW / Math.max(maxX - minX, 1e-9), fitH / Math.max(maxY - minY, 1e-9));
-    }
+  if (showReferences) extentPoints.push(...asBuilt.referencePoints);
+  const paper = options.paper ?? 'letter';
+  const orientations: Orientation[] = options.orientation === 'auto' ? ['portrait', 'landscape'] : [options.orientation ?? 'portrait'];
+  let chosen: SheetFit | undefined;
+  for (const orientation of orientations) {
+    const fit = fitSheet(extentPoints, printableArea(paper, orientation, options.headroomPt ?? 0, options.margins), units);
+    if (chosen === undefined || isBetterFit(fit, chosen)) chosen = fit;
   }
+  const { area, frame, band, scale, notToScaleReason, k, centre, fill } = chosen!;
   const cx = frame.x + frame.width / 2;
   const cy = frame.y + frame.height / 2;
   const toPaper = (p: PlanPoint): Point => ({ x: cx + (p.x - centre.x) * k, y: cy - (p.y - centre.y) * k });
-  const features: PlanFeatureShape[] = (asBuilt.site?.features ?? []).map((f) => ({
+  const features: PlanFeatureShape[] = (isTies ? [] : (asBuilt.site?.features ?? [])).map((f) => ({
     featureId: f.id,
     kind: f.kind,
     name: f.name,
@@ -254,12 +303,12 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
     const p = positions.get(item.id);
     return p === undefined ? [] : [{ itemId: item.id, kind: item.kind, point: toPaper(p) }];
   });
-  const references: PlanReference[] = layers.referencePoints
+  const references: PlanReference[] = showReferences
     ? asBuilt.referencePoints.map((rp) => ({ referencePointId: rp.id, point: toPaper(rp) }))
     : [];
   const refById = new Map(asBuilt.referencePoints.map((rp) => [rp.id, rp]));
   const ties: PlanTie[] = [];
-  if (layers.referencePoints) {
+  if (isTies) {
     for (const item of asBuilt.items) {
       const p = positions.get(item.id);
       if (p === undefined) continue;
@@ -271,7 +320,7 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
     }
   }
 
-  const accuracy: PlanAccuracy[] = layers.referencePoints
+  const accuracy: PlanAccuracy[] = showReferences
     ? solvedFromTies.map((p) => ({ itemId: p.itemId, centre: toPaper(p), radiusPt: p.accuracyM! * k, accuracyM: p.accuracyM! }))
     : [];
 
@@ -283,7 +332,7 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
       const planItem = planItemById.get(item.id);
       if (planItem === undefined) continue;
       const lines = [item.label];
-      const size = labelSize(lines, ITEM_LABEL_FONT_PT);
+      const size = labelSize(lines, ITEM_LABEL_FONT_PT, () => 'bold');
       requests.push({
         id: `item:${item.id}`,
         kind: 'item',
@@ -305,12 +354,12 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
       const facts = [result?.gaugeLabel ?? run.cableType];
       if (layers.depths && depth !== undefined) {
         if (depth.status === 'not_buried') facts.push('indoor, not buried');
-        else if (depth.minDepthM !== null) facts.push(`min depth ${formatDepth(depth.minDepthM, units)}${depth.shallowStations.length > 0 ? ' (SHALLOW)' : ''}`);
+        else if (depth.minDepthM !== null) facts.push(`min depth ${formatDepthLength(depth.minDepthM, units)}${depth.shallowStations.length > 0 ? ' (SHALLOW)' : ''}`);
         else facts.push('depth not recorded');
       }
       const lines = [`${prefix}${run.label}`, facts.join(' · ')];
       if (!planRun.isRouteRecorded) lines.push('route not recorded: straight line shown');
-      const size = labelSize(lines, RUN_LABEL_FONT_PT);
+      const size = labelSize(lines, RUN_LABEL_FONT_PT, (i) => (i === 0 ? 'bold' : 'regular'));
       requests.push({
         id: `run:${run.id}`,
         kind: 'run',
@@ -326,7 +375,7 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
     for (const ref of references) {
       const rp = refById.get(ref.referencePointId)!;
       const lines = [rp.label];
-      const size = labelSize(lines, REF_LABEL_FONT_PT);
+      const size = labelSize(lines, REF_LABEL_FONT_PT, () => 'italic');
       requests.push({
         id: `ref:${rp.id}`,
         kind: 'reference',
@@ -342,7 +391,7 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
     // Feature names last: the first to give way when space runs out (never counted as left off).
     for (const feature of features) {
       const lines = [feature.name];
-      const size = labelSize(lines, FEATURE_LABEL_FONT_PT);
+      const size = labelSize(lines, FEATURE_LABEL_FONT_PT, () => 'italic');
       const anchor = feature.shape === 'polygon' ? centroidOf(feature.points) : lineLabelAnchor(feature.points);
       const inFrame = anchor.x > frame.x && anchor.x < frame.x + frame.width && anchor.y > frame.y && anchor.y < frame.y + frame.height;
       if (!inFrame) continue;
@@ -363,7 +412,7 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
       });
     }
     for (const tie of ties) {
-      const lines = [formatLength(tie.distanceM, units)];
+      const lines = [formatGroundLength(tie.distanceM, units)];
       const size = labelSize(lines, TIE_LABEL_FONT_PT);
       const along = [0.5, 0.4, 0.6, 0.3, 0.7, 0.2, 0.8].map((f) => ({ x: tie.from.x + (tie.to.x - tie.from.x) * f, y: tie.from.y + (tie.to.y - tie.from.y) * f }));
       requests.push({
@@ -399,6 +448,7 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
   });
 
   return {
+    sheet,
     area,
     units,
     frame,
@@ -406,6 +456,7 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
     scale,
     notToScaleReason,
     ptPerMetre: k,
+    fill,
     northAzimuthDeg: asBuilt.site?.northAzimuthDeg ?? null,
     image,
     runs,

@@ -4,7 +4,7 @@ import type { AsBuiltAnalysis } from '../domain/analysis/analyze.js';
 import type { AsBuilt } from '../domain/as-built/as-built.schema.js';
 import type { ItemKind } from '../domain/as-built/item.schema.js';
 import type { SitePlanOptions, TitleBlockInfo } from './drawing-options.js';
-import { formatNumber } from './drawing-units.js';
+import { trimNumber } from '../domain/format/length.js';
 import { formatScale, paperName } from './paper.js';
 import { BASELINE_EM, LABEL_PAD_PT, LINE_HEIGHT_EM, wrapText, type Box } from './text-box.js';
 import { layoutSitePlan, type RunStyleKey, type SitePlanModel } from './site-plan-layout.js';
@@ -46,7 +46,12 @@ export function drawSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, option
 
 export function renderSitePlan(model: SitePlanModel, options: SitePlanOptions): string {
   const canvas: Svg = options.createCanvas();
-  canvas.attr({ width: model.area.widthAttr, height: model.area.heightAttr, 'data-drawing': 'site-plan' });
+  canvas.attr({
+    width: model.area.widthAttr,
+    height: model.area.heightAttr,
+    'data-drawing': model.sheet === 'ties' ? 'ties' : 'site-plan',
+    'data-orientation': model.area.orientation,
+  });
   canvas.viewbox(0, 0, r2(model.area.widthPt), r2(model.area.heightPt));
   canvas.rect(r2(model.area.widthPt), r2(model.area.heightPt)).fill('#ffffff');
 
@@ -233,7 +238,7 @@ function drawNorthAndScale(canvas: Svg, model: SitePlanModel, box: Box): void {
     const rad = (rotation * Math.PI) / 180;
     addText(g, 'N', cx + Math.sin(rad) * 30, cy - Math.cos(rad) * 30 + 3.5, { size: 10, weight: 'bold', anchor: 'middle' });
     if (model.northAzimuthDeg !== 0) {
-      addText(g, `plan turned ${formatNumber(Math.abs(model.northAzimuthDeg), 1)}° from true north`, cx, box.y + 72, { size: 5.5, anchor: 'middle' });
+      addText(g, `plan turned ${trimNumber(Math.abs(model.northAzimuthDeg), 1)}° from true north`, cx, box.y + 72, { size: 5.5, anchor: 'middle' });
     }
   }
   const barY = box.y + 98;
@@ -253,15 +258,18 @@ function drawNorthAndScale(canvas: Svg, model: SitePlanModel, box: Box): void {
   }
   const unit = model.units === 'metric' ? 'm' : 'ft';
   addText(sg, '0', x0, barY + 12, { size: 6.5, anchor: 'middle' });
-  addText(sg, formatNumber(bar.value / 2, 2), x0 + bar.widthPt / 2, barY + 12, { size: 6.5, anchor: 'middle' });
-  addText(sg, `${formatNumber(bar.value, 2)} ${unit}`, x0 + bar.widthPt, barY + 12, { size: 6.5, anchor: 'middle' });
+  addText(sg, trimNumber(bar.value / 2, 2), x0 + bar.widthPt / 2, barY + 12, { size: 6.5, anchor: 'middle' });
+  addText(sg, `${trimNumber(bar.value, 2)} ${unit}`, x0 + bar.widthPt, barY + 12, { size: 6.5, anchor: 'middle' });
 }
 
 function drawTitleBlock(canvas: Svg, model: SitePlanModel, info: TitleBlockInfo, box: Box): void {
   const g = canvas.group().attr('data-layer', 'title-block');
   const x = box.x + 6;
   let y = box.y + 13;
-  addText(g, 'SITE PLAN — buried low-voltage cable', x, y, { size: 8.5, weight: 'bold' });
+  addText(g, model.sheet === 'ties' ? 'TIES — taped from reference points' : 'SITE PLAN — buried low-voltage cable', x, y, { size: 8.5, weight: 'bold' }).attr(
+    'data-role',
+    'sheet-title',
+  );
   y += 12;
   const maxChars = Math.floor((box.width - 12) / (7.5 * 0.6));
   for (const line of wrapText(info.title ?? 'Untitled job', maxChars).slice(0, 2)) {

@@ -3,15 +3,15 @@ import ELKImport from 'elkjs/lib/elk.bundled.js';
 import type { ElkExtendedEdge, ElkNode } from 'elkjs/lib/elk.bundled.js';
 
 import type { AsBuiltAnalysis } from '../domain/analysis/analyze.js';
-import { FINDING_SEVERITY_LABELS, type Finding, type FindingSeverity } from '../domain/analysis/finding.js';
+import { FINDING_SEVERITY_LABELS, type Finding, findingText, type FindingSeverity } from '../domain/analysis/finding.js';
 import type { AsBuilt } from '../domain/as-built/as-built.schema.js';
 import type { Item } from '../domain/as-built/item.schema.js';
 import type { DrawingBaseOptions } from './drawing-options.js';
-import { formatNumber } from './drawing-units.js';
-import { printableArea, type Orientation, type PaperSize } from './paper.js';
+import { trimNumber } from '../domain/format/length.js';
+import { printableArea, type Orientation, type PaperSize, type SheetMargins } from './paper.js';
 import { PAPER, RUN_ORANGE, WARNING_INK } from './marking-palette.js';
 import { addText, pointsAttr, r2 } from './svg-canvas.js';
-import { BASELINE_EM, LINE_HEIGHT_EM, textWidth, wrapText } from './text-box.js';
+import { BASELINE_EM, type FontFace, LINE_HEIGHT_EM, textWidth, wrapText } from './text-box.js';
 
 /** The one method of elkjs the schematic uses. */
 type ElkLayoutEngine = new () => { layout(graph: ElkNode): Promise<ElkNode> };
@@ -22,18 +22,35 @@ const ELK = ((ELKImport as unknown as { default?: ElkLayoutEngine }).default ?? 
 
 export interface WiringSchematicOptions extends DrawingBaseOptions {
   paper?: PaperSize;
-  orientation?: Orientation;
+  /** `auto`: portrait or landscape, whichever prints the graph (and its text) larger. */
+  orientation?: Orientation | 'auto';
+  /** Space the page keeps above the drawing (a heading), pt: the graph shrinks to leave it. */
+  headroomPt?: number;
+  /** The page's margins, when not the default 0.5 in / 12.7 mm (the packet's own pages). */
+  margins?: SheetMargins;
+  /**
+   * Numbered finding badges and their list (default true). The packet leaves them out: its homeowner
+   * pages carry no engineering findings, which are in the Engineering notes appendix.
+   */
+  showFindings?: boolean;
   /** Layer direction; 'auto' lays out both and keeps the one that needs less shrinking to fit the width. */
   direction?: 'RIGHT' | 'DOWN' | 'auto';
 }
 
-const NODE_FONT = 7;
-const EDGE_FONT = 6;
+/** Every text of the schematic prints at 8 pt or larger once scaled to the page (`data-min-text-pt`). */
+export const SCHEMATIC_MIN_TEXT_PT = 8;
+const NODE_FONT = 8.5;
+const NODE_DETAIL_FONT = 8;
+const EDGE_FONT = 8;
+const BADGE_FONT = 8;
+const LIST_FONT = 8;
+const POLARITY_FONT = 8;
 const NODE_PAD = 4;
-const BADGE = 9;
+const BADGE = 12;
 /** Lines in boxes and edge labels are wrapped to keep the layout narrow enough for a page. */
-const NODE_MAX_CHARS = 24;
-const EDGE_MAX_CHARS = 20;
+/** Widest line of text in a box, pt: narrow boxes keep a wide tree of speakers on the page at 8 pt. */
+const NODE_TEXT_WIDTH_PT = 76;
+const EDGE_MAX_CHARS = 16;
 const AUTO_DIRECTION_MAX_NODES = 150;
 
 interface SchematicNode {
@@ -64,30 +81,30 @@ interface Badge {
 }
 
 function ohms(value: number | null): string {
-  return value === null ? 'open' : `${formatNumber(value, 2)} Ω`;
+  return value === null ? 'open' : `${trimNumber(value, 2)} Ω`;
 }
 
 function itemFacts(item: Item, lossDb: number | undefined): string[] {
-  const loss = lossDb === undefined ? [] : [`level drop ${formatNumber(lossDb, 2)} dB`];
+  const loss = lossDb === undefined ? [] : [`level drop ${trimNumber(lossDb, 2)} dB`];
   switch (item.kind) {
     case 'speaker':
       return [
         item.constantVoltage !== undefined
-          ? `tap ${formatNumber(item.constantVoltage.tapWatts, 1)} W on ${item.constantVoltage.lineVoltage} line`
-          : `${formatNumber(item.nominalImpedanceOhm ?? 0, 2)} Ω speaker`,
+          ? `tap ${trimNumber(item.constantVoltage.tapWatts, 1)} W on ${item.constantVoltage.lineVoltage} line`
+          : `${trimNumber(item.nominalImpedanceOhm ?? 0, 2)} Ω speaker`,
         ...loss,
       ];
     case 'subwoofer': {
       const coils =
         item.voiceCoils === 'single'
-          ? `single coil ${formatNumber(item.coilImpedanceOhm, 2)} Ω`
-          : `dual coil 2 × ${formatNumber(item.coilImpedanceOhm, 2)} Ω, ${item.coilWiring === 'separate_channels' ? 'separate channels' : `${item.coilWiring} = ${formatNumber(item.coilWiring === 'series' ? item.coilImpedanceOhm * 2 : item.coilImpedanceOhm / 2, 2)} Ω`}`;
+          ? `single coil ${trimNumber(item.coilImpedanceOhm, 2)} Ω`
+          : `dual coil 2 × ${trimNumber(item.coilImpedanceOhm, 2)} Ω, ${item.coilWiring === 'separate_channels' ? 'separate channels' : `${item.coilWiring} = ${trimNumber(item.coilWiring === 'series' ? item.coilImpedanceOhm * 2 : item.coilImpedanceOhm / 2, 2)} Ω`}`;
       return [coils, ...loss];
     }
+    // A square box is a splice or wall entry (its name says which): no second line, so the tree stays short.
     case 'junction':
-      return ['splice / junction'];
     case 'wall_entry':
-      return ['wall entry'];
+      return [];
     case 'spare_end':
       return [item.isCapped ? 'spare end, capped' : 'spare end, NOT capped'];
     case 'amplifier':
@@ -95,19 +112,26 @@ function itemFacts(item: Item, lossDb: number | undefined): string[] {
   }
 }
 
-/** Wraps each line of a box to `maxChars`, keeping the first (bold) line's pieces first. */
+/** Wraps each line of an edge label to `maxChars`, keeping the first (bold) line's pieces first. */
 function wrapLines(lines: readonly string[], maxChars: number): { lines: string[]; boldCount: number } {
   const head = wrapText(lines[0] ?? '', maxChars);
   return { lines: [...head, ...lines.slice(1).flatMap((l) => wrapText(l, maxChars))], boldCount: head.length };
 }
 
-function nodeSize(lines: string[]): { width: number; height: number } {
-  const widest = Math.max(...lines.map((l) => textWidth(l, NODE_FONT)));
-  return { width: Math.ceil(widest + 2 * NODE_PAD + BADGE + 2), height: Math.ceil(lines.length * NODE_FONT * LINE_HEIGHT_EM + 2 * NODE_PAD) };
+/** Wraps a box's lines to {@link NODE_TEXT_WIDTH_PT} in the shipped font: the (bold) name first, then the facts. */
+function wrapNodeLines(lines: readonly string[]): { lines: string[]; boldCount: number } {
+  const head = wrapToWidth(lines[0] ?? '', NODE_TEXT_WIDTH_PT, NODE_FONT, 'bold');
+  return { lines: [...head, ...lines.slice(1).flatMap((l) => wrapToWidth(l, NODE_TEXT_WIDTH_PT, NODE_DETAIL_FONT))], boldCount: head.length };
+}
+
+/** `badgeRoom`: room at the right of the box for finding badges (none when findings are not shown). */
+function nodeSize(lines: string[], boldCount: number, badgeRoom: number): { width: number; height: number } {
+  const widest = Math.max(...lines.map((l, i) => (i < boldCount ? textWidth(l, NODE_FONT, 'bold') : textWidth(l, NODE_DETAIL_FONT))));
+  return { width: Math.ceil(widest + 2 * NODE_PAD + badgeRoom), height: Math.ceil(lines.length * NODE_FONT * LINE_HEIGHT_EM + 2 * NODE_PAD) };
 }
 
 /** Builds the schematic graph: channel nodes, item nodes and one edge per run (per channel out of the amplifier). */
-function buildGraph(asBuilt: AsBuilt, analysis: AsBuiltAnalysis): { nodes: SchematicNode[]; edges: SchematicEdge[] } {
+function buildGraph(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, badgeRoom: number): { nodes: SchematicNode[]; edges: SchematicEdge[] } {
   const itemById = new Map(asBuilt.items.map((i) => [i.id, i]));
   const runResultById = new Map(analysis.runs.map((r) => [r.runId, r]));
   const lossByItem = new Map<string, number>();
@@ -123,13 +147,13 @@ function buildGraph(asBuilt: AsBuilt, analysis: AsBuiltAnalysis): { nodes: Schem
       const lines = [`${amp.label} — ${channel.name}`];
       if (result === undefined || !result.isSolved) lines.push('load not computed');
       else if (result.mode === 'constant_voltage' && result.cv !== undefined) {
-        lines.push(`${formatNumber(result.cv.lineVoltageV, 1)} V line, taps ${formatNumber(result.cv.totalTapWatts, 1)} W`, `amp rated ${formatNumber(result.cv.ratedWatts, 1)} W`);
+        lines.push(`${trimNumber(result.cv.lineVoltageV, 1)} V line, taps ${trimNumber(result.cv.totalTapWatts, 1)} W`, `amp rated ${trimNumber(result.cv.ratedWatts, 1)} W`);
       } else {
-        lines.push(`load ${ohms(result.loadOhmNominal)} nominal`, `${ohms(result.loadOhmWithCable)} with cable`, `amp minimum ${ohms(result.minimumImpedanceOhm)}`);
+        lines.push(`load ${ohms(result.loadOhmNominal)}`, `${ohms(result.loadOhmWithCable)} with cable`, `amp minimum ${ohms(result.minimumImpedanceOhm)}`);
       }
       const id = channelNodeId(amp.id, channel.id);
-      const wrapped = wrapLines(lines, NODE_MAX_CHARS);
-      nodes.push({ id, forId: `${amp.id}/${channel.id}`, kind: 'channel', ...wrapped, ...nodeSize(wrapped.lines) });
+      const wrapped = wrapNodeLines(lines);
+      nodes.push({ id, forId: `${amp.id}/${channel.id}`, kind: 'channel', ...wrapped, ...nodeSize(wrapped.lines, wrapped.boldCount, badgeRoom) });
       nodeIds.add(id);
     }
   }
@@ -137,8 +161,8 @@ function buildGraph(asBuilt: AsBuilt, analysis: AsBuiltAnalysis): { nodes: Schem
     const id = `item:${itemId}`;
     const item = itemById.get(itemId);
     if (nodeIds.has(id) || item === undefined || item.kind === 'amplifier') return;
-    const wrapped = wrapLines([item.label, ...itemFacts(item, lossByItem.get(item.id))], NODE_MAX_CHARS);
-    nodes.push({ id, forId: item.id, kind: item.kind, ...wrapped, ...nodeSize(wrapped.lines) });
+    const wrapped = wrapNodeLines([item.label, ...itemFacts(item, lossByItem.get(item.id))]);
+    nodes.push({ id, forId: item.id, kind: item.kind, ...wrapped, ...nodeSize(wrapped.lines, wrapped.boldCount, badgeRoom) });
     nodeIds.add(id);
   };
 
@@ -234,11 +258,11 @@ async function layout(nodes: SchematicNode[], edges: SchematicEdge[], direction:
       'elk.algorithm': 'layered',
       'elk.direction': direction,
       'elk.edgeRouting': 'ORTHOGONAL',
-      'elk.spacing.nodeNode': '10',
-      'elk.layered.spacing.nodeNodeBetweenLayers': '22',
+      'elk.spacing.nodeNode': '6',
+      'elk.layered.spacing.nodeNodeBetweenLayers': '8',
       'elk.spacing.edgeLabel': '2',
-      'elk.spacing.edgeNode': '8',
-      'elk.layered.spacing.edgeNodeBetweenLayers': '8',
+      'elk.spacing.edgeNode': '5',
+      'elk.layered.spacing.edgeNodeBetweenLayers': '3',
       'elk.edgeLabels.placement': 'CENTER',
       'elk.layered.considerModelOrder.strategy': 'NODES_AND_EDGES',
       'elk.layered.nodePlacement.strategy': 'BRANDES_KOEPF',
@@ -254,7 +278,7 @@ async function layout(nodes: SchematicNode[], edges: SchematicEdge[], direction:
         labels: [
           {
             text: e.lines.join('\n'),
-            width: Math.ceil(Math.max(...e.lines.map((l) => textWidth(l, EDGE_FONT))) + 2),
+            width: Math.ceil(Math.max(...e.lines.map((l, i) => textWidth(l, EDGE_FONT, i < e.boldCount ? 'bold' : 'regular'))) + 2),
             height: Math.ceil(e.lines.length * EDGE_FONT * LINE_HEIGHT_EM + 2),
           },
         ],
@@ -262,6 +286,43 @@ async function layout(nodes: SchematicNode[], edges: SchematicEdge[], direction:
     ),
   };
   return elk.layout(graph);
+}
+
+/**
+ * `+` and `−` beside the end of a pair's line where it is connected, the `+` on the left of the direction
+ * of travel (channel → speaker): the conductor on the channel's + terminal lands on the speaker's +.
+ */
+function drawPolarity(parent: Container, pts: readonly { x: number; y: number }[]): void {
+  const marks = parent.group().attr('data-role', 'polarity');
+  // At the end the pair arrives (the speaker, splice or wall entry): where someone connects it.
+  const ends: [{ x: number; y: number }, { x: number; y: number }, number][] = [[pts[pts.length - 1]!, pts[pts.length - 2]!, -1]];
+  for (const [at, next, sense] of ends) {
+    const len = Math.hypot(next.x - at.x, next.y - at.y) || 1;
+    // Unit vector along the line in the direction of travel (channel → speaker) and its left normal.
+    const ux = ((next.x - at.x) / len) * sense;
+    const uy = ((next.y - at.y) / len) * sense;
+    const along = Math.min(10, len / 2) * sense;
+    const base = { x: at.x + ux * along, y: at.y + uy * along };
+    const left = { x: uy, y: -ux };
+    const off = 5;
+    addText(marks, '+', base.x + left.x * off, base.y + left.y * off + POLARITY_FONT * 0.35, { size: POLARITY_FONT, anchor: 'middle', weight: 'bold' });
+    addText(marks, '−', base.x - left.x * off, base.y - left.y * off + POLARITY_FONT * 0.35, { size: POLARITY_FONT, anchor: 'middle', weight: 'bold' });
+  }
+}
+
+/** Splits text into lines no wider than `maxWidth` pt in the shipped font at `size` pt (a longer word gets its own line). */
+function wrapToWidth(text: string, maxWidth: number, size: number, face: FontFace = 'regular'): string[] {
+  const lines: string[] = [];
+  let line = '';
+  for (const word of text.split(/\s+/).filter((w) => w.length > 0)) {
+    const candidate = line.length === 0 ? word : `${line} ${word}`;
+    if (line.length > 0 && textWidth(candidate, size, face) > maxWidth) {
+      lines.push(line);
+      line = word;
+    } else line = candidate;
+  }
+  if (line.length > 0) lines.push(line);
+  return lines;
 }
 
 function drawBadge(parent: Container, badge: Badge, x: number, y: number): void {
@@ -275,16 +336,16 @@ function drawBadge(parent: Container, badge: Badge, x: number, y: number): void 
       return { x: c.x + Math.cos(a) * h * 1.08, y: c.y + Math.sin(a) * h * 1.08 };
     });
     g.polygon(pointsAttr(pts)).fill(WARNING_INK).stroke({ color: WARNING_INK, width: 0.5 });
-    addText(g, String(badge.number), c.x, c.y + 2.3, { size: 6, anchor: 'middle', weight: 'bold', fill: '#ffffff' });
+    addText(g, String(badge.number), c.x, c.y + 2.9, { size: BADGE_FONT, anchor: 'middle', weight: 'bold', fill: '#ffffff' });
   } else if (badge.severity === 'warning') {
     // Triangle, white with a heavy black outline.
     g.polygon(pointsAttr([{ x: c.x, y: c.y - h - 0.8 }, { x: c.x + h + 0.8, y: c.y + h }, { x: c.x - h - 0.8, y: c.y + h }]))
       .fill(PAPER)
       .stroke({ color: WARNING_INK, width: 1.1 });
-    addText(g, String(badge.number), c.x, c.y + 3, { size: 5.5, anchor: 'middle', weight: 'bold' });
+    addText(g, String(badge.number), c.x, c.y + 3.6, { size: BADGE_FONT, anchor: 'middle', weight: 'bold' });
   } else {
     g.circle(BADGE).attr({ cx: r2(c.x), cy: r2(c.y) }).fill('#ffffff').stroke({ color: '#000000', width: 0.6 });
-    addText(g, String(badge.number), c.x, c.y + 2.2, { size: 5.5, anchor: 'middle' });
+    addText(g, String(badge.number), c.x, c.y + 2.9, { size: BADGE_FONT, anchor: 'middle' });
   }
 }
 
@@ -298,9 +359,7 @@ function drawBadge(parent: Container, badge: Badge, x: number, y: number): void 
  * Scaled to fit the printable width of the sheet.
  */
 export async function drawWiringSchematic(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, options: WiringSchematicOptions): Promise<string> {
-  const { nodes, edges } = buildGraph(asBuilt, analysis);
-  const area = printableArea(options.paper ?? 'letter', options.orientation ?? 'portrait');
-  const W = area.widthPt;
+  const { nodes, edges } = buildGraph(asBuilt, analysis, options.showFindings === false ? 0 : BADGE + 2);
   // 'auto' tries both directions on jobs of ordinary size; a very large graph (each layout takes seconds)
   // goes DOWN, which suits wide trees of speakers.
   const isAuto = options.direction === undefined || options.direction === 'auto';
@@ -313,44 +372,71 @@ export async function drawWiringSchematic(asBuilt: AsBuilt, analysis: AsBuiltAna
     { nodes: nodes.filter((n) => live.has(n.id)), edges: edges.filter((e) => live.has(e.source)) },
     { nodes: nodes.filter((n) => !live.has(n.id)), edges: edges.filter((e) => !live.has(e.source)) },
   ];
-  const laidOut: { graph: ElkNode; scale: number; direction: string }[] = [];
+  const layouts: { direction: string; graph: ElkNode }[][] = [];
   for (const part of parts) {
     if (part.nodes.length === 0) continue;
-    let best: { graph: ElkNode; scale: number; direction: string } | undefined;
-    for (const direction of directions) {
-      const graph = await layout(part.nodes, part.edges, direction);
-      const scale = Math.min(1, W / (graph.width ?? 1));
-      if (best === undefined || scale > best.scale + 1e-9) best = { graph, scale, direction };
-    }
-    laidOut.push(best!);
+    const options: { direction: string; graph: ElkNode }[] = [];
+    for (const direction of directions) options.push({ direction, graph: await layout(part.nodes, part.edges, direction) });
+    layouts.push(options);
   }
-  // One scale for every part, so the text is the same size throughout.
-  const scale = Math.min(1, ...laidOut.map((l) => l.scale));
-  const direction = laidOut[0]?.direction ?? 'DOWN';
   const hasUnconnected = parts[1]!.nodes.length > 0;
+  const units = options.units ?? asBuilt.units?.length ?? 'metric';
+  const listed: { badge: Badge; finding: Finding }[] =
+    options.showFindings === false ? [] : analysis.findings.map((finding, i) => ({ badge: { number: i + 1, severity: finding.severity }, finding }));
+  const headerH = 16;
+  const unconnectedHeadH = 14;
+  const listLineH = LIST_FONT * LINE_HEIGHT_EM;
+
+  // The sheet: on 'auto', portrait or landscape, whichever prints the graph larger (its text shrinks with
+  // it and must stay at 8 pt); the graph is scaled to the sheet's width and to what its height leaves.
+  const orientations: Orientation[] = options.orientation === 'auto' ? ['portrait', 'landscape'] : [options.orientation ?? 'portrait'];
+  let sheet:
+    | { area: ReturnType<typeof printableArea>; laidOut: { graph: ElkNode; direction: string }[]; scale: number; listLines: string[][]; listH: number }
+    | undefined;
+  for (const orientation of orientations) {
+    const area = printableArea(options.paper ?? 'letter', orientation, options.headroomPt ?? 0, options.margins);
+    const width = area.widthPt;
+    const listLines = listed.map(({ badge, finding }) => wrapToWidth(`${FINDING_SEVERITY_LABELS[badge.severity]}: ${findingText(finding, units)}`, width - BADGE - 6, LIST_FONT));
+    const listH = options.showFindings === false ? 0 : listed.length === 0 ? 14 : 16 + listLines.reduce((sum, l) => sum + Math.max(l.length * listLineH, BADGE) + 3, 0);
+    const roomH = area.heightPt - headerH - 8 - listH - (hasUnconnected ? unconnectedHeadH : 0);
+    // Every choice of direction per part (at most 2 × 2): one scale for every part, so the text is the
+    // same size throughout, no wider than the sheet and no taller than the room the list leaves.
+    let combos: { direction: string; graph: ElkNode }[][] = [[]];
+    for (const choices of layouts) combos = combos.flatMap((combo) => choices.map((c) => [...combo, c]));
+    for (const laidOut of combos) {
+      const graphsH = laidOut.reduce((sum, l) => sum + (l.graph.height ?? 0), 0);
+      const byWidth = Math.min(1, ...laidOut.map((l) => width / (l.graph.width ?? 1)));
+      const scale = roomH > 0 && graphsH > 0 ? Math.min(byWidth, roomH / graphsH) : byWidth;
+      if (sheet === undefined || scale > sheet.scale + 1e-9) sheet = { area, laidOut, scale, listLines, listH };
+    }
+  }
+  const { area, laidOut, scale, listLines, listH } = sheet!;
+  const W = area.widthPt;
+  const direction = laidOut[0]?.direction ?? 'DOWN';
+
 
   // Findings → numbered badges on their targets.
   const badgesByTarget = new Map<string, Badge[]>();
-  const listed: { badge: Badge; finding: Finding }[] = [];
-  analysis.findings.forEach((f) => {
-    const target = findingTarget(f, asBuilt);
-    const badge: Badge = { number: listed.length + 1, severity: f.severity };
-    listed.push({ badge, finding: f });
-    if (target === null) return;
+  for (const { badge, finding } of listed) {
+    const target = findingTarget(finding, asBuilt);
+    if (target === null) continue;
     const list = badgesByTarget.get(target);
     if (list === undefined) badgesByTarget.set(target, [badge]);
     else list.push(badge);
-  });
-
-  const headerH = 16;
-  const unconnectedHeadH = 14;
+  }
   const graphH = laidOut.reduce((sum, l) => sum + (l.graph.height ?? 0) * scale, 0) + (hasUnconnected ? unconnectedHeadH : 0);
-  const listLines = listed.map(({ badge, finding }) => wrapText(`${FINDING_SEVERITY_LABELS[badge.severity]}: ${finding.message}`, Math.floor((W - 20) / (6 * 0.6))));
-  const listH = listed.length === 0 ? 12 : 14 + listLines.reduce((s, l) => s + l.length * 7.5 + 2, 0);
   const H = headerH + graphH + 8 + listH;
 
   const canvas = options.createCanvas();
-  canvas.attr({ width: `${r2(W / 72)}in`, height: `${r2(H / 72)}in`, 'data-drawing': 'wiring-schematic', 'data-direction': direction, 'data-scale': r2(scale) });
+  canvas.attr({
+    width: `${r2(W / 72)}in`,
+    height: `${r2(H / 72)}in`,
+    'data-drawing': 'wiring-schematic',
+    'data-direction': direction,
+    'data-scale': r2(scale),
+    // The smallest text as printed: the graph's text shrinks with the graph.
+    'data-min-text-pt': r2(Math.min(LIST_FONT, Math.min(EDGE_FONT, NODE_DETAIL_FONT, BADGE_FONT, POLARITY_FONT) * scale)),
+  });
   canvas.viewbox(0, 0, r2(W), r2(H));
   canvas.rect(r2(W), r2(H)).fill('#ffffff');
   addText(canvas, 'WIRING SCHEMATIC — amplifier channels to speakers (not to scale)', 0, 10, { size: 8.5, weight: 'bold' });
@@ -360,7 +446,7 @@ export async function drawWiringSchematic(asBuilt: AsBuilt, analysis: AsBuiltAna
   let top = headerH;
   laidOut.forEach(({ graph }, partIndex) => {
     if (partIndex === 1) {
-      addText(canvas, 'Not connected to an amplifier channel (spare, abandoned or unassigned):', 0, top + 10, { size: 7, weight: 'bold', italic: true });
+      addText(canvas, 'Not connected to an amplifier channel (spare, abandoned or unassigned):', 0, top + 10, { size: 8, weight: 'bold', italic: true });
       top += unconnectedHeadH;
     }
     const root = canvas.group().attr({ transform: `translate(0 ${r2(top)}) scale(${r2(scale * 1000) / 1000})`, 'data-layer': partIndex === 0 ? 'graph' : 'unconnected' });
@@ -385,6 +471,7 @@ export async function drawWiringSchematic(asBuilt: AsBuilt, analysis: AsBuiltAna
         g.polygon(pointsAttr([end, { x: end.x - ux * 4 - uy * 1.8, y: end.y - uy * 4 + ux * 1.8 }, { x: end.x - ux * 4 + uy * 1.8, y: end.y - uy * 4 - ux * 1.8 }])).fill(
           RUN_ORANGE,
         );
+        if (!edge.isDead) drawPolarity(g, pts);
       }
       const label = elkEdge.labels?.[0];
       if (label !== undefined) {
@@ -407,7 +494,7 @@ export async function drawWiringSchematic(asBuilt: AsBuilt, analysis: AsBuiltAna
       if (node.kind === 'spare_end') rect.attr('stroke-dasharray', '3 2');
       node.lines.forEach((line, i) => {
         addText(g, line, x + NODE_PAD, y + NODE_PAD + NODE_FONT * (BASELINE_EM + i * LINE_HEIGHT_EM), {
-          size: i < node.boldCount ? NODE_FONT : NODE_FONT - 0.5,
+          size: i < node.boldCount ? NODE_FONT : NODE_DETAIL_FONT,
           weight: i < node.boldCount ? 'bold' : 'normal',
         }).attr(isChannel && i === node.boldCount ? { 'data-role': 'channel-load' } : {});
       });
@@ -417,20 +504,22 @@ export async function drawWiringSchematic(asBuilt: AsBuilt, analysis: AsBuiltAna
   });
 
   // Findings list.
+  if (options.showFindings === false) return canvas.svg();
   const list = canvas.group().attr('data-layer', 'findings');
   let y = headerH + graphH + 8;
   if (listed.length === 0) {
-    addText(list, 'No findings.', 0, y + 8, { size: 7, italic: true });
+    addText(list, 'No findings.', 0, y + 9, { size: LIST_FONT, italic: true });
   } else {
-    addText(list, 'Findings', 0, y + 8, { size: 7.5, weight: 'bold' });
-    y += 14;
+    addText(list, 'Findings', 0, y + 9, { size: 9, weight: 'bold' });
+    y += 16;
     listed.forEach(({ badge }, i) => {
       drawBadge(list, badge, 0, y - 1);
+      const top = y;
       for (const line of listLines[i]!) {
-        addText(list, line, BADGE + 5, y + 6, { size: 6 });
-        y += 7.5;
+        addText(list, line, BADGE + 6, y + LIST_FONT * BASELINE_EM, { size: LIST_FONT });
+        y += listLineH;
       }
-      y += 2;
+      y = Math.max(y, top + BADGE) + 3;
     });
   }
   return canvas.svg();

@@ -8,6 +8,7 @@ import QRCode from 'qrcode';
 import { buildPacketViewModel, type PacketViewModel, type PacketViewModelInput } from '../domain/packet/packet.view-model.js';
 import type { PacketSnapshot } from '../domain/packet/packet-snapshot.js';
 import type { PlanImage } from '../drawings/drawing-options.js';
+import type { Orientation } from '../drawings/paper.js';
 import { drawJobDepthProfile, drawJobSchematic, drawJobSitePlan, jobTitleBlock } from '../drawings/job-drawings.js';
 import { COLOUR_KEY_NOTE, RUN_ORANGE } from '../drawings/marking-palette.js';
 import { createNodeSvgCanvas } from '../drawings/node-svg-window.js';
@@ -43,7 +44,11 @@ const FONT_SUBSETS = [
 
 export interface PacketDrawings {
   sitePlan: string;
+  /** The ties sheet (reference points, items, tie distances); empty when nothing was tied. */
+  ties: string;
   schematic: string;
+  /** Which way each drawing's page is turned (the drawing chose the orientation that prints it larger). */
+  orientation?: { sitePlan: Orientation; ties: Orientation; schematic: Orientation };
   profiles: { runId: string; label: string; caption: string; svg: string }[];
 }
 
@@ -90,6 +95,18 @@ export function printFontFaceCss(): string {
   return loadAssets().fontFaceCss;
 }
 
+/** Margins of the packet's drawing pages (print.css `@page drawing-*`): 0.5 in, 0.75 in at the foot for the footer. */
+const DRAWING_PAGE_MARGINS = { acrossPt: 72, downPt: 90 };
+/** The section heading and the caption under the site plan and ties sheet, pt (print.css h2.section-title, .caption). */
+const PLAN_HEADROOM_PT = 70;
+/** The section heading above the schematic, pt. */
+const SCHEMATIC_HEADROOM_PT = 44;
+
+function orientationOf(svg: string): Orientation {
+  const match = /^<svg[^>]*\swidth="([\d.]+)(in|mm)"[^>]*\sheight="([\d.]+)(in|mm)"/.exec(svg);
+  return match && Number(match[1]) > Number(match[3]) ? 'landscape' : 'portrait';
+}
+
 /**
  * The three kinds of drawing of the snapshot's as-built, in the packet's units and paper, through the
  * same functions as the drawing routes and the web app (drawings/job-drawings.ts). `planImage` is the
@@ -105,9 +122,25 @@ export async function drawPacketDrawings(snapshot: PacketSnapshot, vm: PacketVie
     date: vm.cover.issuedDate,
     preparedBy: snapshot.company.name,
   });
+  const paper = snapshot.settings.paperSize;
+  // Each drawing is sized to the page it prints on (the drawing pages' margins, less the heading and
+  // caption), so it prints at 100 % and the scale in its title block is true.
+  const plan = { paper, orientation: 'auto' as const, margins: DRAWING_PAGE_MARGINS, headroomPt: PLAN_HEADROOM_PT, titleBlock };
+  const hasTies = vm.ties.rows.length > 0;
+  const sitePlan = drawJobSitePlan(input, { ...plan, layersOff: ['reference-points'], ...(planImage ? { planImage } : {}) });
+  const ties = hasTies ? drawJobSitePlan(input, { ...plan, sheet: 'ties' }) : '';
+  const schematic = await drawJobSchematic(input, {
+    paper,
+    orientation: 'auto',
+    margins: DRAWING_PAGE_MARGINS,
+    headroomPt: SCHEMATIC_HEADROOM_PT,
+    showFindings: false,
+  });
   return {
-    sitePlan: drawJobSitePlan(input, { paper: snapshot.settings.paperSize, titleBlock, ...(planImage ? { planImage } : {}) }),
-    schematic: await drawJobSchematic(input),
+    sitePlan,
+    ties,
+    schematic,
+    orientation: { sitePlan: orientationOf(sitePlan), ties: orientationOf(ties), schematic: orientationOf(schematic) },
     profiles: vm.cables.profileRunIds.map((p) => ({ ...p, svg: drawJobDepthProfile(input, p.runId) })),
   };
 }
@@ -199,7 +232,9 @@ export async function renderPacket(
     vm: { ...draft, photos: draft.photos.map((p) => ({ ...p, dataUri: PLACEHOLDER_IMAGE })) },
     drawings: {
       sitePlan: emptySvgLike(drawings.sitePlan),
+      ties: emptySvgLike(drawings.ties),
       schematic: emptySvgLike(drawings.schematic),
+      ...(drawings.orientation ? { orientation: drawings.orientation } : {}),
       profiles: drawings.profiles.map((p) => ({ ...p, svg: emptySvgLike(p.svg) })),
     },
     qrSvg,

@@ -15,7 +15,7 @@ import { buildChannelCircuits, isLoadItem } from '../loads/channel-circuits.js';
 import { cvLineVoltageV } from '../loads/constant-voltage.js';
 import { suggestRunGauges, type GaugeSuggestion } from '../loads/gauge-suggestion.js';
 import { AnalysisOptionsSchema, type AnalysisOptions, type AnalysisOptionsInput } from './analysis-options.schema.js';
-import { fmt, sortFindings, type Finding } from './finding.js';
+import { composeMessage, fmt, qty, sortFindings, type Finding } from './finding.js';
 
 export interface RunResult {
   runId: string;
@@ -133,7 +133,7 @@ function buildItemPosition(
         findings.push({
           code: 'POSITION_WEAK_GEOMETRY',
           severity: 'warning',
-          message: `The ties to "${item.label}" meet at a shallow angle, so its position is only good to about ${fmt(solution.accuracyM, 2)} m. Add a tie from a reference point off to one side.`,
+          ...composeMessage`The ties to "${item.label}" meet at a shallow angle, so its position is only good to about ${qty.length(solution.accuracyM)}. Add a tie from a reference point off to one side.`,
           path: ['items', itemIndex, 'ties'],
           itemId: item.id,
           data: { accuracyM: Number.isFinite(solution.accuracyM) ? solution.accuracyM : null },
@@ -143,7 +143,7 @@ function buildItemPosition(
         findings.push({
           code: 'POSITION_TIES_DISAGREE',
           severity: 'warning',
-          message: `The ties to "${item.label}" disagree by about ${fmt(solution.residualRmsM, 2)} m (RMS); one is probably misread or taped from the wrong point. Re-tape before backfill if you can.`,
+          ...composeMessage`The ties to "${item.label}" disagree by about ${qty.length(solution.residualRmsM)} (RMS); one is probably misread or taped from the wrong point. Re-tape before backfill if you can.`,
           path: ['items', itemIndex, 'ties'],
           itemId: item.id,
           data: { residualRmsM: solution.residualRmsM },
@@ -256,9 +256,7 @@ export function analyzeAsBuilt(asBuilt: AsBuilt, optionsInput: AnalysisOptionsIn
         findings.push({
           code: 'ROUTE_LENGTH_MISMATCH',
           severity: 'warning',
-          message:
-            `Run "${run.label}" is recorded as ${fmt(run.measuredLengthM, 1)} m of cable but its drawn route is ${fmt(routeLengthM, 1)} m ` +
-            `(allowed difference ${fmt(lengthCheck.allowedM, 1)} m). Check the route on the plan or the measured length.`,
+          ...composeMessage`Run "${run.label}" is recorded as ${qty.length(run.measuredLengthM)} of cable but its drawn route is ${qty.length(routeLengthM)} (allowed difference ${qty.length(lengthCheck.allowedM)}). Check the route on the plan or the measured length.`,
           path: ['runs', r, 'measuredLengthM'],
           runId: run.id,
           data: { routeLengthM, measuredLengthM: run.measuredLengthM, differenceM: lengthCheck.differenceM },

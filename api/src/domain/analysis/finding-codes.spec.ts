@@ -6,7 +6,7 @@ import type { Item } from '../as-built/item.schema.js';
 import type { Run } from '../as-built/run.schema.js';
 import type { AnalysisOptionsInput } from './analysis-options.schema.js';
 import { analyzeAsBuilt } from './analyze.js';
-import { FINDING_CODES, type FindingCode, type FindingSeverity } from './finding.js';
+import { FINDING_CODES, type FindingCode, type FindingSeverity, findingText } from './finding.js';
 
 /*
  * Every finding code, raised by at least one small scenario, with its severity, its path into the
@@ -105,6 +105,8 @@ interface Scenario {
   path: (string | number)[];
   /** Fragments the message must contain, usually the numbers it prints. */
   says: string[];
+  /** Fragments the text must contain when written for an imperial reader (`findingText`). */
+  saysImperial?: string[];
 }
 
 const SCENARIOS: Record<FindingCode, Scenario> = {
@@ -280,11 +282,13 @@ const SCENARIOS: Record<FindingCode, Scenario> = {
   },
   // ---- depth ----------------------------------------------------------------------------------------
   DEPTH_SHALLOW: {
-    // NEC Table 300.5 column 5 (≤ 30 V), all other locations: 6 in (150 mm). 10 cm = 3.9 in is shallower.
+    // NEC Table 300.5 column 5 (≤ 30 V), all other locations: 6 in (150 mm). 10 cm = 3.94 in is shallower:
+    // 3 7/8 in to the eighth, 2 in short; 2 m = 78.7 in = 6 ft 7 in (1 in = 0.0254 m, NIST SP 811 B.8).
     build: () => single(5, 8, { depthReadings: [{ stationM: 2, depthM: 0.1 }] }),
     severity: 'warning',
     path: ['runs', 0, 'depthReadings', 0],
-    says: ['10 cm', '3.9 in', '2 m'],
+    says: ['10 cm of cover', 'at 2 m from', 'is 15 cm, 5 cm short'],
+    saysImperial: ['3 7/8 in of cover', 'at 6 ft 7 in from', 'is 6 in, 2 in short'],
   },
   DEPTH_NOT_RECORDED: {
     build: () => single(5, 8, { depthReadings: [] }),
@@ -301,7 +305,7 @@ const SCENARIOS: Record<FindingCode, Scenario> = {
   },
   DEPTH_RULE_OVER_30V: {
     // A 70.7 V constant-voltage line is outside NEC Table 300.5 column 5 (≤ 30 V); the default table checks
-    // it against column 1, 24 in (600 mm) for direct-burial cable — 60 cm (23.6 in) as printed.
+    // it against column 1, 24 in (600 mm) for direct-burial cable — 60 cm, or the 24 in it was written in.
     build: () => {
       const ab = cvLine([10]);
       ab.runs[0]!.depthReadings = [{ stationM: 1, depthM: 0.65 }];
@@ -309,7 +313,8 @@ const SCENARIOS: Record<FindingCode, Scenario> = {
     },
     severity: 'info',
     path: ['runs', 0, 'method'],
-    says: ['a 70V constant-voltage line', '60 cm (23.6 in)', 'authority having jurisdiction'],
+    says: ['a 70V constant-voltage line', '60 cm of cover', 'authority having jurisdiction'],
+    saysImperial: ['24 in of cover'],
   },
   // ---- geometry -------------------------------------------------------------------------------------
   POSITION_FROM_TIES_FAILED: {
@@ -436,6 +441,10 @@ describe('finding codes', () => {
     expect(finding!.severity).toBe(scenario.severity);
     expect(finding!.path).toEqual(scenario.path);
     for (const fragment of scenario.says) expect(finding!.message).toContain(fragment);
+    // Composed from numbers: the same finding in feet and inches for an imperial reader, no metric left.
+    for (const fragment of scenario.saysImperial ?? []) expect(findingText(finding!, 'imperial')).toContain(fragment);
+    expect(findingText(finding!, 'metric')).toBe(finding!.message);
+    if (finding!.parts) expect(findingText(finding!, 'imperial')).not.toMatch(/\d\s?(cm|m|mm)\b/);
   });
 
   it('has a scenario for every code (a new code needs one here)', () => {

@@ -63,8 +63,8 @@ export const DEMO_AS_BUILT: AsBuilt = {
       holeDiameterM: 0.025,
       sleeve: '3/4 in PVC sleeve, LB fitting outside',
       sealant: 'duct seal both ends',
-      insideLocation: 'utility room, 0.4 m above floor',
-      outsideLocation: 'behind downspout, 0.3 m above grade',
+      insideLocation: 'utility room, 16 in above floor',
+      outsideLocation: 'behind downspout, 12 in above grade',
     },
     {
       id: 'we-spare',
@@ -225,7 +225,7 @@ export const DEMO_AS_BUILT: AsBuilt = {
       ],
       sideHint: 'left',
       isCapped: true,
-      marker: 'heat-shrink caps, 0.5 m coil, orange marker stake',
+      marker: 'heat-shrink caps, 20 in coil, orange marker stake',
     },
   ],
   runs: [

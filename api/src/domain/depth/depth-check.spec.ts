@@ -3,7 +3,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 
 import type { Run } from '../as-built/run.schema.js';
-import type { Finding } from '../analysis/finding.js';
+import { type Finding, findingText } from '../analysis/finding.js';
 import { checkRunDepth } from './depth-check.js';
 import { DepthRuleTableSchema } from './depth-rules.schema.js';
 import { DEFAULT_DEPTH_RULES, findDepthRule, NEC_300_5_CLASS1_RULES } from './depth-rules.js';
@@ -163,7 +163,10 @@ describe(checkRunDepth.name, () => {
     // 0.3 m passes column 5 (150 mm) but not column 1 (600 mm).
     expect(sut).toMatchObject({ status: 'shallow', circuit: 'over_30v', circuitVoltageV: 70.7 });
     expect(findings.map((f) => f.code).sort()).toEqual(['DEPTH_RULE_OVER_30V', 'DEPTH_SHALLOW']);
-    expect(findings.find((f) => f.code === 'DEPTH_RULE_OVER_30V')!.message).toMatch(/60 cm \(23\.6 in\).*authority having jurisdiction/);
+    const over30 = findings.find((f) => f.code === 'DEPTH_RULE_OVER_30V')!;
+    expect(over30.message).toMatch(/60 cm of cover.*authority having jurisdiction/);
+    // NEC Table 300.5 column 1: 24 in (600 mm); written back in the inches of the table for an imperial reader.
+    expect(findingText(over30, 'imperial')).toMatch(/24 in of cover.*authority having jurisdiction/);
   });
 
   it('should stay quiet about abandoned runs', () => {

@@ -1,6 +1,5 @@
 import type { BurialLocation, InstallMethod, Run } from '../as-built/run.schema.js';
-import { metresToInches } from '../as-built/units.js';
-import { fmt, type Finding } from '../analysis/finding.js';
+import { composeMessage, type Finding, qty } from '../analysis/finding.js';
 import type { CircuitClass, DepthRule, DepthRuleTable } from './depth-rules.schema.js';
 import { findDepthRule } from './depth-rules.js';
 
@@ -39,10 +38,6 @@ export interface RunDepthResult {
   worstMarginM: number | null;
   stations: DepthStationResult[];
   shallowStations: DepthStationResult[];
-}
-
-function inches(m: number): string {
-  return `${fmt(metresToInches(m), 1)} in`;
 }
 
 /**
@@ -112,11 +107,7 @@ export function checkRunDepth(
     findings.push({
       code: 'DEPTH_RULE_OVER_30V',
       severity: 'info',
-      message:
-        `Run "${run.label}" carries ${circuit.description}, above the 30 V that NEC Table 300.5 column 5 covers; ` +
-        `it is checked against ${fmt(rule.minCoverM * 100, 1)} cm (${inches(rule.minCoverM)}) of cover` +
-        `${rule.circuit === 'over_30v' ? ', the conservative cover Class 1 wiring would need' : ''}. ` +
-        'Confirm the cover required here with the authority having jurisdiction.',
+      ...composeMessage`Run "${run.label}" carries ${circuit.description}, above the 30 V that NEC Table 300.5 column 5 covers; it is checked against ${qty.ruleDepth(rule.minCoverM)} of cover${rule.circuit === 'over_30v' ? ', the conservative cover Class 1 wiring would need' : ''}. Confirm the cover required here with the authority having jurisdiction.`,
       path: ['runs', runIndex, 'method'],
       runId: run.id,
       data: { voltageV: circuit.voltageV, minCoverM: rule.minCoverM },
@@ -142,10 +133,7 @@ export function checkRunDepth(
         findings.push({
           code: 'DEPTH_SHALLOW',
           severity: 'warning',
-          message:
-            `Run "${run.label}" has ${fmt(s.depthM * 100, 1)} cm (${inches(s.depthM)}) of cover at ${fmt(s.stationM, 1)} m from its start; ` +
-            `the rule for ${run.method.replaceAll('_', ' ')} in ${location.replaceAll('_', ' ')} is ${fmt(rule.minCoverM * 100, 1)} cm (${inches(rule.minCoverM)}), ` +
-            `${fmt(-s.marginM! * 100, 1)} cm short. Bury it deeper or protect it (sleeve) at that spot.`,
+          ...composeMessage`Run "${run.label}" has ${qty.depth(s.depthM)} of cover at ${qty.length(s.stationM)} from its start; the rule for ${run.method.replaceAll('_', ' ')} in ${location.replaceAll('_', ' ')} is ${qty.ruleDepth(rule.minCoverM)}, ${qty.depth(-s.marginM!)} short. Bury it deeper or protect it (sleeve) at that spot.`,
           path: ['runs', runIndex, 'depthReadings', s.readingIndex],
           runId: run.id,
           data: { depthM: s.depthM, minCoverM: rule.minCoverM, marginM: s.marginM, stationM: s.stationM, basis: rule.basis },

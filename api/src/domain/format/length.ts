@@ -1,4 +1,5 @@
 import { METRES_PER_FOOT, METRES_PER_INCH } from '../as-built/units.js';
+import { nominalCoverInches } from '../depth/depth-rules.js';
 
 /**
  * One place that writes lengths for people: forms, screens, and print. Everything is stored in metres;
@@ -98,14 +99,33 @@ export function unitFactor(system: LengthSystem, scale: LengthScale): number {
 }
 
 /**
- * A burial cover on print (packet, drawings, findings): inches to the nearest 1/4 in in the same
- * fraction style as {@link formatDepthLength} (`4 1/4 in`), whole centimetres in metric (`11 cm`).
- * Coarser than the 1/8 in of screens on purpose: the cover rules are stored in metres from tables that
- * give both units ("6 in (150 mm)"), and 0.15 m to the nearest 1/8 in would print the 6-inch rule as
- * `5 7/8 in`. Until the rules are stored in their source units, print rounds to the quarter.
+ * A required cover (a depth rule's minimum): the inches the rule was written in when its metres are one of
+ * the NEC's own metric equivalents (150 mm is the code's 6 in, not 5 7/8 in), otherwise as any depth
+ * ({@link formatDepthLength}, nearest 1/8 in); metric `15 cm`. A measured depth is never snapped: a
+ * reading of 15 cm on a metric tape prints `5 7/8 in`.
  */
-export function formatCoverDepth(m: number, system: LengthSystem): string {
-  if (system === 'metric') return `${trimNumber(m * 100, 0)} cm`;
-  const quarters = Math.round(Math.abs(m) / METRES_PER_INCH * 4) / 4;
-  return `${m < 0 && quarters > 0 ? '-' : ''}${formatInchesEighths(quarters)} in`;
+export function formatRuleDepth(m: number, system: LengthSystem): string {
+  if (system === 'imperial') {
+    const nominal = nominalCoverInches(m);
+    if (nominal !== undefined) return `${nominal} in`;
+  }
+  return formatDepthLength(m, system);
+}
+
+/**
+ * What a number stands for, so that it can be written at the edge in the reader's units: a length along
+ * the ground, a depth (measured cover, hole size, shortfall) or a rule's required cover.
+ */
+export type QuantityKind = 'length' | 'depth' | 'rule_depth';
+
+/** A quantity in SI (metres), unrounded. */
+export interface Quantity {
+  kind: QuantityKind;
+  m: number;
+}
+
+/** A quantity in the reader's units: `26 ft 3 in`, `4 3/8 in`, `6 in`; metric `8.01 m`, `11 cm`, `15 cm`. */
+export function formatQuantity(q: Quantity, system: LengthSystem): string {
+  if (!Number.isFinite(q.m)) return q.m > 0 ? 'an unknown distance' : String(q.m);
+  return q.kind === 'length' ? formatGroundLength(q.m, system) : q.kind === 'depth' ? formatDepthLength(q.m, system) : formatRuleDepth(q.m, system);
 }

@@ -20,3 +20,13 @@ export function formatResistance(ohm: number | null | undefined): string {
   if (ohm === null || ohm === undefined || !Number.isFinite(ohm)) return 'open';
   return `${trimNumber(ohm, Math.abs(ohm) < 0.1 ? 3 : 2)} Ω`;
 }
+
+/** A level difference: `1.25 dB`. */
+export function formatDecibels(db: number): string {
+  return `${trimNumber(db, 2)} dB`;
+}
+
+/** A power: `153 W` at or above 100 W, else one decimal (`12.5 W`). */
+export function formatWatts(w: number): string {
+  return `${trimNumber(w, w >= 100 ? 0 : 1)} W`;
+}

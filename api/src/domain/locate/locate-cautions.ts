@@ -1,4 +1,4 @@
-import { formatNumber } from '../packet/packet-format.js';
+import { trimNumber } from '../format/length.js';
 import { LOCATE_STEPS, SAFETY_CAUTIONS, TOLERANCE_ZONE_M, type CautionText } from '../packet/packet-cautions.js';
 import type { PacketUnits } from '../packet/packet-snapshot.js';
 
@@ -15,7 +15,7 @@ export interface LocateCautions {
  * tolerance zone written as the packet writes it: 18 in in imperial units, 0.5 m in metric.
  */
 export function locateCautions(units: PacketUnits): LocateCautions {
-  const toleranceZone = units === 'imperial' ? '18 in' : `${formatNumber(Math.ceil(TOLERANCE_ZONE_M * 10) / 10, 1)} m`;
+  const toleranceZone = units === 'imperial' ? '18 in' : `${trimNumber(Math.ceil(TOLERANCE_ZONE_M * 10) / 10, 1)} m`;
   const fill = (c: CautionText): CautionText => ({ title: c.title, body: c.body.replaceAll('{zone}', toleranceZone) });
   return {
     toleranceZone,

@@ -1,3 +1,4 @@
+import { formatDateTime } from '../format/date-time.js';
 import type { PacketSnapshot } from './packet-snapshot.js';
 
 export interface ArchiveReadmeInput {
@@ -19,7 +20,7 @@ export function archiveReadme({ snapshot, pdfName, hasGeoJson, photoCount }: Arc
     `${snapshot.company.name}: as-built handover packet`,
     `Site: ${snapshot.site.label}`,
     `Job: ${snapshot.job.title}`,
-    `Revision ${snapshot.revision}, issued ${snapshot.issuedAt} (UTC)`,
+    `Revision ${snapshot.revision}, issued ${formatDateTime(snapshot.issuedAt, { timeZone: snapshot.settings.timeZone ?? null, locale: snapshot.settings.locale ?? null })}`,
     '',
     'FILES',
     `  ${pdfName}`,

@@ -2,7 +2,7 @@ import { z } from 'zod';
 
 import type { Finding, FindingCode } from '../analysis/finding.js';
 import type { AsBuilt } from '../as-built/as-built.schema.js';
-import { formatDepth, formatLength } from './packet-format.js';
+import { formatDepthLength, formatGroundLength, formatRuleDepth } from '../format/length.js';
 import type { PacketUnits } from './packet-snapshot.js';
 
 /**
@@ -125,8 +125,8 @@ export function homeownerException(
       const depth = num(data.depthM);
       const rule = num(data.minCoverM);
       const station = num(data.stationM);
-      const where = station !== null ? ` about ${formatLength(station, units)} from where it starts` : '';
-      const figures = depth !== null && rule !== null ? `: ${formatDepth(depth, units)} of cover where our standard is ${formatDepth(rule, units)}` : '';
+      const where = station !== null ? ` about ${formatGroundLength(station, units)} from where it starts` : '';
+      const figures = depth !== null && rule !== null ? `: ${formatDepthLength(depth, units)} of cover where our standard is ${formatRuleDepth(rule, units)}` : '';
       return `One cable${onRun} runs shallower than our standard${where}${figures}. The spot is marked on the site plan; dig there by hand only.`;
     }
     case 'LOAD_BELOW_AMP_MINIMUM':

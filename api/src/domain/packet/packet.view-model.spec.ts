@@ -4,52 +4,26 @@ import { DEMO_AS_BUILT } from '../as-built/demo-as-built.js';
 import { cableScheduleCsv, csvCell } from './cable-schedule-csv.js';
 import { demoPacketSnapshot } from './demo-packet-snapshot.js';
 import { safeFileName, sha256Manifest } from './manifest.js';
-import { formatDate, formatDepth, formatGaugeForUnits, formatLength, formatOhm } from './packet-format.js';
 import { buildPacketViewModel, PACKET_SECTIONS } from './packet.view-model.js';
 
 const locateUrl = 'https://app.example/locate/rev-1';
 
-describe('packet formatting', () => {
+describe('packet dates (the company\'s time zone and locale, domain/format/date-time)', () => {
+  // 2026-05-21T02:30Z is the evening of May 20 in Denver (UTC−6, MDT) and the morning of May 21 in
+  // London (UTC+1, BST): IANA tz database offsets; CLDR patterns "MMM d, y" (en-US), "d MMM y" (en-GB), from memory.
   it.each([
-    [8.01, 'imperial', '26 ft 3 in'],
-    [0.3048, 'imperial', '1 ft'],
-    [8.01, 'metric', '8.01 m'],
-    [1234.5, 'metric', '1234.5 m'],
-  ] as const)('should format a length of %s m (%s) as %s', (m, units, expected) => {
-    expect(formatLength(m, units)).toBe(expected);
-  });
-
-  it.each([
-    // 0.11 m = 4.331 in → nearest 1/4 in is 4 1/4 (1 in = 0.0254 m exactly, NIST SP 811 B.8)
-    [0.11, 'imperial', '4 1/4 in'],
-    [0.1524, 'imperial', '6 in'],
-    [0.005, 'imperial', '1/4 in'],
-    [0.11, 'metric', '11 cm'],
-    [0.455, 'metric', '46 cm'],
-  ] as const)('should format a depth of %s m (%s) as %s', (m, units, expected) => {
-    expect(formatDepth(m, units)).toBe(expected);
-  });
-
-  it.each([
-    [{ system: 'awg', awg: 12 }, 'imperial', '12 AWG'],
-    [{ system: 'awg', awg: 12 }, 'metric', '3.31 mm² (12 AWG)'],
-    [{ system: 'awg', awg: -1 }, 'imperial', '2/0 AWG'],
-    [{ system: 'mm2', mm2: 2.5 }, 'metric', '2.5 mm²'],
-    [{ system: 'mm2', mm2: 2.5 }, 'imperial', '2.5 mm² (≈ 13 AWG)'],
-  ] as const)('should format gauge %j (%s) as %s', (gauge, units, expected) => {
-    expect(formatGaugeForUnits(gauge, units)).toBe(expected);
-  });
-
-  it('should format ohms with the Greek capital omega, and open circuits in words', () => {
-    expect(formatOhm(5.3333)).toBe('5.33 Ω');
-    expect(formatOhm(null)).toBe('open');
-    expect(formatOhm(Number.POSITIVE_INFINITY)).toBe('open');
-  });
-
-  it('should write dates unambiguously, timestamps in UTC', () => {
-    expect(formatDate('2026-05-14')).toBe('14 May 2026');
-    expect(formatDate('2026-12-31T23:30:00.000Z')).toBe('31 Dec 2026');
-    expect(formatDate(null)).toBe('—');
+    ['America/Denver', 'en-US', 'May 20, 2026'],
+    ['Europe/London', 'en-GB', '21 May 2026'],
+    [null, 'en-US', 'May 21, 2026'],
+  ] as const)('should print the issue date of an evening issue in %s (%s) as %s, on the cover and in the footer', (timeZone, locale, date) => {
+    const snapshot = demoPacketSnapshot();
+    snapshot.issuedAt = '2026-05-21T02:30:00.000Z';
+    snapshot.settings = { ...snapshot.settings, timeZone, locale };
+    const vm = buildPacketViewModel({ snapshot, locateUrl });
+    expect(vm.cover.issuedDate).toBe(date);
+    expect(vm.footerText).toContain(`Revision 1, ${date}`);
+    // A calendar date (the work dates) is the same day in every zone.
+    expect(vm.cover.workDates).toBe(locale === 'en-GB' ? '12 May 2026 – 14 May 2026' : 'May 12, 2026 – May 14, 2026');
   });
 });
 
@@ -94,12 +68,12 @@ describe(buildPacketViewModel.name, () => {
     // 11 cm ≈ 4.3 in of cover, the default general rule 15 cm ≈ 5.9 in, written in the company's units.
     expect(text).toContain('runs shallower than our standard');
     expect(text).toContain('Patio splice to P2');
-    expect(text).toMatch(/4 1\/4 in of cover where our standard is 6 in/);
+    expect(text).toMatch(/4 3\/8 in of cover where our standard is 6 in/);
     expect(text).toContain('marked on the site plan');
     expect(text).not.toMatch(/Bury it deeper|cm\b/);
     expect(vm.knownExceptions[0]!.reason).toBe('Rock shelf under the patio edge; sleeved instead.');
     expect(vm.summary.exceptionsNote).toBe('One known exception is described on the next page.');
-    expect(vm.engineering.findings.find((f) => f.message === shallow.message)?.acknowledged).toContain('Rock shelf');
+    expect(vm.engineering.findings.find((f) => f.message.startsWith('Run "Patio splice to P2" has 4 3/8 in of cover'))?.acknowledged).toContain('Rock shelf');
   });
 
   it('should keep the engineering figures out of the summary and in the appendix', () => {
@@ -127,9 +101,9 @@ describe(buildPacketViewModel.name, () => {
       jobTitle: 'Rear-yard audio',
       addressLines: ['14 Larkspur Way', 'Nowhereton, CO 00000', 'United States'],
       revisionLabel: 'Revision 1',
-      issuedDate: '20 May 2026',
+      issuedDate: 'May 20, 2026',
       crewLead: 'Riley Crewlead',
-      workDates: '12 May 2026 – 14 May 2026',
+      workDates: 'May 12, 2026 – May 14, 2026',
       locateUrl,
     });
   });
@@ -138,7 +112,7 @@ describe(buildPacketViewModel.name, () => {
     const { rows } = sut().cables;
     expect(rows).toHaveLength(DEMO_AS_BUILT.runs.length);
     const p2 = rows.find((r) => r.label === 'Patio splice to P2')!;
-    expect(p2).toMatchObject({ gauge: '14 AWG, 2-cond.', method: 'Direct burial', minDepth: '4 1/4 in', depthStatus: 'Shallow reading', depthClass: 'bad' });
+    expect(p2).toMatchObject({ gauge: '14 AWG, 2-cond.', method: 'Direct burial', minDepth: '4 3/8 in', depthStatus: 'Shallow reading', depthClass: 'bad' });
     expect(rows.find((r) => r.label.startsWith('Spare'))).toMatchObject({ spare: 'Spare run' });
   });
 
@@ -178,7 +152,7 @@ describe(buildPacketViewModel.name, () => {
       signatures: [{ role: 'homeowner', signerName: 'Dara Penhallow', signedAt: '2026-05-20T17:00:00Z', svgPath: 'M 1 1 L 10 10' }],
     });
     expect(signed.signOff.signatures).toEqual([
-      { role: 'Homeowner', name: 'Dara Penhallow', isSigned: true, signedAt: '20 May 2026, 17:00 UTC', svgPath: 'M 1 1 L 10 10' },
+      { role: 'Homeowner', name: 'Dara Penhallow', isSigned: true, signedAt: 'May 20, 2026, 5:00 PM UTC', svgPath: 'M 1 1 L 10 10' },
     ]);
     expect(signed.signOff.unsignedNote).toBe('The walkthrough was signed by the homeowner only.');
   });
@@ -190,7 +164,7 @@ describe(buildPacketViewModel.name, () => {
       photos: [{ caption: 'Open trench, patio run', takenAt: '2026-05-13T15:04:00Z', dataUri: 'data:image/jpeg;base64,AAAA' }],
     });
     expect(vm.hasPhotos).toBe(true);
-    expect(vm.photos[0]).toEqual({ caption: 'Open trench, patio run', takenAt: '13 May 2026, 15:04 UTC', dataUri: 'data:image/jpeg;base64,AAAA' });
+    expect(vm.photos[0]).toEqual({ caption: 'Open trench, patio run', takenAt: 'May 13, 2026, 3:04 PM UTC', dataUri: 'data:image/jpeg;base64,AAAA' });
   });
 
   it('should be deterministic', () => {

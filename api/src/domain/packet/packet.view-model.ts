@@ -1,19 +1,11 @@
-import { FINDING_SEVERITY_LABELS, type Finding } from '../analysis/finding.js';
+import { FINDING_SEVERITY_LABELS, type Finding, findingText } from '../analysis/finding.js';
 import type { Item, ItemKind } from '../as-built/item.schema.js';
 import type { InstallMethod } from '../as-built/run.schema.js';
 import { type FindingAcknowledgement, findingKey, homeownerException } from './known-exceptions.js';
 import { LOCATE_STEPS, ONE_CALL_US, SAFETY_CAUTIONS, TOLERANCE_ZONE_M } from './packet-cautions.js';
-import {
-  formatDate,
-  formatDateTime,
-  formatDb,
-  formatDepth,
-  formatGaugeForUnits,
-  formatLength,
-  formatNumber,
-  formatOhm,
-  formatWatts,
-} from './packet-format.js';
+import { type DateStyle, formatDate, formatDateTime } from '../format/date-time.js';
+import { formatDepthLength, formatGroundLength, formatRuleDepth, trimNumber } from '../format/length.js';
+import { formatConductor, formatDecibels, formatResistance, formatWatts } from '../format/quantity.js';
 import type { PacketPhoto, PacketSignature, PacketSnapshot, PacketUnits } from './packet-snapshot.js';
 import { type WhatChangedView, whatChangedView } from './what-changed.js';
 
@@ -27,6 +19,7 @@ export const PACKET_SECTIONS = [
   { id: 'known-exceptions', title: 'Known exceptions' },
   { id: 'what-changed', title: 'What changed' },
   { id: 'site-plan', title: 'Site plan' },
+  { id: 'ties', title: 'Ties' },
   { id: 'wiring', title: 'Wiring schematic' },
   { id: 'equipment', title: 'Equipment schedule' },
   { id: 'cables', title: 'Cable schedule' },
@@ -109,6 +102,8 @@ export interface PacketViewModel {
     assumptions: string[];
   };
   sitePlan: { scaleNote: string; legend: LabelValue[] };
+  /** The ties sheet's table: each taped distance from a reference point to an item, in the company's units. */
+  ties: { note: string; rows: { item: string; reference: string; distance: string }[] };
   equipment: {
     rows: { label: string; kind: string; zone: string; model: string; serial: string; installed: string; warrantyEnd: string }[];
   };
@@ -264,20 +259,20 @@ function installerContact(snapshot: PacketSnapshot): string[] {
   return [snapshot.company.name, call, ...contactLines(snapshot).filter((line) => line !== phone)];
 }
 
-function signatureView(role: 'lead' | 'homeowner', signature: PacketSignature): SignatureView {
+function signatureView(role: 'lead' | 'homeowner', signature: PacketSignature, dates: DateStyle): SignatureView {
   return {
     role: role === 'lead' ? 'Crew lead' : 'Homeowner',
     name: signature.signerName,
     isSigned: true,
-    signedAt: formatDateTime(signature.signedAt),
+    signedAt: formatDateTime(signature.signedAt, dates),
     svgPath: signature.svgPath,
   };
 }
 
 /**
  * Builds everything the packet template prints from an issued snapshot: every number already in the
- * company's units and every date written out, so the template holds no logic. Pure: the same input
- * gives the same output (no clock, no locale).
+ * company's units and every date written out in the company's time zone and locale, so the template holds
+ * no logic. Pure: the same input gives the same output (no clock, no server locale or zone).
  */
 export function buildPacketViewModel(input: PacketViewModelInput): PacketViewModel {
   const { snapshot } = input;
@@ -291,11 +286,13 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
     if (item.kind === 'amplifier') for (const channel of item.channels) channelNames.set(channel.id, `${channel.name} (${item.label})`);
   }
   // CGA's 18 in, written as the trade states it in each system (0.46 m rounds to the usual 0.5 m).
-  const toleranceZone = units === 'imperial' ? '18 in' : `${formatNumber(Math.ceil(TOLERANCE_ZONE_M * 10) / 10, 1)} m`;
+  const toleranceZone = units === 'imperial' ? '18 in' : `${trimNumber(Math.ceil(TOLERANCE_ZONE_M * 10) / 10, 1)} m`;
   const fillZone = (text: string) => text.replaceAll('{zone}', toleranceZone);
 
   const revisionLabel = `Revision ${snapshot.revision}`;
-  const issuedDate = formatDate(snapshot.issuedAt);
+  // Dates in the company's time zone and locale (an evening issue in the Americas prints that day).
+  const dates: DateStyle = { timeZone: settings.timeZone ?? null, locale: settings.locale ?? null };
+  const issuedDate = formatDate(snapshot.issuedAt, dates);
   const crewLead = snapshot.crewLead?.name ?? 'Not assigned';
   const isPaperA4 = settings.paperSize === 'a4';
 
@@ -308,15 +305,23 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
     reason: a.reason,
   }));
   const photos = input.photos ?? [];
+  const referenceLabels = new Map(asBuilt.referencePoints.map((rp) => [rp.id, rp.label]));
+  const tieRows = asBuilt.items.flatMap((item) =>
+    (item.ties ?? []).flatMap((tie) => {
+      const reference = referenceLabels.get(tie.referencePointId);
+      return reference === undefined ? [] : [{ item: item.label, reference, distance: formatGroundLength(tie.distanceM, units) }];
+    }),
+  );
   const signatures = (['lead', 'homeowner'] as const).flatMap((role) => {
     const signature = input.signatures?.find((s) => s.role === role);
-    return signature ? [signatureView(role, signature)] : [];
+    return signature ? [signatureView(role, signature, dates)] : [];
   });
   const isPresent: Record<PacketSectionId, boolean> = {
     summary: true,
     'known-exceptions': knownExceptions.length > 0,
     'what-changed': snapshot.whatChanged !== undefined,
     'site-plan': true,
+    ties: tieRows.length > 0,
     wiring: true,
     equipment: true,
     cables: true,
@@ -355,8 +360,8 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
       crewLead,
       workDates:
         snapshot.job.startDate && snapshot.job.endDate && snapshot.job.startDate !== snapshot.job.endDate
-          ? `${formatDate(snapshot.job.startDate)} – ${formatDate(snapshot.job.endDate)}`
-          : formatDate(snapshot.job.endDate ?? snapshot.job.startDate),
+          ? `${formatDate(snapshot.job.startDate, dates)} – ${formatDate(snapshot.job.endDate, dates)}`
+          : formatDate(snapshot.job.endDate ?? snapshot.job.startDate, dates),
       locateUrl: input.locateUrl,
     },
     toc: printed.map((section, i) => {
@@ -368,7 +373,7 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
       facts: [
         { label: 'Equipment items', value: String(summary.itemCount) },
         { label: 'Cable runs', value: String(summary.runCount) },
-        { label: 'Cable installed', value: formatLength(summary.totalCableM, units) },
+        { label: 'Cable installed', value: formatGroundLength(summary.totalCableM, units) },
         { label: 'Amplifier channels', value: String(analysis.channels.length) },
         { label: 'Commissioning checks', value: String(analysis.checks.length) },
         { label: 'Crew lead', value: crewLead },
@@ -401,8 +406,8 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
       cableTotals: analysis.cableTotals.map((t) => ({
         cableType: t.cableType,
         runs: String(t.runCount),
-        length: formatLength(t.lengthM, units),
-        spare: t.spareLengthM > 0 ? formatLength(t.spareLengthM, units) : '—',
+        length: formatGroundLength(t.lengthM, units),
+        spare: t.spareLengthM > 0 ? formatGroundLength(t.spareLengthM, units) : '—',
       })),
     },
     knownExceptions,
@@ -417,7 +422,7 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
         return {
           severity: FINDING_SEVERITY_LABELS[f.severity],
           severityClass: f.severity,
-          message: f.message,
+          message: findingText(f, units),
           acknowledged: ack ? `Acknowledged at issue: ${ack.reason}` : '',
         };
       }),
@@ -428,11 +433,11 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
         return {
           name: c.channelName,
           amplifier: itemLabel(items, c.channel.amplifierItemId),
-          load: c.mode === 'constant_voltage' && c.cv ? `${formatWatts(c.cv.totalTapWatts)} taps` : formatOhm(c.loadOhmNominal),
-          loadWithCable: formatOhm(c.loadOhmWithCable),
-          minimum: formatOhm(c.minimumImpedanceOhm),
+          load: c.mode === 'constant_voltage' && c.cv ? `${formatWatts(c.cv.totalTapWatts)} taps` : formatResistance(c.loadOhmNominal),
+          loadWithCable: formatResistance(c.loadOhmWithCable),
+          minimum: formatResistance(c.minimumImpedanceOhm),
           output: formatWatts(c.amplifierOutputW),
-          worstLoss: c.loads.length > 0 ? formatDb(worst) : '—',
+          worstLoss: c.loads.length > 0 ? formatDecibels(worst) : '—',
           cableShare: c.loads.length > 0 ? `${c.cableDissipationPct.toFixed(1)} %` : '—',
           status: !c.isSolved ? 'Not solved' : isBelow ? 'Below amplifier minimum' : c.loadOhmNominal === null ? 'Nothing connected' : 'OK',
           statusClass: !c.isSolved || isBelow || c.loadOhmNominal === null ? 'bad' : 'ok',
@@ -444,6 +449,10 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
       scaleNote: 'Positions are as recorded from tape ties and plan placement; verify by hand-digging before any excavation.',
       legend: [],
     },
+    ties: {
+      note: 'Each item was placed by taping its distance from fixed reference points. To find an item again, tape the same distances from two of its points: it lies where they meet.',
+      rows: tieRows,
+    },
     equipment: {
       rows: asBuilt.items
         .filter((item) => item.kind !== 'wall_entry')
@@ -453,8 +462,8 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
           zone: item.zoneId ? dash(zones.get(item.zoneId)) : '—',
           model: dash(item.model),
           serial: dash(item.serial),
-          installed: formatDate(item.installDate),
-          warrantyEnd: formatDate(item.warrantyEnd),
+          installed: formatDate(item.installDate, dates),
+          warrantyEnd: formatDate(item.warrantyEnd, dates),
         })),
     },
     cables: {
@@ -475,11 +484,11 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
           label: run.label,
           route: `from ${itemLabel(items, run.fromItemId)} to ${itemLabel(items, run.toItemId)}`,
           cableType: run.cableType,
-          gauge: `${formatGaugeForUnits(run.gauge, units)}, ${run.conductors}-cond.`,
-          length: formatLength(run.measuredLengthM, units),
+          gauge: `${formatConductor(run.gauge, units)}, ${run.conductors}-cond.`,
+          length: formatGroundLength(run.measuredLengthM, units),
           method: METHOD_LABELS[run.method],
-          minDepth: depth?.minDepthM != null ? formatDepth(depth.minDepthM, units) : '—',
-          maxDepth: depth?.maxDepthM != null ? formatDepth(depth.maxDepthM, units) : '—',
+          minDepth: depth?.minDepthM != null ? formatDepthLength(depth.minDepthM, units) : '—',
+          maxDepth: depth?.maxDepthM != null ? formatDepthLength(depth.maxDepthM, units) : '—',
           spare: run.isSpare ? 'Spare run' : run.pairs.some((p) => p.channel === null) ? 'Spare pair' : '—',
           depthStatus: status,
           depthClass: status === 'Shallow reading' || status === 'Not recorded' ? 'bad' : 'ok',
@@ -489,11 +498,11 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
         .filter((run) => run.method !== 'indoor' && (run.depthReadings?.length ?? 0) > 0)
         .map((run) => {
           const depth = depthByRun.get(run.id);
-          const rule = depth?.rule?.minCoverM != null ? `; rule minimum ${formatDepth(depth.rule.minCoverM, units)}` : '';
+          const rule = depth?.rule?.minCoverM != null ? `; rule minimum ${formatRuleDepth(depth.rule.minCoverM, units)}` : '';
           return {
             runId: run.id,
             label: run.label,
-            caption: `${formatLength(run.measuredLengthM, units)}, ${run.depthReadings?.length ?? 0} reading(s)${rule}`,
+            caption: `${formatGroundLength(run.measuredLengthM, units)}, ${run.depthReadings?.length ?? 0} reading(s)${rule}`,
           };
         }),
       hasProfiles: liveRuns.some((run) => run.method !== 'indoor' && (run.depthReadings?.length ?? 0) > 0),
@@ -509,9 +518,7 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
             hole:
               entry.holeDiameterM === undefined
                 ? '—'
-                : units === 'imperial'
-                  ? `${formatNumber(entry.holeDiameterM / 0.0254, 2)} in`
-                  : `${formatNumber(entry.holeDiameterM * 1000, 0)} mm`,
+                : formatDepthLength(entry.holeDiameterM, units),
             sleeve: dash(entry.sleeve),
             sealant: dash(entry.sealant),
             inside: dash(entry.insideLocation),
@@ -530,7 +537,7 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
         rating: [
           `${formatWatts(amp.ratedWatts8Ohm)} per channel into 8 Ω`,
           amp.ratedWatts4Ohm !== undefined ? `${formatWatts(amp.ratedWatts4Ohm)} into 4 Ω` : '',
-          `stable to ${formatOhm(amp.minimumImpedanceOhm)}`,
+          `stable to ${formatResistance(amp.minimumImpedanceOhm)}`,
         ]
           .filter(Boolean)
           .join(', '),
@@ -540,7 +547,7 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
           const load = analysis.channels.find((c) => c.channel.channelId === channel.id);
           // Only what was recorded prints: rows of dashes for settings nobody wrote down help no one.
           const settings = [
-              { label: 'Load', value: load ? formatOhm(load.loadOhmNominal) : '—' },
+              { label: 'Load', value: load ? formatResistance(load.loadOhmNominal) : '—' },
               ...(channel.constantVoltage
                 ? [{ label: 'Line', value: `${channel.constantVoltage.lineVoltage}, rated ${formatWatts(channel.constantVoltage.ratedWatts)}` }]
                 : []),
@@ -561,12 +568,12 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
       const rows = analysis.checks.map((check) => ({
         channel: channelNames.get(check.channel.channelId) ?? 'unknown channel',
         quantity: check.quantity === 'dc_resistance' ? 'DC resistance' : 'Impedance',
-        measured: formatOhm(check.measuredOhm),
-        expected: check.expectedOhm === null ? '—' : formatOhm(check.expectedOhm),
+        measured: formatResistance(check.measuredOhm),
+        expected: check.expectedOhm === null ? '—' : formatResistance(check.expectedOhm),
         range:
           check.expectedLowOhm === null || check.expectedHighOhm === null
             ? '—'
-            : `${formatNumber(check.expectedLowOhm, 2)}–${formatOhm(check.expectedHighOhm)}`,
+            : `${trimNumber(check.expectedLowOhm, 2)}–${formatResistance(check.expectedHighOhm)}`,
         result: CHECK_RESULT_LABELS[check.status] ?? check.status,
         resultClass: check.status === 'ok' ? 'ok' : check.status === 'not_comparable' ? 'muted' : 'bad',
         explanation: check.explanation,
@@ -592,7 +599,7 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
     },
     cautions: SAFETY_CAUTIONS.map((c) => ({ title: c.title, body: fillZone(c.body) })),
     care: [...CARE_AND_MAINTENANCE],
-    photos: photos.map((p) => ({ caption: p.caption, takenAt: p.takenAt ? formatDateTime(p.takenAt) : '', dataUri: p.dataUri })),
+    photos: photos.map((p) => ({ caption: p.caption, takenAt: p.takenAt ? formatDateTime(p.takenAt, dates) : '', dataUri: p.dataUri })),
     hasPhotos: photos.length > 0,
     signOff: {
       signatures,

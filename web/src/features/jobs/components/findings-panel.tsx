@@ -1,10 +1,11 @@
 import { Button, makeStyles, mergeClasses, Text, tokens } from '@fluentui/react-components';
 import { CheckmarkCircle20Regular, ErrorCircle20Filled, Info20Regular, Warning20Filled } from '@fluentui/react-icons';
 import type { AsBuiltAnalysis } from '@domain/analysis/analyze';
-import { FINDING_SEVERITY_LABELS, type FindingSeverity } from '@domain/analysis/finding';
+import { FINDING_SEVERITY_LABELS, findingText, type FindingSeverity } from '@domain/analysis/finding';
 import type { AsBuilt } from '@domain/as-built/as-built.schema';
 import type { ReactElement } from 'react';
 
+import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 import { useWorkspaceFocus } from '../hooks/workspace-focus';
 import { SECTION_LABELS, targetOfPath } from '../utils/finding-target';
 
@@ -61,6 +62,7 @@ type FindingsPanelProps = {
 export function FindingsPanel({ analysis, asBuilt, headingId = 'findings-heading' }: FindingsPanelProps) {
   const styles = useStyles();
   const { focus } = useWorkspaceFocus();
+  const [units] = useUnitPreferences();
   const { critical, warning, info } = analysis.summary;
 
   const icon = (severity: FindingSeverity): ReactElement =>
@@ -96,7 +98,7 @@ export function FindingsPanel({ analysis, asBuilt, headingId = 'findings-heading
                 {icon(finding.severity)}
                 <div className={styles.body}>
                   <Text weight="semibold">{FINDING_SEVERITY_LABELS[finding.severity]}</Text>
-                  <Text className={styles.message}>{finding.message}</Text>
+                  <Text className={styles.message}>{findingText(finding, units.length)}</Text>
                   {target && (
                     <Button appearance="transparent" className={styles.link} onClick={() => focus(target)}>
                       {target.recordId ? 'Show the field' : `Go to ${SECTION_LABELS[target.section]}`}

@@ -18,10 +18,11 @@ import {
 } from '@fluentui/react-components';
 import { DocumentArrowUp20Regular } from '@fluentui/react-icons';
 import type { Finding } from '@domain/analysis/finding';
-import { FINDING_SEVERITY_LABELS } from '@domain/analysis/finding';
+import { FINDING_SEVERITY_LABELS, findingText } from '@domain/analysis/finding';
 import { useState } from 'react';
 
 import { describeRequestError } from '../../../lib/form-errors';
+import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 import { type FindingAcknowledgement, type IssuePacketResponse, useIssuePacket } from '../api/issue-packet';
 
 /** As the API: at least 3 characters, at most 300. */
@@ -54,6 +55,7 @@ const keyOf = (f: Finding) => `${f.code}@${f.path.join('.')}`;
  */
 export function IssuePacketDialog({ jobId, jobVersion, findings }: IssuePacketDialogProps) {
   const styles = useStyles();
+  const [units] = useUnitPreferences();
   const [open, setOpen] = useState(false);
   const issue = useIssuePacket(jobId);
   const [reasons, setReasons] = useState<Record<string, string>>({});
@@ -131,7 +133,7 @@ export function IssuePacketDialog({ jobId, jobVersion, findings }: IssuePacketDi
                         <li key={g.key} className={styles.finding}>
                           <Text className={styles.severity}>{FINDING_SEVERITY_LABELS[g.isMustFix ? 'critical' : 'warning']}</Text>
                           {g.findings.map((f, i) => (
-                            <Text key={i}>{f.message}</Text>
+                            <Text key={i}>{findingText(f, units.length)}</Text>
                           ))}
                           <Field
                             label={g.isMustFix ? 'Reason (required)' : 'Reason (optional: lists it in the packet)'}

@@ -71,7 +71,9 @@ describe('JobWorkspace', () => {
     // A phone-width layout in jsdom: the findings sit above the sections behind one button.
     await user.click(await screen.findByRole('button', { name: /^Findings: 1 to look at/ }, { timeout: 15_000 }));
     const findings = screen.getByRole('list', { name: 'Findings' });
-    const shallow = within(findings).getByText(/has 8 cm .* of cover at 6 m/).closest('li')!;
+    // In the reader's units (feet and inches here): 8 cm = 3.15 in → 3 1/8 in; 6 m = 236.2 in = 19 ft 8 in
+    // (1 in = 0.0254 m, NIST SP 811 B.8); the rule 150 mm reads as the NEC's 6 in.
+    const shallow = within(findings).getByText(/has 3 1\/8 in of cover at 19 ft 8 in .* is 6 in/).closest('li')!;
     expect(within(shallow).getByText('Check')).toBeInTheDocument();
     await user.click(within(shallow).getByRole('button', { name: 'Show the field' }));
 
@@ -88,7 +90,7 @@ describe('JobWorkspace', () => {
         posts.push(request);
         if (request.headers.get('If-Match') === '"3"') {
           server.set(buildJobAsBuilt(buildAsBuilt([]), { version: 5 }));
-          return apiErrorResponse(409, { message: 'Someone saved this job after you opened it.', code: 'VERSION_CONFLICT', currentVersion: 5 } as never);
+          return apiErrorResponse(412, { message: 'Someone saved this job after you opened it.', code: 'VERSION_CONFLICT', currentVersion: 5 } as never);
         }
         return jsonResponse({ depthReading: { id: JOB_IDS.reading1, ...(request.body as object) }, jobVersion: 6 });
       },

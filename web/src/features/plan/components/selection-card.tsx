@@ -3,6 +3,7 @@ import { Open20Regular, Pen24Regular, TargetArrow24Regular } from '@fluentui/rea
 import { Link } from 'react-router';
 import type { AsBuiltAnalysis } from '@domain/analysis/analyze';
 import type { AsBuilt } from '@domain/as-built/as-built.schema';
+import { findingText } from '@domain/analysis/finding';
 
 import { paths } from '../../../config/paths';
 import { formatLength } from '../../../lib/units';
@@ -66,7 +67,7 @@ export function SelectionCard({ jobId, asBuilt, analysis, selection, canRecord, 
         </dl>
         {findings.map((finding) => (
           <Text key={finding.code} className={styles.warning}>
-            {finding.message}
+            {findingText(finding, units.length)}
           </Text>
         ))}
         {(item.ties?.length ?? 0) > 0 && canRecord && <Text className={styles.muted}>Placed from ties: change the ties to move it.</Text>}
