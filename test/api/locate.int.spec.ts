@@ -293,6 +293,33 @@ describe('locate links, the public locate view and the homeowner portal (a real 
     });
   });
 
+  describe('a site with no GPS origin, no landmarks and no ties', () => {
+    it('should answer plan positions only (no GeoJSON, with the reason) and still print the sheet', async () => {
+      // The issued record as an older job without an origin, features or ties would have frozen it.
+      await withDb((db) =>
+        db.query(
+          `update packet_revisions
+              set snapshot = jsonb_set(snapshot #- '{asBuilt,site,origin}' #- '{asBuilt,site,features}', '{asBuilt,items}',
+                                       (select jsonb_agg(i - 'ties') from jsonb_array_elements(snapshot->'asBuilt'->'items') i))
+            where id = $1`,
+          [revisionId],
+        ),
+      );
+      const view = LocateViewResponseSchema.parse((await anonymous(`/api/locate/${qrToken}`)).body);
+      expect(view.geojsonUrl).toBeNull();
+      expect(view.map).toMatchObject({ geojson: null, siteFeatures: [], frame: { origin: null } });
+      expect(view.map.items.every((i) => i.ties.length === 0)).toBe(true);
+      const geojson = await anonymous(`/api/locate/${qrToken}/map.geojson`);
+      expect(geojson.status).toBe(404);
+      expect(geojson.body).toMatchObject({ code: 'SITE_NOT_GEOREFERENCED', message: expect.stringMatching(/no GPS origin/) });
+      const sheet = await binary(anonymous(view.sheetUrl));
+      expect(sheet.status).toBe(200);
+      const pages = await pdfPages(sheet.body as Buffer);
+      expect(pages).toHaveLength(1);
+      expect(pages[0]!.replace(/\s+/g, '')).toContain(DEMO_AS_BUILT.runs[0]!.label.replace(/\s+/g, ''));
+    }, 60_000);
+  });
+
   describe('guessing tokens', () => {
     it('should answer 404 to unknown tokens, then 429 to the address (even with a valid token)', async () => {
       const statuses: number[] = [];
