@@ -193,6 +193,9 @@ describe('locate links, the public locate view and the homeowner portal (a real 
         expect(text, expected).toContain(expected.replace(/\s+/g, ''));
       }
       for (const secret of [STAFF_NOTE, CUSTOMER_PHONE, company.users.lead.name]) expect(text, secret).not.toContain(secret.replace(/\s+/g, ''));
+      // The same sheet again is served from memory, not printed again (Chromium would stamp a new creation date).
+      const again = await binary(anonymous(`/api/locate/${qrToken}/sheet.pdf`));
+      expect(Buffer.compare(again.body as Buffer, res.body as Buffer)).toBe(0);
     }, 60_000);
   });
 

@@ -1,3 +1,5 @@
+import { createHash } from 'node:crypto';
+
 import { HttpException, HttpStatus, Inject, Injectable, Logger, NotFoundException } from '@nestjs/common';
 
 import { hashToken } from '../auth/tokens.js';
@@ -23,6 +25,9 @@ export interface LocateClient {
 /** Tokens we hand out are 43 base64url characters; anything unlike a token is a miss without a query. */
 const TOKEN_SHAPE = /^[A-Za-z0-9_-]{20,100}$/;
 
+/** Printed locate sheets kept in memory under the hash of their HTML (same page in, same PDF out). */
+const SHEET_CACHE_SIZE = 32;
+
 const notValid = () => new NotFoundException({ message: 'This locate link is not valid.', code: LOCATE_LINK_NOT_VALID });
 
 /**
@@ -34,6 +39,8 @@ const notValid = () => new NotFoundException({ message: 'This locate link is not
 @Injectable()
 export class LocateService {
   private readonly logger = new Logger(LocateService.name);
+  /** A public route that starts Chromium: a repeat of the same sheet is served from here, not printed again. */
+  private readonly sheets = new Map<string, Buffer>();
 
   constructor(
     private readonly repository: LocateRepository,
@@ -52,7 +59,16 @@ export class LocateService {
    */
   async sheet(token: string, client: LocateClient): Promise<{ pdf: Buffer; fileName: string }> {
     const { view, paperSize } = await this.viewWithPaper(token, client);
-    const pdf = await this.pdf.printPage(renderLocateSheetHtml(view, paperSize));
+    const html = renderLocateSheetHtml(view, paperSize);
+    const key = createHash('sha256').update(html).digest('hex');
+    let pdf = this.sheets.get(key);
+    if (pdf) {
+      this.sheets.delete(key);
+    } else {
+      pdf = await this.pdf.printPage(html);
+      if (this.sheets.size >= SHEET_CACHE_SIZE) this.sheets.delete(this.sheets.keys().next().value!);
+    }
+    this.sheets.set(key, pdf);
     const slug = view.site.label.replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '').toLowerCase() || 'site';
     return { pdf, fileName: `${slug}-locate-sheet.pdf` };
   }
