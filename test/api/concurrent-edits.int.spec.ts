@@ -10,7 +10,7 @@ const EDITS_PER_CLIENT = 6;
 
 /**
  * Two people editing the same job at once, each the way the web app does it: read the job (and its
- * version), change it, write with If-Match, and on 409 VERSION_CONFLICT read again and redo the change.
+ * version), change it, write with If-Match, and on 412 VERSION_CONFLICT read again and redo the change.
  * Optimistic locking must make every edit land exactly once: none lost, none doubled.
  */
 describe('two users editing the same job at the same time', () => {
@@ -32,17 +32,17 @@ describe('two users editing the same job at the same time', () => {
     await app.close();
   });
 
-  /** Retries `attempt` after each 409 VERSION_CONFLICT; counts the conflicts; fails on any other status. */
+  /** Retries `attempt` after each 412 VERSION_CONFLICT; counts the conflicts; fails on any other status. */
   async function withRetries(attempt: () => Promise<{ status: number; body: { code?: string } }>): Promise<number> {
     for (let conflicts = 0; conflicts < 100; conflicts += 1) {
       const res = await attempt();
       if (res.status < 300) return conflicts;
-      if (res.status !== 409 || res.body.code !== 'VERSION_CONFLICT') throw new Error(`unexpected ${res.status} ${JSON.stringify(res.body)}`);
+      if (res.status !== 412 || res.body.code !== 'VERSION_CONFLICT') throw new Error(`unexpected ${res.status} ${JSON.stringify(res.body)}`);
     }
     throw new Error('still conflicting after 100 attempts');
   }
 
-  it('should keep every line both users append to the notes (read-modify-write, retry on 409)', async () => {
+  it('should keep every line both users append to the notes (read-modify-write, retry on 412)', async () => {
     const job = await createJob(office, siteId, { crewLeadUserId: company.users.lead.id });
     const appendLoop = async (api: Api, who: string) => {
       let conflicts = 0;
@@ -66,7 +66,7 @@ describe('two users editing the same job at the same time', () => {
     for (const who of ['office', 'lead']) expect(lines.filter((l) => l.startsWith(`${who}-`))).toEqual(expected.filter((l) => l.startsWith(`${who}-`)));
     // One version per successful write, whatever the number of refused ones.
     expect(final.version).toBe(job.version + 2 * EDITS_PER_CLIENT);
-    console.log(`notes: ${2 * EDITS_PER_CLIENT} edits landed after ${conflicts[0]! + conflicts[1]!} conflicts (409)`);
+    console.log(`notes: ${2 * EDITS_PER_CLIENT} edits landed after ${conflicts[0]! + conflicts[1]!} conflicts (412)`);
   });
 
   it('should keep every zone both users add at once, each created exactly once', async () => {

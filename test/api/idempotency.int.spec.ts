@@ -58,7 +58,7 @@ describe('Idempotency-Key on job writes', () => {
 
     // Without a key the same request is a second, separate change (here refused by the version check).
     const plain = await addZone(lead, job.id, 'Patio', job.version);
-    expect(plain.status).toBe(409);
+    expect(plain.status).toBe(412);
     expect(plain.body.code).toBe('VERSION_CONFLICT');
   });
 
@@ -86,7 +86,7 @@ describe('Idempotency-Key on job writes', () => {
     expect((await addZone(office, job.id, 'Front beds', job.version)).status).toBe(201);
     const key = randomUUID();
     const conflict = await addZone(lead, job.id, 'Back fence', job.version, key);
-    expect(conflict.status).toBe(409);
+    expect(conflict.status).toBe(412);
     expect(conflict.body.code).toBe('VERSION_CONFLICT');
     const kept = await addZone(lead, job.id, 'Back fence', job.version + 1, key);
     expect(kept.status).toBe(201);

@@ -84,7 +84,7 @@ describe('job records (zones, items, runs, depth readings, checks)', () => {
       expect(renamed.zone.name).toBe('Terrace');
       j = { ...j, version: renamed.jobVersion };
       expect((await as.otherAdmin.send('delete', `/api/jobs/${j.id}/zones/${created.zone.id}`, undefined, version(j))).status).toBe(404);
-      expect((await as.lead.send('delete', `/api/jobs/${j.id}/zones/${created.zone.id}`, undefined, { 'If-Match': String(j.version - 1) })).status).toBe(409);
+      expect((await as.lead.send('delete', `/api/jobs/${j.id}/zones/${created.zone.id}`, undefined, { 'If-Match': String(j.version - 1) })).status).toBe(412);
       expect(await count('zones', 'id', created.zone.id)).toBe(1);
       expect((await as.lead.send('delete', `/api/jobs/${j.id}/zones/${created.zone.id}`, undefined, version(j))).body).toEqual({ jobVersion: j.version + 1 });
       expect(await count('zones', 'id', created.zone.id)).toBe(0);
@@ -160,7 +160,7 @@ describe('job records (zones, items, runs, depth readings, checks)', () => {
       const { job, setVersion } = await jobWithRun();
       const created = await as.lead.expectOk('post', `/api/jobs/${job().id}/items`, { kind: 'junction', label: 'Splice' }, version(job()));
       const stale = await as.lead.send('delete', `/api/jobs/${job().id}/items/${created.item.id}`, undefined, version(job()));
-      expect(stale.status).toBe(409);
+      expect(stale.status).toBe(412);
       expect(stale.body.currentVersion).toBe(created.jobVersion);
       setVersion(created.jobVersion);
       expect((await as.lead.send('delete', `/api/jobs/${job().id}/items/${created.item.id}`, undefined, version(job()))).status).toBe(200);
@@ -234,7 +234,7 @@ describe('job records (zones, items, runs, depth readings, checks)', () => {
       expect(await count('depth_readings', 'run_id', run.id)).toBe(1);
     });
 
-    it('should answer 400 naming the field, 409 on a stale version, and 404 across companies', async () => {
+    it('should answer 400 naming the field, 412 on a stale version, and 404 across companies', async () => {
       const { job, run } = await jobWithRun();
       const url = `/api/jobs/${job().id}/runs/${run.id}/depth-readings`;
       const far = await as.tech.send('post', url, { stationM: 500, depthM: 0.3 }, version(job()));
@@ -243,6 +243,7 @@ describe('job records (zones, items, runs, depth readings, checks)', () => {
       const negative = await as.tech.send('post', url, { stationM: 1, depthM: -1 }, version(job()));
       expect(negative.body.issues[0].path).toBe('depthM');
       const stale = await as.tech.send('post', url, { stationM: 1, depthM: 0.3 }, { 'If-Match': String(job().version - 1) });
+      expect(stale.status).toBe(412);
       expect(stale.body).toMatchObject({ code: 'VERSION_CONFLICT', currentVersion: job().version });
       expect((await as.otherAdmin.send('post', url, { stationM: 1, depthM: 0.3 }, version(job()))).status).toBe(404);
       expect(await count('depth_readings', 'run_id', run.id)).toBe(0);
@@ -284,7 +285,7 @@ describe('job records (zones, items, runs, depth readings, checks)', () => {
       expect(res.status).toBe(400);
       expect(res.body.issues[0].path).toBe('channel.amplifierItemId');
       const stale = await as.tech.send('post', `/api/jobs/${job().id}/checks`, { channel: { amplifierItemId: amp.id, channelId: amp.channels[0].id }, quantity: 'impedance', measuredOhm: 8 }, { 'If-Match': '1' });
-      expect(stale.status).toBe(409);
+      expect(stale.status).toBe(412);
       expect(await count('commissioning_checks', 'job_id', job().id)).toBe(0);
     });
   });

@@ -206,12 +206,12 @@ describe('jobs', () => {
       expect(await jobRow(job.id)).toMatchObject({ version: 1 });
     });
 
-    it('should answer 409 VERSION_CONFLICT with the current version on a stale write, and write nothing', async () => {
+    it('should answer 412 VERSION_CONFLICT with the current version on a stale write, and write nothing', async () => {
       const job = await newJob();
       await as.office.expectOk('patch', `/api/jobs/${job.id}`, { notes: 'first' }, { 'If-Match': '1' });
       const res = await as.admin.send('patch', `/api/jobs/${job.id}`, { title: 'Stale', expectedVersion: 1 });
-      expect(res.status).toBe(409);
-      expect(res.body).toMatchObject({ statusCode: 409, code: 'VERSION_CONFLICT', currentVersion: 2 });
+      expect(res.status).toBe(412);
+      expect(res.body).toMatchObject({ statusCode: 412, code: 'VERSION_CONFLICT', currentVersion: 2 });
       expect(await jobRow(job.id)).toMatchObject({ version: 2, title: expect.not.stringContaining('Stale') });
     });
 
@@ -286,10 +286,10 @@ describe('jobs', () => {
       expect(res.body).toMatchObject({ status: 'in_progress', revision: 2, version: job.version + 1 });
     });
 
-    it('should answer 409 on a stale version and leave the status alone', async () => {
+    it('should answer 412 on a stale version and leave the status alone', async () => {
       const job = await newJob();
       const res = await status(as.office, { ...job, version: 7 }, 'in_progress');
-      expect(res.status).toBe(409);
+      expect(res.status).toBe(412);
       expect(res.body).toMatchObject({ code: 'VERSION_CONFLICT', currentVersion: 1 });
       expect(await jobRow(job.id)).toMatchObject({ status: 'draft', version: 1 });
     });

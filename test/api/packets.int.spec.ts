@@ -272,7 +272,7 @@ describe('handover packets (the demo job, rendered in Chromium)', () => {
     expect(again.body.code).toBe('JOB_NOT_READY_TO_ISSUE');
     const other = await readyJob();
     const stale = await office.send('post', `/api/jobs/${other.id}/packets`, undefined, { 'If-Match': `"${other.version - 1}"` });
-    expect(stale.status).toBe(409);
+    expect(stale.status).toBe(412);
     expect(stale.body.code).toBe('VERSION_CONFLICT');
   });
 

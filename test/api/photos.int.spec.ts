@@ -268,10 +268,10 @@ describe('photos (upload, processing, storage, soft delete)', () => {
       await expectNothingStored();
     });
 
-    it('should answer 409 on a stale version with nothing stored', async () => {
+    it('should answer 412 on a stale version with nothing stored', async () => {
       before = await snapshot();
       const res = await upload('tech', job.id, job.version - 1, [{ content: await makeWebp(), name: 'w.webp', contentType: 'image/webp' }]);
-      expect(res.status).toBe(409);
+      expect(res.status).toBe(412);
       expect(res.body).toMatchObject({ code: 'VERSION_CONFLICT', currentVersion: job.version });
       await expectNothingStored();
     });
@@ -338,7 +338,7 @@ describe('photos (upload, processing, storage, soft delete)', () => {
     expect(patched.photo).toMatchObject({ caption: 'Wall entry before sealing', target: { type: 'job' } });
     expect(patched.jobVersion).toBe(res.body.jobVersion + 1);
     const stale = await as.tech.send('patch', `/api/photos/${photo.id}`, { caption: 'x' }, { 'If-Match': String(res.body.jobVersion) });
-    expect(stale.status).toBe(409);
+    expect(stale.status).toBe(412);
     const bad = await as.tech.send('patch', `/api/photos/${photo.id}`, { target: { type: 'item', id: otherItem.item.id } }, { 'If-Match': String(patched.jobVersion) });
     expect(bad.status).toBe(400);
   });

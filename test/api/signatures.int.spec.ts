@@ -62,7 +62,7 @@ describe('walkthrough signatures (captured before issue, printed in the packet)'
     const badRole = await lead.send('put', `/api/jobs/${job.id}/signatures/inspector`, { signerName: 'X', svgPath: PATH }, { 'If-Match': `"${job.version}"` });
     expect(badRole.status).toBe(400);
     const stale = await lead.send('put', `/api/jobs/${job.id}/signatures/lead`, { signerName: 'X', svgPath: PATH }, { 'If-Match': `"${job.version - 1}"` });
-    expect(stale.status).toBe(409);
+    expect(stale.status).toBe(412);
     expect(stale.body.code).toBe('VERSION_CONFLICT');
   });
 

@@ -146,7 +146,7 @@ describe('site versions and site geometry behind jobs', () => {
   });
 
   describe('every geometry route', () => {
-    it('should refuse a missing (428) or stale (409 VERSION_CONFLICT with currentVersion) If-Match, changing nothing', async () => {
+    it('should refuse a missing (428) or stale (412 VERSION_CONFLICT with currentVersion) If-Match, changing nothing', async () => {
       const { siteId, pointId } = await arrange(['in_progress']);
       for (const write of geometryWrites(siteId, pointId)) {
         const before = await stateOf(siteId);
@@ -155,7 +155,7 @@ describe('site versions and site geometry behind jobs', () => {
         expect(missing.body.code).toBe('VERSION_REQUIRED');
         expect(missing.body.message).toContain('site');
         const stale = await send('office', write, ifMatch(before.site.version - 1));
-        expect(stale.status, `${write.name}: ${JSON.stringify(stale.body)}`).toBe(409);
+        expect(stale.status, `${write.name}: ${JSON.stringify(stale.body)}`).toBe(412);
         expect(stale.body).toMatchObject({ code: 'VERSION_CONFLICT', currentVersion: before.site.version });
         const malformed = await send('office', write, { 'If-Match': 'latest' });
         expect(malformed.status).toBe(400);
@@ -199,7 +199,7 @@ describe('site versions and site geometry behind jobs', () => {
       }
       // The crew's (or office's) write on the version they had before the site moved is refused.
       const stale = await as.office.send('patch', `/api/jobs/${job.id}`, { title: 'Renamed' }, ifMatch(job.version));
-      expect(stale.status).toBe(409);
+      expect(stale.status).toBe(412);
       expect(stale.body).toMatchObject({ code: 'VERSION_CONFLICT', currentVersion: open[job.id] });
     }, 90_000);
 
@@ -285,7 +285,7 @@ describe('site versions and site geometry behind jobs', () => {
         for (let done = 0; done < rounds; ) {
           const site = await as[who].expectOk('get', `/api/sites/${siteId}`);
           const res = await as[who].send('patch', `/api/sites/${siteId}`, { northAzimuthDeg: site.northAzimuthDeg + 1 }, ifMatch(site.version));
-          if (res.status === 409 && res.body.code === 'VERSION_CONFLICT') {
+          if (res.status === 412 && res.body.code === 'VERSION_CONFLICT') {
             conflicts += 1;
             continue;
           }
@@ -298,7 +298,7 @@ describe('site versions and site geometry behind jobs', () => {
         for (let done = 0; done < rounds; ) {
           const version = await siteVersion(as.office, siteId);
           const res = await as.office.send('post', `/api/sites/${siteId}/reference-points`, { label: `Stake ${done}`, x: done, y: 0 }, ifMatch(version));
-          if (res.status === 409 && res.body.code === 'VERSION_CONFLICT') {
+          if (res.status === 412 && res.body.code === 'VERSION_CONFLICT') {
             conflicts += 1;
             continue;
           }

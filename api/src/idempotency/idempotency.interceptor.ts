@@ -38,7 +38,7 @@ const WRITE_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
  * (header `Idempotent-Replayed: true`) instead of being written twice.
  *
  * - keys are per user and kept 24 hours (idempotency_keys);
- * - only a 2xx answer is kept: after a 409 version conflict or a 400 the key is free again, so the
+ * - only a 2xx answer is kept: after a 412 version conflict or a 400 the key is free again, so the
  *   crew's "Keep mine and save" re-sends the same change under the same key;
  * - the same key with another method, path or body: 422 `IDEMPOTENCY_KEY_REUSED`;
  * - the same key while its first request is still running: 409 `IDEMPOTENCY_IN_PROGRESS` (try later);

@@ -15,11 +15,12 @@ export function ApiJobVersion() {
         'the version and answers with the new one (`jobVersion`, or `version` for job-level writes).',
     }),
     ApiResponse({
-      status: 409,
+      status: 412,
       description:
-        '`VERSION_CONFLICT`: someone saved the job since you read it; nothing was written. The body carries ' +
-        '`currentVersion`: reload (or merge) and retry. Other 409 codes: the job’s status does not allow the change.',
+        '`VERSION_CONFLICT` (Precondition Failed, RFC 9110 §13.1.1): someone saved the job since you read it; nothing was ' +
+        'written. The body carries `currentVersion`: reload (or merge) and retry.',
     }),
+    ApiResponse({ status: 409, description: 'The job’s status does not allow the change (the code says why); nothing was written.' }),
     ApiResponse({ status: 428, description: '`VERSION_REQUIRED`: neither If-Match nor expectedVersion was sent.' }),
   );
 }

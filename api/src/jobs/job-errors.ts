@@ -1,4 +1,4 @@
-import { BadRequestException, ConflictException, ForbiddenException, NotFoundException } from '@nestjs/common';
+import { BadRequestException, ConflictException, ForbiddenException, NotFoundException, PreconditionFailedException } from '@nestjs/common';
 
 import type { Denial } from '../domain/jobs/job-rules.js';
 import type { FieldIssue } from '../domain/jobs/record-validation.js';
@@ -14,9 +14,12 @@ export function recordNotFound(what: 'zone' | 'item' | 'run' | 'depth reading' |
   });
 }
 
-/** 409 with the job's current version: the client reloads (or merges) and tries again. */
-export function versionConflict(currentVersion: number): ConflictException {
-  return new ConflictException({
+/**
+ * 412 Precondition Failed (RFC 9110 §13.1.1: the If-Match version is not the job's current one) with the
+ * job's current version: the client reloads (or merges) and tries again. A state conflict stays 409.
+ */
+export function versionConflict(currentVersion: number): PreconditionFailedException {
+  return new PreconditionFailedException({
     message: `Someone saved this job after you opened it (it is now at version ${currentVersion}). Reload it, check your change and save again.`,
     code: 'VERSION_CONFLICT',
     currentVersion,

@@ -1,4 +1,4 @@
-import { ConflictException, ForbiddenException, NotFoundException } from '@nestjs/common';
+import { ConflictException, ForbiddenException, NotFoundException, PreconditionFailedException } from '@nestjs/common';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
 
 import type { AuditService } from '../audit/audit.service.js';
@@ -68,10 +68,10 @@ describe(JobWriter.name, () => {
       expect(work).not.toHaveBeenCalled();
     });
 
-    it('should answer 409 VERSION_CONFLICT with the current version and do nothing', async () => {
+    it('should answer 412 VERSION_CONFLICT (Precondition Failed) with the current version and do nothing', async () => {
       const error = await sut.write(user('office'), 'job-1', 3, 'record', work).catch((e: unknown) => e);
-      expect(error).toBeInstanceOf(ConflictException);
-      expect((error as ConflictException).getResponse()).toMatchObject({ code: 'VERSION_CONFLICT', currentVersion: 4 });
+      expect(error).toBeInstanceOf(PreconditionFailedException);
+      expect((error as PreconditionFailedException).getResponse()).toMatchObject({ code: 'VERSION_CONFLICT', currentVersion: 4 });
       expect(work).not.toHaveBeenCalled();
       expect(repository.bumpVersion).not.toHaveBeenCalled();
       expect(audit.record).not.toHaveBeenCalled();

@@ -27,7 +27,7 @@ export interface AuditTarget {
 
 /**
  * Runs one write to a job or its children in a transaction: locks the job row, checks the company
- * (404), the user's rights for this kind of write (403/409), and the version the client last saw (409
+ * (404), the user's rights for this kind of write (403/409), and the version the client last saw (412
  * `VERSION_CONFLICT` with `currentVersion`); then does the work, bumps `jobs.version` and writes the
  * audit entry. Anything thrown rolls the whole transaction back, so a refused write writes nothing.
  */

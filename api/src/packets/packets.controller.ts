@@ -41,7 +41,8 @@ export class PacketsController {
       'acknowledged findings print as Known exceptions in the homeowner’s words.',
   })
   @ApiResponse({ status: 400, description: '`FINDINGS_NOT_ACKNOWLEDGED` (names the finding) or `VALIDATION_FAILED`' })
-  @ApiResponse({ status: 409, description: '`JOB_NOT_READY_TO_ISSUE`, `VERSION_CONFLICT` or `PACKET_ALREADY_ISSUED`' })
+  @ApiResponse({ status: 409, description: '`JOB_NOT_READY_TO_ISSUE` or `PACKET_ALREADY_ISSUED`' })
+  @ApiResponse({ status: 412, description: '`VERSION_CONFLICT`: the job changed since you read it (If-Match); body `currentVersion`' })
   issue(
     @CurrentUser() user: AuthUser,
     @Param('jobId', ParseUUIDPipe) jobId: string,

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import type { Readable } from 'node:stream';
 
-import { ConflictException, ForbiddenException, Inject, Injectable, Logger } from '@nestjs/common';
+import { ConflictException, ForbiddenException, Inject, Injectable, Logger, PreconditionFailedException } from '@nestjs/common';
 
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import type { Tx } from '../db/db.module.js';
@@ -43,7 +43,7 @@ export interface PhotoContent {
 type WithVersion<T> = T & JobVersionResponse;
 
 function isVersionConflict(error: unknown): boolean {
-  if (!(error instanceof ConflictException)) return false;
+  if (!(error instanceof PreconditionFailedException)) return false;
   const body = error.getResponse();
   return typeof body === 'object' && body !== null && (body as { code?: unknown }).code === 'VERSION_CONFLICT';
 }

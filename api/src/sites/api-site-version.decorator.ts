@@ -15,10 +15,14 @@ export function ApiSiteVersion() {
     }),
     ApiResponse({ status: 403, description: '`NOT_ON_SITE_CREW` / `ROLE_NOT_ALLOWED`: nothing was written.' }),
     ApiResponse({
-      status: 409,
+      status: 412,
       description:
-        '`VERSION_CONFLICT`: someone changed the site since you read it (body: `currentVersion`); `SITE_JOBS_IN_REVIEW`: a job ' +
-        'on the site is submitted or ready to issue (body: `jobs`). Nothing was written.',
+        '`VERSION_CONFLICT` (Precondition Failed, RFC 9110 §13.1.1): someone changed the site since you read it (body: ' +
+        '`currentVersion`). Nothing was written.',
+    }),
+    ApiResponse({
+      status: 409,
+      description: '`SITE_JOBS_IN_REVIEW`: a job on the site is submitted or ready to issue (body: `jobs`). Nothing was written.',
     }),
     ApiResponse({ status: 428, description: '`VERSION_REQUIRED`: neither If-Match nor expectedVersion was sent.' }),
   );

@@ -1,4 +1,4 @@
-import { ConflictException, ForbiddenException, NotFoundException } from '@nestjs/common';
+import { ConflictException, ForbiddenException, NotFoundException, PreconditionFailedException } from '@nestjs/common';
 
 import type { SiteDecision } from '../domain/sites/site-rules.js';
 
@@ -6,9 +6,9 @@ export function siteNotFound(): NotFoundException {
   return new NotFoundException({ message: 'No such site.', code: 'SITE_NOT_FOUND' });
 }
 
-/** 409 with the site's current version: the client reloads the site and tries again. */
-export function siteVersionConflict(currentVersion: number): ConflictException {
-  return new ConflictException({
+/** 412 Precondition Failed (RFC 9110 §13.1.1) with the site's current version: the client reloads the site and tries again. */
+export function siteVersionConflict(currentVersion: number): PreconditionFailedException {
+  return new PreconditionFailedException({
     message: `Someone changed this site after you opened it (it is now at version ${currentVersion}). Reload it, check your change and save again.`,
     code: 'VERSION_CONFLICT',
     currentVersion,

@@ -40,7 +40,7 @@ export interface SiteAuditTarget {
  * a transaction, as `JobWriter` does for jobs: locks the site row (404 outside the actor's company), for
  * a geometry write also locks its jobs' rows, checks the actor's rights and the jobs' statuses
  * (`canWriteSite`: 403, or 409 `SITE_JOBS_IN_REVIEW` naming the jobs), and the version the client last
- * saw (409 `VERSION_CONFLICT` with `currentVersion`); then does the work, bumps `sites.version` — and,
+ * saw (412 `VERSION_CONFLICT` with `currentVersion`); then does the work, bumps `sites.version` — and,
  * for geometry, the version of every open job on the site, so an office review or a crew edit made
  * against the old geometry fails with the usual conflict — and writes the audit entry. Anything thrown
  * rolls the whole transaction back, so a refused write writes nothing.

@@ -56,7 +56,7 @@ describe('the offline write queue (issue 17)', () => {
     expect(isWorthRetrying(new ApiError({ status: 0, message: 'Cannot reach the server.' }))).toBe(true);
     expect(isWorthRetrying(new ApiError({ status: 503, message: 'down', code: 'DATABASE_UNAVAILABLE' }))).toBe(true);
     expect(isWorthRetrying(new ApiError({ status: 409, message: 'busy', code: 'IDEMPOTENCY_IN_PROGRESS' }))).toBe(true);
-    expect(isWorthRetrying(new ApiError({ status: 409, message: 'changed', code: 'VERSION_CONFLICT' }))).toBe(false);
+    expect(isWorthRetrying(new ApiError({ status: 412, message: 'changed', code: 'VERSION_CONFLICT' }))).toBe(false);
     expect(isWorthRetrying(new ApiError({ status: 400, message: 'bad', code: 'VALIDATION_FAILED' }))).toBe(false);
   });
 });

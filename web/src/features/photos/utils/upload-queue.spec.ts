@@ -108,7 +108,7 @@ describe(UploadQueue.name, () => {
       const versions: number[] = [];
       const ctx = setup(async (upload, version) => {
         versions.push(version);
-        if (version === 3) throw new ApiError({ status: 409, code: 'VERSION_CONFLICT', message: 'Someone saved first.', currentVersion: 7 });
+        if (version === 3) throw new ApiError({ status: 412, code: 'VERSION_CONFLICT', message: 'Someone saved first.', currentVersion: 7 });
         return answer(upload, version + 1);
       });
       sut = ctx.sut;

@@ -11,7 +11,7 @@ export type { SiteVersionResponse };
 
 /**
  * Every write to a site names the site version it builds on (`If-Match`), as job writes name the job's:
- * a change made on a stale copy is refused (409 `VERSION_CONFLICT`) instead of undoing someone else's.
+ * a change made on a stale copy is refused (412 `VERSION_CONFLICT`, Precondition Failed) instead of undoing someone else's.
  */
 export function siteIfMatch(version: number): Record<string, string> {
   return { 'If-Match': `"${version}"` };

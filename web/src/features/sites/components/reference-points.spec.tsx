@@ -99,7 +99,7 @@ describe('ReferencePoints', () => {
         if (request.headers.get('If-Match') === '"4"') {
           // Someone else moved the corner meanwhile: the site is at version 7 now.
           site = buildSite([{ ...CORNER, x: 0.5 }, GATE], 7);
-          return apiErrorResponse(409, { message: 'Someone changed this site after you opened it (it is now at version 7).', code: 'VERSION_CONFLICT', currentVersion: 7 });
+          return apiErrorResponse(412, { message: 'Someone changed this site after you opened it (it is now at version 7).', code: 'VERSION_CONFLICT', currentVersion: 7 });
         }
         site = buildSite([{ ...CORNER, x: 0.5 }, { ...GATE, label: 'Gate post (west)' }], 8);
         return jsonResponse({ ...GATE, label: 'Gate post (west)', siteVersion: 8, jobVersions: {} });
@@ -132,7 +132,7 @@ describe('ReferencePoints', () => {
       [`PATCH /api/sites/${SITE_ID}/reference-points/${GATE.id}`]: (request) => {
         patches.push(request);
         site = buildSite([CORNER, GATE], 7);
-        return apiErrorResponse(409, { message: 'Someone changed this site after you opened it.', code: 'VERSION_CONFLICT', currentVersion: 7 });
+        return apiErrorResponse(412, { message: 'Someone changed this site after you opened it.', code: 'VERSION_CONFLICT', currentVersion: 7 });
       },
     });
     const { user } = renderApp({ url: `/sites/${SITE_ID}`, signedInAs: buildSessionUser('office') });
