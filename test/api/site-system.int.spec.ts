@@ -199,6 +199,17 @@ describe('the site system: a later job builds on what is in the ground', () => {
     expect(view.asBuilt.runs.find((r: { id: string }) => r.id === first.liveRun).isAbandoned).toBeUndefined();
     expect(view.records.removedByThisJob).toEqual([]);
     expect((await c.send('delete', `/site-changes/${first.liveRun}`)).status).toBe(404);
+
+    // A draft job holding a change to an earlier record is not deleted out from under it: 409, nothing gone.
+    const draft = await createJob(office, siteId, { crewLeadUserId: company.users.lead.id });
+    await withDb((db) =>
+      db.query(`insert into site_record_changes (site_id, job_id, record_kind, record_id, change, before, changed_on) values ($1, $2, 'run', $3, 'changed', '{}', current_date)`, [siteId, draft.id, first.liveRun]),
+    );
+    const refused = await office.send('delete', `/api/jobs/${draft.id}`, undefined, { 'If-Match': `"${draft.version}"` });
+    expect(refused.status).toBe(409);
+    expect(refused.body.code).toBe('JOB_CHANGED_SITE_RECORDS');
+    await withDb((db) => db.query(`delete from site_record_changes where job_id = $1`, [draft.id]));
+    expect((await office.send('delete', `/api/jobs/${draft.id}`, undefined, { 'If-Match': `"${draft.version}"` })).status).toBe(204);
   });
 
   it('answers 409 when two open jobs change the same earlier record, also when they race', async () => {
