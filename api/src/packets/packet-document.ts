@@ -112,8 +112,13 @@ function orientationOf(svg: string): Orientation {
  * same functions as the drawing routes and the web app (drawings/job-drawings.ts). `planImage` is the
  * site's calibrated plan image, drawn under the site plan when the site has one.
  */
-export async function drawPacketDrawings(snapshot: PacketSnapshot, vm: PacketViewModel, planImage?: PlanImage): Promise<PacketDrawings> {
-  const input = { asBuilt: snapshot.asBuilt, analysis: snapshot.analysis, createCanvas: createNodeSvgCanvas, units: snapshot.settings.units };
+export async function drawPacketDrawings(
+  snapshot: PacketSnapshot,
+  vm: PacketViewModel,
+  planImage?: PlanImage,
+  options: { withProfiles?: boolean } = {},
+): Promise<PacketDrawings> {
+  const input = drawingInput(snapshot);
   const titleBlock = jobTitleBlock({
     jobTitle: snapshot.job.title,
     siteLabel: snapshot.site.label,
@@ -129,6 +134,8 @@ export async function drawPacketDrawings(snapshot: PacketSnapshot, vm: PacketVie
   const hasTies = vm.ties.rows.length > 0;
   const sitePlan = drawJobSitePlan(input, { ...plan, layersOff: ['reference-points'], ...(planImage ? { planImage } : {}) });
   const ties = hasTies ? drawJobSitePlan(input, { ...plan, sheet: 'ties' }) : '';
+  // Let pending I/O (a draft print in flight) go on between the site plan sheets and the schematic.
+  await new Promise((resolve) => setImmediate(resolve));
   const schematic = await drawJobSchematic(input, {
     paper,
     orientation: 'auto',
@@ -141,8 +148,18 @@ export async function drawPacketDrawings(snapshot: PacketSnapshot, vm: PacketVie
     ties,
     schematic,
     orientation: { sitePlan: orientationOf(sitePlan), ties: orientationOf(ties), schematic: orientationOf(schematic) },
-    profiles: vm.cables.profileRunIds.map((p) => ({ ...p, svg: drawJobDepthProfile(input, p.runId) })),
+    profiles: options.withProfiles === false ? [] : drawPacketProfiles(snapshot, vm),
   };
+}
+
+function drawingInput(snapshot: PacketSnapshot) {
+  return { asBuilt: snapshot.asBuilt, analysis: snapshot.analysis, createCanvas: createNodeSvgCanvas, units: snapshot.settings.units };
+}
+
+/** The depth profile of each run that has readings, in the packet's units. */
+export function drawPacketProfiles(snapshot: PacketSnapshot, vm: PacketViewModel): PacketDrawings['profiles'] {
+  const input = drawingInput(snapshot);
+  return vm.cables.profileRunIds.map((p) => ({ ...p, svg: drawJobDepthProfile(input, p.runId) }));
 }
 
 export function qrCodeSvg(url: string): Promise<string> {
@@ -196,6 +213,9 @@ export function renderFooterTemplate(vm: PacketViewModel): string {
   );
 }
 
+/** Stands in for a one-page drawing in the first pass. */
+const PAGE_PLACEHOLDER = '<svg xmlns="http://www.w3.org/2000/svg" width="1in" height="1in"></svg>';
+
 /** A 1×1 transparent GIF: stands in for photos in the first pass (their frames have a fixed size). */
 const PLACEHOLDER_IMAGE = 'data:image/png;base64,iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAQAAAC1HAwCAAAAC0lEQVR42mNkYAAAAAYAAjCB0C8AAAAASUVORK5CYII=';
 
@@ -223,30 +243,61 @@ export interface RenderedPacket {
  */
 export async function renderPacket(
   printer: ChromiumPrinter,
-  input: Omit<PacketViewModelInput, 'pageNumbers'> & { logoDataUri?: string; planImage?: PlanImage; onBlockedRequest?: (url: string) => void },
+  input: Omit<PacketViewModelInput, 'pageNumbers'> & {
+    logoDataUri?: string;
+    planImage?: PlanImage;
+    onBlockedRequest?: (url: string) => void;
+    /** Called after each stage with its wall time, ms (the benchmark's breakdown). */
+    onStage?: (stage: 'drawings' | 'first print' | 'page numbers' | 'final print' | 'document info', ms: number) => void;
+  },
 ): Promise<RenderedPacket> {
+  let mark = performance.now();
+  const stage = (name: Parameters<NonNullable<typeof input.onStage>>[0]) => {
+    const now = performance.now();
+    input.onStage?.(name, now - mark);
+    mark = now;
+  };
   const draft = buildPacketViewModel(input);
-  const [drawings, qrSvg] = await Promise.all([drawPacketDrawings(input.snapshot, draft, input.planImage), qrCodeSvg(input.locateUrl)]);
+  const qrSvg = await qrCodeSvg(input.locateUrl);
   const footerTemplate = renderFooterTemplate(draft);
+  // The first pass only needs to know where pages break. The site plan, ties sheet and schematic each
+  // fill exactly one page of their own (sized to it: see drawPacketDrawings), so empty placeholders
+  // stand in for them and they are drawn while Chromium prints the draft; depth profiles share pages
+  // and are cheap, so the draft has their real sizes.
+  const profiles = drawPacketProfiles(input.snapshot, draft);
   const firstHtml = renderPacketHtml({
     vm: { ...draft, photos: draft.photos.map((p) => ({ ...p, dataUri: PLACEHOLDER_IMAGE })) },
-    drawings: {
-      sitePlan: emptySvgLike(drawings.sitePlan),
-      ties: emptySvgLike(drawings.ties),
-      schematic: emptySvgLike(drawings.schematic),
-      ...(drawings.orientation ? { orientation: drawings.orientation } : {}),
-      profiles: drawings.profiles.map((p) => ({ ...p, svg: emptySvgLike(p.svg) })),
-    },
+    drawings: { sitePlan: PAGE_PLACEHOLDER, ties: PAGE_PLACEHOLDER, schematic: PAGE_PLACEHOLDER, profiles: profiles.map((p) => ({ ...p, svg: emptySvgLike(p.svg) })) },
     qrSvg,
     logoDataUri: input.logoDataUri,
   });
-  const first = await readPdfLayout(await printer.print({ html: firstHtml, footerTemplate, isDraft: true, onBlockedRequest: input.onBlockedRequest }));
-  const pageNumbers = Object.fromEntries(draft.toc.map((entry) => [entry.id, first.destinations.get(entry.id)]).filter(([, page]) => page !== undefined));
-  const vm = buildPacketViewModel({ ...input, pageNumbers });
-  const html = renderPacketHtml({ vm, drawings, qrSvg, logoDataUri: input.logoDataUri });
-  const printed = await printer.print({ html, footerTemplate, onBlockedRequest: input.onBlockedRequest });
-  const pdf = await withDocumentInfo(printed, packetDocumentInfo(vm, input.snapshot), input.snapshot.issuedAt);
-  return { pdf, pageCount: (await readPdfLayout(pdf)).pageCount, html, drawings };
+  const firstPrint = printer.print({ html: firstHtml, footerTemplate, isDraft: true, onBlockedRequest: input.onBlockedRequest });
+  // A rejected draft is awaited below; until then keep it from counting as unhandled.
+  firstPrint.catch(() => undefined);
+  await new Promise((resolve) => setImmediate(resolve));
+  const drawings = { ...(await drawPacketDrawings(input.snapshot, draft, input.planImage, { withProfiles: false })), profiles };
+  stage('drawings');
+  const first = await readPdfLayout(await firstPrint);
+  stage('first print');
+  const numbersFrom = (layout: { destinations: Map<string, number> }) =>
+    Object.fromEntries(draft.toc.map((entry) => [entry.id, layout.destinations.get(entry.id)]).filter(([, page]) => page !== undefined)) as Record<string, number>;
+  let pageNumbers = numbersFrom(first);
+  stage('page numbers');
+  for (let attempt = 0; ; attempt += 1) {
+    const vm = buildPacketViewModel({ ...input, pageNumbers });
+    const html = renderPacketHtml({ vm, drawings, qrSvg, logoDataUri: input.logoDataUri });
+    const printed = await printer.print({ html, footerTemplate, onBlockedRequest: input.onBlockedRequest });
+    stage('final print');
+    const pdf = await withDocumentInfo(printed, packetDocumentInfo(vm, input.snapshot), input.snapshot.issuedAt);
+    const layout = await readPdfLayout(pdf);
+    stage('document info');
+    // Should a drawing have taken more than its page after all, the contents are printed again with
+    // the pages the final print has (once: the contents page's layout is fixed, so it cannot move).
+    const printedNumbers = numbersFrom(layout);
+    const isRight = Object.entries(printedNumbers).every(([id, page]) => pageNumbers[id] === page);
+    if (isRight || attempt >= 1) return { pdf, pageCount: layout.pageCount, html, drawings };
+    pageNumbers = printedNumbers;
+  }
 }
 
 /** The PDF's document information: what a file browser or PDF reader shows before anyone opens it. */
