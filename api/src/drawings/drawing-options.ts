@@ -35,7 +35,7 @@ export interface PlanImage {
 
 /** Which layers of the site plan are drawn. All default to on. */
 export interface SitePlanLayers {
-  /** Reference points and the ties taped from them (as dimension lines). */
+  /** Reference points and the accuracy circles of positions solved from ties (the ties are on the ties sheet). */
   referencePoints: boolean;
   /** Item, run, reference-point and tie labels. */
   labels: boolean;

@@ -25,7 +25,7 @@ const LAYER_KEYS: Record<SitePlanLayerName, keyof SitePlanLayers> = {
 };
 
 export const SITE_PLAN_LAYER_LABELS: Record<SitePlanLayerName, string> = {
-  'reference-points': 'Reference points, ties and accuracy',
+  'reference-points': 'Reference points and accuracy',
   labels: 'Labels',
   depths: 'Depths',
   'spare-and-abandoned': 'Spare and abandoned runs',

@@ -53,7 +53,9 @@ describe('JobDrawings', () => {
     const plan = await drawing('Site plan');
     for (const item of DEMO_AS_BUILT.items) expect(plan.textContent).toContain(item.label);
     expect(plan.querySelector('svg')?.getAttribute('data-drawing')).toBe('site-plan');
-    expect(plan.textContent).toMatch(/\d+\.\d+ m/);
+    // Depths in the chosen units (the tie distances are on the ties sheet now).
+    expect(plan.textContent).toMatch(/min depth \d+(\.\d)? cm/);
+    expect(plan.textContent).not.toMatch(/\d+ (ft|in)\b/);
     expect(plan.querySelector('image')).toBeNull();
 
     const schematic = await drawing('Wiring schematic');
@@ -73,7 +75,7 @@ describe('JobDrawings', () => {
 
     await user.click(screen.getByRole('switch', { name: 'Labels' }));
     await waitFor(() => expect(screen.getByRole('img', { name: 'Site plan' }).querySelectorAll('[data-label-for]').length).toBe(0));
-    await user.click(screen.getByRole('switch', { name: 'Reference points, ties and accuracy' }));
+    await user.click(screen.getByRole('switch', { name: 'Reference points and accuracy' }));
     await waitFor(() => expect(screen.getByRole('img', { name: 'Site plan' }).querySelectorAll('[data-kind="reference_point"]').length).toBe(0));
     expect(screen.getByRole('img', { name: 'Site plan' }).querySelectorAll('[data-accuracy-for]').length).toBe(0);
 
