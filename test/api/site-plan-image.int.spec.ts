@@ -330,11 +330,13 @@ describe('site-plan image and job drawings', () => {
       for (const item of DEMO_AS_BUILT.items) expect(text).toContain(item.label);
       expect(doc.documentElement.getAttribute('width')).toBe('7.5in');
       expect(doc.querySelector('image')).toBeNull();
-      expect(text).toMatch(/\d+\.\d+ m/);
+      expect(text).toMatch(/min depth \d+(\.\d)? cm/);
 
       const a4 = parseSvg((await svgOf('office', `/api/jobs/${jobId}/drawings/site-plan.svg?paper=a4&units=imperial`)).body as string);
       expect(a4.documentElement.getAttribute('width')).toMatch(/mm$/);
-      expect(textOf(a4)).toMatch(/\d+'-\d+"/);
+      // Depths to 1/8 in, never the drafter's 26'-3" (one style of feet and inches everywhere).
+      expect(textOf(a4)).toMatch(/min depth \d+( \d\/\d)? in/);
+      expect(textOf(a4)).not.toMatch(/\d+'-\d+"/);
     });
 
     it('should turn layers off, and answer 400 naming `layers` for an unknown one', async () => {
