@@ -42,8 +42,8 @@ describe('query cache kept on the device (issue 17)', () => {
     resetSession();
   });
 
-  it('should keep the field work (jobs, photo lists, settings) and nothing else, never failed queries or original photos', () => {
-    const ok = (queryKey: unknown[]) => ({ queryKey, state: { status: 'success' } });
+  it('should keep the field work (jobs, photo lists, settings) and nothing else, never queries without data or original photos', () => {
+    const ok = (queryKey: unknown[]) => ({ queryKey, state: { data: { any: 'data' } } });
     expect(shouldPersistQuery(ok(JOB_KEY))).toBe(true);
     expect(shouldPersistQuery(ok(['jobs', 'list', {}]))).toBe(true);
     expect(shouldPersistQuery(ok(['photos', 'list', 'job-1']))).toBe(true);
@@ -53,7 +53,7 @@ describe('query cache kept on the device (issue 17)', () => {
     for (const key of [['outbox', 'list', { page: 1 }], ['users', 'list'], ['customers', 'list', {}], ['portal', 'sites'], ['locate', 't']]) {
       expect(shouldPersistQuery(ok(key)), JSON.stringify(key)).toBe(false);
     }
-    expect(shouldPersistQuery({ queryKey: JOB_KEY, state: { status: 'error' } })).toBe(false);
+    expect(shouldPersistQuery({ queryKey: JOB_KEY, state: { data: undefined } })).toBe(false);
   });
 
   it('should save the signed-in lead’s jobs under their id, restore them into a new tab, and wipe them on sign-out', async () => {

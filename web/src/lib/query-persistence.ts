@@ -1,4 +1,4 @@
-import { dehydrate, type QueryClient } from '@tanstack/react-query';
+import { dehydrate, type DehydratedState, type QueryClient } from '@tanstack/react-query';
 import { persistQueryClientRestore, type PersistedClient, type Persister } from '@tanstack/react-query-persist-client';
 import { createStore, del, get, set, type UseStore } from 'idb-keyval';
 
@@ -29,13 +29,29 @@ let store: UseStore | undefined;
 const cacheStore = () => (store ??= createStore('loamline-cache', 'queries'));
 
 /** Whether `query` is kept on the device (see above). */
-export function shouldPersistQuery(query: { queryKey: readonly unknown[]; state: { status: string } }): boolean {
-  if (query.state.status !== 'success') return false;
+export function shouldPersistQuery(query: { queryKey: readonly unknown[]; state: { data?: unknown } }): boolean {
+  // Any query with data: a refetch that failed with no signal keeps the data it had (status 'error').
+  if (query.state.data === undefined) return false;
   const [root, kind, , variant] = query.queryKey;
   if (!PERSISTED_ROOTS.includes(root as (typeof PERSISTED_ROOTS)[number])) return false;
   // Original photos are large and rarely opened on site; the lists and small derivatives are enough.
   if (root === 'photos' && kind === 'file' && variant === 'original') return false;
   return true;
+}
+
+/**
+ * The kept copy of a query whose last refetch failed (no signal) is its data, as it was when it last
+ * arrived: the failure is not kept, so the next start shows the data and refetches as usual.
+ */
+function withoutFailures(state: DehydratedState): DehydratedState {
+  return {
+    ...state,
+    queries: state.queries.map((query) =>
+      query.state.status === 'error'
+        ? { ...query, state: { ...query.state, status: 'success', error: null, fetchFailureReason: null, fetchFailureCount: 0 } }
+        : query,
+    ),
+  };
 }
 
 /** `buster` of the copy saved for `userId`: a copy saved for anyone else does not restore. */
@@ -83,7 +99,7 @@ export async function startQueryPersistence(queryClient: QueryClient, given?: Pe
     const client: PersistedClient = {
       timestamp: Date.now(),
       buster: busterFor(state.session.user.id),
-      clientState: dehydrate(queryClient, { shouldDehydrateQuery: shouldPersistQuery, shouldDehydrateMutation: () => false }),
+      clientState: withoutFailures(dehydrate(queryClient, { shouldDehydrateQuery: shouldPersistQuery, shouldDehydrateMutation: () => false })),
     };
     // A sign-out between the snapshot and now wins: nothing is written after the wipe.
     if (mine === generation) void Promise.resolve(persister.persistClient(client)).catch(() => undefined);
