@@ -32,7 +32,7 @@ describe('customers and sites', () => {
       const created = await office.expectOk('post', '/api/customers', { name: 'Wrenna Moorcastle', email: 'Wrenna@Example.net', phone: '+1 (555) 010-0199' });
       expect(created).toMatchObject({ name: 'Wrenna Moorcastle', email: 'wrenna@example.net' });
       expect(await lead.expectOk('get', `/api/customers/${created.id}`)).toEqual(created);
-      expect((await lead.expectOk('get', '/api/customers?q=moorcastle')).map((c: { id: string }) => c.id)).toEqual([created.id]);
+      expect((await lead.expectOk('get', '/api/customers?q=moorcastle')).items.map((c: { id: string }) => c.id)).toEqual([created.id]);
       const updated = await office.expectOk('patch', `/api/customers/${created.id}`, { notes: 'Prefers texts' });
       expect(updated.notes).toBe('Prefers texts');
       expect((await office.send('delete', `/api/customers/${created.id}`)).status).toBe(204);
@@ -47,7 +47,7 @@ describe('customers and sites', () => {
       expect((await otherAdmin.send('get', `/api/customers/${customerId}`)).status).toBe(404);
       expect((await otherAdmin.send('patch', `/api/customers/${customerId}`, { name: 'Mine' })).status).toBe(404);
       expect((await otherAdmin.send('delete', `/api/customers/${customerId}`)).status).toBe(404);
-      expect((await otherAdmin.expectOk('get', '/api/customers')).some((c: { id: string }) => c.id === customerId)).toBe(false);
+      expect((await otherAdmin.expectOk('get', '/api/customers')).items.some((c: { id: string }) => c.id === customerId)).toBe(false);
       const res = await office.send('delete', `/api/customers/${customerId}`);
       expect(res.status).toBe(409);
       expect(res.body.code).toBe('CUSTOMER_HAS_SITES');
@@ -81,7 +81,7 @@ describe('customers and sites', () => {
       });
       const updated = await office.expectOk('patch', `/api/sites/${site.id}`, { origin: null, planCalibration: null }, { 'If-Match': '"1"' });
       expect(updated).toMatchObject({ origin: null, planCalibration: null, version: 2, siteVersion: 2, jobVersions: {} });
-      expect((await lead.expectOk('get', `/api/sites?customerId=${customer.id}`)).map((s: { id: string }) => s.id)).toEqual([site.id]);
+      expect((await lead.expectOk('get', `/api/sites?customerId=${customer.id}`)).items.map((s: { id: string }) => s.id)).toEqual([site.id]);
     });
 
     it('should answer 400 naming the field', async () => {
@@ -139,6 +139,53 @@ describe('customers and sites', () => {
       expect((await otherAdmin.send('delete', `/api/sites/${siteId}`)).status).toBe(404);
       expect((await office.send('delete', `/api/sites/${siteId}`)).status).toBe(204);
       expect((await office.send('get', `/api/sites/${siteId}`)).status).toBe(404);
+    });
+  });
+
+  describe('pages (customers, sites and users share the jobs list shape)', () => {
+    it('should page every match with its total, nothing cut off, in name order', async () => {
+      // A company of its own: its lists hold exactly what this test makes (fixture users: 5 roles).
+      const c = await createCompany('Paging C');
+      const admin = apiAs(app, await signIn(app, c.users.admin));
+      const sites: string[] = [];
+      for (let i = 0; i < 3; i += 1) sites.push((await createSite(admin)).siteId);
+
+      const customers1 = await admin.expectOk('get', '/api/customers?pageSize=2');
+      expect(customers1).toMatchObject({ total: 3, page: 1, pageSize: 2 });
+      expect(customers1.items).toHaveLength(2);
+      const customers2 = await admin.expectOk('get', '/api/customers?pageSize=2&page=2');
+      expect(customers2).toMatchObject({ total: 3, page: 2, pageSize: 2 });
+      expect(customers2.items).toHaveLength(1);
+      const names = [...customers1.items, ...customers2.items].map((x: { name: string }) => x.name);
+      expect(names).toEqual([...names].sort((x, y) => x.localeCompare(y)));
+      expect((await admin.expectOk('get', '/api/customers?pageSize=2&page=3')).items).toEqual([]);
+
+      const sites1 = await admin.expectOk('get', '/api/sites?pageSize=2');
+      const sites2 = await admin.expectOk('get', '/api/sites?pageSize=2&page=2');
+      expect(sites1).toMatchObject({ total: 3, page: 1, pageSize: 2 });
+      expect([...sites1.items, ...sites2.items].map((x: { id: string }) => x.id).sort()).toEqual([...sites].sort());
+
+      const users = await admin.expectOk('get', '/api/users?pageSize=3');
+      expect(users).toMatchObject({ total: 5, page: 1, pageSize: 3 });
+      expect(users.items).toHaveLength(3);
+      expect((await admin.expectOk('get', '/api/users')).pageSize).toBe(25);
+    });
+
+    it('should refuse bad page parameters with 400 naming the field', async () => {
+      for (const path of ['/api/customers', '/api/sites', '/api/users']) {
+        for (const [query, field] of [
+          ['page=0', 'page'],
+          ['page=two', 'page'],
+          ['pageSize=101', 'pageSize'],
+          ['pageSize=0', 'pageSize'],
+          ['pageSize=1.5', 'pageSize'],
+        ] as const) {
+          const res = await office.send('get', `${path}?${query}`);
+          expect(res.status, `${path}?${query}`).toBe(400);
+          expect(res.body.issues.map((i: { path: string }) => i.path), `${path}?${query}`).toContain(field);
+          expect(res.body.message).toContain(field);
+        }
+      }
     });
   });
 });

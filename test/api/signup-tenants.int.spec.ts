@@ -62,7 +62,7 @@ describe('tenant isolation through sign-up and invitations', () => {
   it('should give each company its own admin and every role, all signed in through e-mailed links', async () => {
     for (const tenant of tenants) {
       const users = await http().get('/api/users').set(bearer(tenant.sessions.admin)).expect(200);
-      const roles = (users.body as { role: Role }[]).map((u) => u.role).sort();
+      const roles = (users.body.items as { role: Role }[]).map((u) => u.role).sort();
       expect(roles).toEqual(['admin', 'homeowner', 'lead', 'office', 'tech']);
       for (const role of INVITED) {
         const me = await http().get('/api/auth/me').set(bearer(tenant.sessions[role])).expect(200);

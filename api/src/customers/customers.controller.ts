@@ -1,5 +1,5 @@
 import { Body, Controller, Delete, Get, HttpCode, HttpStatus, Param, ParseUUIDPipe, Patch, Post, Query } from '@nestjs/common';
-import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
 
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
@@ -13,6 +13,7 @@ import {
   type UpdateCustomerInput,
   UpdateCustomerSchema,
 } from '../domain/customers/customer.schema.js';
+import type { Page } from '../domain/paging/page.schema.js';
 import { CustomersService } from './customers.service.js';
 
 /** Staff read customers (crews see whom they work for); the office creates and changes them. */
@@ -24,8 +25,9 @@ export class CustomersController {
   constructor(private readonly customersService: CustomersService) {}
 
   @Get()
-  list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(CustomerListQuerySchema)) query: CustomerListQuery): Promise<CustomerResponse[]> {
-    return this.customersService.list(user, query.q);
+  @ApiOperation({ summary: 'The company’s customers by name, a page at a time', description: '`q` searches name and e-mail; `page` from 1, `pageSize` up to 100 (default 25).' })
+  list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(CustomerListQuerySchema)) query: CustomerListQuery): Promise<Page<CustomerResponse>> {
+    return this.customersService.list(user, query);
   }
 
   @Post()

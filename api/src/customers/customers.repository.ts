@@ -1,8 +1,9 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, asc, eq, ilike, or } from 'drizzle-orm';
+import { and, asc, count, eq, ilike, or } from 'drizzle-orm';
 
 import { DB, type Db, type Tx } from '../db/db.module.js';
 import { type Customer, customers, type NewCustomer } from '../db/schema/index.js';
+import { type PageQuery, pageOffset } from '../domain/paging/page.schema.js';
 
 function likePattern(q: string): string {
   return `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
@@ -17,14 +18,15 @@ export class CustomersRepository {
     return this.db.transaction(work);
   }
 
-  list(companyId: string, q: string | undefined): Promise<Customer[]> {
+  /** One page of the company's customers matching `q`, and how many match in all. */
+  async list(companyId: string, q: string | undefined, page: PageQuery): Promise<{ rows: Customer[]; total: number }> {
     const search = q ? or(ilike(customers.name, likePattern(q)), ilike(customers.email, likePattern(q))) : undefined;
-    return this.db
-      .select()
-      .from(customers)
-      .where(and(eq(customers.companyId, companyId), search))
-      .orderBy(asc(customers.name), asc(customers.id))
-      .limit(500);
+    const where = and(eq(customers.companyId, companyId), search);
+    const [rows, [counted]] = await Promise.all([
+      this.db.select().from(customers).where(where).orderBy(asc(customers.name), asc(customers.id)).limit(page.pageSize).offset(pageOffset(page)),
+      this.db.select({ n: count() }).from(customers).where(where),
+    ]);
+    return { rows, total: counted?.n ?? 0 };
   }
 
   async findInCompany(companyId: string, id: string): Promise<Customer | undefined> {

@@ -4,7 +4,8 @@ import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { isForeignKeyViolation } from '../common/db-errors.js';
 import type { Customer } from '../db/schema/index.js';
-import type { CreateCustomerInput, CustomerResponse, UpdateCustomerInput } from '../domain/customers/customer.schema.js';
+import type { CreateCustomerInput, CustomerListQuery, CustomerResponse, UpdateCustomerInput } from '../domain/customers/customer.schema.js';
+import { type Page, pageOf } from '../domain/paging/page.schema.js';
 import { CustomersRepository } from './customers.repository.js';
 
 function toCustomerResponse(row: Customer): CustomerResponse {
@@ -28,8 +29,9 @@ export class CustomersService {
     private readonly audit: AuditService,
   ) {}
 
-  async list(actor: AuthUser, q: string | undefined): Promise<CustomerResponse[]> {
-    return (await this.repository.list(actor.companyId, q)).map(toCustomerResponse);
+  async list(actor: AuthUser, query: CustomerListQuery): Promise<Page<CustomerResponse>> {
+    const { rows, total } = await this.repository.list(actor.companyId, query.q, query);
+    return pageOf(rows.map(toCustomerResponse), total, query);
   }
 
   async get(actor: AuthUser, id: string): Promise<CustomerResponse> {

@@ -24,6 +24,7 @@ import {
   type UpdateSiteInput,
   UpdateSiteSchema,
 } from '../domain/sites/site.schema.js';
+import type { Page } from '../domain/paging/page.schema.js';
 import type { SiteVersionResponse } from '../domain/sites/site-rules.js';
 import { ApiSiteVersion } from './api-site-version.decorator.js';
 import { SitesService } from './sites.service.js';
@@ -43,7 +44,8 @@ export class SitesController {
   constructor(private readonly sitesService: SitesService) {}
 
   @Get()
-  list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(SiteListQuerySchema)) query: SiteListQuery): Promise<SiteSummaryResponse[]> {
+  @ApiOperation({ summary: 'The company’s sites by label, a page at a time', description: '`q` searches label, address, city and customer; `customerId` keeps one customer’s; `page` from 1, `pageSize` up to 100 (default 25).' })
+  list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(SiteListQuerySchema)) query: SiteListQuery): Promise<Page<SiteSummaryResponse>> {
     return this.sitesService.list(user, query);
   }
 

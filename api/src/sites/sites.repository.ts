@@ -1,7 +1,8 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, asc, desc, eq, ilike, inArray, or, type SQL, sql } from 'drizzle-orm';
+import { and, asc, count, desc, eq, ilike, inArray, or, type SQL, sql } from 'drizzle-orm';
 
 import { DB, type Db, type Tx } from '../db/db.module.js';
+import { type PageQuery, pageOffset } from '../domain/paging/page.schema.js';
 import {
   customers,
   jobs,
@@ -31,20 +32,30 @@ export class SitesRepository {
     return this.db.transaction(work);
   }
 
-  list(companyId: string, query: { q?: string; customerId?: string }): Promise<SiteWithCustomer[]> {
+  /** One page of the company's sites matching the query, and how many match in all. */
+  async list(companyId: string, query: { q?: string; customerId?: string } & PageQuery): Promise<{ rows: SiteWithCustomer[]; total: number }> {
     const conditions: (SQL | undefined)[] = [eq(sites.companyId, companyId)];
     if (query.customerId) conditions.push(eq(sites.customerId, query.customerId));
     if (query.q) {
       const p = likePattern(query.q);
       conditions.push(or(ilike(sites.label, p), ilike(sites.addressLine1, p), ilike(sites.city, p), ilike(customers.name, p)));
     }
-    return this.db
-      .select({ site: sites, customer: { id: customers.id, name: customers.name } })
-      .from(sites)
-      .innerJoin(customers, eq(customers.id, sites.customerId))
-      .where(and(...conditions))
-      .orderBy(asc(sites.label), asc(sites.id))
-      .limit(500);
+    const [rows, [counted]] = await Promise.all([
+      this.db
+        .select({ site: sites, customer: { id: customers.id, name: customers.name } })
+        .from(sites)
+        .innerJoin(customers, eq(customers.id, sites.customerId))
+        .where(and(...conditions))
+        .orderBy(asc(sites.label), asc(sites.id))
+        .limit(query.pageSize)
+        .offset(pageOffset(query)),
+      this.db
+        .select({ n: count() })
+        .from(sites)
+        .innerJoin(customers, eq(customers.id, sites.customerId))
+        .where(and(...conditions)),
+    ]);
+    return { rows, total: counted?.n ?? 0 };
   }
 
   async findInCompany(companyId: string, id: string, tx?: Tx): Promise<SiteWithCustomer | undefined> {

@@ -5,6 +5,7 @@ import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { isForeignKeyViolation } from '../common/db-errors.js';
 import type { Tx } from '../db/db.module.js';
 import type { NewSite, ReferencePointRow, Site } from '../db/schema/index.js';
+import { type Page, pageOf } from '../domain/paging/page.schema.js';
 import type { SiteVersionResponse, SiteWriteKind } from '../domain/sites/site-rules.js';
 import type {
   CreateReferencePointInput,
@@ -97,8 +98,9 @@ export class SitesService {
     private readonly writer: SiteWriter,
   ) {}
 
-  async list(actor: AuthUser, query: SiteListQuery): Promise<SiteSummaryResponse[]> {
-    return (await this.repository.list(actor.companyId, query)).map(toSiteSummary);
+  async list(actor: AuthUser, query: SiteListQuery): Promise<Page<SiteSummaryResponse>> {
+    const { rows, total } = await this.repository.list(actor.companyId, query);
+    return pageOf(rows.map(toSiteSummary), total, query);
   }
 
   async get(actor: AuthUser, id: string, tx?: Tx): Promise<SiteResponse> {

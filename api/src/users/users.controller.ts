@@ -1,10 +1,17 @@
-import { Body, Controller, Get, Param, ParseUUIDPipe, Patch } from '@nestjs/common';
-import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { Body, Controller, Get, Param, ParseUUIDPipe, Patch, Query } from '@nestjs/common';
+import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
 
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
-import { type UpdateUserInput, UpdateUserSchema, type UserResponse } from '../domain/auth/auth.schema.js';
+import {
+  type UpdateUserInput,
+  UpdateUserSchema,
+  type UserListQuery,
+  UserListQuerySchema,
+  type UserListResponse,
+  type UserResponse,
+} from '../domain/auth/auth.schema.js';
 import { UsersService } from './users.service.js';
 
 @ApiTags('users')
@@ -15,8 +22,9 @@ export class UsersController {
 
   @Get()
   @Roles('admin', 'office')
-  list(@CurrentUser() user: AuthUser): Promise<UserResponse[]> {
-    return this.usersService.list(user);
+  @ApiOperation({ summary: 'The company’s people by name, a page at a time', description: '`page` from 1, `pageSize` up to 100 (default 25).' })
+  list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(UserListQuerySchema)) query: UserListQuery): Promise<UserListResponse> {
+    return this.usersService.list(user, query);
   }
 
   @Patch(':id')

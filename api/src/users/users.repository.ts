@@ -1,16 +1,22 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, asc, eq, gt, isNull } from 'drizzle-orm';
+import { and, asc, count, eq, gt, isNull } from 'drizzle-orm';
 
 import { DB, type Db, type Tx } from '../db/db.module.js';
 import { companies, invitationSites, invitations, type NewUser, refreshSessions, type User, users } from '../db/schema/index.js';
+import { type PageQuery, pageOffset } from '../domain/paging/page.schema.js';
 
 /** Every method takes the company id from the signed-in user: nothing here crosses companies. */
 @Injectable()
 export class UsersRepository {
   constructor(@Inject(DB) private readonly db: Db) {}
 
-  listByCompany(companyId: string): Promise<User[]> {
-    return this.db.select().from(users).where(eq(users.companyId, companyId)).orderBy(asc(users.name));
+  /** One page of the company's people by name, and how many there are in all. */
+  async listByCompany(companyId: string, page: PageQuery): Promise<{ rows: User[]; total: number }> {
+    const [rows, [counted]] = await Promise.all([
+      this.db.select().from(users).where(eq(users.companyId, companyId)).orderBy(asc(users.name), asc(users.id)).limit(page.pageSize).offset(pageOffset(page)),
+      this.db.select({ n: count() }).from(users).where(eq(users.companyId, companyId)),
+    ]);
+    return { rows, total: counted?.n ?? 0 };
   }
 
   async findInCompany(companyId: string, id: string): Promise<User | undefined> {

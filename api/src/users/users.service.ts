@@ -8,9 +8,12 @@ import type {
   CreateInvitationInput,
   InvitationResponse,
   UpdateUserInput,
+  UserListQuery,
+  UserListResponse,
   UserResponse,
 } from '../domain/auth/auth.schema.js';
 import { canInvite, canManageUser, ROLE_LABELS } from '../domain/auth/roles.js';
+import { pageOf } from '../domain/paging/page.schema.js';
 import type { Invitation, OutgoingMailRow, User } from '../db/schema/index.js';
 import { OutgoingMailService } from '../outgoing-mail/outgoing-mail.service.js';
 import { UsersRepository } from './users.repository.js';
@@ -56,8 +59,9 @@ export class UsersService {
     private readonly config: ConfigService<Env, true>,
   ) {}
 
-  async list(actor: AuthUser): Promise<UserResponse[]> {
-    return (await this.repository.listByCompany(actor.companyId)).map(toUserResponse);
+  async list(actor: AuthUser, query: UserListQuery): Promise<UserListResponse> {
+    const { rows, total } = await this.repository.listByCompany(actor.companyId, query);
+    return pageOf(rows.map(toUserResponse), total, query);
   }
 
   async update(actor: AuthUser, id: string, input: UpdateUserInput): Promise<UserResponse> {

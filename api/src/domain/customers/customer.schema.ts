@@ -1,5 +1,7 @@
 import { z } from 'zod';
 
+import { PageQuerySchema } from '../paging/page.schema.js';
+
 const NameSchema = z.string().trim().min(1, { error: 'is required' }).max(120);
 const OptionalEmailSchema = z
   .string()
@@ -29,7 +31,8 @@ export const UpdateCustomerSchema = CreateCustomerSchema.partial().refine((v) =>
 });
 export type UpdateCustomerInput = z.infer<typeof UpdateCustomerSchema>;
 
-export const CustomerListQuerySchema = z.object({ q: z.string().trim().max(120).optional() });
+/** `GET /api/customers`: `q` searches name and e-mail; a page at a time (`page`, `pageSize`). */
+export const CustomerListQuerySchema = z.object({ q: z.string().trim().max(120).optional(), ...PageQuerySchema.shape });
 export type CustomerListQuery = z.infer<typeof CustomerListQuerySchema>;
 
 export interface CustomerResponse {

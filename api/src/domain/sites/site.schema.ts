@@ -1,6 +1,7 @@
 import { z } from 'zod';
 
 import { LabelSchema, PlanCoordinateSchema } from '../as-built/common.schema.js';
+import { PageQuerySchema } from '../paging/page.schema.js';
 
 const Text120 = z.string().trim().max(120);
 const Required120 = z.string().trim().min(1, { error: 'is required' }).max(120);
@@ -50,9 +51,11 @@ export const UpdateSiteSchema = z
   .refine((v) => Object.keys(v).length > 0, { error: 'nothing to change' });
 export type UpdateSiteInput = z.infer<typeof UpdateSiteSchema>;
 
+/** `GET /api/sites`: `q` searches label, address, city and customer; `customerId` keeps one customer's; a page at a time. */
 export const SiteListQuerySchema = z.object({
   q: z.string().trim().max(120).optional(),
   customerId: z.uuid().optional(),
+  ...PageQuerySchema.shape,
 });
 export type SiteListQuery = z.infer<typeof SiteListQuerySchema>;
 

@@ -6,6 +6,7 @@ import { Link, useNavigate, type LoaderFunctionArgs } from 'react-router';
 import { STAFF_ROLES } from '@domain/auth/roles';
 
 import { RouteErrorPage } from '../../../components/errors/route-error-page';
+import { Pager } from '../../../components/pager';
 import { PageHeader } from '../../../components/page-header';
 import { paths } from '../../../config/paths';
 import { requireRole } from '../../../features/auth/utils/require-user';
@@ -47,7 +48,8 @@ export default function CustomersRoute() {
   const user = useSessionUser();
   const navigate = useNavigate();
   const [q, setQ] = useState('');
-  const customers = useCustomers({ q: q.trim() });
+  const [page, setPage] = useState(1);
+  const customers = useCustomers({ q: q.trim(), page });
   const isOffice = user?.role === 'admin' || user?.role === 'office';
 
   return (
@@ -57,26 +59,38 @@ export default function CustomersRoute() {
         description="The people Loamline records work for, and their sites."
         actions={isOffice ? <CustomerDialog onSaved={(customer) => void navigate(paths.customer.getHref(customer.id))} /> : undefined}
       />
-      <SearchBox className={styles.search} placeholder="Search by name" aria-label="Search customers" value={q} onChange={(_e, d) => setQ(d.value)} />
+      <SearchBox
+        className={styles.search}
+        placeholder="Search by name"
+        aria-label="Search customers"
+        value={q}
+        onChange={(_e, d) => {
+          setQ(d.value);
+          setPage(1);
+        }}
+      />
       {customers.data ? (
-        customers.data.length === 0 ? (
+        customers.data.total === 0 ? (
           <Text>No customers {q ? 'match this search' : 'yet'}.</Text>
         ) : (
-          <ul className={styles.list} aria-label="Customers">
-            {customers.data.map((customer) => (
-              <li key={customer.id}>
-                <Link to={paths.customer.getHref(customer.id)} className={styles.card}>
-                  <span className={styles.main}>
-                    <Text weight="semibold" size={400}>
-                      {customer.name}
-                    </Text>
-                    <Text className={styles.muted}>{[customer.email, customer.phone].filter(Boolean).join(' · ') || 'No contact details'}</Text>
-                  </span>
-                  <ChevronRight20Regular aria-hidden />
-                </Link>
-              </li>
-            ))}
-          </ul>
+          <>
+            <ul className={styles.list} aria-label="Customers">
+              {customers.data.items.map((customer) => (
+                <li key={customer.id}>
+                  <Link to={paths.customer.getHref(customer.id)} className={styles.card}>
+                    <span className={styles.main}>
+                      <Text weight="semibold" size={400}>
+                        {customer.name}
+                      </Text>
+                      <Text className={styles.muted}>{[customer.email, customer.phone].filter(Boolean).join(' · ') || 'No contact details'}</Text>
+                    </span>
+                    <ChevronRight20Regular aria-hidden />
+                  </Link>
+                </li>
+              ))}
+            </ul>
+            <Pager page={customers.data.page} pageSize={customers.data.pageSize} total={customers.data.total} noun="customers" onPageChange={setPage} />
+          </>
         )
       ) : (
         <Spinner label="Loading customers…" />

@@ -1,7 +1,7 @@
 import { screen } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 
-import { buildSessionResponse, buildSessionUser } from '../../../testing/data';
+import { buildSessionResponse, buildSessionUser, buildPage } from '../../../testing/data';
 import { apiErrorResponse, mockApi } from '../../../testing/mock-api';
 import { jsonResponse, renderApp } from '../../../testing/render-app';
 
@@ -61,7 +61,7 @@ describe('SignInForm', () => {
   it('should sign in and go on to the page in `next`', async () => {
     const fetchMock = mockApi({
       'POST /api/auth/sign-in': () => jsonResponse(buildSessionResponse(office, 'fresh-token')),
-      'GET /api/users': () => jsonResponse([]),
+      'GET /api/users?page=1&pageSize=100': () => jsonResponse(buildPage([])),
       'GET /api/invitations': () => jsonResponse([]),
       'GET /api/signup/status': () => jsonResponse(signupStatus),
       'GET /api/outbox/status': () => jsonResponse({ captured: true, destination: null }),
@@ -79,7 +79,7 @@ describe('SignInForm', () => {
       email: 'office@fernhollow.example',
       password: 'correct horse battery',
     });
-    const usersCall = fetchMock.mock.calls.find(([url]) => url === '/api/users');
+    const usersCall = fetchMock.mock.calls.find(([url]) => String(url).startsWith('/api/users?'));
     expect(new Headers(usersCall?.[1]?.headers).get('Authorization')).toBe('Bearer fresh-token');
     expect(screen.getByRole('button', { name: `Account: ${office.name}` })).toBeInTheDocument();
   }, 40_000);

@@ -1,23 +1,28 @@
-import { queryOptions, useQuery } from '@tanstack/react-query';
+import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { CustomerResponse } from '@domain/customers/customer.schema';
 
 import { apiRequest } from '../../../lib/api-client';
+import { type Page, pageQuery } from '../../../lib/pages';
 import { responseOf } from '../../../lib/response';
 
 export type { CustomerResponse };
 
-export function getCustomers({ q }: { q?: string }, { signal }: { signal?: AbortSignal } = {}): Promise<CustomerResponse[]> {
-  const query = q ? `?${new URLSearchParams({ q })}` : '';
-  return apiRequest(`/api/customers${query}`, responseOf<CustomerResponse[]>(), { signal });
+export type CustomerListParams = { q?: string; page?: number };
+
+/** One page of the company's customers (25 a page), matching `q`. */
+export function getCustomers({ q, page = 1 }: CustomerListParams, { signal }: { signal?: AbortSignal } = {}): Promise<Page<CustomerResponse>> {
+  return apiRequest(`/api/customers${pageQuery({ q, page: page > 1 ? page : undefined })}`, responseOf<Page<CustomerResponse>>(), { signal });
 }
 
-export function getCustomersQueryOptions({ q = '' }: { q?: string } = {}) {
+export function getCustomersQueryOptions({ q = '', page = 1 }: CustomerListParams = {}) {
   return queryOptions({
-    queryKey: ['customers', 'list', { q }],
-    queryFn: ({ signal }) => getCustomers({ q }, { signal }),
+    queryKey: ['customers', 'list', { q, page }],
+    queryFn: ({ signal }) => getCustomers({ q, page }, { signal }),
+    // The page stays on screen while the next one loads.
+    placeholderData: keepPreviousData,
   });
 }
 
-export function useCustomers(params: { q?: string } = {}) {
+export function useCustomers(params: CustomerListParams = {}) {
   return useQuery(getCustomersQueryOptions(params));
 }

@@ -1,7 +1,7 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { beforeEach, describe, expect, it } from 'vitest';
 
-import { buildSessionUser, buildUserResponse } from '../../../testing/data';
+import { buildSessionUser, buildUserResponse, buildPage } from '../../../testing/data';
 import { buildAsBuilt, buildJobAsBuilt, JOB_IDS } from '../../../testing/job-data';
 import { apiErrorResponse, mockApi, type MockRequest } from '../../../testing/mock-api';
 import { jsonResponse, renderApp } from '../../../testing/render-app';
@@ -30,7 +30,7 @@ describe('JobDetailsDialog', () => {
     const patches: MockRequest[] = [];
     mockApi({
       [AS_BUILT]: () => jsonResponse(buildJobAsBuilt(buildAsBuilt())),
-      'GET /api/users': () => jsonResponse(USERS),
+      'GET /api/users?page=1&pageSize=100': () => jsonResponse(buildPage(USERS)),
       [`PATCH /api/jobs/${JOB_IDS.job}`]: (request) => {
         patches.push(request);
         return jsonResponse({ ...buildJobAsBuilt().job, version: 4 });
@@ -59,7 +59,7 @@ describe('JobDetailsDialog', () => {
     const patches: MockRequest[] = [];
     mockApi({
       [AS_BUILT]: () => jsonResponse(buildJobAsBuilt(buildAsBuilt())),
-      'GET /api/users': () => jsonResponse(USERS),
+      'GET /api/users?page=1&pageSize=100': () => jsonResponse(buildPage(USERS)),
       [`PATCH /api/jobs/${JOB_IDS.job}`]: (request) => {
         patches.push(request);
         return apiErrorResponse(400, {

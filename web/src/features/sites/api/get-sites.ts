@@ -2,18 +2,24 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { SiteSummaryResponse } from '@domain/sites/site.schema';
 
 import { apiRequest } from '../../../lib/api-client';
+import { fetchAllPages, type Page, pageQuery } from '../../../lib/pages';
 import { responseOf } from '../../../lib/response';
 
 export type { SiteSummaryResponse };
 
 export type SiteListParams = { q?: string; customerId?: string };
 
+/** One page of the company's sites matching the parameters. */
+export function getSitesPage(
+  params: SiteListParams & { page: number; pageSize: number },
+  { signal }: { signal?: AbortSignal } = {},
+): Promise<Page<SiteSummaryResponse>> {
+  return apiRequest(`/api/sites${pageQuery(params)}`, responseOf<Page<SiteSummaryResponse>>(), { signal });
+}
+
+/** Every matching site, page by page (a customer's sites; the site picker when creating a job). */
 export function getSites(params: SiteListParams, { signal }: { signal?: AbortSignal } = {}): Promise<SiteSummaryResponse[]> {
-  const search = new URLSearchParams();
-  if (params.q) search.set('q', params.q);
-  if (params.customerId) search.set('customerId', params.customerId);
-  const query = search.toString();
-  return apiRequest(`/api/sites${query ? `?${query}` : ''}`, responseOf<SiteSummaryResponse[]>(), { signal });
+  return fetchAllPages((page, pageSize) => getSitesPage({ ...params, page, pageSize }, { signal }));
 }
 
 export function getSitesQueryOptions(params: SiteListParams = {}) {

@@ -2,7 +2,7 @@ import { screen, waitFor, within } from '@testing-library/react';
 import { beforeEach, describe, expect, it } from 'vitest';
 import type { SiteResponse } from '@domain/sites/site.schema';
 
-import { buildSessionUser, buildUserResponse } from '../../../testing/data';
+import { buildSessionUser, buildUserResponse, buildPage } from '../../../testing/data';
 import { apiErrorResponse, mockApi, type MockRequest } from '../../../testing/mock-api';
 import { jsonResponse, renderApp } from '../../../testing/render-app';
 
@@ -48,7 +48,7 @@ describe('SiteHomeowners', () => {
     const links: MockRequest[] = [];
     mockApi({
       [`GET /api/sites/${SITE_ID}`]: () => jsonResponse(site),
-      'GET /api/users': () => jsonResponse([buildUserResponse('admin'), buildUserResponse('tech'), OWNER, SECOND_OWNER]),
+      'GET /api/users?page=1&pageSize=100': () => jsonResponse(buildPage([buildUserResponse('admin'), buildUserResponse('tech'), OWNER, SECOND_OWNER])),
       [`POST /api/sites/${SITE_ID}/homeowners`]: (request) => {
         links.push(request);
         site = buildSite([...site.homeowners, { id: SECOND_OWNER.id, name: SECOND_OWNER.name, email: SECOND_OWNER.email }]);
@@ -81,7 +81,7 @@ describe('SiteHomeowners', () => {
     const invites: MockRequest[] = [];
     mockApi({
       [`GET /api/sites/${SITE_ID}`]: () => jsonResponse(buildSite([])),
-      'GET /api/users': () => jsonResponse([OWNER]),
+      'GET /api/users?page=1&pageSize=100': () => jsonResponse(buildPage([OWNER])),
       [`POST /api/sites/${SITE_ID}/homeowner-invitations`]: (request) => {
         invites.push(request);
         if (invites.length === 1) {

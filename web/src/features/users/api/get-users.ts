@@ -1,13 +1,14 @@
 import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
-import { z } from 'zod';
-import { type UserResponse, UserResponseSchema } from '@domain/auth/auth.schema';
+import { type UserResponse, UserListResponseSchema } from '@domain/auth/auth.schema';
 
 import { apiRequest } from '../../../lib/api-client';
+import { fetchAllPages, pageQuery } from '../../../lib/pages';
 
 export type { UserResponse };
 
+/** Everyone in the company, page by page: the users table and the crew and homeowner pickers show all. */
 export function getUsers({ signal }: { signal?: AbortSignal } = {}): Promise<UserResponse[]> {
-  return apiRequest('/api/users', z.array(UserResponseSchema), { signal });
+  return fetchAllPages((page, pageSize) => apiRequest(`/api/users${pageQuery({ page, pageSize })}`, UserListResponseSchema, { signal }));
 }
 
 export function getUsersQueryOptions() {

@@ -2,7 +2,7 @@ import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import type { InvitationResponse } from '@domain/auth/auth.schema';
 
-import { buildSessionUser, buildUserResponse } from '../../../testing/data';
+import { buildSessionUser, buildUserResponse, buildPage } from '../../../testing/data';
 import { mockApi } from '../../../testing/mock-api';
 import { jsonResponse, renderApp } from '../../../testing/render-app';
 
@@ -20,7 +20,7 @@ const invitations = [
 
 function mockUsersPage(extra: Parameters<typeof mockApi>[0] = {}) {
   return mockApi({
-    'GET /api/users': () => jsonResponse([buildUserResponse('admin')]),
+    'GET /api/users?page=1&pageSize=100': () => jsonResponse(buildPage([buildUserResponse('admin')])),
     'GET /api/invitations': () => jsonResponse(invitations),
     'GET /api/outbox/status': () => jsonResponse({ captured: false, destination: 'smtp://mail.relay.example:587' }),
     ...extra,

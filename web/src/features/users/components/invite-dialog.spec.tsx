@@ -2,13 +2,13 @@ import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { ROLE_LABELS, type Role } from '@domain/auth/roles';
 
-import { buildSessionUser, buildUserResponse } from '../../../testing/data';
+import { buildSessionUser, buildUserResponse, buildPage } from '../../../testing/data';
 import { apiErrorResponse, mockApi } from '../../../testing/mock-api';
 import { jsonResponse, renderApp } from '../../../testing/render-app';
 
 function mockUsersPage(extra: Parameters<typeof mockApi>[0] = {}) {
   return mockApi({
-    'GET /api/users': () => jsonResponse([buildUserResponse('admin'), buildUserResponse('office')]),
+    'GET /api/users?page=1&pageSize=100': () => jsonResponse(buildPage([buildUserResponse('admin'), buildUserResponse('office')])),
     'GET /api/invitations': () => jsonResponse([]),
     'GET /api/outbox/status': () => jsonResponse({ captured: false, destination: 'smtp://mail.relay.example:587' }),
     ...extra,

@@ -1,7 +1,7 @@
 import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 
-import { buildSessionUser, buildUserResponse } from '../../../testing/data';
+import { buildSessionUser, buildUserResponse, buildPage } from '../../../testing/data';
 import { mockApi } from '../../../testing/mock-api';
 import { jsonResponse, renderApp } from '../../../testing/render-app';
 
@@ -13,7 +13,7 @@ const people = [
 
 function mockUsersPage(extra: Parameters<typeof mockApi>[0] = {}) {
   return mockApi({
-    'GET /api/users': () => jsonResponse(people),
+    'GET /api/users?page=1&pageSize=100': () => jsonResponse(buildPage(people)),
     'GET /api/invitations': () => jsonResponse([]),
     'GET /api/outbox/status': () => jsonResponse({ captured: false, destination: 'smtp://mail.relay.example:587' }),
     ...extra,
