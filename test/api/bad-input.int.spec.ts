@@ -1263,7 +1263,7 @@ describe('bad input on every write route', () => {
       const cases: [string | undefined, number[]][] = [
         [undefined, [428]],
         ...malformed.map((header): [string, number[]] => [header, [400]]),
-        [String(current + 1), [409]],
+        [String(current + 1), [412]],
       ];
       for (const [header, statuses] of cases) {
         const headers = { ...base.headers };
@@ -1279,7 +1279,7 @@ describe('bad input on every write route', () => {
         for (const version of [2 ** 31, 1e15]) {
           await expectRefused(sentFor(route, spec, base, { headers, json: { ...base.body, expectedVersion: version } }), `expectedVersion ${version} in the body`, {
             field: 'expectedVersion',
-            statuses: [409],
+            statuses: [412],
             jobId: base.jobId,
           });
         }

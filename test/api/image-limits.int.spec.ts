@@ -197,10 +197,10 @@ describe('image limits and upload concurrency', () => {
     const other = await uploadPhoto(tech, job, await strip(64, 48));
     expect(other.status, JSON.stringify(other.body)).toBe(201);
 
-    // The first upload finishes (its version is stale by now: 409); the slot is given back either way.
+    // The first upload finishes (its version is stale by now: 412); the slot is given back either way.
     slow.end(Buffer.concat([photo.subarray(10), Buffer.from(tail)]));
     const first = await slowAnswer;
-    expect([201, 409]).toContain(first.status);
+    expect([201, 412]).toContain(first.status);
     expect(slots.countOf(userId)).toBe(0);
     const version = (await as.office.expectOk('get', `/api/jobs/${job.id}`)).version as number;
     expect((await uploadPhoto(lead, { ...job, version }, await strip(64, 48))).status).toBe(201);

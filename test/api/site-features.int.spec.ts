@@ -71,7 +71,7 @@ describe('site features', () => {
     expect(kind.body.issues[0].path).toBe('kind');
 
     expect((await office.send('post', `/api/sites/${siteId}/features`, house)).status).toBe(428);
-    expect((await office.send('post', `/api/sites/${siteId}/features`, house, { 'If-Match': '"999"' })).status).toBe(409);
+    expect((await office.send('post', `/api/sites/${siteId}/features`, house, { 'If-Match': '"999"' })).status).toBe(412);
     expect((await tech.send('post', `/api/sites/${siteId}/features`, house, await ifMatch(siteId))).status).toBe(403);
     expect((await otherAdmin.send('post', `/api/sites/${siteId}/features`, house, { 'If-Match': '"1"' })).status).toBe(404);
     expect((await otherAdmin.send('get', `/api/sites/${siteId}/features`)).status).toBe(404);
