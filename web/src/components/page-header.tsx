@@ -41,7 +41,9 @@ export function PageHeader({ title, description, actions }: PageHeaderProps) {
           {title}
         </Text>
         {description && (
-          <Text as="p" block size={400} className={styles.description}>
+          // A paragraph only for plain text: a description built of elements (a badge is a <div>)
+          // would put block content inside <p>, which HTML does not allow.
+          <Text as={typeof description === 'string' ? 'p' : 'div'} block size={400} className={styles.description}>
             {description}
           </Text>
         )}
