@@ -75,6 +75,9 @@ describe('query cache kept on the device (issue 17)', () => {
     const second = createQueryClient();
     stops.push(await startQueryPersistence(second, persister));
     expect(second.getQueryData(JOB_KEY)).toEqual({ job: { version: 4 } });
+    // The kept copy may be behind the server (saved up to a second late): it is stale, so the page
+    // refetches it when it mounts, even within the client's staleTime of the save.
+    expect(second.getQueryState(JOB_KEY)?.isInvalidated).toBe(true);
     // Kept in memory as long as on disk, not five minutes.
     expect(second.getQueryCache().find({ queryKey: JOB_KEY })?.gcTime).toBe(7 * 24 * 60 * 60 * 1000);
 

@@ -84,6 +84,10 @@ export async function startQueryPersistence(queryClient: QueryClient, given?: Pe
   if (remembered) {
     try {
       await persistQueryClientRestore({ queryClient, persister, maxAge: PERSIST_MAX_AGE_MS, buster: busterFor(remembered.id) });
+      // The kept copy may be up to a save behind the server (a reload right after a change, or another
+      // device's change since): every restored query is stale, so what a page shows refetches when it
+      // mounts with a signal (the kept data shows meanwhile, and stays when there is none).
+      await queryClient.invalidateQueries({ refetchType: 'none' });
     } catch {
       // A damaged copy: start empty (persistQueryClientRestore has removed it).
     }
