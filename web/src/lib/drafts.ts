@@ -101,12 +101,17 @@ export function usePersistedDraft<T>(key: string, initial: T): {
     () => undefined,
   );
   const value = stored ?? initial;
+  // `initial` is read only while no draft exists, and callers pass a fresh object each render: keep the
+  // latest in a ref so setValue stays the same function for as long as the key does.
+  const initialRef = useRef(initial);
+  useEffect(() => {
+    initialRef.current = initial;
+  });
   const setValue = useCallback(
     (next: T | ((current: T) => T)) => {
-      const current = readDraft<T>(key) ?? initial;
+      const current = readDraft<T>(key) ?? initialRef.current;
       writeDraft(key, typeof next === 'function' ? (next as (current: T) => T)(current) : next);
     },
-    // `initial` is read only while no draft exists; a fresh object each render must not churn this.
     [key],
   );
   const clear = useCallback(() => clearDraft(key), [key]);
