@@ -231,4 +231,49 @@ describe('the site system: a later job builds on what is in the ground', () => {
     await winner.write('delete', `/site-changes/${first.liveRun}`);
     expect((await other.send('put', `/runs/${first.liveRun}`, body('Again'))).status).toBe(200);
   });
+
+  it('keeps a reopened job’s unissued record out of another job’s packet, and flags the site’s newest packet as latest', async () => {
+    // The first job is reopened for its revision 2 and adds a speaker it has not issued yet.
+    const version = (await office.expectOk('get', `/api/jobs/${first.job.id}`)).version as number;
+    let a: JobFixture = await moveJob(office, { ...first.job, version }, 'in_progress');
+    const draft = await lead.expectOk('post', `/api/jobs/${a.id}/items`, speaker('Gate speaker'), { 'If-Match': `"${a.version}"` });
+    a = { ...a, version: draft.jobVersion };
+
+    // Meanwhile another job is issued: its frozen system and What changed hold only what is issued or its own.
+    const g = await openJob('Hedge lights');
+    const hedge = (await g.write('post', '/items', speaker('Hedge speaker'))).item.id;
+    expect((await g.asBuilt()).asBuilt.items.map((i: { id: string }) => i.id)).not.toContain(draft.item.id);
+    const gIssued = await issue(g.job());
+    const gSnapshot = await withDb(async (db) => (await db.query(`select snapshot from packet_revisions where id = $1`, [gIssued.id])).rows[0].snapshot);
+    expect(gSnapshot.asBuilt.items.map((i: { id: string }) => i.id)).not.toContain(draft.item.id);
+    expect(gSnapshot.whatChanged.added.map((r: { id: string }) => r.id)).toEqual([hedge]);
+
+    // The first job's revision 2 supersedes that packet and adds its speaker, on its own work date.
+    const aIssued = await issue(a);
+    const aSnapshot = await withDb(async (db) => (await db.query(`select snapshot from packet_revisions where id = $1`, [aIssued.id])).rows[0].snapshot);
+    expect(aSnapshot.whatChanged.supersedes).toMatchObject({ revisionId: gIssued.id, jobTitle: 'Hedge lights' });
+    expect(aSnapshot.whatChanged.added.map((r: { id: string; jobTitle: string }) => `${r.id} ${r.jobTitle}`)).toEqual([`${draft.item.id} Garden speakers`]);
+    expect(aSnapshot.asBuilt.items.map((i: { id: string }) => i.id)).toEqual(expect.arrayContaining([hedge, draft.item.id, first.speaker]));
+
+    // The portal lists every packet of the site newest first; only the newest (of any job) is latest.
+    await office.expectOk('post', `/api/sites/${siteId}/homeowners`, { userId: company.users.homeowner.id });
+    // The portal lists ready packets only; the render itself is other tests' concern, so the revisions
+    // not rendered yet are marked ready here with file keys that are never downloaded.
+    await withDb((db) =>
+      db.query(
+        `update packet_revisions set status = 'ready', pdf_key = coalesce(pdf_key, 'unrendered.pdf'), pdf_sha256 = coalesce(pdf_sha256, ''),
+           zip_key = coalesce(zip_key, 'unrendered.zip'), zip_sha256 = coalesce(zip_sha256, '')
+         where job_id in (select id from jobs where site_id = $1)`,
+        [siteId],
+      ),
+    );
+    const homeowner = apiAs(app, await signIn(app, company.users.homeowner));
+    const { packets } = await homeowner.expectOk('get', `/api/portal/sites/${siteId}`);
+    expect(packets.map((p: { jobTitle: string; revision: number; isLatest: boolean }) => `${p.jobTitle} ${p.revision} ${p.isLatest}`)).toEqual([
+      'Garden speakers 2 true',
+      'Hedge lights 1 false',
+      'Fire pit zone 1 false',
+      'Garden speakers 1 false',
+    ]);
+  });
 });

@@ -53,16 +53,22 @@ function hasRevision(jobIdColumn: AnyPgColumn): SQL {
   return sql`exists (select 1 from ${packetRevisions} where ${packetRevisions.jobId} = ${jobIdColumn})`;
 }
 
+/** Whether the job has issued a revision at or after `at`: what it did up to then is part of the site's record. */
+function issuedSince(jobIdColumn: AnyPgColumn, at: AnyPgColumn): SQL {
+  return sql`exists (select 1 from ${packetRevisions} where ${packetRevisions.jobId} = ${jobIdColumn} and ${packetRevisions.issuedAt} >= ${at})`;
+}
+
 /**
- * The records of the site's system as a job sees it: its own records and those installed by jobs of the
- * site that were issued, less those removed by this job or by an issued job (a removal by another open
- * job has not happened yet).
+ * The records of the site's system as a job sees it: its own records and those other jobs of the site
+ * installed before one of their issues, less those removed by this job or by another job that issued
+ * since. A record a reopened job added after its last issue, or a removal it has not issued yet, has not
+ * happened for anyone else (issue 21: another job's packet must not list it as added or removed).
  */
 function systemRecordVisible(table: typeof items | typeof runs, job: Pick<Job, 'id' | 'siteId'>): SQL {
   return and(
     eq(table.siteId, job.siteId),
-    or(eq(table.jobId, job.id), hasRevision(table.jobId)),
-    or(isNull(table.removedByJobId), and(ne(table.removedByJobId, job.id), not(hasRevision(table.removedByJobId)))),
+    or(eq(table.jobId, job.id), issuedSince(table.jobId, table.createdAt)),
+    or(isNull(table.removedByJobId), and(ne(table.removedByJobId, job.id), not(issuedSince(table.removedByJobId, table.updatedAt)))),
   )!;
 }
 

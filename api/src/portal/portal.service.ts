@@ -51,9 +51,10 @@ export class PortalService {
   async site(actor: AuthUser, siteId: string): Promise<PortalSiteDetailResponse> {
     const row = await this.repository.siteOf(actor.id, siteId);
     if (!row) throw siteNotFound();
+    // Newest first (issue time, then revision): the first is the site's current record, whichever job
+    // issued it; an older revision of a later job is not "latest" because its job came after.
     const revisions = await this.repository.readyRevisions([siteId]);
-    const latestByJob = new Map<string, number>();
-    for (const r of revisions) latestByJob.set(r.jobId, Math.max(latestByJob.get(r.jobId) ?? 0, r.revision));
+    const latestId = revisions[0]?.id;
     const packets: PortalPacket[] = revisions.map((r) => ({
       id: r.id,
       jobId: r.jobId,
@@ -63,7 +64,7 @@ export class PortalService {
       pageCount: r.pageCount,
       pdf: { bytes: r.pdfBytes ?? 0, sha256: r.pdfSha256 ?? '', url: `/api/portal/packets/${r.id}/pdf` },
       archive: { bytes: r.zipBytes ?? 0, sha256: r.zipSha256 ?? '', url: `/api/portal/packets/${r.id}/archive.zip` },
-      isLatest: latestByJob.get(r.jobId) === r.revision,
+      isLatest: r.id === latestId,
     }));
     return {
       ...toSiteResponse(row, revisions),

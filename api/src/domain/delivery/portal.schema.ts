@@ -34,7 +34,7 @@ export const PortalPacketSchema = z.object({
   /** Download through the portal; compare the file's SHA-256 with `sha256` to verify it. */
   pdf: FileSchema,
   archive: FileSchema,
-  /** The newest ready revision of its job (the one the site map uses). */
+  /** The site's newest ready packet, of any job: the current record of the whole installed system (issue 21). */
   isLatest: z.boolean(),
 });
 
