@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 
 import type { AsBuilt } from '../as-built/as-built.schema.js';
 import { DEMO_AS_BUILT } from '../as-built/demo-as-built.js';
-import { whatChanged, whatChangedView } from './what-changed.js';
+import { baselineSystem, whatChanged, whatChangedView } from './what-changed.js';
 
 const supersedes = { revisionId: 'rev-1', jobId: 'job-a', jobTitle: 'Garden speakers', revision: 1, issuedAt: '2026-05-14T16:00:00.000Z' };
 const job = { id: 'job-b', title: 'Fire pit zone', workDate: '2027-04-02' };
@@ -53,5 +53,35 @@ describe(whatChanged.name, () => {
     const same = whatChanged({ supersedes, previous: reordered, current: DEMO_AS_BUILT, records: {}, removed: [], job });
     expect([...same.added, ...same.changed, ...same.abandoned, ...same.removed]).toEqual([]);
     expect(whatChangedView({ settings: {} })).toBeNull();
+  });
+});
+
+describe(baselineSystem.name, () => {
+  // Two jobs on one property, each packet issued before the site record froze only its own job's records.
+  const [ampItem, ...otherItems] = DEMO_AS_BUILT.items;
+  const [firstRun, ...otherRuns] = DEMO_AS_BUILT.runs;
+  const jobA: AsBuilt = { ...DEMO_AS_BUILT, items: [ampItem!], runs: [firstRun!] };
+  const jobB: AsBuilt = { ...DEMO_AS_BUILT, items: otherItems, runs: otherRuns };
+  const older = { issuedAt: '2026-05-14T16:00:00.000Z', asBuilt: jobA, isSiteWide: false };
+  const newer = { issuedAt: '2026-09-01T10:00:00.000Z', asBuilt: jobB, isSiteWide: false };
+
+  it('merges every job’s packet of then when the superseded packet froze only its own job', () => {
+    const sut = baselineSystem([newer, older])!;
+    expect(sut.items.map((i) => i.id).sort()).toEqual(DEMO_AS_BUILT.items.map((i) => i.id).sort());
+    expect(sut.runs.map((r) => r.id).sort()).toEqual(DEMO_AS_BUILT.runs.map((r) => r.id).sort());
+    // The next packet (the whole system) then lists nothing of the other job as added.
+    const changes = whatChanged({ supersedes, previous: sut, current: DEMO_AS_BUILT, records: {}, removed: [], job });
+    expect([...changes.added, ...changes.changed, ...changes.abandoned, ...changes.removed]).toEqual([]);
+    // Against the superseded packet alone, the first job's records would all read as added.
+    const naive = whatChanged({ supersedes, previous: jobB, current: DEMO_AS_BUILT, records: {}, removed: [], job });
+    expect(naive.added.map((r) => r.id).sort()).toEqual([ampItem!.id, firstRun!.id].sort());
+  });
+
+  it('takes a site-wide packet alone, a later copy of a record wins, and no packet has no baseline', () => {
+    const siteWide = { issuedAt: '2027-04-02T10:00:00.000Z', asBuilt: jobB, isSiteWide: true };
+    expect(baselineSystem([older, siteWide])).toBe(jobB);
+    const relabelled = { ...older, issuedAt: '2026-10-01T10:00:00.000Z', asBuilt: { ...jobA, runs: [{ ...firstRun!, label: 'Relabelled' }] } };
+    expect(baselineSystem([older, relabelled, newer])!.runs.find((r) => r.id === firstRun!.id)!.label).toBe('Relabelled');
+    expect(baselineSystem([])).toBeUndefined();
   });
 });

@@ -55,6 +55,34 @@ function recordsOf(asBuilt: AsBuilt): Map<string, SystemRecord> {
   return out;
 }
 
+/** A packet of the site as a baseline for What changed: its frozen as-built, and whether it froze the whole site. */
+export interface BaselinePacket {
+  issuedAt: string;
+  asBuilt: AsBuilt;
+  /** Issued since the site record (issue 21): its as-built is the site's whole system, not one job's records. */
+  isSiteWide: boolean;
+}
+
+/**
+ * The site's system as the superseded packet left it. A packet issued since the site record froze the
+ * whole system, so it is the baseline alone. A packet issued before froze only its own job's records:
+ * the system then was every job's newest packet up to that one, merged (the later packet's copy of a
+ * record wins), or every other job's records would read as added by the next packet. `packets` are the
+ * superseded packet and each other job's newest packet up to it; an empty list has no baseline.
+ */
+export function baselineSystem(packets: readonly BaselinePacket[]): AsBuilt | undefined {
+  const ordered = [...packets].sort((a, b) => (a.issuedAt < b.issuedAt ? -1 : a.issuedAt > b.issuedAt ? 1 : 0));
+  const latest = ordered.at(-1);
+  if (!latest || latest.isSiteWide) return latest?.asBuilt;
+  const items = new Map<string, AsBuilt['items'][number]>();
+  const runs = new Map<string, AsBuilt['runs'][number]>();
+  for (const packet of ordered) {
+    for (const item of packet.asBuilt.items) items.set(item.id, item);
+    for (const run of packet.asBuilt.runs) runs.set(run.id, run);
+  }
+  return { ...latest.asBuilt, items: [...items.values()], runs: [...runs.values()] };
+}
+
 /**
  * What changed from the superseded packet's system to this one. `records` is the provenance of the
  * current system (who installed, changed, abandoned each record, and when); `removed` lists the records
