@@ -1,25 +1,23 @@
 import { createHash } from 'node:crypto';
 
-import { Inject, Injectable, InternalServerErrorException, Logger } from '@nestjs/common';
+import { BadRequestException, ConflictException, Inject, Injectable, InternalServerErrorException, Logger, NotFoundException } from '@nestjs/common';
 
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { isUniqueViolation } from '../common/db-errors.js';
 import type { Site } from '../db/schema/index.js';
-import { ConflictError, NotFoundError, ValidationError } from '../domain/errors.js';
 import { analyzeAsBuilt } from '../domain/analysis/analyze.js';
 import { canIssuePacket } from '../domain/jobs/job-rules.js';
 import { packetFileBase } from '../domain/packet/manifest.js';
 import { findingKey, type IssuePacketInput, matchAcknowledgements } from '../domain/packet/known-exceptions.js';
 import type { PacketSnapshot } from '../domain/packet/packet-snapshot.js';
-import { whatChanged } from '../domain/packet/what-changed.js';
+import { baselineSystem, whatChanged } from '../domain/packet/what-changed.js';
 import { jobWorkDate, toAsBuilt, toChannelSetup, toSiteRecords } from '../jobs/as-built-rows.js';
 import { denied, jobNotFound, versionConflict } from '../jobs/job-errors.js';
 import { JobsRepository } from '../jobs/jobs.repository.js';
 import { LocateLinksService } from '../locate/locate-links.service.js';
 import { planCalibrationOf } from '../sites/plan-image-ref.js';
 import { OBJECT_STORAGE, type ObjectStorage } from '../storage/object-storage.js';
-import { packetNotFound } from './packet-errors.js';
 import { PacketQueue } from './packet-queue.js';
 import { type PacketRevisionSummary, PacketsRepository } from './packets.repository.js';
 import { SignaturesRepository } from './signatures.repository.js';
@@ -89,7 +87,7 @@ function toResponse(row: PacketRevisionSummary): PacketRevisionResponse {
  * 400 for an issue whose acknowledgements do not match the open findings: names the first missing
  * must-fix finding (code and path) or the bad entry, and lists every problem in `issues`.
  */
-function acknowledgementsRefused(problems: ReturnType<typeof matchAcknowledgements>['problems']): ValidationError {
+function acknowledgementsRefused(problems: ReturnType<typeof matchAcknowledgements>['problems']): BadRequestException {
   const issues = problems.map((p) =>
     p.kind === 'missing'
       ? {
@@ -109,12 +107,14 @@ function acknowledgementsRefused(problems: ReturnType<typeof matchAcknowledgemen
         },
   );
   const first = issues[0]!;
-  return new ValidationError(issues, {
+  return new BadRequestException({
     message: `${first.path}: ${first.message}`,
     code: problems.some((p) => p.kind === 'missing') ? 'FINDINGS_NOT_ACKNOWLEDGED' : 'VALIDATION_FAILED',
+    issues,
   });
 }
 
+const packetNotFound = () => new NotFoundException({ message: 'No such packet revision.', code: 'PACKET_NOT_FOUND' });
 
 export interface PacketFile {
   body: Buffer;
@@ -181,11 +181,20 @@ export class PacketsService {
       const siteRecords = toSiteRecords(rows);
       const removedRecords = rows.system?.removedByThisJob ?? [];
       const previous = await this.jobs.latestSitePacket(job.siteId, tx);
+      // The system the previous packet left: itself, or (issued before the site record) merged with the
+      // other jobs' packets of then.
+      const baseline = previous
+        ? baselineSystem(
+            (await this.jobs.sitePacketsUpTo(job.siteId, previous.issuedAt, tx)).flatMap((p) =>
+              p.asBuilt ? [{ issuedAt: p.issuedAt.toISOString(), asBuilt: p.asBuilt, isSiteWide: p.isSiteWide }] : [],
+            ),
+          )
+        : undefined;
       const changes =
-        previous && previous.asBuilt
+        previous && baseline
           ? whatChanged({
               supersedes: { revisionId: previous.revisionId, jobId: previous.jobId, jobTitle: previous.jobTitle, revision: previous.revision, issuedAt: previous.issuedAt.toISOString() },
-              previous: previous.asBuilt,
+              previous: baseline,
               current: asBuilt,
               records: siteRecords,
               removed: removedRecords,
@@ -250,7 +259,7 @@ export class PacketsService {
         );
       } catch (error) {
         if (isUniqueViolation(error)) {
-          throw new ConflictError('PACKET_ALREADY_ISSUED', `Revision ${job.revision} of this job is already issued.`);
+          throw new ConflictException({ message: `Revision ${job.revision} of this job is already issued.`, code: 'PACKET_ALREADY_ISSUED' });
         }
         throw error;
       }
@@ -309,7 +318,7 @@ export class PacketsService {
     const key = kind === 'pdf' ? row.pdfKey : row.zipKey;
     const expected = kind === 'pdf' ? row.pdfSha256 : row.zipSha256;
     if (row.status !== 'ready' || !key || !expected) {
-      throw new ConflictError('PACKET_NOT_READY', `This packet revision is ${row.status}, not ready to download.`);
+      throw new ConflictException({ message: `This packet revision is ${row.status}, not ready to download.`, code: 'PACKET_NOT_READY' });
     }
     const body = await this.storage.getBuffer(key);
     const actual = createHash('sha256').update(body).digest('hex');
