@@ -2,20 +2,14 @@ import { apiRequest } from '../../../lib/api-client';
 
 import { responseOf } from '../../../lib/response';
 
+import { routeOf, type JobWriteCall } from './job-write-endpoints';
+
 /**
  * One change to a job or its records, in a form that can wait in IndexedDB while there is no
- * connection and be sent again later (utils/pending-writes.ts).
+ * connection and be sent again later (utils/pending-writes.ts): the endpoint by name with its
+ * parameters and body (job-write-endpoints.ts), never a path string.
  */
-export type JobWrite = {
-  method: 'POST' | 'PUT' | 'PATCH' | 'DELETE';
-  /** Below `/api/jobs/:jobId`, e.g. `/runs/<id>/depth-readings`; '' for the job itself. */
-  path: string;
-  body?: unknown;
-  /**
-   * Adds something new (a depth reading, a check, an item) without replacing anyone's record, so it
-   * may be re-sent on top of whatever version the job has reached.
-   */
-  isAdditive?: boolean;
+export type JobWrite = JobWriteCall & {
   /** The draft this write saves; dropped once the server has it. */
   draftKey?: string;
   /** Plain words for lists and dialogs: "Depth reading on Patio trunk". */
@@ -32,8 +26,9 @@ export type JobWriteResponse = { jobVersion?: number; version?: number } & Recor
 
 /** Sends `write` as a change to `version` of the job (`If-Match`). */
 export function sendJobWrite(jobId: string, version: number, write: JobWrite): Promise<JobWriteResponse> {
-  return apiRequest(`/api/jobs/${encodeURIComponent(jobId)}${write.path}`, responseOf<JobWriteResponse>(), {
-    method: write.method,
+  const route = routeOf(write);
+  return apiRequest(`/api/jobs/${encodeURIComponent(jobId)}${route.path}`, responseOf<JobWriteResponse>(), {
+    method: route.method,
     body: write.body,
     headers: { 'If-Match': `"${version}"`, ...(write.idempotencyKey ? { 'Idempotency-Key': write.idempotencyKey } : {}) },
   }).then((response) => response ?? {});

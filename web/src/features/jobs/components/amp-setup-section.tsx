@@ -120,8 +120,8 @@ function ChannelSetupCard({ jobId, amp, channel, setup, canRecord }: ChannelSetu
   const save = form.handleSubmit(async (body) => {
     try {
       const outcome = await writer.save({
-        method: 'PUT',
-        path: `/items/${amp.id}/channels/${channel.id}/setup`,
+        endpoint: 'updateChannelSetup',
+        params: { itemId: amp.id, channelId: channel.id },
         body,
         draftKey,
         label: `Setup of ${amp.label} · ${channel.name}`,

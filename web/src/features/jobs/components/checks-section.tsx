@@ -103,7 +103,7 @@ export function ChecksSection({ data, canAddField }: { data: JobAsBuiltResponse;
   const add = form.handleSubmit(async (body) => {
     setMessage(undefined);
     try {
-      const outcome = await writer.save({ method: 'POST', path: '/checks', body, draftKey, label: `Check of ${channelLabel(body.channel)}`, isAdditive: true });
+      const outcome = await writer.save({ endpoint: 'createCheck', params: {}, body, draftKey, label: `Check of ${channelLabel(body.channel)}` });
       if (outcome === 'saved') notify.success('Check saved');
       setIsAdding(false);
     } catch (failure) {

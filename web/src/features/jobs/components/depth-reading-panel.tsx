@@ -151,8 +151,8 @@ export function DepthReadingPanel({ jobId, run, depth, readingIds, canWrite, tar
     try {
       const outcome = await writer.save(
         editingId
-          ? { method: 'PATCH', path: `/runs/${run.id}/depth-readings/${editingId}`, body, draftKey, label }
-          : { method: 'POST', path: `/runs/${run.id}/depth-readings`, body, draftKey, label, isAdditive: true },
+          ? { endpoint: 'updateDepthReading', params: { runId: run.id, readingId: editingId }, body, draftKey, label }
+          : { endpoint: 'addDepthReading', params: { runId: run.id }, body, draftKey, label },
       );
       if (outcome === 'queued') {
         // Kept in the waiting list; free the form for the next reading.

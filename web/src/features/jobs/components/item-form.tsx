@@ -260,12 +260,10 @@ export function ItemForm({ jobId, asBuilt, item, kind, kinds, focusField, onDone
     const name = String(body.label ?? label);
     try {
       const outcome = await writer.save({
-        method: item ? 'PUT' : 'POST',
-        path: item ? `/items/${item.id}` : '/items',
+        ...(item ? { endpoint: 'replaceItem' as const, params: { itemId: item.id } } : { endpoint: 'createItem' as const, params: {} }),
         body,
         draftKey,
         label: item ? `Changes to "${name}"` : `New ${ITEM_KIND_LABELS[currentKind].toLowerCase()} "${name}"`,
-        isAdditive: !item,
       });
       if (outcome === 'saved') notify.success(item ? 'Saved' : 'Added', name);
       onDone();

@@ -167,7 +167,7 @@ function DetailsForm({ job, onDone }: { job: JobResponse; onDone: () => void }) 
       return;
     }
     try {
-      const outcome = await writer.save({ method: 'PATCH', path: '', body: changes, label: 'Crew and dates' });
+      const outcome = await writer.save({ endpoint: 'updateJob', params: {}, body: changes, label: 'Crew and dates' });
       if (outcome === 'saved') notify.success('Crew and dates saved', job.title);
       if (outcome === 'queued') notify.success('Waiting for a connection', 'The crew and dates are sent when you are back online.');
       if (outcome !== 'conflict') onDone();

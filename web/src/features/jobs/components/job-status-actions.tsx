@@ -39,8 +39,8 @@ export function JobStatusActions({ job, analysis, actor }: JobStatusActionsProps
     setIsPending(true);
     try {
       const outcome = await writer.save({
-        method: 'POST',
-        path: '/status',
+        endpoint: 'changeStatus',
+        params: {},
         body: { to: action.to, ...(action.needsComment ? { comment: comment.trim() } : {}) },
         label: action.label,
       });

@@ -30,7 +30,7 @@ export function NotesSection({ data, canChange }: { data: JobAsBuiltResponse; ca
 
   const save = form.handleSubmit(async (body) => {
     try {
-      const outcome = await writer.save({ method: 'PATCH', path: '', body, draftKey, label: 'Job notes' });
+      const outcome = await writer.save({ endpoint: 'updateJob', params: {}, body, draftKey, label: 'Job notes' });
       if (outcome === 'saved') notify.success('Notes saved');
     } catch (failure) {
       const { fields, message } = saveErrors(failure);

@@ -178,8 +178,7 @@ export function RunForm({ jobId, asBuilt, run, focusField, onDone }: RunFormProp
     setMessage(undefined);
     try {
       const outcome = await writer.save({
-        method: run ? 'PUT' : 'POST',
-        path: run ? `/runs/${run.id}` : '/runs',
+        ...(run ? { endpoint: 'replaceRun' as const, params: { runId: run.id } } : { endpoint: 'createRun' as const, params: {} }),
         body: input,
         draftKey,
         label: run ? `Changes to run "${input.label}"` : `New run "${input.label}"`,

@@ -139,15 +139,15 @@ function SignaturePadField({ jobId, role, canSign, defaultName, saved }: PadFiel
       if (!pad || !canvas || pad.isEmpty()) return;
       const svgPath = strokesToPath(pad.toData(), canvas.offsetWidth, canvas.offsetHeight);
       await save({
-        method: 'PUT',
-        path: `/signatures/${role}`,
+        endpoint: 'saveSignature',
+        params: { role },
         body: { signerName: name.trim(), svgPath, signedAt: new Date().toISOString() },
         label: `${ROLE_LABELS[role]} signature`,
       });
     });
 
   const onRemove = () =>
-    run(() => save({ method: 'DELETE', path: `/signatures/${role}`, label: `Clear the ${ROLE_LABELS[role].toLowerCase()} signature` }));
+    run(() => save({ endpoint: 'clearSignature', params: { role }, label: `Clear the ${ROLE_LABELS[role].toLowerCase()} signature` }));
 
   return (
     <div className={styles.pad}>

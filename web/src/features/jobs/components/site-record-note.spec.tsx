@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
 
+import { routeOf } from '../api/job-write-endpoints';
+
 import { existingRemoveRequest, siteRecordText } from './site-record-note';
 
 const earlier = {
@@ -25,8 +27,9 @@ describe('site record note (issue 21)', () => {
 
   it('takes an earlier record out instead of deleting it, with Undo as the undo of this job’s change', () => {
     const request = existingRemoveRequest('run', { id: 'run-1', label: 'Spare to planter' });
-    expect(request.write).toMatchObject({ method: 'DELETE', path: '/runs/run-1' });
-    expect(request.undo).toMatchObject({ method: 'DELETE', path: '/site-changes/run-1' });
+    expect(request.write).toMatchObject({ endpoint: 'deleteRun', params: { runId: 'run-1' } });
+    expect(routeOf(request.write)).toEqual({ method: 'DELETE', path: '/runs/run-1' });
+    expect(routeOf(request.undo!)).toEqual({ method: 'DELETE', path: '/site-changes/run-1' });
     expect(request.title).toBe('Take out the run “Spare to planter”?');
   });
 });

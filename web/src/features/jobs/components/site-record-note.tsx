@@ -38,7 +38,7 @@ function useUndo(label: string, recordId: string) {
     setBusy(true);
     setError(undefined);
     try {
-      await writer.save({ method: 'DELETE', path: `/site-changes/${recordId}`, label: `Undoing this job’s change to “${label}”` });
+      await writer.save({ endpoint: 'undoSiteChange', params: { recordId }, label: `Undoing this job’s change to “${label}”` });
     } catch (e) {
       setError(e instanceof Error ? e.message : 'The change could not be undone.');
     } finally {
@@ -83,9 +83,9 @@ export function existingRemoveRequest(kind: 'run' | 'item', record: { id: string
   return {
     title: `Take out the ${noun} “${record.label}”?`,
     consequences: `An earlier job installed it. It is recorded as taken out by this job, on this job’s work date, and leaves the system from this job on; the earlier packet still shows it as it was.`,
-    write: { method: 'DELETE', path: `/${kind === 'run' ? 'runs' : 'items'}/${record.id}`, label: `Taking out the ${noun} “${record.label}”` },
+    write: { ...(kind === 'run' ? { endpoint: 'deleteRun' as const, params: { runId: record.id } } : { endpoint: 'deleteItem' as const, params: { itemId: record.id } }), label: `Taking out the ${noun} “${record.label}”` },
     doneTitle: `“${record.label}” taken out`,
-    undo: { method: 'DELETE', path: `/site-changes/${record.id}`, label: `Putting back “${record.label}”` },
+    undo: { endpoint: 'undoSiteChange', params: { recordId: record.id }, label: `Putting back “${record.label}”` },
   };
 }
 

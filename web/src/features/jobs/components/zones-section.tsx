@@ -32,7 +32,7 @@ export function ZonesSection({ data, canRecord }: { data: JobAsBuiltResponse; ca
 
   const add = form.handleSubmit(async (body) => {
     try {
-      await writer.save({ method: 'POST', path: '/zones', body, draftKey, label: `New zone "${body.name}"`, isAdditive: true });
+      await writer.save({ endpoint: 'createZone', params: {}, body, draftKey, label: `New zone "${body.name}"` });
     } catch (failure) {
       const { fields, message } = saveErrors(failure);
       form.setError('name', { message: fields.name ?? message });

@@ -27,6 +27,7 @@ import { isApiError } from '../../../lib/api-client';
 import { clearDraft } from '../../../lib/drafts';
 import { describeRequestError } from '../../../lib/form-errors';
 import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../../job-record';
+import { isAdditiveEndpoint } from '../api/job-write-endpoints';
 import { sendJobWrite, versionAfter, type JobWrite } from '../api/send-job-write';
 import {
   enqueuePendingWrite,
@@ -152,7 +153,7 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
     try {
       for (const entry of queue) {
         const base = rebased.get(entry.baseVersion) ?? entry.baseVersion;
-        const version = entry.write.isAdditive ? currentVersion() : base;
+        const version = isAdditiveEndpoint(entry.write.endpoint) ? currentVersion() : base;
         try {
           const before = version;
           await send(entry.write, version);

@@ -69,12 +69,12 @@ export function itemDeleteRequest(asBuilt: AsBuilt, item: Item): DeleteRequest {
   return {
     title: `Delete the ${kind} “${item.label}”?`,
     consequences: parts.join(' '),
-    write: { method: 'DELETE', path: `/items/${item.id}`, label: `Deleting the ${kind} “${item.label}”` },
+    write: { endpoint: 'deleteItem', params: { itemId: item.id }, label: `Deleting the ${kind} “${item.label}”` },
     doneTitle: `${ITEM_KIND_LABELS[item.kind]} “${item.label}” deleted`,
     undo:
       item.kind === 'amplifier'
         ? undefined
-        : { method: 'POST', path: '/items', body: withoutId(item), label: `Putting back the ${kind} “${item.label}”`, isAdditive: true },
+        : { endpoint: 'createItem', params: {}, body: withoutId(item), label: `Putting back the ${kind} “${item.label}”` },
   };
 }
 
@@ -89,9 +89,9 @@ export function runDeleteRequest(run: Run): DeleteRequest {
         : `Its ${readings === 1 ? 'depth reading' : `${readings} depth readings`}, route and pairs are deleted with it.`,
       'Photos of it stay with the job.',
     ].join(' '),
-    write: { method: 'DELETE', path: `/runs/${run.id}`, label: `Deleting the run “${run.label}”` },
+    write: { endpoint: 'deleteRun', params: { runId: run.id }, label: `Deleting the run “${run.label}”` },
     doneTitle: `Run “${run.label}” deleted`,
-    undo: { method: 'POST', path: '/runs', body: withoutId(run), label: `Putting back the run “${run.label}”`, isAdditive: true },
+    undo: { endpoint: 'createRun', params: {}, body: withoutId(run), label: `Putting back the run “${run.label}”` },
   };
 }
 
@@ -104,11 +104,11 @@ export function zoneDeleteRequest(asBuilt: AsBuilt, zone: { id: string; name: st
       count === 0
         ? 'No equipment is in it.'
         : `Its ${count === 1 ? 'piece of equipment stays' : `${count} pieces of equipment stay`}, without a zone.`,
-    write: { method: 'DELETE', path: `/zones/${zone.id}`, label: `Deleting the zone “${zone.name}”` },
+    write: { endpoint: 'deleteZone', params: { zoneId: zone.id }, label: `Deleting the zone “${zone.name}”` },
     doneTitle: `Zone “${zone.name}” deleted`,
     undo:
       count === 0
-        ? { method: 'POST', path: '/zones', body: { name: zone.name }, label: `Putting back the zone “${zone.name}”`, isAdditive: true }
+        ? { endpoint: 'createZone', params: {}, body: { name: zone.name }, label: `Putting back the zone “${zone.name}”` }
         : undefined,
   };
 }
@@ -123,14 +123,13 @@ export function depthReadingDeleteRequest(
   return {
     title: 'Delete this depth reading?',
     consequences: `The reading of ${description} on “${run.label}” is deleted. Photos of it stay with the job.`,
-    write: { method: 'DELETE', path: `/runs/${run.id}/depth-readings/${readingId}`, label: `Deleting a depth reading on “${run.label}”` },
+    write: { endpoint: 'deleteDepthReading', params: { runId: run.id, readingId }, label: `Deleting a depth reading on “${run.label}”` },
     doneTitle: 'Depth reading deleted',
     undo: {
-      method: 'POST',
-      path: `/runs/${run.id}/depth-readings`,
+      endpoint: 'addDepthReading',
+      params: { runId: run.id },
       body: { stationM: reading.stationM, depthM: reading.depthM },
       label: `Putting back a depth reading on “${run.label}”`,
-      isAdditive: true,
     },
   };
 }
@@ -140,8 +139,8 @@ export function checkDeleteRequest(check: CommissioningCheck, description: strin
   return {
     title: 'Delete this check?',
     consequences: `The check ${description} is deleted; the comparison with the computed value goes with it.`,
-    write: { method: 'DELETE', path: `/checks/${check.id}`, label: `Deleting the check ${description}` },
+    write: { endpoint: 'deleteCheck', params: { checkId: check.id }, label: `Deleting the check ${description}` },
     doneTitle: 'Check deleted',
-    undo: { method: 'POST', path: '/checks', body: withoutId(check), label: `Putting back the check ${description}`, isAdditive: true },
+    undo: { endpoint: 'createCheck', params: {}, body: withoutId(check), label: `Putting back the check ${description}` },
   };
 }

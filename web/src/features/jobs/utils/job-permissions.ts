@@ -34,7 +34,14 @@ export function jobPermissions(actor: { id: string; role: Role }, job: JobRespon
   };
 }
 
-export type StatusAction = { to: JobStatus; label: string; needsComment: boolean; isPrimary: boolean };
+/** A status the API lets a person ask for (`issued` comes from issuing a packet, `draft` never). */
+export type RequestableStatus = (typeof REQUESTABLE_STATUSES)[number];
+
+export type StatusAction = { to: RequestableStatus; label: string; needsComment: boolean; isPrimary: boolean };
+
+function isRequestable(status: JobStatus): status is RequestableStatus {
+  return (REQUESTABLE_STATUSES as readonly JobStatus[]).includes(status);
+}
 
 function labelOf(from: JobStatus, to: JobStatus): string {
   if (from === 'draft') return 'Start work';
@@ -48,12 +55,13 @@ function labelOf(from: JobStatus, to: JobStatus): string {
 export function statusActions(actor: { id: string; role: Role }, job: JobResponse): StatusAction[] {
   const who: JobActor = { role: actor.role, userId: actor.id };
   const facts = accessFacts(job);
-  return JOB_TRANSITIONS.filter(
-    (t) =>
-      t.from === job.status &&
-      (REQUESTABLE_STATUSES as readonly JobStatus[]).includes(t.to) &&
-      // A placeholder comment: whether a comment is needed is asked in the dialog, not here.
-      canTransition(who, facts, t.to, 'x').isAllowed,
+  return JOB_TRANSITIONS.flatMap((t) =>
+    t.from === job.status &&
+    isRequestable(t.to) &&
+    // A placeholder comment: whether a comment is needed is asked in the dialog, not here.
+    canTransition(who, facts, t.to, 'x').isAllowed
+      ? [{ ...t, to: t.to }]
+      : [],
   ).map((t) => ({
     to: t.to,
     label: labelOf(t.from, t.to),

@@ -17,9 +17,9 @@ describe('the offline write queue (issue 17)', () => {
 
   it('should keep writes in order with one idempotency key each, per person, until removed', async () => {
     setSession(buildSessionResponse(buildSessionUser('lead')));
-    const a = await enqueuePendingWrite('job-1', { method: 'POST', path: '/items', body: { label: 'S1' }, label: 'Speaker S1', isAdditive: true }, 7);
-    const b = await enqueuePendingWrite('job-1', { method: 'POST', path: '/checks', body: {}, label: 'Check', idempotencyKey: 'kept-key-123' }, 7);
-    await enqueuePendingWrite('job-2', { method: 'PATCH', path: '', body: { notes: 'x' }, label: 'Job notes' }, 3);
+    const a = await enqueuePendingWrite('job-1', { endpoint: 'createItem', params: {}, body: { label: 'S1' }, label: 'Speaker S1' }, 7);
+    const b = await enqueuePendingWrite('job-1', { endpoint: 'createCheck', params: {}, body: {}, label: 'Check', idempotencyKey: 'kept-key-123' }, 7);
+    await enqueuePendingWrite('job-2', { endpoint: 'updateJob', params: {}, body: { notes: 'x' }, label: 'Job notes' }, 3);
 
     expect(readPendingWrites('job-1').map((entry) => entry.write.label)).toEqual(['Speaker S1', 'Check']);
     expect(a.write.idempotencyKey).toMatch(/^[A-Za-z0-9_.:-]{8,128}$/);
@@ -48,6 +48,7 @@ describe('the offline write queue (issue 17)', () => {
     setSession(buildSessionResponse(buildSessionUser('lead')));
     const [moved] = readPendingWrites('job-9');
     expect(moved?.write.label).toBe('New zone');
+    expect(moved?.write, 'kept as an endpoint and its parameters, not a path').toMatchObject({ endpoint: 'createZone', params: {}, body: { name: 'Lawn' } });
     expect(moved?.write.idempotencyKey).toBeTruthy();
     expect(localStorage.getItem('loamline.pending.job-9')).toBeNull();
   });

@@ -1,6 +1,7 @@
 import { createStore, del, entries, set, type UseStore } from 'idb-keyval';
 
 import { getSessionUser, subscribeSession } from '../../../lib/session';
+import { callFromLegacyPath } from '../api/job-write-endpoints';
 import type { JobWrite } from '../api/send-job-write';
 
 /**
@@ -59,7 +60,11 @@ export function loadPendingWrites(): Promise<void> {
   loaded ??= (async () => {
     try {
       if (hasIndexedDb()) {
-        const stored = (await entries<string, PendingWrite>(writesStore())).map(([, value]) => value);
+        const stored: PendingWrite[] = [];
+        for (const [, value] of await entries<string, PendingWrite | StoredBefore>(writesStore())) {
+          const entry = 'endpoint' in value.write ? (value as PendingWrite) : await upgradeStored(value as StoredBefore);
+          if (entry) stored.push(entry);
+        }
         all = [...all.filter((entry) => !stored.some((s) => s.id === entry.id)), ...stored].sort((a, b) => a.seq - b.seq);
         lastSeq = Math.max(lastSeq, ...all.map((entry) => entry.seq));
       }
@@ -70,6 +75,29 @@ export function loadPendingWrites(): Promise<void> {
     publish();
   })();
   return loaded;
+}
+
+/** A write as kept before it named its endpoint: the HTTP method and a path below the job. */
+type WriteBefore = Omit<JobWrite, 'endpoint' | 'params' | 'body'> & { method: string; path: string; body?: unknown };
+type StoredBefore = Omit<PendingWrite, 'write'> & { write: WriteBefore };
+
+/** The endpoint and parameters of a write kept as a path, or undefined when the path is not one of ours. */
+function writeFrom(before: WriteBefore): JobWrite | undefined {
+  const call = callFromLegacyPath(before.method, before.path, before.body);
+  if (!call) return undefined;
+  return { ...call, label: before.label, ...(before.draftKey ? { draftKey: before.draftKey } : {}), ...(before.idempotencyKey ? { idempotencyKey: before.idempotencyKey } : {}) };
+}
+
+/**
+ * Rewrites an entry the previous app kept as a path, keeping its key and place in line; an entry whose
+ * path names no endpoint stays stored (nothing is silently dropped) but is not sent.
+ */
+async function upgradeStored(before: StoredBefore): Promise<PendingWrite | undefined> {
+  const write = writeFrom(before.write);
+  if (!write) return undefined;
+  const upgraded: PendingWrite = { ...before, write };
+  await set(upgraded.id, upgraded, writesStore()).catch(() => undefined);
+  return upgraded;
 }
 
 async function moveLegacyWrites(): Promise<void> {
@@ -83,9 +111,11 @@ async function moveLegacyWrites(): Promise<void> {
   for (const key of keys) {
     const jobId = key.slice(LEGACY_PREFIX.length);
     try {
-      const legacy = JSON.parse(localStorage.getItem(key) ?? '[]') as { id: string; write: JobWrite; baseVersion: number; queuedAt: string }[];
+      const legacy = JSON.parse(localStorage.getItem(key) ?? '[]') as { id: string; write: WriteBefore; baseVersion: number; queuedAt: string }[];
+      if (legacy.some((entry) => !writeFrom(entry.write))) continue; // Unreadable: left where it is.
       for (const entry of legacy) {
-        const moved: PendingWrite = { ...entry, jobId, userId: user?.id ?? '', seq: nextSeq(), write: { ...entry.write, idempotencyKey: newIdempotencyKey() } };
+        const write = writeFrom(entry.write)!;
+        const moved: PendingWrite = { ...entry, jobId, userId: user?.id ?? '', seq: nextSeq(), write: { ...write, idempotencyKey: newIdempotencyKey() } };
         all.push(moved);
         if (hasIndexedDb()) await set(moved.id, moved, writesStore());
       }

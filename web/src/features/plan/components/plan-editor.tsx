@@ -357,8 +357,8 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
     if (!routeRun || routePoints.length < 2) return;
     const outcome = await saveJobWrite(
       {
-        method: 'PUT',
-        path: `/runs/${routeRun.id}`,
+        endpoint: 'replaceRun',
+        params: { runId: routeRun.id },
         body: runBodyWithRoute(routeRun, routePoints.map(roundPlanPoint)),
         draftKey: routeDraftKey,
         label: `Route of "${routeRun.label}"`,
@@ -387,8 +387,8 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
     const p = roundPlanPoint(solution);
     await saveJobWrite(
       {
-        method: 'PUT',
-        path: `/items/${tiesItem.id}`,
+        endpoint: 'replaceItem',
+        params: { itemId: tiesItem.id },
         body: itemBodyWith(tiesItem, {
           ties,
           sideHint: tiesDraft.value.sideHint || undefined,
@@ -406,8 +406,8 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
     if (!item) return;
     await saveJobWrite(
       {
-        method: 'PUT',
-        path: `/items/${item.id}`,
+        endpoint: 'replaceItem',
+        params: { itemId: item.id },
         body: itemBodyWith(item, { position: { ...roundPlanPoint(point), source: 'manual' } }),
         label: `Position of "${item.label}"`,
       },
