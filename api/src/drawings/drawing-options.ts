@@ -69,6 +69,11 @@ export interface SitePlanOptions extends DrawingBaseOptions {
   layers?: Partial<SitePlanLayers>;
   titleBlock?: TitleBlockInfo;
   planImage?: PlanImage;
+  /**
+   * Extra label lines per run id, already formatted: when it went in and by which job, and since when
+   * it is abandoned (the packet's plan of the site record, issue 21). Drawn under the run's facts.
+   */
+  runProvenance?: Readonly<Record<string, readonly string[]>>;
 }
 
 export const DEFAULT_LAYERS: SitePlanLayers = { referencePoints: true, labels: true, depths: true, spareAndAbandoned: true };

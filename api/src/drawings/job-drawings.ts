@@ -97,6 +97,8 @@ export interface JobSitePlanOptions {
   titleBlock?: TitleBlockInfo;
   planImage?: PlanImage;
   layersOff?: readonly SitePlanLayerName[];
+  /** Provenance lines under run labels, by run id (the packet's plan). */
+  runProvenance?: Readonly<Record<string, readonly string[]>>;
 }
 
 export function drawJobSitePlan(input: JobDrawingInput, options: JobSitePlanOptions): string {
@@ -111,6 +113,7 @@ export function drawJobSitePlan(input: JobDrawingInput, options: JobSitePlanOpti
     ...(options.titleBlock ? { titleBlock: options.titleBlock } : {}),
     ...(options.planImage ? { planImage: options.planImage } : {}),
     ...(options.layersOff && options.layersOff.length > 0 ? { layers: layersWithout(options.layersOff) } : {}),
+    ...(options.runProvenance ? { runProvenance: options.runProvenance } : {}),
   });
 }
 

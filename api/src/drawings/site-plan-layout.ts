@@ -124,7 +124,13 @@ function centroidOf(points: readonly Point[]): Point {
   return { x: points.reduce((a, p) => a + p.x, 0) / n, y: points.reduce((a, p) => a + p.y, 0) / n };
 }
 
-function runStyle(run: AsBuilt['runs'][number]): RunStyleKey {
+/**
+ * How a run is drawn. An indoor run keeps the indoor line even when spare or abandoned: the spare and
+ * abandoned lines mean cable in the ground, and indoor cable never is (issue 21); its label says spare
+ * or abandoned.
+ */
+export function runStyle(run: Pick<AsBuilt['runs'][number], 'method' | 'isSpare' | 'isAbandoned'>): RunStyleKey {
+  if (run.method === 'indoor') return 'indoor';
   if (run.isAbandoned === true) return 'abandoned';
   if (run.isSpare === true) return 'spare';
   return run.method;
@@ -350,14 +356,16 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
       const run = runById.get(planRun.runId)!;
       const result = runResultById.get(run.id);
       const depth = depthByRun.get(run.id);
-      const prefix = planRun.style === 'spare' ? 'SPARE: ' : planRun.style === 'abandoned' ? 'ABANDONED: ' : '';
+      const prefix = run.isAbandoned === true ? 'ABANDONED: ' : run.isSpare === true ? 'SPARE: ' : '';
       const facts = [result?.gaugeLabel ?? run.cableType];
-      if (layers.depths && depth !== undefined) {
-        if (depth.status === 'not_buried') facts.push('indoor, not buried');
+      // Indoor cable says so whether or not depths are shown: nobody should read it as buried.
+      if (run.method === 'indoor') facts.push('indoor, not buried');
+      else if (layers.depths && depth !== undefined) {
+        if (depth.status === 'not_buried') facts.push('not buried');
         else if (depth.minDepthM !== null) facts.push(`min depth ${formatDepthLength(depth.minDepthM, units)}${depth.shallowStations.length > 0 ? ' (SHALLOW)' : ''}`);
         else facts.push('depth not recorded');
       }
-      const lines = [`${prefix}${run.label}`, facts.join(' · ')];
+      const lines = [`${prefix}${run.label}`, facts.join(' · '), ...(options.runProvenance?.[run.id] ?? [])];
       if (!planRun.isRouteRecorded) lines.push('route not recorded: straight line shown');
       const size = labelSize(lines, RUN_LABEL_FONT_PT, (i) => (i === 0 ? 'bold' : 'regular'));
       requests.push({

@@ -7,6 +7,7 @@ import QRCode from 'qrcode';
 
 import { buildPacketViewModel, type PacketViewModel, type PacketViewModelInput } from '../domain/packet/packet.view-model.js';
 import type { PacketSnapshot } from '../domain/packet/packet-snapshot.js';
+import { runProvenanceLines } from '../domain/packet/plan-provenance.js';
 import type { PlanImage } from '../drawings/drawing-options.js';
 import type { Orientation } from '../drawings/paper.js';
 import { drawJobDepthProfile, drawJobSchematic, drawJobSitePlan, jobTitleBlock } from '../drawings/job-drawings.js';
@@ -132,7 +133,9 @@ export async function drawPacketDrawings(
   // caption), so it prints at 100 % and the scale in its title block is true.
   const plan = { paper, orientation: 'auto' as const, margins: DRAWING_PAGE_MARGINS, headroomPt: PLAN_HEADROOM_PT, titleBlock };
   const hasTies = vm.ties.rows.length > 0;
-  const sitePlan = drawJobSitePlan(input, { ...plan, layersOff: ['reference-points'], ...(planImage ? { planImage } : {}) });
+  // Per run: when it went in and by which job, since when abandoned (the site record, issue 21).
+  const runProvenance = runProvenanceLines(snapshot.siteRecords, { timeZone: snapshot.settings.timeZone ?? null, locale: snapshot.settings.locale ?? null });
+  const sitePlan = drawJobSitePlan(input, { ...plan, layersOff: ['reference-points'], runProvenance, ...(planImage ? { planImage } : {}) });
   const ties = hasTies ? drawJobSitePlan(input, { ...plan, sheet: 'ties' }) : '';
   // Let pending I/O (a draft print in flight) go on between the site plan sheets and the schematic.
   await new Promise((resolve) => setImmediate(resolve));
