@@ -1,6 +1,6 @@
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { JwtService } from '@nestjs/jwt';
-import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
+import { SwaggerModule } from '@nestjs/swagger';
 import cookieParser from 'cookie-parser';
 import type { NextFunction, Request, Response } from 'express';
 import helmet from 'helmet';
@@ -8,6 +8,7 @@ import helmet from 'helmet';
 import { AuthService, type AccessTokenPayload } from './auth/auth.service.js';
 import { requireJsonOrMultipartBody } from './common/body-content-type.js';
 import { HttpExceptionFilter } from './common/http-exception.filter.js';
+import { buildOpenApiDocument } from './common/openapi.js';
 import { serveWebApp } from './common/web-app.js';
 import { APP_VERSION, type Env } from './config/env.schema.js';
 import { isStaffRole } from './domain/auth/roles.js';
@@ -53,15 +54,7 @@ export function configureApp(app: NestExpressApplication, env: Env): void {
   );
 
   if (!serveDocsToAll(env)) app.use(['/api/docs', '/api/docs-json'], docsForStaffOnly(app));
-  const document = SwaggerModule.createDocument(
-    app,
-    new DocumentBuilder()
-      .setTitle('Loamline API')
-      .setDescription('As-built records, cable and load computation, and handover packets.')
-      .setVersion(APP_VERSION)
-      .addBearerAuth()
-      .build(),
-  );
+  const document = buildOpenApiDocument(app);
   SwaggerModule.setup('api/docs', app, document, {
     jsonDocumentUrl: 'api/docs-json',
     customSiteTitle: 'Loamline API',

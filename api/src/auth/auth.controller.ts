@@ -9,18 +9,25 @@ import {
   type AcceptInvitationInput,
   AcceptInvitationSchema,
   type InvitationPreviewResponse,
+  InvitationPreviewResponseSchema,
   type MeResponse,
+  MeResponseSchema,
+  type PasswordResetAcceptedResponse,
+  PasswordResetAcceptedResponseSchema,
   type RequestPasswordResetInput,
   RequestPasswordResetSchema,
   type ResetPasswordInput,
   ResetPasswordSchema,
   type SessionResponse,
+  SessionResponseSchema,
+  SignInSchema,
 } from '../domain/auth/auth.schema.js';
 import type { UserWithCompany } from './auth.repository.js';
 import { AuthService, type ClientMeta, type IssuedSession } from './auth.service.js';
 import { LocalAuthGuard } from './local-auth.guard.js';
 import { clearRefreshCookie, readRefreshCookie, setRefreshCookie } from './refresh-cookie.js';
 import { SignInThrottlerGuard } from './sign-in-throttler.guard.js';
+import { ApiContract, emptyResponse } from '../common/api-contract.decorator.js';
 
 function meta(req: Request): ClientMeta {
   return { ip: req.ip, userAgent: req.get('user-agent') };
@@ -36,7 +43,7 @@ export class AuthController {
   @HttpCode(HttpStatus.OK)
   @UseGuards(SignInThrottlerGuard, LocalAuthGuard)
   @ApiOperation({ summary: 'Sign in with e-mail and password; sets the refresh cookie' })
-  @ApiBody({ schema: { example: { email: 'office@example.com', password: 'correct horse battery' } } })
+  @ApiContract({ body: SignInSchema, responses: { 200: SessionResponseSchema } })
   async signIn(@Req() req: Request & { user: UserWithCompany }, @Res({ passthrough: true }) res: Response) {
     return this.withCookie(req, res, await this.authService.signIn(req.user, meta(req)));
   }
@@ -45,6 +52,7 @@ export class AuthController {
   @Post('refresh')
   @HttpCode(HttpStatus.OK)
   @ApiOperation({ summary: 'Rotate the refresh cookie and get a new access token' })
+  @ApiContract({ body: 'none', responses: { 200: SessionResponseSchema } })
   async refresh(@Req() req: Request, @Res({ passthrough: true }) res: Response): Promise<SessionResponse> {
     try {
       return this.withCookie(req, res, await this.authService.refresh(readRefreshCookie(req), meta(req)));
@@ -58,6 +66,7 @@ export class AuthController {
   @Post('sign-out')
   @HttpCode(HttpStatus.NO_CONTENT)
   @ApiOperation({ summary: 'End this session (the refresh token family is revoked)' })
+  @ApiContract({ body: 'none', responses: { 204: emptyResponse } })
   async signOut(@Req() req: Request, @Res({ passthrough: true }) res: Response): Promise<void> {
     await this.authService.signOut(readRefreshCookie(req));
     clearRefreshCookie(req, res);
@@ -65,6 +74,7 @@ export class AuthController {
 
   @Get('me')
   @ApiBearerAuth()
+  @ApiContract({ responses: { 200: MeResponseSchema } })
   me(@CurrentUser() user: AuthUser): Promise<MeResponse> {
     return this.authService.me(user.id);
   }
@@ -72,6 +82,7 @@ export class AuthController {
   @Public()
   @Get('invitations/:token')
   @ApiOperation({ summary: 'What an invitation link is for (company, e-mail, role), before accepting it' })
+  @ApiContract({ responses: { 200: InvitationPreviewResponseSchema } })
   previewInvitation(@Param('token') token: string): Promise<InvitationPreviewResponse> {
     return this.authService.previewInvitation(token);
   }
@@ -80,6 +91,7 @@ export class AuthController {
   @Post('invitations/accept')
   @HttpCode(HttpStatus.OK)
   @ApiOperation({ summary: 'Accept an invitation: set name and password, and sign in' })
+  @ApiContract({ body: AcceptInvitationSchema, responses: { 200: SessionResponseSchema } })
   async acceptInvitation(
     @Body(new ZodValidationPipe(AcceptInvitationSchema)) body: AcceptInvitationInput,
     @Req() req: Request,
@@ -93,7 +105,8 @@ export class AuthController {
   @HttpCode(HttpStatus.ACCEPTED)
   @UseGuards(SignInThrottlerGuard)
   @ApiOperation({ summary: 'E-mail a reset link (the answer is the same whether or not the account exists)' })
-  requestPasswordReset(@Body(new ZodValidationPipe(RequestPasswordResetSchema)) body: RequestPasswordResetInput): { message: string } {
+  @ApiContract({ body: RequestPasswordResetSchema, responses: { 202: PasswordResetAcceptedResponseSchema } })
+  requestPasswordReset(@Body(new ZodValidationPipe(RequestPasswordResetSchema)) body: RequestPasswordResetInput): PasswordResetAcceptedResponse {
     this.authService.requestPasswordReset(body.email);
     return { message: 'If that address has an account, a reset link is on its way.' };
   }
@@ -102,6 +115,7 @@ export class AuthController {
   @Post('password-reset/confirm')
   @HttpCode(HttpStatus.NO_CONTENT)
   @ApiOperation({ summary: 'Set a new password from a reset link; ends every session of the account' })
+  @ApiContract({ body: ResetPasswordSchema, responses: { 204: emptyResponse } })
   async resetPassword(@Body(new ZodValidationPipe(ResetPasswordSchema)) body: ResetPasswordInput): Promise<void> {
     await this.authService.resetPassword(body);
   }

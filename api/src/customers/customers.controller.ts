@@ -9,12 +9,15 @@ import {
   CreateCustomerSchema,
   type CustomerListQuery,
   CustomerListQuerySchema,
+  CustomerPageSchema,
   type CustomerResponse,
+  CustomerResponseSchema,
   type UpdateCustomerInput,
   UpdateCustomerSchema,
 } from '../domain/customers/customer.schema.js';
 import type { Page } from '../domain/paging/page.schema.js';
 import { CustomersService } from './customers.service.js';
+import { ApiContract, emptyResponse } from '../common/api-contract.decorator.js';
 
 /** Staff read customers (crews see whom they work for); the office creates and changes them. */
 @ApiTags('customers')
@@ -26,23 +29,27 @@ export class CustomersController {
 
   @Get()
   @ApiOperation({ summary: 'The company’s customers by name, a page at a time', description: '`q` searches name and e-mail; `page` from 1, `pageSize` up to 100 (default 25).' })
+  @ApiContract({ query: CustomerListQuerySchema, responses: { 200: CustomerPageSchema } })
   list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(CustomerListQuerySchema)) query: CustomerListQuery): Promise<Page<CustomerResponse>> {
     return this.customersService.list(user, query);
   }
 
   @Post()
   @Roles('admin', 'office')
+  @ApiContract({ body: CreateCustomerSchema, responses: { 201: CustomerResponseSchema } })
   create(@CurrentUser() user: AuthUser, @Body(new ZodValidationPipe(CreateCustomerSchema)) body: CreateCustomerInput): Promise<CustomerResponse> {
     return this.customersService.create(user, body);
   }
 
   @Get(':id')
+  @ApiContract({ responses: { 200: CustomerResponseSchema } })
   get(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<CustomerResponse> {
     return this.customersService.get(user, id);
   }
 
   @Patch(':id')
   @Roles('admin', 'office')
+  @ApiContract({ body: UpdateCustomerSchema, responses: { 200: CustomerResponseSchema } })
   update(
     @CurrentUser() user: AuthUser,
     @Param('id', ParseUUIDPipe) id: string,
@@ -54,6 +61,7 @@ export class CustomersController {
   @Delete(':id')
   @Roles('admin', 'office')
   @HttpCode(HttpStatus.NO_CONTENT)
+  @ApiContract({ responses: { 204: emptyResponse } })
   async remove(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<void> {
     await this.customersService.remove(user, id);
   }

@@ -1,9 +1,10 @@
 import { Controller, Get, HttpStatus, Res } from '@nestjs/common';
-import { ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
+import { ApiOperation, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 
+import { ApiContract } from '../common/api-contract.decorator.js';
 import { Public } from '../common/decorators/public.decorator.js';
-import type { HealthResponse } from '../domain/health/health.schema.js';
+import { type HealthResponse, HealthResponseSchema } from '../domain/health/health.schema.js';
 import { HealthService } from './health.service.js';
 
 @ApiTags('health')
@@ -14,21 +15,7 @@ export class HealthController {
   @Public()
   @Get()
   @ApiOperation({ summary: 'Liveness of the API and reachability of its database' })
-  @ApiResponse({
-    status: 200,
-    description: 'API and database are up',
-    example: { status: 'ok', database: { status: 'up', latencyMs: 0.8 }, version: '0.1.0', uptimeSeconds: 42 },
-  })
-  @ApiResponse({
-    status: 503,
-    description: 'The database cannot be reached',
-    example: {
-      status: 'error',
-      database: { status: 'down', error: 'database unreachable' },
-      version: '0.1.0',
-      uptimeSeconds: 42,
-    },
-  })
+  @ApiContract({ responses: { 200: HealthResponseSchema, 503: HealthResponseSchema } })
   async check(@Res({ passthrough: true }) res: Response): Promise<HealthResponse> {
     const health = await this.healthService.check();
     res.status(health.status === 'ok' ? HttpStatus.OK : HttpStatus.SERVICE_UNAVAILABLE);

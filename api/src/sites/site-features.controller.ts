@@ -9,12 +9,16 @@ import {
   type CreateSiteFeatureInput,
   CreateSiteFeatureSchema,
   type SiteFeatureResponse,
+  SiteFeatureResponseSchema,
   type UpdateSiteFeatureInput,
   UpdateSiteFeatureSchema,
 } from '../domain/sites/site-feature.schema.js';
 import type { SiteVersionResponse } from '../domain/sites/site-rules.js';
 import { ApiSiteVersion } from './api-site-version.decorator.js';
 import { SiteFeaturesService } from './site-features.service.js';
+import { ApiContract } from '../common/api-contract.decorator.js';
+import { z } from 'zod';
+import { SiteVersionResponseSchema } from '../domain/sites/site.schema.js';
 
 /**
  * Site features (house footprint, fences, walls, patios, paths, pools, spas, driveways, trees, beds):
@@ -30,6 +34,7 @@ export class SiteFeaturesController {
 
   @Get()
   @ApiOperation({ summary: 'The site’s features (landmarks), in drawing order' })
+  @ApiContract({ responses: { 200: z.array(SiteFeatureResponseSchema) } })
   list(@CurrentUser() user: AuthUser, @Param('siteId', ParseUUIDPipe) siteId: string): Promise<SiteFeatureResponse[]> {
     return this.features.list(user, siteId);
   }
@@ -38,6 +43,7 @@ export class SiteFeaturesController {
   @Roles('admin', 'office', 'lead')
   @ApiSiteVersion()
   @ApiOperation({ summary: 'Add a named outline or line to the site plan' })
+  @ApiContract({ body: CreateSiteFeatureSchema, responses: { 201: SiteFeatureResponseSchema.extend(SiteVersionResponseSchema.shape) } })
   create(
     @CurrentUser() user: AuthUser,
     @Param('siteId', ParseUUIDPipe) siteId: string,
@@ -51,6 +57,7 @@ export class SiteFeaturesController {
   @Roles('admin', 'office', 'lead')
   @ApiSiteVersion()
   @ApiOperation({ summary: 'Rename, reclassify or reshape a feature' })
+  @ApiContract({ body: UpdateSiteFeatureSchema, responses: { 200: SiteFeatureResponseSchema.extend(SiteVersionResponseSchema.shape) } })
   update(
     @CurrentUser() user: AuthUser,
     @Param('siteId', ParseUUIDPipe) siteId: string,
@@ -65,6 +72,7 @@ export class SiteFeaturesController {
   @Roles('admin', 'office', 'lead')
   @ApiSiteVersion()
   @ApiOperation({ summary: 'Delete a feature; answers with the site’s new version' })
+  @ApiContract({ responses: { 200: SiteVersionResponseSchema } })
   remove(
     @CurrentUser() user: AuthUser,
     @Param('siteId', ParseUUIDPipe) siteId: string,

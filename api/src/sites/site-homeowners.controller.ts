@@ -1,5 +1,5 @@
 import { Body, Controller, Param, ParseUUIDPipe, Post } from '@nestjs/common';
-import { ApiBearerAuth, ApiBody, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
 
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
@@ -7,6 +7,8 @@ import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
 import type { InvitationResponse } from '../domain/auth/auth.schema.js';
 import { type InviteHomeownerInput, InviteHomeownerSchema } from '../domain/sites/homeowner-invitation.schema.js';
 import { SiteHomeownersService } from './site-homeowners.service.js';
+import { ApiContract } from '../common/api-contract.decorator.js';
+import { InvitationResponseSchema } from '../domain/auth/auth.schema.js';
 
 @ApiTags('sites')
 @ApiBearerAuth()
@@ -20,8 +22,8 @@ export class SiteHomeownersController {
     summary: 'Invite a homeowner to the portal by e-mail; the site is linked to their account when they accept',
     description: 'An existing account with that e-mail is refused (409 EMAIL_TAKEN): link it with POST /api/sites/:siteId/homeowners instead.',
   })
-  @ApiBody({ schema: { type: 'object' }, examples: { invite: { value: { email: 'owner@example.test', name: 'Perrin Ashgrove' } } } })
   @ApiResponse({ status: 409, description: '`EMAIL_TAKEN`: someone already has an account with this e-mail' })
+  @ApiContract({ body: InviteHomeownerSchema, responses: { 201: InvitationResponseSchema } })
   invite(
     @CurrentUser() user: AuthUser,
     @Param('siteId', ParseUUIDPipe) siteId: string,

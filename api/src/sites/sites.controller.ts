@@ -1,4 +1,18 @@
-import { Body, Controller, Delete, Get, HttpCode, HttpStatus, Param, ParseUUIDPipe, Patch, Post, Query, Res, UseInterceptors } from '@nestjs/common';
+import {
+  Body,
+  Controller,
+  Delete,
+  Get,
+  HttpCode,
+  HttpStatus,
+  Param,
+  ParseUUIDPipe,
+  Patch,
+  Post,
+  Query,
+  Res,
+  UseInterceptors,
+} from '@nestjs/common';
 import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 
@@ -12,13 +26,18 @@ import {
   CreateReferencePointSchema,
   type CreateSiteInput,
   CreateSiteSchema,
+  HomeownerListResponseSchema,
   type LinkHomeownerInput,
   LinkHomeownerSchema,
   type ReferencePointResponse,
+  ReferencePointResponseSchema,
   type SiteListQuery,
   SiteListQuerySchema,
+  SitePageSchema,
   type SiteResponse,
+  SiteResponseSchema,
   type SiteSummaryResponse,
+  SiteVersionResponseSchema,
   type UpdateReferencePointInput,
   UpdateReferencePointSchema,
   type UpdateSiteInput,
@@ -28,6 +47,7 @@ import type { Page } from '../domain/paging/page.schema.js';
 import type { SiteVersionResponse } from '../domain/sites/site-rules.js';
 import { ApiSiteVersion } from './api-site-version.decorator.js';
 import { SitesService } from './sites.service.js';
+import { ApiContract, emptyResponse } from '../common/api-contract.decorator.js';
 
 /**
  * Staff read sites; the office creates and changes them and links homeowners; crew leads on the crew of
@@ -45,12 +65,14 @@ export class SitesController {
 
   @Get()
   @ApiOperation({ summary: 'The company’s sites by label, a page at a time', description: '`q` searches label, address, city and customer; `customerId` keeps one customer’s; `page` from 1, `pageSize` up to 100 (default 25).' })
+  @ApiContract({ query: SiteListQuerySchema, responses: { 200: SitePageSchema } })
   list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(SiteListQuerySchema)) query: SiteListQuery): Promise<Page<SiteSummaryResponse>> {
     return this.sitesService.list(user, query);
   }
 
   @Post()
   @Roles('admin', 'office')
+  @ApiContract({ body: CreateSiteSchema, responses: { 201: SiteResponseSchema } })
   create(@CurrentUser() user: AuthUser, @Body(new ZodValidationPipe(CreateSiteSchema)) body: CreateSiteInput): Promise<SiteResponse> {
     return this.sitesService.create(user, body);
   }
@@ -58,6 +80,7 @@ export class SitesController {
   @Get(':id')
   @UseInterceptors(ContentEtagInterceptor)
   @ApiOperation({ summary: 'A site with its reference points, linked homeowners and job history' })
+  @ApiContract({ responses: { 200: SiteResponseSchema } })
   async get(
     @CurrentUser() user: AuthUser,
     @Param('id', ParseUUIDPipe) id: string,
@@ -76,6 +99,7 @@ export class SitesController {
   })
   @ApiSiteVersion()
   @Roles('admin', 'office', 'lead')
+  @ApiContract({ body: UpdateSiteSchema, responses: { 200: SiteResponseSchema.extend(SiteVersionResponseSchema.shape) } })
   update(
     @CurrentUser() user: AuthUser,
     @Param('id', ParseUUIDPipe) id: string,
@@ -88,6 +112,7 @@ export class SitesController {
   @Delete(':id')
   @Roles('admin', 'office')
   @HttpCode(HttpStatus.NO_CONTENT)
+  @ApiContract({ responses: { 204: emptyResponse } })
   async remove(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<void> {
     await this.sitesService.remove(user, id);
   }
@@ -95,6 +120,7 @@ export class SitesController {
   @Post(':siteId/reference-points')
   @Roles('admin', 'office', 'lead')
   @ApiSiteVersion()
+  @ApiContract({ body: CreateReferencePointSchema, responses: { 201: ReferencePointResponseSchema.extend(SiteVersionResponseSchema.shape) } })
   createReferencePoint(
     @CurrentUser() user: AuthUser,
     @Param('siteId', ParseUUIDPipe) siteId: string,
@@ -108,6 +134,7 @@ export class SitesController {
   @Roles('admin', 'office', 'lead')
   @ApiSiteVersion()
   @ApiOperation({ summary: 'Move or rename a reference point: every item tied to it moves, on every open job of the site' })
+  @ApiContract({ body: UpdateReferencePointSchema, responses: { 200: ReferencePointResponseSchema.extend(SiteVersionResponseSchema.shape) } })
   updateReferencePoint(
     @CurrentUser() user: AuthUser,
     @Param('siteId', ParseUUIDPipe) siteId: string,
@@ -122,6 +149,7 @@ export class SitesController {
   @Roles('admin', 'office', 'lead')
   @ApiSiteVersion()
   @ApiOperation({ summary: 'Delete a reference point no item is tied to; answers with the site’s new version' })
+  @ApiContract({ responses: { 200: SiteVersionResponseSchema } })
   deleteReferencePoint(
     @CurrentUser() user: AuthUser,
     @Param('siteId', ParseUUIDPipe) siteId: string,
@@ -134,6 +162,7 @@ export class SitesController {
   @Post(':siteId/homeowners')
   @Roles('admin', 'office')
   @ApiOperation({ summary: 'Let a homeowner account see this site' })
+  @ApiContract({ body: LinkHomeownerSchema, responses: { 201: HomeownerListResponseSchema } })
   linkHomeowner(
     @CurrentUser() user: AuthUser,
     @Param('siteId', ParseUUIDPipe) siteId: string,
@@ -145,6 +174,7 @@ export class SitesController {
   @Delete(':siteId/homeowners/:userId')
   @Roles('admin', 'office')
   @HttpCode(HttpStatus.NO_CONTENT)
+  @ApiContract({ responses: { 204: emptyResponse } })
   async unlinkHomeowner(
     @CurrentUser() user: AuthUser,
     @Param('siteId', ParseUUIDPipe) siteId: string,

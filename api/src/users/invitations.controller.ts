@@ -8,8 +8,11 @@ import {
   type CreateInvitationInput,
   CreateInvitationSchema,
   type InvitationResponse,
+  InvitationResponseSchema,
 } from '../domain/auth/auth.schema.js';
 import { UsersService } from './users.service.js';
+import { ApiContract, emptyResponse } from '../common/api-contract.decorator.js';
+import { z } from 'zod';
 
 @ApiTags('users')
 @ApiBearerAuth()
@@ -19,11 +22,13 @@ export class InvitationsController {
   constructor(private readonly usersService: UsersService) {}
 
   @Get()
+  @ApiContract({ responses: { 200: z.array(InvitationResponseSchema) } })
   list(@CurrentUser() user: AuthUser): Promise<InvitationResponse[]> {
     return this.usersService.listInvitations(user);
   }
 
   @Post()
+  @ApiContract({ body: CreateInvitationSchema, responses: { 201: InvitationResponseSchema } })
   create(
     @CurrentUser() user: AuthUser,
     @Body(new ZodValidationPipe(CreateInvitationSchema)) body: CreateInvitationInput,
@@ -34,12 +39,14 @@ export class InvitationsController {
   @Post(':id/resend')
   @HttpCode(HttpStatus.ACCEPTED)
   @ApiOperation({ summary: 'Queue the invitation e-mail again with a new link (the earlier link stops working)' })
+  @ApiContract({ body: 'none', responses: { 202: InvitationResponseSchema } })
   resend(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<InvitationResponse> {
     return this.usersService.resendInvitation(user, id);
   }
 
   @Delete(':id')
   @HttpCode(HttpStatus.NO_CONTENT)
+  @ApiContract({ responses: { 204: emptyResponse } })
   async revoke(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<void> {
     await this.usersService.revokeInvitation(user, id);
   }

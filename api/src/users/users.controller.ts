@@ -10,9 +10,12 @@ import {
   type UserListQuery,
   UserListQuerySchema,
   type UserListResponse,
+  UserListResponseSchema,
   type UserResponse,
+  UserResponseSchema,
 } from '../domain/auth/auth.schema.js';
 import { UsersService } from './users.service.js';
+import { ApiContract } from '../common/api-contract.decorator.js';
 
 @ApiTags('users')
 @ApiBearerAuth()
@@ -23,12 +26,14 @@ export class UsersController {
   @Get()
   @Roles('admin', 'office')
   @ApiOperation({ summary: 'The company’s people by name, a page at a time', description: '`page` from 1, `pageSize` up to 100 (default 25).' })
+  @ApiContract({ query: UserListQuerySchema, responses: { 200: UserListResponseSchema } })
   list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(UserListQuerySchema)) query: UserListQuery): Promise<UserListResponse> {
     return this.usersService.list(user, query);
   }
 
   @Patch(':id')
   @Roles('admin')
+  @ApiContract({ body: UpdateUserSchema, responses: { 200: UserResponseSchema } })
   update(
     @CurrentUser() user: AuthUser,
     @Param('id', ParseUUIDPipe) id: string,

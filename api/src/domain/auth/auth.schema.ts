@@ -115,3 +115,7 @@ export const InvitationPreviewResponseSchema = z.object({
   companyName: z.string(),
 });
 export type InvitationPreviewResponse = z.infer<typeof InvitationPreviewResponseSchema>;
+
+/** `POST /api/auth/password-reset` (202): the same words whether or not the address has an account. */
+export const PasswordResetAcceptedResponseSchema = z.object({ message: z.string() });
+export type PasswordResetAcceptedResponse = z.infer<typeof PasswordResetAcceptedResponseSchema>;

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 
-import { PageQuerySchema } from '../paging/page.schema.js';
+import { pageSchemaOf, PageQuerySchema } from '../paging/page.schema.js';
 
 const NameSchema = z.string().trim().min(1, { error: 'is required' }).max(120);
 const OptionalEmailSchema = z
@@ -35,12 +35,15 @@ export type UpdateCustomerInput = z.infer<typeof UpdateCustomerSchema>;
 export const CustomerListQuerySchema = z.object({ q: z.string().trim().max(120).optional(), ...PageQuerySchema.shape });
 export type CustomerListQuery = z.infer<typeof CustomerListQuerySchema>;
 
-export interface CustomerResponse {
-  id: string;
-  name: string;
-  email: string | null;
-  phone: string | null;
-  notes: string | null;
-  createdAt: string;
-  updatedAt: string;
-}
+export const CustomerResponseSchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  email: z.string().nullable(),
+  phone: z.string().nullable(),
+  notes: z.string().nullable(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type CustomerResponse = z.infer<typeof CustomerResponseSchema>;
+
+export const CustomerPageSchema = pageSchemaOf(CustomerResponseSchema);

@@ -29,3 +29,8 @@ export function pageOf<T>(items: T[], total: number, query: PageQuery): Page<T> 
 export function pageOffset(query: PageQuery): number {
   return (query.page - 1) * query.pageSize;
 }
+
+/** The response schema of one page of `item`s (the shape of `Page<T>`). */
+export function pageSchemaOf<T extends z.ZodType>(item: T) {
+  return z.object({ items: z.array(item), total: z.number().int(), page: z.number().int(), pageSize: z.number().int() });
+}

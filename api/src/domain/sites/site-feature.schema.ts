@@ -92,5 +92,7 @@ export const SiteFeatureResponseSchema = z.object({
   name: z.string(),
   shape: SiteFeatureShapeSchema,
   points: z.array(z.object({ x: z.number(), y: z.number() })),
+  createdAt: z.string(),
+  updatedAt: z.string(),
 });
-export type SiteFeatureResponse = z.infer<typeof SiteFeatureResponseSchema> & { createdAt: string; updatedAt: string };
+export type SiteFeatureResponse = z.infer<typeof SiteFeatureResponseSchema>;

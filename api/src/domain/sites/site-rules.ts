@@ -92,10 +92,5 @@ export function canWriteSite(actor: SiteActor, jobs: readonly SiteJobFacts[], ki
   return { isAllowed: true };
 }
 
-/** What every versioned site write answers with, besides its own result. */
-export interface SiteVersionResponse {
-  /** The site's version after the write: send it as `If-Match` with the next one. */
-  siteVersion: number;
-  /** The new version of every open job on the site a geometry write bumped (job id → version). */
-  jobVersions: Record<string, number>;
-}
+/** What every versioned site write answers with (the schema lives with the other site contracts). */
+export type { SiteVersionResponse } from './site.schema.js';

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 
 import { LabelSchema, PlanCoordinateSchema } from '../as-built/common.schema.js';
-import { PageQuerySchema } from '../paging/page.schema.js';
+import { pageSchemaOf, PageQuerySchema } from '../paging/page.schema.js';
 
 const Text120 = z.string().trim().max(120);
 const Required120 = z.string().trim().min(1, { error: 'is required' }).max(120);
@@ -75,54 +75,70 @@ export type UpdateReferencePointInput = z.infer<typeof UpdateReferencePointSchem
 export const LinkHomeownerSchema = z.object({ userId: z.uuid() });
 export type LinkHomeownerInput = z.infer<typeof LinkHomeownerSchema>;
 
-export interface ReferencePointResponse {
-  id: string;
-  label: string;
-  x: number;
-  y: number;
-  notes: string | null;
-}
+export const ReferencePointResponseSchema = z.object({
+  id: z.string(),
+  label: z.string(),
+  x: z.number(),
+  y: z.number(),
+  notes: z.string().nullable(),
+});
+export type ReferencePointResponse = z.infer<typeof ReferencePointResponseSchema>;
 
-export interface SiteSummaryResponse {
-  id: string;
-  label: string;
-  customer: { id: string; name: string };
-  addressLine1: string;
-  addressLine2: string | null;
-  city: string;
-  region: string | null;
-  postalCode: string | null;
-  country: string;
-}
+export const SiteSummaryResponseSchema = z.object({
+  id: z.string(),
+  label: z.string(),
+  customer: z.object({ id: z.string(), name: z.string() }),
+  addressLine1: z.string(),
+  addressLine2: z.string().nullable(),
+  city: z.string(),
+  region: z.string().nullable(),
+  postalCode: z.string().nullable(),
+  country: z.string(),
+});
+export type SiteSummaryResponse = z.infer<typeof SiteSummaryResponseSchema>;
+
+export const SitePageSchema = pageSchemaOf(SiteSummaryResponseSchema);
 
 /** The uploaded site-plan image: its stored size (the calibration's pixel space) and where to fetch it. */
-export interface PlanImageResponse {
-  widthPx: number;
-  heightPx: number;
-  contentType: string;
+export const PlanImageResponseSchema = z.object({
+  widthPx: z.number(),
+  heightPx: z.number(),
+  contentType: z.string(),
   /** `/api/sites/:id/plan-image?v=<hash>`; `v` changes whenever the image is replaced. */
-  url: string;
-}
+  url: z.string(),
+});
+export type PlanImageResponse = z.infer<typeof PlanImageResponseSchema>;
 
-export interface SiteResponse extends SiteSummaryResponse {
-  northAzimuthDeg: number;
-  origin: { lat: number; lon: number } | null;
-  planImage: PlanImageResponse | null;
-  planCalibration: PlanCalibration | null;
-  notes: string | null;
-  referencePoints: ReferencePointResponse[];
-  homeowners: { id: string; name: string; email: string }[];
-  jobs: { id: string; title: string; status: string; revision: number; updatedAt: string }[];
+export const SiteResponseSchema = SiteSummaryResponseSchema.extend({
+  northAzimuthDeg: z.number(),
+  origin: z.object({ lat: z.number(), lon: z.number() }).nullable(),
+  planImage: PlanImageResponseSchema.nullable(),
+  planCalibration: PlanCalibrationSchema.nullable(),
+  notes: z.string().nullable(),
+  referencePoints: z.array(ReferencePointResponseSchema),
+  homeowners: z.array(z.object({ id: z.string(), name: z.string(), email: z.string() })),
+  jobs: z.array(z.object({ id: z.string(), title: z.string(), status: z.string(), revision: z.number(), updatedAt: z.string() })),
   /** Optimistic lock: send it as `If-Match` with the next write to the site (also the GET's `ETag`). */
-  version: number;
-  createdAt: string;
-  updatedAt: string;
-}
+  version: z.number().int(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type SiteResponse = z.infer<typeof SiteResponseSchema>;
 
 /** After a plan-image upload: the site, and whether an old calibration was dropped (its pixels no longer apply). */
-export interface PlanImageUploadResponse extends SiteResponse {
-  wasCalibrationCleared: boolean;
-}
+export const PlanImageUploadResponseSchema = SiteResponseSchema.extend({ wasCalibrationCleared: z.boolean() });
+export type PlanImageUploadResponse = z.infer<typeof PlanImageUploadResponseSchema>;
+
+/** What every versioned site write answers with, besides its own result. */
+export const SiteVersionResponseSchema = z.object({
+  /** The site's version after the write: send it as `If-Match` with the next one. */
+  siteVersion: z.number().int(),
+  /** The new version of every open job on the site a geometry write bumped (job id → version). */
+  jobVersions: z.record(z.string(), z.number().int()),
+});
+export type SiteVersionResponse = z.infer<typeof SiteVersionResponseSchema>;
+
+export const HomeownerListResponseSchema = SiteResponseSchema.shape.homeowners;
 
 /** Largest plan-image upload, bytes. */
 export const PLAN_IMAGE_MAX_BYTES = 20 * 1024 * 1024;
