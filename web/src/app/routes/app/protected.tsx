@@ -8,6 +8,15 @@ import { requireUser } from '../../../features/auth/utils/require-user';
 
 // Photos queued before a reload go out again as soon as someone is signed in, on any page. The queue
 // (IndexedDB store, upload code) is its own chunk, loaded right after the first page rather than with it.
+// Changes to jobs made with no signal go out the same way, on any page (issue 17).
+const JobWritesRunner = lazy(() =>
+  import('../../../features/jobs/hooks/use-job-writes-runner').then(({ useJobWritesRunner }) => ({
+    default: function RunJobWrites() {
+      useJobWritesRunner();
+      return null;
+    },
+  })),
+);
 const UploadQueueRunner = lazy(() =>
   import('../../../features/photos/hooks/use-upload-queue').then(({ useUploadQueueRunner }) => ({
     default: function RunUploadQueue() {
@@ -30,6 +39,7 @@ export default function ProtectedRoute() {
     <>
       <Suspense fallback={null}>
         <UploadQueueRunner />
+        <JobWritesRunner />
       </Suspense>
       <RequireSession>
         <Outlet />

@@ -27,29 +27,11 @@ import { isApiError } from '../../../lib/api-client';
 import { clearDraft } from '../../../lib/drafts';
 import { describeRequestError } from '../../../lib/form-errors';
 import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../../job-record';
-import { isAdditiveEndpoint } from '../api/job-write-endpoints';
 import { sendJobWrite, versionAfter, type JobWrite } from '../api/send-job-write';
-import {
-  enqueuePendingWrite,
-  newIdempotencyKey,
-  readPendingWrites,
-  removePendingWrite,
-  subscribePendingWrites,
-  type PendingWrite,
-} from '../utils/pending-writes';
+import { enqueuePendingWrite, newIdempotencyKey, readPendingWrites, subscribePendingWrites, type PendingWrite } from '../utils/pending-writes';
+import { handleConflictsOf, isWorthRetrying, replayPendingWrites } from '../utils/replay-pending-writes';
 
 const useStyles = makeStyles({ action: { minHeight: '48px' } });
-
-/**
- * A failure that another try may get past: no connection (status 0), the server or its database busy
- * or down, a session that could not be refreshed with no signal, or the same change still being saved
- * (`IDEMPOTENCY_IN_PROGRESS`). Such a write is queued, never dropped.
- */
-export function isWorthRetrying(error: unknown): boolean {
-  if (!isApiError(error)) return false;
-  if (error.status === 0 || error.status === 429 || error.status === 502 || error.status === 503 || error.status === 504) return true;
-  return error.status === 409 && error.code === 'IDEMPOTENCY_IN_PROGRESS';
-}
 
 /** What `save` did with a write. */
 export type SaveOutcome = 'saved' | 'queued' | 'conflict';
@@ -77,11 +59,11 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
   const styles = useStyles();
   const notify = useNotify();
   const queryClient = useQueryClient();
-  const queryKey = getJobAsBuiltQueryOptions(jobId).queryKey;
+  // One key per job, so the callbacks below (and the replay as the job opens) do not change every render.
+  const queryKey = useMemo(() => getJobAsBuiltQueryOptions(jobId).queryKey, [jobId]);
   const [conflict, setConflict] = useState<Conflict | undefined>();
   const [isResolving, setIsResolving] = useState(false);
   const [isSending, setIsSending] = useState(false);
-  const flushing = useRef(false);
   const pending = useSyncExternalStore(
     subscribePendingWrites,
     () => readPendingWrites(jobId),
@@ -106,10 +88,12 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
   const refresh = useCallback(() => queryClient.invalidateQueries({ queryKey: ['jobs'] }), [queryClient]);
 
   const send = useCallback(
-    async (write: JobWrite, version: number): Promise<void> => {
+    async (write: JobWrite, version: number): Promise<number | undefined> => {
       const response = await sendJobWrite(jobId, version, write);
-      applyVersion(versionAfter(response));
+      const after = versionAfter(response);
+      applyVersion(after);
       if (write.draftKey) clearDraft(write.draftKey);
+      return after;
     },
     [applyVersion, jobId],
   );
@@ -140,65 +124,43 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
     [currentVersion, jobId, refresh, send],
   );
 
+  // Queued writes of this job that meet someone else's change ask here, whoever started the replay
+  // (this page, or the app shell coming back online).
+  useEffect(
+    () =>
+      handleConflictsOf(
+        jobId,
+        (write, version) => new Promise<void>((resolve) => setConflict({ write, currentVersion: version, resolve: () => resolve() })),
+      ),
+    [jobId],
+  );
+
+  /** Sends this job's waiting writes now (the app shell also does, on every page, when the signal returns). */
   const flush = useCallback(async () => {
-    if (flushing.current) return;
-    const queue = readPendingWrites(jobId);
-    if (queue.length === 0) return;
-    flushing.current = true;
+    if (readPendingWrites(jobId).length === 0) return;
     setIsSending(true);
-    // Writes made one after another offline each built on the version before; once the first lands,
-    // the next builds on the version it produced, since only this browser wrote in between.
-    const rebased = new Map<number, number>();
-    let sent = 0;
     try {
-      for (const entry of queue) {
-        const base = rebased.get(entry.baseVersion) ?? entry.baseVersion;
-        const version = isAdditiveEndpoint(entry.write.endpoint) ? currentVersion() : base;
-        try {
-          const before = version;
-          await send(entry.write, version);
-          rebased.set(entry.baseVersion, currentVersion());
-          rebased.set(before, currentVersion());
-          await removePendingWrite(jobId, entry.id);
-          sent += 1;
-        } catch (error) {
-          // No signal yet, the server busy, or this very change still being saved: stop here and keep
-          // the order; the rest goes out on the next try.
-          if (isWorthRetrying(error)) break;
-          if (isApiError(error) && error.code === 'VERSION_CONFLICT') {
-            // The entry stays queued until the crew has chosen (a reload meanwhile asks again).
-            await new Promise<SaveOutcome>((resolve) => setConflict({ write: entry.write, currentVersion: error.currentVersion, resolve }));
-            await removePendingWrite(jobId, entry.id);
-          } else {
-            // Refused for good (the job was closed, a record deleted…): said, not silently dropped.
-            await removePendingWrite(jobId, entry.id);
-            notify.error(`Could not save: ${entry.write.label}`, describeRequestError(error));
-          }
-        }
-      }
-    } finally {
-      flushing.current = false;
-      setIsSending(false);
+      const { sent } = await replayPendingWrites(jobId, {
+        send: (_jobId, version, write) => send(write, version),
+        knownVersion: () => queryClient.getQueryData<JobAsBuiltResponse>(queryKey)?.job.version,
+        onRefused: (write, error) => notify.error(`Could not save: ${write.label}`, describeRequestError(error)),
+      });
       if (sent > 0) {
         notify.success(sent === 1 ? 'Sent the change made offline' : `Sent ${sent} changes made offline`);
         await refresh();
       }
+    } finally {
+      setIsSending(false);
     }
-  }, [currentVersion, jobId, notify, refresh, send]);
+  }, [jobId, notify, queryClient, queryKey, refresh, send]);
 
+  // Anything kept from an earlier visit goes out (or asks about a conflict) as the job opens; once per
+  // job, not on every render (the shell tries again when the signal returns).
+  const flushRef = useRef(flush);
+  flushRef.current = flush;
   useEffect(() => {
-    void flush();
-    const onOnline = () => void flush();
-    window.addEventListener('online', onOnline);
-    // `online` is not always fired (captive portals, flaky radio); try again now and then.
-    const timer = window.setInterval(() => {
-      if (readPendingWrites(jobId).length > 0) void flush();
-    }, 20_000);
-    return () => {
-      window.removeEventListener('online', onOnline);
-      window.clearInterval(timer);
-    };
-  }, [flush, jobId]);
+    void flushRef.current();
+  }, [jobId]);
 
   const resolveConflict = async (choice: 'reload' | 'keep') => {
     if (!conflict) return;

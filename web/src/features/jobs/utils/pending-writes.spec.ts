@@ -3,7 +3,7 @@ import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { ApiError } from '../../../lib/api-client';
 import { resetSession, setSession } from '../../../lib/session';
 import { buildSessionResponse, buildSessionUser } from '../../../testing/data';
-import { isWorthRetrying } from '../hooks/job-writer';
+import { isWorthRetrying } from './replay-pending-writes';
 
 import { enqueuePendingWrite, loadPendingWrites, readAllPendingWrites, readPendingWrites, removePendingWrite, resetPendingWritesForTests } from './pending-writes';
 

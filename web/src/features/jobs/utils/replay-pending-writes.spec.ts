@@ -1,0 +1,110 @@
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+
+import { ApiError } from '../../../lib/api-client';
+import { resetSession, setSession } from '../../../lib/session';
+import { buildSessionResponse, buildSessionUser } from '../../../testing/data';
+import type { JobWrite } from '../api/send-job-write';
+
+import { enqueuePendingWrite, readAllPendingWrites, readPendingWrites, resetPendingWritesForTests } from './pending-writes';
+import { handleConflictsOf, replayAllPendingWrites, replayPendingWrites, type ReplayDeps } from './replay-pending-writes';
+
+const offline = () => new ApiError({ status: 0, message: 'Cannot reach the server.' });
+const conflict = (currentVersion: number) => new ApiError({ status: 412, message: 'changed', code: 'VERSION_CONFLICT', currentVersion });
+
+const moveItem: JobWrite = { endpoint: 'replaceItem', params: { itemId: 'i1' }, body: { label: 'P1' }, label: 'Position of P1' };
+const reading: JobWrite = { endpoint: 'addDepthReading', params: { runId: 'r1' }, body: { stationM: 1, depthM: 0.45 }, label: 'Reading' };
+const notes: JobWrite = { endpoint: 'updateJob', params: {}, body: { notes: 'Gate code 4411' }, label: 'Job notes' };
+
+/** A server that answers each write with the next version, and remembers what it was sent. */
+function fakeServer(version: number, answer?: (write: JobWrite, sentOn: number) => Error | undefined) {
+  const sent: { jobId: string; endpoint: string; version: number; key: string | undefined }[] = [];
+  const send = vi.fn<ReplayDeps['send']>(async (jobId, sentOn, write) => {
+    const failure = answer?.(write, sentOn);
+    if (failure) throw failure;
+    sent.push({ jobId, endpoint: write.endpoint, version: sentOn, key: write.idempotencyKey });
+    version += 1;
+    return version;
+  });
+  return { sent, deps: { send, knownVersion: () => version, onRefused: vi.fn() } satisfies ReplayDeps };
+}
+
+describe('replaying the offline write queue (issue 17)', () => {
+  beforeEach(() => {
+    resetPendingWritesForTests();
+    setSession(buildSessionResponse(buildSessionUser('lead')));
+  });
+  afterEach(() => resetSession());
+
+  it('should send in order, each replacing write on the version the one before produced, with its kept key', async () => {
+    await enqueuePendingWrite('job-1', { ...moveItem, idempotencyKey: 'key-move-1' }, 7);
+    await enqueuePendingWrite('job-1', notes, 7);
+    await enqueuePendingWrite('job-1', reading, 7);
+    const server = fakeServer(7);
+
+    expect(await replayPendingWrites('job-1', server.deps)).toEqual({ sent: 3 });
+    expect(server.sent).toEqual([
+      { jobId: 'job-1', endpoint: 'replaceItem', version: 7, key: 'key-move-1' },
+      { jobId: 'job-1', endpoint: 'updateJob', version: 8, key: expect.any(String) },
+      { jobId: 'job-1', endpoint: 'addDepthReading', version: 9, key: expect.any(String) },
+    ]);
+    expect(readPendingWrites('job-1')).toEqual([]);
+  });
+
+  it('should stop on no signal and keep the rest in order for the next try', async () => {
+    await enqueuePendingWrite('job-1', reading, 3);
+    await enqueuePendingWrite('job-1', notes, 3);
+    let isOnline = true;
+    const server = fakeServer(3, () => (isOnline ? undefined : offline()));
+    server.deps.send.mockImplementationOnce(async () => {
+      isOnline = false;
+      return 4;
+    });
+
+    expect(await replayPendingWrites('job-1', server.deps)).toEqual({ sent: 1, stoppedBy: 'no-signal' });
+    expect(readPendingWrites('job-1').map((entry) => entry.write.label)).toEqual(['Job notes']);
+  });
+
+  it('should send an added record again on the version a conflict names, but never a replacing write', async () => {
+    await enqueuePendingWrite('job-1', reading, 3);
+    const additive = fakeServer(5, (_write, sentOn) => (sentOn < 6 ? conflict(6) : undefined));
+    additive.deps.knownVersion = () => 5;
+    expect(await replayPendingWrites('job-1', additive.deps)).toEqual({ sent: 1 });
+    expect(additive.sent.map((call) => call.version)).toEqual([6]);
+
+    await enqueuePendingWrite('job-1', moveItem, 3);
+    const replacing = fakeServer(5, () => conflict(6));
+    expect(await replayPendingWrites('job-1', replacing.deps), 'no job page open: it waits there').toEqual({ sent: 0, stoppedBy: 'conflict' });
+    expect(readPendingWrites('job-1')).toHaveLength(1);
+
+    // With the job page open, its dialog asks; the entry leaves the queue once the crew has chosen.
+    const ask = vi.fn(async () => undefined);
+    const stop = handleConflictsOf('job-1', ask);
+    expect(await replayPendingWrites('job-1', replacing.deps)).toEqual({ sent: 0 });
+    expect(ask).toHaveBeenCalledWith(expect.objectContaining({ label: 'Position of P1' }), 6);
+    expect(readPendingWrites('job-1')).toEqual([]);
+    stop();
+  });
+
+  it('should take a refused write off the queue and say so', async () => {
+    await enqueuePendingWrite('job-1', notes, 2);
+    await enqueuePendingWrite('job-1', reading, 2);
+    const refusal = new ApiError({ status: 409, message: 'The job is submitted', code: 'JOB_NOT_EDITABLE' });
+    const server = fakeServer(2, (write) => (write.endpoint === 'updateJob' ? refusal : undefined));
+
+    expect(await replayPendingWrites('job-1', server.deps)).toEqual({ sent: 1 });
+    expect(server.deps.onRefused).toHaveBeenCalledWith(expect.objectContaining({ label: 'Job notes' }), refusal);
+    expect(readPendingWrites('job-1')).toEqual([]);
+  });
+
+  it('should replay every job from any page, oldest first, once even when asked twice at the same time', async () => {
+    await enqueuePendingWrite('job-b', notes, 4);
+    await enqueuePendingWrite('job-a', reading, 9);
+    await enqueuePendingWrite('job-b', reading, 4);
+    const server = fakeServer(20);
+
+    const [first, second] = await Promise.all([replayAllPendingWrites(server.deps), replayAllPendingWrites(server.deps)]);
+    expect(server.sent.map((call) => `${call.jobId} ${call.endpoint}`)).toEqual(['job-b updateJob', 'job-b addDepthReading', 'job-a addDepthReading']);
+    expect(first.sent + second.sent, 'each write is sent and counted once').toBe(3);
+    expect(readAllPendingWrites()).toEqual([]);
+  });
+});
