@@ -1,7 +1,7 @@
 import { formatLength, type LengthSystem } from '../domain/format/length.js';
 import type { SiteMap } from '../domain/locate/site-map.schema.js';
 import { lineLabelCandidates, lineObstacles, placeLabels, pointLabelCandidates, type LabelRequest } from './label-placement.js';
-import { FEATURE_FILL, FEATURE_LABEL, FEATURE_STROKE, INK, PAPER, REFERENCE_INK, RUN_STROKES, type RunStyleKey } from './marking-palette.js';
+import { FEATURE_FILL, FEATURE_LABEL, FEATURE_STROKE, INK, PAPER, REFERENCE_INK, RUN_STROKES, runStyleKey } from './marking-palette.js';
 import { labelSize, type Box, type Point } from './text-box.js';
 
 /**
@@ -38,10 +38,6 @@ function esc(text: string): string {
 
 function n(value: number): string {
   return String(Math.round(value * 100) / 100);
-}
-
-function runStyle(run: SiteMap['runs'][number]): RunStyleKey {
-  return run.isAbandoned ? 'abandoned' : run.isSpare ? 'spare' : run.method;
 }
 
 /** The run's label on the sheet: its name and shallowest recorded depth. */
@@ -111,7 +107,7 @@ export function drawLocateSheetMap(map: SiteMap, options: LocateSheetMapOptions)
   // Runs: orange; kind by weight and dash (marking-palette.ts).
   out.push('<g data-layer="runs">');
   for (const run of runs) {
-    const spec = run.isRouteDrawn ? RUN_STROKES[runStyle(run)] : RUN_STROKES.route_not_recorded;
+    const spec = run.isRouteDrawn ? RUN_STROKES[runStyleKey(run)] : RUN_STROKES.route_not_recorded;
     out.push(
       `<polyline data-run-id="${esc(run.id)}" points="${pts(run.route!)}" fill="none" stroke="${spec.color}" stroke-width="${n(spec.width * 1.2)}"${spec.dash ? ` stroke-dasharray="${spec.dash}"` : ''} stroke-linecap="${spec.linecap}" stroke-linejoin="round"/>`,
     );

@@ -5,7 +5,7 @@ import type { AsBuilt } from '../domain/as-built/as-built.schema.js';
 import { DEMO_AS_BUILT } from '../domain/as-built/demo-as-built.js';
 import { DEMO_SITE_FEATURES } from '../domain/sites/demo-site-features.js';
 import { drawDepthProfile } from './depth-profile.js';
-import { APWA_COLOURS, MARKING_LEGEND, markingMeaning, REFERENCE_INK, RUN_ORANGE, RUN_STROKES } from './marking-palette.js';
+import { APWA_COLOURS, MARKING_LEGEND, markingMeaning, REFERENCE_INK, RUN_ORANGE, RUN_STROKES, runStyleKey } from './marking-palette.js';
 import { createNodeSvgCanvas } from './node-svg-window.js';
 import { drawSitePlan } from './site-plan.js';
 import { drawWiringSchematic } from './wiring-schematic.js';
@@ -159,5 +159,20 @@ describe('stroke colours by role in the generated SVGs', () => {
     expect(shallow.length).toBeGreaterThan(0);
     for (const el of shallow) expect(markingMeaning(el.getAttribute('fill')!)).toBe('neutral');
     expectNoOtherUtilityColour(doc);
+  });
+});
+
+describe(runStyleKey.name, () => {
+  // Issue 21: indoor runs are drawn as indoor, never as buried — the spare and abandoned lines mean
+  // cable in the ground ('Abandoned run, still buried' in the legend).
+  it.each([
+    [{ method: 'direct_burial' as const }, 'direct_burial'],
+    [{ method: 'conduit' as const, isSpare: true }, 'spare'],
+    [{ method: 'direct_burial' as const, isSpare: true, isAbandoned: true }, 'abandoned'],
+    [{ method: 'indoor' as const }, 'indoor'],
+    [{ method: 'indoor' as const, isSpare: true }, 'indoor'],
+    [{ method: 'indoor' as const, isAbandoned: true }, 'indoor'],
+  ])('%o is drawn as %s', (run, style) => {
+    expect(runStyleKey(run)).toBe(style);
   });
 });

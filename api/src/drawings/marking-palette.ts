@@ -56,6 +56,18 @@ export const SHALLOW_ZONE_FILL = '#e9e9e9';
 
 export type RunStyleKey = 'direct_burial' | 'conduit' | 'under_hardscape_sleeve' | 'indoor' | 'spare' | 'abandoned';
 
+/**
+ * How a run is drawn, on every map and plan: abandoned, spare, or by its installation method. An indoor
+ * run keeps the indoor line even when spare or abandoned, because the spare and abandoned lines mean
+ * cable in the ground and indoor cable never is (issue 21); its label says spare or abandoned.
+ */
+export function runStyleKey(run: { method: RunStyleKey; isSpare?: boolean | undefined; isAbandoned?: boolean | undefined }): RunStyleKey {
+  if (run.method === 'indoor') return 'indoor';
+  if (run.isAbandoned === true) return 'abandoned';
+  if (run.isSpare === true) return 'spare';
+  return run.method;
+}
+
 export interface RunStroke {
   color: string;
   /** Width in print points (scale for screens). */

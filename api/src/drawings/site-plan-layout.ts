@@ -8,6 +8,7 @@ import { formatDepthLength, formatGroundLength } from '../domain/format/length.j
 import type { UnitSystem } from './drawing-units.js';
 import { lineLabelAnchor, lineLabelCandidates, lineObstacles, placeLabels, pointLabelCandidates, type LabelRequest, type PlacedLabel } from './label-placement.js';
 import { chooseScale, printableArea, ptPerPlanMetre, type DrawingScale, type Orientation, type PrintableArea } from './paper.js';
+import { runStyleKey } from './marking-palette.js';
 import { labelSize, type Box, type Point } from './text-box.js';
 
 /** Height of the band under the plan that holds the legend, north arrow, scale bar and title block, pt. */
@@ -122,18 +123,6 @@ export interface SitePlanModel {
 function centroidOf(points: readonly Point[]): Point {
   const n = Math.max(points.length, 1);
   return { x: points.reduce((a, p) => a + p.x, 0) / n, y: points.reduce((a, p) => a + p.y, 0) / n };
-}
-
-/**
- * How a run is drawn. An indoor run keeps the indoor line even when spare or abandoned: the spare and
- * abandoned lines mean cable in the ground, and indoor cable never is (issue 21); its label says spare
- * or abandoned.
- */
-export function runStyle(run: Pick<AsBuilt['runs'][number], 'method' | 'isSpare' | 'isAbandoned'>): RunStyleKey {
-  if (run.method === 'indoor') return 'indoor';
-  if (run.isAbandoned === true) return 'abandoned';
-  if (run.isSpare === true) return 'spare';
-  return run.method;
 }
 
 /** Distance along a paper polyline → point, clamped to its ends. */
@@ -302,7 +291,7 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
         shallow.push({ point: pointAlong(paper, s.stationM * k), stationM: s.stationM, depthM: s.depthM });
       }
     }
-    return { runId: run.id, style: runStyle(run), points: paper, isRouteRecorded, shallow };
+    return { runId: run.id, style: runStyleKey(run), points: paper, isRouteRecorded, shallow };
   });
 
   const items: PlanItem[] = asBuilt.items.flatMap((item) => {

@@ -5,7 +5,7 @@ import { zoom, zoomIdentity, type ZoomBehavior, type ZoomTransform } from 'd3-zo
 import { useCallback, useEffect, useId, useLayoutEffect, useRef, useState } from 'react';
 import type { SiteMap } from '@domain/locate/site-map.schema';
 
-import { FEATURE_FILL, FEATURE_LABEL, FEATURE_STROKE, INK, PAPER, REFERENCE_INK, RUN_STROKES, scaleDash, type LegendKey, type RunStyleKey } from '@drawings/marking-palette';
+import { FEATURE_FILL, FEATURE_LABEL, FEATURE_STROKE, INK, PAPER, REFERENCE_INK, RUN_STROKES, runStyleKey, scaleDash, type LegendKey } from '@drawings/marking-palette';
 
 import { MarkingLegend } from '../../../components/marking-legend';
 import { formatLength, type LengthSystem } from '../../../lib/units';
@@ -21,10 +21,6 @@ const LABEL_PX = 13;
 
 type MapRun = SiteMap['runs'][number];
 type Point = { x: number; y: number };
-
-export function runStyleKey(run: Pick<MapRun, 'isAbandoned' | 'isSpare' | 'method'>): RunStyleKey {
-  return run.isAbandoned ? 'abandoned' : run.isSpare ? 'spare' : run.method;
-}
 
 /** The legend entries this map draws, in legend order. */
 export function siteMapLegendKeys(map: SiteMap): LegendKey[] {

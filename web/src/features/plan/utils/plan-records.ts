@@ -5,6 +5,7 @@ import type { Item, ReferencePoint } from '@domain/as-built/item.schema';
 import type { InstallMethod, Run } from '@domain/as-built/run.schema';
 import type { Role } from '@domain/auth/roles';
 import { solvePositionFromTies, type TieObservation, type TieSolution } from '@domain/geometry/ties';
+import { runStyleKey } from '@drawings/marking-palette';
 
 import { parseLength, type LengthSystem } from '../../../lib/units';
 import type { TieDraft } from '../../jobs';
@@ -38,13 +39,11 @@ export function canAddReferencePoint(role: Role): boolean {
   return role === 'admin' || role === 'office' || role === 'lead';
 }
 
-/** How a run is drawn: by its installation method, or as spare or abandoned (as in print). */
+/** How a run is drawn: by its installation method, or as spare or abandoned (as in print; indoor stays indoor). */
 export type RunStyle = InstallMethod | 'spare' | 'abandoned';
 
 export function runStyleOf(run: Run): RunStyle {
-  if (run.isAbandoned === true) return 'abandoned';
-  if (run.isSpare === true) return 'spare';
-  return run.method;
+  return runStyleKey(run);
 }
 
 /** The points a run is drawn with: its recorded route, or a straight line between its ends' positions. */
