@@ -1,4 +1,4 @@
-import { makeStyles, Text, tokens } from '@fluentui/react-components';
+import { makeStyles, mergeClasses, Text, tokens } from '@fluentui/react-components';
 import type { ReactNode } from 'react';
 
 const useStyles = makeStyles({
@@ -20,6 +20,7 @@ const useStyles = makeStyles({
   },
   title: { margin: 0 },
   description: { margin: 0, color: tokens.colorNeutralForeground2, maxWidth: '65ch' },
+  descriptionBlock: { fontFamily: tokens.fontFamilyBase, fontSize: tokens.fontSizeBase400, lineHeight: tokens.lineHeightBase400 },
   actions: { display: 'flex', gap: tokens.spacingHorizontalS, flexShrink: 0 },
 });
 
@@ -40,12 +41,14 @@ export function PageHeader({ title, description, actions }: PageHeaderProps) {
         <Text as="h2" block size={700} weight="semibold" className={styles.title}>
           {title}
         </Text>
-        {description && (
-          // A paragraph only for plain text: a description built of elements (a badge is a <div>)
-          // would put block content inside <p>, which HTML does not allow.
-          <Text as={typeof description === 'string' ? 'p' : 'div'} block size={400} className={styles.description}>
+        {typeof description === 'string' ? (
+          <Text as="p" block size={400} className={styles.description}>
             {description}
           </Text>
+        ) : (
+          // A paragraph only for plain text: a description built of elements (a badge is a <div>) would
+          // put block content inside <p>, which HTML does not allow. Same type size as the text one.
+          description && <div className={mergeClasses(styles.description, styles.descriptionBlock)}>{description}</div>
         )}
       </div>
       {actions && <div className={styles.actions}>{actions}</div>}
