@@ -2,7 +2,9 @@ import { Button, makeStyles, mergeClasses, Text, tokens } from '@fluentui/react-
 import { CheckmarkCircle20Regular, ErrorCircle20Filled, Info20Regular, Warning20Filled } from '@fluentui/react-icons';
 import type { AsBuiltAnalysis } from '@domain/analysis/analyze';
 import { FINDING_SEVERITY_LABELS, findingText, type FindingSeverity } from '@domain/analysis/finding';
+import { findingScope, findingScopeText } from '@domain/analysis/finding-scope';
 import type { AsBuilt } from '@domain/as-built/as-built.schema';
+import type { SiteRecordInfo } from '@domain/jobs/job.schema';
 import type { ReactElement } from 'react';
 
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
@@ -43,6 +45,7 @@ const useStyles = makeStyles({
   iconInfo: { color: tokens.colorNeutralForeground2 },
   body: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXS, minWidth: 0 },
   message: { overflowWrap: 'anywhere' },
+  scope: { overflowWrap: 'anywhere', color: tokens.colorNeutralForeground2 },
   link: { alignSelf: 'flex-start', minHeight: '44px', paddingInline: 0 },
   clear: { display: 'flex', alignItems: 'center', gap: tokens.spacingHorizontalS, color: tokens.colorPaletteGreenForeground1 },
 });
@@ -52,6 +55,8 @@ const useStyles = makeStyles({
 type FindingsPanelProps = {
   analysis: AsBuiltAnalysis;
   asBuilt: AsBuilt;
+  /** Provenance of the site's records (issue 21): each finding says whether it is about this job's work or records already in the ground. */
+  siteRecords?: Readonly<Record<string, SiteRecordInfo>>;
   headingId?: string;
 };
 
@@ -59,7 +64,7 @@ type FindingsPanelProps = {
  * Everything the analysis found, most serious first, each with a link to the field it is about, and a
  * line per amplifier channel (load, worst level drop, share dissipated in the cable).
  */
-export function FindingsPanel({ analysis, asBuilt, headingId = 'findings-heading' }: FindingsPanelProps) {
+export function FindingsPanel({ analysis, asBuilt, siteRecords, headingId = 'findings-heading' }: FindingsPanelProps) {
   const styles = useStyles();
   const { focus } = useWorkspaceFocus();
   const [units] = useUnitPreferences();
@@ -93,12 +98,14 @@ export function FindingsPanel({ analysis, asBuilt, headingId = 'findings-heading
         <ul className={styles.list} aria-label="Findings">
           {analysis.findings.map((finding, i) => {
             const target = targetOfPath(finding.path, asBuilt);
+            const scope = findingScope(finding, asBuilt, siteRecords);
             return (
               <li key={`${finding.code}-${finding.path.join('.')}-${i}`} className={mergeClasses(styles.finding, styles[finding.severity])}>
                 {icon(finding.severity)}
                 <div className={styles.body}>
                   <Text weight="semibold">{FINDING_SEVERITY_LABELS[finding.severity]}</Text>
                   <Text className={styles.message}>{findingText(finding, units.length)}</Text>
+                  {scope && <Text className={styles.scope}>{findingScopeText(scope)}</Text>}
                   {target && (
                     <Button appearance="transparent" className={styles.link} onClick={() => focus(target)}>
                       {target.recordId ? 'Show the field' : `Go to ${SECTION_LABELS[target.section]}`}

@@ -144,7 +144,7 @@ export function JobWorkspace({ data, actor }: JobWorkspaceProps) {
   const focusValue = useMemo(() => ({ target, focus }), [focus, target]);
   const openFindings = analysis.summary.critical + analysis.summary.warning;
 
-  const findings = <FindingsPanel analysis={analysis} asBuilt={asBuilt} />;
+  const findings = <FindingsPanel analysis={analysis} asBuilt={asBuilt} siteRecords={data.records.siteRecords} />;
 
   return (
     <WorkspaceFocusContext.Provider value={focusValue}>
