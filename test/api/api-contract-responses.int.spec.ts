@@ -37,6 +37,7 @@ describe('API answers match their contracts', () => {
   let siteId: string;
   let customerId: string;
   let jobId: string;
+  let runId: string;
 
   beforeAll(async () => {
     app = await createTestApp();
@@ -47,7 +48,9 @@ describe('API answers match their contracts', () => {
     ({ siteId, customerId } = await createSite(office, DEMO_AS_BUILT.site));
     await office.expectOk('post', `/api/sites/${siteId}/reference-points`, { label: 'Gate post', x: 1, y: 2 }, { 'If-Match': `"${await siteVersion(office, siteId)}"` });
     await office.expectOk('post', `/api/sites/${siteId}/homeowners`, { userId: company.users.homeowner.id });
-    jobId = (await insertRecordedJob(company, siteId, { crewLeadUserId: company.users.lead.id, technicianUserIds: [company.users.tech.id] }, DEMO_AS_BUILT)).id;
+    const demo = await insertRecordedJob(company, siteId, { crewLeadUserId: company.users.lead.id, technicianUserIds: [company.users.tech.id] }, DEMO_AS_BUILT);
+    jobId = demo.id;
+    runId = demo.ids.get(DEMO_AS_BUILT.runs.find((run) => (run.depthReadings?.length ?? 0) > 0)!.id)!;
     await createJob(office, siteId);
   });
 
@@ -70,6 +73,13 @@ describe('API answers match their contracts', () => {
     'GET /api/sites/:siteId/features': () => ({ path: `/api/sites/${siteId}/features` }),
     // No plan image was uploaded: the error shape (the upload and its answer are in site-plan-image).
     'GET /api/sites/:siteId/plan-image': () => ({ path: `/api/sites/${siteId}/plan-image` }),
+    'GET /api/jobs': () => ({ path: '/api/jobs?sort=-updatedAt&pageSize=10' }),
+    'GET /api/jobs/:id': () => ({ path: `/api/jobs/${jobId}` }),
+    // The demo as-built: every item kind, depth readings, checks, GPS origin (GeoJSON) and findings.
+    'GET /api/jobs/:id/as-built': () => ({ path: `/api/jobs/${jobId}/as-built` }),
+    'GET /api/jobs/:id/drawings/site-plan.svg': () => ({ path: `/api/jobs/${jobId}/drawings/site-plan.svg?units=imperial` }),
+    'GET /api/jobs/:id/drawings/schematic.svg': () => ({ path: `/api/jobs/${jobId}/drawings/schematic.svg` }),
+    'GET /api/jobs/:id/drawings/runs/:runId/depth-profile.svg': () => ({ path: `/api/jobs/${jobId}/drawings/runs/${runId}/depth-profile.svg` }),
   };
 
   async function call(method: Method, route: string, sample: Sample) {
@@ -136,7 +146,61 @@ describe('API answers match their contracts', () => {
     expect((await call('post', 'POST /api/auth/sign-out', { path: '/api/auth/sign-out', as: 'anonymous' })).status).toBe(204);
   });
 
-  it('a job on the demo as-built exists for the job routes', () => {
-    expect(jobId).toBeTruthy();
+  it('the analysis of the demo as-built answers its contract', async () => {
+    expect((await call('post', 'POST /api/analysis', { path: '/api/analysis', body: { asBuilt: DEMO_AS_BUILT } })).status).toBe(200);
+  });
+
+  it('job and record writes answer their contracts', async () => {
+    const job = await call('post', 'POST /api/jobs', { path: '/api/jobs', body: { siteId, title: 'Contract job', crewLeadUserId: company.users.lead.id } });
+    expect(job.status).toBe(201);
+    const base = `/api/jobs/${job.body.id}`;
+    let version = job.body.version as number;
+    const write = async (method: Method, route: string, path: string, body?: object) => {
+      const res = await call(method, route, { path: `${base}${path}`, body, headers: { 'If-Match': `"${version}"` } });
+      expect(res.status, JSON.stringify(res.body)).toBeLessThan(300);
+      version = res.body.jobVersion ?? res.body.version;
+      return res.body;
+    };
+    await write('patch', 'PATCH /api/jobs/:id', '', { notes: 'Gate code 1234' });
+    await write('post', 'POST /api/jobs/:id/status', '/status', { to: 'in_progress' });
+    const zone = await write('post', 'POST /api/jobs/:jobId/zones', '/zones', { name: 'Patio' });
+    await write('patch', 'PATCH /api/jobs/:jobId/zones/:zoneId', `/zones/${zone.zone.id}`, { name: 'Back patio' });
+    const amp = await write('post', 'POST /api/jobs/:jobId/items', '/items', {
+      kind: 'amplifier',
+      label: 'Amp',
+      channels: [{ name: 'Patio' }],
+      ratedWatts8Ohm: 100,
+      minimumImpedanceOhm: 4,
+    });
+    const speaker = await write('post', 'POST /api/jobs/:jobId/items', '/items', { kind: 'speaker', label: 'Satellite', nominalImpedanceOhm: 8, zoneId: zone.zone.id });
+    await write('put', 'PUT /api/jobs/:jobId/items/:itemId', `/items/${speaker.item.id}`, { kind: 'speaker', label: 'Satellite P1', nominalImpedanceOhm: 8 });
+    const channel = { amplifierItemId: amp.item.id, channelId: amp.item.channels[0].id };
+    await write('put', 'PUT /api/jobs/:jobId/items/:itemId/channels/:channelId/setup', `/items/${amp.item.id}/channels/${channel.channelId}/setup`, {});
+    const runBody = {
+      label: 'Amp to satellite',
+      fromItemId: amp.item.id,
+      toItemId: speaker.item.id,
+      cableType: '14/2 direct burial',
+      gauge: { system: 'awg', awg: 14 },
+      conductors: 2,
+      pairs: [{ pairIndex: 1, channel }],
+      measuredLengthM: 10,
+      method: 'direct_burial',
+    };
+    const run = await write('post', 'POST /api/jobs/:jobId/runs', '/runs', runBody);
+    await write('put', 'PUT /api/jobs/:jobId/runs/:runId', `/runs/${run.run.id}`, { ...runBody, measuredLengthM: 11 });
+    const reading = await write('post', 'POST /api/jobs/:jobId/runs/:runId/depth-readings', `/runs/${run.run.id}/depth-readings`, { stationM: 2, depthM: 0.3 });
+    await write('patch', 'PATCH /api/jobs/:jobId/runs/:runId/depth-readings/:readingId', `/runs/${run.run.id}/depth-readings/${reading.depthReading.id}`, { depthM: 0.35 });
+    const check = await write('post', 'POST /api/jobs/:jobId/checks', '/checks', { channel, quantity: 'dc_resistance', measuredOhm: 6.8 });
+    await write('put', 'PUT /api/jobs/:jobId/checks/:checkId', `/checks/${check.check.id}`, { channel, quantity: 'dc_resistance', measuredOhm: 6.9 });
+    await call('get', 'GET /api/jobs/:id/as-built', { path: `${base}/as-built` });
+    await write('delete', 'DELETE /api/jobs/:jobId/checks/:checkId', `/checks/${check.check.id}`);
+    await write('delete', 'DELETE /api/jobs/:jobId/runs/:runId/depth-readings/:readingId', `/runs/${run.run.id}/depth-readings/${reading.depthReading.id}`);
+    await write('delete', 'DELETE /api/jobs/:jobId/runs/:runId', `/runs/${run.run.id}`);
+    await write('delete', 'DELETE /api/jobs/:jobId/items/:itemId', `/items/${speaker.item.id}`);
+    await write('delete', 'DELETE /api/jobs/:jobId/zones/:zoneId', `/zones/${zone.zone.id}`);
+    // A stale version: 412 with the error shape and currentVersion.
+    const stale = await call('patch', 'PATCH /api/jobs/:id', { path: base, body: { notes: 'late' }, headers: { 'If-Match': '"1"' } });
+    expect(stale.status).toBe(412);
   });
 });

@@ -1,12 +1,13 @@
 import { Body, Controller, HttpCode, HttpStatus, Post } from '@nestjs/common';
-import { ApiBearerAuth, ApiBody, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
 
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
 import type { AsBuiltAnalysis } from '../domain/analysis/analyze.js';
 import { type AnalysisRequest, AnalysisRequestSchema } from '../domain/analysis/analysis-request.schema.js';
-import { DEMO_AS_BUILT } from '../domain/as-built/demo-as-built.js';
 import { AnalysisService } from './analysis.service.js';
+import { ApiContract } from '../common/api-contract.decorator.js';
+import { AsBuiltAnalysisSchema } from '../domain/analysis/analysis.schema.js';
 
 @ApiTags('analysis')
 @ApiBearerAuth()
@@ -23,9 +24,8 @@ export class AnalysisController {
       'Stateless: nothing is stored. All values are SI (metres, ohms, watts, °C). Findings carry a severity, a ' +
       'plain explanation and the path of the field they concern. Checks are engineering aids, not code approval.',
   })
-  @ApiBody({ schema: { type: 'object' }, examples: { demo: { summary: 'The demo job', value: { asBuilt: DEMO_AS_BUILT } } } })
-  @ApiResponse({ status: 200, description: 'The full analysis (runs, channels, depth, positions, checks, GeoJSON, findings)' })
   @ApiResponse({ status: 400, description: 'The as-built is malformed; `issues[].path` names each bad field' })
+  @ApiContract({ body: AnalysisRequestSchema, responses: { 200: AsBuiltAnalysisSchema } })
   analyze(@Body(new ZodValidationPipe(AnalysisRequestSchema)) body: AnalysisRequest): AsBuiltAnalysis {
     return this.analysisService.analyze(body);
   }

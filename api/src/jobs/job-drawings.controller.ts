@@ -1,5 +1,5 @@
 import { Controller, Get, Headers, Param, ParseUUIDPipe, Query, Res } from '@nestjs/common';
-import { ApiBearerAuth, ApiOperation, ApiProduces, ApiQuery, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
@@ -8,11 +8,11 @@ import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
 import {
   type DrawingQuery,
   DrawingQuerySchema,
-  SITE_PLAN_LAYER_NAMES,
   type SitePlanDrawingQuery,
   SitePlanDrawingQuerySchema,
 } from '../domain/jobs/job-drawings.schema.js';
 import { type DrawingAnswer, JobDrawingsService } from './job-drawings.service.js';
+import { ApiContract, fileResponse } from '../common/api-contract.decorator.js';
 
 const uuid = new ParseUUIDPipe();
 
@@ -46,11 +46,8 @@ export class JobDrawingsController {
   constructor(private readonly drawings: JobDrawingsService) {}
 
   @Get('site-plan.svg')
-  @ApiProduces('image/svg+xml')
   @ApiOperation({ summary: 'The site plan of the current as-built, to scale on a Letter or A4 sheet, with the site’s calibrated plan image underneath' })
-  @ApiQuery({ name: 'units', required: false, enum: ['metric', 'imperial'] })
-  @ApiQuery({ name: 'paper', required: false, enum: ['letter', 'a4'] })
-  @ApiQuery({ name: 'layers', required: false, description: `Layers to turn off, comma-separated: ${SITE_PLAN_LAYER_NAMES.join(', ')}` })
+  @ApiContract({ query: SitePlanDrawingQuerySchema, responses: { 200: fileResponse('image/svg+xml') } })
   async sitePlan(
     @CurrentUser() user: AuthUser,
     @Param('id', uuid) id: string,
@@ -62,9 +59,8 @@ export class JobDrawingsController {
   }
 
   @Get('schematic.svg')
-  @ApiProduces('image/svg+xml')
   @ApiOperation({ summary: 'The wiring schematic of the current as-built: amplifier channels → runs → items, with the load per channel' })
-  @ApiQuery({ name: 'units', required: false, enum: ['metric', 'imperial'] })
+  @ApiContract({ query: DrawingQuerySchema, responses: { 200: fileResponse('image/svg+xml') } })
   async schematic(
     @CurrentUser() user: AuthUser,
     @Param('id', uuid) id: string,
@@ -76,9 +72,8 @@ export class JobDrawingsController {
   }
 
   @Get('runs/:runId/depth-profile.svg')
-  @ApiProduces('image/svg+xml')
   @ApiOperation({ summary: 'The depth profile of one run: readings along the trench against the rule minimum' })
-  @ApiQuery({ name: 'units', required: false, enum: ['metric', 'imperial'] })
+  @ApiContract({ query: DrawingQuerySchema, responses: { 200: fileResponse('image/svg+xml') } })
   async depthProfile(
     @CurrentUser() user: AuthUser,
     @Param('id', uuid) id: string,

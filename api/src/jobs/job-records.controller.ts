@@ -1,5 +1,5 @@
 import { Body, Controller, Delete, Param, ParseUUIDPipe, Patch, Post, Put } from '@nestjs/common';
-import { ApiBearerAuth, ApiBody, ApiOperation, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
 
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
@@ -8,21 +8,29 @@ import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
 import {
   type ChannelSetup,
   ChannelSetupSchema,
+  ChannelSetupWriteResponseSchema,
   type CheckInput,
   CheckInputSchema,
+  CheckWriteResponseSchema,
   type DepthReadingInput,
   DepthReadingInputSchema,
+  DepthReadingWriteResponseSchema,
   type ItemInput,
   ItemInputSchema,
+  ItemWriteResponseSchema,
   type RunInput,
   RunInputSchema,
+  RunWriteResponseSchema,
   type UpdateDepthReadingInput,
   UpdateDepthReadingSchema,
   type ZoneInput,
   ZoneInputSchema,
+  ZoneWriteResponseSchema,
 } from '../domain/jobs/job-record.schema.js';
 import { ApiJobVersion } from './api-job-version.decorator.js';
 import { JobRecordsService } from './job-records.service.js';
+import { ApiContract } from '../common/api-contract.decorator.js';
+import { JobVersionResponseSchema } from '../domain/jobs/job.schema.js';
 
 const uuid = new ParseUUIDPipe();
 
@@ -41,7 +49,7 @@ export class JobRecordsController {
   constructor(private readonly records: JobRecordsService) {}
 
   @Post('zones')
-  @ApiBody({ schema: { type: 'object' }, examples: { zone: { value: { name: 'Patio', expectedVersion: 1 } } } })
+  @ApiContract({ body: ZoneInputSchema, responses: { 201: ZoneWriteResponseSchema } })
   createZone(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,
@@ -52,6 +60,7 @@ export class JobRecordsController {
   }
 
   @Patch('zones/:zoneId')
+  @ApiContract({ body: ZoneInputSchema, responses: { 200: ZoneWriteResponseSchema } })
   updateZone(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,
@@ -64,6 +73,7 @@ export class JobRecordsController {
 
   @Delete('zones/:zoneId')
   @ApiOperation({ summary: 'Delete a zone; its items stay, without a zone' })
+  @ApiContract({ responses: { 200: JobVersionResponseSchema } })
   deleteZone(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,
@@ -75,21 +85,7 @@ export class JobRecordsController {
 
   @Post('items')
   @ApiOperation({ summary: 'Add an equipment item (any kind: amplifier with channels, speaker, subwoofer, junction, spare end, wall entry)' })
-  @ApiBody({
-    schema: { type: 'object' },
-    examples: {
-      speaker: {
-        value: {
-          kind: 'speaker',
-          label: 'Patio satellite P1',
-          nominalImpedanceOhm: 16,
-          ties: [{ referencePointId: '…uuid…', distanceM: 10.2 }],
-          sideHint: 'left',
-          expectedVersion: 4,
-        },
-      },
-    },
-  })
+  @ApiContract({ body: ItemInputSchema, responses: { 201: ItemWriteResponseSchema } })
   createItem(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,
@@ -101,6 +97,7 @@ export class JobRecordsController {
 
   @Put('items/:itemId')
   @ApiOperation({ summary: 'Replace an item; amplifier channels sent with their id are kept, channels left out are deleted' })
+  @ApiContract({ body: ItemInputSchema, responses: { 200: ItemWriteResponseSchema } })
   replaceItem(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,
@@ -113,6 +110,7 @@ export class JobRecordsController {
 
   @Delete('items/:itemId')
   @ApiOperation({ summary: 'Delete an item (refused with 409 IN_USE while a run or check uses it)' })
+  @ApiContract({ responses: { 200: JobVersionResponseSchema } })
   deleteItem(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,
@@ -124,6 +122,7 @@ export class JobRecordsController {
 
   @Put('items/:itemId/channels/:channelId/setup')
   @ApiOperation({ summary: 'Record how an amplifier channel was set up (source, gain, limits, EQ, crossover …; never passwords)' })
+  @ApiContract({ body: ChannelSetupSchema, responses: { 200: ChannelSetupWriteResponseSchema } })
   updateChannelSetup(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,
@@ -137,6 +136,7 @@ export class JobRecordsController {
 
   @Post('runs')
   @ApiOperation({ summary: 'Add a run (cable between two items) with its pairs, route and optional depth readings' })
+  @ApiContract({ body: RunInputSchema, responses: { 201: RunWriteResponseSchema } })
   createRun(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,
@@ -148,6 +148,7 @@ export class JobRecordsController {
 
   @Put('runs/:runId')
   @ApiOperation({ summary: 'Replace a run; its depth readings are replaced only when the body lists them' })
+  @ApiContract({ body: RunInputSchema, responses: { 200: RunWriteResponseSchema } })
   replaceRun(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,
@@ -160,6 +161,7 @@ export class JobRecordsController {
 
   @Delete('runs/:runId')
   @ApiOperation({ summary: 'Delete a run of this job; a run an earlier job installed is recorded as removed by this job instead' })
+  @ApiContract({ responses: { 200: JobVersionResponseSchema } })
   deleteRun(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,
@@ -171,6 +173,7 @@ export class JobRecordsController {
 
   @Delete('site-changes/:recordId')
   @ApiOperation({ summary: 'Undo this job’s change to an item or run an earlier job installed (changed, abandoned or removed)' })
+  @ApiContract({ responses: { 200: JobVersionResponseSchema } })
   undoChange(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,
@@ -183,7 +186,7 @@ export class JobRecordsController {
   @Post('runs/:runId/depth-readings')
   @Roles('admin', 'office', 'lead', 'tech')
   @ApiOperation({ summary: 'Quick add: a depth reading (cover, metres) at a station (metres from the run’s from-end)' })
-  @ApiBody({ schema: { type: 'object' }, examples: { reading: { value: { stationM: 3, depthM: 0.11, expectedVersion: 9 } } } })
+  @ApiContract({ body: DepthReadingInputSchema, responses: { 201: DepthReadingWriteResponseSchema } })
   addDepthReading(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,
@@ -196,6 +199,7 @@ export class JobRecordsController {
 
   @Patch('runs/:runId/depth-readings/:readingId')
   @Roles('admin', 'office', 'lead', 'tech')
+  @ApiContract({ body: UpdateDepthReadingSchema, responses: { 200: DepthReadingWriteResponseSchema } })
   updateDepthReading(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,
@@ -209,6 +213,7 @@ export class JobRecordsController {
 
   @Delete('runs/:runId/depth-readings/:readingId')
   @Roles('admin', 'office', 'lead', 'tech')
+  @ApiContract({ responses: { 200: JobVersionResponseSchema } })
   deleteDepthReading(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,
@@ -222,6 +227,7 @@ export class JobRecordsController {
   @Post('checks')
   @Roles('admin', 'office', 'lead', 'tech')
   @ApiOperation({ summary: 'Add a commissioning check (measured DC resistance or impedance of one channel)' })
+  @ApiContract({ body: CheckInputSchema, responses: { 201: CheckWriteResponseSchema } })
   createCheck(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,
@@ -233,6 +239,7 @@ export class JobRecordsController {
 
   @Put('checks/:checkId')
   @Roles('admin', 'office', 'lead', 'tech')
+  @ApiContract({ body: CheckInputSchema, responses: { 200: CheckWriteResponseSchema } })
   replaceCheck(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,
@@ -245,6 +252,7 @@ export class JobRecordsController {
 
   @Delete('checks/:checkId')
   @Roles('admin', 'office', 'lead', 'tech')
+  @ApiContract({ responses: { 200: JobVersionResponseSchema } })
   deleteCheck(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,

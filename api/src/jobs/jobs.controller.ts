@@ -1,5 +1,20 @@
-import { Body, Controller, Delete, Get, Headers, HttpCode, HttpStatus, Param, ParseUUIDPipe, Patch, Post, Query, Res, UseInterceptors } from '@nestjs/common';
-import { ApiBearerAuth, ApiBody, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
+import {
+  Body,
+  Controller,
+  Delete,
+  Get,
+  Headers,
+  HttpCode,
+  HttpStatus,
+  Param,
+  ParseUUIDPipe,
+  Patch,
+  Post,
+  Query,
+  Res,
+  UseInterceptors,
+} from '@nestjs/common';
+import { ApiBearerAuth, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
 
 import type { Response } from 'express';
 
@@ -13,15 +28,19 @@ import {
   ChangeJobStatusSchema,
   type CreateJobInput,
   CreateJobSchema,
+  JobAsBuiltResponseSchema,
   type JobListQuery,
   JobListQuerySchema,
   type JobListResponse,
+  JobListResponseSchema,
   type JobResponse,
+  JobResponseSchema,
   type UpdateJobInput,
   UpdateJobSchema,
 } from '../domain/jobs/job.schema.js';
 import { ApiJobVersion } from './api-job-version.decorator.js';
 import { JobsService } from './jobs.service.js';
+import { ApiContract, emptyResponse } from '../common/api-contract.decorator.js';
 
 @ApiTags('jobs')
 @ApiBearerAuth()
@@ -38,6 +57,7 @@ export class JobsController {
       'list or the parameter repeated; `sort` is updatedAt|title|status|startDate|site|customer, prefixed with - for descending (default -updatedAt); ' +
       '`page` from 1; `pageSize` up to 100 (default 25); `mine=true` keeps jobs you lead or are assigned to.',
   })
+  @ApiContract({ query: JobListQuerySchema, responses: { 200: JobListResponseSchema } })
   list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(JobListQuerySchema)) query: JobListQuery): Promise<JobListResponse> {
     return this.jobsService.list(user, query);
   }
@@ -45,10 +65,7 @@ export class JobsController {
   @Post()
   @Roles('admin', 'office')
   @ApiOperation({ summary: 'Create a draft job on a site' })
-  @ApiBody({
-    schema: { type: 'object' },
-    examples: { job: { value: { siteId: '…uuid…', title: 'Back-yard sound, phase 1', crewLeadUserId: '…uuid…', technicianUserIds: [] } } },
-  })
+  @ApiContract({ body: CreateJobSchema, responses: { 201: JobResponseSchema } })
   create(@CurrentUser() user: AuthUser, @Body(new ZodValidationPipe(CreateJobSchema)) body: CreateJobInput): Promise<JobResponse> {
     return this.jobsService.create(user, body);
   }
@@ -56,6 +73,7 @@ export class JobsController {
   @Get(':id')
   @UseInterceptors(ContentEtagInterceptor)
   @ApiOperation({ summary: 'One job', description: 'Answers with an `ETag`; `If-None-Match` with it answers 304 while the job is unchanged.' })
+  @ApiContract({ responses: { 200: JobResponseSchema } })
   get(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<JobResponse> {
     return this.jobsService.get(user, id);
   }
@@ -68,8 +86,8 @@ export class JobsController {
       '`records` adds the ids of depth readings and the amplifier channel setups. Answers with an `ETag`; ' +
       '`If-None-Match` with it answers 304 while nothing the answer shows has changed.',
   })
-  @ApiResponse({ status: 200, description: 'JobAsBuiltResponse (JSON)' })
   @ApiResponse({ status: 304, description: 'Not modified (If-None-Match named the current ETag)' })
+  @ApiContract({ responses: { 200: JobAsBuiltResponseSchema } })
   async asBuilt(
     @CurrentUser() user: AuthUser,
     @Param('id', ParseUUIDPipe) id: string,
@@ -90,7 +108,7 @@ export class JobsController {
   @Roles('admin', 'office', 'lead')
   @ApiJobVersion()
   @ApiOperation({ summary: 'Change a job’s details (office); a crew lead on the job may change its notes' })
-  @ApiBody({ schema: { type: 'object' }, examples: { rename: { value: { title: 'Back-yard sound', expectedVersion: 3 } } } })
+  @ApiContract({ body: UpdateJobSchema, responses: { 200: JobResponseSchema } })
   update(
     @CurrentUser() user: AuthUser,
     @Param('id', ParseUUIDPipe) id: string,
@@ -105,6 +123,7 @@ export class JobsController {
   @HttpCode(HttpStatus.NO_CONTENT)
   @ApiJobVersion()
   @ApiOperation({ summary: 'Delete a draft job and its whole record' })
+  @ApiContract({ responses: { 204: emptyResponse } })
   async remove(
     @CurrentUser() user: AuthUser,
     @Param('id', ParseUUIDPipe) id: string,
@@ -124,14 +143,8 @@ export class JobsController {
       'submitted or ready_to_issue → in_progress (send back; `comment` required); issued → in_progress (reopen: the next ' +
       'revision). `issued` is set by issuing a packet, not here.',
   })
-  @ApiBody({
-    schema: { type: 'object' },
-    examples: {
-      submit: { value: { to: 'submitted', expectedVersion: 12 } },
-      sendBack: { value: { to: 'in_progress', comment: 'Add a depth reading at the spa splice.', expectedVersion: 13 } },
-    },
-  })
   @ApiResponse({ status: 400, description: 'A send-back without `comment` (issues name the field)' })
+  @ApiContract({ body: ChangeJobStatusSchema, responses: { 200: JobResponseSchema } })
   changeStatus(
     @CurrentUser() user: AuthUser,
     @Param('id', ParseUUIDPipe) id: string,

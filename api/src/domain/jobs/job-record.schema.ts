@@ -2,6 +2,7 @@ import { z } from 'zod';
 
 import { CommissioningCheckSchema } from '../checks/commissioning-check.schema.js';
 import { LabelSchema, OptionalShortTextSchema, OptionalTextSchema } from '../as-built/common.schema.js';
+import { ZoneSchema } from '../as-built/as-built.schema.js';
 import { ItemSchema } from '../as-built/item.schema.js';
 import { DepthReadingSchema, RunSchema } from '../as-built/run.schema.js';
 
@@ -77,3 +78,12 @@ export const ChannelSetupSchema = z.object({
   notes: OptionalTextSchema.nullable(),
 });
 export type ChannelSetup = z.infer<typeof ChannelSetupSchema>;
+
+/** What each write to a job's records answers: the record as stored (ids are database uuids) and the job's new version. */
+const withJobVersion = <T extends z.ZodRawShape>(shape: T) => z.object({ ...shape, jobVersion: z.number().int() });
+export const ZoneWriteResponseSchema = withJobVersion({ zone: ZoneSchema });
+export const ItemWriteResponseSchema = withJobVersion({ item: ItemSchema });
+export const RunWriteResponseSchema = withJobVersion({ run: RunSchema });
+export const ChannelSetupWriteResponseSchema = withJobVersion({ channelSetup: ChannelSetupSchema });
+export const DepthReadingWriteResponseSchema = withJobVersion({ depthReading: DepthReadingSchema.extend({ id: z.string() }) });
+export const CheckWriteResponseSchema = withJobVersion({ check: CommissioningCheckSchema });

@@ -1,10 +1,12 @@
 import { z } from 'zod';
 
 import type { AsBuiltAnalysis } from '../analysis/analyze.js';
-import type { AsBuilt } from '../as-built/as-built.schema.js';
+import { type AsBuilt, AsBuiltSchema } from '../as-built/as-built.schema.js';
+import { AsBuiltAnalysisSchema } from '../analysis/analysis.schema.js';
+import { pageSchemaOf } from '../paging/page.schema.js';
 import { IsoDateSchema } from '../as-built/common.schema.js';
 import { JOB_STATUSES, type JobStatus, REQUESTABLE_STATUSES } from './job-rules.js';
-import type { ChannelSetup } from './job-record.schema.js';
+import { ChannelSetupSchema } from './job-record.schema.js';
 
 export const JobStatusSchema = z.enum(JOB_STATUSES);
 
@@ -91,77 +93,86 @@ export const JobListQuerySchema = z.object({
 });
 export type JobListQuery = z.infer<typeof JobListQuerySchema>;
 
-export interface PersonRef {
-  id: string;
-  name: string;
-}
+export const PersonRefSchema = z.object({ id: z.string(), name: z.string() });
+export type PersonRef = z.infer<typeof PersonRefSchema>;
 
-export interface JobSummaryResponse {
-  id: string;
-  title: string;
-  status: JobStatus;
-  revision: number;
-  version: number;
-  site: { id: string; label: string; city: string };
-  customer: { id: string; name: string };
-  crewLead: PersonRef | null;
-  startDate: string | null;
-  endDate: string | null;
-  updatedAt: string;
-}
+export const JobSummaryResponseSchema = z.object({
+  id: z.string(),
+  title: z.string(),
+  status: z.enum(JOB_STATUSES),
+  revision: z.number().int(),
+  version: z.number().int(),
+  site: z.object({ id: z.string(), label: z.string(), city: z.string() }),
+  customer: z.object({ id: z.string(), name: z.string() }),
+  crewLead: PersonRefSchema.nullable(),
+  startDate: z.string().nullable(),
+  endDate: z.string().nullable(),
+  updatedAt: z.string(),
+});
+export type JobSummaryResponse = z.infer<typeof JobSummaryResponseSchema>;
 
-export interface JobListResponse {
-  items: JobSummaryResponse[];
-  total: number;
-  page: number;
-  pageSize: number;
-}
+export const JobListResponseSchema = pageSchemaOf(JobSummaryResponseSchema);
+export type JobListResponse = z.infer<typeof JobListResponseSchema>;
 
-export interface JobResponse extends JobSummaryResponse {
-  technicians: PersonRef[];
-  notes: string | null;
-  reviewComment: string | null;
-  createdAt: string;
-}
+export const JobResponseSchema = JobSummaryResponseSchema.extend({
+  technicians: z.array(PersonRefSchema),
+  notes: z.string().nullable(),
+  reviewComment: z.string().nullable(),
+  createdAt: z.string(),
+});
+export type JobResponse = z.infer<typeof JobResponseSchema>;
+
+/** Provenance of one record of a site's installed system (see JobAsBuiltResponse.records.siteRecords). */
+export const SiteRecordInfoSchema = z.object({
+  kind: z.enum(['item', 'run']),
+  /** Installed by the job being viewed (false: an earlier job's record, already in the ground). */
+  isThisJob: z.boolean(),
+  installedBy: z.object({ jobId: z.string(), jobTitle: z.string() }),
+  /** ISO date: the installing job's work date. */
+  installedOn: z.string(),
+  /** Jobs that changed the record after it went in, oldest first (`isIssued` false: not issued yet). */
+  changedBy: z.array(
+    z.object({
+      jobId: z.string(),
+      jobTitle: z.string(),
+      change: z.enum(['changed', 'abandoned', 'removed']),
+      on: z.string(),
+      isIssued: z.boolean(),
+    }),
+  ),
+  /** Abandoned in place: by which job, since when. */
+  abandoned: z.object({ jobId: z.string(), jobTitle: z.string(), on: z.string() }).nullable(),
+});
+export type SiteRecordInfo = z.infer<typeof SiteRecordInfoSchema>;
 
 /** `GET /api/jobs/:id/as-built`: the job, its as-built (ids are database uuids) and the analysis. */
-export interface JobAsBuiltResponse {
-  job: JobResponse;
-  asBuilt: AsBuilt;
-  analysis: AsBuiltAnalysis;
+export const JobAsBuiltResponseSchema = z.object({
+  job: JobResponseSchema,
+  asBuilt: AsBuiltSchema,
+  analysis: AsBuiltAnalysisSchema,
   /**
    * What the as-built contract has no place for: the ids of depth readings (parallel to each run's
    * `depthReadings`) so they can be edited, and each amplifier channel's setup, by channel id.
    */
-  records: {
-    depthReadingIds: Record<string, string[]>;
-    channelSetups: Record<string, ChannelSetup>;
+  records: z.object({
+    depthReadingIds: z.record(z.string(), z.array(z.string())),
+    channelSetups: z.record(z.string(), ChannelSetupSchema),
     /**
      * The as-built is the site's installed system as it will stand after this job: records installed by
      * earlier issued jobs and this job's own. Per record id: who installed it and when, its changes, and
      * whether it was abandoned (`isThisJob` false = existing, read-only until this job changes it).
      */
-    siteRecords?: Record<string, SiteRecordInfo>;
+    siteRecords: z.record(z.string(), SiteRecordInfoSchema).optional(),
     /** Earlier records this job removes (taken out of the ground; no longer in the as-built). */
-    removedByThisJob?: { kind: 'item' | 'run'; id: string; label: string; removedOn: string }[];
-  };
-}
-
-/** Provenance of one record of a site's installed system (see JobAsBuiltResponse.records.siteRecords). */
-export interface SiteRecordInfo {
-  kind: 'item' | 'run';
-  /** Installed by the job being viewed (false: an earlier job's record, already in the ground). */
-  isThisJob: boolean;
-  installedBy: { jobId: string; jobTitle: string };
-  /** ISO date: the installing job's work date. */
-  installedOn: string;
-  /** Jobs that changed the record after it went in, oldest first (`isIssued` false: not issued yet). */
-  changedBy: { jobId: string; jobTitle: string; change: 'changed' | 'abandoned' | 'removed'; on: string; isIssued: boolean }[];
-  /** Abandoned in place: by which job, since when. */
-  abandoned: { jobId: string; jobTitle: string; on: string } | null;
-}
+    removedByThisJob: z.array(z.object({ kind: z.enum(['item', 'run']), id: z.string(), label: z.string(), removedOn: z.string() })).optional(),
+  }),
+});
+/** The as-built and analysis keep their computation types (the schemas describe the same JSON). */
+export type JobAsBuiltResponse = Omit<z.infer<typeof JobAsBuiltResponseSchema>, 'asBuilt' | 'analysis'> & {
+  asBuilt: AsBuilt;
+  analysis: AsBuiltAnalysis;
+};
 
 /** Every write to a job's children answers with the job's new version. */
-export interface JobVersionResponse {
-  jobVersion: number;
-}
+export const JobVersionResponseSchema = z.object({ jobVersion: z.number().int() });
+export type JobVersionResponse = z.infer<typeof JobVersionResponseSchema>;
