@@ -1,8 +1,12 @@
+import { writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 
 import type { AsBuilt } from '../../api/src/domain/as-built/as-built.schema.js';
-import { launchChromium } from '../support/browser.js';
+import { makeFieldPhoto } from '../fixtures/photos/make-photos.js';
+import { launchChromium, tempDir } from '../support/browser.js';
 import { createCompany, TEST_PASSWORD, type TestCompany } from '../support/fixtures.js';
 import { httpApiAs } from '../support/http-api.js';
 import { type Api, createJob, createSite, moveJob, recordAsBuilt } from '../support/records.js';
@@ -77,15 +81,19 @@ describe('a crew lead records with no signal (issue 17)', () => {
   let browser: Browser;
   let company: TestCompany;
   let office: Api;
+  const files = tempDir('loamline-offline-');
+  const photoPath = join(files.path, 'trench-open.jpg');
 
   beforeAll(async () => {
     browser = await launchChromium();
     company = await createCompany('Offline Yard');
     office = (await httpApiAs(baseUrl, company.users.office)) as unknown as Api;
+    writeFileSync(photoPath, await makeFieldPhoto({ width: 800, height: 600, orientation: 1 }));
   });
 
   afterAll(async () => {
     await browser.close();
+    files.remove();
   });
 
   async function startedJob(): Promise<{ jobId: string; title: string }> {
@@ -160,14 +168,28 @@ describe('a crew lead records with no signal (issue 17)', () => {
     await check.getByRole('button', { name: 'Save check' }).click();
     await page.getByText('Waiting to send (5)').first().waitFor();
 
-    // Nothing reached the server yet.
+    // A photo of the open trench: kept in IndexedDB, counted with the changes.
+    await page.goto(`${baseUrl}/jobs/${jobId}?section=photos`).catch(() => undefined);
+    await page.getByRole('button', { name: 'Add photos' }).first().click();
+    const photoDialog = page.getByRole('dialog', { name: 'Add photos' });
+    await photoDialog.getByLabel('Choose photos from the library').setInputFiles(photoPath);
+    await photoDialog.waitFor({ state: 'detached' });
+    await page.getByText('Waiting to send (6)').first().waitFor();
+
+    // The lead moves on to Today; nothing reached the server yet.
+    await page.goto(`${baseUrl}/`).catch(() => undefined);
+    await page.getByRole('heading', { name: 'Today' }).waitFor();
+    await page.getByText('Waiting to send (6)').first().waitFor();
     expect((await office.expectOk('get', `/api/jobs/${jobId}`)).version).toBe(before);
 
-    // Signal again: everything goes out, once, in the order it was recorded.
+    // Signal again, still on Today: everything goes out from there, once, in the order it was recorded.
     await context.setOffline(false);
     await expect.poll(() => page.getByText(/Waiting to send/).count(), { timeout: 30_000 }).toBe(0);
+    expect(new URL(page.url()).pathname, 'sent from the page the lead was on').toBe('/');
     const { asBuilt, job } = await office.expectOk('get', `/api/jobs/${jobId}/as-built`);
-    expect(job.version).toBe(before + 5);
+    expect(job.version, 'five changes and one photo').toBe(before + 6);
+    const photos = await office.expectOk('get', `/api/jobs/${jobId}/photos`);
+    expect(photos.items.map((photo: { original: { name: string } }) => photo.original.name)).toEqual(['trench-open.jpg']);
     const speakers = (asBuilt.items as { label: string; position: unknown }[]).filter((item) => item.label === 'Lawn speaker L1');
     expect(speakers).toHaveLength(1);
     expect(speakers[0]!.position, 'the ties solved on the server too').not.toBeNull();

@@ -4,6 +4,7 @@ import { useSyncExternalStore } from 'react';
 import { Link } from 'react-router';
 
 import { paths } from '../../../config/paths';
+import { readPendingUploads, subscribePendingUploads } from '../../../lib/pending-uploads';
 import { readAllPendingWrites, subscribePendingWrites } from '../utils/pending-writes';
 
 const useStyles = makeStyles({
@@ -26,17 +27,33 @@ const useStyles = makeStyles({
 });
 
 /**
- * "Waiting to send (n)" in the header on every page while changes made with no signal are kept on this
- * device; it opens the job of the oldest one, where they are listed and sent.
+ * "Waiting to send (n)" in the header on every page while changes and photos made with no signal are
+ * kept on this device (they go out from any page when the signal returns); it opens the job of the
+ * oldest one, where they are listed.
  */
 export function WaitingToSend() {
   const styles = useStyles();
-  const pending = useSyncExternalStore(subscribePendingWrites, readAllPendingWrites, readAllPendingWrites);
-  if (pending.length === 0) return null;
+  const writes = useSyncExternalStore(subscribePendingWrites, readAllPendingWrites, readAllPendingWrites);
+  const photos = useSyncExternalStore(subscribePendingUploads, readPendingUploads, readPendingUploads);
+  const count = writes.length + photos.length;
+  if (count === 0) return null;
+  const oldestWrite = writes[0];
+  const oldestPhoto = photos[0];
+  const jobId =
+    oldestWrite && (!oldestPhoto || oldestWrite.queuedAt <= oldestPhoto.queuedAt) ? oldestWrite.jobId : (oldestPhoto ?? oldestWrite)!.jobId;
+  const parts = [writes.length > 0 ? `${writes.length} ${writes.length === 1 ? 'change' : 'changes'}` : '', photos.length > 0 ? `${photos.length} ${photos.length === 1 ? 'photo' : 'photos'}` : '']
+    .filter(Boolean)
+    .join(' and ');
   return (
-    <Link className={styles.link} to={paths.job.getHref(pending[0]!.jobId)} role="status" aria-live="polite">
+    <Link
+      className={styles.link}
+      to={paths.job.getHref(jobId)}
+      role="status"
+      aria-live="polite"
+      title={`${parts} kept on this device, sent when the signal returns`}
+    >
       <CloudArrowUp20Regular aria-hidden />
-      Waiting to send ({pending.length})
+      Waiting to send ({count})
     </Link>
   );
 }

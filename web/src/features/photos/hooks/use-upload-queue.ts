@@ -1,6 +1,7 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useEffect, useMemo, useSyncExternalStore } from 'react';
 
+import { publishPendingUploads } from '../../../lib/pending-uploads';
 import { createIndexedDbUploadStore } from '../../../lib/upload-queue-store';
 import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../../job-record';
 import { getJobPhotosQueryOptions } from '../api/get-job-photos';
@@ -30,6 +31,10 @@ export function useUploadQueueRunner(): void {
   const queryClient = useQueryClient();
   useEffect(() => {
     const queue = getUploadQueue();
+    // The header counts photos still to send beside the job changes ("Waiting to send (n)").
+    const publish = () => publishPendingUploads(queue.getSnapshot().filter(isStillToSend));
+    const stopPublishing = queue.subscribe(publish);
+    publish();
     void queue.start();
     const wake = () => queue.wake();
     window.addEventListener('online', wake);
@@ -42,8 +47,14 @@ export function useUploadQueueRunner(): void {
     return () => {
       window.removeEventListener('online', wake);
       stopListening();
+      stopPublishing();
     };
   }, [queryClient]);
+}
+
+/** Waiting, going out or waiting for a retry; not refused (the crew decides) and not done. */
+function isStillToSend(entry: UploadEntry): boolean {
+  return entry.status.kind === 'waiting' || entry.status.kind === 'uploading' || entry.status.kind === 'retrying';
 }
 
 const NONE: readonly UploadEntry[] = [];
