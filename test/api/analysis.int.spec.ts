@@ -35,6 +35,9 @@ describe('POST /api/analysis', () => {
   it.each<[string, (ab: typeof DEMO_AS_BUILT) => unknown, string]>([
     ['a negative length', (ab) => ({ ...ab, runs: ab.runs.map((r, i) => (i === 3 ? { ...r, measuredLengthM: -5 } : r)) }), 'asBuilt.runs.3.measuredLengthM'],
     ['an unknown gauge', (ab) => ({ ...ab, runs: ab.runs.map((r, i) => (i === 0 ? { ...r, gauge: { system: 'awg', awg: 13.5 } } : r)) }), 'asBuilt.runs.0.gauge.awg'],
+    // The gauges the cable table has no row for (domain/cable/wire.ts): a 400 at the field, never a 500.
+    ['an AWG past the table', (ab) => ({ ...ab, runs: ab.runs.map((r, i) => (i === 1 ? { ...r, gauge: { system: 'awg', awg: 41 } } : r)) }), 'asBuilt.runs.1.gauge.awg'],
+    ['a metric size outside IEC 60228', (ab) => ({ ...ab, runs: ab.runs.map((r, i) => (i === 2 ? { ...r, gauge: { system: 'mm2', mm2: 3 } } : r)) }), 'asBuilt.runs.2.gauge.mm2'],
     ['a run to a missing item', (ab) => ({ ...ab, runs: ab.runs.map((r, i) => (i === 4 ? { ...r, toItemId: 'nowhere' } : r)) }), 'asBuilt.runs.4.toItemId'],
     // JSON has no NaN; a client that serialises NaN sends null, which must be refused at the field.
     ['a NaN (null) depth', (ab) => ({ ...ab, runs: ab.runs.map((r, i) => (i === 1 ? { ...r, depthReadings: r.depthReadings!.map((d, j) => (j === 0 ? { ...d, depthM: null } : d)) } : r)) }), 'asBuilt.runs.1.depthReadings.0.depthM'],

@@ -1,9 +1,10 @@
 import { randomUUID } from 'node:crypto';
 
-import { ConflictException, Injectable, Logger, NotFoundException, UnauthorizedException } from '@nestjs/common';
+import { Injectable, Logger, NotFoundException, UnauthorizedException } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { JwtService } from '@nestjs/jwt';
 
+import { ConflictError, NotFoundError } from '../domain/errors.js';
 import { AuditService } from '../audit/audit.service.js';
 import type { Tx } from '../db/db.module.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
@@ -193,7 +194,7 @@ export class AuthService {
     const invitation = await this.repository.findOpenInvitation(hashToken(input.token));
     if (!invitation) throw this.linkNotValid();
     if (await this.repository.findUserByEmail(invitation.email)) {
-      throw new ConflictException({ message: 'An account with this e-mail already exists.', code: 'EMAIL_TAKEN' });
+      throw new ConflictError('EMAIL_TAKEN', 'An account with this e-mail already exists.');
     }
     const passwordHash = await this.hasher.hash(input.password);
     const userId = await this.repository.transaction(async (tx) => {
@@ -311,9 +312,6 @@ export class AuthService {
   }
 
   private linkNotValid() {
-    return new NotFoundException({
-      message: 'This link has expired or has already been used. Ask for a new one.',
-      code: 'LINK_NOT_VALID',
-    });
+    return new NotFoundError('LINK_NOT_VALID', 'This link has expired or has already been used. Ask for a new one.');
   }
 }

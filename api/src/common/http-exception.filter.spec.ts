@@ -1,6 +1,14 @@
 import { type ArgumentsHost, BadRequestException, ParseUUIDPipe } from '@nestjs/common';
 import { describe, expect, it, vi } from 'vitest';
 
+import {
+  ConflictError,
+  ForbiddenError,
+  NotFoundError,
+  RuleViolationError,
+  ValidationError,
+  VersionConflictError,
+} from '../domain/errors.js';
 import { HttpExceptionFilter } from './http-exception.filter.js';
 
 function hostFor(params: Record<string, string>) {
@@ -50,5 +58,32 @@ describe(HttpExceptionFilter.name, () => {
     expect(res.status).toHaveBeenCalledWith(500);
     expect(JSON.stringify(res.json.mock.calls[0]![0])).not.toMatch(/duplicate|constraint|users_email/);
     logged.mockRestore();
+  });
+
+  it.each([
+    [new ValidationError([{ path: 'gauge.awg', message: 'is not in the AWG table' }]), 400, 'Bad Request'],
+    [new ForbiddenError('ROLE_NOT_ALLOWED', 'Only an admin may do this.'), 403, 'Forbidden'],
+    [new NotFoundError('JOB_NOT_FOUND', 'No such job.'), 404, 'Not Found'],
+    [new ConflictError('IN_USE', 'This run is still in use.', [{ path: 'runs[0]', message: 'ends at it' }]), 409, 'Conflict'],
+    [new VersionConflictError('Someone saved this job first.', 7), 412, 'Precondition Failed'],
+    [new RuleViolationError('PACKET_ALREADY_ISSUED', 'Issued already.'), 422, 'Unprocessable Entity'],
+  ])('should answer %s with its status and the one error body', (error, status, text) => {
+    const { host, res } = hostFor({});
+    sut.catch(error, host);
+    expect(res.status).toHaveBeenCalledWith(status);
+    expect(res.json).toHaveBeenCalledWith({
+      statusCode: status,
+      error: text,
+      message: error.message,
+      code: error.code,
+      ...(error.issues ? { issues: error.issues } : {}),
+      ...(error instanceof VersionConflictError ? { currentVersion: 7 } : {}),
+    });
+  });
+
+  it('should name the first field in a validation error\'s message', () => {
+    const error = new ValidationError([{ path: 'gauge.awg', message: 'is not in the AWG table' }]);
+    expect(error.message).toBe('gauge.awg: is not in the AWG table');
+    expect(error.code).toBe('VALIDATION_FAILED');
   });
 });

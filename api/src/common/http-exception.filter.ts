@@ -8,7 +8,15 @@ import {
 } from '@nestjs/common';
 import type { Request, Response } from 'express';
 
-import { ConflictError, DomainError, NotFoundError, RuleViolationError } from '../domain/errors.js';
+import {
+  ConflictError,
+  DomainError,
+  ForbiddenError,
+  NotFoundError,
+  RuleViolationError,
+  ValidationError,
+  VersionConflictError,
+} from '../domain/errors.js';
 import { LimiterBusyError } from './concurrency-limiter.js';
 import { isDatabaseBusy } from './db-errors.js';
 import { RetryLaterException } from './retry-later.exception.js';
@@ -25,8 +33,11 @@ export interface ErrorBody {
 }
 
 const DOMAIN_STATUS = new Map<abstract new (...args: never[]) => unknown, HttpStatus>([
+  [ValidationError, HttpStatus.BAD_REQUEST],
+  [ForbiddenError, HttpStatus.FORBIDDEN],
   [NotFoundError, HttpStatus.NOT_FOUND],
   [ConflictError, HttpStatus.CONFLICT],
+  [VersionConflictError, HttpStatus.PRECONDITION_FAILED],
   [RuleViolationError, HttpStatus.UNPROCESSABLE_ENTITY],
 ]);
 
@@ -96,7 +107,7 @@ function withUuidParamIssues(body: ErrorBody, req: Request | undefined): ErrorBo
 
 /**
  * One shape for every error the API returns: `{ statusCode, error, message, code?, issues?, currentVersion? }`.
- * Domain errors map to 404/409/422; unknown errors become a generic 500 whose stack goes only to the log.
+ * Domain errors map to 400/403/404/409/412/422; unknown errors become a generic 500 whose stack goes only to the log.
  */
 @Catch()
 export class HttpExceptionFilter implements ExceptionFilter {
@@ -136,7 +147,14 @@ export class HttpExceptionFilter implements ExceptionFilter {
     if (exception instanceof DomainError) {
       const statusCode =
         [...DOMAIN_STATUS].find(([type]) => exception instanceof type)?.[1] ?? HttpStatus.UNPROCESSABLE_ENTITY;
-      return { statusCode, error: STATUS_TEXT[statusCode] ?? 'Error', message: exception.message, code: exception.code };
+      return {
+        statusCode,
+        error: STATUS_TEXT[statusCode] ?? 'Error',
+        message: exception.message,
+        code: exception.code,
+        ...(exception.issues ? { issues: exception.issues } : {}),
+        ...(exception instanceof VersionConflictError ? { currentVersion: exception.currentVersion } : {}),
+      };
     }
     if (exception instanceof LimiterBusyError || exception instanceof WorkerPoolBusyError) {
       return {

@@ -1,9 +1,10 @@
-import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
+import { Injectable } from '@nestjs/common';
 
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { isForeignKeyViolation } from '../common/db-errors.js';
 import type { Customer } from '../db/schema/index.js';
+import { ConflictError, findOrFail, NotFoundError } from '../domain/errors.js';
 import type { CreateCustomerInput, CustomerListQuery, CustomerResponse, UpdateCustomerInput } from '../domain/customers/customer.schema.js';
 import { type Page, pageOf } from '../domain/paging/page.schema.js';
 import { CustomersRepository } from './customers.repository.js';
@@ -20,7 +21,7 @@ function toCustomerResponse(row: Customer): CustomerResponse {
   };
 }
 
-const notFound = () => new NotFoundException({ message: 'No such customer.', code: 'CUSTOMER_NOT_FOUND' });
+const notFound = () => new NotFoundError('CUSTOMER_NOT_FOUND', 'No such customer.');
 
 @Injectable()
 export class CustomersService {
@@ -35,8 +36,7 @@ export class CustomersService {
   }
 
   async get(actor: AuthUser, id: string): Promise<CustomerResponse> {
-    const row = await this.repository.findInCompany(actor.companyId, id);
-    if (!row) throw notFound();
+    const row = await findOrFail(this.repository.findInCompany(actor.companyId, id), notFound);
     return toCustomerResponse(row);
   }
 
@@ -57,8 +57,7 @@ export class CustomersService {
 
   async update(actor: AuthUser, id: string, input: UpdateCustomerInput): Promise<CustomerResponse> {
     const row = await this.repository.transaction(async (tx) => {
-      const updated = await this.repository.updateInCompany(actor.companyId, id, input, tx);
-      if (!updated) throw notFound();
+      const updated = await findOrFail(this.repository.updateInCompany(actor.companyId, id, input, tx), notFound);
       await this.audit.record(
         {
           companyId: actor.companyId,
@@ -87,7 +86,7 @@ export class CustomersService {
       });
     } catch (error) {
       if (isForeignKeyViolation(error)) {
-        throw new ConflictException({ message: 'This customer has sites: delete or move them first.', code: 'CUSTOMER_HAS_SITES' });
+        throw new ConflictError('CUSTOMER_HAS_SITES', 'This customer has sites: delete or move them first.');
       }
       throw error;
     }

@@ -1,4 +1,4 @@
-import { ConflictException, Injectable, Logger, NotFoundException, UnprocessableEntityException } from '@nestjs/common';
+import { Injectable, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 
 import { AuditService } from '../audit/audit.service.js';
@@ -7,6 +7,7 @@ import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import type { Env } from '../config/env.schema.js';
 import type { Tx } from '../db/db.module.js';
 import type { PacketDelivery } from '../db/schema/index.js';
+import { ConflictError, findOrFail, NotFoundError, RuleViolationError } from '../domain/errors.js';
 import { canInvite } from '../domain/auth/roles.js';
 import { plainDeliveryFailure } from '../domain/delivery/delivery-failure.js';
 import type {
@@ -16,6 +17,8 @@ import type {
   SendPacketParsed,
   SendPacketResponse,
 } from '../domain/delivery/delivery.schema.js';
+import { jobNotFound } from '../jobs/job-errors.js';
+import { packetNotFound } from '../packets/packet-errors.js';
 import { DeliveryQueue } from './delivery-queue.js';
 import { DeliveryRepository } from './delivery.repository.js';
 
@@ -47,8 +50,7 @@ function toInContext(row: { delivery: PacketDelivery; revision: number; jobId: s
   return { ...toDeliveryResponse(delivery), ...context };
 }
 
-const packetNotFound = () => new NotFoundException({ message: 'No such packet revision.', code: 'PACKET_NOT_FOUND' });
-const deliveryNotFound = () => new NotFoundException({ message: 'No such delivery.', code: 'DELIVERY_NOT_FOUND' });
+const deliveryNotFound = () => new NotFoundError('DELIVERY_NOT_FOUND', 'No such delivery.');
 
 /** What happens to one recipient address when the packet is sent. */
 type Plan =
@@ -75,8 +77,7 @@ export class DeliveryService {
   ) {}
 
   async sendOptions(actor: AuthUser, revisionId: string): Promise<SendOptionsResponse> {
-    const revision = await this.repository.revisionInCompany(actor.companyId, revisionId);
-    if (!revision) throw packetNotFound();
+    const revision = await findOrFail(this.repository.revisionInCompany(actor.companyId, revisionId), packetNotFound);
     const [linked, invited] = await Promise.all([this.repository.siteHomeowners(revision.siteId), this.repository.openInvitationsForSite(revision.siteId)]);
     const emails = new Set(linked.map((h) => h.email));
     const maxAttachmentBytes = this.config.get('MAIL_MAX_ATTACHMENT_BYTES', { infer: true });
@@ -92,18 +93,17 @@ export class DeliveryService {
   }
 
   async send(actor: AuthUser, revisionId: string, input: SendPacketParsed): Promise<SendPacketResponse> {
-    const revision = await this.repository.revisionInCompany(actor.companyId, revisionId);
-    if (!revision) throw packetNotFound();
+    const revision = await findOrFail(this.repository.revisionInCompany(actor.companyId, revisionId), packetNotFound);
     if (revision.status !== 'ready') {
-      throw new ConflictException({ message: `This packet revision is ${revision.status}, not ready to send.`, code: 'PACKET_NOT_READY' });
+      throw new ConflictError('PACKET_NOT_READY', `This packet revision is ${revision.status}, not ready to send.`);
     }
     const addresses = input.to ?? (await this.siteRecipientAddresses(revision.siteId));
     if (addresses.length === 0) {
-      throw new UnprocessableEntityException({
-        message: 'to: this site has no homeowner yet: give the homeowner’s e-mail (they are invited to the portal).',
-        code: 'NO_RECIPIENT',
-        issues: [{ path: 'to', message: 'this site has no homeowner yet' }],
-      });
+      throw new RuleViolationError(
+        'NO_RECIPIENT',
+        'to: this site has no homeowner yet: give the homeowner’s e-mail (they are invited to the portal).',
+        [{ path: 'to', message: 'this site has no homeowner yet' }],
+      );
     }
     // Every address is checked before anything is written, so a refused one leaves no half-done send.
     const plans: Plan[] = [];
@@ -150,7 +150,7 @@ export class DeliveryService {
 
   async listForJob(actor: AuthUser, jobId: string): Promise<DeliveryInContext[]> {
     if (!(await this.repository.jobInCompany(actor.companyId, jobId))) {
-      throw new NotFoundException({ message: 'No such job.', code: 'JOB_NOT_FOUND' });
+      throw jobNotFound();
     }
     return (await this.repository.listByJob(actor.companyId, jobId)).map(toInContext);
   }
@@ -167,14 +167,13 @@ export class DeliveryService {
    */
   async resend(actor: AuthUser, id: string): Promise<PacketDeliveryResponse> {
     const delivery = await this.repository.transaction(async (tx) => {
-      const row = await this.repository.deliveryInCompanyForUpdate(actor.companyId, id, tx);
-      if (!row) throw deliveryNotFound();
+      const row = await findOrFail(this.repository.deliveryInCompanyForUpdate(actor.companyId, id, tx), deliveryNotFound);
       if (row.status === 'queued' || row.status === 'sending') {
-        throw new ConflictException({ message: 'This e-mail is already on its way.', code: 'DELIVERY_IN_PROGRESS' });
+        throw new ConflictError('DELIVERY_IN_PROGRESS', 'This e-mail is already on its way.');
       }
       const revision = await this.repository.revisionInCompany(actor.companyId, row.revisionId);
       if (revision?.status !== 'ready') {
-        throw new ConflictException({ message: 'This packet revision is no longer ready to send.', code: 'PACKET_NOT_READY' });
+        throw new ConflictError('PACKET_NOT_READY', 'This packet revision is no longer ready to send.');
       }
       const next =
         row.status === 'failed'
@@ -216,10 +215,9 @@ export class DeliveryService {
   /** Sets a failed delivery aside: it stays in the log but no longer asks for attention. */
   async dismiss(actor: AuthUser, id: string): Promise<PacketDeliveryResponse> {
     const delivery = await this.repository.transaction(async (tx) => {
-      const row = await this.repository.deliveryInCompanyForUpdate(actor.companyId, id, tx);
-      if (!row) throw deliveryNotFound();
+      const row = await findOrFail(this.repository.deliveryInCompanyForUpdate(actor.companyId, id, tx), deliveryNotFound);
       if (row.status !== 'failed') {
-        throw new ConflictException({ message: `Only a failed delivery can be dismissed; this one is ${row.status}.`, code: 'DELIVERY_NOT_FAILED' });
+        throw new ConflictError('DELIVERY_NOT_FAILED', `Only a failed delivery can be dismissed; this one is ${row.status}.`);
       }
       if (row.dismissedAt) return row;
       const dismissed = await this.repository.dismiss(row.id, actor.id, tx);
@@ -253,7 +251,7 @@ export class DeliveryService {
   private async planFor(actor: AuthUser, siteId: string, email: string, index: number | null): Promise<Plan> {
     const refuse = (message: string) => {
       const path = index === null ? 'to' : `to.${index}`;
-      return new ConflictException({ message: `${path}: ${email} ${message}`, code: 'RECIPIENT_NOT_HOMEOWNER', issues: [{ path, message }] });
+      return new ConflictError('RECIPIENT_NOT_HOMEOWNER', `${path}: ${email} ${message}`, [{ path, message }]);
     };
     const user = await this.repository.companyUserByEmail(actor.companyId, email);
     if (user) {

@@ -1,7 +1,8 @@
-import { Injectable, NotFoundException } from '@nestjs/common';
+import { Injectable } from '@nestjs/common';
 
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { ConcurrencyLimiter } from '../common/concurrency-limiter.js';
+import { NotFoundError } from '../domain/errors.js';
 import type { DrawingQuery, SitePlanDrawingQuery } from '../domain/jobs/job-drawings.schema.js';
 import type { JobAsBuiltResponse } from '../domain/jobs/job.schema.js';
 import { jobTitleBlock } from '../drawings/job-drawings.js';
@@ -101,7 +102,7 @@ export class JobDrawingsService {
     const loaded = await this.load(actor, JSON.stringify(['depth-profile', jobId, runId, query.units ?? null]), async () => {
       const data = await this.jobs.asBuilt(actor, jobId);
       if (!data.asBuilt.runs.some((run) => run.id === runId)) {
-        throw new NotFoundException({ message: 'No such run on this job.', code: 'RUN_NOT_FOUND' });
+        throw new NotFoundError('RUN_NOT_FOUND', 'No such run on this job.');
       }
       return { data, task: { kind: 'depth-profile', ...this.base(data, query), runId } };
     });

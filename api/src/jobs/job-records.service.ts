@@ -1,8 +1,9 @@
 import { randomUUID } from 'node:crypto';
 
-import { Injectable, NotFoundException } from '@nestjs/common';
+import { Injectable } from '@nestjs/common';
 
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
+import { NotFoundError } from '../domain/errors.js';
 import type { AsBuilt, Zone } from '../domain/as-built/as-built.schema.js';
 import type { Item } from '../domain/as-built/item.schema.js';
 import type { Job } from '../db/schema/index.js';
@@ -310,7 +311,7 @@ export class JobRecordsService {
   undoChange(actor: AuthUser, jobId: string, recordId: string, expectedVersion: number): Promise<JobVersionResponse> {
     return this.writer.write(actor, jobId, expectedVersion, 'record', async ({ tx, job, record }) => {
       const change = await this.repository.findChange(job.id, recordId, tx);
-      if (!change) throw new NotFoundException({ message: 'This job has no change to that record.', code: 'CHANGE_NOT_FOUND' });
+      if (!change) throw new NotFoundError('CHANGE_NOT_FOUND', 'This job has no change to that record.');
       const before = change.before as unknown as RecordBefore;
       const { rows, asBuilt } = await record();
       if (change.recordKind === 'item') {

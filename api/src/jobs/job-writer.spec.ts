@@ -1,10 +1,10 @@
-import { ConflictException, ForbiddenException, NotFoundException, PreconditionFailedException } from '@nestjs/common';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
 
 import type { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import type { Tx } from '../db/db.module.js';
 import type { Job } from '../db/schema/index.js';
+import { ConflictError, ForbiddenError, NotFoundError, VersionConflictError } from '../domain/errors.js';
 import { JobWriter } from './job-writer.js';
 import type { JobsRepository } from './jobs.repository.js';
 
@@ -64,14 +64,14 @@ describe(JobWriter.name, () => {
 
     it('should answer 404 for a job outside the company', async () => {
       repository.lock.mockResolvedValue(undefined);
-      await expect(sut.write(user('admin'), 'job-1', 4, 'record', work)).rejects.toBeInstanceOf(NotFoundException);
+      await expect(sut.write(user('admin'), 'job-1', 4, 'record', work)).rejects.toBeInstanceOf(NotFoundError);
       expect(work).not.toHaveBeenCalled();
     });
 
     it('should answer 412 VERSION_CONFLICT (Precondition Failed) with the current version and do nothing', async () => {
       const error = await sut.write(user('office'), 'job-1', 3, 'record', work).catch((e: unknown) => e);
-      expect(error).toBeInstanceOf(PreconditionFailedException);
-      expect((error as PreconditionFailedException).getResponse()).toMatchObject({ code: 'VERSION_CONFLICT', currentVersion: 4 });
+      expect(error).toBeInstanceOf(VersionConflictError);
+      expect(error).toMatchObject({ code: 'VERSION_CONFLICT', currentVersion: 4 });
       expect(work).not.toHaveBeenCalled();
       expect(repository.bumpVersion).not.toHaveBeenCalled();
       expect(audit.record).not.toHaveBeenCalled();
@@ -88,7 +88,7 @@ describe(JobWriter.name, () => {
       repository.lock.mockResolvedValue(job(overrides));
       const outcome = sut.write(actor, 'job-1', 4, kind, work);
       if (expected === 'allow') await expect(outcome).resolves.toMatchObject({ jobVersion: 5 });
-      else await expect(outcome).rejects.toBeInstanceOf(expected === 403 ? ForbiddenException : ConflictException);
+      else await expect(outcome).rejects.toBeInstanceOf(expected === 403 ? ForbiddenError : ConflictError);
     });
   });
 });

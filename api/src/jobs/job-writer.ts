@@ -4,6 +4,7 @@ import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import type { Tx } from '../db/db.module.js';
 import type { Job } from '../db/schema/index.js';
+import { findOrFail } from '../domain/errors.js';
 import type { AsBuilt } from '../domain/as-built/as-built.schema.js';
 import { canWriteJob, type JobAccessFacts, type JobWriteKind } from '../domain/jobs/job-rules.js';
 import type { JobVersionResponse } from '../domain/jobs/job.schema.js';
@@ -45,8 +46,7 @@ export class JobWriter {
 
   /** Locks the job (404 when not in the actor's company) and checks the expected version. */
   async lockChecked(actor: AuthUser, jobId: string, expectedVersion: number, kind: JobWriteKind, tx: Tx): Promise<Job> {
-    const job = await this.repository.lock(actor.companyId, jobId, tx);
-    if (!job) throw jobNotFound();
+    const job = await findOrFail(this.repository.lock(actor.companyId, jobId, tx), jobNotFound);
     const decision = canWriteJob({ role: actor.role, userId: actor.id }, await this.facts(job, tx), kind);
     if (!decision.isAllowed) throw denied(decision);
     if (job.version !== expectedVersion) throw versionConflict(job.version);

@@ -1,8 +1,9 @@
-import { ConflictException, Injectable } from '@nestjs/common';
+import { Injectable } from '@nestjs/common';
 
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import type { Tx } from '../db/db.module.js';
+import { ConflictError, findOrFail } from '../domain/errors.js';
 import { analyzeAsBuilt } from '../domain/analysis/analyze.js';
 import type { Role } from '../domain/auth/roles.js';
 import { canTransition } from '../domain/jobs/job-rules.js';
@@ -69,14 +70,12 @@ export class JobsService {
   }
 
   async get(actor: AuthUser, id: string): Promise<JobResponse> {
-    const view = await this.repository.findView(actor.companyId, id);
-    if (!view) throw jobNotFound();
+    const view = await findOrFail(this.repository.findView(actor.companyId, id), jobNotFound);
     return toJobResponse(view, await this.repository.technicians(id));
   }
 
   private async view(actor: AuthUser, id: string, tx: Tx): Promise<JobResponse> {
-    const view = await this.repository.findView(actor.companyId, id, tx);
-    if (!view) throw jobNotFound();
+    const view = await findOrFail(this.repository.findView(actor.companyId, id, tx), jobNotFound);
     return toJobResponse(view, await this.repository.technicians(id, tx));
   }
 
@@ -161,10 +160,7 @@ export class JobsService {
     await this.repository.transaction(async (tx) => {
       const job = await this.writer.lockChecked(actor, id, expectedVersion, 'delete', tx);
       if ((await this.repository.changedEarlierRecords(id, tx)) > 0) {
-        throw new ConflictException({
-          message: 'This job changed records earlier jobs installed on this property. Undo those changes first, then delete the job.',
-          code: 'JOB_CHANGED_SITE_RECORDS',
-        });
+        throw new ConflictError('JOB_CHANGED_SITE_RECORDS', 'This job changed records earlier jobs installed on this property. Undo those changes first, then delete the job.');
       }
       await this.repository.delete(id, tx);
       await this.audit.record(
@@ -180,8 +176,7 @@ export class JobsService {
    */
   async changeStatus(actor: AuthUser, id: string, expectedVersion: number, input: ChangeJobStatusInput): Promise<JobResponse> {
     return this.repository.transaction(async (tx) => {
-      const job = await this.repository.lock(actor.companyId, id, tx);
-      if (!job) throw jobNotFound();
+      const job = await findOrFail(this.repository.lock(actor.companyId, id, tx), jobNotFound);
       const decision = canTransition({ role: actor.role, userId: actor.id }, await this.writer.facts(job, tx), input.to, input.comment);
       if (!decision.isAllowed) {
         if (decision.code === 'COMMENT_REQUIRED') throw invalid([{ path: 'comment', message: decision.message }]);
@@ -233,13 +228,11 @@ export class JobsService {
   }
 
   private async asBuiltParts(actor: AuthUser, id: string): Promise<{ job: JobResponse; cached: CachedAsBuilt }> {
-    const head = await this.repository.findAsBuiltHead(actor.companyId, id);
-    if (!head) throw jobNotFound();
+    const head = await findOrFail(this.repository.findAsBuiltHead(actor.companyId, id), jobNotFound);
     const hit = this.cache.get(AsBuiltCache.key(id, head.view.job.version, `${head.siteVersion}/${head.systemState}`, head.depthRules));
     if (hit) return { job: toJobResponse(head.view, head.technicians), cached: hit };
     const { fresh, rows } = await this.repository.snapshot(async (tx) => {
-      const fresh = await this.repository.findAsBuiltHead(actor.companyId, id, tx);
-      if (!fresh) throw jobNotFound();
+      const fresh = await findOrFail(this.repository.findAsBuiltHead(actor.companyId, id, tx), jobNotFound);
       return { fresh, rows: await this.repository.loadRecord(fresh.view.job, tx) };
     });
     const asBuilt = toAsBuilt(rows);

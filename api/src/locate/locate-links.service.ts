@@ -1,4 +1,4 @@
-import { Injectable, NotFoundException } from '@nestjs/common';
+import { Injectable } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 
 import { AuditService } from '../audit/audit.service.js';
@@ -7,14 +7,15 @@ import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import type { Env } from '../config/env.schema.js';
 import type { Tx } from '../db/db.module.js';
 import type { LocateLink } from '../db/schema/index.js';
+import { NotFoundError } from '../domain/errors.js';
 import type { CreatedLocateLinkResponse, CreateLocateLinkInput, LocateLinkResponse } from '../domain/locate/locate-link.schema.js';
 import { LinkBuilder } from '../mail/link-builder.js';
+import { siteNotFound } from '../sites/site-errors.js';
 import { LocateRepository } from './locate.repository.js';
 
 const DAY_MS = 86_400_000;
 
-const siteNotFound = () => new NotFoundException({ message: 'No such site.', code: 'SITE_NOT_FOUND' });
-const linkNotFound = () => new NotFoundException({ message: 'No such locate link.', code: 'LOCATE_LINK_NOT_FOUND' });
+const linkNotFound = () => new NotFoundError('LOCATE_LINK_NOT_FOUND', 'No such locate link.');
 
 function toResponse(link: LocateLink, extra: { createdByName: string | null; accessCount: number; lastAccessedAt: Date | null }): LocateLinkResponse {
   const now = Date.now();

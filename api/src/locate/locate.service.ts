@@ -1,9 +1,10 @@
 import { createHash } from 'node:crypto';
 
-import { HttpException, HttpStatus, Inject, Injectable, Logger, NotFoundException } from '@nestjs/common';
+import { HttpException, HttpStatus, Inject, Injectable, Logger } from '@nestjs/common';
 
 import { hashToken } from '../auth/tokens.js';
 import type { LocateLink } from '../db/schema/index.js';
+import { NotFoundError } from '../domain/errors.js';
 import { LOCATE_LINK_NOT_VALID, type LocateViewResponse } from '../domain/locate/locate-link.schema.js';
 import { locateCautions } from '../domain/locate/locate-cautions.js';
 import { buildSiteMap, type SiteMapSource } from '../domain/locate/site-map.js';
@@ -12,6 +13,7 @@ import { TOLERANCE_ZONE_M } from '../domain/packet/packet-cautions.js';
 import { drawDepthProfile } from '../drawings/depth-profile.js';
 import { createNodeSvgCanvas } from '../drawings/node-svg-window.js';
 import { PdfRendererService } from '../packets/pdf-renderer.service.js';
+import { photoNotFound } from '../photos/photo-errors.js';
 import { OBJECT_STORAGE, type ObjectStorage } from '../storage/object-storage.js';
 import { renderLocateSheetHtml } from './locate-sheet.js';
 import { LocateMissLimiter } from './locate-miss-limiter.js';
@@ -28,7 +30,7 @@ const TOKEN_SHAPE = /^[A-Za-z0-9_-]{20,100}$/;
 /** Printed locate sheets kept in memory under the hash of their HTML (same page in, same PDF out). */
 const SHEET_CACHE_SIZE = 32;
 
-const notValid = () => new NotFoundException({ message: 'This locate link is not valid.', code: LOCATE_LINK_NOT_VALID });
+const notValid = () => new NotFoundError(LOCATE_LINK_NOT_VALID, 'This locate link is not valid.');
 
 /**
  * The public, read-only locate view behind a link's token: the site's cumulative map from the issued
@@ -143,7 +145,7 @@ export class LocateService {
     await this.repository.logAccess(link.id, client.ip, client.userAgent?.slice(0, 500) ?? null);
     const [map, site] = await Promise.all([this.siteMap(link.siteId), this.repository.siteInCompany(link.companyId, link.siteId)]);
     if (!map.geojson) {
-      throw new NotFoundException({ message: 'This site has no GPS origin, so its map has plan coordinates only.', code: 'SITE_NOT_GEOREFERENCED' });
+      throw new NotFoundError('SITE_NOT_GEOREFERENCED', 'This site has no GPS origin, so its map has plan coordinates only.');
     }
     const slug = (site?.label ?? 'site').replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '').toLowerCase() || 'site';
     return { geojson: map.geojson, fileName: `${slug}-buried-cables.geojson` };
@@ -151,13 +153,13 @@ export class LocateService {
 
   async depthProfile(token: string, runId: string, client: LocateClient): Promise<string> {
     const link = await this.resolve(token, client);
-    if (runId.length > 100) throw new NotFoundException({ message: 'No such run on this site.', code: 'RUN_NOT_FOUND' });
+    if (runId.length > 100) throw new NotFoundError('RUN_NOT_FOUND', 'No such run on this site.');
     const revisions = await this.repository.latestReadyRevisions(link.siteId);
     // The newest revision that has the run (a later job may have recorded it again).
     const source = revisions
       .filter((r) => r.snapshot.asBuilt?.runs.some((run) => run.id === runId))
       .sort((a, b) => b.issuedAt.getTime() - a.issuedAt.getTime())[0];
-    if (!source) throw new NotFoundException({ message: 'No such run on this site.', code: 'RUN_NOT_FOUND' });
+    if (!source) throw new NotFoundError('RUN_NOT_FOUND', 'No such run on this site.');
     const { snapshot } = source;
     return drawDepthProfile(snapshot.asBuilt, snapshot.analysis, runId, {
       createCanvas: createNodeSvgCanvas,
@@ -169,7 +171,6 @@ export class LocateService {
 
   async photo(token: string, photoId: string, variant: string, client: LocateClient): Promise<{ body: Buffer; contentType: string }> {
     const link = await this.resolve(token, client);
-    const photoNotFound = () => new NotFoundException({ message: 'No such photo.', code: 'PHOTO_NOT_FOUND' });
     // Only the resized, metadata-stripped derivatives; never the original (it may carry GPS).
     if (variant !== 'thumb' && variant !== 'screen') throw photoNotFound();
     const row = await this.repository.sitePhotoDerivative(link.siteId, photoId, variant);

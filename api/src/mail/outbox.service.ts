@@ -1,8 +1,9 @@
-import { Injectable, NotFoundException } from '@nestjs/common';
+import { Injectable } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { type Env, mailDestination } from '../config/env.schema.js';
+import { NotFoundError } from '../domain/errors.js';
 import type { MailStatusResponse } from '../domain/signup/signup.schema.js';
 import type { OutboxListResponse, OutboxMessageResponse, OutboxQuery } from '../domain/mail/outbox.schema.js';
 import { LocalSmtpServer } from './local-smtp.server.js';
@@ -46,7 +47,7 @@ export class OutboxService {
   async get(user: AuthUser, id: string): Promise<OutboxMessageResponse> {
     this.requireLocalMail();
     const mail = await this.repository.findInCompany(user.companyId, id);
-    if (!mail) throw new NotFoundException({ message: 'No such message.', code: 'MESSAGE_NOT_FOUND' });
+    if (!mail) throw new NotFoundError('MESSAGE_NOT_FOUND', 'No such message.');
     return {
       id: mail.id,
       from: mail.fromAddress,
@@ -63,14 +64,14 @@ export class OutboxService {
   async attachment(user: AuthUser, mailId: string, attachmentId: string) {
     this.requireLocalMail();
     const attachment = await this.repository.findAttachmentInCompany(user.companyId, mailId, attachmentId);
-    if (!attachment) throw new NotFoundException({ message: 'No such attachment.', code: 'ATTACHMENT_NOT_FOUND' });
+    if (!attachment) throw new NotFoundError('ATTACHMENT_NOT_FOUND', 'No such attachment.');
     return attachment;
   }
 
   /** With a hosted mail service (SMTP_URL) there is nothing local to show. */
   private requireLocalMail(): void {
     if (!this.localServer.isEnabled) {
-      throw new NotFoundException({ message: 'The outbox exists only with the local mail server.', code: 'NO_LOCAL_MAIL' });
+      throw new NotFoundError('NO_LOCAL_MAIL', 'The outbox exists only with the local mail server.');
     }
   }
 }

@@ -1,7 +1,8 @@
-import { Injectable, NotFoundException } from '@nestjs/common';
+import { Injectable } from '@nestjs/common';
 
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import type { JobSignatureRow } from '../db/schema/index.js';
+import { NotFoundError } from '../domain/errors.js';
 import type { JobVersionResponse } from '../domain/jobs/job.schema.js';
 import type { JobSignatureResponse, SignatureInput, SignatureRole } from '../domain/packet/signature.schema.js';
 import { jobNotFound } from '../jobs/job-errors.js';
@@ -65,7 +66,7 @@ export class SignaturesService {
   async remove(actor: AuthUser, jobId: string, role: SignatureRole, expectedVersion: number): Promise<JobVersionResponse> {
     return this.writer.write(actor, jobId, expectedVersion, 'signoff', async ({ tx }) => {
       if (!(await this.repository.remove(jobId, role, tx))) {
-        throw new NotFoundException({ message: `This job has no ${role === 'lead' ? 'crew lead' : 'homeowner'} signature.`, code: 'SIGNATURE_NOT_FOUND' });
+        throw new NotFoundError('SIGNATURE_NOT_FOUND', `This job has no ${role === 'lead' ? 'crew lead' : 'homeowner'} signature.`);
       }
       return { result: {}, audit: { action: 'job.signature.delete', targetType: 'job', targetId: jobId, details: { role } } };
     });

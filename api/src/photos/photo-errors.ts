@@ -1,7 +1,9 @@
-import { BadRequestException, HttpException, HttpStatus, NotFoundException, UnsupportedMediaTypeException } from '@nestjs/common';
+import { HttpException, HttpStatus, UnsupportedMediaTypeException } from '@nestjs/common';
 
-export function photoNotFound(): NotFoundException {
-  return new NotFoundException({ message: 'No such photo.', code: 'PHOTO_NOT_FOUND' });
+import { NotFoundError, ValidationError } from '../domain/errors.js';
+
+export function photoNotFound(): NotFoundError {
+  return new NotFoundError('PHOTO_NOT_FOUND', 'No such photo.');
 }
 
 const ACCEPTED = 'Send photos as JPEG, PNG or WebP.';
@@ -35,6 +37,6 @@ export function uploadTooLarge(message: string, code: string): HttpException {
   return new HttpException({ message, code }, HttpStatus.PAYLOAD_TOO_LARGE);
 }
 
-export function badUpload(message: string, path: string): BadRequestException {
-  return new BadRequestException({ message: `${path}: ${message}`, code: 'VALIDATION_FAILED', issues: [{ path, message }] });
+export function badUpload(message: string, path: string): ValidationError {
+  return new ValidationError([{ path, message }]);
 }

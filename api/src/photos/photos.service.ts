@@ -1,11 +1,12 @@
 import { randomUUID } from 'node:crypto';
 import type { Readable } from 'node:stream';
 
-import { ConflictException, ForbiddenException, Inject, Injectable, Logger, PreconditionFailedException } from '@nestjs/common';
+import { Inject, Injectable, Logger } from '@nestjs/common';
 
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import type { Tx } from '../db/db.module.js';
 import type { NewPhotoDerivative } from '../db/schema/index.js';
+import { ConflictError, findOrFail, ForbiddenError, VersionConflictError } from '../domain/errors.js';
 import { canReadPhotoVariant, sanitizeFileName } from '../domain/photos/photo-rules.js';
 import type {
   PhotoListResponse,
@@ -43,9 +44,7 @@ export interface PhotoContent {
 type WithVersion<T> = T & JobVersionResponse;
 
 function isVersionConflict(error: unknown): boolean {
-  if (!(error instanceof PreconditionFailedException)) return false;
-  const body = error.getResponse();
-  return typeof body === 'object' && body !== null && (body as { code?: unknown }).code === 'VERSION_CONFLICT';
+  return error instanceof VersionConflictError;
 }
 
 const fileLabel = (index: number, file: UploadedPhotoFile) => {
@@ -216,7 +215,7 @@ export class PhotosService {
 
   async restore(actor: AuthUser, photoId: string, expectedVersion: number): Promise<WithVersion<{ photo: PhotoResponse }>> {
     return this.changePhoto(actor, photoId, expectedVersion, 'job.photo.restore', async (photo, tx) => {
-      if (!photo.deletedAt) throw new ConflictException({ message: 'This photo is not deleted.', code: 'PHOTO_NOT_DELETED' });
+      if (!photo.deletedAt) throw new ConflictError('PHOTO_NOT_DELETED', 'This photo is not deleted.');
       await this.repository.update(photo.id, { deletedAt: null }, tx);
       return {};
     });
@@ -227,7 +226,7 @@ export class PhotosService {
     const photo = await this.repository.findInCompany(actor.companyId, photoId);
     if (!photo || photo.deletedAt) throw photoNotFound();
     if (!canReadPhotoVariant(actor.role, variant)) {
-      throw new ForbiddenException({ message: 'Only company staff may download the original photo.', code: 'ROLE_NOT_ALLOWED' });
+      throw new ForbiddenError('ROLE_NOT_ALLOWED', 'Only company staff may download the original photo.');
     }
     const source =
       variant === 'original'
@@ -258,12 +257,10 @@ export class PhotosService {
     action: string,
     work: (photo: NonNullable<Awaited<ReturnType<PhotosRepository['findInCompany']>>>, tx: Tx) => Promise<Record<string, unknown>>,
   ): Promise<WithVersion<{ photo: PhotoResponse }>> {
-    const found = await this.repository.findInCompany(actor.companyId, photoId);
-    if (!found) throw photoNotFound();
+    const found = await findOrFail(this.repository.findInCompany(actor.companyId, photoId), photoNotFound);
     const { jobVersion } = await this.writer.write(actor, found.jobId, expectedVersion, 'field', async ({ tx }) => {
       // Read again under the job's lock: writes to one job's photos run one at a time.
-      const photo = await this.repository.findInCompany(actor.companyId, photoId, tx);
-      if (!photo) throw photoNotFound();
+      const photo = await findOrFail(this.repository.findInCompany(actor.companyId, photoId, tx), photoNotFound);
       const details = await work(photo, tx);
       return { result: {}, audit: { action, targetType: 'photo', targetId: photo.id, details } };
     });
@@ -290,15 +287,11 @@ export class PhotosService {
     if (existing.length === 0) return undefined;
     if (existing.length !== clientUploadIds.length) {
       const stored = existing.map((photo) => photo.clientUploadId);
-      throw new ConflictException({
-        message: `Some of these clientUploadIds were stored already (${stored.join(', ')}); upload only the others, or all of them with new ids.`,
-        code: 'UPLOAD_PARTLY_STORED',
-      });
+      throw new ConflictError('UPLOAD_PARTLY_STORED', `Some of these clientUploadIds were stored already (${stored.join(', ')}); upload only the others, or all of them with new ids.`);
     }
     const byClientId = new Map(existing.map((photo) => [photo.clientUploadId, photo.id]));
     const views = await this.repository.findViews(clientUploadIds.map((id) => byClientId.get(id)!));
-    const jobVersion = await this.repository.findJobVersion(actor.companyId, jobId);
-    if (jobVersion === undefined) throw jobNotFound();
+    const jobVersion = await findOrFail(this.repository.findJobVersion(actor.companyId, jobId), jobNotFound);
     return { photos: views.map((view) => toPhotoResponse(view, actor.role)), isReplay: true, jobVersion };
   }
 

@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 
-import { BadRequestException, Inject, Injectable, Logger, NotFoundException } from '@nestjs/common';
+import { Inject, Injectable, Logger } from '@nestjs/common';
 
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
@@ -10,6 +10,7 @@ import type {
   UpdateCompanyProfileInput,
   UpdateDepthRulesInput,
 } from '../domain/company/company-profile.schema.js';
+import { NotFoundError, ValidationError } from '../domain/errors.js';
 import type { DepthRuleTable } from '../domain/depth/depth-rules.schema.js';
 import { DEFAULT_DEPTH_RULES } from '../domain/depth/depth-rules.js';
 import { OBJECT_STORAGE, type ObjectStorage } from '../storage/object-storage.js';
@@ -96,7 +97,7 @@ export class CompanyProfileService {
   async uploadLogo(actor: AuthUser, file: UploadedLogoFile | undefined): Promise<CompanyProfileResponse> {
     if (!file || file.size === 0) {
       const message = 'attach the logo image in the multipart field "file"';
-      throw new BadRequestException({ message: `file: ${message}`, code: 'VALIDATION_FAILED', issues: [{ path: 'file', message }] });
+      throw new ValidationError([{ path: 'file', message }]);
     }
     const logo = await this.processor.process(file.buffer);
     const key = `${LOGO_PREFIX(actor.companyId)}${createHash('sha256').update(logo.body).digest('hex')}.png`;
@@ -115,13 +116,13 @@ export class CompanyProfileService {
   /** Removes the logo from the profile; the stored picture stays for the revisions that printed it. */
   async removeLogo(actor: AuthUser): Promise<CompanyProfileResponse> {
     const current = await this.repository.profile(actor.companyId);
-    if (!current.logoKey) throw new NotFoundException({ message: 'The company has no logo.', code: 'LOGO_NOT_FOUND' });
+    if (!current.logoKey) throw new NotFoundError('LOGO_NOT_FOUND', 'The company has no logo.');
     return toProfileResponse(await this.write(actor, 'company.logo.remove', { logoKey: null }, {}));
   }
 
   async logo(actor: AuthUser): Promise<LogoContent> {
     const { logoKey } = await this.repository.profile(actor.companyId);
-    if (!logoKey) throw new NotFoundException({ message: 'The company has no logo.', code: 'LOGO_NOT_FOUND' });
+    if (!logoKey) throw new NotFoundError('LOGO_NOT_FOUND', 'The company has no logo.');
     return { body: await this.storage.getBuffer(logoKey), etag: `"${logoVersion(logoKey)}"` };
   }
 

@@ -1,13 +1,7 @@
-import {
-  BadRequestException,
-  ConflictException,
-  ForbiddenException,
-  GoneException,
-  Injectable,
-  NotFoundException,
-} from '@nestjs/common';
+import { GoneException, Injectable } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 
+import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../domain/errors.js';
 import { AuditService } from '../audit/audit.service.js';
 import { AuthService, type ClientMeta, type IssuedSession } from '../auth/auth.service.js';
 import { PasswordHasher } from '../auth/password-hasher.js';
@@ -29,10 +23,7 @@ const ACCEPTED_MESSAGE =
   'Check your e-mail: we sent a message to that address. Follow its link to confirm the address and create the company.';
 
 const emailTaken = () =>
-  new ConflictException({
-    message: 'An account with this e-mail already exists. Sign in, or reset your password.',
-    code: 'EMAIL_TAKEN',
-  });
+  new ConflictError('EMAIL_TAKEN', 'An account with this e-mail already exists. Sign in, or reset your password.');
 
 /**
  * Company sign-up: a request records a pending sign-up and queues its verification e-mail (the link
@@ -67,10 +58,10 @@ export class SignupService {
     const mode = this.config.get('SIGNUP_MODE', { infer: true });
     if (mode === 'closed') {
       const contact = this.config.get('SIGNUP_CONTACT', { infer: true });
-      throw new ForbiddenException({
-        message: `Sign-up is closed on this server: companies are created by its operator${contact ? ` (${contact})` : ''}.`,
-        code: 'SIGNUP_CLOSED',
-      });
+      throw new ForbiddenError(
+        'SIGNUP_CLOSED',
+        `Sign-up is closed on this server: companies are created by its operator${contact ? ` (${contact})` : ''}.`,
+      );
     }
     let inviteCodeId: string | null = null;
     if (mode === 'invite') {
@@ -123,10 +114,10 @@ export class SignupService {
   /** With mail captured locally: the message sent for a sign-up request, so the page can show it. */
   async mailForReceipt(receipt: string): Promise<SignupMailResponse> {
     if (!this.localServer.isEnabled) {
-      throw new NotFoundException({ message: 'Mail goes to a mail service on this server; read it in your inbox.', code: 'NO_LOCAL_MAIL' });
+      throw new NotFoundError('NO_LOCAL_MAIL', 'Mail goes to a mail service on this server; read it in your inbox.');
     }
     const found = receipt.length >= 20 && receipt.length <= 200 ? await this.repository.mailForReceipt(hashToken(receipt)) : undefined;
-    if (!found) throw new NotFoundException({ message: 'No sign-up request with this receipt.', code: 'RECEIPT_NOT_FOUND' });
+    if (!found) throw new NotFoundError('RECEIPT_NOT_FOUND', 'No sign-up request with this receipt.');
     const status = found.status === 'sent' ? 'sent' : found.status === 'failed' || found.status === 'cancelled' ? 'failed' : 'queued';
     return {
       status,
@@ -148,7 +139,7 @@ export class SignupService {
       .transaction(async (tx) => {
         const signup = await this.repository.lockByTokenHash(hashToken(token), tx);
         if (!signup) {
-          throw new NotFoundException({ message: 'This link is not valid. Check that you copied all of it.', code: 'LINK_NOT_VALID' });
+          throw new NotFoundError('LINK_NOT_VALID', 'This link is not valid. Check that you copied all of it.');
         }
         if (signup.completedAt) {
           throw new GoneException({
@@ -168,10 +159,7 @@ export class SignupService {
         if (await this.repository.emailTaken(signup.email, tx)) throw emailTaken();
         const { companyId, admin } = await this.repository.createCompanyWithAdmin(signup, tx);
         if (signup.inviteCodeId && !(await this.repository.claimInviteCode(signup.inviteCodeId, companyId, tx))) {
-          throw new ConflictException({
-            message: 'The invitation code of this sign-up was used by another company meanwhile. Ask for a new code.',
-            code: 'INVITE_CODE_USED',
-          });
+          throw new ConflictError('INVITE_CODE_USED', 'The invitation code of this sign-up was used by another company meanwhile. Ask for a new code.');
         }
         await this.audit.record(
           { companyId, actorUserId: admin.id, action: 'company.sign_up', targetType: 'company', targetId: companyId, details: { signupId: signup.id } },
@@ -189,9 +177,5 @@ export class SignupService {
 }
 
 function inviteCodeError(message: string) {
-  return new BadRequestException({
-    message: `inviteCode: ${message}`,
-    code: 'VALIDATION_FAILED',
-    issues: [{ path: 'inviteCode', message }],
-  });
+  return new ValidationError([{ path: 'inviteCode', message }]);
 }

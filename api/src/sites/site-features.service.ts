@@ -1,4 +1,4 @@
-import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
+import { Injectable } from '@nestjs/common';
 
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import type { SiteFeatureRow } from '../db/schema/index.js';
@@ -11,12 +11,13 @@ import {
   type SiteFeatureShape,
   type UpdateSiteFeatureInput,
 } from '../domain/sites/site-feature.schema.js';
+import { ConflictError, findOrFail, NotFoundError, ValidationError } from '../domain/errors.js';
 import type { SiteVersionResponse } from '../domain/sites/site-rules.js';
 import { siteNotFound } from './site-errors.js';
 import { SiteFeaturesRepository } from './site-features.repository.js';
 import { SiteWriter } from './site-writer.js';
 
-const featureNotFound = () => new NotFoundException({ message: 'No such feature on this site.', code: 'SITE_FEATURE_NOT_FOUND' });
+const featureNotFound = () => new NotFoundError('SITE_FEATURE_NOT_FOUND', 'No such feature on this site.');
 
 export function toSiteFeature(row: SiteFeatureRow): SiteFeatureResponse {
   return {
@@ -50,7 +51,7 @@ export class SiteFeaturesService {
   async create(actor: AuthUser, siteId: string, expectedVersion: number, input: CreateSiteFeatureInput): Promise<SiteFeatureResponse & SiteVersionResponse> {
     return this.writer.write(actor, siteId, expectedVersion, 'geometry', async ({ tx }) => {
       if ((await this.repository.countOnSite(siteId, tx)) >= SITE_FEATURE_LIMITS.maxFeaturesPerSite) {
-        throw new ConflictException({ message: `A site holds at most ${SITE_FEATURE_LIMITS.maxFeaturesPerSite} features.`, code: 'TOO_MANY_FEATURES' });
+        throw new ConflictError('TOO_MANY_FEATURES', `A site holds at most ${SITE_FEATURE_LIMITS.maxFeaturesPerSite} features.`);
       }
       const row = await this.repository.insert({ siteId, kind: input.kind, name: input.name, shape: input.shape, points: input.points }, tx);
       return { result: toSiteFeature(row), audit: { action: 'site.feature.create', targetType: 'site_feature', targetId: row.id, details: { kind: row.kind } } };
@@ -65,14 +66,13 @@ export class SiteFeaturesService {
     input: UpdateSiteFeatureInput,
   ): Promise<SiteFeatureResponse & SiteVersionResponse> {
     return this.writer.write(actor, siteId, expectedVersion, 'geometry', async ({ tx }) => {
-      const current = await this.repository.find(siteId, id, tx);
-      if (!current) throw featureNotFound();
+      const current = await findOrFail(this.repository.find(siteId, id, tx), featureNotFound);
       const shape = input.shape ?? (current.shape as SiteFeatureShape);
       const points = input.points ?? current.points;
       const issue = featurePointsIssue(shape, points);
       if (issue !== null) {
         const path = input.points !== undefined ? 'points' : 'shape';
-        throw new BadRequestException({ message: `${path}: ${issue}`, code: 'VALIDATION_FAILED', issues: [{ path, message: issue }] });
+        throw new ValidationError([{ path, message: issue }]);
       }
       const row = await this.repository.update(siteId, id, { kind: input.kind, name: input.name, shape: input.shape, points: input.points }, tx);
       return { result: toSiteFeature(row!), audit: { action: 'site.feature.update', targetType: 'site_feature', targetId: id } };

@@ -1,15 +1,17 @@
 import { randomUUID } from 'node:crypto';
 
-import { BadRequestException, Inject, Injectable, Logger, NotFoundException } from '@nestjs/common';
+import { Inject, Injectable, Logger } from '@nestjs/common';
 
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import type { Site } from '../db/schema/index.js';
+import { NotFoundError, ValidationError } from '../domain/errors.js';
 import type { PlanImageUploadResponse, SiteResponse } from '../domain/sites/site.schema.js';
 import type { SiteVersionResponse } from '../domain/sites/site-rules.js';
 import type { PlanImage } from '../drawings/drawing-options.js';
 import { planImageForDrawing } from '../drawings/job-drawings.js';
 import { OBJECT_STORAGE, ObjectNotFoundError, type ObjectStorage } from '../storage/object-storage.js';
 import { PlanImageProcessor } from './plan-image-processor.js';
+import { siteNotFound } from './site-errors.js';
 import { planCalibrationOf, planImageEtag } from './plan-image-ref.js';
 import { SiteWriter } from './site-writer.js';
 import { SitesRepository } from './sites.repository.js';
@@ -27,8 +29,7 @@ export interface PlanImageContent {
   etag: string;
 }
 
-const siteNotFound = () => new NotFoundException({ message: 'No such site.', code: 'SITE_NOT_FOUND' });
-const noPlanImage = () => new NotFoundException({ message: 'This site has no plan image.', code: 'PLAN_IMAGE_NOT_FOUND' });
+const noPlanImage = () => new NotFoundError('PLAN_IMAGE_NOT_FOUND', 'This site has no plan image.');
 
 const CLEARED_PLAN_IMAGE = {
   planImageRef: null,
@@ -72,11 +73,7 @@ export class SitePlanImagesService {
     file: UploadedPlanFile | undefined,
   ): Promise<PlanImageUploadResponse & SiteVersionResponse> {
     if (!file || file.size === 0) {
-      throw new BadRequestException({
-        message: 'file: attach the site-plan image in the multipart field "file"',
-        code: 'VALIDATION_FAILED',
-        issues: [{ path: 'file', message: 'attach the site-plan image in the multipart field "file"' }],
-      });
+      throw new ValidationError([{ path: 'file', message: 'attach the site-plan image in the multipart field "file"' }]);
     }
     // 404, 403, 409 (jobs under review, stale version) before spending CPU on the file; checked again below.
     await this.writer.precheck(actor, siteId, expectedVersion, 'geometry');

@@ -1,5 +1,6 @@
 import { Injectable } from '@nestjs/common';
 
+import { findOrFail } from '../domain/errors.js';
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import type { Tx } from '../db/db.module.js';
@@ -66,8 +67,7 @@ export class SiteWriter {
    * before its transaction, so a stale or refused request fails fast. `write` checks again.
    */
   async precheck(actor: AuthUser, siteId: string, expectedVersion: number, kind: SiteWriteKind): Promise<void> {
-    const site = await this.repository.find(actor.companyId, siteId);
-    if (!site) throw siteNotFound();
+    const site = await findOrFail(this.repository.find(actor.companyId, siteId), siteNotFound);
     const decision = canWriteSite({ role: actor.role, userId: actor.id }, await this.repository.jobs(siteId), kind);
     if (!decision.isAllowed) throw siteDenied(decision);
     if (site.version !== expectedVersion) throw siteVersionConflict(site.version);
@@ -81,8 +81,7 @@ export class SiteWriter {
     kind: SiteWriteKind,
     tx: Tx,
   ): Promise<{ site: Site; jobs: SiteJobFacts[] }> {
-    const site = await this.repository.lock(actor.companyId, siteId, tx);
-    if (!site) throw siteNotFound();
+    const site = await findOrFail(this.repository.lock(actor.companyId, siteId, tx), siteNotFound);
     const jobs = await this.repository.jobs(siteId, tx, kind === 'geometry');
     const decision = canWriteSite({ role: actor.role, userId: actor.id }, jobs, kind);
     if (!decision.isAllowed) throw siteDenied(decision);

@@ -1,10 +1,11 @@
-import { BadRequestException, ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
+import { Injectable } from '@nestjs/common';
 
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { isForeignKeyViolation } from '../common/db-errors.js';
 import type { Tx } from '../db/db.module.js';
 import type { NewSite, ReferencePointRow, Site } from '../db/schema/index.js';
+import { ConflictError, findOrFail, ForbiddenError, NotFoundError, ValidationError } from '../domain/errors.js';
 import { type Page, pageOf } from '../domain/paging/page.schema.js';
 import type { SiteVersionResponse, SiteWriteKind } from '../domain/sites/site-rules.js';
 import type {
@@ -59,8 +60,8 @@ function toSiteColumns(input: UpdateSiteInput): Partial<NewSite> {
   };
 }
 
-function invalidField(path: string, message: string): BadRequestException {
-  return new BadRequestException({ message: `${path}: ${message}`, code: 'VALIDATION_FAILED', issues: [{ path, message }] });
+function invalidField(path: string, message: string): ValidationError {
+  return new ValidationError([{ path, message }]);
 }
 
 /** 400 naming `planCalibration` without an uploaded image, or with a point outside the image. */
@@ -88,7 +89,7 @@ export function siteWriteKindOf(input: UpdateSiteInput): SiteWriteKind {
 }
 
 const referencePointNotFound = () =>
-  new NotFoundException({ message: 'No such reference point on this site.', code: 'REFERENCE_POINT_NOT_FOUND' });
+  new NotFoundError('REFERENCE_POINT_NOT_FOUND', 'No such reference point on this site.');
 
 @Injectable()
 export class SitesService {
@@ -104,8 +105,7 @@ export class SitesService {
   }
 
   async get(actor: AuthUser, id: string, tx?: Tx): Promise<SiteResponse> {
-    const found = await this.repository.findInCompany(actor.companyId, id, tx);
-    if (!found) throw siteNotFound();
+    const found = await findOrFail(this.repository.findInCompany(actor.companyId, id, tx), siteNotFound);
     const { site } = found;
     const [points, homeowners, jobs] = [
       await this.repository.referencePoints(id, tx),
@@ -130,11 +130,7 @@ export class SitesService {
 
   private async requireCustomer(actor: AuthUser, customerId: string, tx: Tx): Promise<void> {
     if (!(await this.repository.customerInCompany(actor.companyId, customerId, tx))) {
-      throw new BadRequestException({
-        message: 'customerId: no such customer in your company',
-        code: 'VALIDATION_FAILED',
-        issues: [{ path: 'customerId', message: 'no such customer in your company' }],
-      });
+      throw invalidField('customerId', 'no such customer in your company');
     }
   }
 
@@ -163,11 +159,11 @@ export class SitesService {
       // A crew lead on site sets the plan's frame (calibration, north); the rest is the office's.
       const refused = Object.keys(input).filter((key) => !LEAD_EDITABLE_SITE_FIELDS.has(key));
       if (refused.length > 0) {
-        throw new ForbiddenException({
-          message: `A crew lead may change only the plan calibration and north of a site, not ${refused.join(', ')}.`,
-          code: 'FORBIDDEN_FIELDS',
-          issues: refused.map((path) => ({ path, message: 'only the office may change this' })),
-        });
+        throw new ForbiddenError(
+          'FORBIDDEN_FIELDS',
+          `A crew lead may change only the plan calibration and north of a site, not ${refused.join(', ')}.`,
+          refused.map((path) => ({ path, message: 'only the office may change this' })),
+        );
       }
     }
     return this.writer.write(actor, id, expectedVersion, siteWriteKindOf(input), async ({ tx, site }) => {
@@ -190,7 +186,7 @@ export class SitesService {
       });
     } catch (error) {
       if (isForeignKeyViolation(error)) {
-        throw new ConflictException({ message: 'This site has jobs: it cannot be deleted.', code: 'SITE_HAS_JOBS' });
+        throw new ConflictError('SITE_HAS_JOBS', 'This site has jobs: it cannot be deleted.');
       }
       throw error;
     }
@@ -230,8 +226,7 @@ export class SitesService {
     input: UpdateReferencePointInput,
   ): Promise<ReferencePointResponse & SiteVersionResponse> {
     return this.writer.write(actor, siteId, expectedVersion, 'geometry', async ({ tx }) => {
-      const row = await this.repository.updateReferencePoint(siteId, id, input, tx);
-      if (!row) throw referencePointNotFound();
+      const row = await findOrFail(this.repository.updateReferencePoint(siteId, id, input, tx), referencePointNotFound);
       return {
         result: toReferencePoint(row),
         audit: { action: 'site.reference_point.update', targetType: 'reference_point', targetId: id, details: { fields: Object.keys(input) } },
@@ -248,7 +243,7 @@ export class SitesService {
       });
     } catch (error) {
       if (isForeignKeyViolation(error)) {
-        throw new ConflictException({ message: 'Items are tied to this reference point: change their ties first.', code: 'IN_USE' });
+        throw new ConflictError('IN_USE', 'Items are tied to this reference point: change their ties first.');
       }
       throw error;
     }
@@ -258,11 +253,7 @@ export class SitesService {
     return this.repository.transaction(async (tx) => {
       await this.requireSite(actor, siteId, tx);
       if (!(await this.repository.homeownerInCompany(actor.companyId, userId, tx))) {
-        throw new BadRequestException({
-          message: 'userId: no such homeowner in your company',
-          code: 'VALIDATION_FAILED',
-          issues: [{ path: 'userId', message: 'no such homeowner in your company' }],
-        });
+        throw invalidField('userId', 'no such homeowner in your company');
       }
       await this.repository.linkHomeowner(siteId, userId, tx);
       await this.record(actor, 'site.homeowner.link', 'site', siteId, tx, { userId });
@@ -274,7 +265,7 @@ export class SitesService {
     await this.repository.transaction(async (tx) => {
       await this.requireSite(actor, siteId, tx);
       if (!(await this.repository.unlinkHomeowner(siteId, userId, tx))) {
-        throw new NotFoundException({ message: 'This homeowner is not linked to the site.', code: 'HOMEOWNER_NOT_LINKED' });
+        throw new NotFoundError('HOMEOWNER_NOT_LINKED', 'This homeowner is not linked to the site.');
       }
       await this.record(actor, 'site.homeowner.unlink', 'site', siteId, tx, { userId });
     });

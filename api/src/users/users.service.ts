@@ -1,4 +1,4 @@
-import { ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
+import { Injectable } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 
 import { AuditService } from '../audit/audit.service.js';
@@ -12,6 +12,7 @@ import type {
   UserListResponse,
   UserResponse,
 } from '../domain/auth/auth.schema.js';
+import { ConflictError, findOrFail, ForbiddenError, NotFoundError } from '../domain/errors.js';
 import { canInvite, canManageUser, ROLE_LABELS } from '../domain/auth/roles.js';
 import { pageOf } from '../domain/paging/page.schema.js';
 import type { Invitation, OutgoingMailRow, User } from '../db/schema/index.js';
@@ -46,9 +47,9 @@ function toInvitationResponse(invitation: Invitation, mail: OutgoingMailRow | un
 
 /** Only a role that may send an invitation may revoke, resend or replace it: admin invitations are admins' alone. */
 const adminInvitationOnly = () =>
-  new ForbiddenException({ message: 'Only an admin can change an invitation for an admin.', code: 'CANNOT_MANAGE_INVITATION' });
+  new ForbiddenError('CANNOT_MANAGE_INVITATION', 'Only an admin can change an invitation for an admin.');
 
-const invitationNotFound = () => new NotFoundException({ message: 'No such open invitation.', code: 'INVITATION_NOT_FOUND' });
+const invitationNotFound = () => new NotFoundError('INVITATION_NOT_FOUND', 'No such open invitation.');
 
 @Injectable()
 export class UsersService {
@@ -66,9 +67,9 @@ export class UsersService {
 
   async update(actor: AuthUser, id: string, input: UpdateUserInput): Promise<UserResponse> {
     const target = await this.repository.findInCompany(actor.companyId, id);
-    if (!target) throw new NotFoundException({ message: 'No such user.', code: 'USER_NOT_FOUND' });
+    if (!target) throw new NotFoundError('USER_NOT_FOUND', 'No such user.');
     if (!canManageUser(actor.role, actor.id, id)) {
-      throw new ForbiddenException({ message: 'You cannot change this account.', code: 'CANNOT_MANAGE_USER' });
+      throw new ForbiddenError('CANNOT_MANAGE_USER', 'You cannot change this account.');
     }
     const updated = await this.repository.transaction(async (tx) => {
       const row = await this.repository.updateInCompany(actor.companyId, id, input, tx);
@@ -97,13 +98,13 @@ export class UsersService {
    */
   async invite(actor: AuthUser, input: CreateInvitationInput, options: { siteIds?: readonly string[] } = {}): Promise<InvitationResponse> {
     if (!canInvite(actor.role, input.role)) {
-      throw new ForbiddenException({ message: `Your role cannot invite a ${ROLE_LABELS[input.role].toLowerCase()}.`, code: 'CANNOT_INVITE_ROLE' });
+      throw new ForbiddenError('CANNOT_INVITE_ROLE', `Your role cannot invite a ${ROLE_LABELS[input.role].toLowerCase()}.`);
     }
     // Only accounts in the actor's own company are named. An address with an account in another
     // company gets an invitation like any other (nothing here tells the inviter it exists); its owner
     // learns on the link that the address already has an account (EMAIL_TAKEN when accepting).
     if (await this.repository.emailExistsInCompany(actor.companyId, input.email)) {
-      throw new ConflictException({ message: 'Someone in your company already has an account with this e-mail.', code: 'EMAIL_TAKEN' });
+      throw new ConflictError('EMAIL_TAKEN', 'Someone in your company already has an account with this e-mail.');
     }
     const hours = this.config.get('INVITATION_TTL_HOURS', { infer: true });
     const companyName = await this.repository.companyName(actor.companyId);
@@ -160,8 +161,7 @@ export class UsersService {
    * one is minted); for a message that failed or went astray.
    */
   async resendInvitation(actor: AuthUser, id: string): Promise<InvitationResponse> {
-    const invitation = await this.repository.findOpenInvitationInCompany(actor.companyId, id);
-    if (!invitation) throw invitationNotFound();
+    const invitation = await findOrFail(this.repository.findOpenInvitationInCompany(actor.companyId, id), invitationNotFound);
     if (!canInvite(actor.role, invitation.role)) throw adminInvitationOnly();
     const [inviter, companyName] = await Promise.all([
       invitation.invitedByUserId ? this.repository.findInCompany(actor.companyId, invitation.invitedByUserId) : undefined,

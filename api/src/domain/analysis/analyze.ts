@@ -204,7 +204,7 @@ export function analyzeAsBuilt(asBuilt: AsBuilt, optionsInput: AnalysisOptionsIn
   asBuilt.items.forEach((item, i) => itemIndexById.set(item.id, i));
 
   // Cable
-  const runOhmPerM = asBuilt.runs.map((run) => conductorResistanceOhmPerM(run.gauge, options.conductorTemperatureC));
+  const runOhmPerM = asBuilt.runs.map((run, i) => conductorResistanceOhmPerM(run.gauge, options.conductorTemperatureC, `runs.${i}.gauge`));
 
   // Loads
   const circuits = buildChannelCircuits(asBuilt, itemIndexById, runOhmPerM);

@@ -12,6 +12,7 @@ import {
   isKnownMm2,
   mm2ToEquivalentAwg,
 } from './wire.js';
+import { ValidationError } from '../errors.js';
 
 interface WireFixture {
   source: string;
@@ -109,11 +110,18 @@ describe(conductorResistanceOhmPerM.name, () => {
   });
 
   it.each([
-    [{ system: 'awg', awg: 14.5 }],
-    [{ system: 'awg', awg: 41 }],
-    [{ system: 'mm2', mm2: 3 }],
-  ] as const)('should throw for the unknown gauge %o', (gauge) => {
-    expect(() => conductorResistanceOhmPerM(gauge)).toThrow(RangeError);
+    [{ system: 'awg', awg: 14.5 }, 'runs.2.gauge.awg'],
+    [{ system: 'awg', awg: 41 }, 'runs.2.gauge.awg'],
+    [{ system: 'mm2', mm2: 3 }, 'runs.2.gauge.mm2'],
+  ] as const)('should refuse the unknown gauge %o as a validation error naming %s', (gauge, path) => {
+    let error: unknown;
+    try {
+      conductorResistanceOhmPerM(gauge, 20, 'runs.2.gauge');
+    } catch (thrown) {
+      error = thrown;
+    }
+    expect(error).toBeInstanceOf(ValidationError);
+    expect(error).toMatchObject({ code: 'VALIDATION_FAILED', issues: [{ path }] });
   });
 });
 

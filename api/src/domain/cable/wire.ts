@@ -4,6 +4,8 @@
  * standard's maxima sit 7–16 % above ρ/A of the nominal area.
  */
 
+import { ValidationError } from '../errors.js';
+
 /** Largest conductor we accept: 4/0 AWG is n = −3 in the ASTM B258 formula. */
 export const MIN_AWG = -3;
 /** Finest conductor we accept. */
@@ -90,16 +92,21 @@ export function gaugeAreaMm2(gauge: ConductorGauge): number {
  * DC resistance of ONE conductor, Ω per metre, at `temperatureC` (default 20 °C).
  * AWG: IACS resistivity 1/58 Ω·mm²/m over the ASTM B258 area (solid-wire value; stranded is about 2 %
  * higher). mm²: IEC 60228 class 5 maximum at 20 °C. Both corrected by 1 + 0.00393·(T − 20). Unrounded.
- * Throws RangeError for a gauge outside the tables (the schema rejects those first).
+ * A gauge outside the tables (the schema rejects those first) is a ValidationError naming `path`
+ * (`runs.0.gauge` → `runs.0.gauge.awg`), so it answers 400 at the field rather than a 500.
  */
-export function conductorResistanceOhmPerM(gauge: ConductorGauge, temperatureC = 20): number {
+export function conductorResistanceOhmPerM(gauge: ConductorGauge, temperatureC = 20, path = 'gauge'): number {
   const factor = copperTemperatureFactor(temperatureC);
   if (gauge.system === 'awg') {
-    if (!isKnownAwg(gauge.awg)) throw new RangeError(`unknown AWG gauge ${gauge.awg}`);
+    if (!isKnownAwg(gauge.awg)) {
+      throw new ValidationError([{ path: `${path}.awg`, message: `unknown AWG gauge ${gauge.awg}: use a whole number from ${MIN_AWG} (4/0) to ${MAX_AWG}` }]);
+    }
     return (IACS_RESISTIVITY_OHM_MM2_PER_M / awgAreaMm2(gauge.awg)) * factor;
   }
   const row = findIecRow(gauge.mm2);
-  if (row === undefined) throw new RangeError(`unknown metric size ${gauge.mm2} mm²`);
+  if (row === undefined) {
+    throw new ValidationError([{ path: `${path}.mm2`, message: `unknown metric conductor size ${gauge.mm2} mm²: use an IEC 60228 size` }]);
+  }
   return (row[1] / 1000) * factor;
 }
 

@@ -1,9 +1,7 @@
 import { type AsBuilt, AsBuiltSchema } from '../as-built/as-built.schema.js';
+import type { FieldIssue } from '../errors.js';
 
-export interface FieldIssue {
-  path: string;
-  message: string;
-}
+export type { FieldIssue };
 
 /**
  * Validates a job's whole as-built as it would be after a change, so that every stored record always

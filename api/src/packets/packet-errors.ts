@@ -1,0 +1,5 @@
+import { NotFoundError } from '../domain/errors.js';
+
+export function packetNotFound(): NotFoundError {
+  return new NotFoundError('PACKET_NOT_FOUND', 'No such packet revision.');
+}
