@@ -16,9 +16,23 @@ import {
 
 export type UserWithCompany = User & { companyName: string };
 
+/** The account behind an access token, read on every signed-in request: built once as a named prepared statement. */
+function userByIdQuery(db: Db) {
+  return db
+    .select({ user: users, companyName: companies.name })
+    .from(users)
+    .innerJoin(companies, eq(companies.id, users.companyId))
+    .where(eq(users.id, sql.placeholder('id')))
+    .prepare('auth_user_by_id');
+}
+
 @Injectable()
 export class AuthRepository {
-  constructor(@Inject(DB) private readonly db: Db) {}
+  private readonly userById: ReturnType<typeof userByIdQuery>;
+
+  constructor(@Inject(DB) private readonly db: Db) {
+    this.userById = userByIdQuery(db);
+  }
 
   async findUserByEmail(email: string): Promise<UserWithCompany | undefined> {
     const [row] = await this.db
@@ -30,11 +44,7 @@ export class AuthRepository {
   }
 
   async findUserById(id: string): Promise<UserWithCompany | undefined> {
-    const [row] = await this.db
-      .select({ user: users, companyName: companies.name })
-      .from(users)
-      .innerJoin(companies, eq(companies.id, users.companyId))
-      .where(eq(users.id, id));
+    const [row] = await this.userById.execute({ id });
     return row && { ...row.user, companyName: row.companyName };
   }
 

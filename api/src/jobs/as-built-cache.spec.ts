@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 
 import { DEFAULT_DEPTH_RULES } from '../domain/depth/depth-rules.js';
-import { AS_BUILT_CACHE_ENTRIES, AsBuiltCache, type AsBuiltPart } from './as-built-cache.js';
+import { AS_BUILT_CACHE_ENTRIES, AsBuiltCache, type AsBuiltPart, spliceAsBuiltAnswer } from './as-built-cache.js';
 
 const part = (n: number) => ({ asBuilt: { n }, analysis: {}, records: {} }) as unknown as AsBuiltPart;
 
@@ -15,11 +15,20 @@ describe('AsBuiltCache', () => {
     expect(AsBuiltCache.key('job-1', 3, 7, structuredClone(DEFAULT_DEPTH_RULES))).toBe(AsBuiltCache.key('job-1', 3, 7, DEFAULT_DEPTH_RULES));
   });
 
-  it('should keep the JSON of a part without braces, to splice after the job', () => {
+  it('should keep the encoded part, to splice after the job', () => {
     const cache = new AsBuiltCache();
     const entry = cache.set('k', part(1));
-    expect(JSON.parse(`{"job":null,${entry.partJson}}`)).toEqual({ job: null, ...part(1) });
+    expect(JSON.parse(spliceAsBuiltAnswer('null', entry).toString('utf8'))).toEqual({ job: null, ...part(1) });
     expect(cache.get('k')).toBe(entry);
+  });
+
+  it('should splice an answer whose bytes are the UTF-8 of the whole answer, names outside Latin-1 included', () => {
+    const named = { asBuilt: { zones: [{ name: 'Patio – east ✓ 東' }] }, analysis: { note: 'ø 4¼' }, records: {} } as unknown as AsBuiltPart;
+    const job = { title: 'Back-yard “sound” — 2nd', id: 'j-1' };
+    const entry = new AsBuiltCache().set('k', named);
+    const bytes = spliceAsBuiltAnswer(JSON.stringify(job), entry);
+    expect(bytes.equals(Buffer.from(JSON.stringify({ job, ...named }), 'utf8'))).toBe(true);
+    expect(JSON.parse(bytes.toString('utf8'))).toEqual({ job, ...named });
   });
 
   it('should drop the least recently used entry past its capacity', () => {

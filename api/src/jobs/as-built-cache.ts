@@ -10,10 +10,20 @@ export type AsBuiltPart = Omit<JobAsBuiltResponse, 'job'>;
 
 export interface CachedAsBuilt {
   part: AsBuiltPart;
-  /** `part` serialised without its braces (`"asBuilt":…,"analysis":…,"records":…`), to splice after the job. */
-  partJson: string;
-  /** A hash of `partJson`, for the answer's ETag. */
+  /**
+   * The answer's UTF-8 bytes after the job: `,"asBuilt":…,"analysis":…,"records":…}`. Kept encoded,
+   * because encoding the whole answer text again on every read (names with an en dash or a ✓ make it
+   * a two-byte string, UTF-8 encoded character by character) cost more than the rest of a cached read.
+   */
+  answerTail: Buffer;
+  /** A hash of the part's JSON, for the answer's ETag. */
   partHash: string;
+}
+
+/** The as-built answer's bytes: `{"job":<jobJson>` followed by the cached part (see CachedAsBuilt.answerTail). */
+export function spliceAsBuiltAnswer(jobJson: string, entry: CachedAsBuilt): Buffer {
+  const head = Buffer.from(`{"job":${jobJson}`, 'utf8');
+  return Buffer.concat([head, entry.answerTail], head.length + entry.answerTail.length);
 }
 
 /** Entries kept; the least recently used goes first. The demo job's part is about 100 kB of JSON. */
@@ -58,7 +68,7 @@ export class AsBuiltCache {
 
   set(key: string, part: AsBuiltPart): CachedAsBuilt {
     const partJson = JSON.stringify(part).slice(1, -1);
-    const entry: CachedAsBuilt = { part, partJson, partHash: sha1(partJson) };
+    const entry: CachedAsBuilt = { part, answerTail: Buffer.from(`,${partJson}}`, 'utf8'), partHash: sha1(partJson) };
     this.entries.delete(key);
     this.entries.set(key, entry);
     while (this.entries.size > this.capacity) {

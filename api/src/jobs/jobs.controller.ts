@@ -94,14 +94,14 @@ export class JobsController {
     @Headers('if-none-match') ifNoneMatch: string | undefined,
     @Res() res: Response,
   ): Promise<void> {
-    // The answer is spliced from JSON text kept in the as-built cache (see JobsService.asBuiltAnswer).
+    // The answer is spliced from UTF-8 JSON kept in the as-built cache (see JobsService.asBuiltAnswer).
     const answer = await this.jobsService.asBuiltAnswer(user, id);
     setEtagHeaders(res, answer.etag);
     if (isNotModified(ifNoneMatch, answer.etag)) {
       res.status(304).end();
       return;
     }
-    res.type('application/json').send(answer.json);
+    res.type('application/json').send(answer.body);
   }
 
   @Patch(':id')

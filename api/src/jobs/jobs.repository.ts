@@ -111,13 +111,42 @@ export interface AsBuiltHead {
 }
 
 /**
+ * The job as its summary shows it, its site's version, the state of the site's other jobs, its
+ * technicians and the company's depth rule table, in one query (`companyId` and `id` are placeholders).
+ */
+function asBuiltHeadQuery(db: Db | Tx) {
+  return db
+    .select({
+      ...jobViewColumns,
+      siteVersion: sites.version,
+      systemState: sql<string>`(select count(*)::text || '.' || coalesce(sum(sj.version), 0)::text || '.' || coalesce(max(extract(epoch from sj.updated_at)), 0)::text
+        from ${jobs} sj where sj.site_id = ${jobs.siteId})`,
+      technicians: sql<{ id: string; name: string }[]>`coalesce((
+        select json_agg(json_build_object('id', ${users.id}, 'name', ${users.name}) order by ${users.name}, ${users.id})
+        from ${jobTechnicians} inner join ${users} on ${users.id} = ${jobTechnicians.userId}
+        where ${jobTechnicians.jobId} = ${jobs.id}), '[]'::json)`,
+      depthRules: sql<DepthRuleTable | null>`(select ${companySettings.depthRules} from ${companySettings} where ${companySettings.companyId} = ${jobs.companyId})`,
+    })
+    .from(jobs)
+    .innerJoin(sites, eq(sites.id, jobs.siteId))
+    .innerJoin(customers, eq(customers.id, sites.customerId))
+    .leftJoin(crewLead, eq(crewLead.id, jobs.crewLeadUserId))
+    .where(and(eq(jobs.companyId, sql.placeholder('companyId')), eq(jobs.id, sql.placeholder('id'))));
+}
+
+/**
  * Jobs and their as-built rows. Methods that look a job up take the company id from the signed-in
  * user; child rows are always addressed through their job id (checked by the service first), so nothing
  * here crosses companies.
  */
 @Injectable()
 export class JobsRepository {
-  constructor(@Inject(DB) private readonly db: Db) {}
+  /** asBuiltHeadQuery as a named prepared statement on the pool (the as-built read's one query on a cache hit). */
+  private readonly asBuiltHead: ReturnType<ReturnType<typeof asBuiltHeadQuery>['prepare']>;
+
+  constructor(@Inject(DB) private readonly db: Db) {
+    this.asBuiltHead = asBuiltHeadQuery(db).prepare('jobs_as_built_head');
+  }
 
   transaction<T>(work: (tx: Tx) => Promise<T>): Promise<T> {
     return this.db.transaction(work);
@@ -201,23 +230,9 @@ export class JobsRepository {
    * job version + site version + rule table) and to answer the job part fresh.
    */
   async findAsBuiltHead(companyId: string, id: string, tx?: Tx): Promise<AsBuiltHead | undefined> {
-    const [row] = await (tx ?? this.db)
-      .select({
-        ...jobViewColumns,
-        siteVersion: sites.version,
-        systemState: sql<string>`(select count(*)::text || '.' || coalesce(sum(sj.version), 0)::text || '.' || coalesce(max(extract(epoch from sj.updated_at)), 0)::text
-          from ${jobs} sj where sj.site_id = ${jobs.siteId})`,
-        technicians: sql<{ id: string; name: string }[]>`coalesce((
-          select json_agg(json_build_object('id', ${users.id}, 'name', ${users.name}) order by ${users.name}, ${users.id})
-          from ${jobTechnicians} inner join ${users} on ${users.id} = ${jobTechnicians.userId}
-          where ${jobTechnicians.jobId} = ${jobs.id}), '[]'::json)`,
-        depthRules: sql<DepthRuleTable | null>`(select ${companySettings.depthRules} from ${companySettings} where ${companySettings.companyId} = ${jobs.companyId})`,
-      })
-      .from(jobs)
-      .innerJoin(sites, eq(sites.id, jobs.siteId))
-      .innerJoin(customers, eq(customers.id, sites.customerId))
-      .leftJoin(crewLead, eq(crewLead.id, jobs.crewLeadUserId))
-      .where(and(eq(jobs.companyId, companyId), eq(jobs.id, id)));
+    // Outside a transaction (every cached read) the query runs as a named prepared statement: neither
+    // built again by Drizzle nor parsed again by PostgreSQL on that connection.
+    const [row] = await (tx ? asBuiltHeadQuery(tx) : this.asBuiltHead).execute({ companyId, id });
     if (!row) return undefined;
     const { siteVersion, systemState, technicians, depthRules, ...view } = row;
     return { view, siteVersion, systemState, technicians, depthRules: depthRules ?? undefined };

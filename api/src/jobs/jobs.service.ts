@@ -18,7 +18,7 @@ import type {
   UpdateJobInput,
 } from '../domain/jobs/job.schema.js';
 import type { FieldIssue } from '../domain/jobs/record-validation.js';
-import { AsBuiltCache, type CachedAsBuilt, sha1 } from './as-built-cache.js';
+import { AsBuiltCache, type CachedAsBuilt, sha1, spliceAsBuiltAnswer } from './as-built-cache.js';
 import { depthReadingIdsByRun, toAsBuilt, toChannelSetup, toSiteRecords } from './as-built-rows.js';
 import { denied, invalid, jobNotFound, versionConflict } from './job-errors.js';
 import { JobWriter } from './job-writer.js';
@@ -218,13 +218,13 @@ export class JobsService {
   }
 
   /**
-   * The as-built answer as JSON text with its ETag (a hash of the job part and of the cached part), so
-   * a cache hit is neither analysed nor serialised again.
+   * The as-built answer as UTF-8 JSON with its ETag (a hash of the job part and of the cached part), so
+   * a cache hit is neither analysed, serialised nor encoded again (only the small job part is).
    */
-  async asBuiltAnswer(actor: AuthUser, id: string): Promise<{ json: string; etag: string }> {
+  async asBuiltAnswer(actor: AuthUser, id: string): Promise<{ body: Buffer; etag: string }> {
     const { job, cached } = await this.asBuiltParts(actor, id);
     const jobJson = JSON.stringify(job);
-    return { json: `{"job":${jobJson},${cached.partJson}}`, etag: `"${sha1(`${sha1(jobJson)}.${cached.partHash}`)}"` };
+    return { body: spliceAsBuiltAnswer(jobJson, cached), etag: `"${sha1(`${sha1(jobJson)}.${cached.partHash}`)}"` };
   }
 
   private async asBuiltParts(actor: AuthUser, id: string): Promise<{ job: JobResponse; cached: CachedAsBuilt }> {
