@@ -20,6 +20,8 @@ type ConfirmDialogProps = {
   title: string;
   children: ReactNode;
   confirmLabel: string;
+  /** The button that backs out ("Cancel" unless said). */
+  cancelLabel?: string;
   /** While the confirmed action runs: the buttons wait and the dialog stays open. */
   isPending?: boolean;
   onConfirm: () => void;
@@ -32,6 +34,7 @@ export function ConfirmDialog({
   title,
   children,
   confirmLabel,
+  cancelLabel = 'Cancel',
   isPending = false,
   onConfirm,
   onCancel,
@@ -51,7 +54,7 @@ export function ConfirmDialog({
           <DialogContent>{children}</DialogContent>
           <DialogActions fluid>
             <Button className={styles.action} disabled={isPending} onClick={onCancel}>
-              Cancel
+              {cancelLabel}
             </Button>
             <Button
               appearance="primary"

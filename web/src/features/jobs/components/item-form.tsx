@@ -8,6 +8,7 @@ import type { AsBuilt } from '@domain/as-built/as-built.schema';
 import type { Item, ItemKind } from '@domain/as-built/item.schema';
 import { ItemInputSchema } from '@domain/jobs/job-record.schema';
 
+import { ConfirmDialog } from '../../../components/confirm-dialog';
 import { useNotify } from '../../../components/notify';
 import { useDraftForm } from '../../../lib/drafts';
 import { toSentence } from '../../../lib/form-errors';
@@ -21,7 +22,7 @@ import { saveErrors } from '../utils/save-errors';
 import { FormActions } from './form-actions';
 import { useFormStyles } from '../../../components/form-styles';
 import { LengthInput } from './length-input';
-import { TiesEditor, type TieDraft } from './ties-editor';
+import { solveTieDrafts, TiesEditor, type TieDraft } from './ties-editor';
 
 type ItemDraft = {
   kind: ItemKind;
@@ -255,8 +256,21 @@ export function ItemForm({ jobId, asBuilt, item, kind, kinds, focusField, onDone
     formRef.current?.querySelector<HTMLElement>(`#${CSS.escape(fieldDomId(recordId, focusField))}`)?.focus();
   }, [focusField, recordId]);
 
+  // Ties that cannot meet are asked about before saving: such an item is stored with no position.
+  const [unsolved, setUnsolved] = useState<{ body: Record<string, unknown>; reason: string } | undefined>();
+  const [isSavingAnyway, setIsSavingAnyway] = useState(false);
+
   const save = form.handleSubmit(async (body) => {
     setMessage(undefined);
+    const solution = currentKind === 'amplifier' ? undefined : solveTieDrafts(ties, asBuilt.referencePoints, sideHint, units.length);
+    if (solution && !solution.ok) {
+      setUnsolved({ body, reason: solution.message });
+      return;
+    }
+    await send(body);
+  });
+
+  const send = async (body: Record<string, unknown>) => {
     const name = String(body.label ?? label);
     try {
       const outcome = await writer.save({
@@ -272,7 +286,23 @@ export function ItemForm({ jobId, asBuilt, item, kind, kinds, focusField, onDone
       for (const [path, text] of Object.entries(fields)) form.setError(itemFieldOf(path, form.getValues()), { message: text });
       setMessage(problem);
     }
-  });
+  };
+
+  const saveAnyway = async () => {
+    if (!unsolved) return;
+    setIsSavingAnyway(true);
+    try {
+      await send(unsolved.body);
+    } finally {
+      setIsSavingAnyway(false);
+      setUnsolved(undefined);
+    }
+  };
+
+  const fixTies = () => {
+    setUnsolved(undefined);
+    formRef.current?.querySelector<HTMLElement>(`#${CSS.escape(fieldDomId(recordId, 'ties'))}`)?.focus();
+  };
   const isSaving = form.formState.isSubmitting;
   const errorOf = (field: keyof ItemDraft) => errors[field]?.message as string | undefined;
 
@@ -554,6 +584,17 @@ export function ItemForm({ jobId, asBuilt, item, kind, kinds, focusField, onDone
           onDone();
         }}
       />
+      <ConfirmDialog
+        open={unsolved !== undefined}
+        title="The ties do not meet"
+        confirmLabel="Save without a position"
+        cancelLabel="Fix the ties"
+        isPending={isSavingAnyway}
+        onConfirm={() => void saveAnyway()}
+        onCancel={fixTies}
+      >
+        {`Cannot place “${label || 'this item'}” from these ties: ${unsolved?.reason ?? ''}. Saved now, it has no position on the plan or the packet until the ties are fixed.`}
+      </ConfirmDialog>
     </form>
   );
 }

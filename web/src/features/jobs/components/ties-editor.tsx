@@ -1,7 +1,7 @@
 import { Button, Field, makeStyles, Radio, RadioGroup, Select, Text, tokens } from '@fluentui/react-components';
 import { Add20Regular, Delete20Regular, Location20Regular } from '@fluentui/react-icons';
 import type { ReferencePoint } from '@domain/as-built/item.schema';
-import { solvePositionFromTies, type TieObservation } from '@domain/geometry/ties';
+import { solvePositionFromTies, type TieObservation, type TieSolution } from '@domain/geometry/ties';
 
 import { formatLength, parseLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
@@ -44,6 +44,25 @@ type TiesEditorProps = {
 };
 
 /**
+ * Where the typed ties put the item (the same solver the analysis uses), or undefined with fewer than
+ * two readable ties.
+ */
+export function solveTieDrafts(
+  ties: readonly TieDraft[],
+  referencePoints: readonly ReferencePoint[],
+  sideHint: '' | 'left' | 'right',
+  lengthSystem: 'imperial' | 'metric',
+): TieSolution | undefined {
+  const observations: TieObservation[] = [];
+  for (const tie of ties) {
+    const point = referencePoints.find((candidate) => candidate.id === tie.referencePointId);
+    const distance = parseLength(tie.distance, lengthSystem, 'long');
+    if (point && distance.ok && distance.metres > 0) observations.push({ x: point.x, y: point.y, distanceM: distance.metres });
+  }
+  return observations.length >= 2 ? solvePositionFromTies(observations, { sideHint: sideHint || undefined }) : undefined;
+}
+
+/**
  * Ties from reference points: each a point and a taped distance. Shows at once where they put the item
  * and how well (the same solver the analysis uses), before anything is saved.
  */
@@ -52,13 +71,7 @@ export function TiesEditor({ recordId, referencePoints, ties, sideHint, onChange
   const formStyles = useFormStyles();
   const [units] = useUnitPreferences();
 
-  const observations: TieObservation[] = [];
-  for (const tie of ties) {
-    const point = referencePoints.find((candidate) => candidate.id === tie.referencePointId);
-    const distance = parseLength(tie.distance, units.length, 'long');
-    if (point && distance.ok && distance.metres > 0) observations.push({ x: point.x, y: point.y, distanceM: distance.metres });
-  }
-  const solution = observations.length >= 2 ? solvePositionFromTies(observations, { sideHint: sideHint || undefined }) : undefined;
+  const solution = solveTieDrafts(ties, referencePoints, sideHint, units.length);
   const first = referencePoints.find((p) => p.id === ties[0]?.referencePointId)?.label ?? 'the first point';
   const second = referencePoints.find((p) => p.id === ties[1]?.referencePointId)?.label ?? 'the second point';
   // How far apart the first two chosen points are: two ties longer in sum than this can meet.
