@@ -12,20 +12,73 @@ const withUnits = (units: 'imperial' | 'metric'): PacketSnapshot => {
   return { ...snapshot, settings: { ...snapshot.settings, units } };
 };
 
+/** The cells of one CSV line (RFC 4180 quoting). */
+const csvCells = (line: string, count: number) => [...line.matchAll(/("(?:[^"]|"")*"|[^,]*)(?:,|$)/g)].map((m) => m[1]!).slice(0, count);
+
+/** `26 ft 3 in` / `40 ft` → inches; `4 3/8 in` / `3/4 in` / `18 in` → inches. */
+function inchesOf(text: string): number {
+  const feetInches = /^(\d+) ft(?: (\d+) in)?$/.exec(text);
+  if (feetInches) return Number(feetInches[1]) * 12 + Number(feetInches[2] ?? 0);
+  if (!/^\d+( \d\/\d)? in$|^\d\/\d in$/.test(text)) throw new Error(`not feet-inches or inches: ${text}`);
+  return text
+    .slice(0, -3)
+    .split(' ')
+    .reduce((sum, part) => {
+      const [num, den] = part.split('/');
+      return sum + Number(num) / Number(den ?? 1);
+    }, 0);
+}
+
 describe('cable schedule CSV in both unit systems', () => {
   it('should add feet and inches columns after the SI ones for an imperial company', () => {
     const [header, first] = cableScheduleCsv(withUnits('imperial')).split('\r\n');
     const columns = header!.split(',');
-    expect(columns.slice(0, 14)).toEqual(cableScheduleCsv(withUnits('metric')).split('\r\n')[0]!.split(','));
-    expect(columns.slice(14)).toEqual(['length_ft', 'min_depth_in', 'max_depth_in']);
+    expect(columns.slice(0, 14)).toEqual(cableScheduleCsv(withUnits('metric')).split('\r\n')[0]!.split(',').slice(0, 14));
+    expect(columns.slice(14)).toEqual(['length_ft', 'min_depth_in', 'max_depth_in', 'length_text', 'min_depth_text', 'max_depth_text']);
     // 1 ft = 0.3048 m, 1 in = 0.0254 m exactly (NIST SP 811, appendix B.8): each row's imperial cells
     // are its SI cells converted.
-    const cells = [...first!.matchAll(/("(?:[^"]|"")*"|[^,]*)(?:,|$)/g)].map((m) => m[1]!).slice(0, columns.length);
+    const cells = csvCells(first!, columns.length);
     const lengthM = Number(cells[columns.indexOf('length_m')]);
     expect(lengthM).toBeGreaterThan(0);
     expect(Number(cells[columns.indexOf('length_ft')])).toBeCloseTo(lengthM / 0.3048, 1);
     const minDepthM = Number(cells[columns.indexOf('min_depth_m')]);
     if (cells[columns.indexOf('min_depth_m')] !== '') expect(Number(cells[columns.indexOf('min_depth_in')])).toBeCloseTo(minDepthM / 0.0254, 1);
+  });
+
+  it('should write the length and depths of each run as the packet does, in the company units, next to the numbers', () => {
+    for (const units of ['imperial', 'metric'] as const) {
+      const [header, ...rows] = cableScheduleCsv(withUnits(units)).split('\r\n').filter((line) => line !== '');
+      const columns = header!.split(',');
+      expect(columns.slice(-3), units).toEqual(['length_text', 'min_depth_text', 'max_depth_text']);
+      let depthsSeen = 0;
+      for (const row of rows) {
+        const cells = csvCells(row, columns.length);
+        const cell = (name: string) => cells[columns.indexOf(name)]!;
+        const lengthM = Number(cell('length_m'));
+        if (units === 'imperial') {
+          // Feet and whole inches (`26 ft 3 in`), within half an inch of the metres (1 in = 0.0254 m, NIST SP 811 B.8).
+          expect(cell('length_text')).toMatch(/^\d+ ft( \d{1,2} in)?$/);
+          expect(Math.abs(inchesOf(cell('length_text')) - lengthM / 0.0254)).toBeLessThanOrEqual(0.5 + 0.04);
+        } else {
+          expect(cell('length_text')).toBe(`${Number(lengthM.toFixed(2))} m`);
+        }
+        for (const [text, metres] of [['min_depth_text', 'min_depth_m'], ['max_depth_text', 'max_depth_m']] as const) {
+          if (cell(metres) === '') {
+            expect(cell(text)).toBe('');
+            continue;
+          }
+          depthsSeen += 1;
+          const depthM = Number(cell(metres));
+          if (units === 'imperial') {
+            // Nearest 1/8 in (common practice on a tape; issue 16 asks for eighths).
+            expect(Math.abs(inchesOf(cell(text)) - depthM / 0.0254)).toBeLessThanOrEqual(1 / 16 + 0.01);
+          } else {
+            expect(cell(text)).toBe(`${Number((depthM * 100).toFixed(1))} cm`);
+          }
+        }
+      }
+      expect(depthsSeen, units).toBeGreaterThan(0);
+    }
   });
 
   it('should keep a metric company to SI columns', () => {

@@ -30,8 +30,11 @@ export function archiveReadme({ snapshot, pdfName, hasGeoJson, photoCount }: Arc
     '  cable-schedule.csv',
     '      One row per cable run: ends, cable, length, burial method and depths. UTF-8 with a byte-order mark;',
     imperial
-      ? '      lengths and depths in metres (columns ending _m) and in feet and inches (columns ending _ft and _in).'
-      : '      lengths and depths in metres (columns ending _m).',
+      ? '      lengths and depths in metres (columns ending _m) and in feet and inches (columns ending _ft and _in),'
+      : '      lengths and depths in metres (columns ending _m),',
+    imperial
+      ? '      and written as the packet writes them (columns ending _text, such as 26 ft 3 in and 4 3/8 in).'
+      : '      and written as the packet writes them (columns ending _text, such as 8.01 m and 11.5 cm).',
     '  as-built.json',
     '      Everything recorded on site for this revision, in machine-readable form (lengths and depths in metres).',
     ...(hasGeoJson

@@ -1,5 +1,6 @@
 import { metresToFeet, metresToInches } from '../as-built/units.js';
 import { formatGauge } from '../cable/wire.js';
+import { formatDepthLength, formatGroundLength } from '../format/length.js';
 import type { PacketSnapshot } from './packet-snapshot.js';
 
 /**
@@ -24,8 +25,11 @@ export const CSV_BOM = '\uFEFF';
 
 /**
  * The cable schedule as CSV (RFC 4180, CRLF line ends), in SI units with fixed columns so it can be
- * re-imported; one row per run in record order. An imperial company also gets its own units in extra
- * columns at the end (`length_ft`, `min_depth_in`, `max_depth_in`), so the SI columns keep their places.
+ * re-imported; one row per run in record order. An imperial company also gets its own units as numbers
+ * in extra columns (`length_ft`, `min_depth_in`, `max_depth_in`), and every company gets the length and
+ * depths written as the packet writes them, in its own units (`length_text` `26 ft 3 in` / `8.01 m`,
+ * `min_depth_text` and `max_depth_text` `4 3/8 in` / `11.1 cm`, through domain/format), at the end, so
+ * the SI columns keep their places.
  */
 export function cableScheduleCsv(snapshot: PacketSnapshot): string {
   const { asBuilt, analysis } = snapshot;
@@ -49,7 +53,12 @@ export function cableScheduleCsv(snapshot: PacketSnapshot): string {
     'is_spare',
     'is_abandoned',
     ...(imperial ? ['length_ft', 'min_depth_in', 'max_depth_in'] : []),
+    'length_text',
+    'min_depth_text',
+    'max_depth_text',
   ];
+  const system = snapshot.settings.units;
+  const depthText = (m: number | null | undefined) => (m === null || m === undefined ? '' : formatDepthLength(m, system));
   const rows = asBuilt.runs.map((run) => {
     const d = depth.get(run.id);
     return [
@@ -68,6 +77,9 @@ export function cableScheduleCsv(snapshot: PacketSnapshot): string {
       run.isSpare ?? false,
       run.isAbandoned ?? false,
       ...(imperial ? [round(metresToFeet(run.measuredLengthM), 2), inches(d?.minDepthM), inches(d?.maxDepthM)] : []),
+      formatGroundLength(run.measuredLengthM, system),
+      depthText(d?.minDepthM),
+      depthText(d?.maxDepthM),
     ];
   });
   return [header, ...rows].map((row) => row.map(csvCell).join(',')).join('\r\n') + '\r\n';
