@@ -22,7 +22,7 @@ describe('Locate view', () => {
 
     const map = screen.getByRole('img', { name: /Site plan/ });
     // Labels are placed once the map has fitted the site to its frame.
-    expect(await within(map).findByText('min 12 in')).toBeInTheDocument();
+    expect(await within(map).findByText('Run A: min 12 in')).toBeInTheDocument();
     expect(within(map).getByText('Wall entry: Garage wall')).toBeInTheDocument();
     expect(within(map).getByText('House corner NE')).toBeInTheDocument();
     expect(screen.getByRole('link', { name: 'Download GeoJSON' })).toHaveAttribute('href', '/api/locate/tok/map.geojson');
@@ -52,7 +52,7 @@ describe('Locate view', () => {
     expect(within(items[0]!).getByText(/Shallower than the depth rule: 4 in where the rule asks 6 in/)).toBeInTheDocument();
 
     const map = screen.getByRole('img', { name: /Site plan/ });
-    expect(await within(map).findByText('⚠ min 4 in')).toBeInTheDocument();
+    expect(await within(map).findByText('⚠ Run B: min 4 in')).toBeInTheDocument();
     expect(map.querySelectorAll('[data-tie]').length).toBe(0);
     await user.click(screen.getByRole('switch', { name: 'Show taped ties on the map' }));
     expect(map.querySelectorAll('[data-tie]').length).toBe(1);

@@ -8,7 +8,7 @@ import { buildSiteMap } from '../testing-fixtures';
 
 import { boxesOverlap, labelBox } from '../utils/map-labels';
 
-import { SiteMapPlan } from './site-map-plan';
+import { runMapLabel, runProvenanceText, SiteMapPlan } from './site-map-plan';
 
 /*
  * Stroke colours by role on the locate / portal map. Source of the colour meanings: APWA Uniform Color
@@ -120,7 +120,7 @@ describe('SiteMapPlan pan, zoom and labels', () => {
     await waitFor(() => expect(Number(svg.getAttribute('data-zoom'))).toBeGreaterThan(1));
     const before = screen.getByTestId('scale-bar-label').textContent;
     expect(before).toMatch(/ft$/);
-    expect(screen.getByText('min 12 in')).toBeInTheDocument();
+    expect(screen.getByText('Run A: min 12 in')).toBeInTheDocument();
     expectNoOverlapOrClip(container);
     // North arrow: plan north at 15° east of the plan's up is drawn turned 15° anticlockwise.
     expect(screen.getByTestId('north-arrow').getAttribute('transform')).toBe('rotate(-15)');
@@ -167,7 +167,7 @@ describe('SiteMapPlan tapping a run, shallow runs and ties', () => {
     const map = buildSiteMap();
     const selected: string[] = [];
     const { container, rerender } = renderMap(map, { onSelectRun: (id) => selected.push(id), shallowRunIds: new Set(['run-1']) });
-    await screen.findByText('⚠ min 12 in');
+    await screen.findByText('⚠ Run A: min 12 in');
     expect(container.querySelector('[data-run-id="run-1"]')!.getAttribute('data-shallow')).toBe('true');
     expect(container.querySelector('[data-role="shallowest"]')).toBeNull();
     // A plain click (jsdom's pointer events carry no view, which d3-zoom's pointer-down reads); the e2e test taps.
@@ -214,5 +214,20 @@ describe('SiteMapPlan tapping a run, shallow runs and ties', () => {
     expect(ties.length).toBe(2);
     expect(ties.map((t) => t.getAttribute('aria-label'))).toEqual(['House corner NE to Speaker L: 10.82 m', 'Gate post to Speaker L: 6.71 m']);
     expectNoOverlapOrClip(container);
+  });
+});
+
+describe('run labels and provenance on the map (issue 21)', () => {
+  const run = { ...buildSiteMap().runs[0]!, label: 'Spare to planter', minDepthM: 0.3048, installedOn: '2026-05-14', installedByJobTitle: 'Garden speakers' };
+
+  it('names the run beside its depth, and says since when an abandoned run is abandoned', () => {
+    expect(runMapLabel({ ...run, isAbandoned: false, abandonedOn: null }, 'imperial')).toBe('Spare to planter: min 12 in');
+    expect(runMapLabel({ ...run, isAbandoned: true, abandonedOn: '2027-06-02' }, 'imperial')).toBe('Spare to planter: min 12 in (abandoned since Jun 2, 2027)');
+    expect(runMapLabel({ ...run, isAbandoned: true, abandonedOn: null }, 'imperial')).toBe('Spare to planter: min 12 in (abandoned)');
+  });
+
+  it('says in the tooltip when the run went in and by which job, dates written out', () => {
+    expect(runProvenanceText({ ...run, abandonedOn: '2027-06-02' })).toBe('Spare to planter (installed May 14, 2026 by “Garden speakers”, abandoned since Jun 2, 2027)');
+    expect(runProvenanceText({ ...run, installedOn: null, abandonedOn: null })).toBe('Spare to planter (installed by “Garden speakers”, date not recorded)');
   });
 });

@@ -3,6 +3,7 @@ import { Add24Regular, ArrowMaximize24Regular, Subtract24Regular } from '@fluent
 import { select } from 'd3-selection';
 import { zoom, zoomIdentity, type ZoomBehavior, type ZoomTransform } from 'd3-zoom';
 import { useCallback, useEffect, useId, useLayoutEffect, useRef, useState } from 'react';
+import { formatDate } from '@domain/format/date-time';
 import type { SiteMap } from '@domain/locate/site-map.schema';
 
 import { FEATURE_FILL, FEATURE_LABEL, FEATURE_STROKE, INK, PAPER, REFERENCE_INK, RUN_STROKES, runStyleKey, scaleDash, type LegendKey } from '@drawings/marking-palette';
@@ -96,6 +97,22 @@ type SiteMapPlanProps = {
 /** The min depth as the label of a run on the map. */
 export function depthLabel(minDepthM: number | null, units: LengthSystem): string {
   return minDepthM === null ? 'depth not recorded' : `min ${formatLength(minDepthM, units, 'short')}`;
+}
+
+/**
+ * A run's label on the map (issue 21: labels name runs, not just depths): its name and shallowest
+ * depth, and since when it is abandoned. When it went in and by which job is in its tooltip and the list.
+ */
+export function runMapLabel(run: Pick<MapRun, 'label' | 'minDepthM' | 'isAbandoned' | 'abandonedOn'>, units: LengthSystem): string {
+  const abandoned = run.isAbandoned ? (run.abandonedOn ? ` (abandoned since ${formatDate(run.abandonedOn)})` : ' (abandoned)') : '';
+  return `${run.label}: ${depthLabel(run.minDepthM, units)}${abandoned}`;
+}
+
+/** When the run went in and by which job, and since when it is abandoned (the run's tooltip). */
+export function runProvenanceText(run: Pick<MapRun, 'label' | 'installedOn' | 'installedByJobTitle' | 'jobTitle' | 'abandonedOn'>): string {
+  const by = `by “${run.installedByJobTitle ?? run.jobTitle}”`;
+  const installed = run.installedOn ? `installed ${formatDate(run.installedOn)} ${by}` : `installed ${by}, date not recorded`;
+  return `${run.label} (${installed}${run.abandonedOn ? `, abandoned since ${formatDate(run.abandonedOn)}` : ''})`;
 }
 
 function centroid(points: readonly Point[]): Point {
@@ -282,7 +299,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
   for (const run of runs) {
     const selected = run.id === selectedRunId;
     const shallow = shallowRunIds?.has(run.id) ?? false;
-    const text = `${shallow ? '⚠ ' : ''}${depthLabel(run.minDepthM, units)}${run.isAbandoned ? ' (abandoned)' : ''}`;
+    const text = `${shallow ? '⚠ ' : ''}${runMapLabel(run, units)}`;
     const spots = [0.5, 0.35, 0.65, 0.2, 0.8].flatMap((f) => {
       const p = pointAlong(run.route!, f);
       return around({ x: sx(p.x), y: sy(p.y) }, 10, LABEL_PX).slice(2).concat(around({ x: sx(p.x), y: sy(p.y) }, 10, LABEL_PX).slice(0, 2));
@@ -388,7 +405,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
                 onClick={onSelectRun ? () => tapRun(run.id) : undefined}
                 style={onSelectRun ? { cursor: 'pointer' } : undefined}
               >
-                <title>{`${run.label} (installed ${run.installedOn ?? 'date not recorded'} by ${run.installedByJobTitle ?? run.jobTitle}${run.abandonedOn ? `, abandoned since ${run.abandonedOn}` : ''})`}</title>
+                <title>{runProvenanceText(run)}</title>
                 {selected && <polyline points={path(run.route!)} fill="none" stroke={REFERENCE_INK} strokeOpacity={0.25} strokeWidth={width * 2 + 10} strokeLinecap="round" strokeLinejoin="round" data-role="highlight" />}
                 <polyline
                   points={path(run.route!)}
