@@ -22,4 +22,18 @@ describe('drawPacketDrawings', () => {
     // Everything but the underlay is the same drawing.
     expect(withImage.schematic).toBe(without.schematic);
   });
+
+  it('labels each run of the site record with when it went in, by which job, and since when it is abandoned (issue 21)', async () => {
+    const [first, second] = snapshot.asBuilt.runs;
+    const provenance = (jobTitle: string, on: string) => ({ isThisJob: false, installedBy: { jobId: 'job-a', jobTitle }, installedOn: on, changedBy: [] });
+    const siteRecords = {
+      [first!.id]: { kind: 'run' as const, ...provenance('Garden speakers', '2026-05-14'), abandoned: null },
+      [second!.id]: { kind: 'run' as const, ...provenance('Garden speakers', '2026-05-14'), abandoned: { jobId: 'job-b', jobTitle: 'Lawn rework', on: '2027-06-02' } },
+    };
+    const { sitePlan } = await drawPacketDrawings({ ...snapshot, settings: { ...snapshot.settings, timeZone: 'UTC', locale: 'en-US' }, siteRecords }, vm);
+    expect(sitePlan).toContain('In since May 14, 2026, Garden speakers');
+    expect(sitePlan).toContain('Abandoned since Jun 2, 2027, Lawn rework');
+    // A revision issued before the site record has no provenance and prints as it did.
+    expect((await drawPacketDrawings(snapshot, vm)).sitePlan).not.toContain('In since');
+  });
 });
