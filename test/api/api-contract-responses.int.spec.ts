@@ -1,4 +1,7 @@
 import { randomBytes, randomUUID } from 'node:crypto';
+import { mkdtemp, rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import request from 'supertest';
@@ -6,8 +9,11 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import type { ApiContractSpec } from '../../api/src/common/api-contract.decorator.js';
 import { DEMO_AS_BUILT } from '../../api/src/domain/as-built/demo-as-built.js';
+import { DiskStorage } from '../../api/src/storage/disk-storage.js';
+import { OBJECT_STORAGE } from '../../api/src/storage/object-storage.js';
+import { makePng } from '../fixtures/photos/make-photos.js';
 import { contractRoutes, expectAnswerMatchesContract } from '../support/contract.js';
-import { createCompany, TEST_PASSWORD, type TestCompany } from '../support/fixtures.js';
+import { createCompany, TEST_PASSWORD, type TestCompany, withDb } from '../support/fixtures.js';
 import { type Api, apiAs, createJob, createSite, insertRecordedJob, siteVersion } from '../support/records.js';
 import { bearer, type Session, signIn } from '../support/session.js';
 import { createTestApp } from '../support/test-app.js';
@@ -38,9 +44,32 @@ describe('API answers match their contracts', () => {
   let customerId: string;
   let jobId: string;
   let runId: string;
+  let uploadsDir: string;
+  let photoId: string;
+  let packetId: string;
+  let issuedJobId: string;
+
+  /** An issued job with a ready revision whose (stand-in) files are stored, as the authorization matrix arranges it. */
+  async function readyPacket(): Promise<{ id: string; jobId: string }> {
+    const job = await insertRecordedJob(company, siteId, { crewLeadUserId: company.users.lead.id, technicianUserIds: [] }, DEMO_AS_BUILT);
+    const storage = new DiskStorage(uploadsDir);
+    const id = randomUUID();
+    const pdf = await storage.put(`companies/${company.id}/packets/${id}/packet-rev-1.pdf`, Buffer.from('%PDF-1.4 contract'), 'application/pdf');
+    const zip = await storage.put(`companies/${company.id}/packets/${id}/packet-rev-1.zip`, Buffer.from('PK contract'), 'application/zip');
+    await withDb(async (db) => {
+      await db.query(`update jobs set status = 'issued' where id = $1`, [job.id]);
+      await db.query(
+        `insert into packet_revisions (id, company_id, job_id, revision, status, snapshot, paper_size, pdf_key, pdf_bytes, pdf_sha256, page_count, zip_key, zip_bytes, zip_sha256, attempts)
+         values ($1, $2, $3, 1, 'ready', '{}'::jsonb, 'letter', $4, $5, $6, 1, $7, $8, $9, 1)`,
+        [id, company.id, job.id, pdf.key, pdf.bytes, pdf.sha256, zip.key, zip.bytes, zip.sha256],
+      );
+    });
+    return { id, jobId: job.id };
+  }
 
   beforeAll(async () => {
-    app = await createTestApp();
+    uploadsDir = await mkdtemp(join(tmpdir(), 'loamline-contract-uploads-'));
+    app = await createTestApp({ override: (builder) => builder.overrideProvider(OBJECT_STORAGE).useValue(new DiskStorage(uploadsDir)) });
     contracts = contractRoutes(app);
     company = await createCompany('Contract Co');
     for (const role of ['office', 'admin', 'homeowner'] as const) sessions.set(role, await signIn(app, company.users[role]));
@@ -52,10 +81,20 @@ describe('API answers match their contracts', () => {
     jobId = demo.id;
     runId = demo.ids.get(DEMO_AS_BUILT.runs.find((run) => (run.depthReadings?.length ?? 0) > 0)!.id)!;
     await createJob(office, siteId);
+    const upload = await request(app.getHttpServer())
+      .post(`/api/jobs/${jobId}/photos`)
+      .set(bearer(sessions.get('office')!))
+      .set('If-Match', String(demo.version))
+      .field('caption', 'Trench at the spa')
+      .attach('files', await makePng(), 'trench.png');
+    expectAnswerMatchesContract(contracts.get('POST /api/jobs/:jobId/photos'), 'POST /api/jobs/:jobId/photos', upload);
+    photoId = upload.body.photos[0].id;
+    ({ id: packetId, jobId: issuedJobId } = await readyPacket());
   });
 
   afterAll(async () => {
     await app?.close();
+    if (uploadsDir) await rm(uploadsDir, { recursive: true, force: true });
   });
 
   /** One sample per GET route, in the matrix's notation; arranged in beforeAll. */
@@ -79,6 +118,17 @@ describe('API answers match their contracts', () => {
     'GET /api/jobs/:id/as-built': () => ({ path: `/api/jobs/${jobId}/as-built` }),
     'GET /api/jobs/:id/drawings/site-plan.svg': () => ({ path: `/api/jobs/${jobId}/drawings/site-plan.svg?units=imperial` }),
     'GET /api/jobs/:id/drawings/schematic.svg': () => ({ path: `/api/jobs/${jobId}/drawings/schematic.svg` }),
+    'GET /api/jobs/:jobId/photos': () => ({ path: `/api/jobs/${jobId}/photos?includeDeleted=true` }),
+    'GET /api/photos/:id/:variant': () => ({ path: `/api/photos/${photoId}/thumb` }),
+    'GET /api/jobs/:jobId/signatures': () => ({ path: `/api/jobs/${jobId}/signatures` }),
+    'GET /api/jobs/:jobId/packets': () => ({ path: `/api/jobs/${issuedJobId}/packets` }),
+    'GET /api/packets/:id': () => ({ path: `/api/packets/${packetId}` }),
+    'GET /api/packets/:id/pdf': () => ({ path: `/api/packets/${packetId}/pdf` }),
+    'GET /api/packets/:id/archive.zip': () => ({ path: `/api/packets/${packetId}/archive.zip` }),
+    'GET /api/packets/:id/send-options': () => ({ path: `/api/packets/${packetId}/send-options` }),
+    'GET /api/packets/:id/deliveries': () => ({ path: `/api/packets/${packetId}/deliveries` }),
+    'GET /api/jobs/:jobId/deliveries': () => ({ path: `/api/jobs/${issuedJobId}/deliveries` }),
+    'GET /api/deliveries/failed': () => ({ path: '/api/deliveries/failed' }),
     'GET /api/jobs/:id/drawings/runs/:runId/depth-profile.svg': () => ({ path: `/api/jobs/${jobId}/drawings/runs/${runId}/depth-profile.svg` }),
   };
 
@@ -144,6 +194,32 @@ describe('API answers match their contracts', () => {
     expect(signedIn.status).toBe(200);
     expect((await call('post', 'POST /api/auth/password-reset', { path: '/api/auth/password-reset', body: { email: `nobody.${randomUUID()}@contract.example` }, as: 'anonymous' })).status).toBe(202);
     expect((await call('post', 'POST /api/auth/sign-out', { path: '/api/auth/sign-out', as: 'anonymous' })).status).toBe(204);
+  });
+
+  it('photo, packet e-mail and delivery writes answer their contracts', async () => {
+    const job = (await call('get', 'GET /api/jobs/:id', { path: `/api/jobs/${jobId}` })).body;
+    let version = job.version as number;
+    const write = async (method: Method, route: string, path: string, body?: object) => {
+      const res = await call(method, route, { path, body, headers: { 'If-Match': `"${version}"` } });
+      expect(res.status, JSON.stringify(res.body)).toBeLessThan(300);
+      version = res.body.jobVersion;
+      return res.body;
+    };
+    await write('patch', 'PATCH /api/photos/:id', `/api/photos/${photoId}`, { caption: 'Spa trench, north end' });
+    await write('delete', 'DELETE /api/photos/:id', `/api/photos/${photoId}`);
+    await write('post', 'POST /api/photos/:id/restore', `/api/photos/${photoId}/restore`);
+    const sent = await call('post', 'POST /api/packets/:id/send', { path: `/api/packets/${packetId}/send`, body: { to: company.users.homeowner.email } });
+    expect(sent.status, JSON.stringify(sent.body)).toBe(202);
+    const failed = await withDb(async (db) => {
+      const { rows } = await db.query(
+        `insert into packet_deliveries (company_id, revision_id, to_address, status, attempts, last_error)
+         values ($1, $2, $3, 'failed', 3, 'connect ECONNREFUSED 127.0.0.1:2525') returning id`,
+        [company.id, packetId, company.users.homeowner.email],
+      );
+      return rows[0].id as string;
+    });
+    await call('get', 'GET /api/deliveries/failed', { path: '/api/deliveries/failed' });
+    expect((await call('post', 'POST /api/deliveries/:id/dismiss', { path: `/api/deliveries/${failed}/dismiss` })).status).toBe(200);
   });
 
   it('the analysis of the demo as-built answers its contract', async () => {

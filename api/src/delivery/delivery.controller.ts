@@ -6,13 +6,19 @@ import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
 import {
   type DeliveryInContext,
+  DeliveryInContextSchema,
   type PacketDeliveryResponse,
+  PacketDeliveryResponseSchema,
   type SendOptionsResponse,
+  SendOptionsResponseSchema,
   type SendPacketParsed,
-  SendPacketSchema,
   type SendPacketResponse,
+  SendPacketResponseSchema,
+  SendPacketSchema,
 } from '../domain/delivery/delivery.schema.js';
 import { DeliveryService } from './delivery.service.js';
+import { ApiContract } from '../common/api-contract.decorator.js';
+import { z } from 'zod';
 
 /** Sending a revision and its delivery log: admin and office only. */
 @ApiTags('packets')
@@ -33,6 +39,7 @@ export class DeliveryController {
   })
   @ApiResponse({ status: 409, description: '`PACKET_NOT_READY` or `RECIPIENT_NOT_HOMEOWNER` (naming `to.<n>`)' })
   @ApiResponse({ status: 422, description: '`NO_RECIPIENT`: the site has no homeowner and no `to` was given' })
+  @ApiContract({ body: SendPacketSchema, responses: { 202: SendPacketResponseSchema } })
   send(
     @CurrentUser() user: AuthUser,
     @Param('id', ParseUUIDPipe) id: string,
@@ -43,12 +50,14 @@ export class DeliveryController {
 
   @Get('send-options')
   @ApiOperation({ summary: 'What the send dialog starts from: the site’s homeowners and whether the PDF fits as an attachment' })
+  @ApiContract({ responses: { 200: SendOptionsResponseSchema } })
   sendOptions(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<SendOptionsResponse> {
     return this.deliveries.sendOptions(user, id);
   }
 
   @Get('deliveries')
   @ApiOperation({ summary: 'The revision’s delivery log, newest first' })
+  @ApiContract({ responses: { 200: z.array(PacketDeliveryResponseSchema) } })
   list(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<PacketDeliveryResponse[]> {
     return this.deliveries.list(user, id);
   }
@@ -64,12 +73,14 @@ export class DeliveriesController {
 
   @Get('jobs/:jobId/deliveries')
   @ApiOperation({ summary: 'Every packet e-mail of the job (all revisions), newest first' })
+  @ApiContract({ responses: { 200: z.array(DeliveryInContextSchema) } })
   listForJob(@CurrentUser() user: AuthUser, @Param('jobId', ParseUUIDPipe) jobId: string): Promise<DeliveryInContext[]> {
     return this.deliveries.listForJob(user, jobId);
   }
 
   @Get('deliveries/failed')
   @ApiOperation({ summary: 'Packet e-mails that failed and were neither sent again nor dismissed, newest first' })
+  @ApiContract({ responses: { 200: z.array(DeliveryInContextSchema) } })
   failed(@CurrentUser() user: AuthUser): Promise<DeliveryInContext[]> {
     return this.deliveries.openFailures(user);
   }
@@ -78,6 +89,7 @@ export class DeliveriesController {
   @HttpCode(HttpStatus.ACCEPTED)
   @ApiOperation({ summary: 'Send a delivery again: a failed one is queued again; a sent one is sent once more as a new delivery' })
   @ApiResponse({ status: 409, description: '`DELIVERY_IN_PROGRESS` (queued or sending) or `PACKET_NOT_READY`' })
+  @ApiContract({ body: 'none', responses: { 202: PacketDeliveryResponseSchema } })
   resend(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<PacketDeliveryResponse> {
     return this.deliveries.resend(user, id);
   }
@@ -86,6 +98,7 @@ export class DeliveriesController {
   @HttpCode(HttpStatus.OK)
   @ApiOperation({ summary: 'Set a failed delivery aside (it stays in the log, no longer asking for attention)' })
   @ApiResponse({ status: 409, description: '`DELIVERY_NOT_FAILED`' })
+  @ApiContract({ body: 'none', responses: { 200: PacketDeliveryResponseSchema } })
   dismiss(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<PacketDeliveryResponse> {
     return this.deliveries.dismiss(user, id);
   }

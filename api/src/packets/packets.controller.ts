@@ -9,6 +9,9 @@ import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
 import { type IssuePacketInput, IssuePacketInputSchema } from '../domain/packet/known-exceptions.js';
 import { ApiJobVersion } from '../jobs/api-job-version.decorator.js';
 import { type IssuePacketResponse, type PacketFile, type PacketRevisionResponse, PacketsService } from './packets.service.js';
+import { ApiContract, fileResponse } from '../common/api-contract.decorator.js';
+import { IssuePacketResponseSchema, PacketRevisionResponseSchema } from '../domain/packet/packet-revision.schema.js';
+import { z } from 'zod';
 
 /** Streams a verified packet file with its digest headers (the portal serves its downloads the same way). */
 export function sendPacketFile(res: Response, file: PacketFile): StreamableFile {
@@ -43,6 +46,7 @@ export class PacketsController {
   @ApiResponse({ status: 400, description: '`FINDINGS_NOT_ACKNOWLEDGED` (names the finding) or `VALIDATION_FAILED`' })
   @ApiResponse({ status: 409, description: '`JOB_NOT_READY_TO_ISSUE` or `PACKET_ALREADY_ISSUED`' })
   @ApiResponse({ status: 412, description: '`VERSION_CONFLICT`: the job changed since you read it (If-Match); body `currentVersion`' })
+  @ApiContract({ body: IssuePacketInputSchema, responses: { 201: IssuePacketResponseSchema } })
   issue(
     @CurrentUser() user: AuthUser,
     @Param('jobId', ParseUUIDPipe) jobId: string,
@@ -54,24 +58,28 @@ export class PacketsController {
 
   @Get('jobs/:jobId/packets')
   @ApiOperation({ summary: 'The job’s packet revisions, newest first, with their render status' })
+  @ApiContract({ responses: { 200: z.array(PacketRevisionResponseSchema) } })
   list(@CurrentUser() user: AuthUser, @Param('jobId', ParseUUIDPipe) jobId: string): Promise<PacketRevisionResponse[]> {
     return this.packets.listForJob(user, jobId);
   }
 
   @Get('packets/:id')
   @ApiOperation({ summary: 'One packet revision and its render status' })
+  @ApiContract({ responses: { 200: PacketRevisionResponseSchema } })
   get(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<PacketRevisionResponse> {
     return this.packets.get(user, id);
   }
 
   @Get('packets/:id/pdf')
   @ApiOperation({ summary: 'The revision’s PDF (409 until ready); its SHA-256 is checked before sending' })
+  @ApiContract({ responses: { 200: fileResponse('application/pdf') } })
   async pdf(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string, @Res({ passthrough: true }) res: Response): Promise<StreamableFile> {
     return sendPacketFile(res, await this.packets.file(user, id, 'pdf'));
   }
 
   @Get('packets/:id/archive.zip')
   @ApiOperation({ summary: 'The revision’s archive (PDF, drawings, CSV, JSON, GeoJSON, photos, MANIFEST.sha256)' })
+  @ApiContract({ responses: { 200: fileResponse('application/zip') } })
   async archive(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string, @Res({ passthrough: true }) res: Response): Promise<StreamableFile> {
     return sendPacketFile(res, await this.packets.file(user, id, 'zip'));
   }

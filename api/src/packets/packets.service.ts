@@ -1,12 +1,11 @@
 import { createHash } from 'node:crypto';
 
-import { Inject, Injectable, InternalServerErrorException, Logger } from '@nestjs/common';
+import { BadRequestException, ConflictException, Inject, Injectable, InternalServerErrorException, Logger, NotFoundException } from '@nestjs/common';
 
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { isUniqueViolation } from '../common/db-errors.js';
 import type { Site } from '../db/schema/index.js';
-import { ConflictError, findOrFail, ValidationError } from '../domain/errors.js';
 import { analyzeAsBuilt } from '../domain/analysis/analyze.js';
 import { canIssuePacket } from '../domain/jobs/job-rules.js';
 import { packetFileBase } from '../domain/packet/manifest.js';
@@ -19,39 +18,12 @@ import { JobsRepository } from '../jobs/jobs.repository.js';
 import { LocateLinksService } from '../locate/locate-links.service.js';
 import { planCalibrationOf } from '../sites/plan-image-ref.js';
 import { OBJECT_STORAGE, type ObjectStorage } from '../storage/object-storage.js';
-import { packetNotFound } from './packet-errors.js';
+import type { IssuePacketResponse, IssueWarning, PacketRevisionResponse } from '../domain/packet/packet-revision.schema.js';
 import { PacketQueue } from './packet-queue.js';
 import { type PacketRevisionSummary, PacketsRepository } from './packets.repository.js';
 import { SignaturesRepository } from './signatures.repository.js';
 
-export interface PacketRevisionResponse {
-  id: string;
-  jobId: string;
-  revision: number;
-  status: 'queued' | 'rendering' | 'ready' | 'failed';
-  failureReason: string | null;
-  attempts: number;
-  paperSize: 'letter' | 'a4';
-  pageCount: number | null;
-  pdf: { bytes: number; sha256: string; url: string } | null;
-  archive: { bytes: number; sha256: string; url: string } | null;
-  issuedByUserId: string | null;
-  issuedAt: string;
-  renderedAt: string | null;
-}
-
-/** Something the office should know about an issued packet; the packet is issued all the same. */
-export interface IssueWarning {
-  code: 'PACKET_WITHOUT_PHONE';
-  message: string;
-}
-
-export interface IssuePacketResponse extends PacketRevisionResponse {
-  /** The job's version after issuing (it is now `issued`). */
-  jobVersion: number;
-  /** Warnings about the issued packet (e.g. no contact phone in the company profile). */
-  warnings: IssueWarning[];
-}
+export type { IssuePacketResponse, IssueWarning, PacketRevisionResponse } from '../domain/packet/packet-revision.schema.js';
 
 /** Warnings for a packet issued with these settings (the profile is copied into the revision as it is). */
 export function issueWarnings(settings: { contactPhone: string | null }): IssueWarning[] {
@@ -89,7 +61,7 @@ function toResponse(row: PacketRevisionSummary): PacketRevisionResponse {
  * 400 for an issue whose acknowledgements do not match the open findings: names the first missing
  * must-fix finding (code and path) or the bad entry, and lists every problem in `issues`.
  */
-function acknowledgementsRefused(problems: ReturnType<typeof matchAcknowledgements>['problems']): ValidationError {
+function acknowledgementsRefused(problems: ReturnType<typeof matchAcknowledgements>['problems']): BadRequestException {
   const issues = problems.map((p) =>
     p.kind === 'missing'
       ? {
@@ -109,12 +81,14 @@ function acknowledgementsRefused(problems: ReturnType<typeof matchAcknowledgemen
         },
   );
   const first = issues[0]!;
-  return new ValidationError(issues, {
+  return new BadRequestException({
     message: `${first.path}: ${first.message}`,
     code: problems.some((p) => p.kind === 'missing') ? 'FINDINGS_NOT_ACKNOWLEDGED' : 'VALIDATION_FAILED',
+    issues,
   });
 }
 
+const packetNotFound = () => new NotFoundException({ message: 'No such packet revision.', code: 'PACKET_NOT_FOUND' });
 
 export interface PacketFile {
   body: Buffer;
@@ -156,7 +130,8 @@ export class PacketsService {
    */
   async issue(actor: AuthUser, jobId: string, expectedVersion: number, input: IssuePacketInput = {}): Promise<IssuePacketResponse> {
     const { revision, jobVersion, warnings } = await this.jobs.transaction(async (tx) => {
-      const job = await findOrFail(this.jobs.lock(actor.companyId, jobId, tx), jobNotFound);
+      const job = await this.jobs.lock(actor.companyId, jobId, tx);
+      if (!job) throw jobNotFound();
       const decision = canIssuePacket({ role: actor.role, userId: actor.id }, job);
       if (!decision.isAllowed) throw denied(decision);
       if (job.version !== expectedVersion) throw versionConflict(job.version);
@@ -258,7 +233,7 @@ export class PacketsService {
         );
       } catch (error) {
         if (isUniqueViolation(error)) {
-          throw new ConflictError('PACKET_ALREADY_ISSUED', `Revision ${job.revision} of this job is already issued.`);
+          throw new ConflictException({ message: `Revision ${job.revision} of this job is already issued.`, code: 'PACKET_ALREADY_ISSUED' });
         }
         throw error;
       }
@@ -300,7 +275,8 @@ export class PacketsService {
   }
 
   async get(actor: AuthUser, id: string): Promise<PacketRevisionResponse> {
-    const row = await findOrFail(this.repository.findSummary(actor.companyId, id), packetNotFound);
+    const row = await this.repository.findSummary(actor.companyId, id);
+    if (!row) throw packetNotFound();
     return toResponse(row);
   }
 
@@ -311,11 +287,12 @@ export class PacketsService {
 
   /** As `file`, for callers that checked access themselves (the homeowner portal, the send worker). */
   async fileInCompany(companyId: string, id: string, kind: 'pdf' | 'zip'): Promise<PacketFile> {
-    const row = await findOrFail(this.repository.findFiles(companyId, id), packetNotFound);
+    const row = await this.repository.findFiles(companyId, id);
+    if (!row) throw packetNotFound();
     const key = kind === 'pdf' ? row.pdfKey : row.zipKey;
     const expected = kind === 'pdf' ? row.pdfSha256 : row.zipSha256;
     if (row.status !== 'ready' || !key || !expected) {
-      throw new ConflictError('PACKET_NOT_READY', `This packet revision is ${row.status}, not ready to download.`);
+      throw new ConflictException({ message: `This packet revision is ${row.status}, not ready to download.`, code: 'PACKET_NOT_READY' });
     }
     const body = await this.storage.getBuffer(key);
     const actual = createHash('sha256').update(body).digest('hex');

@@ -1,13 +1,24 @@
 import { BadRequestException, Body, Controller, Delete, Get, Param, ParseUUIDPipe, type PipeTransform, Put } from '@nestjs/common';
-import { ApiBearerAuth, ApiBody, ApiOperation, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
 
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
-import { type JobSignatureResponse, SIGNATURE_ROLES, type SignatureInput, SignatureInputSchema, type SignatureRole } from '../domain/packet/signature.schema.js';
+import {
+  type JobSignatureResponse,
+  JobSignatureResponseSchema,
+  SIGNATURE_ROLES,
+  type SignatureInput,
+  SignatureInputSchema,
+  type SignatureRole,
+  SignatureWriteResponseSchema,
+} from '../domain/packet/signature.schema.js';
 import { ApiJobVersion } from '../jobs/api-job-version.decorator.js';
 import { SignaturesService } from './signatures.service.js';
+import { ApiContract } from '../common/api-contract.decorator.js';
+import { z } from 'zod';
+import { JobVersionResponseSchema } from '../domain/jobs/job.schema.js';
 
 const uuid = new ParseUUIDPipe();
 
@@ -36,6 +47,7 @@ export class SignaturesController {
   @Get()
   @Roles('admin', 'office', 'lead', 'tech')
   @ApiOperation({ summary: 'The signatures captured for the job’s next revision (lead, homeowner)' })
+  @ApiContract({ responses: { 200: z.array(JobSignatureResponseSchema) } })
   list(@CurrentUser() user: AuthUser, @Param('jobId', uuid) jobId: string): Promise<JobSignatureResponse[]> {
     return this.signatures.list(user, jobId);
   }
@@ -43,7 +55,7 @@ export class SignaturesController {
   @Put(':role')
   @ApiJobVersion()
   @ApiOperation({ summary: 'Save (or replace) the crew lead’s or homeowner’s signature: SVG path data in a 0 0 400 120 box' })
-  @ApiBody({ schema: { type: 'object' }, examples: { homeowner: { value: { signerName: 'Dara Penhallow', svgPath: 'M 10 60 L 120 40 L 300 80' } } } })
+  @ApiContract({ body: SignatureInputSchema, responses: { 200: SignatureWriteResponseSchema } })
   save(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,
@@ -57,6 +69,7 @@ export class SignaturesController {
   @Delete(':role')
   @ApiJobVersion()
   @ApiOperation({ summary: 'Clear a signature before issuing' })
+  @ApiContract({ responses: { 200: JobVersionResponseSchema } })
   remove(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,

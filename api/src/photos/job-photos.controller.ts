@@ -1,6 +1,6 @@
 import { Body, Controller, Get, Param, ParseUUIDPipe, Post, Query, Res, UploadedFiles, UseInterceptors } from '@nestjs/common';
 import { FilesInterceptor } from '@nestjs/platform-express';
-import { ApiBearerAuth, ApiBody, ApiConsumes, ApiOperation, ApiQuery, ApiResponse, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
@@ -8,10 +8,17 @@ import { ExpectedVersion } from '../common/decorators/expected-version.decorator
 import { UploadSlotInterceptor } from '../common/image-work.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
-import { type UploadPhotosFields, UploadPhotosFieldsSchema } from '../domain/photos/photo.schema.js';
+import {
+  PhotoListQuerySchema,
+  PhotoListResponseSchema,
+  type UploadPhotosFields,
+  UploadPhotosFieldsSchema,
+  UploadPhotosResponseSchema,
+} from '../domain/photos/photo.schema.js';
 import { ApiJobVersion } from '../jobs/api-job-version.decorator.js';
 import { PhotosService, type UploadedPhotoFile } from './photos.service.js';
 import { UploadLimitsInterceptor } from './upload-limits.interceptor.js';
+import { ApiContract, multipartBody } from '../common/api-contract.decorator.js';
 
 const uuid = new ParseUUIDPipe();
 
@@ -25,31 +32,17 @@ export class JobPhotosController {
 
   @Get()
   @ApiOperation({ summary: 'The job’s photos (oldest first) with captions, targets, taken-at and derivative URLs' })
-  @ApiQuery({ name: 'includeDeleted', required: false, description: '`true` to include soft-deleted photos (for undo)' })
+  @ApiContract({ query: PhotoListQuerySchema, responses: { 200: PhotoListResponseSchema } })
   list(@CurrentUser() user: AuthUser, @Param('jobId', uuid) jobId: string, @Query('includeDeleted') includeDeleted?: string) {
     return this.photos.list(user, jobId, { includeDeleted: includeDeleted === 'true' });
   }
 
   @Post()
   @ApiJobVersion()
-  @ApiConsumes('multipart/form-data')
   @ApiOperation({
     summary:
       'Upload photos (JPEG, PNG or WebP, sniffed from the bytes) to the job or one of its items, runs or depth readings. ' +
       'Send the job version as If-Match. Answers 201, or 200 with isReplay when every clientUploadId was stored already.',
-  })
-  @ApiBody({
-    schema: {
-      type: 'object',
-      required: ['files'],
-      properties: {
-        files: { type: 'array', items: { type: 'string', format: 'binary' } },
-        caption: { type: 'string' },
-        takenAt: { type: 'string', format: 'date-time' },
-        target: { type: 'string', example: '{"type":"run","id":"…uuid…"}' },
-        clientUploadId: { type: 'string', description: 'one per file, in file order (repeat the field)' },
-      },
-    },
   })
   @ApiResponse({
     status: 413,
@@ -61,6 +54,7 @@ export class JobPhotosController {
   // Outermost first: the per-user slot is taken before Multer buffers the body, and the limits
   // interceptor sees Multer's errors.
   @UseInterceptors(UploadSlotInterceptor, UploadLimitsInterceptor, FilesInterceptor('files'))
+  @ApiContract({ body: multipartBody({ files: 'many' }, UploadPhotosFieldsSchema), responses: { 201: UploadPhotosResponseSchema, 200: UploadPhotosResponseSchema } })
   async upload(
     @CurrentUser() user: AuthUser,
     @Param('jobId', uuid) jobId: string,

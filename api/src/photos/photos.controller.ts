@@ -6,10 +6,17 @@ import { type AuthUser, CurrentUser } from '../common/decorators/current-user.de
 import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
-import { PHOTO_VARIANTS, type PhotoVariant, type UpdatePhotoInput, UpdatePhotoSchema } from '../domain/photos/photo.schema.js';
+import {
+  PHOTO_VARIANTS,
+  type PhotoVariant,
+  PhotoWriteResponseSchema,
+  type UpdatePhotoInput,
+  UpdatePhotoSchema,
+} from '../domain/photos/photo.schema.js';
 import { ApiJobVersion } from '../jobs/api-job-version.decorator.js';
 import { photoNotFound } from './photo-errors.js';
 import { PhotosService } from './photos.service.js';
+import { ApiContract, fileResponse } from '../common/api-contract.decorator.js';
 
 const uuid = new ParseUUIDPipe();
 
@@ -24,6 +31,7 @@ export class PhotosController {
   @Get(':variant')
   @ApiOperation({ summary: 'Stream a photo file: thumb (320 px WebP), screen (1600 px WebP), print (2400 px JPEG), or original (staff)' })
   @ApiParam({ name: 'variant', enum: PHOTO_VARIANTS })
+  @ApiContract({ responses: { 200: fileResponse('image/webp', 'image/jpeg', 'image/png') } })
   async file(
     @CurrentUser() user: AuthUser,
     @Param('id', uuid) id: string,
@@ -48,6 +56,7 @@ export class PhotosController {
   @Patch()
   @ApiJobVersion()
   @ApiOperation({ summary: 'Change a photo’s caption, taken-at, or what it shows (the job, an item, run or depth reading)' })
+  @ApiContract({ body: UpdatePhotoSchema, responses: { 200: PhotoWriteResponseSchema } })
   update(
     @CurrentUser() user: AuthUser,
     @Param('id', uuid) id: string,
@@ -60,6 +69,7 @@ export class PhotosController {
   @Delete()
   @ApiJobVersion()
   @ApiOperation({ summary: 'Soft-delete a photo (undo with POST /api/photos/:id/restore); its files are kept' })
+  @ApiContract({ responses: { 200: PhotoWriteResponseSchema } })
   remove(@CurrentUser() user: AuthUser, @Param('id', uuid) id: string, @ExpectedVersion() version: number) {
     return this.photos.remove(user, id, version);
   }
@@ -68,6 +78,7 @@ export class PhotosController {
   @HttpCode(HttpStatus.OK)
   @ApiJobVersion()
   @ApiOperation({ summary: 'Undo the deletion of a photo' })
+  @ApiContract({ body: 'none', responses: { 200: PhotoWriteResponseSchema } })
   restore(@CurrentUser() user: AuthUser, @Param('id', uuid) id: string, @ExpectedVersion() version: number) {
     return this.photos.restore(user, id, version);
   }

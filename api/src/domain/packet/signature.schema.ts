@@ -28,10 +28,14 @@ export const SignatureInputSchema = z
   .strict();
 export type SignatureInput = z.infer<typeof SignatureInputSchema>;
 
-export interface JobSignatureResponse {
-  role: SignatureRole;
-  signerName: string;
-  signedAt: string;
-  svgPath: string;
-  capturedByUserId: string | null;
-}
+export const JobSignatureResponseSchema = z.object({
+  role: z.enum(SIGNATURE_ROLES),
+  signerName: z.string(),
+  signedAt: z.string(),
+  svgPath: z.string(),
+  capturedByUserId: z.string().nullable(),
+});
+export type JobSignatureResponse = z.infer<typeof JobSignatureResponseSchema>;
+
+/** Saving a signature answers it and the job's new version. */
+export const SignatureWriteResponseSchema = z.object({ signature: JobSignatureResponseSchema, jobVersion: z.number().int() });

@@ -83,42 +83,50 @@ export const UpdatePhotoSchema = z
   });
 export type UpdatePhotoInput = z.infer<typeof UpdatePhotoSchema>;
 
-export interface PhotoDerivativeResponse {
-  url: string;
-  width: number;
-  height: number;
-  bytes: number;
-  contentType: string;
-}
+export const PhotoDerivativeResponseSchema = z.object({
+  url: z.string(),
+  width: z.number(),
+  height: z.number(),
+  bytes: z.number(),
+  contentType: z.string(),
+});
+export type PhotoDerivativeResponse = z.infer<typeof PhotoDerivativeResponseSchema>;
 
-export interface PhotoResponse {
-  id: string;
-  jobId: string;
-  target: PhotoTarget;
-  caption: string | null;
+export const PhotoResponseSchema = z.object({
+  id: z.string(),
+  jobId: z.string(),
+  target: PhotoTargetSchema,
+  caption: z.string().nullable(),
   /** The client's taken-at when sent, otherwise the camera's EXIF time (its local clock, no zone). */
-  takenAt: string | null;
-  clientTakenAt: string | null;
+  takenAt: z.string().nullable(),
+  clientTakenAt: z.string().nullable(),
   /** EXIF DateTimeOriginal as the camera wrote it: local wall-clock time without a zone. */
-  exifTakenAt: string | null;
+  exifTakenAt: z.string().nullable(),
   /** EXIF GPS position. Company staff only: never put it in anything that leaves the company. */
-  exifLocation: { lat: number; lon: number } | null;
-  width: number;
-  height: number;
-  original: { contentType: string; bytes: number; sha256: string; name: string | null; url: string | null };
-  derivatives: Record<PhotoDerivativeVariant, PhotoDerivativeResponse>;
-  uploadedBy: { id: string; name: string } | null;
-  createdAt: string;
-  deletedAt: string | null;
-}
+  exifLocation: z.object({ lat: z.number(), lon: z.number() }).nullable(),
+  width: z.number(),
+  height: z.number(),
+  original: z.object({ contentType: z.string(), bytes: z.number(), sha256: z.string(), name: z.string().nullable(), url: z.string().nullable() }),
+  derivatives: z.record(z.enum(PHOTO_DERIVATIVES), PhotoDerivativeResponseSchema),
+  uploadedBy: z.object({ id: z.string(), name: z.string() }).nullable(),
+  createdAt: z.string(),
+  deletedAt: z.string().nullable(),
+});
+export type PhotoResponse = z.infer<typeof PhotoResponseSchema>;
 
-export interface UploadPhotosResponse {
-  photos: PhotoResponse[];
+export const UploadPhotosResponseSchema = z.object({
+  photos: z.array(PhotoResponseSchema),
   /** True when every file had been stored before under its clientUploadId (a retried upload). */
-  isReplay: boolean;
-  jobVersion: number;
-}
+  isReplay: z.boolean(),
+  jobVersion: z.number().int(),
+});
+export type UploadPhotosResponse = z.infer<typeof UploadPhotosResponseSchema>;
 
-export interface PhotoListResponse {
-  items: PhotoResponse[];
-}
+export const PhotoListResponseSchema = z.object({ items: z.array(PhotoResponseSchema) });
+export type PhotoListResponse = z.infer<typeof PhotoListResponseSchema>;
+
+/** `GET /api/jobs/:jobId/photos`: `includeDeleted=true` lists soft-deleted photos too (for undo). */
+export const PhotoListQuerySchema = z.object({ includeDeleted: z.enum(['true', 'false']).optional() });
+
+/** A photo write (caption, target, delete, restore) answers the photo and the job's new version. */
+export const PhotoWriteResponseSchema = z.object({ photo: PhotoResponseSchema, jobVersion: z.number().int() });
