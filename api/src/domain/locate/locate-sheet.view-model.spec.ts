@@ -52,6 +52,16 @@ describe('buildLocateSheetViewModel', () => {
     expect(vm.noRunsText).toBeNull();
   });
 
+  it('should say when each run went in and by which job, and since when an abandoned run is abandoned (issue 21)', () => {
+    const old = { ...run('a', false, 0.4572), isAbandoned: true, installedOn: '2026-05-14', installedByJobTitle: 'Garden speakers', abandonedOn: '2027-06-02' };
+    const newer = { ...run('b', false, 0.4572), installedOn: '2027-06-02', installedByJobTitle: 'Lawn rework', abandonedOn: null };
+    const vm = buildLocateSheetViewModel(view('imperial', [old, newer]), 'letter');
+    expect(vm.runs.map((r) => r.note)).toEqual([
+      'abandoned since Jun 2, 2027; installed May 14, 2026 by “Garden speakers”',
+      'installed Jun 2, 2027 by “Lawn rework”',
+    ]);
+  });
+
   it('should write metric depths in centimetres, A4, and say when there are no runs', () => {
     const vm = buildLocateSheetViewModel(view('metric', []), 'a4');
     expect(vm.noRunsText).toBe('No runs have been recorded at this site.');

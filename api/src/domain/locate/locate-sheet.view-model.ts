@@ -1,3 +1,4 @@
+import { formatDate } from '../format/date-time.js';
 import { formatLength } from '../format/length.js';
 import type { CautionText } from '../packet/packet-cautions.js';
 import { locateCautions } from './locate-cautions.js';
@@ -64,7 +65,9 @@ export function buildLocateSheetViewModel(view: LocateViewResponse, paper: 'lett
       isShallow: r.isShallow,
       note: [
         r.isShallow ? `SHALLOWER than the depth rule${r.minCoverM !== null ? ` (${formatLength(r.minCoverM, units, 'short')})` : ''}: hand-dig` : '',
-        r.isAbandoned ? 'abandoned' : r.isSpare ? 'spare' : '',
+        r.isAbandoned ? (r.abandonedOn ? `abandoned since ${formatDate(r.abandonedOn)}` : 'abandoned') : r.isSpare ? 'spare' : '',
+        // Provenance (issue 21): when it went in and by which job, so later cable reads apart from older.
+        r.installedOn ? `installed ${formatDate(r.installedOn)}${r.installedByJobTitle ? ` by “${r.installedByJobTitle}”` : ''}` : '',
       ]
         .filter(Boolean)
         .join('; '),
