@@ -1,11 +1,12 @@
 import { createHash } from 'node:crypto';
 
-import { BadRequestException, ConflictException, Inject, Injectable, InternalServerErrorException, Logger, NotFoundException } from '@nestjs/common';
+import { Inject, Injectable, InternalServerErrorException, Logger } from '@nestjs/common';
 
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { isUniqueViolation } from '../common/db-errors.js';
 import type { Site } from '../db/schema/index.js';
+import { ConflictError, findOrFail, ValidationError } from '../domain/errors.js';
 import { analyzeAsBuilt } from '../domain/analysis/analyze.js';
 import { canIssuePacket } from '../domain/jobs/job-rules.js';
 import { packetFileBase } from '../domain/packet/manifest.js';
@@ -19,6 +20,7 @@ import { LocateLinksService } from '../locate/locate-links.service.js';
 import { planCalibrationOf } from '../sites/plan-image-ref.js';
 import { OBJECT_STORAGE, type ObjectStorage } from '../storage/object-storage.js';
 import type { IssuePacketResponse, IssueWarning, PacketRevisionResponse } from '../domain/packet/packet-revision.schema.js';
+import { packetNotFound } from './packet-errors.js';
 import { PacketQueue } from './packet-queue.js';
 import { type PacketRevisionSummary, PacketsRepository } from './packets.repository.js';
 import { SignaturesRepository } from './signatures.repository.js';
@@ -61,7 +63,7 @@ function toResponse(row: PacketRevisionSummary): PacketRevisionResponse {
  * 400 for an issue whose acknowledgements do not match the open findings: names the first missing
  * must-fix finding (code and path) or the bad entry, and lists every problem in `issues`.
  */
-function acknowledgementsRefused(problems: ReturnType<typeof matchAcknowledgements>['problems']): BadRequestException {
+function acknowledgementsRefused(problems: ReturnType<typeof matchAcknowledgements>['problems']): ValidationError {
   const issues = problems.map((p) =>
     p.kind === 'missing'
       ? {
@@ -81,14 +83,12 @@ function acknowledgementsRefused(problems: ReturnType<typeof matchAcknowledgemen
         },
   );
   const first = issues[0]!;
-  return new BadRequestException({
+  return new ValidationError(issues, {
     message: `${first.path}: ${first.message}`,
     code: problems.some((p) => p.kind === 'missing') ? 'FINDINGS_NOT_ACKNOWLEDGED' : 'VALIDATION_FAILED',
-    issues,
   });
 }
 
-const packetNotFound = () => new NotFoundException({ message: 'No such packet revision.', code: 'PACKET_NOT_FOUND' });
 
 export interface PacketFile {
   body: Buffer;
@@ -130,8 +130,7 @@ export class PacketsService {
    */
   async issue(actor: AuthUser, jobId: string, expectedVersion: number, input: IssuePacketInput = {}): Promise<IssuePacketResponse> {
     const { revision, jobVersion, warnings } = await this.jobs.transaction(async (tx) => {
-      const job = await this.jobs.lock(actor.companyId, jobId, tx);
-      if (!job) throw jobNotFound();
+      const job = await findOrFail(this.jobs.lock(actor.companyId, jobId, tx), jobNotFound);
       const decision = canIssuePacket({ role: actor.role, userId: actor.id }, job);
       if (!decision.isAllowed) throw denied(decision);
       if (job.version !== expectedVersion) throw versionConflict(job.version);
@@ -233,7 +232,7 @@ export class PacketsService {
         );
       } catch (error) {
         if (isUniqueViolation(error)) {
-          throw new ConflictException({ message: `Revision ${job.revision} of this job is already issued.`, code: 'PACKET_ALREADY_ISSUED' });
+          throw new ConflictError('PACKET_ALREADY_ISSUED', `Revision ${job.revision} of this job is already issued.`);
         }
         throw error;
       }
@@ -275,8 +274,7 @@ export class PacketsService {
   }
 
   async get(actor: AuthUser, id: string): Promise<PacketRevisionResponse> {
-    const row = await this.repository.findSummary(actor.companyId, id);
-    if (!row) throw packetNotFound();
+    const row = await findOrFail(this.repository.findSummary(actor.companyId, id), packetNotFound);
     return toResponse(row);
   }
 
@@ -287,12 +285,11 @@ export class PacketsService {
 
   /** As `file`, for callers that checked access themselves (the homeowner portal, the send worker). */
   async fileInCompany(companyId: string, id: string, kind: 'pdf' | 'zip'): Promise<PacketFile> {
-    const row = await this.repository.findFiles(companyId, id);
-    if (!row) throw packetNotFound();
+    const row = await findOrFail(this.repository.findFiles(companyId, id), packetNotFound);
     const key = kind === 'pdf' ? row.pdfKey : row.zipKey;
     const expected = kind === 'pdf' ? row.pdfSha256 : row.zipSha256;
     if (row.status !== 'ready' || !key || !expected) {
-      throw new ConflictException({ message: `This packet revision is ${row.status}, not ready to download.`, code: 'PACKET_NOT_READY' });
+      throw new ConflictError('PACKET_NOT_READY', `This packet revision is ${row.status}, not ready to download.`);
     }
     const body = await this.storage.getBuffer(key);
     const actual = createHash('sha256').update(body).digest('hex');
