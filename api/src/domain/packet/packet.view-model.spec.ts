@@ -167,6 +167,21 @@ describe(buildPacketViewModel.name, () => {
     expect(vm.photos[0]).toEqual({ caption: 'Open trench, patio run', takenAt: 'May 13, 2026, 3:04 PM UTC', dataUri: 'data:image/jpeg;base64,AAAA' });
   });
 
+  it('should say which findings are also about records an earlier job left in the ground (issue 21)', () => {
+    const snapshot = demoPacketSnapshot();
+    const open = snapshot.analysis.findings.filter((f) => f.severity !== 'info');
+    const onRun = open.find((f) => f.runId !== undefined && f.channel === undefined)!;
+    const run = snapshot.asBuilt.runs.find((r) => r.id === onRun.runId)!;
+    const siteRecords = {
+      [run.id]: { kind: 'run' as const, isThisJob: false, installedBy: { jobId: 'job-a', jobTitle: 'Garden speakers' }, installedOn: '2026-05-14', changedBy: [], abandoned: null },
+    };
+    const vm = buildPacketViewModel({ snapshot: { ...snapshot, siteRecords }, locateUrl });
+    const row = vm.engineering.findings[open.indexOf(onRun)]!;
+    expect(row.scope).toBe(`About records already in the ground: “${run.label}” (installed May 14, 2026 by “Garden speakers”).`);
+    // Without site records (a first packet, or one issued before the site record) nothing is added.
+    expect(sut().engineering.findings.every((f) => f.scope === '')).toBe(true);
+  });
+
   it('should be deterministic', () => {
     expect(sut()).toEqual(sut());
   });

@@ -1,4 +1,5 @@
 import { FINDING_SEVERITY_LABELS, type Finding, findingText } from '../analysis/finding.js';
+import { findingScope, findingScopeText } from '../analysis/finding-scope.js';
 import type { Item, ItemKind } from '../as-built/item.schema.js';
 import type { InstallMethod } from '../as-built/run.schema.js';
 import { type FindingAcknowledgement, findingKey, homeownerException } from './known-exceptions.js';
@@ -86,7 +87,8 @@ export interface PacketViewModel {
   /** The appendix for whoever services the system: full figures, findings in engineering terms, method. */
   engineering: {
     findingCounts: string;
-    findings: { severity: string; severityClass: string; message: string; acknowledged: string }[];
+    /** `scope`: which records already in the ground a finding is also about (issue 21), or empty. */
+    findings: { severity: string; severityClass: string; message: string; acknowledged: string; scope: string }[];
     hasFindings: boolean;
     channels: {
       name: string;
@@ -419,11 +421,14 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
           : `${summary.critical} to fix, ${summary.warning} to check at issue.`,
       findings: findings.map((f) => {
         const ack = acknowledged.get(findingKey(f));
+        // Said only when earlier jobs' records are involved: on a site's first job every finding is its own.
+        const scope = findingScope(f, asBuilt, snapshot.siteRecords);
         return {
           severity: FINDING_SEVERITY_LABELS[f.severity],
           severityClass: f.severity,
           message: findingText(f, units),
           acknowledged: ack ? `Acknowledged at issue: ${ack.reason}` : '',
+          scope: scope && scope.earlier.length > 0 ? findingScopeText(scope, dates) : '',
         };
       }),
       hasFindings: findings.length > 0,
