@@ -1,6 +1,15 @@
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
+import { JobRecordModule } from '../../api/src/jobs/job-record.module.js';
+import { JobWriter } from '../../api/src/jobs/job-writer.js';
+import { JobsRepository } from '../../api/src/jobs/jobs.repository.js';
+import { JobsService } from '../../api/src/jobs/jobs.service.js';
+import { PACKET_PHOTO_SOURCE } from '../../api/src/packets/packet-photo-source.js';
+import { PacketRenderingModule } from '../../api/src/packets/packet-rendering.module.js';
+import { PacketsService } from '../../api/src/packets/packets.service.js';
+import { PhotosRepository } from '../../api/src/photos/photos.repository.js';
+import { PhotosService } from '../../api/src/photos/photos.service.js';
 import { createCompany, type TestCompany, withDb } from '../support/fixtures.js';
 import { type Api, apiAs, createJob, createSite, type JobFixture, moveJob } from '../support/records.js';
 import { signIn } from '../support/session.js';
@@ -30,6 +39,34 @@ describe('jobs', () => {
 
   afterAll(async () => {
     await app.close();
+  });
+
+  // One job-record kernel (JobRecordModule): jobs, photos, packets and the renderer share its instances
+  // instead of each module registering its own copy of the repository and the writer.
+  it('should inject the same JobsRepository, JobWriter and PhotosRepository into every module that uses them', () => {
+    const field = (owner: object, name: string): unknown => (owner as Record<string, unknown>)[name];
+    const jobs = app.select(JobRecordModule).get(JobsRepository);
+    const writer = app.select(JobRecordModule).get(JobWriter);
+    const photos = app.select(JobRecordModule).get(PhotosRepository);
+    const photosService = app.get(PhotosService, { strict: false });
+    // Identity checks as booleans: a failing toBe would try to print two repositories (pools, prepared statements).
+    expect({
+      jobsService: field(app.get(JobsService, { strict: false }), 'repository') === jobs,
+      jobsServiceWriter: field(app.get(JobsService, { strict: false }), 'writer') === writer,
+      photosServiceJobs: field(photosService, 'jobs') === jobs,
+      photosServiceWriter: field(photosService, 'writer') === writer,
+      photosServicePhotos: field(photosService, 'repository') === photos,
+      packetsService: field(app.get(PacketsService, { strict: false }), 'jobs') === jobs,
+      packetPhotoSource: field(app.select(PacketRenderingModule).get<object>(PACKET_PHOTO_SOURCE), 'repository') === photos,
+    }).toEqual({
+      jobsService: true,
+      jobsServiceWriter: true,
+      photosServiceJobs: true,
+      photosServiceWriter: true,
+      photosServicePhotos: true,
+      packetsService: true,
+      packetPhotoSource: true,
+    });
   });
 
   describe('create and read', () => {

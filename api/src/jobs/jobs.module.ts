@@ -6,15 +6,14 @@ import { DrawingRenderer } from './drawing-renderer.js';
 import { JobDrawingsController } from './job-drawings.controller.js';
 import { JobDrawingsService } from './job-drawings.service.js';
 import { JobRecordsController } from './job-records.controller.js';
+import { JobRecordModule } from './job-record.module.js';
 import { JobRecordsService } from './job-records.service.js';
-import { JobWriter } from './job-writer.js';
 import { JobsController } from './jobs.controller.js';
-import { JobsRepository } from './jobs.repository.js';
 import { JobsService } from './jobs.service.js';
 
 @Module({
-  imports: [SitesModule],
+  imports: [SitesModule, JobRecordModule],
   controllers: [JobsController, JobRecordsController, JobDrawingsController],
-  providers: [AsBuiltCache, JobsService, JobRecordsService, JobWriter, JobsRepository, JobDrawingsService, DrawingRenderer],
+  providers: [AsBuiltCache, JobsService, JobRecordsService, JobDrawingsService, DrawingRenderer],
 })
 export class JobsModule {}

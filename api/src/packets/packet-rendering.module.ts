@@ -1,8 +1,8 @@
 import { Module } from '@nestjs/common';
 
+import { JobRecordModule } from '../jobs/job-record.module.js';
 import { LinkBuilder } from '../mail/link-builder.js';
 import { JobPhotosForPacket } from '../photos/job-photos-for-packet.js';
-import { PhotosRepository } from '../photos/photos.repository.js';
 import { PACKET_PHOTO_SOURCE } from './packet-photo-source.js';
 import { PacketQueue } from './packet-queue.js';
 import { PacketRenderWorker } from './packet-render.worker.js';
@@ -12,16 +12,16 @@ import { PdfRendererService } from './pdf-renderer.service.js';
 /**
  * Everything a process needs to render packets from the queue: the API imports it through
  * PacketsModule, the standalone worker (`npm run worker`) through PacketWorkerModule. Needs the global
- * ConfigModule, DbModule and StorageModule.
+ * ConfigModule, DbModule, StorageModule and AuditModule (JobRecordModule's writer audits).
  */
 @Module({
+  imports: [JobRecordModule],
   providers: [
     PacketsRepository,
     PacketQueue,
     PdfRendererService,
     PacketRenderWorker,
     LinkBuilder,
-    PhotosRepository,
     { provide: PACKET_PHOTO_SOURCE, useClass: JobPhotosForPacket },
   ],
   exports: [PacketsRepository, PacketQueue, PacketRenderWorker, PdfRendererService],

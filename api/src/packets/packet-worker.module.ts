@@ -1,6 +1,7 @@
 import { Module, type OnApplicationBootstrap } from '@nestjs/common';
 import { ConfigModule } from '@nestjs/config';
 
+import { AuditModule } from '../audit/audit.module.js';
 import { readEnv } from '../config/env.schema.js';
 import { DbModule } from '../db/db.module.js';
 import { StorageModule } from '../storage/storage.module.js';
@@ -16,6 +17,8 @@ import { PacketRenderingModule } from './packet-rendering.module.js';
     ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, validate: (env) => readEnv(env) }),
     DbModule,
     StorageModule,
+    // The renderer imports the job record's module, whose writer audits.
+    AuditModule,
     PacketRenderingModule,
   ],
 })

@@ -2,8 +2,7 @@ import { type BeforeApplicationShutdown, Module, type OnApplicationBootstrap } f
 import { ConfigService } from '@nestjs/config';
 
 import type { Env } from '../config/env.schema.js';
-import { JobWriter } from '../jobs/job-writer.js';
-import { JobsRepository } from '../jobs/jobs.repository.js';
+import { JobRecordModule } from '../jobs/job-record.module.js';
 import { LocateModule } from '../locate/locate.module.js';
 import { PacketRenderWorker } from './packet-render.worker.js';
 import { PacketRenderingModule } from './packet-rendering.module.js';
@@ -15,10 +14,9 @@ import { SignaturesService } from './signatures.service.js';
 
 /** The packet API; with PACKET_WORKER_IN_API (default) this process also renders queued packets. */
 @Module({
-  imports: [PacketRenderingModule, LocateModule],
+  imports: [JobRecordModule, PacketRenderingModule, LocateModule],
   controllers: [PacketsController, SignaturesController],
-  // JobsRepository is stateless (DB access only): a local instance avoids widening JobsModule's exports.
-  providers: [PacketsService, JobsRepository, JobWriter, SignaturesService, SignaturesRepository],
+  providers: [PacketsService, SignaturesService, SignaturesRepository],
   // The portal and the send worker serve the same verified files.
   exports: [PacketsService],
 })

@@ -4,17 +4,16 @@ import { MulterModule } from '@nestjs/platform-express';
 
 import { ImageWorkModule } from '../common/image-work.module.js';
 import type { Env } from '../config/env.schema.js';
-import { JobWriter } from '../jobs/job-writer.js';
-import { JobsRepository } from '../jobs/jobs.repository.js';
+import { JobRecordModule } from '../jobs/job-record.module.js';
 import { JobPhotosController } from './job-photos.controller.js';
 import { PhotoProcessor } from './photo-processor.js';
 import { PhotosController } from './photos.controller.js';
-import { PhotosRepository } from './photos.repository.js';
 import { PhotosService } from './photos.service.js';
 import { UploadLimitsInterceptor } from './upload-limits.interceptor.js';
 
 @Module({
   imports: [
+    JobRecordModule,
     ImageWorkModule,
     // No storage engine: Multer keeps files in memory (bounded by these limits); the service writes
     // them to object storage under generated keys once they have been checked.
@@ -31,8 +30,6 @@ import { UploadLimitsInterceptor } from './upload-limits.interceptor.js';
     }),
   ],
   controllers: [JobPhotosController, PhotosController],
-  // JobWriter and JobsRepository are stateless: this module gets its own instances rather than
-  // widening JobsModule's exports, and writes go through the same locking, rules and audit.
-  providers: [PhotosService, PhotosRepository, PhotoProcessor, UploadLimitsInterceptor, JobWriter, JobsRepository],
+  providers: [PhotosService, PhotoProcessor, UploadLimitsInterceptor],
 })
 export class PhotosModule {}
