@@ -19,6 +19,11 @@ export type JobWrite = JobWriteCall & {
    * a change whose answer was lost is written once however often it is sent again.
    */
   idempotencyKey?: string;
+  /**
+   * For a record created with no signal: the id it goes by on this device until the server names it
+   * (later writes made offline may point at it: a run to a speaker added offline). Replay swaps it.
+   */
+  localId?: string;
 };
 
 /** The answer of a write: records answer `jobVersion`, job-level writes the whole job with `version`. */

@@ -27,7 +27,8 @@ import { isApiError } from '../../../lib/api-client';
 import { clearDraft } from '../../../lib/drafts';
 import { describeRequestError } from '../../../lib/form-errors';
 import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../../job-record';
-import { sendJobWrite, versionAfter, type JobWrite } from '../api/send-job-write';
+import { sendJobWrite, versionAfter, type JobWrite, type JobWriteResponse } from '../api/send-job-write';
+import { withLocalId, withOfflineRecord } from '../utils/offline-records';
 import { enqueuePendingWrite, newIdempotencyKey, readPendingWrites, subscribePendingWrites, type PendingWrite } from '../utils/pending-writes';
 import { handleConflictsOf, isWorthRetrying, replayPendingWrites } from '../utils/replay-pending-writes';
 
@@ -64,6 +65,8 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
   const [conflict, setConflict] = useState<Conflict | undefined>();
   const [isResolving, setIsResolving] = useState(false);
   const [isSending, setIsSending] = useState(false);
+  /** The latest `flush` (defined below), for `save` and the replay as the job opens. */
+  const flushRef = useRef<() => Promise<void>>(async () => undefined);
   const pending = useSyncExternalStore(
     subscribePendingWrites,
     () => readPendingWrites(jobId),
@@ -88,12 +91,11 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
   const refresh = useCallback(() => queryClient.invalidateQueries({ queryKey: ['jobs'] }), [queryClient]);
 
   const send = useCallback(
-    async (write: JobWrite, version: number): Promise<number | undefined> => {
+    async (write: JobWrite, version: number): Promise<JobWriteResponse> => {
       const response = await sendJobWrite(jobId, version, write);
-      const after = versionAfter(response);
-      applyVersion(after);
+      applyVersion(versionAfter(response));
       if (write.draftKey) clearDraft(write.draftKey);
-      return after;
+      return response;
     },
     [applyVersion, jobId],
   );
@@ -104,15 +106,25 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
       // is lost, the queued copy sent later is recognised and not written twice.
       const write: JobWrite = { ...unkeyed, idempotencyKey: unkeyed.idempotencyKey ?? newIdempotencyKey() };
       const version = currentVersion();
+      // Kept on this device; a new record shows at once under a local id, so more can be built on it.
+      const queue = async () => {
+        const queued = withLocalId(write);
+        await enqueuePendingWrite(jobId, queued, version);
+        queryClient.setQueryData<JobAsBuiltResponse>(queryKey, (previous) => withOfflineRecord(previous, queued));
+        return 'queued' as const;
+      };
+      // Writes still waiting go first: this one may build on them (a run to a speaker added offline).
+      if (readPendingWrites(jobId).length > 0) {
+        const outcome = await queue();
+        void flushRef.current();
+        return outcome;
+      }
       try {
         await send(write, version);
         await refresh();
         return 'saved';
       } catch (error) {
-        if (isWorthRetrying(error)) {
-          await enqueuePendingWrite(jobId, write, version);
-          return 'queued';
-        }
+        if (isWorthRetrying(error)) return queue();
         if (isApiError(error) && error.code === 'VERSION_CONFLICT') {
           return new Promise<SaveOutcome>((resolve) =>
             setConflict({ write, currentVersion: error.currentVersion, resolve }),
@@ -121,7 +133,7 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
         throw error;
       }
     },
-    [currentVersion, jobId, refresh, send],
+    [currentVersion, jobId, queryClient, queryKey, refresh, send],
   );
 
   // Queued writes of this job that meet someone else's change ask here, whoever started the replay
@@ -156,7 +168,6 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
 
   // Anything kept from an earlier visit goes out (or asks about a conflict) as the job opens; once per
   // job, not on every render (the shell tries again when the signal returns).
-  const flushRef = useRef(flush);
   flushRef.current = flush;
   useEffect(() => {
     void flushRef.current();

@@ -15,14 +15,15 @@ export const RETRY_EVERY_MS = 20_000;
 /** Sends through the job's endpoint and keeps the version it answered with in the kept as-built. */
 export function sendAndKeepVersion(queryClient: QueryClient): ReplayDeps['send'] {
   return async (jobId, version, write) => {
-    const after = versionAfter(await sendJobWrite(jobId, version, write));
+    const response = await sendJobWrite(jobId, version, write);
+    const after = versionAfter(response);
     if (after !== undefined) {
       queryClient.setQueryData<JobAsBuiltResponse>(getJobAsBuiltQueryOptions(jobId).queryKey, (previous) =>
         previous && previous.job.version < after ? { ...previous, job: { ...previous.job, version: after } } : previous,
       );
     }
     if (write.draftKey) clearDraft(write.draftKey);
-    return after;
+    return response;
   };
 }
 

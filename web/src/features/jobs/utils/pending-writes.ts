@@ -181,6 +181,25 @@ export async function enqueuePendingWrite(jobId: string, write: JobWrite, baseVe
   return entry;
 }
 
+/**
+ * Rewrites `jobId`'s waiting writes, kept durably (the ids of records made with no signal become the
+ * server's once it has named them, so a crash mid-replay leaves nothing pointing at a made-up id).
+ */
+export async function rewritePendingWrites(jobId: string, rewrite: (write: JobWrite) => JobWrite): Promise<void> {
+  const changed: PendingWrite[] = [];
+  all = all.map((entry) => {
+    if (entry.jobId !== jobId) return entry;
+    const write = rewrite(entry.write);
+    if (write === entry.write) return entry;
+    const next = { ...entry, write };
+    changed.push(next);
+    return next;
+  });
+  if (changed.length === 0) return;
+  publish();
+  if (hasIndexedDb()) await Promise.all(changed.map((entry) => set(entry.id, entry, writesStore()).catch(() => undefined)));
+}
+
 export async function removePendingWrite(jobId: string, id: string): Promise<void> {
   all = all.filter((entry) => !(entry.jobId === jobId && entry.id === id));
   publish();

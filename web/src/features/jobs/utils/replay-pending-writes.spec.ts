@@ -3,8 +3,10 @@ import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { ApiError } from '../../../lib/api-client';
 import { resetSession, setSession } from '../../../lib/session';
 import { buildSessionResponse, buildSessionUser } from '../../../testing/data';
+import { buildAsBuilt, buildJobAsBuilt } from '../../../testing/job-data';
 import type { JobWrite } from '../api/send-job-write';
 
+import { withLocalId, withOfflineRecord } from './offline-records';
 import { enqueuePendingWrite, readAllPendingWrites, readPendingWrites, resetPendingWritesForTests } from './pending-writes';
 import { handleConflictsOf, replayAllPendingWrites, replayPendingWrites, type ReplayDeps } from './replay-pending-writes';
 
@@ -15,17 +17,29 @@ const moveItem: JobWrite = { endpoint: 'replaceItem', params: { itemId: 'i1' }, 
 const reading: JobWrite = { endpoint: 'addDepthReading', params: { runId: 'r1' }, body: { stationM: 1, depthM: 0.45 }, label: 'Reading' };
 const notes: JobWrite = { endpoint: 'updateJob', params: {}, body: { notes: 'Gate code 4411' }, label: 'Job notes' };
 
+/** What the API answers a create with: the record under the id it gave it (amplifier channels too). */
+function created(write: JobWrite): Record<string, unknown> {
+  if (write.endpoint === 'createItem') {
+    const body = write.body as { channels?: { name: string }[] };
+    return { item: { ...body, id: 'server-item', ...(body.channels ? { channels: body.channels.map((c, i) => ({ ...c, id: `server-ch${i}` })) } : {}) } };
+  }
+  if (write.endpoint === 'createRun') return { run: { ...(write.body as object), id: 'server-run' } };
+  return {};
+}
+
 /** A server that answers each write with the next version, and remembers what it was sent. */
 function fakeServer(version: number, answer?: (write: JobWrite, sentOn: number) => Error | undefined) {
   const sent: { jobId: string; endpoint: string; version: number; key: string | undefined }[] = [];
+  const bodies: JobWrite[] = [];
   const send = vi.fn<ReplayDeps['send']>(async (jobId, sentOn, write) => {
     const failure = answer?.(write, sentOn);
     if (failure) throw failure;
     sent.push({ jobId, endpoint: write.endpoint, version: sentOn, key: write.idempotencyKey });
+    bodies.push(write);
     version += 1;
-    return version;
+    return { jobVersion: version, ...created(write) };
   });
-  return { sent, deps: { send, knownVersion: () => version, onRefused: vi.fn() } satisfies ReplayDeps };
+  return { sent, bodies, deps: { send, knownVersion: () => version, onRefused: vi.fn() } satisfies ReplayDeps };
 }
 
 describe('replaying the offline write queue (issue 17)', () => {
@@ -57,7 +71,7 @@ describe('replaying the offline write queue (issue 17)', () => {
     const server = fakeServer(3, () => (isOnline ? undefined : offline()));
     server.deps.send.mockImplementationOnce(async () => {
       isOnline = false;
-      return 4;
+      return { jobVersion: 4 };
     });
 
     expect(await replayPendingWrites('job-1', server.deps)).toEqual({ sent: 1, stoppedBy: 'no-signal' });
@@ -106,5 +120,53 @@ describe('replaying the offline write queue (issue 17)', () => {
     expect(server.sent.map((call) => `${call.jobId} ${call.endpoint}`)).toEqual(['job-b updateJob', 'job-b addDepthReading', 'job-a addDepthReading']);
     expect(first.sent + second.sent, 'each write is sent and counted once').toBe(3);
     expect(readAllPendingWrites()).toEqual([]);
+  });
+
+  it('should let offline work build on a record created offline, and send it with the id the server gave (issue 17)', async () => {
+    const amp = withLocalId({ endpoint: 'createItem', params: {}, body: { kind: 'amplifier', label: 'Pool amp', channels: [{ name: 'A' }] }, label: 'New amplifier' });
+    const speaker = withLocalId({ endpoint: 'createItem', params: {}, body: { kind: 'speaker', label: 'Lawn speaker L1' }, label: 'New speaker' });
+    expect(amp.localId).toMatch(/^[0-9a-f-]{36}$/);
+
+    // Shown at once in the kept as-built under its local id, channels included, for the run form to pick.
+    const kept = withOfflineRecord(withOfflineRecord(buildJobAsBuilt(buildAsBuilt()), amp), speaker)!;
+    const shownAmp = kept.asBuilt.items.find((item) => item.id === amp.localId);
+    expect(shownAmp).toMatchObject({ label: 'Pool amp', channels: [{ id: `${amp.localId}:ch0`, name: 'A' }] });
+    expect(kept.asBuilt.items.some((item) => item.id === speaker.localId)).toBe(true);
+
+    await enqueuePendingWrite('job-1', amp, 5);
+    await enqueuePendingWrite('job-1', speaker, 5);
+    const run: JobWrite = {
+      endpoint: 'createRun',
+      params: {},
+      body: { label: 'Lawn run', fromItemId: amp.localId, toItemId: speaker.localId, pairs: [{ pairIndex: 1, channel: { amplifierItemId: amp.localId, channelId: `${amp.localId}:ch0` } }] },
+      label: 'New run',
+    };
+    await enqueuePendingWrite('job-1', run, 5);
+    await enqueuePendingWrite('job-1', { endpoint: 'addDepthReading', params: { runId: 'unrelated-run' }, body: { stationM: 1, depthM: 0.4 }, label: 'Reading' }, 5);
+
+    // The server names both items "server-item"; the amplifier's channel "server-ch0".
+    const server = fakeServer(5);
+    let stopAfterItems = true;
+    server.deps.send.mockImplementation(async (_jobId, sentOn, write) => {
+      if (write.endpoint === 'createRun' && stopAfterItems) {
+        stopAfterItems = false;
+        throw offline();
+      }
+      server.bodies.push(write);
+      return { jobVersion: sentOn + 1, ...created(write) };
+    });
+    expect(await replayPendingWrites('job-1', server.deps)).toEqual({ sent: 2, stoppedBy: 'no-signal' });
+    // Kept durably with the server's ids before the run went out, so a reload now loses nothing.
+    const [waiting] = readPendingWrites('job-1');
+    expect(waiting?.write.body).toEqual({
+      label: 'Lawn run',
+      fromItemId: 'server-item',
+      toItemId: 'server-item',
+      pairs: [{ pairIndex: 1, channel: { amplifierItemId: 'server-item', channelId: 'server-ch0' } }],
+    });
+
+    expect(await replayPendingWrites('job-1', server.deps)).toEqual({ sent: 2 });
+    expect(server.bodies.map((write) => write.endpoint)).toEqual(['createItem', 'createItem', 'createRun', 'addDepthReading']);
+    expect(server.bodies[3]!.params, 'ids that are not local stay as they are').toEqual({ runId: 'unrelated-run' });
   });
 });

@@ -1,8 +1,9 @@
 import { isApiError } from '../../../lib/api-client';
 import { isAdditiveEndpoint } from '../api/job-write-endpoints';
-import type { JobWrite } from '../api/send-job-write';
+import { versionAfter, type JobWrite, type JobWriteResponse } from '../api/send-job-write';
 
-import { readAllPendingWrites, readPendingWrites, removePendingWrite } from './pending-writes';
+import { idsLearned, withServerIds } from './offline-records';
+import { readAllPendingWrites, readPendingWrites, removePendingWrite, rewritePendingWrites } from './pending-writes';
 
 /**
  * A failure that another try may get past: no connection (status 0), the server or its database busy
@@ -32,8 +33,8 @@ export function handleConflictsOf(jobId: string, handler: ConflictHandler): () =
 }
 
 export type ReplayDeps = {
-  /** Sends `write` on `version` of the job; resolves the version it produced (undefined when not said). */
-  send: (jobId: string, version: number, write: JobWrite) => Promise<number | undefined>;
+  /** Sends `write` on `version` of the job; resolves the server's answer. */
+  send: (jobId: string, version: number, write: JobWrite) => Promise<JobWriteResponse>;
   /** The job version this device knows (the kept as-built), if any. */
   knownVersion: (jobId: string) => number | undefined;
   /** The server refused `write` for good (the job closed, a record deleted…); it is taken off the queue. */
@@ -67,19 +68,26 @@ export function replayPendingWrites(jobId: string, deps: ReplayDeps): Promise<Re
 async function replayJob(jobId: string, deps: ReplayDeps): Promise<ReplayResult> {
   const rebased = new Map<number, number>();
   let sent = 0;
-  for (const entry of readPendingWrites(jobId)) {
+  for (const { id } of readPendingWrites(jobId)) {
+    // Read again each time: an earlier write of this round may have rewritten it (server ids).
+    const entry = readPendingWrites(jobId).find((candidate) => candidate.id === id);
+    if (!entry) continue;
     const base = rebased.get(entry.baseVersion) ?? entry.baseVersion;
     const isAdditive = isAdditiveEndpoint(entry.write.endpoint);
     const version = isAdditive ? (deps.knownVersion(jobId) ?? base) : base;
     try {
-      let after: number | undefined;
+      let response: JobWriteResponse;
       try {
-        after = await deps.send(jobId, version, entry.write);
+        response = await deps.send(jobId, version, entry.write);
       } catch (error) {
         const newer = isApiError(error) && error.code === 'VERSION_CONFLICT' ? error.currentVersion : undefined;
         if (!isAdditive || newer === undefined) throw error;
-        after = await deps.send(jobId, newer, entry.write);
+        response = await deps.send(jobId, newer, entry.write);
       }
+      const after = versionAfter(response);
+      // A record created offline now has the server's id: the writes that build on it say so from now on.
+      const learned = idsLearned(entry.write, response);
+      if (learned.size > 0) await rewritePendingWrites(jobId, (write) => withServerIds(write, learned));
       if (after !== undefined) {
         rebased.set(entry.baseVersion, after);
         rebased.set(version, after);
