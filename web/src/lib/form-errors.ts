@@ -1,4 +1,4 @@
-import type { z } from 'zod';
+import { z } from 'zod';
 
 import { isApiError } from './api-client';
 
@@ -42,4 +42,15 @@ export function describeRequestError(error: unknown, fallback = 'Something went 
   if (!isApiError(error)) return fallback;
   if (error.status === 0) return `${error.message} Check your connection and try again.`;
   return error.message ? toSentence(error.message) : fallback;
+}
+
+/**
+ * A form's optional text field for a shared schema's optional, nullable one: blank is "none" (null).
+ * Optional itself so that the shared schema, whose field may also be left out, can follow it in a pipe.
+ */
+export function blankToNull() {
+  return z
+    .string()
+    .transform((value) => (value.trim() === '' ? null : value))
+    .optional();
 }

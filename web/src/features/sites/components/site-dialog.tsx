@@ -1,28 +1,16 @@
-import {
-  Button,
-  Dialog,
-  DialogActions,
-  DialogBody,
-  DialogContent,
-  DialogSurface,
-  DialogTitle,
-  DialogTrigger,
-  Field,
-  Input,
-  makeStyles,
-  tokens,
-} from '@fluentui/react-components';
+import { Button, makeStyles } from '@fluentui/react-components';
 import { Add20Regular, Edit20Regular } from '@fluentui/react-icons';
-import { useState, type FormEvent } from 'react';
+import { useMemo } from 'react';
+import { z } from 'zod';
 import { CreateSiteSchema, type SiteResponse } from '@domain/sites/site.schema';
 
+import { FormDialog, FormTextField } from '../../../components/form-dialog';
 import { useNotify } from '../../../components/notify';
-import { describeRequestError, fieldErrorsFromApi, fieldErrorsFromZod, type FieldErrors } from '../../../lib/form-errors';
+import { blankToNull, describeRequestError } from '../../../lib/form-errors';
 import { useSaveSite } from '../api/save-site';
 import { useSiteConflict } from '../hooks/use-site-conflict';
 
 const useStyles = makeStyles({
-  form: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },
   control: { minHeight: '48px' },
 });
 
@@ -35,7 +23,22 @@ const FIELDS = [
   { key: 'postalCode', label: 'Postal code', required: false },
   { key: 'country', label: 'Country', required: true },
 ] as const;
-type Key = (typeof FIELDS)[number]['key'];
+
+/** The address form of a customer's site: blank optional lines are "none"; then the shared schema. */
+function siteFormSchema(customerId: string) {
+  return z
+    .object({
+      label: z.string(),
+      addressLine1: z.string(),
+      addressLine2: blankToNull(),
+      city: z.string(),
+      region: blankToNull(),
+      postalCode: blankToNull(),
+      country: z.string(),
+    })
+    .transform((values) => ({ ...values, customerId }))
+    .pipe(CreateSiteSchema);
+}
 
 /** New site for a customer, or change a site's address. */
 export function SiteDialog({ customerId, site, onSaved }: { customerId: string; site?: SiteResponse; onSaved?: (site: SiteResponse) => void }) {
@@ -43,87 +46,59 @@ export function SiteDialog({ customerId, site, onSaved }: { customerId: string; 
   const notify = useNotify();
   const save = useSaveSite();
   const conflict = useSiteConflict();
-  const [open, setOpen] = useState(false);
-  const [values, setValues] = useState<Record<Key, string>>({
-    label: site?.label ?? '',
-    addressLine1: site?.addressLine1 ?? '',
-    addressLine2: site?.addressLine2 ?? '',
-    city: site?.city ?? '',
-    region: site?.region ?? '',
-    postalCode: site?.postalCode ?? '',
-    country: site?.country ?? '',
-  });
-  const [errors, setErrors] = useState<FieldErrors<Key>>({});
-
-  const submit = (event?: FormEvent) => {
-    event?.preventDefault();
-    const orNull = (value: string) => (value.trim() === '' ? null : value);
-    const parsed = CreateSiteSchema.safeParse({
-      customerId,
-      ...values,
-      addressLine2: orNull(values.addressLine2),
-      region: orNull(values.region),
-      postalCode: orNull(values.postalCode),
-    });
-    if (!parsed.success) {
-      setErrors(fieldErrorsFromZod<Key>(parsed.error));
-      return;
-    }
-    setErrors({});
-    save.mutate(
-      { id: site?.id, input: parsed.data },
-      {
-        onSuccess: (saved) => {
-          notify.success(site ? 'Site saved' : 'Site added', saved.label);
-          setOpen(false);
-          onSaved?.(saved);
-        },
-        onError: (error) => {
-          // Someone changed the site meanwhile: keep what was typed, and ask (the form stays open).
-          if (site && conflict.handle(error, `the address of ${site.label}`, () => submit())) return;
-          const found = fieldErrorsFromApi<Key>(error);
-          if (Object.keys(found).length === 0) notify.error('Could not save the site', describeRequestError(error));
-          setErrors(found);
-        },
-      },
-    );
-  };
+  const schema = useMemo(() => siteFormSchema(customerId), [customerId]);
 
   return (
-    <Dialog open={open} onOpenChange={(_e, d) => !save.isPending && setOpen(d.open)}>
-      <DialogTrigger disableButtonEnhancement>
+    <FormDialog
+      trigger={
         <Button appearance={site ? 'secondary' : 'primary'} className={styles.control} icon={site ? <Edit20Regular /> : <Add20Regular />}>
           {site ? 'Change address' : 'New site'}
         </Button>
-      </DialogTrigger>
-      <DialogSurface>
-        <form onSubmit={submit} noValidate>
-          <DialogBody>
-            <DialogTitle>{site ? `Change ${site.label}` : 'New site'}</DialogTitle>
-            <DialogContent className={styles.form}>
-              {FIELDS.map((field) => (
-                <Field key={field.key} label={field.label} required={field.required} validationMessage={errors[field.key]}>
-                  <Input
-                    className={styles.control}
-                    value={values[field.key]}
-                    placeholder={'placeholder' in field ? field.placeholder : undefined}
-                    onChange={(_e, d) => setValues((current) => ({ ...current, [field.key]: d.value }))}
-                  />
-                </Field>
-              ))}
-            </DialogContent>
-            <DialogActions fluid>
-              <DialogTrigger disableButtonEnhancement>
-                <Button className={styles.control}>Cancel</Button>
-              </DialogTrigger>
-              <Button type="submit" appearance="primary" className={styles.control} disabled={save.isPending}>
-                Save
-              </Button>
-            </DialogActions>
-          </DialogBody>
-        </form>
-        {conflict.dialog}
-      </DialogSurface>
-    </Dialog>
+      }
+      title={site ? `Change ${site.label}` : 'New site'}
+      schema={schema}
+      defaultValues={{
+        label: site?.label ?? '',
+        addressLine1: site?.addressLine1 ?? '',
+        addressLine2: site?.addressLine2 ?? '',
+        city: site?.city ?? '',
+        region: site?.region ?? '',
+        postalCode: site?.postalCode ?? '',
+        country: site?.country ?? '',
+      }}
+      isPending={save.isPending}
+      after={conflict.dialog}
+      onSubmit={(input, { close, showFieldErrors, submitAgain }) =>
+        save.mutate(
+          { id: site?.id, input },
+          {
+            onSuccess: (saved) => {
+              notify.success(site ? 'Site saved' : 'Site added', saved.label);
+              close();
+              onSaved?.(saved);
+            },
+            onError: (error) => {
+              // Someone changed the site meanwhile: keep what was typed, and ask (the form stays open).
+              if (site && conflict.handle(error, `the address of ${site.label}`, submitAgain)) return;
+              if (!showFieldErrors(error)) notify.error('Could not save the site', describeRequestError(error));
+            },
+          },
+        )
+      }
+    >
+      {(form, fieldError) =>
+        FIELDS.map((field) => (
+          <FormTextField
+            key={field.key}
+            form={form}
+            name={field.key}
+            label={field.label}
+            required={field.required}
+            placeholder={'placeholder' in field ? field.placeholder : undefined}
+            error={fieldError(field.key)}
+          />
+        ))
+      }
+    </FormDialog>
   );
 }
