@@ -248,6 +248,19 @@ describe('the site system: a later job builds on what is in the ground', () => {
     expect(gSnapshot.asBuilt.items.map((i: { id: string }) => i.id)).not.toContain(draft.item.id);
     expect(gSnapshot.whatChanged.added.map((r: { id: string }) => r.id)).toEqual([hedge]);
 
+    // Packets issued before the site record froze only their own job's records: make every earlier
+    // packet of the site look like that (its own records, no site records). What changed must then
+    // compare with all of them merged, not with the superseded packet's one job alone.
+    await withDb(async (db) => {
+      const rows = (await db.query(`select pr.id, pr.job_id, pr.snapshot from packet_revisions pr join jobs j on j.id = pr.job_id where j.site_id = $1`, [siteId])).rows;
+      for (const row of rows) {
+        const { siteRecords, whatChanged: _changes, ...rest } = row.snapshot;
+        const own = (r: { id: string }) => siteRecords?.[r.id]?.installedBy.jobId === row.job_id;
+        const asBuilt = { ...rest.asBuilt, items: rest.asBuilt.items.filter(own), runs: rest.asBuilt.runs.filter(own) };
+        await db.query(`update packet_revisions set snapshot = $2 where id = $1`, [row.id, { ...rest, asBuilt }]);
+      }
+    });
+
     // The first job's revision 2 supersedes that packet and adds its speaker, on its own work date.
     const aIssued = await issue(a);
     const aSnapshot = await withDb(async (db) => (await db.query(`select snapshot from packet_revisions where id = $1`, [aIssued.id])).rows[0].snapshot);
