@@ -6,12 +6,16 @@ import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
 import {
   type CreatedLocateLinkResponse,
+  CreatedLocateLinkResponseSchema,
   type CreateLocateLinkInput,
   CreateLocateLinkSchema,
   type LocateLinkResponse,
+  LocateLinkResponseSchema,
 } from '../domain/locate/locate-link.schema.js';
 import { LocateLinksService } from './locate-links.service.js';
 import { NoStoreInterceptor } from './no-store.interceptor.js';
+import { ApiContract, emptyResponse } from '../common/api-contract.decorator.js';
+import { z } from 'zod';
 
 /** Locate links of a site: the office for any company site, a homeowner for the sites linked to them. */
 @ApiTags('locate links')
@@ -26,6 +30,7 @@ export class LocateLinksController {
   // The answer carries the token: not to be cached anywhere.
   @UseInterceptors(NoStoreInterceptor)
   @ApiOperation({ summary: 'Make a locate link; the answer carries its URL with the token, shown this once' })
+  @ApiContract({ body: CreateLocateLinkSchema, responses: { 201: CreatedLocateLinkResponseSchema } })
   create(
     @CurrentUser() user: AuthUser,
     @Param('siteId', ParseUUIDPipe) siteId: string,
@@ -36,6 +41,7 @@ export class LocateLinksController {
 
   @Get('sites/:siteId/locate-links')
   @ApiOperation({ summary: 'The site’s locate links, newest first, with open count and last open' })
+  @ApiContract({ responses: { 200: z.array(LocateLinkResponseSchema) } })
   list(@CurrentUser() user: AuthUser, @Param('siteId', ParseUUIDPipe) siteId: string): Promise<LocateLinkResponse[]> {
     return this.locateLinks.list(user, siteId);
   }
@@ -43,6 +49,7 @@ export class LocateLinksController {
   @Delete('locate-links/:id')
   @HttpCode(HttpStatus.NO_CONTENT)
   @ApiOperation({ summary: 'Revoke a locate link (idempotent); it answers 404 from then on' })
+  @ApiContract({ responses: { 204: emptyResponse } })
   async revoke(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<void> {
     await this.locateLinks.revoke(user, id);
   }

@@ -7,12 +7,16 @@ import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
 import {
   type OutboxListResponse,
+  OutboxListResponseSchema,
   type OutboxMessageResponse,
+  OutboxMessageResponseSchema,
   type OutboxQuery,
   OutboxQuerySchema,
 } from '../domain/mail/outbox.schema.js';
 import type { MailStatusResponse } from '../domain/signup/signup.schema.js';
 import { OutboxService } from './outbox.service.js';
+import { ApiContract, fileResponse } from '../common/api-contract.decorator.js';
+import { MailStatusResponseSchema } from '../domain/signup/signup.schema.js';
 
 @ApiTags('outbox')
 @ApiBearerAuth()
@@ -23,12 +27,14 @@ export class OutboxController {
 
   @Get('status')
   @ApiOperation({ summary: 'Where mail goes: captured by the built-in server (read it here) or a mail service' })
+  @ApiContract({ responses: { 200: MailStatusResponseSchema } })
   status(): MailStatusResponse {
     return this.outboxService.status();
   }
 
   @Get()
   @ApiOperation({ summary: "Messages captured by the local mail server for the caller's company (when SMTP_URL is not set)" })
+  @ApiContract({ query: OutboxQuerySchema, responses: { 200: OutboxListResponseSchema } })
   list(
     @CurrentUser() user: AuthUser,
     @Query(new ZodValidationPipe(OutboxQuerySchema)) query: OutboxQuery,
@@ -37,11 +43,13 @@ export class OutboxController {
   }
 
   @Get(':id')
+  @ApiContract({ responses: { 200: OutboxMessageResponseSchema } })
   get(@CurrentUser() user: AuthUser, @Param('id', ParseUUIDPipe) id: string): Promise<OutboxMessageResponse> {
     return this.outboxService.get(user, id);
   }
 
   @Get(':id/attachments/:attachmentId')
+  @ApiContract({ responses: { 200: fileResponse('*/*') } })
   async attachment(
     @CurrentUser() user: AuthUser,
     @Param('id', ParseUUIDPipe) id: string,

@@ -1,5 +1,5 @@
 import { Body, Controller, Get, Patch, UseInterceptors } from '@nestjs/common';
-import { ApiBearerAuth, ApiBody, ApiOperation, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
 
 import { ContentEtagInterceptor } from '../common/content-etag.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
@@ -7,13 +7,16 @@ import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
 import {
   type CompanySettingsResponse,
+  CompanySettingsResponseSchema,
   type MyPreferencesResponse,
+  MyPreferencesResponseSchema,
   type UpdateCompanySettingsInput,
   UpdateCompanySettingsSchema,
   type UpdateMyPreferencesInput,
   UpdateMyPreferencesSchema,
 } from '../domain/settings/settings.schema.js';
 import { SettingsService } from './settings.service.js';
+import { ApiContract } from '../common/api-contract.decorator.js';
 
 /** The company's defaults: everyone of the company reads them (they set how the app shows values); the admin changes them. */
 @ApiTags('settings')
@@ -25,6 +28,7 @@ export class CompanySettingsController {
   @Get()
   @UseInterceptors(ContentEtagInterceptor)
   @ApiOperation({ summary: 'The company’s default units (lengths, wire sizes) and the paper its packets print on' })
+  @ApiContract({ responses: { 200: CompanySettingsResponseSchema } })
   get(@CurrentUser() user: AuthUser): Promise<CompanySettingsResponse> {
     return this.settings.companySettings(user);
   }
@@ -32,7 +36,7 @@ export class CompanySettingsController {
   @Patch()
   @Roles('admin')
   @ApiOperation({ summary: 'Change the company’s defaults (admin); values are always stored in SI units whatever is shown' })
-  @ApiBody({ schema: { type: 'object' }, examples: { metric: { value: { lengthUnits: 'metric', gaugeUnits: 'mm2', paperSize: 'a4' } } } })
+  @ApiContract({ body: UpdateCompanySettingsSchema, responses: { 200: CompanySettingsResponseSchema } })
   update(
     @CurrentUser() user: AuthUser,
     @Body(new ZodValidationPipe(UpdateCompanySettingsSchema)) body: UpdateCompanySettingsInput,
@@ -51,13 +55,14 @@ export class MyPreferencesController {
   @Get()
   @UseInterceptors(ContentEtagInterceptor)
   @ApiOperation({ summary: 'Your own unit choices, the company defaults, and the units the app shows you (`effective`)' })
+  @ApiContract({ responses: { 200: MyPreferencesResponseSchema } })
   get(@CurrentUser() user: AuthUser): Promise<MyPreferencesResponse> {
     return this.settings.myPreferences(user);
   }
 
   @Patch()
   @ApiOperation({ summary: 'Choose your own units; `null` goes back to the company’s default' })
-  @ApiBody({ schema: { type: 'object' }, examples: { metric: { value: { lengthUnits: 'metric' } }, followCompany: { value: { lengthUnits: null, gaugeUnits: null } } } })
+  @ApiContract({ body: UpdateMyPreferencesSchema, responses: { 200: MyPreferencesResponseSchema } })
   update(
     @CurrentUser() user: AuthUser,
     @Body(new ZodValidationPipe(UpdateMyPreferencesSchema)) body: UpdateMyPreferencesInput,

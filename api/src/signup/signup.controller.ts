@@ -12,12 +12,17 @@ import {
   type CreateSignupInput,
   CreateSignupSchema,
   type SignupAcceptedResponse,
+  SignupAcceptedResponseSchema,
   type SignupMailResponse,
+  SignupMailResponseSchema,
   type SignupStatusResponse,
+  SignupStatusResponseSchema,
   type VerifySignupInput,
   VerifySignupSchema,
 } from '../domain/signup/signup.schema.js';
 import { SignupService } from './signup.service.js';
+import { ApiContract } from '../common/api-contract.decorator.js';
+import { SessionResponseSchema } from '../domain/auth/auth.schema.js';
 
 @ApiTags('signup')
 @Controller('signup')
@@ -27,6 +32,7 @@ export class SignupController {
   @Public()
   @Get('status')
   @ApiOperation({ summary: 'Whether companies may sign up here (mode), whether any company exists yet, and whether mail is captured locally' })
+  @ApiContract({ responses: { 200: SignupStatusResponseSchema } })
   status(@Res({ passthrough: true }) res: Response): Promise<SignupStatusResponse> {
     res.setHeader('Cache-Control', 'no-store');
     return this.signupService.status();
@@ -39,6 +45,7 @@ export class SignupController {
   @ApiOperation({
     summary: 'Ask to create a company: e-mails a verification link (the answer is the same whether or not the address has an account)',
   })
+  @ApiContract({ body: CreateSignupSchema, responses: { 202: SignupAcceptedResponseSchema } })
   request(@Body(new ZodValidationPipe(CreateSignupSchema)) body: CreateSignupInput): Promise<SignupAcceptedResponse> {
     return this.signupService.request(body);
   }
@@ -46,6 +53,7 @@ export class SignupController {
   @Public()
   @Get('mail/:receipt')
   @ApiOperation({ summary: 'With mail captured locally (no SMTP_URL): the message sent for a sign-up request' })
+  @ApiContract({ responses: { 200: SignupMailResponseSchema } })
   mail(@Param('receipt') receipt: string, @Res({ passthrough: true }) res: Response): Promise<SignupMailResponse> {
     res.setHeader('Cache-Control', 'no-store');
     return this.signupService.mailForReceipt(receipt);
@@ -59,6 +67,7 @@ export class SignupController {
   // let a few visitors use up everyone's verifications.
   @SkipThrottle({ account: true, 'account-global': true })
   @ApiOperation({ summary: 'Follow the verification link: create the company and its first admin, and sign in' })
+  @ApiContract({ body: VerifySignupSchema, responses: { 200: SessionResponseSchema } })
   async verify(
     @Body(new ZodValidationPipe(VerifySignupSchema)) body: VerifySignupInput,
     @Req() req: Request,
