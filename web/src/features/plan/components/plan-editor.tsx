@@ -16,12 +16,14 @@ import { SaveStateBar } from '../../jobs';
 import { useJobWriter } from '../../jobs';
 import { jobPermissions } from '../../jobs';
 import type { SiteResponse } from '../../sites';
-import { useSaveReferencePoint } from '../../sites';
 import { useSiteConflict } from '../../sites';
 import { usePlanImageUrl } from '../api/get-plan-image';
 import { planImageOf } from '../api/site-plan-image';
 import { useUpdateSitePlan } from '../api/update-site-plan';
 import { useUploadPlanImage } from '../api/upload-plan-image';
+import { useFeatureTool } from '../hooks/use-feature-tool';
+import { useNorthTool } from '../hooks/use-north-tool';
+import { useReferenceTool } from '../hooks/use-reference-tool';
 import {
   imageToPlan,
   insertRoutePoint,
@@ -57,9 +59,8 @@ import { LayersMenu } from './layers-menu';
 import { NorthPanel } from './north-panel';
 import { PlanCanvas, type CanvasModel, type PlanHit } from './plan-canvas';
 import { PlanToolbar, type PlanTool } from './plan-toolbar';
-import { useWriteSiteFeature } from '../../sites';
 
-import { FeaturePanel, type FeatureDraft } from './feature-panel';
+import { FeaturePanel } from './feature-panel';
 import { ReferencePointDialog } from './reference-point-dialog';
 import { RoutePanel, type RouteMode } from './route-panel';
 import { SelectionCard, type PlanSelection } from './selection-card';
@@ -165,72 +166,16 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
     if (value.a === undefined && value.b === undefined && value.distance === '') calibrationDraft.clear();
     else calibrationDraft.setValue(value);
   };
-  const [northDraft, setNorthDraft] = useState<string | undefined>();
-  const [northError, setNorthError] = useState<string | undefined>();
-  const savedNorth = site.northAzimuthDeg ?? 0;
 
   // Landmarks (site features): a draft of the one being drawn or changed.
   const siteFeatures = asBuilt.site?.features ?? [];
-  const NEW_FEATURE: FeatureDraft = { featureId: '', kind: 'house', name: '', shape: 'polygon' };
-  const [featureDraft, setFeatureDraft] = useState<FeatureDraft>(NEW_FEATURE);
-  const [featurePoints, setFeaturePoints] = useState<PlanPoint[]>([]);
-  const [featureError, setFeatureError] = useState<string | undefined>();
-  const writeFeature = useWriteSiteFeature();
-  const pickFeature = (featureId: string) => {
-    const f = siteFeatures.find((candidate) => candidate.id === featureId);
-    setFeatureError(undefined);
-    setSelectedVertex(undefined);
-    if (!f) {
-      setFeatureDraft(NEW_FEATURE);
-      setFeaturePoints([]);
-      return;
-    }
-    setFeatureDraft({ featureId: f.id, kind: f.kind, name: f.name, shape: f.shape });
-    setFeaturePoints(f.points.map((p) => ({ x: p.x, y: p.y })));
-  };
-  const saveFeature = (): void => {
-    const input = { kind: featureDraft.kind, name: featureDraft.name.trim(), shape: featureDraft.shape, points: featurePoints.map(roundPlanPoint) };
-    writeFeature.mutate(
-      { siteId: site.id, ...(featureDraft.featureId ? { featureId: featureDraft.featureId } : {}), input },
-      {
-        onSuccess: () => {
-          notify.success('Landmark saved', input.name);
-          setFeatureDraft(NEW_FEATURE);
-          setFeaturePoints([]);
-          setSelectedVertex(undefined);
-        },
-        onError: (error) => {
-          if (!siteConflict.handle(error, `the landmark “${input.name}”`, saveFeature)) setFeatureError(describeRequestError(error));
-        },
-      },
-    );
-  };
-  const deleteFeature = (): void => {
-    const { featureId, name } = featureDraft;
-    if (!featureId) return;
-    writeFeature.mutate(
-      { siteId: site.id, featureId, isDelete: true },
-      {
-        onSuccess: () => {
-          notify.success('Landmark deleted', name);
-          setFeatureDraft(NEW_FEATURE);
-          setFeaturePoints([]);
-        },
-        onError: (error) => {
-          if (!siteConflict.handle(error, `deleting the landmark “${name}”`, deleteFeature)) setFeatureError(describeRequestError(error));
-        },
-      },
-    );
-  };
-
-  // Reference points.
-  const [pendingReference, setPendingReference] = useState<{ key: number; point: PlanPoint } | undefined>();
-  const [referenceError, setReferenceError] = useState<string | undefined>();
-  const saveReference = useSaveReferencePoint();
   const uploadImage = useUploadPlanImage();
   const updateSite = useUpdateSitePlan();
   // Site writes name the site's version: "someone changed this site first" asks as job writes do.
   const siteConflict = useSiteConflict();
+  const north = useNorthTool({ site, siteConflict });
+  const reference = useReferenceTool({ site, siteConflict });
+  const feature = useFeatureTool({ site, features: siteFeatures, siteConflict, selectedVertex, setSelectedVertex });
 
   const planImage = planImageOf(site);
   const { href: imageHref, isError: isImageError } = usePlanImageUrl(planImage);
@@ -262,7 +207,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
 
   // ---- What the plan shows -------------------------------------------------------------------
   const model: CanvasModel = {
-    features: siteFeatures.map((f) => ({ ...f, isSelected: tool === 'feature' && f.id === featureDraft.featureId })),
+    features: siteFeatures.map((f) => ({ ...f, isSelected: tool === 'feature' && f.id === feature.draft.featureId })),
     items: asBuilt.items.flatMap((item) => {
       const p = positions.get(item.id);
       if (!p) return [];
@@ -315,7 +260,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
       tool === 'route' && routeRun
         ? { points: routePoints, selectedIndex: selectedVertex, isEditable: true, canInsert: routeMode === 'edit' }
         : tool === 'feature'
-          ? { points: featureDraft.shape === 'polygon' && featurePoints.length >= 3 ? [...featurePoints, featurePoints[0]!] : featurePoints, selectedIndex: selectedVertex, isEditable: true, canInsert: false }
+          ? { points: feature.draft.shape === 'polygon' && feature.points.length >= 3 ? [...feature.points, feature.points[0]!] : feature.points, selectedIndex: selectedVertex, isEditable: true, canInsert: false }
           : undefined,
     marks:
       tool === 'calibrate' && placement && canSite
@@ -327,7 +272,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
     solution:
       tool === 'ties' && solution?.ok ? { x: solution.x, y: solution.y, accuracyM: solution.accuracyM, isWeak: solution.isWeak } : undefined,
     showLabels: layers.labels,
-    northAzimuthDeg: tool === 'north' && northDraft !== undefined && Number.isFinite(Number(northDraft)) ? Number(northDraft) : (site.northAzimuthDeg ?? null),
+    northAzimuthDeg: tool === 'north' ? north.previewDeg : (site.northAzimuthDeg ?? null),
     lengthSystem: units.length,
   };
   if (tool === 'ties' && solution?.ok && layers.references) {
@@ -415,24 +360,6 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
     );
   };
 
-  const addReference = (label: string): void => {
-    if (!pendingReference) return;
-    const point = roundPlanPoint(pendingReference.point);
-    setReferenceError(undefined);
-    saveReference.mutate(
-      { siteId: site.id, input: { label, x: point.x, y: point.y } },
-      {
-        onSuccess: (created) => {
-          setPendingReference(undefined);
-          notify.success('Reference point added', created.label);
-        },
-        onError: (error) => {
-          if (!siteConflict.handle(error, `adding the reference point “${label}”`, () => addReference(label))) setReferenceError(describeRequestError(error));
-        },
-      },
-    );
-  };
-
   const saveCalibration = (): void => {
     const { a, b } = calibration;
     if (!a || !b) return;
@@ -475,33 +402,12 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
     );
   };
 
-  const saveNorth = (): void => {
-    const value = Number((northDraft ?? '').replace(',', '.'));
-    if (northDraft === undefined || northDraft.trim() === '' || !Number.isFinite(value) || value < -360 || value > 360) {
-      setNorthError('Enter a bearing in degrees, from 0 to 360.');
-      return;
-    }
-    setNorthError(undefined);
-    updateSite.mutate(
-      { siteId: site.id, change: { northAzimuthDeg: value } },
-      {
-        onSuccess: () => {
-          setNorthDraft(undefined);
-          notify.success('North saved', `The plan’s top faces ${value}°.`);
-        },
-        onError: (error) => {
-          if (!siteConflict.handle(error, 'the plan’s north', saveNorth)) setNorthError(describeRequestError(error));
-        },
-      },
-    );
-  };
-
   // ---- Taps and drags ------------------------------------------------------------------------
   // Points snap to items, reference points and the corners of other landmarks.
   const snapTargets = [
     ...model.items,
     ...asBuilt.referencePoints.map((rp) => ({ ...rp })),
-    ...siteFeatures.filter((f) => f.id !== featureDraft.featureId).flatMap((f) => f.points.map((p) => ({ x: p.x, y: p.y }))),
+    ...siteFeatures.filter((f) => f.id !== feature.draft.featureId).flatMap((f) => f.points.map((p) => ({ x: p.x, y: p.y }))),
   ];
   const snapped = (p: PlanPoint) => {
     const hit = snapPoint(p, snapTargets, SNAP_PX / Math.max(transformK, 1e-9));
@@ -516,16 +422,10 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
         else setSelection(undefined);
         return;
       case 'reference':
-        setReferenceError(undefined);
-        setPendingReference({ key: Date.now(), point });
+        reference.tap(point);
         return;
       case 'feature':
-        setFeatureError(undefined);
-        if (hit?.type === 'vertex' && hit.index < featurePoints.length) {
-          setSelectedVertex(hit.index === selectedVertex ? undefined : hit.index);
-          return;
-        }
-        setFeaturePoints([...featurePoints, snapped(point)]);
+        feature.tap(point, hit, snapped);
         return;
       case 'route': {
         if (!routeRun) {
@@ -575,10 +475,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
 
   const handleDragEnd = (hit: PlanHit, point: PlanPoint) => {
     if (hit.type === 'item' && tool === 'select') void moveItem(hit.id, point);
-    if (hit.type === 'vertex' && tool === 'feature' && hit.index < featurePoints.length) {
-      setFeaturePoints(featurePoints.map((p, i) => (i === hit.index ? snapped(point) : p)));
-      setSelectedVertex(hit.index);
-    }
+    if (tool === 'feature') feature.dragEnd(hit, point, snapped);
     if (hit.type === 'vertex' && tool === 'route') {
       routeDraft.setValue(moveRoutePoint(routePoints, hit.index, snapped(point)));
       setSelectedVertex(hit.index);
@@ -593,9 +490,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
       case 'reference':
         return 'Tap the plan where the reference point is: a house corner, a gate post, the meter base.';
       case 'feature':
-        return featurePoints.length === 0
-          ? 'Name the landmark, then tap its corners on the plan (they snap to nearby corners and reference points).'
-          : `Tap the next corner (point ${featurePoints.length + 1}). Drag a corner to move it.`;
+        return feature.hint;
       case 'route':
         if (!routeRun) return 'Choose the run whose route you are drawing.';
         if (routeMode === 'draw') {
@@ -704,44 +599,9 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
           />
         );
       case 'feature':
-        return (
-          <FeaturePanel
-            features={siteFeatures}
-            draft={featureDraft}
-            pointCount={featurePoints.length}
-            isSaving={writeFeature.isPending}
-            error={featureError}
-            onPick={pickFeature}
-            onChange={(next) => {
-              setFeatureDraft(next);
-              setFeatureError(undefined);
-            }}
-            onUndo={() => {
-              setFeaturePoints(featurePoints.slice(0, -1));
-              setSelectedVertex(undefined);
-            }}
-            onClearPoints={() => {
-              setFeaturePoints([]);
-              setSelectedVertex(undefined);
-            }}
-            onSave={saveFeature}
-            onDelete={deleteFeature}
-          />
-        );
+        return <FeaturePanel {...feature.panel} />;
       case 'north':
-        return (
-          <NorthPanel
-            value={northDraft ?? String(savedNorth)}
-            onChange={(value) => {
-              setNorthDraft(value);
-              setNorthError(undefined);
-            }}
-            error={northError}
-            isSaving={updateSite.isPending}
-            isChanged={northDraft !== undefined && Number(northDraft) !== savedNorth}
-            onSave={saveNorth}
-          />
-        );
+        return <NorthPanel {...north.panel} />;
     }
   })();
 
@@ -774,14 +634,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
               onZoom={setTransformK}
               hint={hint}
               extraButtons={<LayersMenu layers={layers} onChange={setLayers} />}
-              onNorthTurn={
-                tool === 'north'
-                  ? (deg) => {
-                      setNorthDraft(String(deg));
-                      setNorthError(undefined);
-                    }
-                  : undefined
-              }
+              onNorthTurn={tool === 'north' ? north.turn : undefined}
               fitKey={`${planImage?.url ?? ''}|${site.planCalibration ? JSON.stringify(site.planCalibration) : ''}|${imageHref ? 'loaded' : ''}`}
               label={`Plan of ${job.site.label}`}
             />
@@ -789,14 +642,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
         </div>
         <div className={styles.side}>{panel}</div>
       </div>
-      <ReferencePointDialog
-        key={pendingReference?.key ?? 0}
-        point={pendingReference?.point}
-        isSaving={saveReference.isPending}
-        error={referenceError}
-        onSave={addReference}
-        onCancel={() => setPendingReference(undefined)}
-      />
+      <ReferencePointDialog key={reference.dialogKey} {...reference.dialog} />
     </>
   );
 }
