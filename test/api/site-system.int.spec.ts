@@ -247,6 +247,11 @@ describe('the site system: a later job builds on what is in the ground', () => {
     const gSnapshot = await withDb(async (db) => (await db.query(`select snapshot from packet_revisions where id = $1`, [gIssued.id])).rows[0].snapshot);
     expect(gSnapshot.asBuilt.items.map((i: { id: string }) => i.id)).not.toContain(draft.item.id);
     expect(gSnapshot.whatChanged.added.map((r: { id: string }) => r.id)).toEqual([hedge]);
+    // The previous test left an open job holding an unissued relabel of the first job's live run: it has
+    // not happened for this job, so its packet has the run as it was and lists no change to it.
+    expect(gSnapshot.asBuilt.runs.find((r: { id: string }) => r.id === first.liveRun).label).toBe('Amp to lawn speaker');
+    expect(gSnapshot.whatChanged.changed).toEqual([]);
+    expect(gSnapshot.siteRecords[first.liveRun].changedBy).toEqual([]);
 
     // Packets issued before the site record froze only their own job's records: make every earlier
     // packet of the site look like that (its own records, no site records). What changed must then

@@ -14,7 +14,7 @@ import type {
   RunRow,
   ZoneRow,
 } from '../db/schema/index.js';
-import { depthReadingIdsByRun, type JobRecordRows, toAsBuilt, toRecordRows } from './as-built-rows.js';
+import { depthReadingIdsByRun, type JobRecordRows, toAsBuilt, toRecordRows, toSiteRecords } from './as-built-rows.js';
 
 const now = new Date('2026-05-14T12:00:00Z');
 
@@ -101,6 +101,48 @@ describe('toAsBuilt', () => {
   it('should leave out the GPS origin when the site has none', () => {
     const rows = asStored();
     expect(toAsBuilt({ ...rows, site: { northAzimuthDeg: 0, originLat: null, originLon: null } }).site).toEqual({ northAzimuthDeg: 0 });
+  });
+});
+
+describe('another open job’s unissued change (issue 21)', () => {
+  // The earlier job installed the demo; a later open job (not the one viewing) relabelled and abandoned
+  // a run without issuing; a third job views the system. An issued change by the viewer's own job stays.
+  const rows = asStored();
+  const run = rows.runs[0]!;
+  const asBefore = toAsBuilt(rows).runs[0]!;
+  const change = (jobId: string, issuedAt: Date | null) => ({
+    id: `change-${jobId}`,
+    siteId: 'site-1',
+    jobId,
+    recordKind: 'run' as const,
+    recordId: run.id,
+    change: 'abandoned' as const,
+    before: { record: asBefore, abandoned: null } as unknown as Record<string, unknown>,
+    changedOn: '2027-04-02',
+    issuedAt,
+    createdAt: now,
+    updatedAt: now,
+  });
+  const changedRows = (viewer: string, issuedAt: Date | null): JobRecordRows => ({
+    ...rows,
+    runs: rows.runs.map((r) => (r.id === run.id ? { ...r, label: 'Relabelled by the open job', isAbandoned: true, abandonedByJobId: 'job-open', abandonedOn: '2027-04-02' } : r)),
+    system: { jobId: viewer, jobTitles: { 'job-1': 'Garden speakers', 'job-open': 'Fire pit zone', 'job-view': 'Hedge lights' }, changes: [change('job-open', issuedAt)], removedByThisJob: [] },
+  });
+
+  it('shows the record as it was before the change to any other job, with no trace of it in its provenance', () => {
+    const viewed = changedRows('job-view', null);
+    expect(toAsBuilt(viewed).runs[0]).toEqual(asBefore);
+    expect(toSiteRecords(viewed)[run.id]).toMatchObject({ changedBy: [], abandoned: null });
+  });
+
+  it('shows the change to the job that made it, and to everyone once it is issued', () => {
+    for (const viewed of [changedRows('job-open', null), changedRows('job-view', now)]) {
+      expect(toAsBuilt(viewed).runs[0]).toMatchObject({ label: 'Relabelled by the open job', isAbandoned: true });
+      expect(toSiteRecords(viewed)[run.id]).toMatchObject({
+        changedBy: [{ jobId: 'job-open', change: 'abandoned' }],
+        abandoned: { jobId: 'job-open', jobTitle: 'Fire pit zone', on: '2027-04-02' },
+      });
+    }
   });
 });
 

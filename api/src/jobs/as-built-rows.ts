@@ -222,8 +222,30 @@ function toCheck(row: CommissioningCheckRow): CommissioningCheck {
   };
 }
 
+/** What an earlier record looked like before a job's first change to it (`site_record_changes.before`). */
+interface ChangeBefore {
+  record: Item | Run;
+  abandoned: { jobId: string; on: string } | null;
+}
+
+/**
+ * Other jobs' changes to earlier records that are not issued yet, by record id. Such a change has not
+ * happened for this job (issue 21): its view of the system, its analysis and its packet show the record
+ * as it was before (another job's unissued change must not enter this job's packet as a change).
+ */
+function openChangesOfOtherJobs(rows: Pick<JobRecordRows, 'system'>): Map<string, { jobId: string; before: ChangeBefore }> {
+  const system = rows.system;
+  const out = new Map<string, { jobId: string; before: ChangeBefore }>();
+  if (!system) return out;
+  for (const c of system.changes) {
+    if (c.jobId !== system.jobId && c.issuedAt === null) out.set(c.recordId, { jobId: c.jobId, before: c.before as unknown as ChangeBefore });
+  }
+  return out;
+}
+
 /** Assembles the as-built of one job from its rows; every id is the row's uuid. */
 export function toAsBuilt(rows: JobRecordRows): AsBuilt {
+  const held = openChangesOfOtherJobs(rows);
   const channelsByItem = groupBy(rows.channels, (c) => c.itemId);
   const tiesByItem = groupBy(rows.ties, (t) => t.itemId);
   const pairsByRun = groupBy(rows.pairs, (p) => p.runId);
@@ -246,11 +268,13 @@ export function toAsBuilt(rows: JobRecordRows): AsBuilt {
     referencePoints: [...rows.referencePoints].sort(bySeq).map((p) => ({ id: p.id, label: p.label, x: p.x, y: p.y })),
     items: [...rows.items]
       .sort(bySeq)
-      .map((row) => toItem(row, channelsByItem.get(row.id) ?? [], tiesByItem.get(row.id) ?? [])),
+      .map((row) => (held.get(row.id)?.before.record as Item | undefined) ?? toItem(row, channelsByItem.get(row.id) ?? [], tiesByItem.get(row.id) ?? [])),
     runs: [...rows.runs]
       .sort(bySeq)
-      .map((row) =>
-        toRun(row, pairsByRun.get(row.id) ?? [], routeByRun.get(row.id) ?? [], readingsByRun.get(row.id) ?? []),
+      .map(
+        (row) =>
+          (held.get(row.id)?.before.record as Run | undefined) ??
+          toRun(row, pairsByRun.get(row.id) ?? [], routeByRun.get(row.id) ?? [], readingsByRun.get(row.id) ?? []),
       ),
     checks: [...rows.checks].sort(bySeq).map(toCheck),
   };
@@ -273,8 +297,18 @@ export function toSiteRecords(rows: JobRecordRows): Record<string, SiteRecordInf
   const system = rows.system;
   if (!system) return {};
   const title = (jobId: string) => system.jobTitles[jobId] ?? '';
-  const changesByRecord = groupBy(system.changes, (c) => c.recordId);
+  const held = openChangesOfOtherJobs(rows);
+  // Another job's unissued change has not happened for this job (see openChangesOfOtherJobs).
+  const changesByRecord = groupBy(
+    system.changes.filter((c) => held.get(c.recordId)?.jobId !== c.jobId),
+    (c) => c.recordId,
+  );
   const out: Record<string, SiteRecordInfo> = {};
+  const abandonedOf = (row: ItemRow | RunRow): SiteRecordInfo['abandoned'] => {
+    const before = held.get(row.id)?.before;
+    const by = before ? before.abandoned : row.abandonedByJobId !== null && row.abandonedOn !== null ? { jobId: row.abandonedByJobId, on: row.abandonedOn } : null;
+    return by ? { jobId: by.jobId, jobTitle: title(by.jobId), on: by.on } : null;
+  };
   const add = (kind: 'item' | 'run', row: ItemRow | RunRow) => {
     out[row.id] = {
       kind,
@@ -288,7 +322,7 @@ export function toSiteRecords(rows: JobRecordRows): Record<string, SiteRecordInf
         on: c.changedOn,
         isIssued: c.issuedAt !== null,
       })),
-      abandoned: row.abandonedByJobId !== null && row.abandonedOn !== null ? { jobId: row.abandonedByJobId, jobTitle: title(row.abandonedByJobId), on: row.abandonedOn } : null,
+      abandoned: abandonedOf(row),
     };
   };
   for (const row of [...rows.items].sort(bySeq)) add('item', row);
