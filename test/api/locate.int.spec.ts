@@ -9,7 +9,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { DEMO_AS_BUILT } from '../../api/src/domain/as-built/demo-as-built.js';
-import { SAFETY_CAUTIONS } from '../../api/src/domain/packet/packet-cautions.js';
+import { fillCaution, SAFETY_CAUTIONS } from '../../api/src/domain/packet/packet-cautions.js';
 import { LocateViewResponseSchema } from '../../api/src/domain/locate/locate-link.schema.js';
 import { SiteMapSchema } from '../../api/src/domain/locate/site-map.schema.js';
 import { PortalSiteDetailResponseSchema } from '../../api/src/domain/delivery/portal.schema.js';
@@ -131,7 +131,10 @@ describe('locate links, the public locate view and the homeowner portal (a real 
       expect(res.headers['referrer-policy']).toBe('no-referrer');
       const body = LocateViewResponseSchema.parse(res.body);
       expect(body.installer).toEqual({ companyName: company.name, phone: '+1 555 0142', email: 'office@locate.example', licenceNumbers: ['Licence LV-0042 (invented)'] });
-      expect(body.cautions.map((c) => c.title)).toEqual(SAFETY_CAUTIONS.map((c) => c.title));
+      // The packet's caution texts, spelled for the company's locale (en-US by default: "center").
+      expect(body.cautions.map((c) => c.title)).toEqual(SAFETY_CAUTIONS.map((c) => fillCaution(c.title, { zone: '0.5 m', locale: 'en-US' })));
+      expect(body.cautions[0]!.title).toBe('Contact the one-call center before any digging');
+      expect(body.locale).toBe('en-US');
       expect(body.cautions.map((c) => c.body).join(' ')).toContain('0.5 m on either side');
       expect(body.map.runs).toHaveLength(DEMO_AS_BUILT.runs.length);
       expect(body.map.runs.every((r) => r.revisionId === revisionId && r.revision === 1)).toBe(true);

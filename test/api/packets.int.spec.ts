@@ -150,7 +150,7 @@ describe('handover packets (the demo job, rendered in Chromium)', () => {
 
   it('should carry the locate page and the safety cautions', () => {
     const text = pages.join(' ');
-    expect(text).toContain('Before you dig: contact the one-call centre');
+    expect(text).toContain('Before you dig: contact the one-call center');
     expect(text).toContain('One-call locators do not mark the cables of this installation');
     expect(text).toContain('Hand-dig within the tolerance zone');
     expect(text).toContain('Within 0.5 m on either side of a mapped route');

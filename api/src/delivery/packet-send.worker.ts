@@ -98,7 +98,7 @@ export class PacketSendWorker extends QueueWorker {
           isInvited: invitation !== undefined,
           invitationLink: invitation?.link ?? null,
           invitationHours: invitation?.hours ?? null,
-          cautionSummary: locateCautions(context.units ?? 'imperial').summary.replace('this map', 'the packet’s map'),
+          cautionSummary: locateCautions(context.units ?? 'imperial', context.locale).summary.replace('this map', 'the packet’s map'),
         },
       });
       await this.repository.markSent(delivery.id, { messageId, isPdfAttached });

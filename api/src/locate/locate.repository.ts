@@ -154,6 +154,7 @@ export class LocateRepository {
         licenceNumbers: companySettings.licenceNumbers,
         units: companySettings.units,
         paperSize: companySettings.paperSize,
+        locale: companySettings.locale,
       })
       .from(companies)
       .leftJoin(companySettings, eq(companySettings.companyId, companies.id))
@@ -165,6 +166,7 @@ export class LocateRepository {
       licenceNumbers: row?.licenceNumbers ?? [],
       units: row?.units ?? ('imperial' as const),
       paperSize: row?.paperSize ?? ('letter' as const),
+      locale: row?.locale ?? 'en-US',
     };
   }
 

@@ -84,7 +84,7 @@ export class LocateService {
       this.siteMap(link.siteId),
     ]);
     if (!site) throw notValid();
-    const cautions = locateCautions(installer.units);
+    const cautions = locateCautions(installer.units, installer.locale);
     const photos = await this.repository.runPhotos(link.siteId, map.runs.map((r) => r.id));
     const base = `/api/locate/${token}`;
     const view: LocateViewResponse = {
@@ -104,6 +104,7 @@ export class LocateService {
       cautionSummary: cautions.summary,
       toleranceZoneM: TOLERANCE_ZONE_M,
       units: installer.units,
+      locale: installer.locale,
       map,
       runs: map.runs.map((run) => ({
         id: run.id,

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 
 import { parseLengthInput } from '../as-built/length-input.js';
-import { formatInchesEighths, formatLength, lengthEditText } from './length.js';
+import { formatInchesEighths, formatLength, formatToleranceZone, lengthEditText } from './length.js';
 
 // Conversions use the exact 1 ft = 0.3048 m and 1 in = 0.0254 m (international yard and pound agreement,
 // 1959; NIST Special Publication 811, appendix B.8); expected texts worked by hand, e.g.
@@ -62,5 +62,16 @@ describe(lengthEditText.name, () => {
     const back = parseLengthInput(lengthEditText(metres, system, scale), { system, scale });
     expect(back.ok).toBe(true);
     if (back.ok) expect(Math.abs(back.metres - metres)).toBeLessThanOrEqual(0.0254 / 16);
+  });
+});
+
+describe('formatToleranceZone', () => {
+  it('should write the locate tolerance zone as a depth in inches, or in metres rounded up to 0.1 m', () => {
+    // 18 in either side (CGA Best Practice 5-19) = 0.4572 m exactly (1 in = 0.0254 m, NIST SP 811 B.8).
+    expect(formatToleranceZone(0.4572, 'imperial')).toBe('18 in');
+    expect(formatToleranceZone(0.4572, 'metric')).toBe('0.5 m');
+    // Already on a tenth: not pushed up by floating-point noise (CCGA Best Practice 4-18 uses 1 m).
+    expect(formatToleranceZone(1, 'metric')).toBe('1 m');
+    expect(formatToleranceZone(0.6096, 'metric')).toBe('0.7 m');
   });
 });

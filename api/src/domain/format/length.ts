@@ -67,6 +67,15 @@ export function formatDepthLength(m: number, system: LengthSystem): string {
   return `${formatInchesEighths(m / METRES_PER_INCH)} in`;
 }
 
+/**
+ * A safety distance either side of a cable (the locate tolerance zone): imperial as a depth (`18 in`),
+ * metric in metres rounded up to the next 0.1 m (`0.5 m`), so the rounded figure is never the narrower one.
+ */
+export function formatToleranceZone(m: number, system: LengthSystem): string {
+  if (system === 'metric') return `${trimNumber(Math.ceil(m * 10 - 1e-9) / 10, 1)} m`;
+  return formatDepthLength(m, system);
+}
+
 /** Either of the above by scale. */
 export function formatLength(m: number, system: LengthSystem, scale: LengthScale): string {
   return scale === 'long' ? formatGroundLength(m, system) : formatDepthLength(m, system);

@@ -94,6 +94,8 @@ export const LocateViewResponseSchema = z.object({
   cautionSummary: z.string(),
   toleranceZoneM: z.number(),
   units: z.enum(['imperial', 'metric']),
+  /** The company's BCP 47 locale (spelling of the screen's own words: en-US "center", en-GB "centre"). */
+  locale: z.string(),
   map: SiteMapSchema,
   runs: z.array(LocateRunSchema),
   /** null when the site has no GPS origin (the map is in plan coordinates only). */

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 
 import type { LocateViewResponse } from './locate-link.schema.js';
+import { locateCautions } from './locate-cautions.js';
 import { buildLocateSheetViewModel } from './locate-sheet.view-model.js';
 
 const run = (id: string, isShallow: boolean, minDepthM: number | null): LocateViewResponse['runs'][number] => ({
@@ -28,6 +29,7 @@ function view(units: 'imperial' | 'metric', runs: LocateViewResponse['runs']): L
     cautions: [],
     cautionSummary: '',
     toleranceZoneM: 0.457,
+    locale: 'en-US',
     units,
     map: { frame: { northAzimuthDeg: 0, origin: null }, revisions: [], referencePoints: [], siteFeatures: [], items: [], runs: [], geojson: null },
     runs,
@@ -68,5 +70,29 @@ describe('buildLocateSheetViewModel', () => {
     expect(vm.paper.cssSize).toBe('A4');
     expect(vm.toleranceZone).toBe('0.5 m');
     expect(buildLocateSheetViewModel(view('metric', [run('c', false, 0.3)]), 'a4').runs[0]!.minDepth).toBe('30 cm');
+  });
+});
+
+describe('locateCautions', () => {
+  it('should write the tolerance zone as the packet does and spell the words for the company locale (en-US default)', () => {
+    const us = locateCautions('imperial', 'en-US');
+    // 18 in either side of the facility (CGA Best Practice 5-19); metric rounded up to 0.5 m, never narrower than 0.4572 m.
+    expect(us.toleranceZone).toBe('18 in');
+    expect(locateCautions('metric').toleranceZone).toBe('0.5 m');
+    expect(us.summary).toBe(
+      'Before any digging, contact the one-call center (811 in the United States); one-call locators do not mark these private cables, so use this map and hand-dig within 18 in of a mapped route.',
+    );
+    const all = (c: ReturnType<typeof locateCautions>) => [c.summary, ...[...c.locateSteps, ...c.cautions].flatMap((t) => [t.title, t.body])].join('\n');
+    expect(all(us)).not.toMatch(/centre|colour|\{\w+\}/);
+    expect(all(locateCautions('metric', null))).not.toMatch(/centre|colour/);
+    const gb = locateCautions('metric', 'en-GB');
+    expect(gb.summary).toContain('one-call centre');
+    expect(all(gb)).toContain('marking colour');
+    expect(all(gb)).not.toMatch(/center|\bcolor\b/);
+  });
+
+  it('should spell the locate sheet words for the locale', () => {
+    expect(buildLocateSheetViewModel({ ...view('imperial', []), locale: 'en-US' }, 'letter').words).toEqual({ center: 'center', color: 'color' });
+    expect(buildLocateSheetViewModel({ ...view('metric', []), locale: 'en-AU' }, 'a4').words).toEqual({ center: 'centre', color: 'colour' });
   });
 });

@@ -1,4 +1,4 @@
-import { formatDate } from '../format/date-time.js';
+import { formatDate, spell } from '../format/date-time.js';
 import { formatLength } from '../format/length.js';
 import type { CautionText } from '../packet/packet-cautions.js';
 import { locateCautions } from './locate-cautions.js';
@@ -13,6 +13,8 @@ export interface LocateSheetViewModel {
   installer: { companyName: string; phone: string | null; phoneHref: string | null; email: string | null; licences: string[] };
   homeownerNote: string | null;
   toleranceZone: string;
+  /** The sheet's own words spelled for the company's locale (en-US "center", en-GB "centre"). */
+  words: { center: string; color: string };
   runs: { label: string; cable: string; method: string; minDepth: string; maxDepth: string; isShallow: boolean; note: string }[];
   noRunsText: string | null;
   locateSteps: CautionText[];
@@ -56,6 +58,7 @@ export function buildLocateSheetViewModel(view: LocateViewResponse, paper: 'lett
     homeownerNote: view.link.note,
     // As the packet and the cautions below write it (18 in, or 0.5 m).
     toleranceZone: locateCautions(units).toleranceZone,
+    words: { center: spell('center', view.locale), color: spell('color', view.locale) },
     runs: ordered.map((r) => ({
       label: r.label,
       cable: `${r.cable} ${r.gauge}${r.method === 'direct_burial' ? '' : `, ${METHOD_WORDS[r.method]}`}`.trim(),

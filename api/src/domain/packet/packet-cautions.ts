@@ -23,6 +23,8 @@
  *   proposed excavation. The drawings' palette (drawings/marking-palette.ts) follows the same code.
  */
 
+import { spell } from '../format/date-time.js';
+
 export interface CautionText {
   title: string;
   body: string;
@@ -34,11 +36,14 @@ export const TOLERANCE_ZONE_M = 0.4572;
 /** The one-call number and website in the U.S. (FCC 05-59); elsewhere the local one-call centre applies. */
 export const ONE_CALL_US = { phone: '811', website: 'call811.com' } as const;
 
-/** Safety cautions, in print order. `{zone}` is replaced with the tolerance zone in the packet's units. */
+/**
+ * Safety cautions, in print order. Placeholders, filled by {@link fillCaution}: `{zone}` is the tolerance
+ * zone in the reader's units, `{center}` and `{color}` the words as the reader's locale spells them.
+ */
 export const SAFETY_CAUTIONS: readonly CautionText[] = [
   {
-    title: 'Contact the one-call centre before any digging',
-    body: 'Before digging, trenching, driving stakes or posts, or planting trees, contact the one-call centre (811 in the United States) so utility owners can mark their lines. Notice periods differ by state and country; allow the full period.',
+    title: 'Contact the one-call {center} before any digging',
+    body: 'Before digging, trenching, driving stakes or posts, or planting trees, contact the one-call {center} (811 in the United States) so utility owners can mark their lines. Notice periods differ by state and country; allow the full period.',
   },
   {
     title: 'One-call services do not mark private lines',
@@ -66,11 +71,11 @@ export const SAFETY_CAUTIONS: readonly CautionText[] = [
   },
 ];
 
-/** The locate-before-digging page: short steps, in print order. */
+/** The locate-before-digging page: short steps, in print order (placeholders as in SAFETY_CAUTIONS). */
 export const LOCATE_STEPS: readonly CautionText[] = [
   {
-    title: 'Contact the one-call centre first',
-    body: 'Call 811 (United States) or the local one-call centre a few working days before you dig. Utility owners will mark public lines with paint or flags.',
+    title: 'Contact the one-call {center} first',
+    body: 'Call 811 (United States) or the local one-call {center} a few working days before you dig. Utility owners will mark public lines with paint or flags.',
   },
   {
     title: 'Then use this packet for the private cables',
@@ -78,7 +83,7 @@ export const LOCATE_STEPS: readonly CautionText[] = [
   },
   {
     title: 'Mark the routes on the ground',
-    body: 'Measure from the reference points using the ties on the plan, and mark each cable route with orange paint or flags (orange is the marking colour for signal and communication cable) before any digging starts.',
+    body: 'Measure from the reference points using the ties on the plan, and mark each cable route with orange paint or flags (orange is the marking {color} for signal and communication cable) before any digging starts.',
   },
   {
     title: 'Outline the dig area in white',
@@ -89,3 +94,21 @@ export const LOCATE_STEPS: readonly CautionText[] = [
     body: 'Inside the tolerance zone of {zone} on each side of a marked route, dig by hand until the cable is exposed. If a cable is damaged, stop and call the installer.',
   },
 ];
+
+/** A caution's placeholders filled in: the tolerance zone as written for the reader, words spelled for the locale (en-US default). */
+export function fillCaution(text: string, fill: { zone: string; locale?: string | null }): string {
+  return text
+    .replaceAll('{zone}', fill.zone)
+    .replaceAll('{center}', spell('center', fill.locale))
+    .replaceAll('{color}', spell('color', fill.locale));
+}
+
+/** Both texts of a caution filled in (see {@link fillCaution}). */
+export function filledCaution(caution: CautionText, fill: { zone: string; locale?: string | null }): CautionText {
+  return { title: fillCaution(caution.title, fill), body: fillCaution(caution.body, fill) };
+}
+
+/** The packet's "Before you dig" call-out heading, spelled for the locale. */
+export function beforeYouDigHeading(locale?: string | null): string {
+  return `Before you dig: contact the one-call ${spell('center', locale)}`;
+}

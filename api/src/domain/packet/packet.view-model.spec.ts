@@ -124,9 +124,22 @@ describe(buildPacketViewModel.name, () => {
     expect(vm.cautions[2]!.body).toContain('Within 0.5 m on either side');
   });
 
+  it('should spell the cautions and locate page for the company locale: en-US by default, Commonwealth spelling for en-GB', () => {
+    const words = (vm: ReturnType<typeof sut>) =>
+      [vm.locate.heading, ...vm.locate.steps.flatMap((c) => [c.title, c.body]), ...vm.cautions.flatMap((c) => [c.title, c.body])].join('\n');
+    const us = words(sut());
+    expect(sut().locate.heading).toBe('Before you dig: contact the one-call center');
+    expect(us).toContain('marking color');
+    expect(us).not.toMatch(/centre|colour|\{\w+\}/);
+    const gb = buildPacketViewModel({ snapshot: demoPacketSnapshot({ settings: { locale: 'en-GB' } }), locateUrl });
+    expect(gb.locate.heading).toBe('Before you dig: contact the one-call centre');
+    expect(words(gb)).toContain('marking colour');
+    expect(words(gb)).not.toMatch(/center|\bcolor\b|\{\w+\}/);
+  });
+
   it('should carry every caution PRODUCT.md asks for, with the tolerance zone filled in', () => {
     const text = sut().cautions.map((c) => `${c.title}. ${c.body}`).join('\n');
-    expect(text).toContain('one-call centre');
+    expect(text).toContain('one-call center');
     expect(text).toContain('do not mark private lines');
     expect(text).toContain('Within 18 in on either side of a mapped route');
     expect(text).toContain('Depths are as installed');

@@ -3,9 +3,9 @@ import { findingScope, findingScopeText } from '../analysis/finding-scope.js';
 import type { Item, ItemKind } from '../as-built/item.schema.js';
 import type { InstallMethod } from '../as-built/run.schema.js';
 import { type FindingAcknowledgement, findingKey, homeownerException } from './known-exceptions.js';
-import { LOCATE_STEPS, ONE_CALL_US, SAFETY_CAUTIONS, TOLERANCE_ZONE_M } from './packet-cautions.js';
+import { beforeYouDigHeading, filledCaution, LOCATE_STEPS, ONE_CALL_US, SAFETY_CAUTIONS, TOLERANCE_ZONE_M } from './packet-cautions.js';
 import { type DateStyle, formatDate, formatDateTime } from '../format/date-time.js';
-import { formatDepthLength, formatGroundLength, formatRuleDepth, trimNumber } from '../format/length.js';
+import { formatDepthLength, formatGroundLength, formatRuleDepth, formatToleranceZone, trimNumber } from '../format/length.js';
 import { formatConductor, formatDecibels, formatResistance, formatWatts } from '../format/quantity.js';
 import type { PacketPhoto, PacketSignature, PacketSnapshot, PacketUnits } from './packet-snapshot.js';
 import { type WhatChangedView, whatChangedView } from './what-changed.js';
@@ -143,7 +143,8 @@ export interface PacketViewModel {
     hasRows: boolean;
     deviationCount: string;
   };
-  locate: { steps: TextPair[]; toleranceZone: string; oneCall: string; installerContact: string[]; privateNote: string };
+  /** `heading`: the "Before you dig" call-out, spelled for the locale. */
+  locate: { heading: string; steps: TextPair[]; toleranceZone: string; oneCall: string; installerContact: string[]; privateNote: string };
   cautions: TextPair[];
   care: TextPair[];
   photos: { caption: string; takenAt: string; dataUri: string }[];
@@ -288,8 +289,9 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
     if (item.kind === 'amplifier') for (const channel of item.channels) channelNames.set(channel.id, `${channel.name} (${item.label})`);
   }
   // CGA's 18 in, written as the trade states it in each system (0.46 m rounds to the usual 0.5 m).
-  const toleranceZone = units === 'imperial' ? '18 in' : `${trimNumber(Math.ceil(TOLERANCE_ZONE_M * 10) / 10, 1)} m`;
-  const fillZone = (text: string) => text.replaceAll('{zone}', toleranceZone);
+  const toleranceZone = formatToleranceZone(TOLERANCE_ZONE_M, units);
+  // The zone in the packet's units, and words spelled for the company's locale (en-US "center" by default).
+  const cautionFill = { zone: toleranceZone, locale: settings.locale ?? null };
 
   const revisionLabel = `Revision ${snapshot.revision}`;
   // Dates in the company's time zone and locale (an evening issue in the Americas prints that day).
@@ -596,13 +598,14 @@ export function buildPacketViewModel(input: PacketViewModelInput): PacketViewMod
       };
     })(),
     locate: {
-      steps: LOCATE_STEPS.map((s) => ({ title: s.title, body: fillZone(s.body) })),
+      heading: beforeYouDigHeading(settings.locale ?? null),
+      steps: LOCATE_STEPS.map((s) => filledCaution(s, cautionFill)),
       toleranceZone,
       oneCall: `${ONE_CALL_US.phone} · ${ONE_CALL_US.website}`,
       installerContact: installerContact(snapshot),
       privateNote: 'One-call locators do not mark the cables of this installation: they are private lines.',
     },
-    cautions: SAFETY_CAUTIONS.map((c) => ({ title: c.title, body: fillZone(c.body) })),
+    cautions: SAFETY_CAUTIONS.map((c) => filledCaution(c, cautionFill)),
     care: [...CARE_AND_MAINTENANCE],
     photos: photos.map((p) => ({ caption: p.caption, takenAt: p.takenAt ? formatDateTime(p.takenAt, dates) : '', dataUri: p.dataUri })),
     hasPhotos: photos.length > 0,

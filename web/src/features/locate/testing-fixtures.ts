@@ -63,6 +63,7 @@ export function buildLocateView(token = 'tok'): LocateViewResponse {
     cautionSummary: 'Before any digging, contact the one-call centre (811 in the United States).',
     toleranceZoneM: 0.457,
     units: 'imperial',
+    locale: 'en-US',
     map: buildSiteMap(),
     runs: [
       {

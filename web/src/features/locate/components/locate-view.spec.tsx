@@ -37,6 +37,21 @@ describe('Locate view', () => {
     expect(new Headers(init?.headers).has('Authorization')).toBe(false);
   }, 60_000);
 
+  it('should write the caution box with the shared formatter and the company spelling: a metric en-GB company reads 0.5 m and centre', async () => {
+    mockApi({ 'GET /api/locate/tok': () => jsonResponse({ ...buildLocateView('tok'), units: 'metric', locale: 'en-GB' }) });
+    renderApp({ url: '/locate/tok', signedInAs: null });
+    expect(await screen.findByRole('heading', { name: 'Before you dig' }, { timeout: 15_000 })).toBeInTheDocument();
+    // As the packet and locate sheet print it (rounded up to 0.1 m), not the raw 45.7 cm.
+    expect(screen.getByText('Hand-dig within 0.5 m of any line on this map.')).toBeInTheDocument();
+    expect(screen.getByText('Call the one-call centre (811 in the United States) before any digging.')).toBeInTheDocument();
+  }, 60_000);
+
+  it('should spell center for an en-US company', async () => {
+    mockApi({ 'GET /api/locate/tok': () => jsonResponse(buildLocateView('tok')) });
+    renderApp({ url: '/locate/tok', signedInAs: null });
+    expect(await screen.findByText('Call the one-call center (811 in the United States) before any digging.', undefined, { timeout: 15_000 })).toBeInTheDocument();
+  }, 60_000);
+
   it('should list shallow runs first with the rule, toggle the ties and list what to measure from', async () => {
     const view = buildLocateView('tok');
     const second = { ...view.runs[0]!, id: 'run-2', label: 'Run B', minDepthM: 0.1016, maxDepthM: 0.2, minCoverM: 0.1524, isShallow: true, photos: [] };

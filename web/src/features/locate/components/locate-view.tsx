@@ -5,7 +5,8 @@ import { useLocation } from 'react-router';
 
 import { InstallerCard } from '../../../components/installer-card';
 import { formatDate } from '../../../lib/format-date';
-import { formatDate as formatWorkDate } from '@domain/format/date-time';
+import { formatDate as formatWorkDate, spell } from '@domain/format/date-time';
+import { formatToleranceZone } from '@domain/format/length';
 import { formatLength } from '../../../lib/units';
 import type { LocateViewResponse } from '../api/get-locate-view';
 
@@ -93,7 +94,8 @@ const METHOD_LABELS: Record<LocateViewResponse['runs'][number]['method'], string
 
 function Cautions({ view }: { view: LocateViewResponse }) {
   const styles = useStyles();
-  const zone = formatLength(view.toleranceZoneM, view.units, 'short');
+  // Written as the packet and the locate sheet write it (the shared formatter): 18 in, or 0.5 m.
+  const zone = formatToleranceZone(view.toleranceZoneM, view.units);
   return (
     <section className={styles.cautions} aria-labelledby="locate-cautions" role="region">
       <Text as="h2" id="locate-cautions" size={500} weight="bold" className={styles.cautionTitle}>
@@ -102,7 +104,7 @@ function Cautions({ view }: { view: LocateViewResponse }) {
       </Text>
       <ul className={styles.cautionList}>
         <li>
-          <Text weight="semibold">Call the one-call centre (811 in the United States) before any digging.</Text>
+          <Text weight="semibold">Call the one-call {spell('center', view.locale)} (811 in the United States) before any digging.</Text>
         </li>
         <li>
           <Text weight="semibold">
