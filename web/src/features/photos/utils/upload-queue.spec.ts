@@ -118,6 +118,20 @@ describe(UploadQueue.name, () => {
       expect(versions).toEqual([3, 7]);
     });
 
+    it('should wait and try again, never give up, while the job keeps changing under the upload (issue 17)', async () => {
+      let calls = 0;
+      const ctx = setup(async (upload, version) => {
+        calls += 1;
+        // Six conflicts in a row (offline changes replaying), then the job holds still.
+        if (calls <= 6) throw new ApiError({ status: 412, code: 'VERSION_CONFLICT', message: 'Someone saved first.', currentVersion: version + 1 });
+        return answer(upload, version + 1);
+      });
+      sut = ctx.sut;
+      const [id] = await sut.add(JOB, [photo('trench.jpg')], { target: RUN });
+      await vi.waitFor(() => expect(ctx.statusOf(id!)?.kind).toBe('done'));
+      expect(calls).toBe(7);
+    });
+
     it.each([408, 429, 500, 503])('should retry a %i', async (status) => {
       let calls = 0;
       const ctx = setup(async (upload, version) => {

@@ -43,9 +43,14 @@ export function defaultBackoffMs(attempt: number): number {
   return Math.round(base * (0.85 + Math.random() * 0.3));
 }
 
-/** Statuses worth trying again unchanged: no answer, a timeout, too many requests, or a server error. */
+/**
+ * Statuses worth trying again unchanged: no answer, a timeout, too many requests, a server error, or a
+ * job that kept changing under the upload (the crew's offline changes replaying as the signal returns):
+ * a photo changes nobody's record, so it waits a little and goes on top of whatever version is then.
+ */
 function isTransient(error: unknown): boolean {
   if (!isApiError(error)) return true;
+  if (error.code === 'VERSION_CONFLICT') return true;
   return error.status === 0 || error.status === 408 || error.status === 429 || error.status >= 500;
 }
 
