@@ -3,6 +3,7 @@
 export { getSiteQueryOptions, type SiteResponse } from './api/get-site';
 export { useSites } from './api/get-sites';
 export { useSaveReferencePoint } from './api/save-reference-point';
+export { ReferencePointForm } from './components/reference-points';
 export { useWriteSiteFeature } from './api/save-site-feature';
 export { sendSiteWrite, siteIfMatch, type SiteVersionResponse } from './api/site-write';
 export { useSiteConflict } from './hooks/use-site-conflict';

@@ -1,6 +1,7 @@
 import { Button, Checkbox, Field, Input, MessageBar, MessageBarBody, Select, Text, Textarea } from '@fluentui/react-components';
 import { Add20Regular, Delete20Regular } from '@fluentui/react-icons';
 import { zodResolver } from '@hookform/resolvers/zod';
+import { useQueryClient } from '@tanstack/react-query';
 import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Controller } from 'react-hook-form';
 import { z } from 'zod';
@@ -16,12 +17,13 @@ import { lengthInputValue, parseLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 import { useJobWriter } from '../hooks/job-writer';
 import { fieldDomId } from '../utils/finding-target';
-import { ITEM_KIND_LABELS } from '../../job-record';
+import { getJobAsBuiltQueryOptions, ITEM_KIND_LABELS, type JobAsBuiltResponse } from '../../job-record';
 import { saveErrors } from '../utils/save-errors';
 
 import { FormActions } from './form-actions';
 import { useFormStyles } from '../../../components/form-styles';
 import { LengthInput } from './length-input';
+import { GpsPosition, type GpsFix } from './gps-position';
 import { solveTieDrafts, TiesEditor, type TieDraft } from './ties-editor';
 
 type ItemDraft = {
@@ -35,6 +37,8 @@ type ItemDraft = {
   notes: string;
   ties: TieDraft[];
   sideHint: '' | 'left' | 'right';
+  /** "Use my position": the phone's fix on the plan, stored with source `gps`. */
+  gps: GpsFix | null;
   channels: { id?: string; name: string }[];
   ratedWatts8Ohm: string;
   ratedWatts4Ohm: string;
@@ -83,6 +87,7 @@ function draftOf(item: Item | undefined, kind: ItemKind, units: { length: 'imper
     notes: item?.notes ?? '',
     ties: (item?.ties ?? []).map((tie) => ({ referencePointId: tie.referencePointId, distance: lengthInputValue(tie.distanceM, units.length, 'long') })),
     sideHint: item?.sideHint ?? '',
+    gps: item?.position?.source === 'gps' ? { x: item.position.x, y: item.position.y, accuracyM: item.position.accuracyM ?? 0 } : null,
     channels: a?.channels.map((c) => ({ id: c.id, name: c.name })) ?? [{ name: 'Channel 1' }, { name: 'Channel 2' }],
     ratedWatts8Ohm: str(a?.ratedWatts8Ohm),
     ratedWatts4Ohm: str(a?.ratedWatts4Ohm),
@@ -126,7 +131,12 @@ function bodyOf(draft: ItemDraft, item: Item | undefined, units: { length: 'impe
     installDate: text(draft.installDate),
     warrantyEnd: text(draft.warrantyEnd),
     notes: text(draft.notes),
-    position: item?.position,
+    // A phone fix replaces the recorded position; forgetting one leaves none (ties still place the item).
+    position: draft.gps
+      ? { x: draft.gps.x, y: draft.gps.y, source: 'gps', accuracyM: draft.gps.accuracyM }
+      : item?.position?.source === 'gps'
+        ? undefined
+        : item?.position,
     ties: ties.length > 0 ? ties : undefined,
     sideHint: draft.sideHint || undefined,
   };
@@ -230,6 +240,7 @@ export function ItemForm({ jobId, asBuilt, item, kind, kinds, focusField, onDone
   const notify = useNotify();
   const writer = useJobWriter();
   const [units] = useUnitPreferences();
+  const siteId = useQueryClient().getQueryData<JobAsBuiltResponse>(getJobAsBuiltQueryOptions(jobId).queryKey)?.job.site.id;
   const draftKey = `job:${jobId}:item:${item?.id ?? `new-${kinds.join('-')}`}`;
   const recordId = item?.id ?? 'new-item';
   const schema = useMemo(() => itemFormSchema(units, item), [item, units]);
@@ -237,7 +248,7 @@ export function ItemForm({ jobId, asBuilt, item, kind, kinds, focusField, onDone
   const [message, setMessage] = useState<string | undefined>();
   const formRef = useRef<HTMLFormElement>(null);
   const errors = form.formState.errors;
-  const [currentKind, speakerType, voiceCoils, channels, ties, sideHint, label] = form.watch([
+  const [currentKind, speakerType, voiceCoils, channels, ties, sideHint, label, gps] = form.watch([
     'kind',
     'speakerType',
     'voiceCoils',
@@ -245,6 +256,7 @@ export function ItemForm({ jobId, asBuilt, item, kind, kinds, focusField, onDone
     'ties',
     'sideHint',
     'label',
+    'gps',
   ]);
   /** Composite values (channels, ties) change as a whole; a change is an edit like any other. */
   const change = <K extends keyof ItemDraft>(key: K, value: ItemDraft[K]) =>
@@ -562,9 +574,13 @@ export function ItemForm({ jobId, asBuilt, item, kind, kinds, focusField, onDone
                 change('sideHint', nextSide);
               }}
               error={errorOf('ties') ?? errorOf('sideHint')}
+              siteId={siteId}
             />
           </div>
         )}
+        <div className={styles.wide}>
+          <GpsPosition site={asBuilt.site} fix={gps} onChange={(fix) => change('gps', fix)} />
+        </div>
         <Controller
           control={form.control}
           name="notes"
@@ -593,7 +609,9 @@ export function ItemForm({ jobId, asBuilt, item, kind, kinds, focusField, onDone
         onConfirm={() => void saveAnyway()}
         onCancel={fixTies}
       >
-        {`Cannot place “${label || 'this item'}” from these ties: ${unsolved?.reason ?? ''}. Saved now, it has no position on the plan or the packet until the ties are fixed.`}
+        {`Cannot place “${label || 'this item'}” from these ties: ${unsolved?.reason ?? ''}. ${
+          gps ? 'Saved now, only the phone position places it, which is much weaker than ties.' : 'Saved now, it has no position on the plan or the packet until the ties are fixed.'
+        }`}
       </ConfirmDialog>
     </form>
   );

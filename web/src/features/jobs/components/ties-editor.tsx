@@ -1,10 +1,12 @@
-import { Button, Field, makeStyles, Radio, RadioGroup, Select, Text, tokens } from '@fluentui/react-components';
-import { Add20Regular, Delete20Regular, Location20Regular } from '@fluentui/react-icons';
+import { Button, Dialog, DialogBody, DialogContent, DialogSurface, DialogTitle, Field, makeStyles, Radio, RadioGroup, Select, Text, tokens } from '@fluentui/react-components';
+import { Add20Regular, Delete20Regular, Location20Regular, Pin20Regular } from '@fluentui/react-icons';
+import { useState } from 'react';
 import type { ReferencePoint } from '@domain/as-built/item.schema';
 import { solvePositionFromTies, type TieObservation, type TieSolution } from '@domain/geometry/ties';
 
 import { formatLength, parseLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
+import { ReferencePointForm } from '../../sites';
 import { fieldDomId } from '../utils/finding-target';
 
 import { useFormStyles } from '../../../components/form-styles';
@@ -41,6 +43,8 @@ type TiesEditorProps = {
   sideHint: '' | 'left' | 'right';
   onChange: (ties: TieDraft[], sideHint: '' | 'left' | 'right') => void;
   error?: string;
+  /** The job's site: with it, a missing reference point can be added from here. */
+  siteId?: string;
 };
 
 /**
@@ -66,10 +70,42 @@ export function solveTieDrafts(
  * Ties from reference points: each a point and a taped distance. Shows at once where they put the item
  * and how well (the same solver the analysis uses), before anything is saved.
  */
-export function TiesEditor({ recordId, referencePoints, ties, sideHint, onChange, error }: TiesEditorProps) {
+export function TiesEditor({ recordId, referencePoints, ties, sideHint, onChange, error, siteId }: TiesEditorProps) {
   const styles = useStyles();
   const formStyles = useFormStyles();
   const [units] = useUnitPreferences();
+  const [isAddingPoint, setIsAddingPoint] = useState(false);
+
+  // The new point's form is a form of its own, shown in a dialog (a portal): its submit must not reach
+  // the item form around this editor through React's event tree.
+  const newPoint = siteId ? (
+    <>
+      <Button className={formStyles.button} icon={<Pin20Regular />} onClick={() => setIsAddingPoint(true)}>
+        New reference point
+      </Button>
+      <Dialog open={isAddingPoint} onOpenChange={(_event, data) => setIsAddingPoint(data.open)}>
+        <DialogSurface onSubmit={(event) => event.stopPropagation()}>
+          <DialogBody>
+            <DialogTitle>New reference point</DialogTitle>
+            <DialogContent>
+              <ReferencePointForm
+                siteId={siteId}
+                onDone={() => setIsAddingPoint(false)}
+                onSaved={(point) => {
+                  // Tape from it at once: it fills the first tie without a point, or a new one.
+                  const empty = ties.findIndex((tie) => tie.referencePointId === '');
+                  onChange(
+                    empty === -1 ? [...ties, { referencePointId: point.id, distance: '' }] : ties.map((tie, i) => (i === empty ? { ...tie, referencePointId: point.id } : tie)),
+                    sideHint,
+                  );
+                }}
+              />
+            </DialogContent>
+          </DialogBody>
+        </DialogSurface>
+      </Dialog>
+    </>
+  ) : null;
 
   const solution = solveTieDrafts(ties, referencePoints, sideHint, units.length);
   const first = referencePoints.find((p) => p.id === ties[0]?.referencePointId)?.label ?? 'the first point';
@@ -80,7 +116,12 @@ export function TiesEditor({ recordId, referencePoints, ties, sideHint, onChange
   const baseline = pointA && pointB && pointA.id !== pointB.id ? Math.hypot(pointB.x - pointA.x, pointB.y - pointA.y) : undefined;
 
   if (referencePoints.length === 0) {
-    return <Text>This site has no reference points yet. Add house corners or posts on the site page, then tape ties from them.</Text>;
+    return (
+      <div className={styles.root}>
+        <Text>This site has no reference points yet. Add a house corner or a post, then tape ties from it.</Text>
+        <div className={formStyles.actions}>{newPoint}</div>
+      </div>
+    );
   }
 
   return (
@@ -123,6 +164,7 @@ export function TiesEditor({ recordId, referencePoints, ties, sideHint, onChange
         <Button className={formStyles.button} icon={<Add20Regular />} onClick={() => onChange([...ties, { referencePointId: '', distance: '' }], sideHint)}>
           Add a tie
         </Button>
+        {newPoint}
       </div>
       {ties.length >= 2 && (
         <Field label={`Standing at ${first} and looking at ${second}, the item is on the`} id={fieldDomId(recordId, 'sideHint')}>

@@ -101,7 +101,7 @@ export function ReferencePoints({ siteId, points, canEdit }: { siteId: string; p
         {points.map((point) =>
           editing === point.id ? (
             <li key={point.id}>
-              <PointForm siteId={siteId} point={point} onDone={() => setEditing(undefined)} />
+              <ReferencePointForm siteId={siteId} point={point} onDone={() => setEditing(undefined)} />
             </li>
           ) : (
             <li key={point.id} className={styles.row}>
@@ -127,7 +127,7 @@ export function ReferencePoints({ siteId, points, canEdit }: { siteId: string; p
       </ul>
       {canEdit &&
         (editing === 'new' ? (
-          <PointForm siteId={siteId} onDone={() => setEditing(undefined)} />
+          <ReferencePointForm siteId={siteId} onDone={() => setEditing(undefined)} />
         ) : (
           <div>
             <Button className={styles.control} icon={<Add20Regular />} onClick={() => setEditing('new')}>
@@ -158,7 +158,22 @@ export function ReferencePoints({ siteId, points, canEdit }: { siteId: string; p
   );
 }
 
-function PointForm({ siteId, point, onDone }: { siteId: string; point?: ReferencePointResponse; onDone: () => void }) {
+/**
+ * Adds or changes one reference point of a site (name, metres east and north of the plan origin, typed in
+ * the person's units). Also opened from a job's ties, so a point can be added where it is needed.
+ */
+export function ReferencePointForm({
+  siteId,
+  point,
+  onDone,
+  onSaved,
+}: {
+  siteId: string;
+  point?: ReferencePointResponse;
+  onDone: () => void;
+  /** The point as stored (a new one with its id). */
+  onSaved?: (point: ReferencePointResponse) => void;
+}) {
   const styles = useStyles();
   const notify = useNotify();
   const save = useSaveReferencePoint();
@@ -186,8 +201,9 @@ function PointForm({ siteId, point, onDone }: { siteId: string; point?: Referenc
     save.mutate(
       { siteId, pointId: point?.id, input: parsed.data },
       {
-        onSuccess: () => {
+        onSuccess: (saved) => {
           notify.success(point ? 'Reference point saved' : 'Reference point added', parsed.data.label);
+          onSaved?.(saved);
           onDone();
         },
         onError: (error) => {
