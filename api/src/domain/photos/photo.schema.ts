@@ -130,3 +130,4 @@ export const PhotoListQuerySchema = z.object({ includeDeleted: z.enum(['true', '
 
 /** A photo write (caption, target, delete, restore) answers the photo and the job's new version. */
 export const PhotoWriteResponseSchema = z.object({ photo: PhotoResponseSchema, jobVersion: z.number().int() });
+export type PhotoWriteResponse = z.infer<typeof PhotoWriteResponseSchema>;

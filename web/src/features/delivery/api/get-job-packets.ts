@@ -1,27 +1,13 @@
+import type { PacketRevisionResponse } from '@domain/packet/packet-revision.schema';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 
 import { apiRequest } from '../../../lib/api-client';
 
 import { responseOf } from '../../../lib/response';
 
-export type PacketStatus = 'queued' | 'rendering' | 'ready' | 'failed';
-
-/** One issued revision of the handover packet and its render status (`GET /api/jobs/:jobId/packets`). */
-export interface PacketRevision {
-  id: string;
-  jobId: string;
-  revision: number;
-  status: PacketStatus;
-  failureReason: string | null;
-  attempts: number;
-  paperSize: 'letter' | 'a4';
-  pageCount: number | null;
-  pdf: { bytes: number; sha256: string; url: string } | null;
-  archive: { bytes: number; sha256: string; url: string } | null;
-  issuedByUserId: string | null;
-  issuedAt: string;
-  renderedAt: string | null;
-}
+/** One issued revision of the handover packet and its render status (`GET /api/jobs/:jobId/packets`): the API's contract. */
+export type PacketRevision = PacketRevisionResponse;
+export type PacketStatus = PacketRevisionResponse['status'];
 
 /** How often the list is asked again while a revision is queued or rendering. */
 export const PACKET_POLL_MS = 2_000;

@@ -1,14 +1,12 @@
+import type { IssuePacketResponse, IssueWarning } from '@domain/packet/packet-revision.schema';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 
 import { apiRequest } from '../../../lib/api-client';
 
-import type { PacketRevision } from '../../delivery';
 import { responseOf } from '../../../lib/response';
 
-/** Something the office should know about the issued packet (e.g. no contact phone in the company profile); it is issued all the same. */
-export type IssueWarning = { code: string; message: string };
-
-export type IssuePacketResponse = PacketRevision & { jobVersion: number; warnings?: IssueWarning[] };
+/** The issued revision, the job's new version and warnings about the packet (the API's contract). */
+export type { IssuePacketResponse, IssueWarning };
 
 /** An open finding the office acknowledges at issue (`path` joined with dots); it prints as a known exception. */
 export type FindingAcknowledgement = { code: string; path: string; reason: string };

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { PhotoResponse, PhotoTarget } from '@domain/photos/photo.schema';
+import type { PhotoTarget, PhotoWriteResponse } from '@domain/photos/photo.schema';
 
 import { apiRequest, isApiError } from '../../../lib/api-client';
 import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../../job-record';
@@ -14,24 +14,22 @@ export type PhotoChange =
   | { kind: 'delete'; photoId: string }
   | { kind: 'restore'; photoId: string };
 
-type PhotoChangeResponse = { photo: PhotoResponse; jobVersion: number };
-
-function requestOf(change: PhotoChange, version: number): Promise<PhotoChangeResponse> {
+function requestOf(change: PhotoChange, version: number): Promise<PhotoWriteResponse> {
   const id = encodeURIComponent(change.photoId);
   const headers = { 'If-Match': `"${version}"` };
   if (change.kind === 'update') {
     const { caption, target } = change;
-    return apiRequest(`/api/photos/${id}`, responseOf<PhotoChangeResponse>(), { method: 'PATCH', headers, body: { caption, target } });
+    return apiRequest(`/api/photos/${id}`, responseOf<PhotoWriteResponse>(), { method: 'PATCH', headers, body: { caption, target } });
   }
-  if (change.kind === 'delete') return apiRequest(`/api/photos/${id}`, responseOf<PhotoChangeResponse>(), { method: 'DELETE', headers });
-  return apiRequest(`/api/photos/${id}/restore`, responseOf<PhotoChangeResponse>(), { method: 'POST', headers });
+  if (change.kind === 'delete') return apiRequest(`/api/photos/${id}`, responseOf<PhotoWriteResponse>(), { method: 'DELETE', headers });
+  return apiRequest(`/api/photos/${id}/restore`, responseOf<PhotoWriteResponse>(), { method: 'POST', headers });
 }
 
 /**
  * Sends `change` on top of `version`. A change touches that one photo only and nobody else's record,
  * so on a version conflict it is sent again once on the job's new version instead of asking the crew.
  */
-export async function changePhoto(change: PhotoChange, version: number): Promise<PhotoChangeResponse> {
+export async function changePhoto(change: PhotoChange, version: number): Promise<PhotoWriteResponse> {
   try {
     return await requestOf(change, version);
   } catch (error) {
