@@ -19,8 +19,7 @@ import type { SiteResponse } from '../../sites';
 import { useSiteConflict } from '../../sites';
 import { usePlanImageUrl } from '../api/get-plan-image';
 import { planImageOf } from '../api/site-plan-image';
-import { useUpdateSitePlan } from '../api/update-site-plan';
-import { useUploadPlanImage } from '../api/upload-plan-image';
+import { useCalibrationTool } from '../hooks/use-calibration-tool';
 import { useFeatureTool } from '../hooks/use-feature-tool';
 import { useNorthTool } from '../hooks/use-north-tool';
 import { useReferenceTool } from '../hooks/use-reference-tool';
@@ -91,8 +90,6 @@ const useStyles = makeStyles({
   },
 });
 
-type CalibrationDraft = { a?: ImagePoint; b?: ImagePoint; distance: string };
-
 type PlanEditorProps = { data: JobAsBuiltResponse; site: SiteResponse; actor: { id: string; role: Role } };
 
 /** Tap targets are 44 px across; a tap this close to an item or reference point lands on it. */
@@ -155,22 +152,8 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
   });
   const solution = tiesItemId ? solveTies(tiesDraft.value.ties, tiesDraft.value.sideHint, asBuilt.referencePoints, units.length) : undefined;
 
-  // Calibration and north. The picked points and the distance are kept on the device until saved,
-  // like the job forms' drafts.
-  const calibrationDraft = usePersistedDraft<CalibrationDraft>(`job:${job.id}:plan-calibration`, { distance: '' });
-  const [calibrationError, setCalibrationError] = useState<string | undefined>();
-  const calibration: CalibrationDraft & { error?: string } = { ...calibrationDraft.value, error: calibrationError };
-  const setCalibration = (next: (CalibrationDraft & { error?: string }) | ((current: CalibrationDraft & { error?: string }) => CalibrationDraft & { error?: string })) => {
-    const { error, ...value } = typeof next === 'function' ? next(calibration) : next;
-    setCalibrationError(error);
-    if (value.a === undefined && value.b === undefined && value.distance === '') calibrationDraft.clear();
-    else calibrationDraft.setValue(value);
-  };
-
   // Landmarks (site features): a draft of the one being drawn or changed.
   const siteFeatures = asBuilt.site?.features ?? [];
-  const uploadImage = useUploadPlanImage();
-  const updateSite = useUpdateSitePlan();
   // Site writes name the site's version: "someone changed this site first" asks as job writes do.
   const siteConflict = useSiteConflict();
   const north = useNorthTool({ site, siteConflict });
@@ -180,6 +163,8 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
   const planImage = planImageOf(site);
   const { href: imageHref, isError: isImageError } = usePlanImageUrl(planImage);
   const placement = planImage ? (site.planCalibration ? placementOf(site.planCalibration) : provisionalPlacement(planImage.widthPx)) : undefined;
+  const calibrate = useCalibrationTool({ jobId: job.id, site, planImage, placement, canCalibrate: canSite, canUpload, siteConflict });
+  const { calibration } = calibrate;
 
   const positions = positionsOf(analysis);
   const flagged = itemsWithPositionFindings(analysis);
@@ -189,7 +174,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
     setToolState(next);
     setTapNotice(undefined);
     setSelectedVertex(undefined);
-    setCalibrationError(undefined);
+    calibrate.clearError();
   };
 
   const startRoute = (runId: string) => {
@@ -360,48 +345,6 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
     );
   };
 
-  const saveCalibration = (): void => {
-    const { a, b } = calibration;
-    if (!a || !b) return;
-    const distance = parseLength(calibration.distance, units.length, 'long');
-    if (!distance.ok || !(distance.metres > 0)) {
-      setCalibration((current) => ({ ...current, error: distance.ok ? 'The distance must be more than zero.' : distance.message }));
-      return;
-    }
-    const px = (p: ImagePoint) => ({ x: Math.round(p.x * 10) / 10, y: Math.round(p.y * 10) / 10 });
-    updateSite.mutate(
-      { siteId: site.id, change: { planCalibration: { a: px(a), b: px(b), distanceM: distance.metres } } },
-      {
-        onSuccess: () => {
-          setCalibration({ distance: '' });
-          notify.success('Scale saved', `A to B is ${formatLong(distance.metres)}.`);
-        },
-        onError: (error) => {
-          if (siteConflict.handle(error, 'the plan’s scale', saveCalibration)) return;
-          setCalibration((current) => ({ ...current, error: describeRequestError(error) }));
-        },
-      },
-    );
-  };
-
-  const upload = (file: File): void => {
-    uploadImage.mutate(
-      { siteId: site.id, file },
-      {
-        onSuccess: () => {
-          setCalibration({ distance: '' });
-          notify.success(
-            'Plan image uploaded',
-            canSite ? 'Now tap two points on it and give the distance between them.' : 'The office sets its scale; until then it is shown at a rough size.',
-          );
-        },
-        onError: (error) => {
-          if (!siteConflict.handle(error, 'the plan image', () => upload(file))) notify.error('Could not upload the image', describeRequestError(error));
-        },
-      },
-    );
-  };
-
   // ---- Taps and drags ------------------------------------------------------------------------
   // Points snap to items, reference points and the corners of other landmarks.
   const snapTargets = [
@@ -457,16 +400,9 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
         }
         return;
       }
-      case 'calibrate': {
-        if (!planImage || !placement || !canSite) return;
-        const px = planToImage(point, placement);
-        if (px.x < 0 || px.y < 0 || px.x > planImage.widthPx || px.y > planImage.heightPx) {
-          setTapNotice('That tap was off the image: both calibration points must be on the plan image.');
-          return;
-        }
-        setCalibration((current) => (current.a && !current.b ? { ...current, b: px, error: undefined } : { distance: current.distance, a: px, b: undefined }));
+      case 'calibrate':
+        setTapNotice(calibrate.tap(point));
         return;
-      }
       case 'north':
         return;
     }
@@ -503,11 +439,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
         if (!tiesItemId) return 'Choose the item to place, or tap it on the plan.';
         return 'Tap a reference point to tie from it, then type the taped distance.';
       case 'calibrate':
-        if (!planImage) return 'Upload the site-plan image first.';
-        if (!canSite) return site.planCalibration ? 'The image is to scale.' : 'The office sets the image’s scale: two points on it and the distance between them.';
-        if (!calibration.a) return 'Tap point A on the image: a corner or mark you can measure to.';
-        if (!calibration.b) return 'Now tap point B on the image, as far from A as you can.';
-        return 'Type the real distance between A and B, then save.';
+        return calibrate.hint;
       case 'north':
         return 'Drag the north arrow round, or type the bearing of the plan’s top, then save.';
     }
@@ -580,24 +512,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
           />
         );
       case 'calibrate':
-        return (
-          <CalibratePanel
-            hasImage={planImage !== null}
-            canCalibrate={canSite}
-            canUpload={canUpload}
-            isCalibrated={site.planCalibration !== null}
-            a={calibration.a}
-            b={calibration.b}
-            distance={calibration.distance}
-            onDistanceChange={(distance) => setCalibration((current) => ({ ...current, distance, error: undefined }))}
-            distanceError={calibration.error}
-            isUploading={uploadImage.isPending}
-            isSaving={updateSite.isPending}
-            onUpload={upload}
-            onPickAgain={() => setCalibration({ distance: calibration.distance })}
-            onSave={saveCalibration}
-          />
-        );
+        return <CalibratePanel {...calibrate.panel} />;
       case 'feature':
         return <FeaturePanel {...feature.panel} />;
       case 'north':
