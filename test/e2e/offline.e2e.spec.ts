@@ -124,6 +124,15 @@ describe('a crew lead records with no signal (issue 17)', () => {
     const { context, page } = await openJobOnPhone(jobId, title);
     const errors: string[] = [];
     page.on('pageerror', (error) => errors.push(error.message));
+    // Writes the server refused, apart from the expected: 401 (the session kept offline is refreshed and
+    // the request sent again) and a photo's 412 (sent again on top while the changes replay).
+    const refused: string[] = [];
+    page.on('response', (response) => {
+      const path = new URL(response.url()).pathname;
+      const status = response.status();
+      if (!path.startsWith('/api/jobs/') || status < 400 || status === 401 || (status === 412 && path.endsWith('/photos'))) return;
+      refused.push(`${response.request().method()} ${path} ${status}`);
+    });
     const before = (await office.expectOk('get', `/api/jobs/${jobId}`)).version as number;
 
     // No signal; the page reloads from the service worker, the job from the kept cache.
@@ -147,6 +156,21 @@ describe('a crew lead records with no signal (issue 17)', () => {
     await itemForm.getByRole('button', { name: 'Add', exact: true }).click();
     await page.getByText('Waiting to send (1)').first().waitFor();
 
+    // A run from the amplifier to that speaker, which the server has not seen yet: the speaker is there
+    // to choose under the id this phone gave it.
+    await page.getByRole('tab', { name: /^Runs/ }).click();
+    await page.getByRole('button', { name: 'Add run' }).first().click();
+    const runForm = page.getByRole('form', { name: 'New run' });
+    await runForm.getByLabel(/^Name/).fill('Lawn run');
+    await runForm.getByLabel(/^From/).selectOption({ label: 'Garage amp (amplifier)' });
+    await runForm.getByLabel(/^To/).selectOption({ label: 'Lawn speaker L1 (speaker)' });
+    await runForm.getByLabel(/^Cable type/).fill('14/2 direct burial');
+    await runForm.getByLabel(/^Gauge/).fill('14');
+    await runForm.getByLabel(/^Measured length/).fill(`40'`);
+    await runForm.getByLabel('Pair 1 carries').selectOption({ index: 1 });
+    await runForm.getByRole('button', { name: 'Add run' }).click();
+    await page.getByText('Waiting to send (2)').first().waitFor();
+
     // Three depth readings on the trunk, typed as feet-inches.
     await page.goto(`${baseUrl}/jobs/${jobId}?section=runs`).catch(() => undefined);
     const run = page.getByRole('listitem', { name: 'Run Patio trunk' });
@@ -157,7 +181,7 @@ describe('a crew lead records with no signal (issue 17)', () => {
       await run.getByRole('button', { name: 'Save reading' }).click();
       await expect.poll(() => run.getByLabel('Station (from the start)').inputValue()).toBe('');
     }
-    await page.getByText('Waiting to send (4)').first().waitFor();
+    await page.getByText('Waiting to send (5)').first().waitFor();
 
     // A check of the channel.
     await page.goto(`${baseUrl}/jobs/${jobId}?section=checks`).catch(() => undefined);
@@ -166,7 +190,7 @@ describe('a crew lead records with no signal (issue 17)', () => {
     await check.getByLabel(/^Channel/).selectOption({ index: 1 });
     await check.getByLabel(/^Reading/).fill('7.4');
     await check.getByRole('button', { name: 'Save check' }).click();
-    await page.getByText('Waiting to send (5)').first().waitFor();
+    await page.getByText('Waiting to send (6)').first().waitFor();
 
     // A photo of the open trench: kept in IndexedDB, counted with the changes.
     await page.goto(`${baseUrl}/jobs/${jobId}?section=photos`).catch(() => undefined);
@@ -174,12 +198,12 @@ describe('a crew lead records with no signal (issue 17)', () => {
     const photoDialog = page.getByRole('dialog', { name: 'Add photos' });
     await photoDialog.getByLabel('Choose photos from the library').setInputFiles(photoPath);
     await photoDialog.waitFor({ state: 'detached' });
-    await page.getByText('Waiting to send (6)').first().waitFor();
+    await page.getByText('Waiting to send (7)').first().waitFor();
 
     // The lead moves on to Today; nothing reached the server yet.
     await page.goto(`${baseUrl}/`).catch(() => undefined);
     await page.getByRole('heading', { name: 'Today' }).waitFor();
-    await page.getByText('Waiting to send (6)').first().waitFor();
+    await page.getByText('Waiting to send (7)').first().waitFor();
     expect((await office.expectOk('get', `/api/jobs/${jobId}`)).version).toBe(before);
 
     // Signal again, still on Today: everything goes out from there, once, in the order it was recorded.
@@ -187,12 +211,15 @@ describe('a crew lead records with no signal (issue 17)', () => {
     await expect.poll(() => page.getByText(/Waiting to send/).count(), { timeout: 30_000 }).toBe(0);
     expect(new URL(page.url()).pathname, 'sent from the page the lead was on').toBe('/');
     const { asBuilt, job } = await office.expectOk('get', `/api/jobs/${jobId}/as-built`);
-    expect(job.version, 'five changes and one photo').toBe(before + 6);
+    expect(refused, 'no write refused').toEqual([]);
+    expect(job.version, 'six changes and one photo').toBe(before + 7);
     const photos = await office.expectOk('get', `/api/jobs/${jobId}/photos`);
     expect(photos.items.map((photo: { original: { name: string } }) => photo.original.name)).toEqual(['trench-open.jpg']);
     const speakers = (asBuilt.items as { label: string; position: unknown }[]).filter((item) => item.label === 'Lawn speaker L1');
     expect(speakers).toHaveLength(1);
     expect(speakers[0]!.position, 'the ties solved on the server too').not.toBeNull();
+    const lawnRun = (asBuilt.runs as { label: string; toItemId: string }[]).filter((r) => r.label === 'Lawn run');
+    expect(lawnRun.map((r) => r.toItemId), 'the run ends at the speaker under the id the server gave it').toEqual([(speakers[0] as unknown as { id: string }).id]);
     const readings = (asBuilt.runs as { label: string; depthReadings: { stationM: number; depthM: number }[] }[]).find((r) => r.label === 'Patio trunk')!.depthReadings;
     // 6' 6" = 1.9812 m, 19' 8" = 5.9944 m, 32' 10" = 10.0076 m; 1' 6" = 0.4572 m, 18" = 0.4572 m, 1' 8" = 0.508 m
     // (1 ft = 0.3048 m exactly: NIST SP 811, appendix B).
