@@ -1,14 +1,22 @@
-const dateTime = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
-const dateOnly = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium' });
+import { type DateStyle, formatDate as formatDomainDate, formatDateTime as formatDomainDateTime } from '@domain/format/date-time';
 
-/** "12 Mar 2026, 14:05" in the reader's own locale and time zone. */
-export function formatDateTime(iso: string): string {
-  const date = new Date(iso);
-  return Number.isNaN(date.getTime()) ? iso : dateTime.format(date);
+/**
+ * Dates on screens through the domain's one date formatter (the packet, e-mails and CSV use the same),
+ * in the reader's own time zone and locale as the browser reports them: `May 14, 2026` (en-US),
+ * `14 May 2026` (en-GB); date-times with the zone's short name, `May 14, 2026, 5:29 PM CDT`. A calendar
+ * date (`2026-05-14`, a start date) is never shifted by the zone.
+ */
+export function readerDateStyle(): DateStyle {
+  const resolved = new Intl.DateTimeFormat().resolvedOptions();
+  return { timeZone: resolved.timeZone, locale: resolved.locale };
 }
 
-/** "12 Mar 2026". */
-export function formatDate(iso: string): string {
-  const date = new Date(iso);
-  return Number.isNaN(date.getTime()) ? iso : dateOnly.format(date);
+/** `May 14, 2026, 5:29 PM CDT` in the reader's zone and locale (or the style given). */
+export function formatDateTime(iso: string, style: DateStyle = readerDateStyle()): string {
+  return formatDomainDateTime(iso, style);
+}
+
+/** `May 14, 2026` in the reader's zone and locale (or the style given). */
+export function formatDate(iso: string, style: DateStyle = readerDateStyle()): string {
+  return formatDomainDate(iso, style);
 }
