@@ -23,6 +23,7 @@ import { useCalibrationTool } from '../hooks/use-calibration-tool';
 import { useFeatureTool } from '../hooks/use-feature-tool';
 import { useNorthTool } from '../hooks/use-north-tool';
 import { useReferenceTool } from '../hooks/use-reference-tool';
+import { useTiesTool } from '../hooks/use-ties-tool';
 import {
   imageToPlan,
   insertRoutePoint,
@@ -141,16 +142,8 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
   const routeDraft = usePersistedDraft<PlanPoint[]>(routeDraftKey, routeRun?.route ?? []);
   const routePoints = routeRunId ? routeDraft.value : [];
 
-  // Ties tool.
-  const [tiesItemId, setTiesItemId] = useState('');
-  const [tiesError, setTiesError] = useState<string | undefined>();
-  const tiesItem = asBuilt.items.find((item) => item.id === tiesItemId);
-  const tiesDraftKey = `job:${job.id}:plan-ties:${tiesItemId || 'none'}`;
-  const tiesDraft = usePersistedDraft<{ ties: TieDraft[]; sideHint: '' | 'left' | 'right' }>(tiesDraftKey, {
-    ties: tieDraftsOf(tiesItem, (m) => lengthInputValue(m, units.length, 'long')),
-    sideHint: tiesItem?.sideHint ?? '',
-  });
-  const solution = tiesItemId ? solveTies(tiesDraft.value.ties, tiesDraft.value.sideHint, asBuilt.referencePoints, units.length) : undefined;
+  // The ties tool saves through saveJobWrite below (called only after it is defined).
+  const ties = useTiesTool({ jobId: job.id, asBuilt, saveJobWrite: (write, done) => saveJobWrite(write, done) });
 
   // Landmarks (site features): a draft of the one being drawn or changed.
   const siteFeatures = asBuilt.site?.features ?? [];
@@ -185,8 +178,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
     setTool('route');
   };
   const startTies = (itemId: string) => {
-    setTiesItemId(itemId);
-    setTiesError(undefined);
+    ties.start(itemId);
     setTool('ties');
   };
 
@@ -196,7 +188,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
     items: asBuilt.items.flatMap((item) => {
       const p = positions.get(item.id);
       if (!p) return [];
-      const isSelected = (selection?.type === 'item' && selection.id === item.id) || (tool === 'ties' && item.id === tiesItemId);
+      const isSelected = (selection?.type === 'item' && selection.id === item.id) || (tool === 'ties' && item.id === ties.itemId);
       const isDraggable = tool === 'select' && canRecord && (item.ties?.length ?? 0) === 0;
       return [{ id: item.id, kind: item.kind, label: item.label, x: p.x, y: p.y, isSelected, isDraggable, hasFinding: flagged.has(item.id) }];
     }),
@@ -205,7 +197,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
           ...rp,
           isSelected:
             (selection?.type === 'reference' && selection.id === rp.id) ||
-            (tool === 'ties' && tiesDraft.value.ties.some((tie) => tie.referencePointId === rp.id)),
+            (tool === 'ties' && ties.ties.some((tie) => tie.referencePointId === rp.id)),
         }))
       : [],
     ties: layers.references
@@ -255,17 +247,15 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
           ]
         : [],
     solution:
-      tool === 'ties' && solution?.ok ? { x: solution.x, y: solution.y, accuracyM: solution.accuracyM, isWeak: solution.isWeak } : undefined,
+      tool === 'ties' && ties.solution?.ok
+        ? { x: ties.solution.x, y: ties.solution.y, accuracyM: ties.solution.accuracyM, isWeak: ties.solution.isWeak }
+        : undefined,
     showLabels: layers.labels,
     northAzimuthDeg: tool === 'north' ? north.previewDeg : (site.northAzimuthDeg ?? null),
     lengthSystem: units.length,
   };
-  if (tool === 'ties' && solution?.ok && layers.references) {
-    for (const tie of tiesDraft.value.ties) {
-      const rp = asBuilt.referencePoints.find((candidate) => candidate.id === tie.referencePointId);
-      if (rp) model.ties.push({ from: rp, to: { x: solution.x, y: solution.y } });
-    }
-  }
+  if (tool === 'ties' && layers.references) model.ties.push(...ties.tieLines());
+
 
   // ---- Saving --------------------------------------------------------------------------------
   const saveJobWrite = async (write: Parameters<typeof writer.save>[0], done: string) => {
@@ -299,36 +289,6 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
       setRouteMode('edit');
       setSelectedVertex(undefined);
     }
-  };
-
-  const saveTies = async () => {
-    if (!tiesItem || !solution?.ok) return;
-    const ties = tiesDraft.value.ties
-      .filter((tie) => tie.referencePointId !== '' && tie.distance.trim() !== '')
-      .map((tie) => {
-        const distance = parseLength(tie.distance, units.length, 'long');
-        return { referencePointId: tie.referencePointId, distanceM: distance.ok ? distance.metres : Number.NaN };
-      });
-    if (ties.some((tie) => !Number.isFinite(tie.distanceM))) {
-      setTiesError('A distance cannot be read: fix it or remove that tie.');
-      return;
-    }
-    setTiesError(undefined);
-    const p = roundPlanPoint(solution);
-    await saveJobWrite(
-      {
-        endpoint: 'replaceItem',
-        params: { itemId: tiesItem.id },
-        body: itemBodyWith(tiesItem, {
-          ties,
-          sideHint: tiesDraft.value.sideHint || undefined,
-          position: { ...p, source: 'ties', ...(Number.isFinite(solution.accuracyM) ? { accuracyM: Math.min(solution.accuracyM, 10_000) } : {}) },
-        }),
-        draftKey: tiesDraftKey,
-        label: `Position of "${tiesItem.label}"`,
-      },
-      'Position saved',
-    );
   };
 
   const moveItem = async (itemId: string, point: PlanPoint) => {
@@ -386,20 +346,9 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
         } else setSelectedVertex(undefined);
         return;
       }
-      case 'ties': {
-        if (hit?.type === 'item' && tieableOnTap(hit.id)) {
-          startTies(hit.id);
-          return;
-        }
-        if (hit?.type === 'reference' && tiesItemId) {
-          const { ties, sideHint } = tiesDraft.value;
-          if (ties.some((tie) => tie.referencePointId === hit.id)) return;
-          const empty = ties.findIndex((tie) => tie.referencePointId === '');
-          const next = empty >= 0 ? ties.map((tie, i) => (i === empty ? { ...tie, referencePointId: hit.id } : tie)) : [...ties, { referencePointId: hit.id, distance: '' }];
-          tiesDraft.setValue({ ties: next, sideHint });
-        }
+      case 'ties':
+        if (ties.tap(hit) === 'started') setTool('ties');
         return;
-      }
       case 'calibrate':
         setTapNotice(calibrate.tap(point));
         return;
@@ -407,7 +356,6 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
         return;
     }
   };
-  const tieableOnTap = (itemId: string) => asBuilt.items.some((item) => item.id === itemId && item.kind !== 'amplifier');
 
   const handleDragEnd = (hit: PlanHit, point: PlanPoint) => {
     if (hit.type === 'item' && tool === 'select') void moveItem(hit.id, point);
@@ -436,8 +384,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
         }
         return 'Drag a point to move it. Tap the line to add a point. Tap a point to pick it for deleting.';
       case 'ties':
-        if (!tiesItemId) return 'Choose the item to place, or tap it on the plan.';
-        return 'Tap a reference point to tie from it, then type the taped distance.';
+        return ties.hint;
       case 'calibrate':
         return calibrate.hint;
       case 'north':
@@ -495,22 +442,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
           />
         );
       case 'ties':
-        return (
-          <TiesPanel
-            asBuilt={asBuilt}
-            itemId={tiesItemId}
-            onItemChange={startTies}
-            ties={tiesDraft.value.ties}
-            sideHint={tiesDraft.value.sideHint}
-            onChange={(ties, sideHint) => tiesDraft.setValue({ ties, sideHint })}
-            solution={solution}
-            hasDraft={tiesDraft.hasDraft}
-            isSaving={isSaving}
-            error={tiesError}
-            onSave={() => void saveTies()}
-            onDiscard={() => tiesDraft.clear()}
-          />
-        );
+        return <TiesPanel {...ties.panel} onItemChange={startTies} isSaving={isSaving} />;
       case 'calibrate':
         return <CalibratePanel {...calibrate.panel} />;
       case 'feature':
