@@ -1,13 +1,13 @@
 import { Body, Controller, HttpCode, HttpStatus, Post } from '@nestjs/common';
 import { ApiBearerAuth, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
 
+import { ApiContract } from '../common/api-contract.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
-import type { AsBuiltAnalysis } from '../domain/analysis/analyze.js';
 import { type AnalysisRequest, AnalysisRequestSchema } from '../domain/analysis/analysis-request.schema.js';
-import { AnalysisService } from './analysis.service.js';
-import { ApiContract } from '../common/api-contract.decorator.js';
 import { AsBuiltAnalysisSchema } from '../domain/analysis/analysis.schema.js';
+import type { AsBuiltAnalysis } from '../domain/analysis/analyze.js';
+import { AnalysisService } from './analysis.service.js';
 
 @ApiTags('analysis')
 @ApiBearerAuth()

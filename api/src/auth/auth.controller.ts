@@ -2,6 +2,7 @@ import { Body, Controller, Get, HttpCode, HttpStatus, Param, Post, Req, Res, Use
 import { ApiBearerAuth, ApiBody, ApiOperation, ApiTags } from '@nestjs/swagger';
 import type { Request, Response } from 'express';
 
+import { ApiContract, emptyResponse } from '../common/api-contract.decorator.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Public } from '../common/decorators/public.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
@@ -27,7 +28,6 @@ import { AuthService, type ClientMeta, type IssuedSession } from './auth.service
 import { LocalAuthGuard } from './local-auth.guard.js';
 import { clearRefreshCookie, readRefreshCookie, setRefreshCookie } from './refresh-cookie.js';
 import { SignInThrottlerGuard } from './sign-in-throttler.guard.js';
-import { ApiContract, emptyResponse } from '../common/api-contract.decorator.js';
 
 function meta(req: Request): ClientMeta {
   return { ip: req.ip, userAgent: req.get('user-agent') };

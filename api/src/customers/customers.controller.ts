@@ -1,6 +1,7 @@
 import { Body, Controller, Delete, Get, HttpCode, HttpStatus, Param, ParseUUIDPipe, Patch, Post, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
 
+import { ApiContract, emptyResponse } from '../common/api-contract.decorator.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
@@ -17,7 +18,6 @@ import {
 } from '../domain/customers/customer.schema.js';
 import type { Page } from '../domain/paging/page.schema.js';
 import { CustomersService } from './customers.service.js';
-import { ApiContract, emptyResponse } from '../common/api-contract.decorator.js';
 
 /** Staff read customers (crews see whom they work for); the office creates and changes them. */
 @ApiTags('customers')

@@ -1,6 +1,8 @@
 import { Body, Controller, Get, HttpCode, HttpStatus, Param, ParseUUIDPipe, Post } from '@nestjs/common';
 import { ApiBearerAuth, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
+import { z } from 'zod';
 
+import { ApiContract } from '../common/api-contract.decorator.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
@@ -17,8 +19,6 @@ import {
   SendPacketSchema,
 } from '../domain/delivery/delivery.schema.js';
 import { DeliveryService } from './delivery.service.js';
-import { ApiContract } from '../common/api-contract.decorator.js';
-import { z } from 'zod';
 
 /** Sending a revision and its delivery log: admin and office only. */
 @ApiTags('packets')

@@ -2,6 +2,7 @@ import { Controller, Get, Headers, Param, ParseUUIDPipe, Query, Res } from '@nes
 import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 
+import { ApiContract, fileResponse } from '../common/api-contract.decorator.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
@@ -12,7 +13,6 @@ import {
   SitePlanDrawingQuerySchema,
 } from '../domain/jobs/job-drawings.schema.js';
 import { type DrawingAnswer, JobDrawingsService } from './job-drawings.service.js';
-import { ApiContract, fileResponse } from '../common/api-contract.decorator.js';
 
 const uuid = new ParseUUIDPipe();
 

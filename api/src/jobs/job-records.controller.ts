@@ -1,6 +1,7 @@
 import { Body, Controller, Delete, Param, ParseUUIDPipe, Patch, Post, Put } from '@nestjs/common';
 import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
 
+import { ApiContract } from '../common/api-contract.decorator.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
@@ -8,29 +9,34 @@ import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
 import {
   type ChannelSetup,
   ChannelSetupSchema,
+  type ChannelSetupWriteResponse,
   ChannelSetupWriteResponseSchema,
   type CheckInput,
   CheckInputSchema,
+  type CheckWriteResponse,
   CheckWriteResponseSchema,
   type DepthReadingInput,
   DepthReadingInputSchema,
+  type DepthReadingWriteResponse,
   DepthReadingWriteResponseSchema,
   type ItemInput,
   ItemInputSchema,
+  type ItemWriteResponse,
   ItemWriteResponseSchema,
   type RunInput,
   RunInputSchema,
+  type RunWriteResponse,
   RunWriteResponseSchema,
   type UpdateDepthReadingInput,
   UpdateDepthReadingSchema,
   type ZoneInput,
   ZoneInputSchema,
+  type ZoneWriteResponse,
   ZoneWriteResponseSchema,
 } from '../domain/jobs/job-record.schema.js';
+import { type JobVersionResponse, JobVersionResponseSchema } from '../domain/jobs/job.schema.js';
 import { ApiJobVersion } from './api-job-version.decorator.js';
 import { JobRecordsService } from './job-records.service.js';
-import { ApiContract } from '../common/api-contract.decorator.js';
-import { JobVersionResponseSchema } from '../domain/jobs/job.schema.js';
 
 const uuid = new ParseUUIDPipe();
 
@@ -55,7 +61,7 @@ export class JobRecordsController {
     @Param('jobId', uuid) jobId: string,
     @ExpectedVersion() version: number,
     @Body(new ZodValidationPipe(ZoneInputSchema)) body: ZoneInput,
-  ) {
+  ): Promise<ZoneWriteResponse> {
     return this.records.createZone(user, jobId, version, body);
   }
 
@@ -67,7 +73,7 @@ export class JobRecordsController {
     @Param('zoneId', uuid) zoneId: string,
     @ExpectedVersion() version: number,
     @Body(new ZodValidationPipe(ZoneInputSchema)) body: ZoneInput,
-  ) {
+  ): Promise<ZoneWriteResponse> {
     return this.records.updateZone(user, jobId, zoneId, version, body);
   }
 
@@ -79,7 +85,7 @@ export class JobRecordsController {
     @Param('jobId', uuid) jobId: string,
     @Param('zoneId', uuid) zoneId: string,
     @ExpectedVersion() version: number,
-  ) {
+  ): Promise<JobVersionResponse> {
     return this.records.deleteZone(user, jobId, zoneId, version);
   }
 
@@ -91,7 +97,7 @@ export class JobRecordsController {
     @Param('jobId', uuid) jobId: string,
     @ExpectedVersion() version: number,
     @Body(new ZodValidationPipe(ItemInputSchema)) body: ItemInput,
-  ) {
+  ): Promise<ItemWriteResponse> {
     return this.records.createItem(user, jobId, version, body);
   }
 
@@ -104,7 +110,7 @@ export class JobRecordsController {
     @Param('itemId', uuid) itemId: string,
     @ExpectedVersion() version: number,
     @Body(new ZodValidationPipe(ItemInputSchema)) body: ItemInput,
-  ) {
+  ): Promise<ItemWriteResponse> {
     return this.records.replaceItem(user, jobId, itemId, version, body);
   }
 
@@ -116,7 +122,7 @@ export class JobRecordsController {
     @Param('jobId', uuid) jobId: string,
     @Param('itemId', uuid) itemId: string,
     @ExpectedVersion() version: number,
-  ) {
+  ): Promise<JobVersionResponse> {
     return this.records.deleteItem(user, jobId, itemId, version);
   }
 
@@ -130,7 +136,7 @@ export class JobRecordsController {
     @Param('channelId', uuid) channelId: string,
     @ExpectedVersion() version: number,
     @Body(new ZodValidationPipe(ChannelSetupSchema)) body: ChannelSetup,
-  ) {
+  ): Promise<ChannelSetupWriteResponse> {
     return this.records.updateChannelSetup(user, jobId, itemId, channelId, version, body);
   }
 
@@ -142,7 +148,7 @@ export class JobRecordsController {
     @Param('jobId', uuid) jobId: string,
     @ExpectedVersion() version: number,
     @Body(new ZodValidationPipe(RunInputSchema)) body: RunInput,
-  ) {
+  ): Promise<RunWriteResponse> {
     return this.records.createRun(user, jobId, version, body);
   }
 
@@ -155,7 +161,7 @@ export class JobRecordsController {
     @Param('runId', uuid) runId: string,
     @ExpectedVersion() version: number,
     @Body(new ZodValidationPipe(RunInputSchema)) body: RunInput,
-  ) {
+  ): Promise<RunWriteResponse> {
     return this.records.replaceRun(user, jobId, runId, version, body);
   }
 
@@ -167,7 +173,7 @@ export class JobRecordsController {
     @Param('jobId', uuid) jobId: string,
     @Param('runId', uuid) runId: string,
     @ExpectedVersion() version: number,
-  ) {
+  ): Promise<JobVersionResponse> {
     return this.records.deleteRun(user, jobId, runId, version);
   }
 
@@ -179,7 +185,7 @@ export class JobRecordsController {
     @Param('jobId', uuid) jobId: string,
     @Param('recordId', uuid) recordId: string,
     @ExpectedVersion() version: number,
-  ) {
+  ): Promise<JobVersionResponse> {
     return this.records.undoChange(user, jobId, recordId, version);
   }
 
@@ -193,7 +199,7 @@ export class JobRecordsController {
     @Param('runId', uuid) runId: string,
     @ExpectedVersion() version: number,
     @Body(new ZodValidationPipe(DepthReadingInputSchema)) body: DepthReadingInput,
-  ) {
+  ): Promise<DepthReadingWriteResponse> {
     return this.records.addDepthReading(user, jobId, runId, version, body);
   }
 
@@ -207,7 +213,7 @@ export class JobRecordsController {
     @Param('readingId', uuid) readingId: string,
     @ExpectedVersion() version: number,
     @Body(new ZodValidationPipe(UpdateDepthReadingSchema)) body: UpdateDepthReadingInput,
-  ) {
+  ): Promise<DepthReadingWriteResponse> {
     return this.records.updateDepthReading(user, jobId, runId, readingId, version, body);
   }
 
@@ -220,7 +226,7 @@ export class JobRecordsController {
     @Param('runId', uuid) runId: string,
     @Param('readingId', uuid) readingId: string,
     @ExpectedVersion() version: number,
-  ) {
+  ): Promise<JobVersionResponse> {
     return this.records.deleteDepthReading(user, jobId, runId, readingId, version);
   }
 
@@ -233,7 +239,7 @@ export class JobRecordsController {
     @Param('jobId', uuid) jobId: string,
     @ExpectedVersion() version: number,
     @Body(new ZodValidationPipe(CheckInputSchema)) body: CheckInput,
-  ) {
+  ): Promise<CheckWriteResponse> {
     return this.records.createCheck(user, jobId, version, body);
   }
 
@@ -246,7 +252,7 @@ export class JobRecordsController {
     @Param('checkId', uuid) checkId: string,
     @ExpectedVersion() version: number,
     @Body(new ZodValidationPipe(CheckInputSchema)) body: CheckInput,
-  ) {
+  ): Promise<CheckWriteResponse> {
     return this.records.replaceCheck(user, jobId, checkId, version, body);
   }
 
@@ -258,7 +264,7 @@ export class JobRecordsController {
     @Param('jobId', uuid) jobId: string,
     @Param('checkId', uuid) checkId: string,
     @ExpectedVersion() version: number,
-  ) {
+  ): Promise<JobVersionResponse> {
     return this.records.deleteCheck(user, jobId, checkId, version);
   }
 }

@@ -15,9 +15,9 @@ import {
   UseInterceptors,
 } from '@nestjs/common';
 import { ApiBearerAuth, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
-
 import type { Response } from 'express';
 
+import { ApiContract, emptyResponse } from '../common/api-contract.decorator.js';
 import { ContentEtagInterceptor, isNotModified, setEtagHeaders } from '../common/content-etag.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
@@ -40,7 +40,6 @@ import {
 } from '../domain/jobs/job.schema.js';
 import { ApiJobVersion } from './api-job-version.decorator.js';
 import { JobsService } from './jobs.service.js';
-import { ApiContract, emptyResponse } from '../common/api-contract.decorator.js';
 
 @ApiTags('jobs')
 @ApiBearerAuth()

@@ -1,6 +1,8 @@
 import { Body, Controller, Delete, Get, HttpCode, HttpStatus, Param, ParseUUIDPipe, Post, UseInterceptors } from '@nestjs/common';
 import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
+import { z } from 'zod';
 
+import { ApiContract, emptyResponse } from '../common/api-contract.decorator.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
@@ -14,8 +16,6 @@ import {
 } from '../domain/locate/locate-link.schema.js';
 import { LocateLinksService } from './locate-links.service.js';
 import { NoStoreInterceptor } from './no-store.interceptor.js';
-import { ApiContract, emptyResponse } from '../common/api-contract.decorator.js';
-import { z } from 'zod';
 
 /** Locate links of a site: the office for any company site, a homeowner for the sites linked to them. */
 @ApiTags('locate links')

@@ -2,13 +2,13 @@ import { Controller, Get, Param, ParseUUIDPipe, Req, Res, StreamableFile, UseGua
 import { ApiOperation, ApiParam, ApiResponse, ApiTags } from '@nestjs/swagger';
 import type { Request, Response } from 'express';
 
+import { ApiContract, fileResponse } from '../common/api-contract.decorator.js';
 import { Public } from '../common/decorators/public.decorator.js';
 import type { LocateViewResponse } from '../domain/locate/locate-link.schema.js';
+import { LocateViewResponseSchema } from '../domain/locate/locate-link.schema.js';
 import { LocateThrottlerGuard } from './locate-throttler.guard.js';
 import { type LocateClient, LocateService } from './locate.service.js';
 import { NoStoreInterceptor } from './no-store.interceptor.js';
-import { ApiContract, fileResponse } from '../common/api-contract.decorator.js';
-import { LocateViewResponseSchema } from '../domain/locate/locate-link.schema.js';
 
 function clientOf(req: Request): LocateClient {
   return { ip: req.ip ?? null, userAgent: req.get('user-agent') ?? null };

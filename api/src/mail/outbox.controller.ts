@@ -2,6 +2,7 @@ import { Controller, Get, Param, ParseUUIDPipe, Query, Res, StreamableFile } fro
 import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 
+import { ApiContract, fileResponse } from '../common/api-contract.decorator.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
@@ -14,9 +15,8 @@ import {
   OutboxQuerySchema,
 } from '../domain/mail/outbox.schema.js';
 import type { MailStatusResponse } from '../domain/signup/signup.schema.js';
-import { OutboxService } from './outbox.service.js';
-import { ApiContract, fileResponse } from '../common/api-contract.decorator.js';
 import { MailStatusResponseSchema } from '../domain/signup/signup.schema.js';
+import { OutboxService } from './outbox.service.js';
 
 @ApiTags('outbox')
 @ApiBearerAuth()

@@ -1,17 +1,17 @@
 import { Body, Controller, Get, HttpCode, HttpStatus, Param, ParseUUIDPipe, Post, Res, StreamableFile } from '@nestjs/common';
 import { ApiBearerAuth, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
+import { z } from 'zod';
 
+import { ApiContract, fileResponse } from '../common/api-contract.decorator.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
 import { type IssuePacketInput, IssuePacketInputSchema } from '../domain/packet/known-exceptions.js';
+import { IssuePacketResponseSchema, PacketRevisionResponseSchema } from '../domain/packet/packet-revision.schema.js';
 import { ApiJobVersion } from '../jobs/api-job-version.decorator.js';
 import { type IssuePacketResponse, type PacketFile, type PacketRevisionResponse, PacketsService } from './packets.service.js';
-import { ApiContract, fileResponse } from '../common/api-contract.decorator.js';
-import { IssuePacketResponseSchema, PacketRevisionResponseSchema } from '../domain/packet/packet-revision.schema.js';
-import { z } from 'zod';
 
 /** Streams a verified packet file with its digest headers (the portal serves its downloads the same way). */
 export function sendPacketFile(res: Response, file: PacketFile): StreamableFile {

@@ -1,10 +1,13 @@
 import { BadRequestException, Body, Controller, Delete, Get, Param, ParseUUIDPipe, type PipeTransform, Put } from '@nestjs/common';
 import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
+import { z } from 'zod';
 
+import { ApiContract } from '../common/api-contract.decorator.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
+import { type JobVersionResponse, JobVersionResponseSchema } from '../domain/jobs/job.schema.js';
 import {
   type JobSignatureResponse,
   JobSignatureResponseSchema,
@@ -12,13 +15,11 @@ import {
   type SignatureInput,
   SignatureInputSchema,
   type SignatureRole,
+  type SignatureWriteResponse,
   SignatureWriteResponseSchema,
 } from '../domain/packet/signature.schema.js';
 import { ApiJobVersion } from '../jobs/api-job-version.decorator.js';
 import { SignaturesService } from './signatures.service.js';
-import { ApiContract } from '../common/api-contract.decorator.js';
-import { z } from 'zod';
-import { JobVersionResponseSchema } from '../domain/jobs/job.schema.js';
 
 const uuid = new ParseUUIDPipe();
 
@@ -62,7 +63,7 @@ export class SignaturesController {
     @Param('role', new ParseSignatureRolePipe()) role: SignatureRole,
     @ExpectedVersion() version: number,
     @Body(new ZodValidationPipe(SignatureInputSchema)) body: SignatureInput,
-  ) {
+  ): Promise<SignatureWriteResponse> {
     return this.signatures.save(user, jobId, role, version, body);
   }
 
@@ -75,7 +76,7 @@ export class SignaturesController {
     @Param('jobId', uuid) jobId: string,
     @Param('role', new ParseSignatureRolePipe()) role: SignatureRole,
     @ExpectedVersion() version: number,
-  ) {
+  ): Promise<JobVersionResponse> {
     return this.signatures.remove(user, jobId, role, version);
   }
 }

@@ -3,22 +3,24 @@ import { FilesInterceptor } from '@nestjs/platform-express';
 import { ApiBearerAuth, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 
+import { ApiContract, multipartBody } from '../common/api-contract.decorator.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
-import { UploadSlotInterceptor } from '../common/image-work.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
+import { UploadSlotInterceptor } from '../common/image-work.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
 import {
   PhotoListQuerySchema,
+  type PhotoListResponse,
   PhotoListResponseSchema,
   type UploadPhotosFields,
   UploadPhotosFieldsSchema,
+  type UploadPhotosResponse,
   UploadPhotosResponseSchema,
 } from '../domain/photos/photo.schema.js';
 import { ApiJobVersion } from '../jobs/api-job-version.decorator.js';
 import { PhotosService, type UploadedPhotoFile } from './photos.service.js';
 import { UploadLimitsInterceptor } from './upload-limits.interceptor.js';
-import { ApiContract, multipartBody } from '../common/api-contract.decorator.js';
 
 const uuid = new ParseUUIDPipe();
 
@@ -33,7 +35,7 @@ export class JobPhotosController {
   @Get()
   @ApiOperation({ summary: 'The job’s photos (oldest first) with captions, targets, taken-at and derivative URLs' })
   @ApiContract({ query: PhotoListQuerySchema, responses: { 200: PhotoListResponseSchema } })
-  list(@CurrentUser() user: AuthUser, @Param('jobId', uuid) jobId: string, @Query('includeDeleted') includeDeleted?: string) {
+  list(@CurrentUser() user: AuthUser, @Param('jobId', uuid) jobId: string, @Query('includeDeleted') includeDeleted?: string): Promise<PhotoListResponse> {
     return this.photos.list(user, jobId, { includeDeleted: includeDeleted === 'true' });
   }
 
@@ -62,7 +64,7 @@ export class JobPhotosController {
     @Body(new ZodValidationPipe(UploadPhotosFieldsSchema)) fields: UploadPhotosFields,
     @UploadedFiles() files: UploadedPhotoFile[] | undefined,
     @Res({ passthrough: true }) res: Response,
-  ) {
+  ): Promise<UploadPhotosResponse> {
     const result = await this.photos.upload(user, jobId, version, fields, files ?? []);
     res.status(result.isReplay ? 200 : 201);
     return result;

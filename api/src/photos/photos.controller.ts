@@ -2,6 +2,7 @@ import { Body, Controller, Delete, Get, HttpCode, HttpStatus, Param, ParseUUIDPi
 import { ApiBearerAuth, ApiOperation, ApiParam, ApiTags } from '@nestjs/swagger';
 import type { Request, Response } from 'express';
 
+import { ApiContract, fileResponse } from '../common/api-contract.decorator.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
@@ -9,6 +10,7 @@ import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
 import {
   PHOTO_VARIANTS,
   type PhotoVariant,
+  type PhotoWriteResponse,
   PhotoWriteResponseSchema,
   type UpdatePhotoInput,
   UpdatePhotoSchema,
@@ -16,7 +18,6 @@ import {
 import { ApiJobVersion } from '../jobs/api-job-version.decorator.js';
 import { photoNotFound } from './photo-errors.js';
 import { PhotosService } from './photos.service.js';
-import { ApiContract, fileResponse } from '../common/api-contract.decorator.js';
 
 const uuid = new ParseUUIDPipe();
 
@@ -62,7 +63,7 @@ export class PhotosController {
     @Param('id', uuid) id: string,
     @ExpectedVersion() version: number,
     @Body(new ZodValidationPipe(UpdatePhotoSchema)) body: UpdatePhotoInput,
-  ) {
+  ): Promise<PhotoWriteResponse> {
     return this.photos.update(user, id, version, body);
   }
 
@@ -70,7 +71,7 @@ export class PhotosController {
   @ApiJobVersion()
   @ApiOperation({ summary: 'Soft-delete a photo (undo with POST /api/photos/:id/restore); its files are kept' })
   @ApiContract({ responses: { 200: PhotoWriteResponseSchema } })
-  remove(@CurrentUser() user: AuthUser, @Param('id', uuid) id: string, @ExpectedVersion() version: number) {
+  remove(@CurrentUser() user: AuthUser, @Param('id', uuid) id: string, @ExpectedVersion() version: number): Promise<PhotoWriteResponse> {
     return this.photos.remove(user, id, version);
   }
 
@@ -79,7 +80,7 @@ export class PhotosController {
   @ApiJobVersion()
   @ApiOperation({ summary: 'Undo the deletion of a photo' })
   @ApiContract({ body: 'none', responses: { 200: PhotoWriteResponseSchema } })
-  restore(@CurrentUser() user: AuthUser, @Param('id', uuid) id: string, @ExpectedVersion() version: number) {
+  restore(@CurrentUser() user: AuthUser, @Param('id', uuid) id: string, @ExpectedVersion() version: number): Promise<PhotoWriteResponse> {
     return this.photos.restore(user, id, version);
   }
 }

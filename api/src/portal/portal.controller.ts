@@ -1,17 +1,17 @@
 import { Controller, Get, Param, ParseUUIDPipe, Res, StreamableFile } from '@nestjs/common';
 import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
+import { z } from 'zod';
 
+import { ApiContract, fileResponse } from '../common/api-contract.decorator.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import type { PortalSiteDetailResponse, PortalSiteResponse } from '../domain/delivery/portal.schema.js';
+import { PortalSiteResponseSchema, PortalSiteDetailResponseSchema } from '../domain/delivery/portal.schema.js';
 import type { SiteMap } from '../domain/locate/site-map.schema.js';
+import { SiteMapSchema } from '../domain/locate/site-map.schema.js';
 import { sendPacketFile } from '../packets/packets.controller.js';
 import { PortalService } from './portal.service.js';
-import { ApiContract, fileResponse } from '../common/api-contract.decorator.js';
-import { PortalSiteResponseSchema, PortalSiteDetailResponseSchema } from '../domain/delivery/portal.schema.js';
-import { SiteMapSchema } from '../domain/locate/site-map.schema.js';
-import { z } from 'zod';
 
 /** The homeowner's portal (homeowners only; another's site or packet answers 404). Locate links: /api/sites/:siteId/locate-links. */
 @ApiTags('portal')

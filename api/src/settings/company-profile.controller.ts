@@ -3,6 +3,7 @@ import { FileInterceptor } from '@nestjs/platform-express';
 import { ApiBearerAuth, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
 import type { Request, Response } from 'express';
 
+import { ApiContract, fileResponse, multipartBody } from '../common/api-contract.decorator.js';
 import { ContentEtagInterceptor } from '../common/content-etag.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
@@ -20,7 +21,6 @@ import {
 } from '../domain/company/company-profile.schema.js';
 import { CompanyProfileService, type UploadedLogoFile } from './company-profile.service.js';
 import { LogoUploadInterceptor } from './logo-upload.interceptor.js';
-import { ApiContract, fileResponse, multipartBody } from '../common/api-contract.decorator.js';
 
 /** The company profile: the admin fills it in, the office reads it. */
 @ApiTags('settings')

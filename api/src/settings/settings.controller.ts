@@ -1,6 +1,7 @@
 import { Body, Controller, Get, Patch, UseInterceptors } from '@nestjs/common';
 import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
 
+import { ApiContract } from '../common/api-contract.decorator.js';
 import { ContentEtagInterceptor } from '../common/content-etag.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
@@ -16,7 +17,6 @@ import {
   UpdateMyPreferencesSchema,
 } from '../domain/settings/settings.schema.js';
 import { SettingsService } from './settings.service.js';
-import { ApiContract } from '../common/api-contract.decorator.js';
 
 /** The company's defaults: everyone of the company reads them (they set how the app shows values); the admin changes them. */
 @ApiTags('settings')

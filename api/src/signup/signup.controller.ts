@@ -5,9 +5,11 @@ import type { Request, Response } from 'express';
 
 import { setRefreshCookie } from '../auth/refresh-cookie.js';
 import { SignInThrottlerGuard } from '../auth/sign-in-throttler.guard.js';
+import { ApiContract } from '../common/api-contract.decorator.js';
 import { Public } from '../common/decorators/public.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
 import type { SessionResponse } from '../domain/auth/auth.schema.js';
+import { SessionResponseSchema } from '../domain/auth/auth.schema.js';
 import {
   type CreateSignupInput,
   CreateSignupSchema,
@@ -21,8 +23,6 @@ import {
   VerifySignupSchema,
 } from '../domain/signup/signup.schema.js';
 import { SignupService } from './signup.service.js';
-import { ApiContract } from '../common/api-contract.decorator.js';
-import { SessionResponseSchema } from '../domain/auth/auth.schema.js';
 
 @ApiTags('signup')
 @Controller('signup')

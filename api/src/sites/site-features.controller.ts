@@ -1,6 +1,8 @@
 import { Body, Controller, Delete, Get, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
 import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
+import { z } from 'zod';
 
+import { ApiContract } from '../common/api-contract.decorator.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
@@ -14,11 +16,9 @@ import {
   UpdateSiteFeatureSchema,
 } from '../domain/sites/site-feature.schema.js';
 import type { SiteVersionResponse } from '../domain/sites/site-rules.js';
+import { SiteVersionResponseSchema } from '../domain/sites/site.schema.js';
 import { ApiSiteVersion } from './api-site-version.decorator.js';
 import { SiteFeaturesService } from './site-features.service.js';
-import { ApiContract } from '../common/api-contract.decorator.js';
-import { z } from 'zod';
-import { SiteVersionResponseSchema } from '../domain/sites/site.schema.js';
 
 /**
  * Site features (house footprint, fences, walls, patios, paths, pools, spas, driveways, trees, beds):

@@ -1,14 +1,14 @@
 import { Body, Controller, Param, ParseUUIDPipe, Post } from '@nestjs/common';
 import { ApiBearerAuth, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
 
+import { ApiContract } from '../common/api-contract.decorator.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
 import type { InvitationResponse } from '../domain/auth/auth.schema.js';
+import { InvitationResponseSchema } from '../domain/auth/auth.schema.js';
 import { type InviteHomeownerInput, InviteHomeownerSchema } from '../domain/sites/homeowner-invitation.schema.js';
 import { SiteHomeownersService } from './site-homeowners.service.js';
-import { ApiContract } from '../common/api-contract.decorator.js';
-import { InvitationResponseSchema } from '../domain/auth/auth.schema.js';
 
 @ApiTags('sites')
 @ApiBearerAuth()

@@ -3,10 +3,12 @@ import { FileInterceptor } from '@nestjs/platform-express';
 import { ApiBearerAuth, ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
 import type { Request, Response } from 'express';
 
+import { ApiContract, fileResponse, multipartBody } from '../common/api-contract.decorator.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { UploadSlotInterceptor } from '../common/image-work.js';
+import type { SiteVersionResponse } from '../domain/sites/site-rules.js';
 import {
   PLAN_IMAGE_MAX_BYTES,
   type PlanImageUploadResponse,
@@ -15,11 +17,9 @@ import {
   SiteResponseSchema,
   SiteVersionResponseSchema,
 } from '../domain/sites/site.schema.js';
-import type { SiteVersionResponse } from '../domain/sites/site-rules.js';
 import { ApiSiteVersion } from './api-site-version.decorator.js';
 import { PlanImageUploadInterceptor } from './plan-image-upload.interceptor.js';
 import { SitePlanImagesService, type UploadedPlanFile } from './site-plan-images.service.js';
-import { ApiContract, fileResponse, multipartBody } from '../common/api-contract.decorator.js';
 
 /**
  * The site-plan image: the office or a crew lead uploads a scan or photo of the drawing, the office

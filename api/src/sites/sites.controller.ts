@@ -16,11 +16,14 @@ import {
 import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 
+import { ApiContract, emptyResponse } from '../common/api-contract.decorator.js';
 import { ContentEtagInterceptor } from '../common/content-etag.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
+import type { Page } from '../domain/paging/page.schema.js';
+import type { SiteVersionResponse } from '../domain/sites/site-rules.js';
 import {
   type CreateReferencePointInput,
   CreateReferencePointSchema,
@@ -43,11 +46,8 @@ import {
   type UpdateSiteInput,
   UpdateSiteSchema,
 } from '../domain/sites/site.schema.js';
-import type { Page } from '../domain/paging/page.schema.js';
-import type { SiteVersionResponse } from '../domain/sites/site-rules.js';
 import { ApiSiteVersion } from './api-site-version.decorator.js';
 import { SitesService } from './sites.service.js';
-import { ApiContract, emptyResponse } from '../common/api-contract.decorator.js';
 
 /**
  * Staff read sites; the office creates and changes them and links homeowners; crew leads on the crew of

@@ -1,6 +1,8 @@
 import { Body, Controller, Delete, Get, HttpCode, HttpStatus, Param, ParseUUIDPipe, Post } from '@nestjs/common';
 import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
+import { z } from 'zod';
 
+import { ApiContract, emptyResponse } from '../common/api-contract.decorator.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
@@ -11,8 +13,6 @@ import {
   InvitationResponseSchema,
 } from '../domain/auth/auth.schema.js';
 import { UsersService } from './users.service.js';
-import { ApiContract, emptyResponse } from '../common/api-contract.decorator.js';
-import { z } from 'zod';
 
 @ApiTags('users')
 @ApiBearerAuth()

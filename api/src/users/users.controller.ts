@@ -1,6 +1,7 @@
 import { Body, Controller, Get, Param, ParseUUIDPipe, Patch, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
 
+import { ApiContract } from '../common/api-contract.decorator.js';
 import { type AuthUser, CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
@@ -15,7 +16,6 @@ import {
   UserResponseSchema,
 } from '../domain/auth/auth.schema.js';
 import { UsersService } from './users.service.js';
-import { ApiContract } from '../common/api-contract.decorator.js';
 
 @ApiTags('users')
 @ApiBearerAuth()

@@ -39,3 +39,4 @@ export type JobSignatureResponse = z.infer<typeof JobSignatureResponseSchema>;
 
 /** Saving a signature answers it and the job's new version. */
 export const SignatureWriteResponseSchema = z.object({ signature: JobSignatureResponseSchema, jobVersion: z.number().int() });
+export type SignatureWriteResponse = z.infer<typeof SignatureWriteResponseSchema>;
