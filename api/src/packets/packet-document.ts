@@ -14,7 +14,7 @@ import { drawJobDepthProfile, drawJobSchematic, drawJobSitePlan, jobTitleBlock }
 import { COLOUR_KEY_NOTE, RUN_ORANGE } from '../drawings/marking-palette.js';
 import { createNodeSvgCanvas } from '../drawings/node-svg-window.js';
 import { type ChromiumPrinter } from './chromium-printer.js';
-import { readPdfLayout, withDocumentInfo } from './pdf-document-info.js';
+import { readPdfFacts, readPdfLayout, withDocumentInfo } from './pdf-document-info.js';
 
 /**
  * templates/packet and fonts/inter-static at the repository root (the same relative path from api/src
@@ -291,8 +291,10 @@ export async function renderPacket(
     const html = renderPacketHtml({ vm, drawings, qrSvg, logoDataUri: input.logoDataUri });
     const printed = await printer.print({ html, footerTemplate, onBlockedRequest: input.onBlockedRequest });
     stage('final print');
-    const pdf = await withDocumentInfo(printed, packetDocumentInfo(vm, input.snapshot), input.snapshot.issuedAt);
-    const layout = await readPdfLayout(pdf);
+    // One pdf.js opening of the final print gives its pages, destinations and Chromium's information
+    // dictionary; labelling it appends to the bytes without moving a page, so it is not read again.
+    const { layout, info } = await readPdfFacts(printed);
+    const pdf = await withDocumentInfo(printed, packetDocumentInfo(vm, input.snapshot), input.snapshot.issuedAt, info);
     stage('document info');
     // Should a drawing have taken more than its page after all, the contents are printed again with
     // the pages the final print has (once: the contents page's layout is fixed, so it cannot move).

@@ -1,7 +1,7 @@
 import { getDocumentProxy, getMeta } from 'unpdf';
 import { describe, expect, it } from 'vitest';
 
-import { readPdfLayout, withDocumentInfo } from './pdf-document-info.js';
+import { readPdfFacts, readPdfLayout, withDocumentInfo } from './pdf-document-info.js';
 
 /**
  * A two-page PDF written by hand with a named destination on page 2, in either cross-reference form
@@ -68,6 +68,19 @@ describe('PDF layout and document information (pdf.js)', () => {
       expect(await readPdfLayout(labelled)).toEqual({ pageCount: 2, destinations: new Map([['cables', 2]]) });
     });
   }
+
+  it('reads layout and printed information in one opening, and labels from that information the same bytes', async () => {
+    for (const form of ['table', 'stream'] as const) {
+      const pdf = handWrittenPdf(form);
+      const facts = await readPdfFacts(pdf);
+      expect(facts.layout).toEqual({ pageCount: 2, destinations: new Map([['cables', 2]]) });
+      expect(facts.info).toMatchObject({ Producer: 'Hand/PDF' });
+      const info = { title: 'T', author: 'A', subject: 'S', keywords: ['k'] };
+      const fromFacts = await withDocumentInfo(pdf, info, '2026-12-02T17:00:00.000Z', facts.info);
+      expect(fromFacts.equals(await withDocumentInfo(pdf, info, '2026-12-02T17:00:00.000Z')), form).toBe(true);
+      expect(await readPdfLayout(fromFacts)).toEqual(facts.layout);
+    }
+  });
 
   it('refuses bytes that are not a PDF', async () => {
     await expect(withDocumentInfo(Buffer.from('not a pdf'), { title: 't', author: 'a', subject: 's', keywords: [] }, '2026-12-02T17:00:00.000Z')).rejects.toThrow();

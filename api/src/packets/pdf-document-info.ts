@@ -17,20 +17,41 @@ export async function readPdfLayout(pdf: Buffer | Uint8Array): Promise<PdfLayout
   // pdf.js takes ownership of (detaches) the array it is given: hand it a copy.
   const doc = await getDocumentProxy(new Uint8Array(pdf));
   try {
-    const destinations = new Map<string, number>();
-    const named = (await doc.getDestinations()) as Record<string, unknown[] | null>;
-    for (const [name, dest] of Object.entries(named)) {
-      const ref = dest?.[0];
-      if (ref && typeof ref === 'object') {
-        destinations.set(name, (await doc.getPageIndex(ref as { num: number; gen: number })) + 1);
-      } else if (typeof ref === 'number') {
-        destinations.set(name, ref + 1);
-      }
-    }
-    return { pageCount: doc.numPages, destinations };
+    return await layoutOf(doc);
   } finally {
     await doc.destroy();
   }
+}
+
+/**
+ * The layout and the document information dictionary as printed, from one opening of the PDF. The
+ * packet reads both from the final print (a few MiB with its photos) before labelling it: the
+ * incremental update of {@link withDocumentInfo} changes neither pages nor destinations, so the
+ * labelled file is not opened again.
+ */
+export async function readPdfFacts(pdf: Buffer | Uint8Array): Promise<{ layout: PdfLayout; info: Record<string, unknown> }> {
+  // pdf.js takes ownership of (detaches) the array it is given: hand it a copy.
+  const doc = await getDocumentProxy(new Uint8Array(pdf));
+  try {
+    const info = ((await getMeta(doc)).info ?? {}) as Record<string, unknown>;
+    return { layout: await layoutOf(doc), info };
+  } finally {
+    await doc.destroy();
+  }
+}
+
+async function layoutOf(doc: Awaited<ReturnType<typeof getDocumentProxy>>): Promise<PdfLayout> {
+  const destinations = new Map<string, number>();
+  const named = (await doc.getDestinations()) as Record<string, unknown[] | null>;
+  for (const [name, dest] of Object.entries(named)) {
+    const ref = dest?.[0];
+    if (ref && typeof ref === 'object') {
+      destinations.set(name, (await doc.getPageIndex(ref as { num: number; gen: number })) + 1);
+    } else if (typeof ref === 'number') {
+      destinations.set(name, ref + 1);
+    }
+  }
+  return { pageCount: doc.numPages, destinations };
 }
 
 export interface PdfDocumentInfo {
@@ -64,15 +85,11 @@ function pdfLiteral(value: string): string {
  * update (ISO 32000-1 §7.5.6): the printed bytes stay as they are and a new information dictionary, a
  * cross-reference section for it and a trailer pointing back at the previous one are appended. Chromium
  * writes only the title (from `<title>`); the producer, creator and dates it wrote are carried over.
+ * `printedInfo` is that dictionary when the caller has already read it ({@link readPdfFacts}); otherwise
+ * the PDF is opened to read it.
  */
-export async function withDocumentInfo(pdf: Buffer, info: PdfDocumentInfo, createdAt: string): Promise<Buffer> {
-  const doc = await getDocumentProxy(new Uint8Array(pdf));
-  let previous: Record<string, unknown>;
-  try {
-    previous = ((await getMeta(doc)).info ?? {}) as Record<string, unknown>;
-  } finally {
-    await doc.destroy();
-  }
+export async function withDocumentInfo(pdf: Buffer, info: PdfDocumentInfo, createdAt: string, printedInfo?: Record<string, unknown>): Promise<Buffer> {
+  const previous = printedInfo ?? (await readPdfFacts(pdf)).info;
   const tail = pdf.subarray(Math.max(0, pdf.length - 1024)).toString('latin1');
   const startMatch = /startxref\s+(\d+)\s+%%EOF\s*$/.exec(tail);
   if (!startMatch) throw new Error('PDF has no startxref at its end');
