@@ -7,9 +7,8 @@ import type { Role } from '@domain/auth/roles';
 
 import { useNotify } from '../../../components/notify';
 import { paths } from '../../../config/paths';
-import { usePersistedDraft } from '../../../lib/drafts';
 import { describeRequestError } from '../../../lib/form-errors';
-import { formatLength, lengthInputValue, parseLength } from '../../../lib/units';
+import { formatLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 import type { JobAsBuiltResponse } from '../../job-record';
 import { SaveStateBar } from '../../jobs';
@@ -23,18 +22,14 @@ import { useCalibrationTool } from '../hooks/use-calibration-tool';
 import { useFeatureTool } from '../hooks/use-feature-tool';
 import { useNorthTool } from '../hooks/use-north-tool';
 import { useReferenceTool } from '../hooks/use-reference-tool';
+import { useRouteTool } from '../hooks/use-route-tool';
 import { useTiesTool } from '../hooks/use-ties-tool';
 import {
   imageToPlan,
-  insertRoutePoint,
-  moveRoutePoint,
   placementOf,
-  planToImage,
   provisionalPlacement,
-  removeRoutePoint,
   roundPlanPoint,
   snapPoint,
-  type ImagePoint,
 } from '../utils/plan-geometry';
 import {
   canAddReferencePoint,
@@ -45,13 +40,9 @@ import {
   itemsWithPositionFindings,
   positionsOf,
   routeBadge,
-  runBodyWithRoute,
   runPoints,
   runStyleOf,
-  solveTies,
-  tieDraftsOf,
   type PlanLayers,
-  type TieDraft,
 } from '../utils/plan-records';
 
 import { CalibratePanel } from './calibrate-panel';
@@ -62,7 +53,7 @@ import { PlanToolbar, type PlanTool } from './plan-toolbar';
 
 import { FeaturePanel } from './feature-panel';
 import { ReferencePointDialog } from './reference-point-dialog';
-import { RoutePanel, type RouteMode } from './route-panel';
+import { RoutePanel } from './route-panel';
 import { SelectionCard, type PlanSelection } from './selection-card';
 import { TiesPanel } from './ties-panel';
 
@@ -134,13 +125,9 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
   const [tapNotice, setTapNotice] = useState<string | undefined>();
 
   // Route tool.
-  const [routeRunId, setRouteRunId] = useState('');
-  const [routeMode, setRouteMode] = useState<RouteMode>('draw');
+  // The point or corner picked on the canvas, by the route and landmark tools.
   const [selectedVertex, setSelectedVertex] = useState<number | undefined>();
-  const routeRun = asBuilt.runs.find((run) => run.id === routeRunId);
-  const routeDraftKey = `job:${job.id}:plan-route:${routeRunId || 'none'}`;
-  const routeDraft = usePersistedDraft<PlanPoint[]>(routeDraftKey, routeRun?.route ?? []);
-  const routePoints = routeRunId ? routeDraft.value : [];
+  const route = useRouteTool({ jobId: job.id, asBuilt, saveJobWrite: (write, done) => saveJobWrite(write, done), selectedVertex, setSelectedVertex });
 
   // The ties tool saves through saveJobWrite below (called only after it is defined).
   const ties = useTiesTool({ jobId: job.id, asBuilt, saveJobWrite: (write, done) => saveJobWrite(write, done) });
@@ -171,10 +158,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
   };
 
   const startRoute = (runId: string) => {
-    setRouteRunId(runId);
-    const run = asBuilt.runs.find((candidate) => candidate.id === runId);
-    setRouteMode(run?.route ? 'edit' : 'draw');
-    setSelectedVertex(undefined);
+    route.start(runId);
     setTool('route');
   };
   const startTies = (itemId: string) => {
@@ -223,7 +207,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
               label: run.label,
               style: runStyleOf(run),
               ...drawn,
-              isActive: tool === 'route' && run.id === routeRunId,
+              isActive: tool === 'route' && run.id === route.runId,
               badge: routeBadge(analysis, run.id, formatLong),
             },
           ];
@@ -234,8 +218,8 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
         ? { href: imageHref, widthPx: planImage.widthPx, heightPx: planImage.heightPx, placement, isProvisional: !site.planCalibration }
         : undefined,
     draftRoute:
-      tool === 'route' && routeRun
-        ? { points: routePoints, selectedIndex: selectedVertex, isEditable: true, canInsert: routeMode === 'edit' }
+      tool === 'route' && route.run
+        ? { points: route.points, selectedIndex: selectedVertex, isEditable: true, canInsert: route.mode === 'edit' }
         : tool === 'feature'
           ? { points: feature.draft.shape === 'polygon' && feature.points.length >= 3 ? [...feature.points, feature.points[0]!] : feature.points, selectedIndex: selectedVertex, isEditable: true, canInsert: false }
           : undefined,
@@ -256,7 +240,6 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
   };
   if (tool === 'ties' && layers.references) model.ties.push(...ties.tieLines());
 
-
   // ---- Saving --------------------------------------------------------------------------------
   const saveJobWrite = async (write: Parameters<typeof writer.save>[0], done: string) => {
     setIsSaving(true);
@@ -270,24 +253,6 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
       return undefined;
     } finally {
       setIsSaving(false);
-    }
-  };
-
-  const saveRoute = async () => {
-    if (!routeRun || routePoints.length < 2) return;
-    const outcome = await saveJobWrite(
-      {
-        endpoint: 'replaceRun',
-        params: { runId: routeRun.id },
-        body: runBodyWithRoute(routeRun, routePoints.map(roundPlanPoint)),
-        draftKey: routeDraftKey,
-        label: `Route of "${routeRun.label}"`,
-      },
-      'Route saved',
-    );
-    if (outcome === 'saved' || outcome === 'queued') {
-      setRouteMode('edit');
-      setSelectedVertex(undefined);
     }
   };
 
@@ -330,22 +295,9 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
       case 'feature':
         feature.tap(point, hit, snapped);
         return;
-      case 'route': {
-        if (!routeRun) {
-          setTapNotice('Choose the run first: pick the run whose route you are drawing.');
-          return;
-        }
-        if (routeMode === 'draw') {
-          routeDraft.setValue([...routePoints, snapped(point)]);
-          return;
-        }
-        if (hit?.type === 'vertex') setSelectedVertex(hit.index === selectedVertex ? undefined : hit.index);
-        else if (hit?.type === 'segment') {
-          routeDraft.setValue(insertRoutePoint(routePoints, hit.index, point));
-          setSelectedVertex(hit.index + 1);
-        } else setSelectedVertex(undefined);
+      case 'route':
+        setTapNotice(route.tap(point, hit, snapped));
         return;
-      }
       case 'ties':
         if (ties.tap(hit) === 'started') setTool('ties');
         return;
@@ -360,10 +312,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
   const handleDragEnd = (hit: PlanHit, point: PlanPoint) => {
     if (hit.type === 'item' && tool === 'select') void moveItem(hit.id, point);
     if (tool === 'feature') feature.dragEnd(hit, point, snapped);
-    if (hit.type === 'vertex' && tool === 'route') {
-      routeDraft.setValue(moveRoutePoint(routePoints, hit.index, snapped(point)));
-      setSelectedVertex(hit.index);
-    }
+    if (tool === 'route') route.dragEnd(hit, point, snapped);
   };
 
   const hint = tapNotice ?? hintFor();
@@ -376,13 +325,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
       case 'feature':
         return feature.hint;
       case 'route':
-        if (!routeRun) return 'Choose the run whose route you are drawing.';
-        if (routeMode === 'draw') {
-          const from = asBuilt.items.find((item) => item.id === routeRun.fromItemId)?.label ?? 'its start';
-          const to = asBuilt.items.find((item) => item.id === routeRun.toItemId)?.label ?? 'its end';
-          return routePoints.length === 0 ? `Tap where the trench starts, at ${from}.` : `Tap the next bend of the trench, toward ${to}. Point ${routePoints.length + 1}.`;
-        }
-        return 'Drag a point to move it. Tap the line to add a point. Tap a point to pick it for deleting.';
+        return route.hint;
       case 'ties':
         return ties.hint;
       case 'calibrate':
@@ -408,39 +351,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
           />
         );
       case 'route':
-        return (
-          <RoutePanel
-            asBuilt={asBuilt}
-            runId={routeRunId}
-            onRunChange={startRoute}
-            mode={routeMode}
-            points={routePoints}
-            selectedIndex={selectedVertex}
-            hasDraft={routeDraft.hasDraft}
-            isSaving={isSaving}
-            onUndo={() => routeDraft.setValue(routePoints.slice(0, -1))}
-            onDeletePoint={() => {
-              if (selectedVertex === undefined) return;
-              routeDraft.setValue(removeRoutePoint(routePoints, selectedVertex));
-              setSelectedVertex(undefined);
-            }}
-            onRedraw={() => {
-              routeDraft.setValue([]);
-              setRouteMode('draw');
-              setSelectedVertex(undefined);
-            }}
-            onContinue={() => {
-              setRouteMode('draw');
-              setSelectedVertex(undefined);
-            }}
-            onSave={() => void saveRoute()}
-            onDiscard={() => {
-              routeDraft.clear();
-              setRouteMode(routeRun?.route ? 'edit' : 'draw');
-              setSelectedVertex(undefined);
-            }}
-          />
-        );
+        return <RoutePanel {...route.panel} onRunChange={startRoute} isSaving={isSaving} />;
       case 'ties':
         return <TiesPanel {...ties.panel} onItemChange={startTies} isSaving={isSaving} />;
       case 'calibrate':
