@@ -151,7 +151,7 @@ describe('delivery: the office sends the packet, the homeowner shares a locate l
     await phone.getByText(/Hand-dig within .+ of any line on this map/).waitFor();
     const map = phone.getByRole('img', { name: /Site plan/ });
     await map.waitFor();
-    expect(await map.locator('text').filter({ hasText: /^min \d/ }).count()).toBeGreaterThan(0);
+    expect(await map.locator('text').filter({ hasText: /\bmin \d/ }).count()).toBeGreaterThan(0);
     expect(await phone.getByRole('navigation', { name: 'Main' }).count()).toBe(0);
     const firstRun = phone.getByRole('button', { name: /min \d/ }).first();
     await firstRun.click();

@@ -46,7 +46,8 @@ const useStyles = makeStyles({
     '@media (min-width: 720px)': { gridTemplateColumns: 'repeat(2, minmax(0, 1fr))' },
   },
   profile: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS, minWidth: 0, margin: 0 },
-  link: { color: tokens.colorBrandForegroundLink },
+  /** A 44 px tall touch target, still reading as a link in the line of text. */
+  link: { color: tokens.colorBrandForegroundLink, display: 'inline-flex', alignItems: 'center', minHeight: '44px' },
   /** Touch targets at least 44 px (WCAG 2.5.5), also on a phone. */
   touch: { minHeight: '44px', minWidth: '44px' },
   muted: { color: tokens.colorNeutralForeground2 },
