@@ -192,7 +192,7 @@ describe('a technician photographs a run on a phone with a weak signal', () => {
     await row.getByRole('button', { name: 'Try late-shot.jpg again now' }).click();
 
     const jobGallery = page.getByRole('list', { name: 'Photos of The job as a whole' });
-    await expect.poll(() => jobGallery.getByRole('listitem').count(), { timeout: 30_000 }).toBe(1);
+    await expect.poll(() => jobGallery.getByRole('listitem').count(), { timeout: 60_000 }).toBe(1);
     const listed = await office.expectOk('get', `/api/jobs/${jobId}/photos`);
     const late = listed.items.filter((photo: { original: { name: string } }) => photo.original.name === 'late-shot.jpg');
     expect(late).toHaveLength(1);
@@ -208,7 +208,7 @@ describe('a technician photographs a run on a phone with a weak signal', () => {
     await page.getByRole('button', { name: 'Undo' }).click();
     await expect.poll(() => jobGallery.getByRole('listitem').count(), { timeout: 15_000 }).toBe(1);
     await context.close();
-  });
+  }, 120_000);
 
   it.runIf(SHOTS_DIR)('should look finished on a desk screen (screenshots only)', async () => {
     const context = await browser.newContext({ viewport: DESK });

@@ -118,7 +118,14 @@ async function tapPlan(page: Page, p: { x: number; y: number }): Promise<void> {
 }
 
 async function chooseTool(page: Page, name: string): Promise<void> {
-  await page.getByRole('toolbar', { name: 'Plan tools' }).getByRole('radio', { name }).click();
+  // Chosen until it shows as chosen: a tap while the editor re-renders from a refetch can be lost.
+  const radio = page.getByRole('toolbar', { name: 'Plan tools' }).getByRole('radio', { name });
+  await expect
+    .poll(async () => {
+      if (!(await radio.isChecked())) await radio.click();
+      return radio.isChecked();
+    })
+    .toBe(true);
 }
 
 async function waitForToast(page: Page, title: string): Promise<void> {

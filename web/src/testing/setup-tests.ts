@@ -1,7 +1,7 @@
 import '@testing-library/jest-dom/vitest';
 
 import { cleanup, configure } from '@testing-library/react';
-import { afterEach, vi } from 'vitest';
+import { afterAll, afterEach, beforeAll, vi } from 'vitest';
 
 // Fluent inserts its styles on first render, which jsdom parses slowly; when every project runs at
 // once the default 1 s wait for findBy* is too tight.
@@ -10,6 +10,17 @@ configure({ asyncUtilTimeout: 3_000 });
 afterEach(() => {
   cleanup();
   vi.restoreAllMocks();
+});
+
+// Test files share a worker (the web project runs with isolate: false): each file starts with empty
+// storage and ends with real timers and no stubbed globals, whatever the previous file did.
+beforeAll(() => {
+  localStorage.clear();
+  sessionStorage.clear();
+});
+afterAll(() => {
+  vi.useRealTimers();
+  vi.unstubAllGlobals();
 });
 
 // jsdom has no matchMedia; the theme follows it, so answer "light" and never change.
