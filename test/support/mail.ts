@@ -21,7 +21,7 @@ export interface WaitForMailOptions {
  * mail (invitations, resets) and packet mail go through send queues, so a message lands a moment after
  * the request that caused it.
  */
-export async function waitForMail(to: string, { timeoutMs = 10_000, subject, after }: WaitForMailOptions = {}): Promise<CapturedMail> {
+export async function waitForMail(to: string, { timeoutMs = 20_000, subject, after }: WaitForMailOptions = {}): Promise<CapturedMail> {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     const mail = await withDb(async (client) => {
