@@ -7,3 +7,4 @@ export { SaveStateBar } from './components/save-state-bar';
 export { TiesEditor, type TieDraft } from './components/ties-editor';
 export { useJobWriter } from './hooks/job-writer';
 export { jobPermissions } from './utils/job-permissions';
+export { requestPhoneFix, type GpsFix } from './utils/phone-fix';

@@ -2,36 +2,18 @@ import { Button, makeStyles, Spinner, Text, tokens } from '@fluentui/react-compo
 import { MyLocation20Regular } from '@fluentui/react-icons';
 import { useState } from 'react';
 import type { SiteFrame } from '@domain/as-built/as-built.schema';
-import { createLocalFrame, wgs84ToPlan } from '@domain/geometry/local-tangent-plane';
 
 import { useFormStyles } from '../../../components/form-styles';
 import { formatLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
+import { requestPhoneFix, type GpsFix } from '../utils/phone-fix';
 
 const useStyles = makeStyles({
   root: { display: 'flex', flexDirection: 'column', alignItems: 'flex-start', gap: tokens.spacingVerticalS },
   weak: { color: tokens.colorPaletteDarkOrangeForeground1 },
 });
 
-/** A phone fix on the site plan (metres), with the phone's stated accuracy radius (metres). */
-export type GpsFix = { x: number; y: number; accuracyM: number };
-
-/**
- * A phone position (WGS 84 degrees, as `navigator.geolocation` reports it) on the plan through the
- * site's local tangent plane (origin + the plan's north azimuth), the same conversion as the locate
- * map. Undefined without a GPS origin.
- */
-export function gpsFixOnPlan(site: SiteFrame | undefined, coords: { latitude: number; longitude: number; accuracy: number }): GpsFix | undefined {
-  if (!site?.origin) return undefined;
-  const p = wgs84ToPlan(createLocalFrame(site.origin, site.northAzimuthDeg), coords.latitude, coords.longitude);
-  return { x: p.x, y: p.y, accuracyM: Math.min(10_000, Math.max(0, coords.accuracy)) };
-}
-
-function failureOf(code: number | undefined): string {
-  if (code === 1) return 'Location permission was refused: allow it for this site in the browser settings, or tape ties.';
-  if (code === 3) return 'The phone did not find its position in time. Try again in the open, or tape ties.';
-  return 'This device cannot give its position. Tape ties instead.';
-}
+export type { GpsFix } from '../utils/phone-fix';
 
 type GpsPositionProps = {
   site: SiteFrame | undefined;
@@ -51,19 +33,13 @@ export function GpsPosition({ site, fix, onChange }: GpsPositionProps) {
   if (!site?.origin) return null;
 
   const locate = () => {
-    if (typeof navigator === 'undefined' || !navigator.geolocation) {
-      setState({ status: 'error', message: failureOf(undefined) });
-      return;
-    }
     setState({ status: 'waiting' });
-    navigator.geolocation.getCurrentPosition(
-      (position) => {
-        const next = gpsFixOnPlan(site, position.coords);
+    requestPhoneFix(site).then(
+      (next) => {
         setState({ status: 'idle' });
-        if (next) onChange(next);
+        onChange(next);
       },
-      (error) => setState({ status: 'error', message: failureOf(error.code) }),
-      { enableHighAccuracy: true, maximumAge: 0, timeout: 30_000 },
+      (error: Error) => setState({ status: 'error', message: error.message }),
     );
   };
 

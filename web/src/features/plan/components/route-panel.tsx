@@ -1,5 +1,5 @@
 import { Button, Field, Select, Spinner, Text } from '@fluentui/react-components';
-import { ArrowUndo24Regular, Checkmark24Regular, Delete24Regular, Pen24Regular } from '@fluentui/react-icons';
+import { ArrowUndo24Regular, Checkmark24Regular, Delete24Regular, MyLocation24Regular, Pen24Regular } from '@fluentui/react-icons';
 import type { AsBuilt } from '@domain/as-built/as-built.schema';
 import type { PlanPoint } from '@domain/as-built/common.schema';
 import { polylineLengthM } from '@domain/geometry/polyline';
@@ -10,6 +10,19 @@ import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 import { usePanelStyles } from './panel-styles';
 
 export type RouteMode = 'draw' | 'edit';
+
+/** "Use my position" on the route: add the next point (drawing) or move the picked one (changing). */
+export type RoutePhonePosition = {
+  action: 'add' | 'move';
+  /** Moving needs a picked point. */
+  canUse: boolean;
+  isWaiting: boolean;
+  /** Why the phone gave no position. */
+  error: string | undefined;
+  /** The point that stands at the last phone fix (1-based), and that fix's accuracy radius in metres. */
+  fix: { pointNumber: number; accuracyM: number } | undefined;
+  onUse: () => void;
+};
 
 type RoutePanelProps = {
   asBuilt: AsBuilt;
@@ -26,7 +39,40 @@ type RoutePanelProps = {
   onContinue: () => void;
   onSave: () => void;
   onDiscard: () => void;
+  /** Absent where the site has no GPS origin. */
+  phonePosition?: RoutePhonePosition;
 };
+
+function PhonePosition({ phone, isSaving }: { phone: RoutePhonePosition; isSaving: boolean }) {
+  const styles = usePanelStyles();
+  const [units] = useUnitPreferences();
+  return (
+    <>
+      <div className={styles.actions}>
+        <Button
+          className={styles.button}
+          icon={phone.isWaiting ? <Spinner size="tiny" /> : <MyLocation24Regular />}
+          disabled={!phone.canUse || phone.isWaiting || isSaving}
+          onClick={phone.onUse}
+        >
+          {phone.action === 'add' ? 'Add a point at my position' : 'Move the picked point to my position'}
+        </Button>
+      </div>
+      {!phone.canUse && <Text className={styles.muted}>Tap a point of the route first, then stand where that bend is.</Text>}
+      {phone.fix && (
+        <Text className={styles.warning} aria-live="polite">
+          Point {phone.fix.pointNumber} is your phone’s position, good to about ±{formatLength(phone.fix.accuracyM, units.length, 'long')}. A phone fix
+          is several times weaker than taped ties: tape the bends where you can.
+        </Text>
+      )}
+      {phone.error && (
+        <Text className={styles.warning} role="alert">
+          {phone.error}
+        </Text>
+      )}
+    </>
+  );
+}
 
 /** Choose a run, then draw its route point by point, or change a drawn one. */
 export function RoutePanel(props: RoutePanelProps) {
@@ -101,6 +147,7 @@ export function RoutePanel(props: RoutePanelProps) {
               </Button>
             )}
           </div>
+          {props.phonePosition && <PhonePosition phone={props.phonePosition} isSaving={isSaving} />}
         </>
       )}
     </section>

@@ -3,7 +3,7 @@ import type { AsBuilt } from '@domain/as-built/as-built.schema';
 import type { PlanPoint } from '@domain/as-built/common.schema';
 
 import { usePersistedDraft } from '../../../lib/drafts';
-import type { useJobWriter } from '../../jobs';
+import { requestPhoneFix, type GpsFix, type useJobWriter } from '../../jobs';
 import type { PlanHit } from '../components/plan-canvas';
 import type { RouteMode } from '../components/route-panel';
 import { insertRoutePoint, moveRoutePoint, removeRoutePoint, roundPlanPoint } from '../utils/plan-geometry';
@@ -11,6 +11,9 @@ import { runBodyWithRoute } from '../utils/plan-records';
 
 type JobWrite = Parameters<ReturnType<typeof useJobWriter>['save']>[0];
 type SaveOutcome = Awaited<ReturnType<ReturnType<typeof useJobWriter>['save']>>;
+
+/** "Use my position" on a route point: waiting for the phone, or what went wrong. */
+type PhoneState = { status: 'idle' | 'waiting' } | { status: 'error'; message: string };
 
 type RouteToolOptions = {
   jobId: string;
@@ -32,12 +35,38 @@ export function useRouteTool({ jobId, asBuilt, saveJobWrite, selectedVertex, set
   const draftKey = `job:${jobId}:plan-route:${runId || 'none'}`;
   const draft = usePersistedDraft<PlanPoint[]>(draftKey, run?.route ?? []);
   const points = runId ? draft.value : [];
+  const [phone, setPhone] = useState<PhoneState>({ status: 'idle' });
+  /** The last phone fix put on the route: shown with its accuracy while a point still stands there. */
+  const [lastFix, setLastFix] = useState<GpsFix | undefined>();
+  const fixIndex = lastFix ? points.findIndex((p) => p.x === lastFix.x && p.y === lastFix.y) : -1;
+  const hasOrigin = Boolean(asBuilt.site?.origin);
 
   const start = (next: string) => {
     setRunId(next);
     const chosen = asBuilt.runs.find((candidate) => candidate.id === next);
     setMode(chosen?.route ? 'edit' : 'draw');
     setSelectedVertex(undefined);
+    setPhone({ status: 'idle' });
+  };
+
+  /**
+   * "Use my position" (issue 17): the phone's fix through the site's local tangent plane, as the item
+   * form does. Drawing, it adds the next point; changing a drawn route, it moves the picked point.
+   */
+  const placeAtPhonePosition = () => {
+    if (!run) return;
+    const target = mode === 'edit' ? selectedVertex : undefined;
+    if (mode === 'edit' && target === undefined) return;
+    setPhone({ status: 'waiting' });
+    requestPhoneFix(asBuilt.site).then(
+      (fix) => {
+        const point = { x: fix.x, y: fix.y };
+        draft.setValue((current) => (target === undefined ? [...current, point] : moveRoutePoint(current, target, point)));
+        setLastFix(fix);
+        setPhone({ status: 'idle' });
+      },
+      (error: Error) => setPhone({ status: 'error', message: error.message }),
+    );
   };
 
   const save = async () => {
@@ -65,7 +94,7 @@ export function useRouteTool({ jobId, asBuilt, saveJobWrite, selectedVertex, set
       const to = asBuilt.items.find((item) => item.id === run.toItemId)?.label ?? 'its end';
       return points.length === 0 ? `Tap where the trench starts, at ${from}.` : `Tap the next bend of the trench, toward ${to}. Point ${points.length + 1}.`;
     }
-    return 'Drag a point to move it. Tap the line to add a point. Tap a point to pick it for deleting.';
+    return `Drag a point to move it. Tap the line to add a point. Tap a point to pick it for deleting${hasOrigin ? ' or for your phone position' : ''}.`;
   };
 
   return {
@@ -118,6 +147,17 @@ export function useRouteTool({ jobId, asBuilt, saveJobWrite, selectedVertex, set
         setSelectedVertex(undefined);
       },
       onSave: () => void save(),
+      /** Absent where the site has no GPS origin: a phone position cannot be put on the plan. */
+      phonePosition: hasOrigin
+        ? {
+            action: mode === 'edit' ? ('move' as const) : ('add' as const),
+            canUse: mode === 'draw' || selectedVertex !== undefined,
+            isWaiting: phone.status === 'waiting',
+            error: phone.status === 'error' ? phone.message : undefined,
+            fix: lastFix && fixIndex >= 0 ? { pointNumber: fixIndex + 1, accuracyM: lastFix.accuracyM } : undefined,
+            onUse: placeAtPhonePosition,
+          }
+        : undefined,
       onDiscard: () => {
         draft.clear();
         setMode(run?.route ? 'edit' : 'draw');
