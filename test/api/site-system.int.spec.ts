@@ -45,11 +45,19 @@ describe('the site system: a later job builds on what is in the ground', () => {
   let lead: Api;
   let siteId: string;
   const first = {} as { job: JobFixture; amp: { id: string; channels: { id: string }[] }; speaker: string; spareEnd: string; liveRun: string; spareRun: string };
+  /** The speaker the first job added in its revision 2 (set by the test that issues it). */
+  let gateSpeaker = '';
 
   /** A job in progress on the site, led by the company's lead; `write` keeps its version. */
   async function openJob(title?: string) {
     let job = await moveJob(office, await createJob(office, siteId, { crewLeadUserId: company.users.lead.id }), 'in_progress');
     if (title) job = { ...job, version: (await office.expectOk('patch', `/api/jobs/${job.id}`, { title, expectedVersion: job.version })).version };
+    return writer(job);
+  }
+
+  /** Writes to a job in progress as its lead, keeping its version. */
+  function writer(initial: JobFixture) {
+    let job = initial;
     const send = (method: 'post' | 'put' | 'delete', path: string, body?: object) =>
       lead.send(method, `/api/jobs/${job.id}${path}`, body, { 'If-Match': `"${job.version}"` }).then((res) => {
         if (res.status < 300) job = { ...job, version: res.body.jobVersion };
@@ -223,6 +231,8 @@ describe('the site system: a later job builds on what is in the ground', () => {
     const loser = one.status === 409 ? one : two;
     const winner = one.status === 409 ? e : d;
     expect(loser.body).toMatchObject({ code: 'RECORD_CHANGED_BY_OTHER_JOB', message: expect.stringContaining(one.status === 409 ? 'Gate speakers' : 'Patio refresh') });
+    // The message names the run as the losing job sees it (the winner's relabel has not happened for it).
+    expect(loser.body.message).toContain('run "Amp to lawn speaker"');
     const label = await withDb(async (db) => (await db.query(`select label from runs where id = $1`, [first.liveRun])).rows[0].label);
     expect(label).toBe(one.status === 409 ? 'Gate label' : 'Patio label');
     // The record stays held until the winner undoes (or issues) its change; then the other job may change it.
@@ -238,6 +248,7 @@ describe('the site system: a later job builds on what is in the ground', () => {
     let a: JobFixture = await moveJob(office, { ...first.job, version }, 'in_progress');
     const draft = await lead.expectOk('post', `/api/jobs/${a.id}/items`, speaker('Gate speaker'), { 'If-Match': `"${a.version}"` });
     a = { ...a, version: draft.jobVersion };
+    gateSpeaker = draft.item.id;
 
     // Meanwhile another job is issued: its frozen system and What changed hold only what is issued or its own.
     const g = await openJob('Hedge lights');
@@ -293,5 +304,88 @@ describe('the site system: a later job builds on what is in the ground', () => {
       'Fire pit zone 1 false',
       'Garden speakers 1 false',
     ]);
+  });
+  it('keeps another open job’s unissued amplifier setting out of other jobs’ view and packet; undo puts it back', async () => {
+    const channelId = first.amp.channels[0]!.id;
+    const setupPath = `/items/${first.amp.id}/channels/${channelId}/setup`;
+    const snapshotOf = async (revisionId: string) =>
+      withDb(async (db) => (await db.query(`select snapshot from packet_revisions where id = $1`, [revisionId])).rows[0].snapshot);
+    // A job sets the channel to -12 dB and issues it: that is the site's record of the setting.
+    const commissioning = await openJob('Amp commissioning');
+    await commissioning.write('put', setupPath, { source: 'Streamer', gain: '-12 dB' });
+    const commissioned = await snapshotOf((await issue(commissioning.job())).id);
+    expect(commissioned.whatChanged.changed).toEqual([expect.objectContaining({ kind: 'item', id: first.amp.id, label: 'Pool house amplifier', jobTitle: 'Amp commissioning' })]);
+
+    const h = await openJob('Amp tune-up');
+    await h.write('put', setupPath, { source: 'Streamer', gain: '-6 dB' });
+    expect((await h.asBuilt()).records.channelSetups[channelId]).toMatchObject({ source: 'Streamer', gain: '-6 dB' });
+
+    // Another open job sees the setting as issued, cannot change it meanwhile, and its packet prints -12 dB.
+    const i = await openJob('Side yard speaker');
+    await i.write('post', '/items', speaker('Side yard speaker'));
+    expect((await i.asBuilt()).records.channelSetups[channelId]).toMatchObject({ source: 'Streamer', gain: '-12 dB' });
+    const refused = await i.send('put', setupPath, { gain: '-3 dB' });
+    expect(refused.status).toBe(409);
+    expect(refused.body).toMatchObject({ code: 'RECORD_CHANGED_BY_OTHER_JOB' });
+    expect(refused.body.message).toContain('item "Pool house amplifier"');
+    expect(refused.body.message).toContain('Amp tune-up');
+    const iSnapshot = await snapshotOf((await issue(i.job())).id);
+    expect(iSnapshot.channelSetups[channelId]).toMatchObject({ source: 'Streamer', gain: '-12 dB' });
+    expect(iSnapshot.siteRecords[first.amp.id].changedBy.map((c: { jobTitle: string }) => c.jobTitle)).toEqual(['Amp commissioning']);
+    expect(iSnapshot.whatChanged.changed.map((r: { id: string }) => r.id)).not.toContain(first.amp.id);
+
+    // Undo restores the setting itself, not only the amplifier's fields.
+    await h.write('delete', `/site-changes/${first.amp.id}`);
+    const gain = async () => withDb(async (db) => (await db.query(`select gain from amplifier_channels where id = $1`, [channelId])).rows[0].gain);
+    expect(await gain()).toBe('-12 dB');
+
+    // Changed again and issued: from then on every job sees -6 dB.
+    await h.write('put', setupPath, { source: 'Streamer', gain: '-6 dB' });
+    const hSnapshot = await snapshotOf((await issue(h.job())).id);
+    expect(hSnapshot.channelSetups[channelId]).toMatchObject({ gain: '-6 dB' });
+    expect(hSnapshot.whatChanged.changed).toEqual([expect.objectContaining({ kind: 'item', id: first.amp.id, jobTitle: 'Amp tune-up' })]);
+    const later = await openJob('Later look');
+    expect((await later.asBuilt()).records.channelSetups[channelId]).toMatchObject({ gain: '-6 dB' });
+  });
+
+  it('records a reopened job’s removal of a record it had issued (with its date) instead of deleting it; a record never issued is deleted', async () => {
+    expect(gateSpeaker).not.toBe('');
+    const version = (await office.expectOk('get', `/api/jobs/${first.job.id}`)).version as number;
+    const a = writer(await moveJob(office, { ...first.job, version }, 'in_progress'));
+    const k = await openJob('Path lights');
+    const row = async (id: string) =>
+      withDb(async (db) => (await db.query(`select job_id, removed_by_job_id, removed_on::text from items where id = $1`, [id])).rows[0]);
+
+    // The Gate speaker went into the ground with revision 2: taking it out now is a dated removal by the job.
+    expect((await a.asBuilt()).records.siteRecords[gateSpeaker]).toMatchObject({ isThisJob: true, isIssued: true });
+    await a.write('delete', `/items/${gateSpeaker}`);
+    expect(await row(gateSpeaker)).toEqual({ job_id: first.job.id, removed_by_job_id: first.job.id, removed_on: '2026-05-14' });
+    let view = await a.asBuilt();
+    expect(view.asBuilt.items.map((i: { id: string }) => i.id)).not.toContain(gateSpeaker);
+    expect(view.records.removedByThisJob).toEqual([{ kind: 'item', id: gateSpeaker, label: 'Gate speaker', removedOn: '2026-05-14' }]);
+    // Not issued yet: for another open job the speaker is still in the ground.
+    expect((await k.asBuilt()).asBuilt.items.map((i: { id: string }) => i.id)).toContain(gateSpeaker);
+
+    // Put back (undo), it is the job's issued record again.
+    await a.write('delete', `/site-changes/${gateSpeaker}`);
+    expect(await row(gateSpeaker)).toMatchObject({ removed_by_job_id: null, removed_on: null });
+    view = await a.asBuilt();
+    expect(view.asBuilt.items.map((i: { id: string }) => i.id)).toContain(gateSpeaker);
+
+    // A speaker added and deleted within this revision never was in the ground: its row goes.
+    const temporary = (await a.write('post', '/items', speaker('Temporary speaker'))).item.id;
+    expect((await a.asBuilt()).records.siteRecords[temporary]).toMatchObject({ isThisJob: true, isIssued: false });
+    await a.write('delete', `/items/${temporary}`);
+    expect(await row(temporary)).toBeUndefined();
+
+    // Removed again and issued: revision 3 says what was removed, when and by which job; it is gone for everyone.
+    await a.write('delete', `/items/${gateSpeaker}`);
+    const issued = await issue(a.job());
+    const snapshot = await withDb(async (db) => (await db.query(`select snapshot from packet_revisions where id = $1`, [issued.id])).rows[0].snapshot);
+    expect(snapshot.revision).toBe(3);
+    expect(snapshot.siteRecords[first.speaker]).not.toHaveProperty('isIssued');
+    expect(snapshot.whatChanged.removed).toEqual([{ kind: 'item', id: gateSpeaker, label: 'Gate speaker', on: '2026-05-14', jobTitle: 'Garden speakers' }]);
+    expect((await k.asBuilt()).asBuilt.items.map((i: { id: string }) => i.id)).not.toContain(gateSpeaker);
+    expect(await row(gateSpeaker)).toMatchObject({ removed_by_job_id: first.job.id, removed_on: '2026-05-14' });
   });
 });

@@ -14,7 +14,7 @@ import type {
   RunRow,
   ZoneRow,
 } from '../db/schema/index.js';
-import { depthReadingIdsByRun, type JobRecordRows, toAsBuilt, toRecordRows, toSiteRecords } from './as-built-rows.js';
+import { depthReadingIdsByRun, type JobRecordRows, toAsBuilt, toChannelSetups, toRecordRows, toSiteRecords } from './as-built-rows.js';
 
 const now = new Date('2026-05-14T12:00:00Z');
 
@@ -143,6 +143,69 @@ describe('another open job’s unissued change (issue 21)', () => {
         abandoned: { jobId: 'job-open', jobTitle: 'Fire pit zone', on: '2027-04-02' },
       });
     }
+  });
+});
+
+describe('toSiteRecords: which records are already issued (issue 21)', () => {
+  it('marks another job’s records issued, and this job’s own only when added before its last issue', () => {
+    const rows = asStored();
+    const [older, newer] = rows.items;
+    const later = new Date(now.getTime() + 60_000);
+    const viewed = (jobId: string, lastIssuedAt: Date | null): JobRecordRows => ({
+      ...rows,
+      items: rows.items.map((i) => (i.id === newer!.id ? { ...i, createdAt: later } : i)),
+      system: { jobId, jobTitles: {}, changes: [], removedByThisJob: [], lastIssuedAt },
+    });
+    const reopened = toSiteRecords(viewed('job-1', now));
+    expect(reopened[older!.id]).toMatchObject({ isThisJob: true, isIssued: true });
+    expect(reopened[newer!.id]).toMatchObject({ isThisJob: true, isIssued: false });
+    expect(toSiteRecords(viewed('job-1', null))[older!.id]).toMatchObject({ isIssued: false });
+    expect(toSiteRecords(viewed('job-2', null))[newer!.id]).toMatchObject({ isThisJob: false, isIssued: true });
+  });
+});
+
+describe('toChannelSetups: another open job’s unissued amplifier setting (issue 21)', () => {
+  // The earlier job left the amplifier's first channel at -12 dB; a later open job turned it to -6 dB
+  // and added a channel, without issuing. The set-up is not part of the as-built item, so the change
+  // row keeps it beside the item as it was.
+  const rows = asStored();
+  const amp = toAsBuilt(rows).items.find((i) => i.kind === 'amplifier')!;
+  const [first, ...others] = rows.channels.filter((c) => c.itemId === amp.id);
+  const setup = (gain: string | null) => ({ source: null, gain, volumeLimit: null, eq: null, crossover: null, polarity: null, firmware: null, networkName: null, notes: null });
+  const added = { ...first!, id: 'db:channel-added-by-open-job', seq: 999, name: 'Added', gain: '0 dB' };
+  const changedRows = (viewer: string, issuedAt: Date | null, before: Record<string, unknown>): JobRecordRows => ({
+    ...rows,
+    channels: [...rows.channels.map((c) => (c.id === first!.id ? { ...c, gain: '-6 dB' } : c)), added],
+    system: {
+      jobId: viewer,
+      jobTitles: {},
+      changes: [
+        { id: 'change-1', siteId: 'site-1', jobId: 'job-open', recordKind: 'item', recordId: amp.id, change: 'changed', before, changedOn: '2027-04-02', issuedAt, createdAt: now, updatedAt: now },
+      ],
+      removedByThisJob: [],
+    },
+  });
+  const before = { record: amp, abandoned: null, channelSetups: { [first!.id]: setup('-12 dB'), ...Object.fromEntries(others.map((c) => [c.id, setup(null)])) } };
+
+  it('shows any other job the set-up as it was before the change, without the channel it added', () => {
+    const setups = toChannelSetups(changedRows('job-view', null, before));
+    expect(setups[first!.id]).toEqual(setup('-12 dB'));
+    expect(setups).not.toHaveProperty(added.id);
+    expect(Object.keys(setups).sort()).toEqual(rows.channels.map((c) => c.id).sort());
+  });
+
+  it('shows the change to the job that made it, and to everyone once it is issued', () => {
+    for (const viewed of [changedRows('job-open', null, before), changedRows('job-view', now, before)]) {
+      const setups = toChannelSetups(viewed);
+      expect(setups[first!.id]).toEqual(setup('-6 dB'));
+      expect(setups[added.id]).toEqual(setup('0 dB'));
+    }
+  });
+
+  it('falls back to the channel row for a change recorded before set-ups were kept with it', () => {
+    const setups = toChannelSetups(changedRows('job-view', null, { record: amp, abandoned: null }));
+    expect(setups[first!.id]).toEqual(setup('-6 dB'));
+    expect(setups).not.toHaveProperty(added.id);
   });
 });
 

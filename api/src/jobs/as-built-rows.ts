@@ -59,6 +59,8 @@ export interface JobRecordRows {
     changes: SiteRecordChangeRow[];
     /** Records of earlier jobs this job removed (no longer part of its system). */
     removedByThisJob: { kind: 'item' | 'run'; id: string; label: string; removedOn: string }[];
+    /** When this job last issued a packet revision (null: never); its records added by then are issued. */
+    lastIssuedAt?: Date | null;
   };
 }
 
@@ -223,9 +225,14 @@ function toCheck(row: CommissioningCheckRow): CommissioningCheck {
 }
 
 /** What an earlier record looked like before a job's first change to it (`site_record_changes.before`). */
-interface ChangeBefore {
+export interface ChangeBefore {
   record: Item | Run;
   abandoned: { jobId: string; on: string } | null;
+  /**
+   * An amplifier's channel set-ups by channel id (they are not part of the as-built item). Absent in
+   * changes recorded before set-ups were kept with them.
+   */
+  channelSetups?: Record<string, ChannelSetup>;
 }
 
 /**
@@ -309,10 +316,13 @@ export function toSiteRecords(rows: JobRecordRows): Record<string, SiteRecordInf
     const by = before ? before.abandoned : row.abandonedByJobId !== null && row.abandonedOn !== null ? { jobId: row.abandonedByJobId, on: row.abandonedOn } : null;
     return by ? { jobId: by.jobId, jobTitle: title(by.jobId), on: by.on } : null;
   };
+  const lastIssuedAt = system.lastIssuedAt ?? null;
   const add = (kind: 'item' | 'run', row: ItemRow | RunRow) => {
     out[row.id] = {
       kind,
       isThisJob: row.jobId === system.jobId,
+      // Another job's record is in this job's view only once issued (JobsRepository.loadRecord).
+      isIssued: row.jobId !== system.jobId || (lastIssuedAt !== null && row.createdAt.getTime() <= lastIssuedAt.getTime()),
       installedBy: { jobId: row.jobId, jobTitle: title(row.jobId) },
       installedOn: row.installedOn,
       changedBy: (changesByRecord.get(row.id) ?? []).map((c) => ({
@@ -327,6 +337,31 @@ export function toSiteRecords(rows: JobRecordRows): Record<string, SiteRecordInf
   };
   for (const row of [...rows.items].sort(bySeq)) add('item', row);
   for (const row of [...rows.runs].sort(bySeq)) add('run', row);
+  return out;
+}
+
+/**
+ * The set-up of every amplifier channel in the job's view of the system, by channel id. An amplifier
+ * another open job has changed without issuing shows the set-ups it had before that change, as
+ * toAsBuilt shows its fields (issue 21: a gain turned down by another open job is not in this job's
+ * packet). A change recorded before set-ups were kept with it falls back to the channel's row.
+ */
+export function toChannelSetups(rows: Pick<JobRecordRows, 'channels' | 'system'>): Record<string, ChannelSetup> {
+  const held = openChangesOfOtherJobs(rows);
+  /** The channels of an amplifier as it was before another open job's change, with their set-ups then. */
+  const heldChannels = (itemId: string): Map<string, ChannelSetup | undefined> | undefined => {
+    const before = held.get(itemId)?.before;
+    if (!before) return undefined;
+    const record = before.record as Item;
+    return new Map((record.kind === 'amplifier' ? record.channels : []).map((c) => [c.id, before.channelSetups?.[c.id]]));
+  };
+  const out: Record<string, ChannelSetup> = {};
+  for (const row of [...rows.channels].sort(bySeq)) {
+    const before = heldChannels(row.itemId);
+    // A channel the other job added is not on the amplifier as this job sees it.
+    if (before && !before.has(row.id)) continue;
+    out[row.id] = before?.get(row.id) ?? toChannelSetup(row);
+  }
   return out;
 }
 

@@ -44,10 +44,13 @@ export function inUse(what: string, issues: FieldIssue[]): ConflictError {
   );
 }
 
-/** Another open job of the site has an unissued change to the same record of the site's system. */
-export function recordHeldByOtherJob(what: 'item' | 'run', other: { jobId: string; title: string }): ConflictError {
+/**
+ * Another open job of the site has an unissued change to the same record of the site's system; the
+ * message names the record (by its label) and the job holding it.
+ */
+export function recordHeldByOtherJob(what: 'item' | 'run', label: string, other: { jobId: string; title: string }): ConflictError {
   return new ConflictError(
     'RECORD_CHANGED_BY_OTHER_JOB',
-    `This ${what} is being changed by another open job on this property ("${other.title}"). Issue or undo that job's change first, then change it here.`,
+    `The ${what} "${label}" is being changed by another open job on this property ("${other.title}"). Issue or undo that job's change first, then change it here.`,
   );
 }

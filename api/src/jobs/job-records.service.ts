@@ -22,6 +22,7 @@ import {
 import type { JobVersionResponse } from '../domain/jobs/job.schema.js';
 import { type FieldIssue, validateRecord } from '../domain/jobs/record-validation.js';
 import {
+  type ChangeBefore,
   depthReadingIdsByRun,
   jobWorkDate,
   type RecordPlace,
@@ -55,9 +56,21 @@ function placeOf(job: Job): RecordPlace {
 }
 
 /** What a record looked like before this job's first change to it (kept to show and undo the change). */
-export interface RecordBefore {
-  record: Item | Run;
-  abandoned: { jobId: string; on: string } | null;
+export type RecordBefore = ChangeBefore;
+
+/** The columns of a channel's set-up. */
+function channelSetupRow(setup: ChannelSetup) {
+  return {
+    source: setup.source ?? null,
+    gain: setup.gain ?? null,
+    volumeLimit: setup.volumeLimit ?? null,
+    eq: setup.eq ?? null,
+    crossover: setup.crossover ?? null,
+    polarity: setup.polarity ?? null,
+    firmware: setup.firmware ?? null,
+    networkName: setup.networkName ?? null,
+    setupNotes: setup.notes ?? null,
+  };
 }
 
 /**
@@ -175,23 +188,23 @@ export class JobRecordsService {
   }
 
   /**
-   * Deletes one of this job's items. An item an earlier job installed is not deleted: it is recorded as
-   * removed by this job (taken out of the ground) on the job's work date, and leaves the system.
+   * Deletes one of this job's items not yet issued. An item of the site's record (an earlier job
+   * installed it, or this job did and issued it before being reopened) is not deleted: it is recorded
+   * as removed by this job (taken out of the ground) on the job's work date, and leaves the system.
    */
   deleteItem(actor: AuthUser, jobId: string, itemId: string, expectedVersion: number): Promise<JobVersionResponse> {
     return this.writer.write(actor, jobId, expectedVersion, 'record', async (ctx) => {
       const { tx, job, record } = ctx;
-      const { rows, asBuilt } = await record();
+      const { asBuilt } = await record();
       if (!asBuilt.items.some((i) => i.id === itemId)) throw recordNotFound('item');
       const issues = validateRecord({ ...asBuilt, items: asBuilt.items.filter((i) => i.id !== itemId) });
       if (issues.length > 0) throw inUse('item', issues);
-      const isExisting = rows.items.find((i) => i.id === itemId)!.jobId !== job.id;
+      const isSiteRecord = await this.hold(ctx, 'item', itemId, 'removed');
       const otherRuns = await this.repository.runsOfOtherJobsAt(itemId, job.id, tx);
-      if (!isExisting && otherRuns.length > 0) {
+      if (!isSiteRecord && otherRuns.length > 0) {
         throw inUse('item', [{ path: 'runs', message: `run "${otherRuns[0]!.label}" of another job starts or ends here` }]);
       }
-      await this.hold(ctx, 'item', itemId, 'removed');
-      if (isExisting) {
+      if (isSiteRecord) {
         await this.repository.setRemoved('item', itemId, { jobId: job.id, on: jobWorkDate(job) }, tx);
         return { result: {}, audit: { action: 'job.item.remove', targetType: 'item', targetId: itemId } };
       }
@@ -214,22 +227,7 @@ export class JobRecordsService {
       const { rows } = await record();
       if (!rows.channels.some((c) => c.id === channelId && c.itemId === itemId)) throw recordNotFound('channel');
       await this.hold(ctx, 'item', itemId, 'changed');
-      const row = await this.repository.updateChannelSetup(
-        itemId,
-        channelId,
-        {
-          source: input.source ?? null,
-          gain: input.gain ?? null,
-          volumeLimit: input.volumeLimit ?? null,
-          eq: input.eq ?? null,
-          crossover: input.crossover ?? null,
-          polarity: input.polarity ?? null,
-          firmware: input.firmware ?? null,
-          networkName: input.networkName ?? null,
-          setupNotes: input.notes ?? null,
-        },
-        tx,
-      );
+      const row = await this.repository.updateChannelSetup(itemId, channelId, channelSetupRow(input), tx);
       return {
         result: { channelSetup: toChannelSetup(row!) },
         audit: { action: 'job.channel_setup.update', targetType: 'amplifier_channel', targetId: channelId },
@@ -287,14 +285,16 @@ export class JobRecordsService {
     });
   }
 
-  /** Deletes one of this job's runs; an earlier job's run is recorded as removed by this job instead. */
+  /**
+   * Deletes one of this job's runs not yet issued; a run of the site's record (an earlier job's, or this
+   * job's own already issued) is recorded as removed by this job instead.
+   */
   deleteRun(actor: AuthUser, jobId: string, runId: string, expectedVersion: number): Promise<JobVersionResponse> {
     return this.writer.write(actor, jobId, expectedVersion, 'record', async (ctx) => {
       const { tx, job, record } = ctx;
-      const { rows, asBuilt } = await record();
+      const { asBuilt } = await record();
       if (!asBuilt.runs.some((r) => r.id === runId)) throw recordNotFound('run');
-      await this.hold(ctx, 'run', runId, 'removed');
-      if (rows.runs.find((r) => r.id === runId)!.jobId !== job.id) {
+      if (await this.hold(ctx, 'run', runId, 'removed')) {
         await this.repository.setRemoved('run', runId, { jobId: job.id, on: jobWorkDate(job) }, tx);
         return { result: {}, audit: { action: 'job.run.remove', targetType: 'run', targetId: runId } };
       }
@@ -329,6 +329,10 @@ export class JobRecordsService {
             tx,
           );
         }
+        // The channels' set-ups as they were (an amplifier setting is a change too).
+        for (const [channelId, setup] of Object.entries(before.channelSetups ?? {})) {
+          await this.repository.updateChannelSetup(recordId, channelId, channelSetupRow(setup), tx);
+        }
         await this.repository.setRemoved('item', recordId, null, tx);
         await this.repository.setAbandoned('item', recordId, before.abandoned, tx);
       } else {
@@ -354,8 +358,11 @@ export class JobRecordsService {
 
   /**
    * Before this job writes to a record of the site's system: locks the record's row, refuses (409) when
-   * another open job of the site has an unissued change to it, and, when an earlier job installed it,
-   * records this job's change (keeping the record as it was before the first one).
+   * another open job of the site has an unissued change to it, and, when the record is part of the
+   * site's record — an earlier job installed it, or this job did and has issued it (a reopened job) —
+   * records this job's change (keeping the record as it was before the first one, amplifier channel
+   * set-ups included), so that other jobs go on seeing it as issued until this job issues. Answers
+   * whether the record is such a site record (false: this job's own, never issued).
    */
   private async hold(
     ctx: WriteContext,
@@ -363,18 +370,25 @@ export class JobRecordsService {
     id: string,
     change: 'changed' | 'abandoned' | 'removed',
     options: { isExact?: boolean } = {},
-  ): Promise<void> {
+  ): Promise<boolean> {
     const { tx, job, record } = ctx;
     const row = await this.repository.lockSystemRecord(kind, id, job.siteId, tx);
     if (!row) throw recordNotFound(kind);
     const other = await this.repository.openChangeByOtherJob(id, job.id, tx);
-    if (other) throw recordHeldByOtherJob(kind, other);
-    if (row.jobId === job.id) return;
+    if (other) {
+      // Named as this job sees it: the other job's unissued relabel has not happened here.
+      const { asBuilt } = await record();
+      const seen = kind === 'item' ? asBuilt.items.find((i) => i.id === id) : asBuilt.runs.find((r) => r.id === id);
+      throw recordHeldByOtherJob(kind, seen?.label ?? row.label, other);
+    }
+    if (row.jobId === job.id && !row.isIssued) return false;
     const { rows, asBuilt } = await record();
     const source = kind === 'item' ? rows.items.find((i) => i.id === id) : rows.runs.find((r) => r.id === id);
+    const channels = kind === 'item' ? rows.channels.filter((c) => c.itemId === id) : [];
     const before: RecordBefore = {
       record: (kind === 'item' ? asBuilt.items.find((i) => i.id === id) : asBuilt.runs.find((r) => r.id === id))!,
       abandoned: source?.abandonedByJobId && source.abandonedOn ? { jobId: source.abandonedByJobId, on: source.abandonedOn } : null,
+      ...(channels.length > 0 ? { channelSetups: Object.fromEntries(channels.map((c) => [c.id, toChannelSetup(c)])) } : {}),
     };
     await this.repository.upsertChange(
       {
@@ -389,6 +403,7 @@ export class JobRecordsService {
       },
       tx,
     );
+    return true;
   }
 
   // ---- depth readings ---------------------------------------------------------------------------

@@ -373,6 +373,10 @@ export class JobsRepository {
       .where(eq(commissioningChecks.jobId, job.id))
       .orderBy(asc(commissioningChecks.seq));
     const siteJobs = await tx.select({ id: jobs.id, title: jobs.title }).from(jobs).where(eq(jobs.siteId, job.siteId));
+    const [lastIssue] = await tx
+      .select({ at: sql<Date | null>`max(${packetRevisions.issuedAt})`.mapWith(packetRevisions.issuedAt) })
+      .from(packetRevisions)
+      .where(eq(packetRevisions.jobId, job.id));
     const changeRows = await tx.select().from(siteRecordChanges).where(eq(siteRecordChanges.siteId, job.siteId)).orderBy(asc(siteRecordChanges.createdAt));
     const removedItems = await tx
       .select({ id: items.id, label: items.label, removedOn: items.removedOn })
@@ -403,17 +407,26 @@ export class JobsRepository {
           ...removedItems.map((r) => ({ kind: 'item' as const, id: r.id, label: r.label, removedOn: r.removedOn! })),
           ...removedRuns.map((r) => ({ kind: 'run' as const, id: r.id, label: r.label, removedOn: r.removedOn! })),
         ],
+        lastIssuedAt: lastIssue?.at ?? null,
       },
     };
   }
 
   // ---- the site's system: changes to earlier jobs' records ---------------------------------------
 
-  /** Locks an item or run row of the site until the transaction ends and returns who installed it. */
-  async lockSystemRecord(kind: 'item' | 'run', id: string, siteId: string, tx: Tx): Promise<{ jobId: string } | undefined> {
+  /**
+   * Locks an item or run row of the site until the transaction ends and returns who installed it, its
+   * label, and whether its installing job has issued it (a packet revision at or after it was added).
+   */
+  async lockSystemRecord(
+    kind: 'item' | 'run',
+    id: string,
+    siteId: string,
+    tx: Tx,
+  ): Promise<{ jobId: string; label: string; isIssued: boolean } | undefined> {
     const table = kind === 'item' ? items : runs;
     const [row] = await tx
-      .select({ jobId: table.jobId })
+      .select({ jobId: table.jobId, label: table.label, isIssued: sql<boolean>`${issuedSince(table.jobId, table.createdAt)}` })
       .from(table)
       .where(and(eq(table.id, id), eq(table.siteId, siteId)))
       .for('update');
@@ -440,14 +453,24 @@ export class JobsRepository {
     return row;
   }
 
-  /** Records (or updates) the job's change to an earlier record; `before` is kept from the first change. */
+  /**
+   * Records (or updates) the job's change to an earlier record. `before` is kept from the first change
+   * since the job's last issue: once issued, the record as that issue left it is what a new change of a
+   * reopened job starts from (and what other jobs see until it issues again).
+   */
   async upsertChange(change: Omit<NewSiteRecordChangeRow, 'id'>, tx: Tx): Promise<void> {
     await tx
       .insert(siteRecordChanges)
       .values(change)
       .onConflictDoUpdate({
         target: [siteRecordChanges.jobId, siteRecordChanges.recordId],
-        set: { change: change.change, changedOn: change.changedOn, issuedAt: null, updatedAt: new Date() },
+        set: {
+          change: change.change,
+          changedOn: change.changedOn,
+          before: sql`case when ${siteRecordChanges.issuedAt} is null then ${siteRecordChanges.before} else excluded.before end`,
+          issuedAt: null,
+          updatedAt: new Date(),
+        },
       });
   }
 
@@ -534,6 +557,7 @@ export class JobsRepository {
         issuedAt: packetRevisions.issuedAt,
         asBuilt: sql<PacketSnapshot['asBuilt'] | null>`${packetRevisions.snapshot} -> 'asBuilt'`,
         isSiteWide: sql<boolean>`${packetRevisions.snapshot} ? 'siteRecords'`,
+        channelSetups: sql<PacketSnapshot['channelSetups'] | null>`${packetRevisions.snapshot} -> 'channelSetups'`,
       })
       .from(packetRevisions)
       .innerJoin(jobs, eq(jobs.id, packetRevisions.jobId))

@@ -19,7 +19,7 @@ import type {
 } from '../domain/jobs/job.schema.js';
 import type { FieldIssue } from '../domain/jobs/record-validation.js';
 import { AsBuiltCache, type CachedAsBuilt, sha1, spliceAsBuiltAnswer } from './as-built-cache.js';
-import { depthReadingIdsByRun, toAsBuilt, toChannelSetup, toSiteRecords } from './as-built-rows.js';
+import { depthReadingIdsByRun, toAsBuilt, toChannelSetups, toSiteRecords } from './as-built-rows.js';
 import { denied, invalid, jobNotFound, versionConflict } from './job-errors.js';
 import { JobWriter } from './job-writer.js';
 import { type JobView, JobsRepository } from './jobs.repository.js';
@@ -242,7 +242,7 @@ export class JobsService {
       analysis: analyzeAsBuilt(asBuilt, fresh.depthRules ? { depthRules: fresh.depthRules } : {}),
       records: {
         depthReadingIds: depthReadingIdsByRun(rows),
-        channelSetups: Object.fromEntries(rows.channels.map((c) => [c.id, toChannelSetup(c)])),
+        channelSetups: toChannelSetups(rows),
         siteRecords: toSiteRecords(rows),
         removedByThisJob: rows.system?.removedByThisJob ?? [],
       },

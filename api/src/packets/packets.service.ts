@@ -12,8 +12,8 @@ import { canIssuePacket } from '../domain/jobs/job-rules.js';
 import { packetFileBase } from '../domain/packet/manifest.js';
 import { findingKey, type IssuePacketInput, matchAcknowledgements } from '../domain/packet/known-exceptions.js';
 import type { PacketSnapshot } from '../domain/packet/packet-snapshot.js';
-import { baselineSystem, whatChanged } from '../domain/packet/what-changed.js';
-import { jobWorkDate, toAsBuilt, toChannelSetup, toSiteRecords } from '../jobs/as-built-rows.js';
+import { baselineChannelSetups, baselineSystem, whatChanged } from '../domain/packet/what-changed.js';
+import { jobWorkDate, toAsBuilt, toChannelSetups, toSiteRecords } from '../jobs/as-built-rows.js';
 import { denied, jobNotFound, versionConflict } from '../jobs/job-errors.js';
 import { JobsRepository } from '../jobs/jobs.repository.js';
 import { LocateLinksService } from '../locate/locate-links.service.js';
@@ -151,18 +151,21 @@ export class PacketsService {
       const issuedAt = new Date();
       // The site's record: provenance of every record, what this job took out, and what changed
       // against the site's previous packet (which this one supersedes).
-      const siteRecords = toSiteRecords(rows);
+      // Whether a record was issued before is about the job being edited, not part of the frozen packet.
+      const siteRecords = Object.fromEntries(Object.entries(toSiteRecords(rows)).map(([id, { isIssued: _isIssued, ...info }]) => [id, info]));
       const removedRecords = rows.system?.removedByThisJob ?? [];
       const previous = await this.jobs.latestSitePacket(job.siteId, tx);
       // The system the previous packet left: itself, or (issued before the site record) merged with the
       // other jobs' packets of then.
-      const baseline = previous
-        ? baselineSystem(
-            (await this.jobs.sitePacketsUpTo(job.siteId, previous.issuedAt, tx)).flatMap((p) =>
-              p.asBuilt ? [{ issuedAt: p.issuedAt.toISOString(), asBuilt: p.asBuilt, isSiteWide: p.isSiteWide }] : [],
-            ),
+      const baselinePackets = previous
+        ? (await this.jobs.sitePacketsUpTo(job.siteId, previous.issuedAt, tx)).flatMap((p) =>
+            p.asBuilt ? [{ issuedAt: p.issuedAt.toISOString(), asBuilt: p.asBuilt, isSiteWide: p.isSiteWide, channelSetups: p.channelSetups }] : [],
           )
-        : undefined;
+        : [];
+      const baseline = previous ? baselineSystem(baselinePackets) : undefined;
+      // Amplifier settings are not part of the as-built items: compared beside them.
+      const channelSetups = toChannelSetups(rows);
+      const previousSetups = baselineChannelSetups(baselinePackets);
       const changes =
         previous && baseline
           ? whatChanged({
@@ -172,6 +175,7 @@ export class PacketsService {
               records: siteRecords,
               removed: removedRecords,
               job: { id: job.id, title: job.title, workDate: jobWorkDate(job) },
+              ...(previousSetups ? { setups: { previous: previousSetups, current: channelSetups } } : {}),
             })
           : undefined;
       const snapshot: PacketSnapshot = {
@@ -210,7 +214,7 @@ export class PacketsService {
         technicians: await this.jobs.technicians(jobId, tx),
         asBuilt,
         analysis,
-        channelSetups: Object.fromEntries(rows.channels.map((c) => [c.id, toChannelSetup(c)])),
+        channelSetups,
         ...(accepted.length > 0 ? { acknowledgements: accepted } : {}),
         siteRecords,
         removedRecords,

@@ -127,6 +127,12 @@ export const SiteRecordInfoSchema = z.object({
   kind: z.enum(['item', 'run']),
   /** Installed by the job being viewed (false: an earlier job's record, already in the ground). */
   isThisJob: z.boolean(),
+  /**
+   * Part of the site's issued record: an earlier job's, or this job's issued in an earlier revision (a
+   * reopened job). Deleting it records its removal by the job (dated) instead of deleting it. Absent in
+   * revisions issued before this was recorded.
+   */
+  isIssued: z.boolean().optional(),
   installedBy: z.object({ jobId: z.string(), jobTitle: z.string() }),
   /** ISO date: the installing job's work date. */
   installedOn: z.string(),

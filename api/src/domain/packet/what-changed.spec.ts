@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 
 import type { AsBuilt } from '../as-built/as-built.schema.js';
 import { DEMO_AS_BUILT } from '../as-built/demo-as-built.js';
-import { baselineSystem, whatChanged, whatChangedView } from './what-changed.js';
+import { baselineChannelSetups, baselineSystem, type ChannelSetups, whatChanged, whatChangedView } from './what-changed.js';
 
 const supersedes = { revisionId: 'rev-1', jobId: 'job-a', jobTitle: 'Garden speakers', revision: 1, issuedAt: '2026-05-14T16:00:00.000Z' };
 const job = { id: 'job-b', title: 'Fire pit zone', workDate: '2027-04-02' };
@@ -53,6 +53,33 @@ describe(whatChanged.name, () => {
     const same = whatChanged({ supersedes, previous: reordered, current: DEMO_AS_BUILT, records: {}, removed: [], job });
     expect([...same.added, ...same.changed, ...same.abandoned, ...same.removed]).toEqual([]);
     expect(whatChangedView({ settings: {} })).toBeNull();
+  });
+});
+
+describe('an amplifier setting as a change (issue 21)', () => {
+  const amp = DEMO_AS_BUILT.items.find((i) => i.kind === 'amplifier')!;
+  const [patio, spa] = amp.kind === 'amplifier' ? amp.channels : [];
+  const setup = (gain: string | null) => ({ source: null, gain, volumeLimit: null, eq: null, crossover: null, polarity: null, firmware: null, networkName: null, notes: null });
+  const previous: ChannelSetups = { [patio!.id]: setup('-12 dB'), [spa!.id]: setup(null) };
+  const compare = (current: ChannelSetups) =>
+    whatChanged({ supersedes, previous: DEMO_AS_BUILT, current: DEMO_AS_BUILT, records: {}, removed: [], job, setups: { previous, current } });
+
+  it('lists the amplifier as changed when a channel is set up differently, its fields unchanged', () => {
+    expect(compare({ ...previous, [patio!.id]: setup('-6 dB') }).changed).toEqual([{ kind: 'item', id: amp.id, label: amp.label, on: '2027-04-02', jobTitle: 'Fire pit zone' }]);
+  });
+
+  it('lists nothing when the set-ups are the same, or a channel has no set-up on one side', () => {
+    expect(compare({ ...previous }).changed).toEqual([]);
+    expect(compare({ [spa!.id]: setup(null) }).changed).toEqual([]);
+  });
+
+  it('takes the baseline set-ups from the site-wide packet alone, else merged with the later packet winning', () => {
+    const older = { issuedAt: '2026-05-14T16:00:00.000Z', asBuilt: DEMO_AS_BUILT, isSiteWide: false, channelSetups: previous };
+    const newer = { issuedAt: '2026-09-01T10:00:00.000Z', asBuilt: DEMO_AS_BUILT, isSiteWide: false, channelSetups: { [patio!.id]: setup('-3 dB') } };
+    expect(baselineChannelSetups([newer, older])).toEqual({ [patio!.id]: setup('-3 dB'), [spa!.id]: setup(null) });
+    expect(baselineChannelSetups([older, { ...newer, isSiteWide: true }])).toEqual({ [patio!.id]: setup('-3 dB') });
+    expect(baselineChannelSetups([{ ...older, channelSetups: null, isSiteWide: true }])).toBeUndefined();
+    expect(baselineChannelSetups([])).toBeUndefined();
   });
 });
 

@@ -1,5 +1,6 @@
 import type { AsBuilt } from '../as-built/as-built.schema.js';
 import { type DateStyle, formatDate } from '../format/date-time.js';
+import type { ChannelSetup } from '../jobs/job-record.schema.js';
 import type { SiteRecordInfo } from '../jobs/job.schema.js';
 
 /*
@@ -37,7 +38,10 @@ export interface WhatChanged {
   removed: ChangedRecord[];
 }
 
-type SystemRecord = { kind: 'item' | 'run'; id: string; label: string; isAbandoned: boolean; json: string };
+/** Amplifier channel set-ups by channel id, as a packet snapshot keeps them (`channelSetups`). */
+export type ChannelSetups = Readonly<Record<string, ChannelSetup>>;
+
+type SystemRecord = { kind: 'item' | 'run'; id: string; label: string; isAbandoned: boolean; json: string; channelIds: string[] };
 
 /** JSON with object keys sorted, so a record read back from jsonb (which reorders keys) compares equal. */
 function canonical(value: unknown): string {
@@ -50,8 +54,13 @@ function canonical(value: unknown): string {
 
 function recordsOf(asBuilt: AsBuilt): Map<string, SystemRecord> {
   const out = new Map<string, SystemRecord>();
-  for (const item of asBuilt.items) out.set(item.id, { kind: 'item', id: item.id, label: item.label, isAbandoned: false, json: canonical(item) });
-  for (const run of asBuilt.runs) out.set(run.id, { kind: 'run', id: run.id, label: run.label, isAbandoned: run.isAbandoned === true, json: canonical(run) });
+  for (const item of asBuilt.items) {
+    const channelIds = item.kind === 'amplifier' ? item.channels.map((c) => c.id) : [];
+    out.set(item.id, { kind: 'item', id: item.id, label: item.label, isAbandoned: false, json: canonical(item), channelIds });
+  }
+  for (const run of asBuilt.runs) {
+    out.set(run.id, { kind: 'run', id: run.id, label: run.label, isAbandoned: run.isAbandoned === true, json: canonical(run), channelIds: [] });
+  }
   return out;
 }
 
@@ -61,6 +70,8 @@ export interface BaselinePacket {
   asBuilt: AsBuilt;
   /** Issued since the site record (issue 21): its as-built is the site's whole system, not one job's records. */
   isSiteWide: boolean;
+  /** Its amplifier channel set-ups (absent where the caller has none). */
+  channelSetups?: ChannelSetups | null;
 }
 
 /**
@@ -84,9 +95,24 @@ export function baselineSystem(packets: readonly BaselinePacket[]): AsBuilt | un
 }
 
 /**
+ * The amplifier channel set-ups the superseded packet left, merged from the same packets as
+ * baselineSystem (a later packet's set-up of a channel wins); undefined when there is none.
+ */
+export function baselineChannelSetups(packets: readonly BaselinePacket[]): ChannelSetups | undefined {
+  const ordered = [...packets].sort((a, b) => (a.issuedAt < b.issuedAt ? -1 : a.issuedAt > b.issuedAt ? 1 : 0));
+  const latest = ordered.at(-1);
+  if (!latest) return undefined;
+  if (latest.isSiteWide) return latest.channelSetups ?? undefined;
+  return Object.assign({}, ...ordered.map((p) => p.channelSetups ?? {})) as ChannelSetups;
+}
+
+/**
  * What changed from the superseded packet's system to this one. `records` is the provenance of the
  * current system (who installed, changed, abandoned each record, and when); `removed` lists the records
  * this job took out (absent from the current system), with their dates; `job` is the issuing job.
+ * `setups` are the channel set-ups of both systems: an amplifier whose channel was set up differently
+ * (a gain turned down) is changed, though its as-built fields are not; a channel either side lacks a
+ * set-up for is not compared.
  */
 export function whatChanged(input: {
   supersedes: SupersededPacket;
@@ -95,6 +121,7 @@ export function whatChanged(input: {
   records: Readonly<Record<string, SiteRecordInfo>>;
   removed: readonly { kind: 'item' | 'run'; id: string; label: string; removedOn: string }[];
   job: { id: string; title: string; workDate: string };
+  setups?: { previous: ChannelSetups; current: ChannelSetups };
 }): WhatChanged {
   const before = recordsOf(input.previous);
   const after = recordsOf(input.current);
@@ -107,7 +134,7 @@ export function whatChanged(input: {
       result.added.push(entry(info?.installedOn ?? input.job.workDate, info?.installedBy.jobTitle ?? input.job.title));
     } else if (record.isAbandoned && !old.isAbandoned) {
       result.abandoned.push(entry(info?.abandoned?.on ?? input.job.workDate, info?.abandoned?.jobTitle ?? input.job.title));
-    } else if (record.json !== old.json) {
+    } else if (record.json !== old.json || isSetUpDifferently(record.channelIds, input.setups)) {
       const last = info?.changedBy.at(-1);
       result.changed.push(entry(last?.on ?? input.job.workDate, last?.jobTitle ?? input.job.title));
     }
@@ -119,6 +146,14 @@ export function whatChanged(input: {
     result.removed.push({ kind: record.kind, id: record.id, label: record.label, on: removal?.removedOn ?? input.job.workDate, jobTitle: input.job.title });
   }
   return result;
+}
+
+function isSetUpDifferently(channelIds: readonly string[], setups: { previous: ChannelSetups; current: ChannelSetups } | undefined): boolean {
+  if (!setups) return false;
+  return channelIds.some((id) => {
+    const [before, after] = [setups.previous[id], setups.current[id]];
+    return before !== undefined && after !== undefined && canonical(before) !== canonical(after);
+  });
 }
 
 /** The packet's "What changed" section, every date written out. */

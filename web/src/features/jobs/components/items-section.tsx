@@ -10,7 +10,7 @@ import { usePhotoActions } from '../../photos';
 import type { JobAsBuiltResponse } from '../../job-record';
 import { useWorkspaceFocus } from '../hooks/workspace-focus';
 import { itemDeleteRequest } from '../utils/delete-requests';
-import { existingRemoveRequest, RemovedRecords, SiteRecordNote } from './site-record-note';
+import { existingRemoveRequest, isInSiteRecord, RemovedRecords, SiteRecordNote } from './site-record-note';
 import { ITEM_KIND_LABELS } from '../../job-record';
 
 import { useCardStyles } from '../../../components/card-styles';
@@ -126,9 +126,10 @@ export function ItemsSection({ data, canRecord, kinds }: ItemsSectionProps) {
                         className={formStyles.bigButton}
                         icon={<Delete20Regular />}
                         aria-label={`Delete ${item.label}`}
-                        onClick={() =>
-                          deletion.ask(data.records.siteRecords?.[item.id]?.isThisJob === false ? existingRemoveRequest('item', item) : itemDeleteRequest(asBuilt, item))
-                        }
+                        onClick={() => {
+                          const info = data.records.siteRecords?.[item.id];
+                          deletion.ask(isInSiteRecord(info) ? existingRemoveRequest('item', item, info!.isThisJob) : itemDeleteRequest(asBuilt, item));
+                        }}
                       >
                         Delete
                       </Button>

@@ -18,7 +18,7 @@ import { useDeleteRecord } from './delete-record';
 import { DepthReadingPanel } from './depth-reading-panel';
 import { useFormStyles } from '../../../components/form-styles';
 import { RunForm } from './run-form';
-import { existingRemoveRequest, RemovedRecords, SiteRecordNote } from './site-record-note';
+import { existingRemoveRequest, isInSiteRecord, RemovedRecords, SiteRecordNote } from './site-record-note';
 
 type Mode = { runId: string; view: 'edit' | 'depth'; field?: string; readingIndex?: number } | { runId: 'new'; view: 'edit'; field?: undefined; readingIndex?: undefined };
 
@@ -83,9 +83,10 @@ export function RunsSection({ data, canRecord, canAddField }: RunsSectionProps) 
               canRecord={canRecord}
               canAddField={canAddField}
               onMode={setMode}
-              onDelete={() =>
-                deletion.ask(data.records.siteRecords?.[run.id]?.isThisJob === false ? existingRemoveRequest('run', run) : runDeleteRequest(run))
-              }
+              onDelete={() => {
+                const info = data.records.siteRecords?.[run.id];
+                deletion.ask(isInSiteRecord(info) ? existingRemoveRequest('run', run, info!.isThisJob) : runDeleteRequest(run));
+              }}
             />
           ))}
         </ul>

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 
 import { routeOf } from '../api/job-write-endpoints';
 
-import { existingRemoveRequest, siteRecordText } from './site-record-note';
+import { existingRemoveRequest, isInSiteRecord, siteRecordText } from './site-record-note';
 
 const earlier = {
   kind: 'run' as const,
@@ -31,5 +31,17 @@ describe('site record note (issue 21)', () => {
     expect(routeOf(request.write)).toEqual({ method: 'DELETE', path: '/runs/run-1' });
     expect(routeOf(request.undo!)).toEqual({ method: 'DELETE', path: '/site-changes/run-1' });
     expect(request.title).toBe('Take out the run “Spare to planter”?');
+  });
+
+  it('takes out this job’s own record once an earlier revision issued it; one never issued is deleted', () => {
+    const own = { ...earlier, isThisJob: true, installedBy: { jobId: 'job-b', jobTitle: 'Fire pit zone' } };
+    expect(isInSiteRecord({ ...own, isIssued: true })).toBe(true);
+    expect(isInSiteRecord({ ...own, isIssued: false })).toBe(false);
+    expect(isInSiteRecord(own)).toBe(false);
+    expect(isInSiteRecord(earlier)).toBe(true);
+    expect(isInSiteRecord(undefined)).toBe(false);
+    const request = existingRemoveRequest('item', { id: 'item-1', label: 'Gate speaker' }, true);
+    expect(request.consequences).toMatch(/^This job installed it in a revision already issued\. It is recorded as taken out by this job/);
+    expect(routeOf(request.undo!)).toEqual({ method: 'DELETE', path: '/site-changes/item-1' });
   });
 });

@@ -77,12 +77,23 @@ export function SiteRecordNote({ data, recordId, label, canRecord }: NoteProps) 
   );
 }
 
-/** Deleting an earlier job's run or item records that this job took it out; Undo puts it back. */
-export function existingRemoveRequest(kind: 'run' | 'item', record: { id: string; label: string }): DeleteRequest {
+/**
+ * Whether deleting the record takes it out of the ground (recorded as removed by this job, dated)
+ * rather than deleting it: an earlier job's record, or this job's own issued in an earlier revision.
+ */
+export function isInSiteRecord(info: SiteRecordInfo | undefined): boolean {
+  return info !== undefined && (!info.isThisJob || info.isIssued === true);
+}
+
+/**
+ * Deleting a run or item already in the site's record (an earlier job's, or with `isThisJob` this job's
+ * own from an issued revision) records that this job took it out; Undo puts it back.
+ */
+export function existingRemoveRequest(kind: 'run' | 'item', record: { id: string; label: string }, isThisJob = false): DeleteRequest {
   const noun = kind === 'run' ? 'run' : 'equipment';
   return {
     title: `Take out the ${noun} “${record.label}”?`,
-    consequences: `An earlier job installed it. It is recorded as taken out by this job, on this job’s work date, and leaves the system from this job on; the earlier packet still shows it as it was.`,
+    consequences: `${isThisJob ? 'This job installed it in a revision already issued.' : 'An earlier job installed it.'} It is recorded as taken out by this job, on this job’s work date, and leaves the system from this job on; the earlier packet still shows it as it was.`,
     write: { ...(kind === 'run' ? { endpoint: 'deleteRun' as const, params: { runId: record.id } } : { endpoint: 'deleteItem' as const, params: { itemId: record.id } }), label: `Taking out the ${noun} “${record.label}”` },
     doneTitle: `“${record.label}” taken out`,
     undo: { endpoint: 'undoSiteChange', params: { recordId: record.id }, label: `Putting back “${record.label}”` },
