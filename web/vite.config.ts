@@ -16,8 +16,8 @@ const apiTarget = `http://127.0.0.1:${process.env.API_PORT ?? '3001'}`;
 const brotli = promisify(brotliCompress);
 const gzipAsync = promisify(gzip);
 
-/** Text files worth compressing; images and fonts (woff2) are compressed already. */
-const COMPRESSIBLE = /\.(js|mjs|css|html|svg|json|txt|map|webmanifest)$/;
+/** Text files (and WebAssembly) worth compressing; images and fonts (woff2) are compressed already. */
+const COMPRESSIBLE = /\.(js|mjs|css|html|svg|json|txt|map|webmanifest|wasm)$/;
 /** Below this a compressed copy saves less than a packet header costs. */
 const MIN_BYTES = 1024;
 
@@ -108,7 +108,8 @@ const pwa = VitePWA({
   },
   workbox: {
     // Every file of the build the app can load (the compressed .br/.gz copies are the server's business).
-    globPatterns: ['**/*.{js,css,html,svg,png,woff2,webmanifest}'],
+    // The HEIC converter's WebAssembly is among them, so a HEIC photo taken offline converts too.
+    globPatterns: ['**/*.{js,css,html,svg,png,woff2,webmanifest,wasm}'],
     // The largest route chunk (the plan editor with elkjs) is above Workbox's 2 MiB default.
     maximumFileSizeToCacheInBytes: 8 * 1024 * 1024,
     // A reload of any client-side route with no signal gets the precached shell…

@@ -49,3 +49,20 @@ if (typeof window.ResizeObserver !== 'function') {
   }
   Object.defineProperty(window, 'ResizeObserver', { writable: true, value: NoResizeObserver });
 }
+
+// jsdom's Blob (and File) has no arrayBuffer(); the photo picker reads a file's first bytes with it to
+// tell HEIC from JPEG. FileReader, which jsdom has, gives the same bytes.
+if (typeof Blob.prototype.arrayBuffer !== 'function') {
+  Object.defineProperty(Blob.prototype, 'arrayBuffer', {
+    writable: true,
+    configurable: true,
+    value(this: Blob): Promise<ArrayBuffer> {
+      return new Promise((resolve, reject) => {
+        const reader = new FileReader();
+        reader.onload = () => resolve(reader.result as ArrayBuffer);
+        reader.onerror = () => reject(reader.error ?? new Error('the file could not be read'));
+        reader.readAsArrayBuffer(this);
+      });
+    },
+  });
+}
