@@ -1,6 +1,9 @@
+import { randomUUID } from 'node:crypto';
+
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
+import { encodeCursor } from '../../api/src/domain/paging/page.schema.js';
 import { createCompany, type TestCompany, withDb } from '../support/fixtures.js';
 import { type Api, apiAs, createJob, createSite, siteWrite } from '../support/records.js';
 import { signIn } from '../support/session.js';
@@ -142,7 +145,7 @@ describe('customers and sites', () => {
     });
   });
 
-  describe('pages (customers, sites and users share the jobs list shape)', () => {
+  describe('pages (customers, sites and users share the jobs list shape, and page by cursor too)', () => {
     it('should page every match with its total, nothing cut off, in name order', async () => {
       // A company of its own: its lists hold exactly what this test makes (fixture users: 5 roles).
       const c = await createCompany('Paging C');
@@ -169,6 +172,65 @@ describe('customers and sites', () => {
       expect(users).toMatchObject({ total: 5, page: 1, pageSize: 3 });
       expect(users.items).toHaveLength(3);
       expect((await admin.expectOk('get', '/api/users')).pageSize).toBe(25);
+      expect(users.nextCursor).toEqual(expect.any(String));
+      const lastUsers = await admin.expectOk('get', `/api/users?pageSize=3&cursor=${users.nextCursor}`);
+      expect(lastUsers).toMatchObject({ total: 5, page: 2, pageSize: 3, nextCursor: null });
+      expect(lastUsers.items).toHaveLength(2);
+      const everyone = [...users.items, ...lastUsers.items].map((x: { id: string }) => x.id);
+      expect(new Set(everyone).size).toBe(5);
+    });
+
+    it('should walk customers and sites by cursor, not repeating a row when one is added before the cursor meanwhile', async () => {
+      const c = await createCompany('Cursor C');
+      const admin = apiAs(app, await signIn(app, c.users.admin));
+      for (const name of ['Cursor Birch', 'Cursor Cedar', 'Cursor Elm', 'Cursor Fir']) await admin.expectOk('post', '/api/customers', { name });
+
+      const first = await admin.expectOk('get', '/api/customers?pageSize=2');
+      expect(first).toMatchObject({ total: 4, page: 1, pageSize: 2, nextCursor: expect.any(String) });
+      expect(first.items.map((x: { name: string }) => x.name)).toEqual(['Cursor Birch', 'Cursor Cedar']);
+      // A row added before the cursor does not move the page it asks for; an offset's page 2 now repeats Cedar.
+      await admin.expectOk('post', '/api/customers', { name: 'Cursor Alder' });
+      const second = await admin.expectOk('get', `/api/customers?pageSize=2&cursor=${first.nextCursor}`);
+      expect(second).toMatchObject({ total: 5, page: 2, pageSize: 2, nextCursor: null });
+      expect(second.items.map((x: { name: string }) => x.name)).toEqual(['Cursor Elm', 'Cursor Fir']);
+      expect((await admin.expectOk('get', '/api/customers?pageSize=2&page=2')).items.map((x: { name: string }) => x.name)).toEqual([
+        'Cursor Cedar',
+        'Cursor Elm',
+      ]);
+
+      // A search keeps its filter across the cursor; an exact page holds no cursor to an empty one.
+      const searched = await admin.expectOk('get', '/api/customers?q=cursor%20e&pageSize=1');
+      expect(searched).toMatchObject({ total: 1, nextCursor: null });
+
+      const sites: string[] = [];
+      for (let i = 0; i < 3; i += 1) sites.push((await createSite(admin)).siteId);
+      const walked: string[] = [];
+      let cursor: string | null = null;
+      let pages = 0;
+      do {
+        const page: { items: { id: string }[]; nextCursor: string | null; page: number } = await admin.expectOk(
+          'get',
+          `/api/sites?pageSize=1${cursor ? `&cursor=${cursor}` : ''}`,
+        );
+        pages += 1;
+        expect(page.page).toBe(pages);
+        walked.push(...page.items.map((x) => x.id));
+        cursor = page.nextCursor;
+      } while (cursor && pages < 10);
+      expect(pages).toBe(3);
+      expect([...walked].sort()).toEqual([...sites].sort());
+    });
+
+    it('should refuse a cursor it did not write, and a cursor sent with page, with 400 naming cursor', async () => {
+      const valid = encodeCursor({ key: 'Any', id: randomUUID(), page: 2 });
+      const forged = Buffer.from(JSON.stringify({ key: 'a', id: 'not-a-uuid', page: 2 })).toString('base64url');
+      for (const path of ['/api/customers', '/api/sites', '/api/users']) {
+        for (const query of ['cursor=nonsense!', `cursor=${forged}`, `cursor=${'A'.repeat(2001)}`, `page=2&cursor=${valid}`]) {
+          const res = await office.send('get', `${path}?${query}`);
+          expect(res.status, `${path}?${query}`).toBe(400);
+          expect(res.body.issues.map((i: { path: string }) => i.path), `${path}?${query}`).toContain('cursor');
+        }
+      }
     });
 
     it('should refuse bad page parameters with 400 naming the field', async () => {

@@ -16,7 +16,7 @@ import {
   type UpdateCustomerInput,
   UpdateCustomerSchema,
 } from '../domain/customers/customer.schema.js';
-import type { Page } from '../domain/paging/page.schema.js';
+import type { CursorPage } from '../domain/paging/page.schema.js';
 import { CustomersService } from './customers.service.js';
 
 /** Staff read customers (crews see whom they work for); the office creates and changes them. */
@@ -28,9 +28,9 @@ export class CustomersController {
   constructor(private readonly customersService: CustomersService) {}
 
   @Get()
-  @ApiOperation({ summary: 'The company’s customers by name, a page at a time', description: '`q` searches name and e-mail; `page` from 1, `pageSize` up to 100 (default 25).' })
+  @ApiOperation({ summary: 'The company’s customers by name, a page at a time', description: '`q` searches name and e-mail; `page` from 1 or `cursor` (the `nextCursor` of the page before, steady while customers are added or removed), `pageSize` up to 100 (default 25).' })
   @ApiContract({ query: CustomerListQuerySchema, responses: { 200: CustomerPageSchema } })
-  list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(CustomerListQuerySchema)) query: CustomerListQuery): Promise<Page<CustomerResponse>> {
+  list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(CustomerListQuerySchema)) query: CustomerListQuery): Promise<CursorPage<CustomerResponse>> {
     return this.customersService.list(user, query);
   }
 

@@ -3,7 +3,8 @@ import { and, asc, count, eq, ilike, or } from 'drizzle-orm';
 
 import { DB, type Db, type Tx } from '../db/db.module.js';
 import { type Customer, customers, type NewCustomer } from '../db/schema/index.js';
-import { type PageQuery, pageOffset } from '../domain/paging/page.schema.js';
+import { afterCursor } from '../db/keyset.js';
+import { type CursorPageQuery, cursorLimit, cursorPageOffset } from '../domain/paging/page.schema.js';
 
 function likePattern(q: string): string {
   return `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
@@ -18,12 +19,21 @@ export class CustomersRepository {
     return this.db.transaction(work);
   }
 
-  /** One page of the company's customers matching `q`, and how many match in all. */
-  async list(companyId: string, q: string | undefined, page: PageQuery): Promise<{ rows: Customer[]; total: number }> {
+  /**
+   * One page of the company's customers matching `q` by name (with one row more than the page, to tell
+   * whether another follows), and how many match in all.
+   */
+  async list(companyId: string, q: string | undefined, page: CursorPageQuery): Promise<{ rows: Customer[]; total: number }> {
     const search = q ? or(ilike(customers.name, likePattern(q)), ilike(customers.email, likePattern(q))) : undefined;
     const where = and(eq(customers.companyId, companyId), search);
     const [rows, [counted]] = await Promise.all([
-      this.db.select().from(customers).where(where).orderBy(asc(customers.name), asc(customers.id)).limit(page.pageSize).offset(pageOffset(page)),
+      this.db
+        .select()
+        .from(customers)
+        .where(and(where, afterCursor(customers.name, customers.id, page.cursor)))
+        .orderBy(asc(customers.name), asc(customers.id))
+        .limit(cursorLimit(page))
+        .offset(cursorPageOffset(page)),
       this.db.select({ n: count() }).from(customers).where(where),
     ]);
     return { rows, total: counted?.n ?? 0 };

@@ -6,7 +6,7 @@ import { isForeignKeyViolation } from '../common/db-errors.js';
 import type { Customer } from '../db/schema/index.js';
 import { ConflictError, findOrFail, NotFoundError } from '../domain/errors.js';
 import type { CreateCustomerInput, CustomerListQuery, CustomerResponse, UpdateCustomerInput } from '../domain/customers/customer.schema.js';
-import { type Page, pageOf } from '../domain/paging/page.schema.js';
+import { type CursorPage, cursorPageOf } from '../domain/paging/page.schema.js';
 import { CustomersRepository } from './customers.repository.js';
 
 function toCustomerResponse(row: Customer): CustomerResponse {
@@ -30,9 +30,9 @@ export class CustomersService {
     private readonly audit: AuditService,
   ) {}
 
-  async list(actor: AuthUser, query: CustomerListQuery): Promise<Page<CustomerResponse>> {
+  async list(actor: AuthUser, query: CustomerListQuery): Promise<CursorPage<CustomerResponse>> {
     const { rows, total } = await this.repository.list(actor.companyId, query.q, query);
-    return pageOf(rows.map(toCustomerResponse), total, query);
+    return cursorPageOf(rows, total, query, (row) => row.name, toCustomerResponse);
   }
 
   async get(actor: AuthUser, id: string): Promise<CustomerResponse> {

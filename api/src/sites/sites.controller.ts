@@ -22,7 +22,7 @@ import { type AuthUser, CurrentUser } from '../common/decorators/current-user.de
 import { ExpectedVersion } from '../common/decorators/expected-version.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { ZodValidationPipe } from '../common/zod-validation.pipe.js';
-import type { Page } from '../domain/paging/page.schema.js';
+import type { CursorPage } from '../domain/paging/page.schema.js';
 import type { SiteVersionResponse } from '../domain/sites/site-rules.js';
 import {
   type CreateReferencePointInput,
@@ -64,9 +64,9 @@ export class SitesController {
   constructor(private readonly sitesService: SitesService) {}
 
   @Get()
-  @ApiOperation({ summary: 'The company’s sites by label, a page at a time', description: '`q` searches label, address, city and customer; `customerId` keeps one customer’s; `page` from 1, `pageSize` up to 100 (default 25).' })
+  @ApiOperation({ summary: 'The company’s sites by label, a page at a time', description: '`q` searches label, address, city and customer; `customerId` keeps one customer’s; `page` from 1 or `cursor` (the `nextCursor` of the page before, steady while sites are added or removed), `pageSize` up to 100 (default 25).' })
   @ApiContract({ query: SiteListQuerySchema, responses: { 200: SitePageSchema } })
-  list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(SiteListQuerySchema)) query: SiteListQuery): Promise<Page<SiteSummaryResponse>> {
+  list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(SiteListQuerySchema)) query: SiteListQuery): Promise<CursorPage<SiteSummaryResponse>> {
     return this.sitesService.list(user, query);
   }
 

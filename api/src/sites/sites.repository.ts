@@ -2,7 +2,8 @@ import { Inject, Injectable } from '@nestjs/common';
 import { and, asc, count, desc, eq, ilike, inArray, or, type SQL, sql } from 'drizzle-orm';
 
 import { DB, type Db, type Tx } from '../db/db.module.js';
-import { type PageQuery, pageOffset } from '../domain/paging/page.schema.js';
+import { afterCursor } from '../db/keyset.js';
+import { type CursorPageQuery, cursorLimit, cursorPageOffset } from '../domain/paging/page.schema.js';
 import {
   customers,
   jobs,
@@ -32,8 +33,11 @@ export class SitesRepository {
     return this.db.transaction(work);
   }
 
-  /** One page of the company's sites matching the query, and how many match in all. */
-  async list(companyId: string, query: { q?: string; customerId?: string } & PageQuery): Promise<{ rows: SiteWithCustomer[]; total: number }> {
+  /**
+   * One page of the company's sites matching the query by label (with one row more than the page, to
+   * tell whether another follows), and how many match in all.
+   */
+  async list(companyId: string, query: { q?: string; customerId?: string } & CursorPageQuery): Promise<{ rows: SiteWithCustomer[]; total: number }> {
     const conditions: (SQL | undefined)[] = [eq(sites.companyId, companyId)];
     if (query.customerId) conditions.push(eq(sites.customerId, query.customerId));
     if (query.q) {
@@ -45,10 +49,10 @@ export class SitesRepository {
         .select({ site: sites, customer: { id: customers.id, name: customers.name } })
         .from(sites)
         .innerJoin(customers, eq(customers.id, sites.customerId))
-        .where(and(...conditions))
+        .where(and(...conditions, afterCursor(sites.label, sites.id, query.cursor)))
         .orderBy(asc(sites.label), asc(sites.id))
-        .limit(query.pageSize)
-        .offset(pageOffset(query)),
+        .limit(cursorLimit(query))
+        .offset(cursorPageOffset(query)),
       this.db
         .select({ n: count() })
         .from(sites)

@@ -6,7 +6,7 @@ import { isForeignKeyViolation } from '../common/db-errors.js';
 import type { Tx } from '../db/db.module.js';
 import type { NewSite, ReferencePointRow, Site } from '../db/schema/index.js';
 import { ConflictError, findOrFail, ForbiddenError, NotFoundError, ValidationError } from '../domain/errors.js';
-import { type Page, pageOf } from '../domain/paging/page.schema.js';
+import { type CursorPage, cursorPageOf } from '../domain/paging/page.schema.js';
 import type { SiteVersionResponse, SiteWriteKind } from '../domain/sites/site-rules.js';
 import type {
   CreateReferencePointInput,
@@ -99,9 +99,15 @@ export class SitesService {
     private readonly writer: SiteWriter,
   ) {}
 
-  async list(actor: AuthUser, query: SiteListQuery): Promise<Page<SiteSummaryResponse>> {
+  async list(actor: AuthUser, query: SiteListQuery): Promise<CursorPage<SiteSummaryResponse>> {
     const { rows, total } = await this.repository.list(actor.companyId, query);
-    return pageOf(rows.map(toSiteSummary), total, query);
+    return cursorPageOf(
+      rows.map((row) => ({ ...row, id: row.site.id })),
+      total,
+      query,
+      (row) => row.site.label,
+      toSiteSummary,
+    );
   }
 
   async get(actor: AuthUser, id: string, tx?: Tx): Promise<SiteResponse> {

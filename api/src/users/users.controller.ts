@@ -25,7 +25,7 @@ export class UsersController {
 
   @Get()
   @Roles('admin', 'office')
-  @ApiOperation({ summary: 'The company’s people by name, a page at a time', description: '`page` from 1, `pageSize` up to 100 (default 25).' })
+  @ApiOperation({ summary: 'The company’s people by name, a page at a time', description: '`page` from 1 or `cursor` (the `nextCursor` of the page before, steady while people are added), `pageSize` up to 100 (default 25).' })
   @ApiContract({ query: UserListQuerySchema, responses: { 200: UserListResponseSchema } })
   list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(UserListQuerySchema)) query: UserListQuery): Promise<UserListResponse> {
     return this.usersService.list(user, query);

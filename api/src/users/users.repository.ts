@@ -3,17 +3,24 @@ import { and, asc, count, eq, gt, isNull } from 'drizzle-orm';
 
 import { DB, type Db, type Tx } from '../db/db.module.js';
 import { companies, invitationSites, invitations, type NewUser, refreshSessions, type User, users } from '../db/schema/index.js';
-import { type PageQuery, pageOffset } from '../domain/paging/page.schema.js';
+import { afterCursor } from '../db/keyset.js';
+import { type CursorPageQuery, cursorLimit, cursorPageOffset } from '../domain/paging/page.schema.js';
 
 /** Every method takes the company id from the signed-in user: nothing here crosses companies. */
 @Injectable()
 export class UsersRepository {
   constructor(@Inject(DB) private readonly db: Db) {}
 
-  /** One page of the company's people by name, and how many there are in all. */
-  async listByCompany(companyId: string, page: PageQuery): Promise<{ rows: User[]; total: number }> {
+  /** One page of the company's people by name (with one row more, to tell whether another follows), and how many there are in all. */
+  async listByCompany(companyId: string, page: CursorPageQuery): Promise<{ rows: User[]; total: number }> {
     const [rows, [counted]] = await Promise.all([
-      this.db.select().from(users).where(eq(users.companyId, companyId)).orderBy(asc(users.name), asc(users.id)).limit(page.pageSize).offset(pageOffset(page)),
+      this.db
+        .select()
+        .from(users)
+        .where(and(eq(users.companyId, companyId), afterCursor(users.name, users.id, page.cursor)))
+        .orderBy(asc(users.name), asc(users.id))
+        .limit(cursorLimit(page))
+        .offset(cursorPageOffset(page)),
       this.db.select({ n: count() }).from(users).where(eq(users.companyId, companyId)),
     ]);
     return { rows, total: counted?.n ?? 0 };

@@ -14,7 +14,7 @@ import type {
 } from '../domain/auth/auth.schema.js';
 import { ConflictError, findOrFail, ForbiddenError, NotFoundError } from '../domain/errors.js';
 import { canInvite, canManageUser, ROLE_LABELS } from '../domain/auth/roles.js';
-import { pageOf } from '../domain/paging/page.schema.js';
+import { cursorPageOf } from '../domain/paging/page.schema.js';
 import type { Invitation, OutgoingMailRow, User } from '../db/schema/index.js';
 import { OutgoingMailService } from '../outgoing-mail/outgoing-mail.service.js';
 import { UsersRepository } from './users.repository.js';
@@ -62,7 +62,7 @@ export class UsersService {
 
   async list(actor: AuthUser, query: UserListQuery): Promise<UserListResponse> {
     const { rows, total } = await this.repository.listByCompany(actor.companyId, query);
-    return pageOf(rows.map(toUserResponse), total, query);
+    return cursorPageOf(rows, total, query, (row) => row.name, toUserResponse);
   }
 
   async update(actor: AuthUser, id: string, input: UpdateUserInput): Promise<UserResponse> {

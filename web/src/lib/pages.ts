@@ -1,21 +1,24 @@
-import type { Page } from '@domain/paging/page.schema';
+import type { CursorPage, Page } from '@domain/paging/page.schema';
 
-export type { Page };
+export type { CursorPage, Page };
 
 /** The largest page the API gives (PAGE_SIZE_MAX in @domain/paging/page.schema). */
 export const LARGEST_PAGE = 100;
 
 /**
- * Every item of a paged list, fetched a page at a time — for pickers and short lists that must show all
- * (a company's people, a customer's sites). A list people browse shows pages instead.
+ * Every item of a list that pages by cursor, fetched a page at a time — for pickers and short lists that
+ * must show all (a company's people, a customer's sites). The cursor carries on after the last row read,
+ * so a row added or removed meanwhile neither repeats nor hides another. A list people browse shows pages.
  */
-export async function fetchAllPages<T>(fetchPage: (page: number, pageSize: number) => Promise<Page<T>>): Promise<T[]> {
+export async function fetchAllPages<T>(fetchPage: (cursor: string | undefined, pageSize: number) => Promise<CursorPage<T>>): Promise<T[]> {
   const items: T[] = [];
-  for (let page = 1; ; page += 1) {
-    const answer = await fetchPage(page, LARGEST_PAGE);
+  let cursor: string | undefined;
+  do {
+    const answer = await fetchPage(cursor, LARGEST_PAGE);
     items.push(...answer.items);
-    if (answer.items.length === 0 || items.length >= answer.total) return items;
-  }
+    cursor = answer.nextCursor ?? undefined;
+  } while (cursor);
+  return items;
 }
 
 /** `?page=…&pageSize=…` and any other set parameters, as a query string with its `?` (or ''). */

@@ -51,7 +51,7 @@ export function buildUserResponse(role: Role, overrides: Partial<UserResponse> =
   };
 }
 
-/** A list answer as the API pages it (`{ items, total, page, pageSize }`), all on page 1. */
-export function buildPage<T>(items: T[], pageSize = 100): { items: T[]; total: number; page: number; pageSize: number } {
-  return { items, total: items.length, page: 1, pageSize };
+/** A list answer as the API pages it (`{ items, total, page, pageSize, nextCursor }`), all on page 1. */
+export function buildPage<T>(items: T[], pageSize = 100): { items: T[]; total: number; page: number; pageSize: number; nextCursor: string | null } {
+  return { items, total: items.length, page: 1, pageSize, nextCursor: null };
 }

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 
-import { PageQuerySchema } from '../paging/page.schema.js';
+import { CursorPageQuerySchema, cursorPageSchemaOf } from '../paging/page.schema.js';
 import { ROLES } from './roles.js';
 
 export const RoleSchema = z.enum(ROLES);
@@ -75,15 +75,10 @@ export const UserResponseSchema = z.object({
 });
 export type UserResponse = z.infer<typeof UserResponseSchema>;
 
-/** `GET /api/users`: the company's people by name, a page at a time. */
-export const UserListQuerySchema = PageQuerySchema;
+/** `GET /api/users`: the company's people by name, a page at a time (`page` or `cursor`, `pageSize`). */
+export const UserListQuerySchema = CursorPageQuerySchema;
 export type UserListQuery = z.infer<typeof UserListQuerySchema>;
-export const UserListResponseSchema = z.object({
-  items: z.array(UserResponseSchema),
-  total: z.number().int(),
-  page: z.number().int(),
-  pageSize: z.number().int(),
-});
+export const UserListResponseSchema = cursorPageSchemaOf(UserResponseSchema);
 export type UserListResponse = z.infer<typeof UserListResponseSchema>;
 
 /** Where the invitation's newest e-mail is: waiting in the send queue, sent, or given up after retries. */

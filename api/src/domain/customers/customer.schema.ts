@@ -1,6 +1,6 @@
 import { z } from 'zod';
 
-import { pageSchemaOf, PageQuerySchema } from '../paging/page.schema.js';
+import { cursorPageSchemaOf, cursorPageShape, refineCursorPage } from '../paging/page.schema.js';
 
 const NameSchema = z.string().trim().min(1, { error: 'is required' }).max(120);
 const OptionalEmailSchema = z
@@ -31,8 +31,8 @@ export const UpdateCustomerSchema = CreateCustomerSchema.partial().refine((v) =>
 });
 export type UpdateCustomerInput = z.infer<typeof UpdateCustomerSchema>;
 
-/** `GET /api/customers`: `q` searches name and e-mail; a page at a time (`page`, `pageSize`). */
-export const CustomerListQuerySchema = z.object({ q: z.string().trim().max(120).optional(), ...PageQuerySchema.shape });
+/** `GET /api/customers`: `q` searches name and e-mail; by name, a page at a time (`page` or `cursor`, `pageSize`). */
+export const CustomerListQuerySchema = refineCursorPage(z.object({ q: z.string().trim().max(120).optional(), ...cursorPageShape }));
 export type CustomerListQuery = z.infer<typeof CustomerListQuerySchema>;
 
 export const CustomerResponseSchema = z.object({
@@ -46,4 +46,4 @@ export const CustomerResponseSchema = z.object({
 });
 export type CustomerResponse = z.infer<typeof CustomerResponseSchema>;
 
-export const CustomerPageSchema = pageSchemaOf(CustomerResponseSchema);
+export const CustomerPageSchema = cursorPageSchemaOf(CustomerResponseSchema);

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 
 import { LabelSchema, PlanCoordinateSchema } from '../as-built/common.schema.js';
-import { pageSchemaOf, PageQuerySchema } from '../paging/page.schema.js';
+import { cursorPageSchemaOf, cursorPageShape, refineCursorPage } from '../paging/page.schema.js';
 
 const Text120 = z.string().trim().max(120);
 const Required120 = z.string().trim().min(1, { error: 'is required' }).max(120);
@@ -51,12 +51,17 @@ export const UpdateSiteSchema = z
   .refine((v) => Object.keys(v).length > 0, { error: 'nothing to change' });
 export type UpdateSiteInput = z.infer<typeof UpdateSiteSchema>;
 
-/** `GET /api/sites`: `q` searches label, address, city and customer; `customerId` keeps one customer's; a page at a time. */
-export const SiteListQuerySchema = z.object({
-  q: z.string().trim().max(120).optional(),
-  customerId: z.uuid().optional(),
-  ...PageQuerySchema.shape,
-});
+/**
+ * `GET /api/sites`: `q` searches label, address, city and customer; `customerId` keeps one customer's; by
+ * label, a page at a time (`page` or `cursor`, `pageSize`).
+ */
+export const SiteListQuerySchema = refineCursorPage(
+  z.object({
+    q: z.string().trim().max(120).optional(),
+    customerId: z.uuid().optional(),
+    ...cursorPageShape,
+  }),
+);
 export type SiteListQuery = z.infer<typeof SiteListQuerySchema>;
 
 export const CreateReferencePointSchema = z.object({
@@ -97,7 +102,7 @@ export const SiteSummaryResponseSchema = z.object({
 });
 export type SiteSummaryResponse = z.infer<typeof SiteSummaryResponseSchema>;
 
-export const SitePageSchema = pageSchemaOf(SiteSummaryResponseSchema);
+export const SitePageSchema = cursorPageSchemaOf(SiteSummaryResponseSchema);
 
 /** The uploaded site-plan image: its stored size (the calibration's pixel space) and where to fetch it. */
 export const PlanImageResponseSchema = z.object({

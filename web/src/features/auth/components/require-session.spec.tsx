@@ -22,7 +22,7 @@ describe('the signed-in area', () => {
   it('should restore the session from the refresh cookie after a reload', async () => {
     mockApi({
       'POST /api/auth/refresh': () => jsonResponse(buildSessionResponse(admin, 'restored')),
-      'GET /api/users?page=1&pageSize=100': () => jsonResponse(buildPage([buildUserResponse('admin')])),
+      'GET /api/users?pageSize=100': () => jsonResponse(buildPage([buildUserResponse('admin')])),
       'GET /api/invitations': () => jsonResponse([]),
       'GET /api/outbox/status': noLocalMail,
     });
@@ -36,7 +36,7 @@ describe('the signed-in area', () => {
   it('should go to sign-in and back to the same page when the session ends under the user', async () => {
     const ended = () => apiErrorResponse(401, { message: 'Session ended.', code: 'SESSION_ENDED' });
     mockApi({
-      'GET /api/users?page=1&pageSize=100': () => apiErrorResponse(401, { message: 'Token expired.' }),
+      'GET /api/users?pageSize=100': () => apiErrorResponse(401, { message: 'Token expired.' }),
       'POST /api/auth/refresh': ended,
       'GET /api/outbox/status': noLocalMail,
     });

@@ -61,7 +61,7 @@ describe('SignInForm', () => {
   it('should sign in and go on to the page in `next`', async () => {
     const fetchMock = mockApi({
       'POST /api/auth/sign-in': () => jsonResponse(buildSessionResponse(office, 'fresh-token')),
-      'GET /api/users?page=1&pageSize=100': () => jsonResponse(buildPage([])),
+      'GET /api/users?pageSize=100': () => jsonResponse(buildPage([])),
       'GET /api/invitations': () => jsonResponse([]),
       'GET /api/signup/status': () => jsonResponse(signupStatus),
       'GET /api/outbox/status': () => jsonResponse({ captured: true, destination: null }),

@@ -30,7 +30,7 @@ describe('JobDetailsDialog', () => {
     const patches: MockRequest[] = [];
     mockApi({
       [AS_BUILT]: () => jsonResponse(buildJobAsBuilt(buildAsBuilt())),
-      'GET /api/users?page=1&pageSize=100': () => jsonResponse(buildPage(USERS)),
+      'GET /api/users?pageSize=100': () => jsonResponse(buildPage(USERS)),
       [`PATCH /api/jobs/${JOB_IDS.job}`]: (request) => {
         patches.push(request);
         return jsonResponse({ ...buildJobAsBuilt().job, version: 4 });
@@ -59,7 +59,7 @@ describe('JobDetailsDialog', () => {
     const patches: MockRequest[] = [];
     mockApi({
       [AS_BUILT]: () => jsonResponse(buildJobAsBuilt(buildAsBuilt())),
-      'GET /api/users?page=1&pageSize=100': () => jsonResponse(buildPage(USERS)),
+      'GET /api/users?pageSize=100': () => jsonResponse(buildPage(USERS)),
       [`PATCH /api/jobs/${JOB_IDS.job}`]: (request) => {
         patches.push(request);
         return apiErrorResponse(400, {

@@ -1,30 +1,30 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { SiteSummaryResponse } from '@domain/sites/site.schema';
+import { SitePageSchema, type SiteSummaryResponse } from '@domain/sites/site.schema';
 
 import { apiRequest } from '../../../lib/api-client';
-import { fetchAllPages, type Page, pageQuery } from '../../../lib/pages';
-import { responseOf } from '../../../lib/response';
+import { type CursorPage, fetchAllPages, pageQuery } from '../../../lib/pages';
+
+import { siteKeys } from './site-keys';
 
 export type { SiteSummaryResponse };
 
 export type SiteListParams = { q?: string; customerId?: string };
 
-/** One page of the company's sites matching the parameters. */
+/** One page of the company's sites matching the parameters: the first, or the one after `cursor`. */
 export function getSitesPage(
-  params: SiteListParams & { page: number; pageSize: number },
+  params: SiteListParams & { cursor?: string; pageSize: number },
   { signal }: { signal?: AbortSignal } = {},
-): Promise<Page<SiteSummaryResponse>> {
-  return apiRequest(`/api/sites${pageQuery(params)}`, responseOf<Page<SiteSummaryResponse>>(), { signal });
+): Promise<CursorPage<SiteSummaryResponse>> {
+  return apiRequest(`/api/sites${pageQuery(params)}`, SitePageSchema, { signal });
 }
 
 /** Every matching site, page by page (a customer's sites; the site picker when creating a job). */
 export function getSites(params: SiteListParams, { signal }: { signal?: AbortSignal } = {}): Promise<SiteSummaryResponse[]> {
-  return fetchAllPages((page, pageSize) => getSitesPage({ ...params, page, pageSize }, { signal }));
+  return fetchAllPages((cursor, pageSize) => getSitesPage({ ...params, cursor, pageSize }, { signal }));
 }
-
 export function getSitesQueryOptions(params: SiteListParams = {}) {
   return queryOptions({
-    queryKey: ['sites', 'list', params],
+    queryKey: siteKeys.list(params),
     queryFn: ({ signal }) => getSites(params, { signal }),
   });
 }

@@ -48,7 +48,7 @@ describe('SiteHomeowners', () => {
     const links: MockRequest[] = [];
     mockApi({
       [`GET /api/sites/${SITE_ID}`]: () => jsonResponse(site),
-      'GET /api/users?page=1&pageSize=100': () => jsonResponse(buildPage([buildUserResponse('admin'), buildUserResponse('tech'), OWNER, SECOND_OWNER])),
+      'GET /api/users?pageSize=100': () => jsonResponse(buildPage([buildUserResponse('admin'), buildUserResponse('tech'), OWNER, SECOND_OWNER])),
       [`POST /api/sites/${SITE_ID}/homeowners`]: (request) => {
         links.push(request);
         site = buildSite([...site.homeowners, { id: SECOND_OWNER.id, name: SECOND_OWNER.name, email: SECOND_OWNER.email }]);
@@ -81,7 +81,7 @@ describe('SiteHomeowners', () => {
     const invites: MockRequest[] = [];
     mockApi({
       [`GET /api/sites/${SITE_ID}`]: () => jsonResponse(buildSite([])),
-      'GET /api/users?page=1&pageSize=100': () => jsonResponse(buildPage([OWNER])),
+      'GET /api/users?pageSize=100': () => jsonResponse(buildPage([OWNER])),
       [`POST /api/sites/${SITE_ID}/homeowner-invitations`]: (request) => {
         invites.push(request);
         if (invites.length === 1) {

@@ -8,7 +8,7 @@ export type { UserResponse };
 
 /** Everyone in the company, page by page: the users table and the crew and homeowner pickers show all. */
 export function getUsers({ signal }: { signal?: AbortSignal } = {}): Promise<UserResponse[]> {
-  return fetchAllPages((page, pageSize) => apiRequest(`/api/users${pageQuery({ page, pageSize })}`, UserListResponseSchema, { signal }));
+  return fetchAllPages((cursor, pageSize) => apiRequest(`/api/users${pageQuery({ cursor, pageSize })}`, UserListResponseSchema, { signal }));
 }
 
 export function getUsersQueryOptions() {

@@ -20,7 +20,7 @@ const invitations = [
 
 function mockUsersPage(extra: Parameters<typeof mockApi>[0] = {}) {
   return mockApi({
-    'GET /api/users?page=1&pageSize=100': () => jsonResponse(buildPage([buildUserResponse('admin')])),
+    'GET /api/users?pageSize=100': () => jsonResponse(buildPage([buildUserResponse('admin')])),
     'GET /api/invitations': () => jsonResponse(invitations),
     'GET /api/outbox/status': () => jsonResponse({ captured: false, destination: 'smtp://mail.relay.example:587' }),
     ...extra,

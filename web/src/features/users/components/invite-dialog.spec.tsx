@@ -8,7 +8,7 @@ import { jsonResponse, renderApp } from '../../../testing/render-app';
 
 function mockUsersPage(extra: Parameters<typeof mockApi>[0] = {}) {
   return mockApi({
-    'GET /api/users?page=1&pageSize=100': () => jsonResponse(buildPage([buildUserResponse('admin'), buildUserResponse('office')])),
+    'GET /api/users?pageSize=100': () => jsonResponse(buildPage([buildUserResponse('admin'), buildUserResponse('office')])),
     'GET /api/invitations': () => jsonResponse([]),
     'GET /api/outbox/status': () => jsonResponse({ captured: false, destination: 'smtp://mail.relay.example:587' }),
     ...extra,

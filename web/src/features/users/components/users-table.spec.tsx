@@ -13,7 +13,7 @@ const people = [
 
 function mockUsersPage(extra: Parameters<typeof mockApi>[0] = {}) {
   return mockApi({
-    'GET /api/users?page=1&pageSize=100': () => jsonResponse(buildPage(people)),
+    'GET /api/users?pageSize=100': () => jsonResponse(buildPage(people)),
     'GET /api/invitations': () => jsonResponse([]),
     'GET /api/outbox/status': () => jsonResponse({ captured: false, destination: 'smtp://mail.relay.example:587' }),
     ...extra,
