@@ -37,7 +37,9 @@ export function configureApp(app: NestExpressApplication, env: Env): void {
       contentSecurityPolicy: {
         directives: {
           defaultSrc: ["'self'"],
-          scriptSrc: ["'self'"],
+          // 'wasm-unsafe-eval' lets the page's own workers compile WebAssembly (the HEIC photo converter,
+          // web/src/features/photos/utils/heic-worker.ts); it allows no JavaScript eval.
+          scriptSrc: ["'self'", "'wasm-unsafe-eval'"],
           // Fluent UI (Griffel) inserts its atomic CSS at run time.
           styleSrc: ["'self'", "'unsafe-inline'"],
           imgSrc: ["'self'", 'data:', 'blob:'],

@@ -226,7 +226,8 @@ describe('photos (upload, processing, storage, soft delete)', () => {
       const res = await upload('tech', job.id, job.version, [{ content: makeHeicHeader(), name: 'IMG_0001.HEIC', contentType: 'image/heic' }]);
       expect(res.status).toBe(415);
       expect(res.body.code).toBe('HEIC_NOT_SUPPORTED');
-      expect(res.body.message).toMatch(/JPEG.*most compatible/);
+      expect(res.body.message).toMatch(/^files\[0\] "IMG_0001\.HEIC" is a HEIC photo.*JPEG.*most compatible/);
+      expect(res.body.issues).toEqual([{ path: 'files[0]', message: 'is HEIC; send JPEG, PNG or WebP' }]);
       await expectNothingStored();
     });
 

@@ -13,14 +13,18 @@ export function unsupportedImage(label: string): UnsupportedMediaTypeException {
   return new UnsupportedMediaTypeException({ message: `${label} is not a JPEG, PNG or WebP image. ${ACCEPTED}`, code: 'UNSUPPORTED_IMAGE_TYPE' });
 }
 
-/** 415 for HEIC when this server's image library cannot decode it (the prebuilt libvips has no HEVC). */
+/**
+ * 415 for HEIC when this server's image library cannot decode it (the prebuilt libvips has no HEVC).
+ * The web app converts HEIC to JPEG on the device before sending (issue 17), so this answer reaches
+ * other clients; `issues` names the multipart field (`files[0]`) as a validation answer does.
+ */
 export function heicNotSupported(label: string): UnsupportedMediaTypeException {
-  return new UnsupportedMediaTypeException({
-    message:
-      `${label} is a HEIC photo, which this server cannot read. Send JPEG instead: set the phone's camera to its ` +
-      'most compatible format (JPEG) rather than high efficiency, or share the photo as JPEG.',
-    code: 'HEIC_NOT_SUPPORTED',
-  });
+  const message =
+    `${label} is a HEIC photo, which this server cannot read. The Loamline app turns HEIC into JPEG before sending; ` +
+    "from anywhere else send JPEG: set the phone's camera to its most compatible format (JPEG) rather than high " +
+    'efficiency, or share the photo as JPEG.';
+  const path = /^files\[\d+\]/.exec(label)?.[0] ?? 'files';
+  return new UnsupportedMediaTypeException({ message, code: 'HEIC_NOT_SUPPORTED', issues: [{ path, message: 'is HEIC; send JPEG, PNG or WebP' }] });
 }
 
 export function unreadableImage(label: string): UnsupportedMediaTypeException {
