@@ -5,6 +5,7 @@ import type { Browser } from 'playwright-core';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 
+import { makeHeicHeader } from '../fixtures/photos/make-photos.js';
 import { launchChromium } from '../support/browser.js';
 import { createCompany, TEST_PASSWORD, type TestCompany } from '../support/fixtures.js';
 import { httpApiAs } from '../support/http-api.js';
@@ -15,6 +16,8 @@ import { type Api, createJob, createSite, moveJob } from '../support/records.js'
  * in the top-left corner on green, EXIF taken 2024:05:01 10:11:12 at 40.0003 N 105.0004 W.
  */
 const HEIC_PATH = fileURLToPath(new URL('../fixtures/photos/field-photo.heic', import.meta.url));
+/** Set PHOTOS_SHOTS=<folder> to save a screenshot of the refusal there. */
+const SHOTS_DIR = process.env.PHOTOS_SHOTS;
 
 describe('a technician adds a HEIC photo from a phone', () => {
   const baseUrl = inject('baseUrl');
@@ -110,4 +113,30 @@ describe('a technician adds a HEIC photo from a phone', () => {
     expect(problems).toEqual([]);
     await context.close();
   }, 120_000);
+
+  it('should say plainly when a HEIC cannot be converted, send nothing for it, and stay open', async () => {
+    const context = await browser.newContext({ viewport: { width: 390, height: 844 }, hasTouch: true, isMobile: true });
+    const page = await context.newPage();
+    let posts = 0;
+    page.on('request', (request) => {
+      if (request.method() === 'POST' && request.url().endsWith(`/api/jobs/${jobId}/photos`)) posts += 1;
+    });
+    await page.goto(`${baseUrl}/jobs/${jobId}?section=photos`);
+    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+    await page.getByLabel(/^E-mail/).fill(company.users.lead.email);
+    await page.getByLabel(/^Password/).fill(TEST_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('heading', { name: /^Photos \(1\)/ }).waitFor();
+
+    await page.getByRole('button', { name: 'Add photos' }).click();
+    const dialog = page.getByRole('dialog', { name: 'Add photos' });
+    // A HEIC file's header with nothing behind it, as a photo cut off in a transfer.
+    await dialog.getByLabel('Choose photos from the library').setInputFiles({ name: 'IMG_0007.HEIC', mimeType: 'image/heic', buffer: makeHeicHeader() });
+    await dialog.getByText(/^IMG_0007\.HEIC is a HEIC photo that this browser could not turn into a JPEG\./).waitFor({ timeout: 30_000 });
+    if (SHOTS_DIR) await page.screenshot({ path: `${SHOTS_DIR}/phone-heic-not-converted.png` });
+    await dialog.getByRole('button', { name: 'Close' }).click();
+    await dialog.waitFor({ state: 'detached' });
+    expect(posts).toBe(0);
+    await context.close();
+  }, 60_000);
 });
