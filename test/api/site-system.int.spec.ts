@@ -363,8 +363,13 @@ describe('the site system: a later job builds on what is in the ground', () => {
     let view = await a.asBuilt();
     expect(view.asBuilt.items.map((i: { id: string }) => i.id)).not.toContain(gateSpeaker);
     expect(view.records.removedByThisJob).toEqual([{ kind: 'item', id: gateSpeaker, label: 'Gate speaker', removedOn: '2026-05-14' }]);
-    // Not issued yet: for another open job the speaker is still in the ground.
+    // Not issued yet: for another open job the speaker is still in the ground, held by the first job.
     expect((await k.asBuilt()).asBuilt.items.map((i: { id: string }) => i.id)).toContain(gateSpeaker);
+    const refused = await k.send('put', `/items/${gateSpeaker}`, speaker('Gate speaker, moved'));
+    expect(refused.status).toBe(409);
+    expect(refused.body).toMatchObject({ code: 'RECORD_CHANGED_BY_OTHER_JOB' });
+    expect(refused.body.message).toContain('item "Gate speaker"');
+    expect(refused.body.message).toContain('Garden speakers');
 
     // Put back (undo), it is the job's issued record again.
     await a.write('delete', `/site-changes/${gateSpeaker}`);
