@@ -33,6 +33,17 @@ describe('site record note (issue 21)', () => {
     expect(request.title).toBe('Take out the run “Spare to planter”?');
   });
 
+  it('says this job’s own record was issued in an earlier revision, and what this revision does to it', () => {
+    const own = {
+      ...earlier,
+      isThisJob: true,
+      isIssued: true,
+      installedBy: { jobId: 'job-b', jobTitle: 'Fire pit zone' },
+      changedBy: [{ jobId: 'job-b', jobTitle: 'Fire pit zone', change: 'changed' as const, on: '2027-04-02', isIssued: false }],
+    };
+    expect(siteRecordText(own, 'job-b')).toBe('Already in the ground: installed May 14, 2026 and issued in an earlier revision of this job. This job changes it.');
+  });
+
   it('takes out this job’s own record once an earlier revision issued it; one never issued is deleted', () => {
     const own = { ...earlier, isThisJob: true, installedBy: { jobId: 'job-b', jobTitle: 'Fire pit zone' } };
     expect(isInSiteRecord({ ...own, isIssued: true })).toBe(true);

@@ -23,7 +23,11 @@ const CHANGE_WORDS: Record<SiteRecordInfo['changedBy'][number]['change'], string
 
 /** The provenance of an existing record, in one line. */
 export function siteRecordText(info: SiteRecordInfo, jobId: string): string {
-  const parts = [`Already in the ground: installed ${formatDate(info.installedOn)} by “${info.installedBy.jobTitle}”.`];
+  const parts = [
+    info.isThisJob
+      ? `Already in the ground: installed ${formatDate(info.installedOn)} and issued in an earlier revision of this job.`
+      : `Already in the ground: installed ${formatDate(info.installedOn)} by “${info.installedBy.jobTitle}”.`,
+  ];
   if (info.abandoned && info.abandoned.jobId !== jobId) parts.push(`Abandoned in place since ${formatDate(info.abandoned.on)} (“${info.abandoned.jobTitle}”).`);
   const mine = info.changedBy.find((c) => c.jobId === jobId);
   parts.push(mine ? CHANGE_WORDS[mine.change] : 'Read-only until this job changes it.');
@@ -50,14 +54,19 @@ function useUndo(label: string, recordId: string) {
 
 type NoteProps = { data: JobAsBuiltResponse; recordId: string; label: string; canRecord: boolean };
 
-/** Under a run or item card: nothing for this job's own records; for an earlier job's, who and when. */
+/**
+ * Under a run or item card: for an earlier job's record, who put it in and when; for this job's own,
+ * only once an earlier revision issued it (a reopened job) and this revision changes it; nothing else.
+ */
 export function SiteRecordNote({ data, recordId, label, canRecord }: NoteProps) {
   const styles = useCardStyles();
   const formStyles = useFormStyles();
   const { undo, error, isBusy } = useUndo(label, recordId);
   const info = data.records.siteRecords?.[recordId];
-  if (!info || info.isThisJob) return null;
-  const isChangedHere = info.changedBy.some((c) => c.jobId === data.job.id);
+  const isChangedHere = info?.changedBy.some((c) => c.jobId === data.job.id) ?? false;
+  // This job's own record: only while this revision has an unissued change to what an earlier one issued.
+  const isOwnChangedNow = info?.isIssued === true && info.changedBy.some((c) => c.jobId === data.job.id && !c.isIssued);
+  if (!info || (info.isThisJob && !isOwnChangedNow)) return null;
   return (
     <div role="note" aria-label={`Installed earlier: ${label}`}>
       <Text block className={styles.empty}>
