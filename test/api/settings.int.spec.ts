@@ -59,12 +59,20 @@ describe('company settings and personal preferences', () => {
   });
 
   describe('my preferences', () => {
+    it('should tell everyone of the company its time zone and locale, in which screens write dates (issue 16)', async () => {
+      // The profile is the admin's and office's to read; a technician's screens still need its zone.
+      await as.admin.expectOk('patch', '/api/company/profile', { timeZone: 'America/Denver', locale: 'en-CA' });
+      expect((await as.tech.expectOk('get', '/api/me/preferences')).company).toMatchObject({ timeZone: 'America/Denver', locale: 'en-CA' });
+      await as.admin.expectOk('patch', '/api/company/profile', { timeZone: null, locale: 'en-US' });
+      expect((await as.tech.expectOk('get', '/api/me/preferences')).company).toMatchObject({ timeZone: null, locale: 'en-US' });
+    });
+
     it('should follow the company until someone chooses, keep each person’s choice their own, and go back on null', async () => {
       await as.admin.expectOk('patch', '/api/company/settings', { lengthUnits: 'imperial', gaugeUnits: 'awg' });
       expect(await as.lead.expectOk('get', '/api/me/preferences')).toEqual({
         lengthUnits: null,
         gaugeUnits: null,
-        company: { lengthUnits: 'imperial', gaugeUnits: 'awg' },
+        company: { lengthUnits: 'imperial', gaugeUnits: 'awg', timeZone: null, locale: 'en-US' },
         effective: { length: 'imperial', gauge: 'awg' },
       });
 

@@ -155,6 +155,7 @@ export class LocateRepository {
         units: companySettings.units,
         paperSize: companySettings.paperSize,
         locale: companySettings.locale,
+        timeZone: companySettings.timeZone,
       })
       .from(companies)
       .leftJoin(companySettings, eq(companySettings.companyId, companies.id))
@@ -167,6 +168,7 @@ export class LocateRepository {
       units: row?.units ?? ('imperial' as const),
       paperSize: row?.paperSize ?? ('letter' as const),
       locale: row?.locale ?? 'en-US',
+      timeZone: row?.timeZone ?? null,
     };
   }
 

@@ -105,6 +105,7 @@ export class LocateService {
       toleranceZoneM: TOLERANCE_ZONE_M,
       units: installer.units,
       locale: installer.locale,
+      timeZone: installer.timeZone,
       map,
       runs: map.runs.map((run) => ({
         id: run.id,

@@ -19,7 +19,7 @@ function toCompanySettings(row: CompanySettingsRow): CompanySettingsResponse {
 function toMyPreferences(own: UserPreferencesRow | undefined, company: CompanySettingsRow): MyPreferencesResponse {
   const mine = { lengthUnits: own?.lengthUnits ?? null, gaugeUnits: own?.gaugeUnits ?? null };
   const defaults = { lengthUnits: company.units, gaugeUnits: company.gaugeUnits };
-  return { ...mine, company: defaults, effective: effectiveUnits(mine, defaults) };
+  return { ...mine, company: { ...defaults, timeZone: company.timeZone, locale: company.locale }, effective: effectiveUnits(mine, defaults) };
 }
 
 @Injectable()

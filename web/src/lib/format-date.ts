@@ -2,21 +2,22 @@ import { type DateStyle, formatDate as formatDomainDate, formatDateTime as forma
 
 /**
  * Dates on screens through the domain's one date formatter (the packet, e-mails and CSV use the same),
- * in the reader's own time zone and locale as the browser reports them: `May 14, 2026` (en-US),
+ * in the company's time zone and locale (`useDateStyle()` in a component): `May 14, 2026` (en-US),
  * `14 May 2026` (en-GB); date-times with the zone's short name, `May 14, 2026, 5:29 PM CDT`. A calendar
- * date (`2026-05-14`, a start date) is never shifted by the zone.
+ * date (`2026-05-14`, a start date) is never shifted by the zone. The style is always passed, so no
+ * screen falls back to the browser's zone by forgetting it.
  */
 export function readerDateStyle(): DateStyle {
   const resolved = new Intl.DateTimeFormat().resolvedOptions();
   return { timeZone: resolved.timeZone, locale: resolved.locale };
 }
 
-/** `May 14, 2026, 5:29 PM CDT` in the reader's zone and locale (or the style given). */
-export function formatDateTime(iso: string, style: DateStyle = readerDateStyle()): string {
+/** `May 14, 2026, 5:29 PM CDT` in the style's zone and locale. */
+export function formatDateTime(iso: string, style: DateStyle): string {
   return formatDomainDateTime(iso, style);
 }
 
-/** `May 14, 2026` in the reader's zone and locale (or the style given). */
-export function formatDate(iso: string, style: DateStyle = readerDateStyle()): string {
+/** `May 14, 2026` in the style's zone and locale. */
+export function formatDate(iso: string, style: DateStyle): string {
   return formatDomainDate(iso, style);
 }

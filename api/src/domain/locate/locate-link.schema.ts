@@ -96,6 +96,8 @@ export const LocateViewResponseSchema = z.object({
   units: z.enum(['imperial', 'metric']),
   /** The company's BCP 47 locale (spelling of the screen's own words: en-US "center", en-GB "centre"). */
   locale: z.string(),
+  /** The company's IANA time zone (null until chosen): the screen writes the link's dates in it, as the packet does. */
+  timeZone: z.string().nullable(),
   map: SiteMapSchema,
   runs: z.array(LocateRunSchema),
   /** null when the site has no GPS origin (the map is in plan coordinates only). */

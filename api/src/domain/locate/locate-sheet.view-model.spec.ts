@@ -30,6 +30,7 @@ function view(units: 'imperial' | 'metric', runs: LocateViewResponse['runs']): L
     cautionSummary: '',
     toleranceZoneM: 0.457,
     locale: 'en-US',
+    timeZone: null,
     units,
     map: { frame: { northAzimuthDeg: 0, origin: null }, revisions: [], referencePoints: [], siteFeatures: [], items: [], runs: [], geojson: null },
     runs,

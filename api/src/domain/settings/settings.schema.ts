@@ -49,7 +49,11 @@ export const MyPreferencesResponseSchema = z.object({
   /** The caller's own choice; `null` = the company's default. */
   lengthUnits: z.enum(LENGTH_UNITS).nullable(),
   gaugeUnits: z.enum(GAUGE_UNITS).nullable(),
-  company: z.object({ lengthUnits: z.enum(LENGTH_UNITS), gaugeUnits: z.enum(GAUGE_UNITS) }),
+  /**
+   * The company's defaults, and its time zone (IANA; null until the admin chooses one) and locale (BCP 47),
+   * in which every screen writes dates and times (issue 16).
+   */
+  company: z.object({ lengthUnits: z.enum(LENGTH_UNITS), gaugeUnits: z.enum(GAUGE_UNITS), timeZone: z.string().nullable(), locale: z.string() }),
   /** What the app shows: the caller's choice, else the company's. */
   effective: z.object({ length: z.enum(LENGTH_UNITS), gauge: z.enum(GAUGE_UNITS) }),
 });

@@ -64,6 +64,7 @@ export function buildLocateView(token = 'tok'): LocateViewResponse {
     toleranceZoneM: 0.457,
     units: 'imperial',
     locale: 'en-US',
+    timeZone: 'America/Chicago',
     map: buildSiteMap(),
     runs: [
       {

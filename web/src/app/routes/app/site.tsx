@@ -16,6 +16,7 @@ import { ReferencePoints } from '../../../features/sites/components/reference-po
 import { SiteHomeowners } from '../../../features/sites/components/site-homeowners';
 import { SiteDialog } from '../../../features/sites/components/site-dialog';
 import { formatDate } from '../../../lib/format-date';
+import { useDateStyle } from '../../../lib/use-date-style';
 import { useSessionUser } from '../../../lib/session';
 
 const useStyles = makeStyles({
@@ -55,6 +56,7 @@ export const clientLoader =
   };
 
 export default function SiteRoute() {
+  const dateStyle = useDateStyle();
   const styles = useStyles();
   const { siteId = '' } = useParams();
   const user = useSessionUser();
@@ -131,7 +133,7 @@ export default function SiteRoute() {
                   </Link>
                   <span className={styles.actions}>
                     {isJobStatus(job.status) && <JobStatusBadge status={job.status} />}
-                    <Text className={styles.muted}>{formatDate(job.updatedAt)}</Text>
+                    <Text className={styles.muted}>{formatDate(job.updatedAt, dateStyle)}</Text>
                   </span>
                 </li>
               ))}

@@ -8,6 +8,7 @@ import { paths } from '../../../config/paths';
 import { requireRole } from '../../../features/auth/utils/require-user';
 import { getPortalSitesQueryOptions, usePortalSites } from '../../../features/portal/api/get-portal-sites';
 import { formatDate } from '../../../lib/format-date';
+import { useDateStyle } from '../../../lib/use-date-style';
 
 const useStyles = makeStyles({
   list: { listStyle: 'none', margin: 0, padding: 0, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
@@ -34,6 +35,7 @@ export const clientLoader =
 
 /** The homeowner's properties. */
 export default function PortalSitesRoute() {
+  const dateStyle = useDateStyle();
   const styles = useStyles();
   const { data: sites } = usePortalSites();
   return (
@@ -53,7 +55,7 @@ export default function PortalSitesRoute() {
               </Text>
               <Text className={styles.muted}>
                 Installed by {site.installer.companyName} · {site.packetCount} {site.packetCount === 1 ? 'packet' : 'packets'}
-                {site.lastIssuedAt ? `, last issued ${formatDate(site.lastIssuedAt)}` : ''}
+                {site.lastIssuedAt ? `, last issued ${formatDate(site.lastIssuedAt, dateStyle)}` : ''}
               </Text>
             </li>
           ))}

@@ -15,6 +15,7 @@ import { useNotify } from '../../../components/notify';
 import { paths } from '../../../config/paths';
 import { describeRequestError } from '../../../lib/form-errors';
 import { formatDateTime } from '../../../lib/format-date';
+import { useDateStyle } from '../../../lib/use-date-style';
 import { useDismissDelivery, useResendDelivery } from '../api/deliveries';
 
 const useStyles = makeStyles({
@@ -68,6 +69,7 @@ export function DeliveryStatusList({ deliveries, label, canAct }: DeliveryStatus
 }
 
 function DeliveryRowItem({ delivery: d, canAct }: { delivery: DeliveryRow; canAct: boolean }) {
+  const dateStyle = useDateStyle();
   const styles = useStyles();
   const notify = useNotify();
   const resend = useResendDelivery();
@@ -104,7 +106,7 @@ function DeliveryRowItem({ delivery: d, canAct }: { delivery: DeliveryRow; canAc
         <span role="status" className={`${styles.status} ${d.status === 'sent' ? styles.sent : isFailed ? styles.failed : ''}`}>
           {icon}
           {STATUS_WORDS[d.status]}
-          {d.status === 'sent' && d.sentAt && ` ${formatDateTime(d.sentAt)}`}
+          {d.status === 'sent' && d.sentAt && ` ${formatDateTime(d.sentAt, dateStyle)}`}
           {d.status === 'sending' && <Spinner size="extra-tiny" aria-hidden />}
         </span>
         {isFailed && d.failureReason && <Text className={styles.failed}>{d.failureReason}</Text>}
@@ -113,7 +115,7 @@ function DeliveryRowItem({ delivery: d, canAct }: { delivery: DeliveryRow; canAc
           {[
             d.status === 'sent' ? (d.isPdfAttached ? 'PDF attached' : 'Link to the portal only') : d.pdf === 'link' ? 'Link only' : 'PDF attached',
             d.isInvited ? 'with an invitation to the portal' : undefined,
-            d.dismissedAt ? `dismissed ${formatDateTime(d.dismissedAt)}` : undefined,
+            d.dismissedAt ? `dismissed ${formatDateTime(d.dismissedAt, dateStyle)}` : undefined,
           ]
             .filter(Boolean)
             .join(' · ')}

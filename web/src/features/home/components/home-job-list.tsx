@@ -6,6 +6,7 @@ import { Link } from 'react-router';
 
 import { paths } from '../../../config/paths';
 import { formatDate } from '../../../lib/format-date';
+import { useDateStyle } from '../../../lib/use-date-style';
 import { JobStatusBadge } from '../../jobs';
 import { nextStepFor } from '../utils/next-step';
 
@@ -44,6 +45,7 @@ type HomeJobListProps = {
 
 /** Jobs as tappable rows: title and status, where and for whom, and the next thing to do on it. */
 export function HomeJobList({ label, jobs, role }: HomeJobListProps) {
+  const dateStyle = useDateStyle();
   const styles = useStyles();
   return (
     <ul className={styles.list} aria-label={label}>
@@ -59,7 +61,7 @@ export function HomeJobList({ label, jobs, role }: HomeJobListProps) {
               </span>
               <Text className={styles.facts}>
                 {[job.site.label, job.site.city, job.customer.name].filter(Boolean).join(' · ')}
-                {job.startDate ? ` · starts ${formatDate(job.startDate)}` : ''}
+                {job.startDate ? ` · starts ${formatDate(job.startDate, dateStyle)}` : ''}
               </Text>
               <Text className={styles.next}>Next: {nextStepFor(job.status, role)}</Text>
             </span>

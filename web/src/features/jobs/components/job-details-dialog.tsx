@@ -31,6 +31,7 @@ import { useNotify } from '../../../components/notify';
 import { isApiError } from '../../../lib/api-client';
 import { describeRequestError, toSentence } from '../../../lib/form-errors';
 import { formatDate } from '../../../lib/format-date';
+import { useDateStyle } from '../../../lib/use-date-style';
 import { getUsersQueryOptions } from '../../users';
 import { useJobWriter } from '../hooks/job-writer';
 
@@ -108,6 +109,7 @@ export function JobDetailsDialog({ job, canChange }: JobDetailsDialogProps) {
 }
 
 function DetailsView({ job }: { job: JobResponse }) {
+  const dateStyle = useDateStyle();
   const styles = useStyles();
   return (
     <DialogBody>
@@ -119,9 +121,9 @@ function DetailsView({ job }: { job: JobResponse }) {
           <dt className={styles.term}>Technicians</dt>
           <dd className={styles.value}>{job.technicians.length === 0 ? 'Nobody yet' : job.technicians.map((p) => p.name).join(', ')}</dd>
           <dt className={styles.term}>Start</dt>
-          <dd className={styles.value}>{job.startDate ? formatDate(job.startDate) : 'Not set'}</dd>
+          <dd className={styles.value}>{job.startDate ? formatDate(job.startDate, dateStyle) : 'Not set'}</dd>
           <dt className={styles.term}>Finish</dt>
-          <dd className={styles.value}>{job.endDate ? formatDate(job.endDate) : 'Not set'}</dd>
+          <dd className={styles.value}>{job.endDate ? formatDate(job.endDate, dateStyle) : 'Not set'}</dd>
         </dl>
         <Text as="p" block>
           The office changes the crew and the dates.

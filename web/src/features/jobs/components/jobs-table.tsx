@@ -20,6 +20,7 @@ import { Link } from 'react-router';
 
 import { paths } from '../../../config/paths';
 import { formatDate, formatDateTime } from '../../../lib/format-date';
+import { useDateStyle } from '../../../lib/use-date-style';
 import type { JobSummaryResponse } from '../api/get-jobs';
 
 import { JobStatusBadge } from './job-status-badge';
@@ -91,6 +92,7 @@ const serverSorted = (_a: JobSummaryResponse, _b: JobSummaryResponse) => 0;
 
 /** The jobs of one page: a grid sorted by the server on wide screens, one card per job on a phone. */
 export function JobsTable({ jobs, sort, onSortChange, isPhone, isStale = false, emptyText }: JobsTableProps) {
+  const dateStyle = useDateStyle();
   const styles = useStyles();
   const sortColumn = sort.replace(/^-/, '');
   const sortDirection: SortDirection = sort.startsWith('-') ? 'descending' : 'ascending';
@@ -142,10 +144,10 @@ export function JobsTable({ jobs, sort, onSortChange, isPhone, isStale = false, 
         columnId: 'updatedAt',
         compare: serverSorted,
         renderHeaderCell: () => 'Last change',
-        renderCell: (job) => formatDateTime(job.updatedAt),
+        renderCell: (job) => formatDateTime(job.updatedAt, dateStyle),
       }),
     ],
-    [styles],
+    [dateStyle, styles],
   );
   const columnClass = (columnId: TableColumnId) => (styles as Record<string, string>)[String(columnId)];
 
@@ -173,7 +175,7 @@ export function JobsTable({ jobs, sort, onSortChange, isPhone, isStale = false, 
                 <span className={styles.cardFacts}>
                   <JobStatusBadge status={job.status} />
                   <Text size={200} className={styles.muted}>
-                    {job.startDate ? `Starts ${formatDate(job.startDate)}` : `Changed ${formatDate(job.updatedAt)}`}
+                    {job.startDate ? `Starts ${formatDate(job.startDate, dateStyle)}` : `Changed ${formatDate(job.updatedAt, dateStyle)}`}
                   </Text>
                 </span>
               </span>

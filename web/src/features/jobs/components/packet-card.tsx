@@ -7,6 +7,8 @@ import {
 } from '@fluentui/react-icons';
 
 import { describeRequestError } from '../../../lib/form-errors';
+import { formatDateTime } from '../../../lib/format-date';
+import { useDateStyle } from '../../../lib/use-date-style';
 import { useSessionUser } from '../../../lib/session';
 import { JobDeliveries } from '../../delivery';
 import { SendPacketDialog } from '../../delivery';
@@ -73,6 +75,7 @@ export function PacketCard({ jobId }: PacketCardProps) {
 
 function RevisionRow({ packet, canSend, onDownload }: { packet: PacketRevision; canSend: boolean; onDownload: (url: string, fileName: string) => void }) {
   const styles = useStyles();
+  const dateStyle = useDateStyle();
   const card = useCardStyles();
   const inProgress = isPacketInProgress(packet.status);
   const icon =
@@ -88,7 +91,7 @@ function RevisionRow({ packet, canSend, onDownload }: { packet: PacketRevision; 
       </span>
       {inProgress && <ProgressBar thickness="large" value={packet.status === 'queued' ? 0.15 : undefined} aria-label={STATUS_WORDS[packet.status]} />}
       {packet.status === 'failed' && packet.failureReason && <Text className={styles.failed}>Reason: {packet.failureReason}</Text>}
-      <Text size={200}>Issued {new Date(packet.issuedAt).toLocaleString()}</Text>
+      <Text size={200}>Issued {formatDateTime(packet.issuedAt, dateStyle)}</Text>
       {packet.status === 'ready' && (
         <div className={card.actions}>
           {packet.pdf && (

@@ -5,6 +5,8 @@ import SignaturePad from 'signature_pad';
 import type { SignatureRole } from '@domain/packet/signature.schema';
 
 import { describeRequestError } from '../../../lib/form-errors';
+import { formatDateTime } from '../../../lib/format-date';
+import { useDateStyle } from '../../../lib/use-date-style';
 import { getJobSignaturesQueryOptions, useJobSignatures, type JobSignatureResponse } from '../api/get-job-signatures';
 import { useJobWriter } from '../hooks/job-writer';
 
@@ -87,6 +89,7 @@ type PadFieldProps = { jobId: string; role: SignatureRole; canSign: boolean; def
 
 function SignaturePadField({ jobId, role, canSign, defaultName, saved }: PadFieldProps) {
   const styles = useStyles();
+  const dateStyle = useDateStyle();
   const card = useCardStyles();
   const queryClient = useQueryClient();
   const { save } = useJobWriter();
@@ -158,7 +161,7 @@ function SignaturePadField({ jobId, role, canSign, defaultName, saved }: PadFiel
             <path d={saved.svgPath} fill="none" stroke={SIGNATURE_INK} strokeWidth={2} strokeLinecap="round" strokeLinejoin="round" />
           </svg>
           <Text>
-            {saved.signerName}, signed {new Date(saved.signedAt).toLocaleString()}
+            {saved.signerName}, signed {formatDateTime(saved.signedAt, dateStyle)}
           </Text>
           {canSign && (
             <div className={card.actions}>

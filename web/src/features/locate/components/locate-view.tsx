@@ -5,7 +5,8 @@ import { useLocation } from 'react-router';
 
 import { InstallerCard } from '../../../components/installer-card';
 import { formatDate } from '../../../lib/format-date';
-import { formatDate as formatWorkDate, spell } from '@domain/format/date-time';
+import { companyDateStyle } from '../../../lib/use-date-style';
+import { type DateStyle, formatDate as formatWorkDate, spell } from '@domain/format/date-time';
 import { formatToleranceZone } from '@domain/format/length';
 import { formatLength } from '../../../lib/units';
 import type { LocateViewResponse } from '../api/get-locate-view';
@@ -143,7 +144,7 @@ function Cautions({ view }: { view: LocateViewResponse }) {
   );
 }
 
-function RunDetails({ run }: { run: LocateViewResponse['runs'][number] }) {
+function RunDetails({ run, dateStyle }: { run: LocateViewResponse['runs'][number]; dateStyle: DateStyle }) {
   const styles = useStyles();
   const [openPhoto, setOpenPhoto] = useState<string | undefined>();
   const photo = run.photos.find((p) => p.id === openPhoto);
@@ -166,7 +167,7 @@ function RunDetails({ run }: { run: LocateViewResponse['runs'][number] }) {
             <figure style={{ margin: 0 }}>
               <img src={photo.screenUrl} alt={photo.caption ?? `Trench photo of ${run.label}, large`} className={styles.screen} />
               {(photo.caption || photo.takenAt) && (
-                <figcaption className={styles.muted}>{[photo.caption, photo.takenAt && formatDate(photo.takenAt)].filter(Boolean).join(' · ')}</figcaption>
+                <figcaption className={styles.muted}>{[photo.caption, photo.takenAt && formatDate(photo.takenAt, dateStyle)].filter(Boolean).join(' · ')}</figcaption>
               )}
             </figure>
           )}
@@ -307,6 +308,8 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
   const shallowRunIds = useMemo(() => new Set(view.runs.filter((r) => r.isShallow).map((r) => r.id)), [view.runs]);
   const hasTies = view.map.items.some((item) => item.position !== null && item.ties.length > 0);
   const position = useMyPosition(view.map.frame);
+  // The installer's zone and locale, as on its packets (a visitor has no company of their own).
+  const dateStyle = useMemo(() => companyDateStyle({ timeZone: view.timeZone, locale: view.locale }), [view.timeZone, view.locale]);
 
   const selectFromMap = (runId: string) => {
     setSelectedRunId(runId);
@@ -432,7 +435,7 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
                         : ''}
                     </Text>
                   </Button>
-                  {open && <RunDetails run={run} />}
+                  {open && <RunDetails run={run} dateStyle={dateStyle} />}
                 </li>
               );
             })}
@@ -441,7 +444,7 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
       </section>
 
       <Text size={200} className={styles.muted}>
-        This link works until {formatDate(view.link.expiresAt)}. Map as of {formatDate(view.generatedAt)}.
+        This link works until {formatDate(view.link.expiresAt, dateStyle)}. Map as of {formatDate(view.generatedAt, dateStyle)}.
       </Text>
     </div>
   );

@@ -3,6 +3,7 @@ import { Fragment, useMemo, useState } from 'react';
 import type { OutboxMessageResponse } from '@domain/mail/outbox.schema';
 
 import { formatDateTime } from '../../../lib/format-date';
+import { useDateStyle } from '../../../lib/use-date-style';
 import { extractLinks } from '../utils/extract-links';
 
 import { MessageAttachments } from './message-attachments';
@@ -70,6 +71,7 @@ type BodyTab = 'html' | 'text' | 'headers';
 
 /** One captured message: who and when, its links and attachments, and the body as HTML or text. */
 export function MessageView({ message }: { message: OutboxMessageResponse }) {
+  const dateStyle = useDateStyle();
   const styles = useStyles();
   const [tab, setTab] = useState<BodyTab>(message.html ? 'html' : 'text');
   const links = useMemo(() => extractLinks(message), [message]);
@@ -83,7 +85,7 @@ export function MessageView({ message }: { message: OutboxMessageResponse }) {
         <dd className={styles.value}>{message.to.join(', ')}</dd>
         <dt className={styles.term}>Received</dt>
         <dd className={styles.value}>
-          <time dateTime={message.receivedAt}>{formatDateTime(message.receivedAt)}</time>
+          <time dateTime={message.receivedAt}>{formatDateTime(message.receivedAt, dateStyle)}</time>
         </dd>
       </dl>
 

@@ -5,6 +5,7 @@ import type { OutboxListResponse } from '@domain/mail/outbox.schema';
 
 import { paths } from '../../../config/paths';
 import { formatDateTime } from '../../../lib/format-date';
+import { useDateStyle } from '../../../lib/use-date-style';
 
 const useStyles = makeStyles({
   root: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },
@@ -69,6 +70,7 @@ type OutboxListProps = {
 
 /** Captured messages, newest first, one page at a time. */
 export function OutboxList({ data, onPageChange, isLoadingPage = false }: OutboxListProps) {
+  const dateStyle = useDateStyle();
   const styles = useStyles();
   const { items, total, page, pageSize } = data;
   const pageCount = Math.max(1, Math.ceil(total / pageSize));
@@ -93,7 +95,7 @@ export function OutboxList({ data, onPageChange, isLoadingPage = false }: Outbox
               <span className={styles.subject}>{message.subject || '(no subject)'}</span>
               <span className={styles.to}>To {message.to.join(', ')}</span>
               <time dateTime={message.receivedAt} className={styles.time}>
-                {formatDateTime(message.receivedAt)}
+                {formatDateTime(message.receivedAt, dateStyle)}
               </time>
             </Link>
           </li>

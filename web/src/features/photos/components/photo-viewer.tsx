@@ -19,6 +19,7 @@ import type { PhotoTarget } from '@domain/photos/photo.schema';
 
 import { useNotify } from '../../../components/notify';
 import { formatDateTime } from '../../../lib/format-date';
+import { useDateStyle } from '../../../lib/use-date-style';
 import { describeRequestError } from '../../../lib/form-errors';
 import { useChangePhoto } from '../api/change-photo';
 import type { PhotoResponse } from '../api/get-job-photos';
@@ -161,6 +162,7 @@ function ViewerImage({ photo }: { photo: PhotoResponse }) {
 }
 
 function PhotoDetails({ photo, onDeleted }: { photo: PhotoResponse; onDeleted: () => void }) {
+  const dateStyle = useDateStyle();
   const styles = useStyles();
   const notify = useNotify();
   const { jobId, canChange, targetOptions } = usePhotoActions();
@@ -202,7 +204,7 @@ function PhotoDetails({ photo, onDeleted }: { photo: PhotoResponse; onDeleted: (
     }
   };
 
-  const takenAt = photo.takenAt ? formatDateTime(photo.takenAt) : undefined;
+  const takenAt = photo.takenAt ? formatDateTime(photo.takenAt, dateStyle) : undefined;
   return (
     <section className={styles.panel} aria-label="About this photo">
       {error && (

@@ -26,6 +26,7 @@ import { ConfirmDialog } from '../../../components/confirm-dialog';
 import { useNotify } from '../../../components/notify';
 import { describeRequestError, fieldErrorsFromApi, fieldErrorsFromZod, type FieldErrors } from '../../../lib/form-errors';
 import { formatDate, formatDateTime } from '../../../lib/format-date';
+import { useDateStyle } from '../../../lib/use-date-style';
 import { useCreateLocateLink, type CreatedLocateLinkResponse } from '../api/create-locate-link';
 import { type LocateLinkResponse, useLocateLinks } from '../api/get-locate-links';
 import { useRevokeLocateLink } from '../api/revoke-locate-link';
@@ -57,6 +58,7 @@ const useStyles = makeStyles({
 type Key = 'expiresInDays' | 'note';
 
 function CreatedLink({ link }: { link: CreatedLocateLinkResponse }) {
+  const dateStyle = useDateStyle();
   const styles = useStyles();
   const notify = useNotify();
   const copy = async () => {
@@ -78,7 +80,7 @@ function CreatedLink({ link }: { link: CreatedLocateLinkResponse }) {
           Copy
         </Button>
       </div>
-      <Text className={styles.muted}>Works until {formatDate(link.expiresAt)}.</Text>
+      <Text className={styles.muted}>Works until {formatDate(link.expiresAt, dateStyle)}.</Text>
     </div>
   );
 }
@@ -203,6 +205,7 @@ export function CreateLocateLinkDialog({ siteId }: { siteId: string }) {
 }
 
 function LinkRow({ link, onRevoke }: { link: LocateLinkResponse; onRevoke: (link: LocateLinkResponse) => void }) {
+  const dateStyle = useDateStyle();
   const styles = useStyles();
   const status = link.revokedAt ? 'revoked' : link.isActive ? 'active' : 'expired';
   return (
@@ -215,12 +218,12 @@ function LinkRow({ link, onRevoke }: { link: LocateLinkResponse; onRevoke: (link
           </Badge>
         </Text>
         <Text size={200} className={styles.muted}>
-          Made {formatDate(link.createdAt)}
-          {link.createdBy ? ` by ${link.createdBy.name}` : ''} · {status === 'revoked' ? `revoked ${formatDate(link.revokedAt!)}` : `until ${formatDate(link.expiresAt)}`}
+          Made {formatDate(link.createdAt, dateStyle)}
+          {link.createdBy ? ` by ${link.createdBy.name}` : ''} · {status === 'revoked' ? `revoked ${formatDate(link.revokedAt!, dateStyle)}` : `until ${formatDate(link.expiresAt, dateStyle)}`}
         </Text>
         <Text size={200} className={styles.muted}>
           Opened {link.accessCount} {link.accessCount === 1 ? 'time' : 'times'}
-          {link.lastAccessedAt ? `, last ${formatDateTime(link.lastAccessedAt)}` : ''}
+          {link.lastAccessedAt ? `, last ${formatDateTime(link.lastAccessedAt, dateStyle)}` : ''}
         </Text>
       </div>
       {link.isActive && (

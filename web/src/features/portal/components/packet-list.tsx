@@ -5,6 +5,7 @@ import { useState } from 'react';
 import { useNotify } from '../../../components/notify';
 import { describeRequestError } from '../../../lib/form-errors';
 import { formatDate } from '../../../lib/format-date';
+import { useDateStyle } from '../../../lib/use-date-style';
 import type { PortalPacket } from '../api/get-portal-site';
 import { getPacketFile } from '../api/get-packet-file';
 import { saveBlob, sha256Hex } from '../utils/sha256';
@@ -107,6 +108,7 @@ function PacketFile({ label, file, fileName }: { label: string; file: PortalPack
 
 /** Every issued revision at the site, newest first, with its downloads and checksums. */
 export function PacketList({ packets }: { packets: PortalPacket[] }) {
+  const dateStyle = useDateStyle();
   const styles = useStyles();
   if (packets.length === 0) return <Text className={styles.muted}>No handover packet has been issued for this site yet.</Text>;
   return (
@@ -116,7 +118,7 @@ export function PacketList({ packets }: { packets: PortalPacket[] }) {
           <div className={styles.title}>
             <Text weight="semibold">{packet.jobTitle}</Text>
             <Text>revision {packet.revision}</Text>
-            <Text className={styles.muted}>issued {formatDate(packet.issuedAt)}</Text>
+            <Text className={styles.muted}>issued {formatDate(packet.issuedAt, dateStyle)}</Text>
             {packet.isLatest && (
               <Badge appearance="tint" color="brand">
                 latest

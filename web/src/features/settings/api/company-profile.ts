@@ -10,6 +10,7 @@ import {
 } from '@domain/company/company-profile.schema';
 
 import { apiBlob, apiRequest } from '../../../lib/api-client';
+import { getMyPreferencesQueryOptions } from '../../../lib/use-unit-preferences';
 
 export type { CompanyDepthRulesResponse, CompanyProfileResponse };
 
@@ -39,7 +40,11 @@ function useProfileMutation<I>(send: (input: I) => Promise<CompanyProfileRespons
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: send,
-    onSuccess: (profile) => queryClient.setQueryData(getCompanyProfileQueryOptions().queryKey, profile),
+    onSuccess: (profile) => {
+      queryClient.setQueryData(getCompanyProfileQueryOptions().queryKey, profile);
+      // Everyone's preferences carry the company's time zone and locale, in which screens write dates.
+      void queryClient.invalidateQueries({ queryKey: getMyPreferencesQueryOptions().queryKey });
+    },
   });
 }
 

@@ -12,7 +12,7 @@ const SETTINGS: CompanySettingsResponse = { lengthUnits: 'imperial', gaugeUnits:
 const PREFERENCES: MyPreferencesResponse = {
   lengthUnits: null,
   gaugeUnits: null,
-  company: { lengthUnits: 'imperial', gaugeUnits: 'awg' },
+  company: { lengthUnits: 'imperial', gaugeUnits: 'awg', timeZone: 'America/Denver', locale: 'en-US' },
   effective: { length: 'imperial', gauge: 'awg' },
 };
 const PROFILE: CompanyProfileResponse = {

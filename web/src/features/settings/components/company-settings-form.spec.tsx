@@ -12,7 +12,7 @@ const COMPANY: CompanySettingsResponse = { lengthUnits: 'metric', gaugeUnits: 'm
 function preferences(own: { lengthUnits: 'imperial' | 'metric' | null; gaugeUnits: 'awg' | 'mm2' | null }): MyPreferencesResponse {
   return {
     ...own,
-    company: { lengthUnits: COMPANY.lengthUnits, gaugeUnits: COMPANY.gaugeUnits },
+    company: { lengthUnits: COMPANY.lengthUnits, gaugeUnits: COMPANY.gaugeUnits, timeZone: null, locale: 'en-US' },
     effective: { length: own.lengthUnits ?? COMPANY.lengthUnits, gauge: own.gaugeUnits ?? COMPANY.gaugeUnits },
   };
 }

@@ -2,10 +2,12 @@ import { Button, makeStyles, Text, tokens } from '@fluentui/react-components';
 import { ArrowClockwise20Regular, Delete20Regular } from '@fluentui/react-icons';
 import { useState } from 'react';
 import { ROLE_LABELS } from '@domain/auth/roles';
+import type { DateStyle } from '@domain/format/date-time';
 
 import { ConfirmDialog } from '../../../components/confirm-dialog';
 import { useNotify } from '../../../components/notify';
 import { formatDateTime } from '../../../lib/format-date';
+import { useDateStyle } from '../../../lib/use-date-style';
 import { describeRequestError } from '../../../lib/form-errors';
 import type { InvitationResponse } from '../api/get-invitations';
 import { useResendInvitation } from '../api/resend-invitation';
@@ -33,10 +35,10 @@ const useStyles = makeStyles({
 });
 
 /** Where the invitation's e-mail is, in words; `isProblem` when it will not arrive without help. */
-function describeMail(mail: InvitationResponse['mail']): { text: string; isProblem: boolean; canResend: boolean } {
+function describeMail(mail: InvitationResponse['mail'], dateStyle: DateStyle): { text: string; isProblem: boolean; canResend: boolean } {
   switch (mail?.status) {
     case 'sent':
-      return { text: `E-mail sent ${mail.sentAt ? formatDateTime(mail.sentAt) : ''}`.trim(), isProblem: false, canResend: false };
+      return { text: `E-mail sent ${mail.sentAt ? formatDateTime(mail.sentAt, dateStyle) : ''}`.trim(), isProblem: false, canResend: false };
     case 'queued':
     case 'sending':
       return mail.lastError
@@ -56,6 +58,7 @@ function describeMail(mail: InvitationResponse['mail']): { text: string; isProbl
 /** Invitations sent but not yet accepted, each with where its e-mail is and a way to withdraw it. */
 export function InvitationsList({ invitations }: { invitations: readonly InvitationResponse[] }) {
   const styles = useStyles();
+  const dateStyle = useDateStyle();
   const notify = useNotify();
   const revoke = useRevokeInvitation();
   const resend = useResendInvitation();
@@ -89,7 +92,7 @@ export function InvitationsList({ invitations }: { invitations: readonly Invitat
     <>
       <ul className={styles.list} aria-label="Waiting invitations">
         {invitations.map((invitation) => {
-          const mail = describeMail(invitation.mail);
+          const mail = describeMail(invitation.mail, dateStyle);
           return (
             <li key={invitation.id} className={styles.item}>
               <div className={styles.who}>
@@ -97,8 +100,8 @@ export function InvitationsList({ invitations }: { invitations: readonly Invitat
                   {invitation.name ? `${invitation.name} · ${invitation.email}` : invitation.email}
                 </Text>
                 <Text size={200} className={styles.muted}>
-                  {ROLE_LABELS[invitation.role]} · invited {formatDateTime(invitation.createdAt)} · link works until{' '}
-                  {formatDateTime(invitation.expiresAt)}
+                  {ROLE_LABELS[invitation.role]} · invited {formatDateTime(invitation.createdAt, dateStyle)} · link works until{' '}
+                  {formatDateTime(invitation.expiresAt, dateStyle)}
                 </Text>
                 {invitation.mail !== undefined && (
                   <Text size={200} className={mail.isProblem ? styles.problem : styles.muted}>

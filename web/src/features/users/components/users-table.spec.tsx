@@ -1,5 +1,6 @@
 import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
+import { formatDateTime } from '@domain/format/date-time';
 
 import { buildSessionUser, buildUserResponse, buildPage } from '../../../testing/data';
 import { mockApi } from '../../../testing/mock-api';
@@ -37,6 +38,21 @@ describe('UsersTable', () => {
     expect(within(rows[0]!).getByText('Never')).toBeInTheDocument();
     // Office sees the list but changes nobody.
     expect(screen.queryByRole('button', { name: /^Change / })).not.toBeInTheDocument();
+  });
+
+  it("should write last sign-ins in the company's time zone, not the browser's (issue 16)", async () => {
+    // 20:30 UTC on 2 Mar 2026 is 09:30 on 3 Mar in Auckland (NZDT, UTC+13 until 5 Apr 2026, IANA tz database).
+    const company = { lengthUnits: 'metric', gaugeUnits: 'mm2', timeZone: 'Pacific/Auckland', locale: 'en-GB' } as const;
+    mockUsersPage({
+      'GET /api/me/preferences': () => jsonResponse({ lengthUnits: null, gaugeUnits: null, company, effective: { length: 'metric', gauge: 'mm2' } }),
+      'GET /api/users?pageSize=100': () => jsonResponse(buildPage(people.map((p) => ({ ...p, lastSignInAt: '2026-03-02T20:30:00.000Z' })))),
+    });
+    renderApp({ url: '/users', signedInAs: buildSessionUser('office') });
+
+    const grid = await screen.findByRole('grid', { name: 'People' });
+    const auckland = formatDateTime('2026-03-02T20:30:00.000Z', { timeZone: 'Pacific/Auckland', locale: 'en-GB' });
+    expect(auckland).toMatch(/^3 Mar 2026, 09:30/);
+    expect((await within(grid).findAllByText(auckland)).length).toBeGreaterThan(0);
   });
 
   it('should let an admin change others but not themselves', async () => {

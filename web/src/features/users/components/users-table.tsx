@@ -15,8 +15,10 @@ import {
 } from '@fluentui/react-components';
 import { useMemo } from 'react';
 import { canManageUser, ROLE_LABELS, type Role } from '@domain/auth/roles';
+import type { DateStyle } from '@domain/format/date-time';
 
 import { formatDateTime } from '../../../lib/format-date';
+import { useDateStyle } from '../../../lib/use-date-style';
 import { useMediaQuery } from '../../../lib/use-media-query';
 import type { UserResponse } from '../api/get-users';
 
@@ -71,8 +73,8 @@ type UsersTableProps = {
   actor: { id: string; role: Role };
 };
 
-function lastSignIn(user: UserResponse): string {
-  return user.lastSignInAt ? formatDateTime(user.lastSignInAt) : 'Never';
+function lastSignIn(user: UserResponse, dateStyle: DateStyle): string {
+  return user.lastSignInAt ? formatDateTime(user.lastSignInAt, dateStyle) : 'Never';
 }
 
 // Sort by label, not by the stored value: "Crew lead" sorts under C, as people read it.
@@ -84,6 +86,7 @@ const compareText = (a: string, b: string) => a.localeCompare(b, undefined, { se
  */
 export function UsersTable({ users, actor }: UsersTableProps) {
   const styles = useStyles();
+  const dateStyle = useDateStyle();
   const isPhone = useMediaQuery('(max-width: 767.98px)');
   const canManage = (user: UserResponse) => canManageUser(actor.role, actor.id, user.id);
   const showActions = actor.role === 'admin';
@@ -133,7 +136,7 @@ export function UsersTable({ users, actor }: UsersTableProps) {
         compare: (a, b) => (a.lastSignInAt ?? '').localeCompare(b.lastSignInAt ?? ''),
         renderHeaderCell: () => 'Last sign-in',
         renderCell: (user) => (
-          <span className={user.lastSignInAt ? undefined : styles.muted}>{lastSignIn(user)}</span>
+          <span className={user.lastSignInAt ? undefined : styles.muted}>{lastSignIn(user, dateStyle)}</span>
         ),
       }),
     ];
@@ -146,7 +149,7 @@ export function UsersTable({ users, actor }: UsersTableProps) {
         renderCell: (user) => (canManageUser(actor.role, actor.id, user.id) ? <UserActions user={user} /> : null),
       }),
     ];
-  }, [actor.id, actor.role, showActions, styles]);
+  }, [actor.id, actor.role, dateStyle, showActions, styles]);
 
   const columnClasses: Record<string, string> = {
     name: styles.name,
@@ -175,7 +178,7 @@ export function UsersTable({ users, actor }: UsersTableProps) {
               <Text weight="semibold">{ROLE_LABELS[user.role]}</Text>
               <UserStatusBadge isDisabled={user.isDisabled} />
               <Text size={200} className={styles.muted}>
-                Last sign-in: {lastSignIn(user)}
+                Last sign-in: {lastSignIn(user, dateStyle)}
               </Text>
             </div>
           </li>
