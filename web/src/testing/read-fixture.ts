@@ -1,5 +1,5 @@
 /** The Node module that reads files, typed by hand: the web's tsconfig has no Node types. */
-type FileReader = { readFile(path: string): Promise<Uint8Array> };
+type NodeFs = { readFile(path: string): Promise<Uint8Array> };
 
 /**
  * The bytes of a file under the repository's `test/fixtures/` (e.g. `photos/field-photo.heic`). Web
@@ -8,7 +8,7 @@ type FileReader = { readFile(path: string): Promise<Uint8Array> };
  */
 export async function readFixture(path: string): Promise<Uint8Array<ArrayBuffer>> {
   const specifier = 'node:fs/promises';
-  const fs = (await import(/* @vite-ignore */ specifier)) as FileReader;
+  const fs = (await import(/* @vite-ignore */ specifier)) as NodeFs;
   // `here` in a variable: Vite rewrites `new URL(`…${x}`, import.meta.url)` into a lookup of built assets.
   // A path, not the URL: under jsdom `URL` is jsdom's, which Node's fs does not take.
   const here = import.meta.url;
