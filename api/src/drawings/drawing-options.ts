@@ -49,6 +49,8 @@ export interface DrawingBaseOptions {
   createCanvas: SvgCanvasFactory;
   /** Label units; default: the as-built's display preference, else metric. */
   units?: UnitSystem;
+  /** The company's BCP 47 locale: the legend's words are spelled for it (en-US "color", en-GB "colour"; en-US default). */
+  locale?: string | null;
 }
 
 /**

@@ -300,6 +300,30 @@ describe('drawSitePlan', () => {
   });
 });
 
+describe('drawSitePlan: the legend spelled for the company locale (issue 16)', () => {
+  // A house footprint, so the legend has its grey (gray) feature entry.
+  const withHouse: AsBuilt = {
+    ...demo,
+    site: { ...demo.site, features: [{ id: 'house', kind: 'house', name: 'House', shape: 'polygon', points: [{ x: -6, y: -4 }, { x: 6, y: -4 }, { x: 6, y: -1 }, { x: -6, y: -1 }] }] },
+  };
+  const legendWords = (locale?: string) => {
+    const doc = parseSvg(drawSitePlan(withHouse, demoAnalysis, { ...opts, ...(locale ? { locale } : {}) }));
+    return { key: doc.querySelector('[data-role="colour-key"]')?.textContent, feature: doc.querySelector('[data-legend="feature"]')?.textContent };
+  };
+
+  // Spellings: Merriam-Webster (American "color", "gray") and the Oxford English Dictionary (British "colour", "grey").
+  it.each([
+    [undefined, 'color', 'gray'],
+    ['en-US', 'color', 'gray'],
+    ['en-GB', 'colour', 'grey'],
+    ['en-CA', 'colour', 'grey'],
+  ] as const)('should spell the colour key and the features in %s as "%s" and "%s"', (locale, color, gray) => {
+    const words = legendWords(locale);
+    expect(words.key).toBe(`Orange: buried signal cable (APWA ${color} code)`);
+    expect(words.feature).toBe(`House, fence, path … (${gray})`);
+  });
+});
+
 describe('drawSitePlan: ties sheet and paper orientation', () => {
   const tiesModel = layoutSitePlan(demo, demoAnalysis, { sheet: 'ties' });
   const tieCount = demo.items.reduce((n, item) => n + (item.ties ?? []).filter((t) => demo.referencePoints.some((rp) => rp.id === t.referencePointId)).length, 0);

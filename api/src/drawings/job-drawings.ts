@@ -84,6 +84,8 @@ export interface JobDrawingInput {
   analysis: AsBuiltAnalysis;
   createCanvas: SvgCanvasFactory;
   units: UnitSystem;
+  /** The company's locale, for the legend's spelling (en-US when absent). */
+  locale?: string | null;
 }
 
 export interface JobSitePlanOptions {
@@ -105,6 +107,7 @@ export function drawJobSitePlan(input: JobDrawingInput, options: JobSitePlanOpti
   return drawSitePlan(input.asBuilt, input.analysis, {
     createCanvas: input.createCanvas,
     units: input.units,
+    ...(input.locale ? { locale: input.locale } : {}),
     paper: options.paper,
     orientation: options.orientation ?? 'portrait',
     ...(options.headroomPt !== undefined ? { headroomPt: options.headroomPt } : {}),

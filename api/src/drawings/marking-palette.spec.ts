@@ -5,7 +5,7 @@ import type { AsBuilt } from '../domain/as-built/as-built.schema.js';
 import { DEMO_AS_BUILT } from '../domain/as-built/demo-as-built.js';
 import { DEMO_SITE_FEATURES } from '../domain/sites/demo-site-features.js';
 import { drawDepthProfile } from './depth-profile.js';
-import { APWA_COLOURS, MARKING_LEGEND, markingMeaning, REFERENCE_INK, RUN_ORANGE, RUN_STROKES, runStyleKey } from './marking-palette.js';
+import { APWA_COLOURS, colourKeyNote, legendText, MARKING_LEGEND, markingMeaning, REFERENCE_INK, RUN_ORANGE, RUN_STROKES, runStyleKey } from './marking-palette.js';
 import { createNodeSvgCanvas } from './node-svg-window.js';
 import { drawSitePlan } from './site-plan.js';
 import { drawWiringSchematic } from './wiring-schematic.js';
@@ -174,5 +174,22 @@ describe(runStyleKey.name, () => {
     [{ method: 'indoor' as const, isAbandoned: true }, 'indoor'],
   ])('%o is drawn as %s', (run, style) => {
     expect(runStyleKey(run)).toBe(style);
+  });
+});
+
+describe('legend words spelled for the locale (issue 16)', () => {
+  // Spellings: Merriam-Webster (American "color", "gray") and the Oxford English Dictionary (British "colour", "grey").
+  it.each([
+    [undefined, 'APWA uniform color code', '(gray)'],
+    ['en-US', 'APWA uniform color code', '(gray)'],
+    ['es-US', 'APWA uniform color code', '(gray)'],
+    ['en-GB', 'APWA uniform colour code', '(grey)'],
+    ['en-AU', 'APWA uniform colour code', '(grey)'],
+  ] as const)('should write the colour sentence and the feature entry in %s with "%s" and "%s"', (locale, code, gray) => {
+    expect(colourKeyNote(locale)).toContain(code);
+    expect(legendText('feature', locale)).toContain(gray);
+    // No placeholder is ever left in the words.
+    for (const { key } of MARKING_LEGEND) expect(legendText(key, locale)).not.toMatch(/[{}]/);
+    expect(colourKeyNote(locale)).not.toMatch(/[{}]/);
   });
 });

@@ -1,3 +1,5 @@
+import { spell } from '../domain/format/date-time.js';
+
 /**
  * The one palette for everything that draws a cable run, a reference point or a site feature: the
  * printed drawings (site plan, schematic, depth profile), the packet PDF and the web app's maps (plan
@@ -137,15 +139,31 @@ export const MARKING_LEGEND: readonly { key: LegendKey; text: string }[] = [
   { key: 'run:abandoned', text: 'Abandoned run, still buried (crosses)' },
   { key: 'route_not_recorded', text: 'Route not recorded (dots)' },
   { key: 'shallow', text: 'Shallow depth reading' },
-  { key: 'feature', text: 'House, fence, path … (grey)' },
+  { key: 'feature', text: 'House, fence, path … ({gray})' },
 ];
 
-export function legendText(key: LegendKey): string {
-  return MARKING_LEGEND.find((entry) => entry.key === key)!.text;
+/** The placeholders of the legend and colour-key words, spelled for the reader's locale. */
+function spelled(text: string, locale: string | null | undefined): string {
+  return text.replaceAll('{color}', spell('color', locale)).replaceAll('{gray}', spell('gray', locale));
 }
 
-/** The colour sentence printed with every legend. */
-export const COLOUR_KEY_NOTE = 'Orange: buried speaker and signal cable (APWA uniform colour code). Mark routes on the ground in orange; outline a planned dig area in white.';
+/** A legend entry's words, spelled for the company's locale (en-US "gray" by default, en-GB "grey"). */
+export function legendText(key: LegendKey, locale?: string | null): string {
+  return spelled(MARKING_LEGEND.find((entry) => entry.key === key)!.text, locale);
+}
+
+/**
+ * The colour sentence printed with every legend (the packet, the web app's maps), spelled for the
+ * company's locale: "APWA uniform color code" in en-US (the default), "colour" in en-GB, en-CA, en-AU ….
+ */
+export function colourKeyNote(locale?: string | null): string {
+  return spelled('Orange: buried speaker and signal cable (APWA uniform {color} code). Mark routes on the ground in orange; outline a planned dig area in white.', locale);
+}
+
+/** The short colour sentence in a drawing's legend box, spelled for the locale. */
+export function drawingColourKey(locale?: string | null): string {
+  return spelled('Orange: buried signal cable (APWA {color} code)', locale);
+}
 
 function rgb(hex: string): [number, number, number] | null {
   const m = /^#([0-9a-f]{3}|[0-9a-f]{6})$/i.exec(hex.trim());

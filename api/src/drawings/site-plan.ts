@@ -10,7 +10,7 @@ import { BASELINE_EM, LABEL_PAD_PT, LINE_HEIGHT_EM, wrapText, type Box } from '.
 import { layoutSitePlan, type RunStyleKey, type SitePlanModel } from './site-plan-layout.js';
 import { drawAccuracyCircle, drawFeature, drawItemSymbol, drawReferenceSymbol, drawRunLine, drawShallowMarker, drawTieLine } from './site-plan-symbols.js';
 import { addText, r2 } from './svg-canvas.js';
-import { FEATURE_LABEL, LEADER_INK, MARKING_LEGEND, REFERENCE_INK, type LegendKey } from './marking-palette.js';
+import { drawingColourKey, FEATURE_LABEL, LEADER_INK, legendText, MARKING_LEGEND, REFERENCE_INK, type LegendKey } from './marking-palette.js';
 
 export const SITE_PLAN_NOTE = 'Positions are as recorded; verify by hand-digging before any excavation.';
 const LOCATE_NOTE = 'Private low-voltage lines are not marked by public one-call locating services.';
@@ -127,7 +127,7 @@ export function renderSitePlan(model: SitePlanModel, options: SitePlanOptions): 
   drawPlanNotes(plan, model);
   canvas.rect(r2(f.width), r2(f.height)).attr({ x: r2(f.x), y: r2(f.y) }).fill('none').stroke({ color: '#000000', width: 0.8 });
 
-  drawBand(canvas, model, options.titleBlock ?? {});
+  drawBand(canvas, model, options.titleBlock ?? {}, options.locale);
   return canvas.svg();
 }
 
@@ -164,7 +164,7 @@ function drawPlanNotes(parent: Container, model: SitePlanModel): void {
   }
 }
 
-function drawBand(canvas: Svg, model: SitePlanModel, info: TitleBlockInfo): void {
+function drawBand(canvas: Svg, model: SitePlanModel, info: TitleBlockInfo, locale: string | null | undefined): void {
   const band = model.band;
   const titleW = 210;
   const northW = 110;
@@ -174,15 +174,16 @@ function drawBand(canvas: Svg, model: SitePlanModel, info: TitleBlockInfo): void
   for (const b of [legendBox, northBox, titleBox]) {
     canvas.rect(r2(b.width), r2(b.height)).attr({ x: r2(b.x), y: r2(b.y) }).fill('#ffffff').stroke({ color: '#000000', width: 0.8 });
   }
-  drawLegend(canvas, model, legendBox);
+  drawLegend(canvas, model, legendBox, locale);
   drawNorthAndScale(canvas, model, northBox);
   drawTitleBlock(canvas, model, info, titleBox);
 }
 
-function drawLegend(canvas: Svg, model: SitePlanModel, box: Box): void {
+/** The legend box; its words (the colour key, "gray" features) are spelled for the company's locale. */
+function drawLegend(canvas: Svg, model: SitePlanModel, box: Box, locale: string | null | undefined): void {
   const g = canvas.group().attr('data-layer', 'legend');
   addText(g, 'Legend', box.x + 6, box.y + 12, { size: 8, weight: 'bold' });
-  addText(g, 'Orange: buried signal cable (APWA colour code)', box.x + 40, box.y + 12, { size: 6.5 }).attr('data-role', 'colour-key');
+  addText(g, drawingColourKey(locale), box.x + 40, box.y + 12, { size: 6.5 }).attr('data-role', 'colour-key');
   const keys = sitePlanLegendKeys(model);
   const rowH = 11;
   const rowsPerColumn = Math.max(1, Math.floor((box.height - 22) / rowH));
@@ -194,7 +195,7 @@ function drawLegend(canvas: Svg, model: SitePlanModel, box: Box): void {
     const y = box.y + 24 + row * rowH;
     const entry = g.group().attr('data-legend', key);
     drawLegendSwatch(entry, key, x, y);
-    addText(entry, LEGEND.find((e) => e.key === key)!.text, x + 24, y + 2.3, { size: 6.5 });
+    addText(entry, legendText(key, locale), x + 24, y + 2.3, { size: 6.5 });
   });
 }
 

@@ -10,7 +10,7 @@ import type { DrawingTask } from './drawing-task.js';
  * the API's event loop. Runs the same drawing module as the packet and the web app.
  */
 async function draw(task: DrawingTask): Promise<string> {
-  const input = { asBuilt: task.asBuilt, analysis: task.analysis, createCanvas: createNodeSvgCanvas, units: task.units };
+  const input = { asBuilt: task.asBuilt, analysis: task.analysis, createCanvas: createNodeSvgCanvas, units: task.units, locale: task.locale ?? null };
   switch (task.kind) {
     case 'site-plan':
       return drawJobSitePlan(input, task.sitePlan);

@@ -73,11 +73,12 @@ export class JobDrawingsService {
     const key = JSON.stringify(['site-plan', jobId, query.units ?? null, query.paper ?? null, query.layers ?? []]);
     const loaded = await this.load(actor, key, async () => {
       const data = await this.jobs.asBuilt(actor, jobId);
-      const planImage = await this.planImages.forDrawing(actor.companyId, data.job.site.id);
+      const [planImage, locale] = await Promise.all([this.planImages.forDrawing(actor.companyId, data.job.site.id), this.jobs.companyLocale(actor)]);
       const { job } = data;
       const task: DrawingTask = {
         kind: 'site-plan',
         ...this.base(data, query),
+        locale,
         sitePlan: {
           paper: query.paper ?? 'letter',
           titleBlock: jobTitleBlock({ jobTitle: job.title, siteLabel: job.site.label, place: job.site.city, revision: job.revision }),

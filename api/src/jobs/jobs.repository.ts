@@ -254,6 +254,12 @@ export class JobsRepository {
     return row?.depthRules ?? undefined;
   }
 
+  /** The company's BCP 47 locale (its profile; en-US until the admin chooses another). */
+  async companyLocale(companyId: string): Promise<string> {
+    const [row] = await this.db.select({ locale: companySettings.locale }).from(companySettings).where(eq(companySettings.companyId, companyId));
+    return row?.locale ?? 'en-US';
+  }
+
   async technicians(jobId: string, tx?: Tx): Promise<{ id: string; name: string }[]> {
     return (tx ?? this.db)
       .select({ id: users.id, name: users.name })

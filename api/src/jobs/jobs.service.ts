@@ -212,6 +212,11 @@ export class JobsService {
    * single query, or is computed from one consistent snapshot (a fixed number of queries however large
    * the job is) and kept there.
    */
+  /** The caller's company locale: the drawings' legend is spelled for it (en-US "color", en-GB "colour"). */
+  companyLocale(actor: AuthUser): Promise<string> {
+    return this.repository.companyLocale(actor.companyId);
+  }
+
   async asBuilt(actor: AuthUser, id: string): Promise<JobAsBuiltResponse> {
     const { job, cached } = await this.asBuiltParts(actor, id);
     return { job, ...cached.part };

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { demoPacketSnapshot } from '../domain/packet/demo-packet-snapshot.js';
 import { buildPacketViewModel } from '../domain/packet/packet.view-model.js';
 import { planImageForDrawing } from '../drawings/job-drawings.js';
-import { drawPacketDrawings } from './packet-document.js';
+import { drawPacketDrawings, renderPacketHtml } from './packet-document.js';
 
 /** A 1×1 PNG; the drawing only embeds it, so its content does not matter. */
 const PNG = 'data:image/png;base64,iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAQAAAC1HAwCAAAAC0lEQVR42mNkYAAAAAYAAjCB0C8AAAAASUVORK5CYII=';
@@ -35,5 +35,18 @@ describe('drawPacketDrawings', () => {
     expect(sitePlan).toContain('Abandoned since Jun 2, 2027, Lawn rework');
     // A revision issued before the site record has no provenance and prints as it did.
     expect((await drawPacketDrawings(snapshot, vm)).sitePlan).not.toContain('In since');
+  });
+
+  // Spellings: Merriam-Webster (American "color") and the Oxford English Dictionary (British "colour").
+  it.each([
+    ['en-US', 'color'],
+    ['en-GB', 'colour'],
+  ] as const)('spells the site plan legend and the locate page colour key for the company locale %s ("%s", issue 16)', async (locale, color) => {
+    const localeSnapshot = { ...snapshot, settings: { ...snapshot.settings, locale } };
+    const drawings = await drawPacketDrawings(localeSnapshot, vm);
+    expect(drawings.sitePlan).toContain(`(APWA ${color} code)`);
+    const html = renderPacketHtml({ vm, drawings, qrSvg: '<svg></svg>', locale });
+    expect(html).toContain(`(APWA uniform ${color} code)`);
+    expect(html).not.toContain(color === 'color' ? 'colour code' : 'color code');
   });
 });

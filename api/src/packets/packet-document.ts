@@ -11,7 +11,7 @@ import { runProvenanceLines } from '../domain/packet/plan-provenance.js';
 import type { PlanImage } from '../drawings/drawing-options.js';
 import type { Orientation } from '../drawings/paper.js';
 import { drawJobDepthProfile, drawJobSchematic, drawJobSitePlan, jobTitleBlock } from '../drawings/job-drawings.js';
-import { COLOUR_KEY_NOTE, RUN_ORANGE } from '../drawings/marking-palette.js';
+import { colourKeyNote, RUN_ORANGE } from '../drawings/marking-palette.js';
 import { createNodeSvgCanvas } from '../drawings/node-svg-window.js';
 import { type ChromiumPrinter } from './chromium-printer.js';
 import { readPdfFacts, readPdfLayout, withDocumentInfo } from './pdf-document-info.js';
@@ -156,7 +156,13 @@ export async function drawPacketDrawings(
 }
 
 function drawingInput(snapshot: PacketSnapshot) {
-  return { asBuilt: snapshot.asBuilt, analysis: snapshot.analysis, createCanvas: createNodeSvgCanvas, units: snapshot.settings.units };
+  return {
+    asBuilt: snapshot.asBuilt,
+    analysis: snapshot.analysis,
+    createCanvas: createNodeSvgCanvas,
+    units: snapshot.settings.units,
+    locale: snapshot.settings.locale ?? null,
+  };
 }
 
 /** The depth profile of each run that has readings, in the packet's units. */
@@ -177,6 +183,8 @@ export interface PacketHtmlParts {
   drawings: PacketDrawings;
   qrSvg: string;
   logoDataUri?: string;
+  /** The company's locale: the colour sentence is spelled for it (en-US "color" when absent). */
+  locale?: string | null;
 }
 
 /**
@@ -196,7 +204,7 @@ function renderTemplate(a: PacketAssets, vm: PacketViewModel, parts: PacketHtmlP
     vm,
     drawings: parts.drawings,
     // The palette's run orange and colour sentence (APWA uniform colour code, via CGA Best Practices).
-    marking: { run: RUN_ORANGE, colourKey: COLOUR_KEY_NOTE },
+    marking: { run: RUN_ORANGE, colourKey: colourKeyNote(parts.locale) },
     assets: {
       fontFaceCss: a.fontFaceCss,
       printCss: a.printCss,
@@ -273,6 +281,7 @@ export async function renderPacket(
     drawings: { sitePlan: PAGE_PLACEHOLDER, ties: PAGE_PLACEHOLDER, schematic: PAGE_PLACEHOLDER, profiles: profiles.map((p) => ({ ...p, svg: emptySvgLike(p.svg) })) },
     qrSvg,
     logoDataUri: input.logoDataUri,
+    locale: input.snapshot.settings.locale ?? null,
   });
   const firstPrint = printer.print({ html: firstHtml, footerTemplate, isDraft: true, onBlockedRequest: input.onBlockedRequest });
   // A rejected draft is awaited below; until then keep it from counting as unhandled.
@@ -288,7 +297,7 @@ export async function renderPacket(
   stage('page numbers');
   for (let attempt = 0; ; attempt += 1) {
     const vm = buildPacketViewModel({ ...input, pageNumbers });
-    const html = renderPacketHtml({ vm, drawings, qrSvg, logoDataUri: input.logoDataUri });
+    const html = renderPacketHtml({ vm, drawings, qrSvg, logoDataUri: input.logoDataUri, locale: input.snapshot.settings.locale ?? null });
     const printed = await printer.print({ html, footerTemplate, onBlockedRequest: input.onBlockedRequest });
     stage('final print');
     // One pdf.js opening of the final print gives its pages, destinations and Chromium's information

@@ -1,9 +1,10 @@
 import { makeStyles, tokens } from '@fluentui/react-components';
 import type { ItemKind } from '@domain/as-built/item.schema';
-import { COLOUR_KEY_NOTE, FEATURE_FILL, FEATURE_STROKE, legendText, REFERENCE_INK, WARNING_INK, type LegendKey } from '@drawings/marking-palette';
+import { colourKeyNote, FEATURE_FILL, FEATURE_STROKE, legendText, REFERENCE_INK, WARNING_INK, type LegendKey } from '@drawings/marking-palette';
 
 import { ItemSymbol, ReferenceSymbol, RunLine } from '../features/plan/components/plan-symbols';
 import { HALO } from '../config/canvas-theme';
+import { useDateStyle } from '../lib/use-date-style';
 
 const useStyles = makeStyles({
   root: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXS, margin: 0 },
@@ -52,10 +53,13 @@ function Swatch({ entry }: { entry: LegendKey }) {
 
 /**
  * The map legend: the same words as the printed drawings and the packet (marking-palette.ts,
- * MARKING_LEGEND), with the same line styles, for the entries the map shows.
+ * MARKING_LEGEND), with the same line styles, for the entries the map shows. Its words are spelled for
+ * `locale` (the installer's, on a public page), else the signed-in person's company locale.
  */
-export function MarkingLegend({ keys, label = 'Legend' }: { keys: readonly LegendKey[]; label?: string }) {
+export function MarkingLegend({ keys, label = 'Legend', locale }: { keys: readonly LegendKey[]; label?: string; locale?: string }) {
   const styles = useStyles();
+  const companyLocale = useDateStyle().locale;
+  const spelling = locale ?? companyLocale;
   return (
     <div className={styles.root} role="group" aria-label={label} data-testid="marking-legend">
       <ul className={styles.list}>
@@ -64,11 +68,11 @@ export function MarkingLegend({ keys, label = 'Legend' }: { keys: readonly Legen
             <svg className={styles.swatch} width={44} height={20} viewBox="0 0 44 20" aria-hidden="true">
               <Swatch entry={key} />
             </svg>
-            <span>{legendText(key)}</span>
+            <span>{legendText(key, spelling)}</span>
           </li>
         ))}
       </ul>
-      <p className={styles.note}>{COLOUR_KEY_NOTE}</p>
+      <p className={styles.note}>{colourKeyNote(spelling)}</p>
     </div>
   );
 }

@@ -43,6 +43,8 @@ describe(spell.name, () => {
     ['center', 'en-GB', 'centre'],
     ['center', 'en-CA', 'centre'],
     ['color', 'en-AU', 'colour'],
+    ['gray', 'en-US', 'gray'],
+    ['gray', 'en-GB', 'grey'],
   ] as const)('should spell %s in %s as %s', (word, locale, text) => {
     expect(spell(word, locale)).toBe(text);
   });

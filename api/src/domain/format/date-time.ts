@@ -60,12 +60,13 @@ export function formatDateTime(iso: string | Date | null | undefined, style: Dat
 
 /**
  * Words whose spelling differs between English locales. en-US (the default) writes "center", "color",
- * "meter"; the Commonwealth locales write "centre", "colour", "metre". Other languages get en-US.
+ * "gray", "meter"; the Commonwealth locales write "centre", "colour", "grey", "metre". Other languages get en-US.
  */
 const COMMONWEALTH = /^en-(GB|AU|NZ|IE|ZA|IN|CA)\b/i;
 const WORDS = {
   center: ['center', 'centre'],
   color: ['color', 'colour'],
+  gray: ['gray', 'grey'],
   meter: ['meter', 'metre'],
   meters: ['meters', 'metres'],
 } as const;

@@ -19,6 +19,7 @@ import { PageHeader } from '../../../components/page-header';
 import { paths } from '../../../config/paths';
 import { useNotify } from '../../../components/notify';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
+import { useDateStyle } from '../../../lib/use-date-style';
 import { drawingUrls, useDownloadDrawing } from '../api/download-drawing';
 import { usePlanImage } from '../api/get-plan-image';
 import { createBrowserSvgCanvas } from '../utils/browser-svg-canvas';
@@ -73,7 +74,12 @@ export function JobDrawings({ data }: JobDrawingsProps) {
   const download = useDownloadDrawing();
   const notify = useNotify();
 
-  const input = useMemo<JobDrawingInput>(() => ({ asBuilt, analysis, createCanvas: createBrowserSvgCanvas, units }), [asBuilt, analysis, units]);
+  // The legend is spelled as the company's packet spells it (en-US "color", en-GB "colour").
+  const locale = useDateStyle().locale;
+  const input = useMemo<JobDrawingInput>(
+    () => ({ asBuilt, analysis, createCanvas: createBrowserSvgCanvas, units, locale: locale ?? null }),
+    [asBuilt, analysis, units, locale],
+  );
   const titleBlock = useMemo(
     () => jobTitleBlock({ jobTitle: job.title, siteLabel: job.site.label, place: job.site.city, revision: job.revision }),
     [job.title, job.site.label, job.site.city, job.revision],

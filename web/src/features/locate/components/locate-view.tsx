@@ -351,6 +351,7 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
             <SiteMapPlan
               map={view.map}
               units={view.units}
+              locale={view.locale}
               selectedRunId={selectedRunId}
               onSelectRun={selectFromMap}
               shallowRunIds={shallowRunIds}

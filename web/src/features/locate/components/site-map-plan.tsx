@@ -92,6 +92,8 @@ type SiteMapPlanProps = {
   showTies?: boolean;
   /** The viewer's phone position on the plan, drawn as a dot in its accuracy circle. */
   myPosition?: PlanPosition;
+  /** The installer's locale for the legend's spelling (a public page); else the signed-in company's. */
+  locale?: string;
 };
 
 /** The min depth as the label of a run on the map. */
@@ -173,7 +175,7 @@ function reservedBoxes(size: { width: number; height: number }): Box[] {
  * scale bar in the viewer's units follows the zoom; a north arrow; labels of at least 12 px placed
  * where they fit, the least important left out when there is no room.
  */
-export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRunIds, showTies = false, myPosition }: SiteMapPlanProps) {
+export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRunIds, showTies = false, myPosition, locale }: SiteMapPlanProps) {
   const styles = useStyles();
   const titleId = useId();
   const svgRef = useRef<SVGSVGElement>(null);
@@ -526,7 +528,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
         </div>
       </div>
       <figcaption className={styles.legend}>
-        <MarkingLegend keys={legendKeys} />
+        <MarkingLegend keys={legendKeys} {...(locale ? { locale } : {})} />
         {myPosition && <span>Black dot in a dashed circle: where your phone puts you, and how far off that may be.</span>}
         <span>Each run is labelled with its shallowest recorded depth. Pinch or scroll to zoom, drag to move; labels that do not fit are shown when you zoom in.</span>
         {runs.length < map.runs.length && (
