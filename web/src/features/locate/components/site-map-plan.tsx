@@ -361,11 +361,12 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
           }}
         >
           <title id={titleId}>Site plan of buried cables with their minimum depths</title>
-          <g data-layer="features" aria-label="Landmarks">
+          {/* Named parts carry a group or graphics-symbol role: ARIA allows aria-label only on an element with a role (axe: aria-prohibited-attr). */}
+          <g data-layer="features" role="group" aria-label="Landmarks">
             {map.siteFeatures.map((f) => {
               const heavy = f.kind === 'fence' || f.kind === 'wall' || f.kind === 'house';
               return (
-                <g key={f.id} data-feature-id={f.id} aria-label={f.name}>
+                <g key={f.id} data-feature-id={f.id} role="graphics-symbol" aria-label={f.name}>
                   {f.shape === 'polygon' ? (
                     <polygon points={path(f.points)} fill={FEATURE_FILL} stroke={FEATURE_STROKE} strokeWidth={heavy ? 1.6 : 1} />
                   ) : (
@@ -375,7 +376,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
               );
             })}
           </g>
-          <g data-layer="ties" aria-label="Ties">
+          <g data-layer="ties" role="group" aria-label="Ties">
             {ties.map((tie) => (
               <line
                 key={tie.id}
@@ -387,6 +388,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
                 stroke={REFERENCE_INK}
                 strokeWidth={1}
                 strokeDasharray="4 3"
+                role="graphics-symbol"
                 aria-label={`${tie.refLabel} to ${tie.itemLabel}: ${formatLength(tie.distanceM, units, 'long')}`}
               />
             ))}
@@ -403,6 +405,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
                 data-run-id={run.id}
                 data-selected={selected ? 'true' : undefined}
                 data-shallow={shallow ? 'true' : undefined}
+                role="group"
                 aria-label={`${run.label}: ${depthLabel(run.minDepthM, units)}${run.isAbandoned ? ', abandoned' : ''}${shallow ? ', shallower than the depth rule' : ''}`}
                 onClick={onSelectRun ? () => tapRun(run.id) : undefined}
                 style={onSelectRun ? { cursor: 'pointer' } : undefined}
@@ -425,7 +428,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
             );
           })}
           {map.referencePoints.map((p) => (
-            <g key={`ref-${p.id}`} aria-label={`Reference point ${p.label}`}>
+            <g key={`ref-${p.id}`} role="graphics-symbol" aria-label={`Reference point ${p.label}`}>
               {/* A survey-style ring with a cross, in black (never a marking colour). */}
               <circle cx={sx(p.x)} cy={sy(p.y)} r={5} fill={PAPER} stroke={REFERENCE_INK} strokeWidth={1.5} />
               <path d={`M ${sx(p.x) - 9} ${sy(p.y)} H ${sx(p.x) + 9} M ${sx(p.x)} ${sy(p.y) - 9} V ${sy(p.y) + 9}`} stroke={REFERENCE_INK} strokeWidth={1.5} data-role="reference-stroke" />
@@ -435,7 +438,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
             const p = item.position!;
             const isWall = item.kind === 'wall_entry';
             return (
-              <g key={`item-${item.id}`} aria-label={isWall ? `Wall entry ${item.label}` : item.label}>
+              <g key={`item-${item.id}`} role="graphics-symbol" aria-label={isWall ? `Wall entry ${item.label}` : item.label}>
                 {isWall ? (
                   <g>
                     {/* As printed: a square half filled along its diagonal (a sleeve through a wall). */}
@@ -449,7 +452,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
             );
           })}
           {selectedRun && shallowest && (
-            <g data-role="shallowest" aria-label={`Shallowest point of ${selectedRun.label}: ${formatLength(shallowest.depthM, units, 'short')}`} pointerEvents="none">
+            <g data-role="shallowest" role="graphics-symbol" aria-label={`Shallowest point of ${selectedRun.label}: ${formatLength(shallowest.depthM, units, 'short')}`} pointerEvents="none">
               <circle cx={sx(shallowest.point.x)} cy={sy(shallowest.point.y)} r={11} fill="none" stroke={REFERENCE_INK} strokeWidth={2.5} />
               <path
                 d={`M ${sx(shallowest.point.x) - 16} ${sy(shallowest.point.y)} H ${sx(shallowest.point.x) - 6} M ${sx(shallowest.point.x) + 6} ${sy(shallowest.point.y)} H ${sx(shallowest.point.x) + 16}`}
@@ -459,7 +462,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
             </g>
           )}
           {myPosition && (
-            <g data-role="my-position" aria-label={`Your position, good to about ${formatLength(myPosition.accuracyM, units, 'long')}`} pointerEvents="none">
+            <g data-role="my-position" role="graphics-symbol" aria-label={`Your position, good to about ${formatLength(myPosition.accuracyM, units, 'long')}`} pointerEvents="none">
               {/* Black and grey only: every colour of the marking code means a utility. */}
               <circle cx={sx(myPosition.x)} cy={sy(myPosition.y)} r={Math.max(myPosition.accuracyM * transform.k, 8)} fill={ACCURACY_SHADE} stroke={INK} strokeWidth={1} strokeDasharray="3 3" data-role="accuracy" />
               <circle cx={sx(myPosition.x)} cy={sy(myPosition.y)} r={7} fill={INK} stroke={PAPER} strokeWidth={3} data-role="dot" />
@@ -497,7 +500,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
               {bar.label}
             </text>
           </g>
-          <g data-layer="north-arrow" transform={`translate(${northCentre.x}, ${northCentre.y})`} pointerEvents="none" aria-label="North arrow">
+          <g data-layer="north-arrow" transform={`translate(${northCentre.x}, ${northCentre.y})`} pointerEvents="none" role="graphics-symbol" aria-label="North arrow">
             <circle r={26} fill={OVERLAY_PAPER_MAP} stroke={COMPASS_RING} strokeWidth={1} />
             {/* Plan +y points at bearing `northAzimuthDeg`: true north is that many degrees anticlockwise of up. */}
             <g transform={`rotate(${-map.frame.northAzimuthDeg})`} data-testid="north-arrow">

@@ -370,7 +370,7 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
             const n = Math.max(f.points.length, 1);
             const centre = { x: f.points.reduce((a, p) => a + p.x, 0) / n, y: f.points.reduce((a, p) => a + p.y, 0) / n };
             return (
-              <g key={f.id} data-feature-id={f.id} aria-label={f.name}>
+              <g key={f.id} data-feature-id={f.id} role="graphics-symbol" aria-label={f.name}>
                 {f.shape === 'polygon' ? (
                   <polygon points={pts} fill={FEATURE_FILL} fillOpacity={0.7} stroke={FEATURE_STROKE} strokeWidth={width} />
                 ) : (
@@ -418,7 +418,7 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
         )}
         <g data-layer="reference-points">
           {model.references.map((ref) => (
-            <g key={ref.id} data-hit="reference" data-id={ref.id} aria-label={`Reference point ${ref.label}`}>
+            <g key={ref.id} data-hit="reference" data-id={ref.id} role="graphics-symbol" aria-label={`Reference point ${ref.label}`}>
               <circle cx={sx(ref.x)} cy={sy(ref.y)} r={HIT_RADIUS_PX} fill="transparent" />
               <ReferenceSymbol x={sx(ref.x)} y={sy(ref.y)} isSelected={ref.isSelected} />
               {model.showLabels && (
@@ -539,7 +539,7 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
             {bar.label}
           </text>
         </g>
-        <g data-layer="north-arrow" transform={`translate(${northCentre.x}, ${northCentre.y})`} {...northHandlers} aria-label={onNorthTurn ? 'Turn the north arrow' : undefined}>
+        <g data-layer="north-arrow" transform={`translate(${northCentre.x}, ${northCentre.y})`} {...northHandlers} role={onNorthTurn ? 'graphics-symbol' : undefined} aria-label={onNorthTurn ? 'Turn the north arrow' : undefined}>
           <circle r={26} fill={OVERLAY_PAPER} stroke={onNorthTurn ? SELECTION : COMPASS_RING} strokeWidth={onNorthTurn ? 3 : 1} />
           {model.northAzimuthDeg === null ? (
             <text textAnchor="middle" y={4} fontSize={10} fill={MUTED_INK}>
