@@ -24,6 +24,7 @@ export function buildSite(
     referencePoints: [],
     homeowners: [],
     jobs: [],
+    version: 1,
     createdAt: '2026-04-01T09:00:00.000Z',
     updatedAt: '2026-04-01T09:00:00.000Z',
     planImage: null,

@@ -2,6 +2,7 @@
 // Sites: queries, site writes and the conflict hook.
 export { getSiteQueryOptions, type SiteResponse } from './api/get-site';
 export { useSites } from './api/get-sites';
+export { siteKeys } from './api/site-keys';
 export { useSaveReferencePoint } from './api/save-reference-point';
 export { ReferencePointForm } from './components/reference-points';
 export { useWriteSiteFeature } from './api/save-site-feature';

@@ -1,16 +1,17 @@
 import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
-import type { CustomerResponse } from '@domain/customers/customer.schema';
+import { type CustomerResponse, CustomerResponseSchema } from '@domain/customers/customer.schema';
 
 import { apiRequest } from '../../../lib/api-client';
-import { responseOf } from '../../../lib/response';
+
+import { customerKeys } from './customer-keys';
 
 export function getCustomer(customerId: string, { signal }: { signal?: AbortSignal } = {}): Promise<CustomerResponse> {
-  return apiRequest(`/api/customers/${encodeURIComponent(customerId)}`, responseOf<CustomerResponse>(), { signal });
+  return apiRequest(`/api/customers/${encodeURIComponent(customerId)}`, CustomerResponseSchema, { signal });
 }
 
 export function getCustomerQueryOptions(customerId: string) {
   return queryOptions({
-    queryKey: ['customers', 'detail', customerId],
+    queryKey: customerKeys.detail(customerId),
     queryFn: ({ signal }) => getCustomer(customerId, { signal }),
   });
 }

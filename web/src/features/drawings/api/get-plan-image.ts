@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { SiteResponse } from '@domain/sites/site.schema';
+import { SiteResponseSchema } from '@domain/sites/site.schema';
 import type { SitePlanImageSource } from '@drawings/job-drawings';
 
 import { apiBlob, apiRequest } from '../../../lib/api-client';
@@ -18,7 +18,7 @@ async function toDataUrl(blob: Blob, contentType: string): Promise<string> {
  * as the shared drawing code requires (a drawing never fetches anything itself).
  */
 export async function getPlanImage(siteId: string, { signal }: { signal?: AbortSignal } = {}): Promise<SitePlanImageSource | null> {
-  const site = (await apiRequest(`/api/sites/${encodeURIComponent(siteId)}`, undefined, { signal })) as SiteResponse;
+  const site = await apiRequest(`/api/sites/${encodeURIComponent(siteId)}`, SiteResponseSchema, { signal });
   if (!site.planImage || !site.planCalibration) return null;
   const blob = await apiBlob(site.planImage.url, { signal, headers: { Accept: 'image/*' } });
   return {

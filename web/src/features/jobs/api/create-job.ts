@@ -1,22 +1,24 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateJobInput, JobResponse } from '@domain/jobs/job.schema';
+import { type CreateJobInput, type JobResponse, JobResponseSchema } from '@domain/jobs/job.schema';
 
 import { apiRequest } from '../../../lib/api-client';
 
-import { responseOf } from '../../../lib/response';
+import { jobKeys } from '../../job-record';
+import { siteKeys } from '../../sites';
 
 export function createJob(input: CreateJobInput): Promise<JobResponse> {
-  return apiRequest('/api/jobs', responseOf<JobResponse>(), { method: 'POST', body: input });
+  return apiRequest('/api/jobs', JobResponseSchema, { method: 'POST', body: input });
 }
 
 export function useCreateJob() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: createJob,
-    onSuccess: () =>
+    onSuccess: (_job, { siteId }) =>
       Promise.all([
-        queryClient.invalidateQueries({ queryKey: ['jobs', 'list'] }),
-        queryClient.invalidateQueries({ queryKey: ['sites', 'detail'] }),
+        queryClient.invalidateQueries({ queryKey: jobKeys.lists() }),
+        // The site lists its jobs.
+        queryClient.invalidateQueries({ queryKey: siteKeys.detail(siteId) }),
       ]),
   });
 }

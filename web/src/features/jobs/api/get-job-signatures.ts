@@ -1,20 +1,21 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { JobSignatureResponse } from '@domain/packet/signature.schema';
+import { type JobSignatureResponse, JobSignatureResponseSchema } from '@domain/packet/signature.schema';
+import { z } from 'zod';
 
 import { apiRequest } from '../../../lib/api-client';
 
-import { responseOf } from '../../../lib/response';
+import { jobKeys } from '../../job-record';
 
 export type { JobSignatureResponse };
 
 /** The walkthrough signatures captured for the job's next revision (crew lead, homeowner). */
 export function getJobSignatures(jobId: string, { signal }: { signal?: AbortSignal } = {}): Promise<JobSignatureResponse[]> {
-  return apiRequest(`/api/jobs/${encodeURIComponent(jobId)}/signatures`, responseOf<JobSignatureResponse[]>(), { signal });
+  return apiRequest(`/api/jobs/${encodeURIComponent(jobId)}/signatures`, z.array(JobSignatureResponseSchema), { signal });
 }
 
 export function getJobSignaturesQueryOptions(jobId: string) {
   return queryOptions({
-    queryKey: ['jobs', 'detail', jobId, 'signatures'],
+    queryKey: jobKeys.signatures(jobId),
     queryFn: ({ signal }) => getJobSignatures(jobId, { signal }),
   });
 }

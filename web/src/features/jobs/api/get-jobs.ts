@@ -1,10 +1,10 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import type { JobListResponse, JobSummaryResponse } from '@domain/jobs/job.schema';
+import { type JobListResponse, JobListResponseSchema, type JobSummaryResponse } from '@domain/jobs/job.schema';
 import type { JobStatus } from '@domain/jobs/job-rules';
 
 import { apiRequest } from '../../../lib/api-client';
 
-import { responseOf } from '../../../lib/response';
+import { jobKeys } from '../../job-record';
 
 export type { JobListResponse, JobSummaryResponse };
 
@@ -33,12 +33,12 @@ export function jobListSearch(params: JobListParams): string {
 }
 
 export function getJobs(params: JobListParams, { signal }: { signal?: AbortSignal } = {}): Promise<JobListResponse> {
-  return apiRequest(`/api/jobs?${jobListSearch(params)}`, responseOf<JobListResponse>(), { signal });
+  return apiRequest(`/api/jobs?${jobListSearch(params)}`, JobListResponseSchema, { signal });
 }
 
 export function getJobsQueryOptions(params: JobListParams) {
   return queryOptions({
-    queryKey: ['jobs', 'list', params],
+    queryKey: jobKeys.list(params),
     queryFn: ({ signal }) => getJobs(params, { signal }),
   });
 }

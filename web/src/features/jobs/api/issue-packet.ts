@@ -1,9 +1,9 @@
-import type { IssuePacketResponse, IssueWarning } from '@domain/packet/packet-revision.schema';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { type IssuePacketResponse, IssuePacketResponseSchema, type IssueWarning } from '@domain/packet/packet-revision.schema';
 
 import { apiRequest } from '../../../lib/api-client';
 
-import { responseOf } from '../../../lib/response';
+import { jobKeys } from '../../job-record';
 
 /** The issued revision, the job's new version and warnings about the packet (the API's contract). */
 export type { IssuePacketResponse, IssueWarning };
@@ -16,7 +16,7 @@ export type FindingAcknowledgement = { code: string; path: string; reason: strin
  * open must-fix finding needs an acknowledgement with a reason (the API answers 400 naming the one missing).
  */
 export function issuePacket(jobId: string, version: number, acknowledgements: FindingAcknowledgement[] = []): Promise<IssuePacketResponse> {
-  return apiRequest(`/api/jobs/${encodeURIComponent(jobId)}/packets`, responseOf<IssuePacketResponse>(), {
+  return apiRequest(`/api/jobs/${encodeURIComponent(jobId)}/packets`, IssuePacketResponseSchema, {
     method: 'POST',
     headers: { 'If-Match': `"${version}"` },
     body: { acknowledgements },
@@ -29,6 +29,6 @@ export function useIssuePacket(jobId: string) {
     mutationFn: ({ version, acknowledgements }: { version: number; acknowledgements?: FindingAcknowledgement[] }) =>
       issuePacket(jobId, version, acknowledgements),
     // The job is now issued (new version) and its signatures moved to the revision.
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['jobs'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: jobKeys.all }),
   });
 }

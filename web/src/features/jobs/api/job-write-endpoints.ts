@@ -1,6 +1,17 @@
-import type { DepthReadingInput, UpdateDepthReadingInput, ZoneInput } from '@domain/jobs/job-record.schema';
-import type { ChangeJobStatusInput, UpdateJobInput } from '@domain/jobs/job.schema';
-import type { SignatureInput, SignatureRole } from '@domain/packet/signature.schema';
+import {
+  ChannelSetupWriteResponseSchema,
+  CheckWriteResponseSchema,
+  type DepthReadingInput,
+  DepthReadingWriteResponseSchema,
+  ItemWriteResponseSchema,
+  RunWriteResponseSchema,
+  type UpdateDepthReadingInput,
+  type ZoneInput,
+  ZoneWriteResponseSchema,
+} from '@domain/jobs/job-record.schema';
+import { type ChangeJobStatusInput, JobResponseSchema, JobVersionResponseSchema, type UpdateJobInput } from '@domain/jobs/job.schema';
+import { type SignatureInput, type SignatureRole, SignatureWriteResponseSchema } from '@domain/packet/signature.schema';
+import type { z } from 'zod';
 
 /*
  * Every change the web makes to a job or its records, by endpoint name with its URL parameters and its
@@ -87,6 +98,34 @@ export const JOB_WRITE_ROUTES: { [E in JobWriteEndpoint]: (params: JobWriteEndpo
   deleteCheck: ({ checkId }) => ({ method: 'DELETE', path: `/checks/${id(checkId)}` }),
   saveSignature: ({ role }) => ({ method: 'PUT', path: `/signatures/${id(role)}` }),
   clearSignature: ({ role }) => ({ method: 'DELETE', path: `/signatures/${id(role)}` }),
+};
+
+/** The answer of a write: records answer `jobVersion`, job-level writes the whole job with `version`. */
+export type JobWriteResponse = { jobVersion?: number; version?: number } & Record<string, unknown>;
+
+/** The answer each endpoint declares (its route's `@ApiContract`), which its answers are parsed with. */
+export const JOB_WRITE_RESPONSES: { [E in JobWriteEndpoint]: z.ZodType<JobWriteResponse> } = {
+  updateJob: JobResponseSchema,
+  changeStatus: JobResponseSchema,
+  createZone: ZoneWriteResponseSchema,
+  updateZone: ZoneWriteResponseSchema,
+  deleteZone: JobVersionResponseSchema,
+  createItem: ItemWriteResponseSchema,
+  replaceItem: ItemWriteResponseSchema,
+  deleteItem: JobVersionResponseSchema,
+  updateChannelSetup: ChannelSetupWriteResponseSchema,
+  createRun: RunWriteResponseSchema,
+  replaceRun: RunWriteResponseSchema,
+  deleteRun: JobVersionResponseSchema,
+  undoSiteChange: JobVersionResponseSchema,
+  addDepthReading: DepthReadingWriteResponseSchema,
+  updateDepthReading: DepthReadingWriteResponseSchema,
+  deleteDepthReading: JobVersionResponseSchema,
+  createCheck: CheckWriteResponseSchema,
+  replaceCheck: CheckWriteResponseSchema,
+  deleteCheck: JobVersionResponseSchema,
+  saveSignature: SignatureWriteResponseSchema,
+  clearSignature: JobVersionResponseSchema,
 };
 
 /** The route of `call`. */

@@ -1,8 +1,8 @@
 import { apiRequest } from '../../../lib/api-client';
 
-import { responseOf } from '../../../lib/response';
+import { JOB_WRITE_RESPONSES, routeOf, type JobWriteCall, type JobWriteResponse } from './job-write-endpoints';
 
-import { routeOf, type JobWriteCall } from './job-write-endpoints';
+export type { JobWriteResponse };
 
 /**
  * One change to a job or its records, in a form that can wait in IndexedDB while there is no
@@ -26,17 +26,14 @@ export type JobWrite = JobWriteCall & {
   localId?: string;
 };
 
-/** The answer of a write: records answer `jobVersion`, job-level writes the whole job with `version`. */
-export type JobWriteResponse = { jobVersion?: number; version?: number } & Record<string, unknown>;
-
 /** Sends `write` as a change to `version` of the job (`If-Match`). */
 export function sendJobWrite(jobId: string, version: number, write: JobWrite): Promise<JobWriteResponse> {
   const route = routeOf(write);
-  return apiRequest(`/api/jobs/${encodeURIComponent(jobId)}${route.path}`, responseOf<JobWriteResponse>(), {
+  return apiRequest(`/api/jobs/${encodeURIComponent(jobId)}${route.path}`, JOB_WRITE_RESPONSES[write.endpoint], {
     method: route.method,
     body: write.body,
     headers: { 'If-Match': `"${version}"`, ...(write.idempotencyKey ? { 'Idempotency-Key': write.idempotencyKey } : {}) },
-  }).then((response) => response ?? {});
+  });
 }
 
 /** The job version a write answered with. */

@@ -30,7 +30,7 @@ describe('Deleting records in the job workspace', () => {
       [`POST /api/jobs/${JOB_IDS.job}/runs`]: (request) => {
         requests.push(request);
         current = buildJobAsBuilt(buildAsBuilt([{ stationM: 1, depthM: 0.5 }]), { version: 5 });
-        return jsonResponse({ run: request.body, jobVersion: 5 });
+        return jsonResponse({ run: current.asBuilt.runs[0], jobVersion: 5 });
       },
     });
     const { user } = renderApp({ url: JOB_URL, signedInAs: buildSessionUser('lead') });

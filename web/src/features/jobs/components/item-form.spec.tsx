@@ -5,6 +5,7 @@ import { buildSessionUser } from '../../../testing/data';
 import { buildAsBuilt, buildJobAsBuilt, JOB_IDS } from '../../../testing/job-data';
 import { mockApi, type MockRequest } from '../../../testing/mock-api';
 import { jsonResponse, renderApp } from '../../../testing/render-app';
+import { buildSite } from '../../../testing/site-data';
 
 const JOB_URL = `/jobs/${JOB_IDS.job}`;
 const CORNERS = [
@@ -104,10 +105,10 @@ describe('ItemForm ties (issue 17)', () => {
     mockApi({
       [`GET /api/jobs/${JOB_IDS.job}/as-built`]: () =>
         jsonResponse(buildJobAsBuilt({ ...buildAsBuilt(), referencePoints: posts.length > 0 ? [...CORNERS, post] : CORNERS })),
-      [`GET /api/sites/${JOB_IDS.site}`]: () => jsonResponse({ id: JOB_IDS.site, version: 2 }),
+      [`GET /api/sites/${JOB_IDS.site}`]: () => jsonResponse(buildSite({ version: 2 })),
       [`POST /api/sites/${JOB_IDS.site}/reference-points`]: (request) => {
         posts.push(request);
-        return jsonResponse({ ...post, siteVersion: 3 });
+        return jsonResponse({ ...post, notes: null, siteVersion: 3, jobVersions: {} });
       },
     });
     const { user } = renderApp({ url: `${JOB_URL}?section=equipment`, signedInAs: buildSessionUser('lead') });

@@ -26,7 +26,7 @@ import { useNotify } from '../../../components/notify';
 import { isApiError } from '../../../lib/api-client';
 import { clearDraft } from '../../../lib/drafts';
 import { describeRequestError } from '../../../lib/form-errors';
-import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../../job-record';
+import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse, jobKeys } from '../../job-record';
 import { sendJobWrite, versionAfter, type JobWrite, type JobWriteResponse } from '../api/send-job-write';
 import { withLocalId, withOfflineRecord } from '../utils/offline-records';
 import { enqueuePendingWrite, newIdempotencyKey, readPendingWrites, subscribePendingWrites, type PendingWrite } from '../utils/pending-writes';
@@ -88,7 +88,7 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
     [queryClient, queryKey],
   );
 
-  const refresh = useCallback(() => queryClient.invalidateQueries({ queryKey: ['jobs'] }), [queryClient]);
+  const refresh = useCallback(() => queryClient.invalidateQueries({ queryKey: jobKeys.all }), [queryClient]);
 
   const send = useCallback(
     async (write: JobWrite, version: number): Promise<JobWriteResponse> => {

@@ -4,7 +4,7 @@ import { useEffect } from 'react';
 import { useNotify } from '../../../components/notify';
 import { clearDraft } from '../../../lib/drafts';
 import { describeRequestError } from '../../../lib/form-errors';
-import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../../job-record';
+import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse, jobKeys } from '../../job-record';
 import { sendJobWrite, versionAfter } from '../api/send-job-write';
 import { readAllPendingWrites } from '../utils/pending-writes';
 import { replayAllPendingWrites, type ReplayDeps } from '../utils/replay-pending-writes';
@@ -46,7 +46,7 @@ export function useJobWritesRunner(): void {
       const { sent } = await replayAllPendingWrites(deps);
       if (sent > 0) {
         notify.success(sent === 1 ? 'Sent the change made offline' : `Sent ${sent} changes made offline`);
-        await queryClient.invalidateQueries({ queryKey: ['jobs'] });
+        await queryClient.invalidateQueries({ queryKey: jobKeys.all });
       }
     };
     const onOnline = () => void run();

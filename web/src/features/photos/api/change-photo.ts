@@ -1,9 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { PhotoTarget, PhotoWriteResponse } from '@domain/photos/photo.schema';
+import { type PhotoTarget, type PhotoWriteResponse, PhotoWriteResponseSchema } from '@domain/photos/photo.schema';
 
 import { apiRequest, isApiError } from '../../../lib/api-client';
 import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from '../../job-record';
-import { responseOf } from '../../../lib/response';
 
 import { getJobPhotosQueryOptions } from './get-job-photos';
 import { getJobVersion } from './get-job-version';
@@ -19,10 +18,10 @@ function requestOf(change: PhotoChange, version: number): Promise<PhotoWriteResp
   const headers = { 'If-Match': `"${version}"` };
   if (change.kind === 'update') {
     const { caption, target } = change;
-    return apiRequest(`/api/photos/${id}`, responseOf<PhotoWriteResponse>(), { method: 'PATCH', headers, body: { caption, target } });
+    return apiRequest(`/api/photos/${id}`, PhotoWriteResponseSchema, { method: 'PATCH', headers, body: { caption, target } });
   }
-  if (change.kind === 'delete') return apiRequest(`/api/photos/${id}`, responseOf<PhotoWriteResponse>(), { method: 'DELETE', headers });
-  return apiRequest(`/api/photos/${id}/restore`, responseOf<PhotoWriteResponse>(), { method: 'POST', headers });
+  if (change.kind === 'delete') return apiRequest(`/api/photos/${id}`, PhotoWriteResponseSchema, { method: 'DELETE', headers });
+  return apiRequest(`/api/photos/${id}/restore`, PhotoWriteResponseSchema, { method: 'POST', headers });
 }
 
 /**

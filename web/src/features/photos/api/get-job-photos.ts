@@ -1,14 +1,13 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { PhotoListResponse, PhotoResponse } from '@domain/photos/photo.schema';
+import { type PhotoListResponse, PhotoListResponseSchema, type PhotoResponse } from '@domain/photos/photo.schema';
 
 import { apiRequest } from '../../../lib/api-client';
-import { responseOf } from '../../../lib/response';
 
 export type { PhotoResponse };
 
 /** The job's photos that are not deleted, oldest first. */
 export function getJobPhotos(jobId: string, { signal }: { signal?: AbortSignal } = {}): Promise<PhotoListResponse> {
-  return apiRequest(`/api/jobs/${encodeURIComponent(jobId)}/photos`, responseOf<PhotoListResponse>(), { signal });
+  return apiRequest(`/api/jobs/${encodeURIComponent(jobId)}/photos`, PhotoListResponseSchema, { signal });
 }
 
 export function getJobPhotosQueryOptions(jobId: string) {

@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { PlanCalibration, SiteResponse } from '@domain/sites/site.schema';
+import { type PlanCalibration, type SiteResponse, SiteResponseSchema, SiteVersionResponseSchema } from '@domain/sites/site.schema';
 
 import { apiRequest } from '../../../lib/api-client';
-import { responseOf } from '../../../lib/response';
+import { jobKeys } from '../../job-record';
 import { getSiteQueryOptions } from '../../sites';
 import { sendSiteWrite, siteIfMatch, type SiteVersionResponse } from '../../sites';
 
@@ -19,7 +19,7 @@ export function updateSitePlan({
   change: SitePlanChange;
   version: number;
 }): Promise<SiteResponse & SiteVersionResponse> {
-  return apiRequest(`/api/sites/${encodeURIComponent(siteId)}`, responseOf<SiteResponse & SiteVersionResponse>(), {
+  return apiRequest(`/api/sites/${encodeURIComponent(siteId)}`, SiteResponseSchema.extend(SiteVersionResponseSchema.shape), {
     method: 'PATCH',
     body: change,
     headers: siteIfMatch(version),
@@ -36,7 +36,7 @@ export function useUpdateSitePlan() {
       return Promise.all([
         queryClient.invalidateQueries({ queryKey: getSiteQueryOptions(siteId).queryKey }),
         // Each job's as-built carries the site's north for its drawings.
-        queryClient.invalidateQueries({ queryKey: ['jobs', 'detail'] }),
+        queryClient.invalidateQueries({ queryKey: jobKeys.details() }),
       ]);
     },
   });

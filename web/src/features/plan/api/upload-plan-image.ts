@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { PlanImageUploadResponse } from '@domain/sites/site.schema';
+import { type PlanImageUploadResponse, PlanImageUploadResponseSchema, SiteVersionResponseSchema } from '@domain/sites/site.schema';
 
 import { apiRequest } from '../../../lib/api-client';
-import { responseOf } from '../../../lib/response';
+import { jobKeys } from '../../job-record';
 import { getSiteQueryOptions } from '../../sites';
 import { sendSiteWrite, siteIfMatch, type SiteVersionResponse } from '../../sites';
 
@@ -13,7 +13,7 @@ export const PLAN_IMAGE_TYPES = ['image/jpeg', 'image/png', 'image/webp'] as con
 export function uploadPlanImage({ siteId, file, version }: { siteId: string; file: File; version: number }): Promise<PlanImageUploadResponse & SiteVersionResponse> {
   const form = new FormData();
   form.append('file', file);
-  return apiRequest(`/api/sites/${encodeURIComponent(siteId)}/plan-image`, responseOf<PlanImageUploadResponse & SiteVersionResponse>(), {
+  return apiRequest(`/api/sites/${encodeURIComponent(siteId)}/plan-image`, PlanImageUploadResponseSchema.extend(SiteVersionResponseSchema.shape), {
     method: 'PUT',
     body: form,
     headers: siteIfMatch(version),
@@ -29,7 +29,7 @@ export function useUploadPlanImage() {
       queryClient.setQueryData(getSiteQueryOptions(siteId).queryKey, site);
       return Promise.all([
         queryClient.invalidateQueries({ queryKey: getSiteQueryOptions(siteId).queryKey }),
-        queryClient.invalidateQueries({ queryKey: ['jobs', 'detail'] }),
+        queryClient.invalidateQueries({ queryKey: jobKeys.details() }),
       ]);
     },
   });

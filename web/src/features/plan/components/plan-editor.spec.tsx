@@ -15,6 +15,7 @@ const SITE = `GET /api/sites/${JOB_IDS.site}`;
 const IMAGE_URL = `/api/sites/${JOB_IDS.site}/plan-image`;
 const REF_A = '7d1e2f30-1111-4a4a-9b9b-0000000000a1';
 const REF_B = '7d1e2f30-1111-4a4a-9b9b-0000000000a2';
+const NOW = '2026-04-21T15:30:00.000Z';
 
 /** The amplifier at the plan origin and the satellite 10 m east, both placed by hand. */
 function placedAsBuilt(): AsBuilt {
@@ -82,7 +83,7 @@ describe('PlanEditor', () => {
       [SITE]: () => jsonResponse(buildSite()),
       [`PUT /api/jobs/${JOB_IDS.job}/runs/${JOB_IDS.run}`]: (request) => {
         puts.push(request);
-        return jsonResponse({ run: {}, jobVersion: 4 });
+        return jsonResponse({ run: { ...(request.body as object), id: JOB_IDS.run }, jobVersion: 4 });
       },
     });
     const { user } = renderApp({ url: PLAN_URL, signedInAs: buildSessionUser('lead') });
@@ -126,7 +127,7 @@ describe('PlanEditor', () => {
       [SITE]: () => jsonResponse(buildSite()),
       [`POST /api/sites/${JOB_IDS.site}/features`]: (request) => {
         posts.push(request);
-        return jsonResponse({ id: 'f-new', ...(request.body as object), siteVersion: 9, jobVersions: {} }, 201);
+        return jsonResponse({ id: 'f-new', ...(request.body as object), createdAt: NOW, updatedAt: NOW, siteVersion: 9, jobVersions: {} }, 201);
       },
     });
     const { user } = renderApp({ url: PLAN_URL, signedInAs: buildSessionUser('lead') });
@@ -184,7 +185,7 @@ describe('PlanEditor', () => {
       [SITE]: () => jsonResponse(buildSite()),
       [`PUT /api/jobs/${JOB_IDS.job}/runs/${JOB_IDS.run}`]: (request) => {
         puts.push(request);
-        return jsonResponse({ run: {}, jobVersion: 4 });
+        return jsonResponse({ run: { ...(request.body as object), id: JOB_IDS.run }, jobVersion: 4 });
       },
     });
     const { user, container } = renderApp({ url: PLAN_URL, signedInAs: buildSessionUser('lead') });
@@ -225,7 +226,7 @@ describe('PlanEditor', () => {
       [`GET ${IMAGE_URL}`]: () => new Response(new Blob([new Uint8Array([137, 80, 78, 71])], { type: 'image/png' }), { status: 200, headers: { 'Content-Type': 'image/png' } }),
       [`PATCH /api/sites/${JOB_IDS.site}`]: (request) => {
         patches.push(request);
-        return jsonResponse({ ...site, planCalibration: (request.body as { planCalibration: unknown }).planCalibration });
+        return jsonResponse({ ...site, planCalibration: (request.body as { planCalibration: unknown }).planCalibration, siteVersion: 2, jobVersions: {} });
       },
     });
     const { user } = renderApp({ url: PLAN_URL, signedInAs: buildSessionUser('office') });
@@ -271,7 +272,7 @@ describe('PlanEditor', () => {
       [SITE]: () => jsonResponse(buildSite()),
       [`PUT /api/jobs/${JOB_IDS.job}/items/${JOB_IDS.speaker}`]: (request) => {
         puts.push(request);
-        return jsonResponse({ item: {}, jobVersion: 4 });
+        return jsonResponse({ item: { ...(request.body as object), id: JOB_IDS.speaker }, jobVersion: 4 });
       },
     });
     const { user, container } = renderApp({ url: PLAN_URL, signedInAs: buildSessionUser('lead') });
@@ -365,7 +366,7 @@ describe('PlanEditor', () => {
       [SITE]: () => jsonResponse(buildSite()),
       [`PUT /api/jobs/${JOB_IDS.job}/items/${JOB_IDS.speaker}`]: (request) => {
         puts.push(request);
-        return jsonResponse({ item: {}, jobVersion: 4 });
+        return jsonResponse({ item: { ...(request.body as object), id: JOB_IDS.speaker }, jobVersion: 4 });
       },
     });
     const { container } = renderApp({ url: PLAN_URL, signedInAs: buildSessionUser('lead') });

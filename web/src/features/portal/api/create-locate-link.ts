@@ -7,6 +7,8 @@ import {
 
 import { apiRequest } from '../../../lib/api-client';
 
+import { getLocateLinksQueryOptions } from './get-locate-links';
+
 export type { CreatedLocateLinkResponse, CreateLocateLinkInput };
 
 /** Makes a locate link; the answer's `url` carries the token and is never shown again. */
@@ -21,6 +23,6 @@ export function useCreateLocateLink() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: createLocateLink,
-    onSuccess: (_link, { siteId }) => queryClient.invalidateQueries({ queryKey: ['locate-links', siteId] }),
+    onSuccess: (_link, { siteId }) => queryClient.invalidateQueries({ queryKey: getLocateLinksQueryOptions(siteId).queryKey }),
   });
 }

@@ -1,18 +1,19 @@
 import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
-import type { SiteResponse } from '@domain/sites/site.schema';
+import { type SiteResponse, SiteResponseSchema } from '@domain/sites/site.schema';
 
 import { apiRequest } from '../../../lib/api-client';
-import { responseOf } from '../../../lib/response';
+
+import { siteKeys } from './site-keys';
 
 export type { SiteResponse };
 
 export function getSite(siteId: string, { signal }: { signal?: AbortSignal } = {}): Promise<SiteResponse> {
-  return apiRequest(`/api/sites/${encodeURIComponent(siteId)}`, responseOf<SiteResponse>(), { signal });
+  return apiRequest(`/api/sites/${encodeURIComponent(siteId)}`, SiteResponseSchema, { signal });
 }
 
 export function getSiteQueryOptions(siteId: string) {
   return queryOptions({
-    queryKey: ['sites', 'detail', siteId],
+    queryKey: siteKeys.detail(siteId),
     queryFn: ({ signal }) => getSite(siteId, { signal }),
   });
 }

@@ -1,8 +1,13 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateReferencePointInput, ReferencePointResponse } from '@domain/sites/site.schema';
+import {
+  type CreateReferencePointInput,
+  type ReferencePointResponse,
+  ReferencePointResponseSchema,
+  SiteVersionResponseSchema,
+} from '@domain/sites/site.schema';
 
 import { apiRequest } from '../../../lib/api-client';
-import { responseOf } from '../../../lib/response';
+import { jobKeys } from '../../job-record';
 
 import { getSiteQueryOptions } from './get-site';
 import { sendSiteWrite, siteIfMatch, type SiteVersionResponse } from './site-write';
@@ -20,7 +25,7 @@ export function saveReferencePoint({
   version: number;
 }): Promise<ReferencePointResponse & SiteVersionResponse> {
   const base = `/api/sites/${encodeURIComponent(siteId)}/reference-points`;
-  return apiRequest(pointId ? `${base}/${encodeURIComponent(pointId)}` : base, responseOf<ReferencePointResponse & SiteVersionResponse>(), {
+  return apiRequest(pointId ? `${base}/${encodeURIComponent(pointId)}` : base, ReferencePointResponseSchema.extend(SiteVersionResponseSchema.shape), {
     method: pointId ? 'PATCH' : 'POST',
     body: input,
     headers: siteIfMatch(version),
@@ -36,7 +41,7 @@ export function useSaveReferencePoint() {
       Promise.all([
         queryClient.invalidateQueries({ queryKey: getSiteQueryOptions(siteId).queryKey }),
         // Ties on every job of the site pick from these points.
-        queryClient.invalidateQueries({ queryKey: ['jobs', 'detail'] }),
+        queryClient.invalidateQueries({ queryKey: jobKeys.details() }),
       ]),
   });
 }

@@ -1,21 +1,23 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateSiteFeatureInput, SiteFeatureResponse } from '@domain/sites/site-feature.schema';
+import { type CreateSiteFeatureInput, SiteFeatureResponseSchema } from '@domain/sites/site-feature.schema';
+import { SiteVersionResponseSchema } from '@domain/sites/site.schema';
 
 import { apiRequest } from '../../../lib/api-client';
-import { responseOf } from '../../../lib/response';
+import { jobKeys } from '../../job-record';
 
 import { getSiteQueryOptions } from './get-site';
-import { sendSiteWrite, siteIfMatch, type SiteVersionResponse } from './site-write';
+import { sendSiteWrite, siteIfMatch } from './site-write';
+
+/** A new or changed feature answers it with the site's versions; a deleted one only the versions. */
+const FeatureWriteResponseSchema = SiteFeatureResponseSchema.extend(SiteVersionResponseSchema.shape);
 
 /** Adds a landmark to a site (no `featureId`), or changes or deletes one, on top of the site's `version`. */
 function writeSiteFeature(args: { siteId: string; featureId?: string; input?: CreateSiteFeatureInput; isDelete?: boolean; version: number }) {
   const base = `/api/sites/${encodeURIComponent(args.siteId)}/features`;
   const path = args.featureId ? `${base}/${encodeURIComponent(args.featureId)}` : base;
-  return apiRequest(path, responseOf<Partial<SiteFeatureResponse> & SiteVersionResponse>(), {
-    method: args.isDelete ? 'DELETE' : args.featureId ? 'PATCH' : 'POST',
-    ...(args.input ? { body: args.input } : {}),
-    headers: siteIfMatch(args.version),
-  });
+  const headers = siteIfMatch(args.version);
+  if (args.isDelete) return apiRequest(path, SiteVersionResponseSchema, { method: 'DELETE', headers });
+  return apiRequest(path, FeatureWriteResponseSchema, { method: args.featureId ? 'PATCH' : 'POST', ...(args.input ? { body: args.input } : {}), headers });
 }
 
 export function useWriteSiteFeature() {
@@ -27,7 +29,7 @@ export function useWriteSiteFeature() {
       Promise.all([
         queryClient.invalidateQueries({ queryKey: getSiteQueryOptions(siteId).queryKey }),
         // Every job's as-built on the site carries the features.
-        queryClient.invalidateQueries({ queryKey: ['jobs', 'detail'] }),
+        queryClient.invalidateQueries({ queryKey: jobKeys.details() }),
       ]),
   });
 }

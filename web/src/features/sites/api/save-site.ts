@@ -1,10 +1,14 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateSiteInput, SiteResponse, UpdateSiteInput } from '@domain/sites/site.schema';
+import { type CreateSiteInput, type SiteResponse, SiteResponseSchema, SiteVersionResponseSchema, type UpdateSiteInput } from '@domain/sites/site.schema';
 
 import { apiRequest } from '../../../lib/api-client';
-import { responseOf } from '../../../lib/response';
+import { jobKeys } from '../../job-record';
 
+import { siteKeys } from './site-keys';
 import { sendSiteWrite, siteIfMatch, type SiteVersionResponse } from './site-write';
+
+/** A change answers the site with its new versions (PATCH /api/sites/:id); a new site answers the site. */
+const UpdatedSiteResponseSchema = SiteResponseSchema.extend(SiteVersionResponseSchema.shape);
 
 /** Creates a site (no `id`, no `version`) or changes one on top of `version` (If-Match). */
 export function saveSite({
@@ -16,11 +20,8 @@ export function saveSite({
   input: CreateSiteInput | UpdateSiteInput;
   version?: number;
 }): Promise<SiteResponse & Partial<SiteVersionResponse>> {
-  return apiRequest(id ? `/api/sites/${encodeURIComponent(id)}` : '/api/sites', responseOf<SiteResponse & Partial<SiteVersionResponse>>(), {
-    method: id ? 'PATCH' : 'POST',
-    body: input,
-    ...(id ? { headers: siteIfMatch(version ?? 0) } : {}),
-  });
+  if (!id) return apiRequest('/api/sites', SiteResponseSchema, { method: 'POST', body: input });
+  return apiRequest(`/api/sites/${encodeURIComponent(id)}`, UpdatedSiteResponseSchema, { method: 'PATCH', body: input, headers: siteIfMatch(version ?? 0) });
 }
 
 /** Saves a site; a change names the version of the site this browser has (a conflict refetches it). */
@@ -31,9 +32,9 @@ export function useSaveSite() {
       id ? sendSiteWrite(queryClient, id, (version) => saveSite({ id, input, version })) : saveSite({ input }),
     onSuccess: () =>
       Promise.all([
-        queryClient.invalidateQueries({ queryKey: ['sites'] }),
+        queryClient.invalidateQueries({ queryKey: siteKeys.all }),
         // North and origin place every open job's record.
-        queryClient.invalidateQueries({ queryKey: ['jobs', 'detail'] }),
+        queryClient.invalidateQueries({ queryKey: jobKeys.details() }),
       ]),
   });
 }

@@ -1,10 +1,9 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { type InvitationResponse, InvitationResponseSchema } from '@domain/auth/auth.schema';
 import type { InviteHomeownerInput } from '@domain/sites/homeowner-invitation.schema';
-import type { SiteResponse } from '@domain/sites/site.schema';
+import { HomeownerListResponseSchema, type SiteResponse } from '@domain/sites/site.schema';
 
 import { apiRequest } from '../../../lib/api-client';
-import { responseOf } from '../../../lib/response';
 import { getInvitationsQueryOptions } from '../../users';
 
 import { getSiteQueryOptions } from './get-site';
@@ -13,7 +12,7 @@ const base = (siteId: string) => `/api/sites/${encodeURIComponent(siteId)}`;
 
 /** Lets an existing homeowner account see the site in the portal; answers the site's homeowners. */
 export function linkHomeowner({ siteId, userId }: { siteId: string; userId: string }): Promise<SiteResponse['homeowners']> {
-  return apiRequest(`${base(siteId)}/homeowners`, responseOf<SiteResponse['homeowners']>(), { method: 'POST', body: { userId } });
+  return apiRequest(`${base(siteId)}/homeowners`, HomeownerListResponseSchema, { method: 'POST', body: { userId } });
 }
 
 export function unlinkHomeowner({ siteId, userId }: { siteId: string; userId: string }): Promise<void> {
