@@ -33,7 +33,9 @@ import { useNotify } from '../../../components/notify';
 import { isApiError } from '../../../lib/api-client';
 import { describeRequestError, toSentence } from '../../../lib/form-errors';
 import { getUsersQueryOptions } from '../../users';
-import { useInviteHomeowner, useLinkHomeowner, useUnlinkHomeowner } from '../api/site-homeowners';
+import { useInviteHomeowner } from '../api/invite-homeowner';
+import { useLinkHomeowner } from '../api/link-homeowner';
+import { useUnlinkHomeowner } from '../api/unlink-homeowner';
 
 const useStyles = makeStyles({
   root: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
