@@ -66,7 +66,7 @@ describe('route tool: Use my position on a bend (issue 17)', () => {
       [`GET /api/sites/${JOB_IDS.site}`]: () => jsonResponse(buildSite({ origin: ORIGIN })),
       [RUN_PUT]: (request) => {
         puts.push(request);
-        return jsonResponse({ run: {}, jobVersion: 4 });
+        return jsonResponse({ run: { ...(request.body as object), id: JOB_IDS.run }, jobVersion: 4 });
       },
     });
     const getCurrentPosition = mockGeolocation((done) => done({ coords: FIX } as unknown as GeolocationPosition));
@@ -99,7 +99,7 @@ describe('route tool: Use my position on a bend (issue 17)', () => {
       [`GET /api/sites/${JOB_IDS.site}`]: () => jsonResponse(buildSite({ origin: ORIGIN })),
       [RUN_PUT]: (request) => {
         puts.push(request);
-        return jsonResponse({ run: {}, jobVersion: 4 });
+        return jsonResponse({ run: { ...(request.body as object), id: JOB_IDS.run }, jobVersion: 4 });
       },
     });
     mockGeolocation((done) => done({ coords: FIX } as unknown as GeolocationPosition));
