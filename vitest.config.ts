@@ -28,7 +28,8 @@ export default defineConfig({
     projects: [
       {
         oxc: nestTransform,
-        test: { name: 'api', environment: 'node', include: ['api/src/**/*.spec.ts'] },
+        // Files of a worker share its module cache (on 2 cores: 25 s of CPU for the project instead of 66 s).
+        test: { name: 'api', environment: 'node', include: ['api/src/**/*.spec.ts'], isolate: false },
       },
       {
         plugins: [react()],
@@ -56,6 +57,11 @@ export default defineConfig({
           setupFiles: ['test/setup/api-env.ts'],
           // Files run in parallel, each worker on its own copy of the database (test/setup/database.global.ts).
           provide: { perWorkerDatabases: true },
+          // Files of a worker share its module cache instead of importing Nest and the whole API again each:
+          // on 2 cores, 10 files one after the other took 24 s of CPU instead of 53 s. Each file still starts
+          // its own app (test/support/test-app.ts gives it the environment of the moment) and the worker's
+          // environment is reset before each file (test/setup/api-env.ts).
+          isolate: false,
           testTimeout: 30_000,
           // An app bootstrap (beforeAll) takes far longer while the other workers load both cores.
           hookTimeout: 120_000,

@@ -22,6 +22,12 @@ const workerState = (globalThis as { __vitest_worker__?: { providedContext?: Rec
 if (workerState?.providedContext) workerState.providedContext.databaseUrl = databaseUrl;
 if (inject('databaseUrl') !== databaseUrl) throw new Error("test/setup/api-env.ts could not point inject('databaseUrl') at this worker's database");
 
+// Files of a worker share one process and module cache (isolate: false in vitest.config.ts): each file
+// starts from the environment the worker started with, whatever the file before it set.
+const startEnv = ((globalThis as { __loamlineStartEnv?: NodeJS.ProcessEnv }).__loamlineStartEnv ??= { ...process.env });
+for (const key of Object.keys(process.env)) if (!(key in startEnv)) delete process.env[key];
+Object.assign(process.env, startEnv);
+
 // ConfigModule validates the environment when AppModule is imported, so it must be in place first.
 Object.assign(process.env, {
   NODE_ENV: 'test',

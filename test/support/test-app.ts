@@ -1,6 +1,7 @@
 import 'reflect-metadata';
 
 import type { ModuleMetadata } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { Test, type TestingModuleBuilder } from '@nestjs/testing';
 import { AppModule } from '../../api/src/app.module.js';
@@ -18,7 +19,12 @@ export interface TestAppOptions {
  * configured exactly like main.ts.
  */
 export async function createTestApp(options: TestAppOptions = {}): Promise<NestExpressApplication> {
-  let builder = Test.createTestingModule({ imports: [AppModule, ...(options.imports ?? [])] });
+  // ConfigModule.forRoot reads the environment once, when AppModule is first imported; the files of a
+  // worker share that import (isolate: false), so each app gets the environment as it is now (a file may
+  // set its own limits before starting its app).
+  let builder = Test.createTestingModule({ imports: [AppModule, ...(options.imports ?? [])] })
+    .overrideProvider(ConfigService)
+    .useValue(new ConfigService(readEnv(process.env)));
   if (options.override) builder = options.override(builder);
   const moduleRef = await builder.compile();
   const app = moduleRef.createNestApplication<NestExpressApplication>({ logger: ['error'] });

@@ -2,6 +2,9 @@ import { existsSync, mkdirSync, rmSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 
+/** Bundles made by this process, by compiled path. */
+const bundles = new Map<string, Promise<URL>>();
+
 /**
  * The file a worker thread runs. The built API (dist/) has the compiled `.js` beside its caller. When the
  * API runs from its TypeScript sources (Vitest's integration project), Node 20 cannot load a `.ts` file
@@ -12,6 +15,17 @@ import { fileURLToPath, pathToFileURL } from 'node:url';
 export async function workerScriptUrl(compiled: URL): Promise<URL> {
   const compiledPath = fileURLToPath(compiled);
   if (existsSync(compiledPath)) return compiled;
+  // Test files of one worker process share it (Vitest's isolate: false): bundle each entry once.
+  let bundled = bundles.get(compiledPath);
+  if (!bundled) {
+    bundled = bundleFromSource(compiledPath);
+    bundles.set(compiledPath, bundled);
+    bundled.catch(() => bundles.delete(compiledPath));
+  }
+  return bundled;
+}
+
+async function bundleFromSource(compiledPath: string): Promise<URL> {
   const source = compiledPath.replace(/\.js$/, '.ts');
   if (!existsSync(source)) throw new Error(`worker script ${compiledPath} is missing (and no ${source} to build it from)`);
   const srcRoot = source.slice(0, source.lastIndexOf('/src/'));
