@@ -17,10 +17,14 @@ const nestTransform = { decorator: { legacy: true, emitDecoratorMetadata: true }
 // Three groups, one after the other (sequence.groupOrder):
 //   0. unit (api, web), integration and the journey (which mostly waits on its own `npm start`);
 //   1. browser flows (e2e), two files at a time on the one shared server: each waits on Chromium and the
-//      API far more than it computes, and alone after group 0 they left a core idle;
-//   2. system tests (faults such as stopping PostgreSQL, and load), one at a time, nothing beside them.
+//      API far more than it computes, and alone after group 0 they left a core idle. The system tests of faults (a scratch PostgreSQL stopped, a render worker killed) share those two
+//      workers: they mostly wait on their own processes;
+//   2. the system tests that measure latency under load, one at a time, nothing beside them.
 const workers = Number(process.env.LOAMLINE_TEST_WORKERS) || Math.min(Math.max(availableParallelism(), 2), 4);
 const browserWorkers = Math.min(workers, 2);
+// System tests of faults in processes of their own (PostgreSQL stopped on a scratch cluster, a render
+// worker killed): they run beside the browser flows, not alone at the end.
+const FAULT_TESTS = ['test/system/worker-kill.system.spec.ts', 'test/system/database-outage.system.spec.ts'];
 
 export default defineConfig({
   test: {
@@ -77,6 +81,8 @@ export default defineConfig({
           // integration workers on two cores they ran out of them. Two files at a time among themselves.
           sequence: { groupOrder: 1 },
           maxWorkers: browserWorkers,
+          // Files of a worker share its module cache (Playwright and the test support load once a worker).
+          isolate: false,
           testTimeout: 60_000,
           hookTimeout: 120_000,
         },
@@ -96,12 +102,27 @@ export default defineConfig({
       },
       {
         test: {
+          name: 'system-faults',
+          environment: 'node',
+          include: FAULT_TESTS,
+          globalSetup: ['test/setup/database.global.ts', 'test/system/support/build.global.ts'],
+          // Beside the browser flows (group 1, sharing its two workers): they wait on their own processes
+          // (a killed render worker's lease running out, a scratch PostgreSQL cluster stopped and started)
+          // far more than they compute, and their time limits are long.
+          sequence: { groupOrder: 1 },
+          maxWorkers: browserWorkers,
+          testTimeout: 120_000,
+          hookTimeout: 120_000,
+        },
+      },
+      {
+        test: {
           name: 'system',
           environment: 'node',
           include: ['test/system/**/*.system.spec.ts'],
+          exclude: FAULT_TESTS,
           globalSetup: ['test/setup/database.global.ts', 'test/system/support/build.global.ts'],
-          // Last and alone (one file at a time, nothing beside them): they stop PostgreSQL, kill workers and
-          // measure load.
+          // Last and alone (one file at a time, nothing beside them): they measure latency under load.
           sequence: { groupOrder: 2 },
           fileParallelism: false,
           testTimeout: 120_000,
