@@ -43,7 +43,8 @@ export function PhotoThumb({ photo, onOpen }: { photo: PhotoResponse; onOpen: ()
   return (
     <button type="button" className={styles.button} onClick={onOpen} aria-label={`Open photo: ${name}`}>
       {url ? (
-        <img src={url} alt={photo.caption ?? ''} className={styles.image} />
+        // The button's label names the photo and its caption is printed on it: the picture adds no words.
+        <img src={url} alt="" className={styles.image} />
       ) : (
         <span className={styles.placeholder}>{isError ? <ImageOff24Regular aria-hidden /> : <Spinner size="tiny" />}</span>
       )}
