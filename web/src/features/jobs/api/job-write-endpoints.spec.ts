@@ -1,6 +1,16 @@
 import { describe, expect, it } from 'vitest';
 
-import { callFromLegacyPath, isAdditiveEndpoint, JOB_WRITE_ROUTES, routeOf, type JobWriteCall, type JobWriteEndpoint } from './job-write-endpoints';
+import { buildJob } from '../../../testing/job-data';
+
+import {
+  callFromLegacyPath,
+  isAdditiveEndpoint,
+  JOB_WRITE_RESPONSES,
+  JOB_WRITE_ROUTES,
+  routeOf,
+  type JobWriteCall,
+  type JobWriteEndpoint,
+} from './job-write-endpoints';
 
 /** One call of every endpoint, with ids that need no escaping and one that does. */
 const CALLS: Record<JobWriteEndpoint, JobWriteCall> = {
@@ -52,5 +62,18 @@ describe('job write endpoints (issues 17 and 20)', () => {
   it('should treat only writes that add a record as safe to send on a newer version', () => {
     const additive = (Object.keys(CALLS) as JobWriteEndpoint[]).filter(isAdditiveEndpoint).sort();
     expect(additive).toEqual(['addDepthReading', 'createCheck', 'createItem', 'createRun', 'createZone']);
+  });
+});
+
+describe('JOB_WRITE_RESPONSES', () => {
+  it('should parse each answer with its own route’s schema: a record write needs its record, a job write the whole job', () => {
+    // A delete answers only the job's new version; the same answer is refused where the route answers a record.
+    expect(JOB_WRITE_RESPONSES.deleteRun.safeParse({ jobVersion: 5 }).success).toBe(true);
+    expect(JOB_WRITE_RESPONSES.clearSignature.safeParse({ jobVersion: 5 }).success).toBe(true);
+    expect(JOB_WRITE_RESPONSES.replaceRun.safeParse({ jobVersion: 5 }).success).toBe(false);
+    expect(JOB_WRITE_RESPONSES.createZone.safeParse({ zone: {}, jobVersion: 5 }).success).toBe(false);
+    expect(JOB_WRITE_RESPONSES.updateJob.safeParse({ version: 5 }).success).toBe(false);
+    expect(JOB_WRITE_RESPONSES.updateJob.safeParse({ ...buildJob(), version: 5 }).success).toBe(true);
+    expect(JOB_WRITE_RESPONSES.deleteZone.safeParse({}).success).toBe(false);
   });
 });
