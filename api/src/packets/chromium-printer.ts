@@ -2,7 +2,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 
-import puppeteer, { type Browser, type HTTPRequest } from 'puppeteer-core';
+import puppeteer, { type Browser, type HTTPRequest, type Page } from 'puppeteer-core';
 
 export interface ChromiumPrinterOptions {
   executablePath: string;
@@ -25,6 +25,13 @@ export interface PrintRequest {
   isDraft?: boolean;
   /** Called with every URL the page tried to load and was refused (for logs and tests). */
   onBlockedRequest?: (url: string) => void;
+  /**
+   * Called once the page is laid out and Chromium has been asked for the PDF: from then on Chromium
+   * works alone until the file is ready, so a caller may use its own thread meanwhile (the packet
+   * draws its drawings while the page-numbering draft prints). Earlier, the page's loading still needs
+   * this process (every request of the page is answered from here).
+   */
+  onPrinting?: () => void;
 }
 
 /** Chromium flags proven on Debian 12 (shared VERSIONS.md); the profile folder is added per launch. */
@@ -50,10 +57,26 @@ export function isAllowedRequest(url: string): boolean {
   return url.startsWith('data:') || url === 'about:blank';
 }
 
+/** A blank page with scripts off and every request held for {@link isAllowedRequest}. */
+async function openBlankPage(browser: Browser): Promise<Page> {
+  const page = await browser.newPage();
+  try {
+    await page.setJavaScriptEnabled(false);
+    await page.setRequestInterception(true);
+    return page;
+  } catch (error) {
+    await page.close().catch(() => undefined);
+    throw error;
+  }
+}
+
 /**
  * One headless Chromium for this process, launched on first use and reused; each print gets its own
  * page with JavaScript disabled and every network request refused. Framework-free so the benchmark
  * can drive it directly; `PdfRendererService` owns one in the Nest app.
+ *
+ * Opening a page (a new renderer) takes a few hundred milliseconds, so one blank page is kept open
+ * ahead: each print takes it and opens the next one while it prints. A page is never used twice.
  */
 export class ChromiumPrinter {
   private browser: Promise<Browser> | undefined;
@@ -61,17 +84,16 @@ export class ChromiumPrinter {
   private active = 0;
   private readonly waiting: (() => void)[] = [];
   private isClosed = false;
+  /** The blank page the next print takes (already without JavaScript and with requests intercepted). */
+  private spare: { browser: Browser; page: Promise<Page> } | undefined;
 
   constructor(private readonly options: ChromiumPrinterOptions) {}
 
   async print(request: PrintRequest): Promise<Buffer> {
     await this.acquire();
     try {
-      const browser = await this.getBrowser();
-      const page = await browser.newPage();
+      const page = await this.takePage();
       try {
-        await page.setJavaScriptEnabled(false);
-        await page.setRequestInterception(true);
         page.on('request', (req: HTTPRequest) => {
           if (isAllowedRequest(req.url())) {
             void req.continue();
@@ -84,7 +106,9 @@ export class ChromiumPrinter {
         // Page scripts are off, but DevTools evaluation still works: wait for the inline fonts to decode.
         // (A string expression: the API is compiled without the DOM library.)
         await page.evaluate('document.fonts.ready.then(() => true)');
-        const pdf = await page.pdf({
+        const printing = page.pdf({
+          // The fonts were awaited just above; puppeteer's own wait would cost another round trip.
+          waitForFonts: false,
           printBackground: true,
           preferCSSPageSize: true,
           displayHeaderFooter: !request.isDraft,
@@ -95,7 +119,9 @@ export class ChromiumPrinter {
           footerTemplate: request.footerTemplate,
           timeout: this.options.pdfTimeoutMs,
         });
-        return Buffer.from(pdf);
+        // page.pdf() has sent Page.printToPDF before its first await: Chromium is printing now.
+        request.onPrinting?.();
+        return Buffer.from(await printing);
       } finally {
         await page.close().catch(() => undefined);
       }
@@ -104,8 +130,32 @@ export class ChromiumPrinter {
     }
   }
 
+  /** A fresh page of the current browser: the one kept ahead when it is there, else a new one. */
+  private async takePage(): Promise<Page> {
+    const browser = await this.getBrowser();
+    const spare = this.spare;
+    this.spare = undefined;
+    let page = spare && spare.browser === browser ? await spare.page.catch(() => undefined) : undefined;
+    if (!page || page.isClosed()) page = await openBlankPage(browser);
+    this.openSpare(browser);
+    return page;
+  }
+
+  private openSpare(browser: Browser): void {
+    if (this.isClosed || this.spare) return;
+    const spare = { browser, page: openBlankPage(browser) };
+    // A spare that failed to open is simply not there: the next print opens its own page.
+    spare.page.catch(() => {
+      if (this.spare === spare) this.spare = undefined;
+    });
+    this.spare = spare;
+  }
+
   async close(): Promise<void> {
     this.isClosed = true;
+    const spare = this.spare;
+    this.spare = undefined;
+    await (await spare?.page.catch(() => undefined))?.close().catch(() => undefined);
     const browser = this.browser;
     this.browser = undefined;
     if (browser) await (await browser.catch(() => undefined))?.close().catch(() => undefined);

@@ -224,6 +224,8 @@ export function renderFooterTemplate(vm: PacketViewModel): string {
   );
 }
 
+const noop = (): void => undefined;
+
 /** Stands in for a one-page drawing in the first pass. */
 const PAGE_PLACEHOLDER = '<svg xmlns="http://www.w3.org/2000/svg" width="1in" height="1in"></svg>';
 
@@ -250,7 +252,8 @@ export interface RenderedPacket {
  * The whole packet pipeline: view model → drawings → HTML → PDF. Page numbers for the contents are found
  * by a first print (photos and drawings replaced by empty boxes of the same size, which is cheap) whose named destinations,
  * read with pdf.js, give each section's page; the second print carries them. The contents page has a fixed layout, so
- * filling in the numbers cannot move a section.
+ * filling in the numbers cannot move a section. The drawings are drawn while Chromium prints that draft,
+ * so the draft costs little more than its page load.
  */
 export async function renderPacket(
   printer: ChromiumPrinter,
@@ -283,10 +286,14 @@ export async function renderPacket(
     logoDataUri: input.logoDataUri,
     locale: input.snapshot.settings.locale ?? null,
   });
-  const firstPrint = printer.print({ html: firstHtml, footerTemplate, isDraft: true, onBlockedRequest: input.onBlockedRequest });
+  let isPrinting!: () => void;
+  const draftPrinting = new Promise<void>((resolve) => (isPrinting = resolve));
+  const firstPrint = printer.print({ html: firstHtml, footerTemplate, isDraft: true, onBlockedRequest: input.onBlockedRequest, onPrinting: isPrinting });
   // A rejected draft is awaited below; until then keep it from counting as unhandled.
   firstPrint.catch(() => undefined);
-  await new Promise((resolve) => setImmediate(resolve));
+  // The draft page loads through this process (each of its requests is answered here), so drawing now
+  // would hold it up: the drawings are drawn once Chromium prints the draft on its own (or it failed).
+  await Promise.race([draftPrinting, firstPrint.then(noop, noop)]);
   const drawings = { ...(await drawPacketDrawings(input.snapshot, draft, input.planImage, { withProfiles: false })), profiles };
   stage('drawings');
   const first = await readPdfLayout(await firstPrint);
