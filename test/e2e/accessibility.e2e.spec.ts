@@ -185,7 +185,7 @@ describe('accessibility scan (axe-core) of the lead’s and the homeowner’s pa
     ]);
     await context.close();
     expect(report, `\n${report.join('\n')}`).toEqual([]);
-  }, 600_000);
+  }, 300_000);
 
   it('should find no serious or critical violation on the homeowner’s pages and the public locate view', async () => {
     const context = await browser.newContext(PHONE);
@@ -201,7 +201,7 @@ describe('accessibility scan (axe-core) of the lead’s and the homeowner’s pa
     report.push(...(await scanRoutes(phone, baseUrl, [{ path: locatePath, ready: (p) => p.locator('[data-testid="locate-map"] [data-label]').first().waitFor() }])));
     await stranger.close();
     expect(report, `\n${report.join('\n')}`).toEqual([]);
-  }, 600_000);
+  }, 180_000);
 
   it('should report a nameless button, faint text and a hidden link, but not Fluent’s focus guards (the scan can fail)', async () => {
     const context = await browser.newContext(PHONE);
