@@ -65,4 +65,19 @@ if (typeof Blob.prototype.arrayBuffer !== 'function') {
       });
     },
   });
+  // Node's fetch takes a Blob with arrayBuffer() for a real one and reads it through stream(): a mocked
+  // Response built on a jsdom Blob (an image answer) needs that as well.
+  Object.defineProperty(Blob.prototype, 'stream', {
+    writable: true,
+    configurable: true,
+    value(this: Blob): ReadableStream<Uint8Array> {
+      const bytes = this.arrayBuffer();
+      return new ReadableStream<Uint8Array>({
+        async start(controller) {
+          controller.enqueue(new Uint8Array(await bytes));
+          controller.close();
+        },
+      });
+    },
+  });
 }
