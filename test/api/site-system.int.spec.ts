@@ -249,6 +249,9 @@ describe('the site system: a later job builds on what is in the ground', () => {
     const draft = await lead.expectOk('post', `/api/jobs/${a.id}/items`, speaker('Gate speaker'), { 'If-Match': `"${a.version}"` });
     a = { ...a, version: draft.jobVersion };
     gateSpeaker = draft.item.id;
+    // And a zone (zones are the job's own rows: dated when added, as items are).
+    const gateZone = await lead.expectOk('post', `/api/jobs/${a.id}/zones`, { name: 'Gate' }, { 'If-Match': `"${a.version}"` });
+    a = { ...a, version: gateZone.jobVersion };
 
     // Meanwhile another job is issued: its frozen system and What changed hold only what is issued or its own.
     const g = await openJob('Hedge lights');
@@ -257,6 +260,8 @@ describe('the site system: a later job builds on what is in the ground', () => {
     const gIssued = await issue(g.job());
     const gSnapshot = await withDb(async (db) => (await db.query(`select snapshot from packet_revisions where id = $1`, [gIssued.id])).rows[0].snapshot);
     expect(gSnapshot.asBuilt.items.map((i: { id: string }) => i.id)).not.toContain(draft.item.id);
+    const gZones = gSnapshot.asBuilt.zones.map((z: { id: string }) => z.id);
+    expect(gZones).not.toContain(gateZone.zone.id);
     expect(gSnapshot.whatChanged.added.map((r: { id: string }) => r.id)).toEqual([hedge]);
     // The previous test left an open job holding an unissued relabel of the first job's live run: it has
     // not happened for this job, so its packet has the run as it was and lists no change to it.

@@ -48,11 +48,6 @@ function likePattern(q: string): string {
 
 const crewLead = alias(users, 'crew_lead');
 
-/** The job has an issued packet revision: its records are in the ground for every later job of the site. */
-function hasRevision(jobIdColumn: AnyPgColumn): SQL {
-  return sql`exists (select 1 from ${packetRevisions} where ${packetRevisions.jobId} = ${jobIdColumn})`;
-}
-
 /** Whether the job has issued a revision at or after `at`: what it did up to then is part of the site's record. */
 function issuedSince(jobIdColumn: AnyPgColumn, at: AnyPgColumn): SQL {
   return sql`exists (select 1 from ${packetRevisions} where ${packetRevisions.jobId} = ${jobIdColumn} and ${packetRevisions.issuedAt} >= ${at})`;
@@ -334,7 +329,7 @@ export class JobsRepository {
       .select({ zone: zones })
       .from(zones)
       .innerJoin(jobs, eq(jobs.id, zones.jobId))
-      .where(and(eq(jobs.siteId, job.siteId), or(eq(zones.jobId, job.id), hasRevision(zones.jobId))))
+      .where(and(eq(jobs.siteId, job.siteId), or(eq(zones.jobId, job.id), issuedSince(zones.jobId, zones.createdAt))))
       .orderBy(asc(zones.seq));
     const pointRows = await tx
       .select()

@@ -103,6 +103,8 @@ export const zones = pgTable(
       .references(() => jobs.id, { onDelete: 'cascade' }),
     seq: bigserial('seq', { mode: 'number' }).notNull(),
     name: text('name').notNull(),
+    /** When the zone was added: one a reopened job added after its last issue is not yet the site's. */
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index('zones_job_id_idx').on(t.jobId, t.seq)],
 );
