@@ -1,9 +1,12 @@
 import { FluentProvider, webLightTheme } from '@fluentui/react-components';
+import { QueryClientProvider } from '@tanstack/react-query';
+import { type ReactNode, useState } from 'react';
 import { fireEvent, render, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { markingMeaning, REFERENCE_INK, RUN_ORANGE } from '@drawings/marking-palette';
 import { describe, expect, it } from 'vitest';
 
+import { createTestQueryClient } from '../../../testing/render-app';
 import { buildSiteMap } from '../testing-fixtures';
 
 import { boxesOverlap, labelBox } from '../utils/map-labels';
@@ -16,6 +19,12 @@ import { runMapLabel, runProvenanceText, SiteMapPlan } from './site-map-plan';
  * red power, yellow gas, green sewer, blue potable water, purple reclaimed water are other utilities'.
  */
 const OTHER_UTILITIES = ['power', 'gas', 'sewer', 'water', 'reclaimed'];
+
+/** The map's legend reads the company's locale from the preferences query, as in the app. */
+function WithQueries({ children }: { children: ReactNode }) {
+  const [client] = useState(createTestQueryClient);
+  return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
+}
 
 function mapWithEveryRunKind() {
   const map = buildSiteMap();
@@ -38,6 +47,7 @@ describe('SiteMapPlan marking colours', () => {
       <FluentProvider theme={webLightTheme}>
         <SiteMapPlan map={mapWithEveryRunKind()} units="imperial" />
       </FluentProvider>,
+      { wrapper: WithQueries },
     );
     await screen.findByText('East fence');
     const runStrokes = Array.from(container.querySelectorAll('[data-run-id] [data-role="run-stroke"]'));
@@ -74,6 +84,7 @@ function renderMap(map = buildSiteMap(), props: Partial<Parameters<typeof SiteMa
     <FluentProvider theme={webLightTheme}>
       <SiteMapPlan map={map} units="imperial" {...props} />
     </FluentProvider>,
+    { wrapper: WithQueries },
   );
 }
 
