@@ -21,7 +21,14 @@ const useStyles = makeStyles({
     backgroundColor: tokens.colorNeutralBackground1,
     boxShadow: tokens.shadow2,
   },
-  link: { color: tokens.colorBrandForegroundLink, fontWeight: tokens.fontWeightSemibold, fontSize: tokens.fontSizeBase400, minHeight: '32px' },
+  link: {
+    color: tokens.colorBrandForegroundLink,
+    fontWeight: tokens.fontWeightSemibold,
+    fontSize: tokens.fontSizeBase400,
+    display: 'inline-flex',
+    alignItems: 'center',
+    minHeight: '44px',
+  },
   muted: { color: tokens.colorNeutralForeground2 },
 });
 

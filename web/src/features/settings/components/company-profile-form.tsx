@@ -23,7 +23,8 @@ const useStyles = makeStyles({
   },
   logo: { maxWidth: '100%', maxHeight: '100%', objectFit: 'contain' },
   button: { minHeight: '48px' },
-  input: { minHeight: '44px' },
+  // The field's box is 48 px so the text box inside it (2 px of border less) is a 44 px target too.
+  input: { minHeight: '48px' },
   muted: { color: tokens.colorNeutralForeground2 },
   hidden: { display: 'none' },
 });

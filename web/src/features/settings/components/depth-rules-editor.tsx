@@ -22,7 +22,8 @@ const useStyles = makeStyles({
     borderBottom: `1px solid ${tokens.colorNeutralStroke2}`,
   },
   name: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXXS },
-  input: { minHeight: '44px', width: '100%' },
+  // The field's box is 48 px so the text box inside it (2 px of border less) is a 44 px target too.
+  input: { minHeight: '48px', width: '100%' },
   muted: { color: tokens.colorNeutralForeground2 },
   error: { color: tokens.colorPaletteRedForeground1 },
   actions: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM },
