@@ -3,6 +3,8 @@ import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 
+import WaitFirstSequencer from './test/setup/wait-first.sequencer';
+
 const domain = fileURLToPath(new URL('./api/src/domain', import.meta.url));
 const drawings = fileURLToPath(new URL('./api/src/drawings', import.meta.url));
 
@@ -29,6 +31,8 @@ const FAULT_TESTS = ['test/system/worker-kill.system.spec.ts', 'test/system/data
 export default defineConfig({
   test: {
     maxWorkers: workers,
+    // Within each group, files that mostly wait start first (or go last) so they overlap with the rest.
+    sequence: { sequencer: WaitFirstSequencer },
     projects: [
       {
         oxc: nestTransform,
