@@ -202,6 +202,17 @@ describe('toChannelSetups: another open job’s unissued amplifier setting (issu
     }
   });
 
+  it('keeps a channel the other job deleted, with its set-up then, for everyone else until it is issued', () => {
+    const deleted = others[0]!;
+    const withDeletion = (viewer: string, issuedAt: Date | null) => {
+      const changed = changedRows(viewer, issuedAt, { ...before, channelSetups: { ...before.channelSetups, [deleted.id]: setup('-3 dB') } });
+      return { ...changed, channels: changed.channels.filter((c) => c.id !== deleted.id) };
+    };
+    expect(toChannelSetups(withDeletion('job-view', null))[deleted.id]).toEqual(setup('-3 dB'));
+    expect(toChannelSetups(withDeletion('job-open', null))).not.toHaveProperty(deleted.id);
+    expect(toChannelSetups(withDeletion('job-view', now))).not.toHaveProperty(deleted.id);
+  });
+
   it('falls back to the channel row for a change recorded before set-ups were kept with it', () => {
     const setups = toChannelSetups(changedRows('job-view', null, { record: amp, abandoned: null }));
     expect(setups[first!.id]).toEqual(setup('-6 dB'));

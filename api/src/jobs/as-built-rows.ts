@@ -362,6 +362,10 @@ export function toChannelSetups(rows: Pick<JobRecordRows, 'channels' | 'system'>
     if (before && !before.has(row.id)) continue;
     out[row.id] = before?.get(row.id) ?? toChannelSetup(row);
   }
+  // A channel the other job deleted is still on the amplifier as this job sees it, set up as it was.
+  for (const itemId of held.keys()) {
+    for (const [channelId, setup] of heldChannels(itemId) ?? []) if (setup && !(channelId in out)) out[channelId] = setup;
+  }
   return out;
 }
 
