@@ -8,6 +8,7 @@ import { ImageWorkQueue } from '../common/image-work.js';
 import type { Env } from '../config/env.schema.js';
 import {
   DERIVATIVE_SIZES,
+  EXIF_READ_OPTIONS,
   IMAGE_CONTENT_TYPES,
   IMAGE_EXTENSIONS,
   parseExifDateTime,
@@ -53,23 +54,6 @@ export function canDecodeHeic(): boolean {
   const heif = sharp.format.heif as { input?: { buffer?: boolean; fileSuffix?: string[] } } | undefined;
   return Boolean(heif?.input?.buffer && heif.input.fileSuffix?.includes('.heic'));
 }
-
-/** EXIF fields we read: the capture time and position. Everything else stays in the original only. */
-const EXIF_OPTIONS = {
-  tiff: true,
-  exif: true,
-  gps: true,
-  ifd1: false,
-  interop: false,
-  xmp: false,
-  icc: false,
-  iptc: false,
-  jfif: false,
-  ihdr: false,
-  reviveValues: false,
-  translateValues: false,
-  pick: ['DateTimeOriginal', 'CreateDate', 'GPSLatitude', 'GPSLatitudeRef', 'GPSLongitude', 'GPSLongitudeRef'],
-};
 
 /**
  * Turns an uploaded file into the photo's derivatives. One file at a time, one libvips thread, no
@@ -186,7 +170,7 @@ export class PhotoProcessor {
 
   private async readExif(bytes: Buffer, label: string): Promise<Pick<ProcessedPhoto, 'exifTakenAt' | 'location'>> {
     try {
-      const exif = (await exifr.parse(bytes, EXIF_OPTIONS)) as Record<string, unknown> | undefined;
+      const exif = (await exifr.parse(bytes, EXIF_READ_OPTIONS)) as Record<string, unknown> | undefined;
       if (!exif) return { exifTakenAt: undefined, location: undefined };
       return {
         exifTakenAt: parseExifDateTime(exif.DateTimeOriginal) ?? parseExifDateTime(exif.CreateDate),

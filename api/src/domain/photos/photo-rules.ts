@@ -63,6 +63,26 @@ export function sanitizeFileName(name: string | undefined): string | null {
 }
 
 /**
+ * How a photo's EXIF is read (exifr's options), on the server for an upload and in the browser for a
+ * HEIC converted before upload: only the capture time, its offset and the position, as raw values.
+ */
+export const EXIF_READ_OPTIONS = {
+  tiff: true,
+  exif: true,
+  gps: true,
+  ifd1: false,
+  interop: false,
+  xmp: false,
+  icc: false,
+  iptc: false,
+  jfif: false,
+  ihdr: false,
+  reviveValues: false,
+  translateValues: false,
+  pick: ['DateTimeOriginal', 'CreateDate', 'OffsetTimeOriginal', 'GPSLatitude', 'GPSLatitudeRef', 'GPSLongitude', 'GPSLongitudeRef'],
+};
+
+/**
  * EXIF `DateTimeOriginal` (`2024:05:01 10:11:12`) as ISO local time `2024-05-01T10:11:12`, or
  * `undefined` when absent or malformed (cameras write `0000:00:00 00:00:00` when their clock is unset).
  */

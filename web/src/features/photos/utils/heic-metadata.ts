@@ -1,28 +1,8 @@
 import exifr from 'exifr';
-import { sniffImageType, validGpsPosition } from '@domain/photos/photo-rules';
+import { EXIF_READ_OPTIONS, sniffImageType, validGpsPosition } from '@domain/photos/photo-rules';
 
 import { extractHeifExif } from './heif-exif';
 import { cleanMetadata, type CarriedMetadata } from './jpeg-exif';
-
-/**
- * The EXIF fields a converted photo keeps, read the way the server reads a JPEG
- * (api/src/photos/photo-processor.ts, `EXIF_OPTIONS`): raw values, no translation, the offset added.
- */
-const EXIF_OPTIONS = {
-  tiff: true,
-  exif: true,
-  gps: true,
-  ifd1: false,
-  interop: false,
-  xmp: false,
-  icc: false,
-  iptc: false,
-  jfif: false,
-  ihdr: false,
-  reviveValues: false,
-  translateValues: false,
-  pick: ['DateTimeOriginal', 'CreateDate', 'OffsetTimeOriginal', 'GPSLatitude', 'GPSLatitudeRef', 'GPSLongitude', 'GPSLongitudeRef'],
-};
 
 const text = (value: unknown): string | undefined => (typeof value === 'string' ? value.replace(/\0+$/, '').trim() : undefined);
 
@@ -36,7 +16,7 @@ export async function readCarriedMetadata(bytes: Uint8Array): Promise<CarriedMet
   try {
     const source = sniffImageType(bytes.subarray(0, 256)) === 'heic' ? extractHeifExif(bytes) : bytes;
     if (!source) return {};
-    const exif = (await exifr.parse(source, EXIF_OPTIONS)) as Record<string, unknown> | undefined;
+    const exif = (await exifr.parse(source, EXIF_READ_OPTIONS)) as Record<string, unknown> | undefined;
     if (!exif) return {};
     const original = text(exif.DateTimeOriginal);
     const takenAt = original ?? text(exif.CreateDate);

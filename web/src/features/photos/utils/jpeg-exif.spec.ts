@@ -1,6 +1,6 @@
 import exifr from 'exifr';
 import { describe, expect, it } from 'vitest';
-import { parseExifDateTime, validGpsPosition } from '@domain/photos/photo-rules';
+import { EXIF_READ_OPTIONS, parseExifDateTime, validGpsPosition } from '@domain/photos/photo-rules';
 
 import { buildExifTiff, toDegreesMinutesSeconds, withExif } from './jpeg-exif';
 
@@ -16,23 +16,9 @@ function canvasLikeJpeg(extraSegments: number[][] = []): Uint8Array {
   return new Uint8Array([0xff, 0xd8, ...app0, ...extraSegments.flat(), ...dqt, ...sos, 0xff, 0xd9]);
 }
 
-/** The server's reading of a JPEG's EXIF (api/src/photos/photo-processor.ts, EXIF_OPTIONS and readExif). */
+/** The server's reading of a JPEG's EXIF (the shared EXIF_READ_OPTIONS, then as api/src/photos/photo-processor.ts does). */
 async function readAsServer(jpeg: Uint8Array): Promise<{ takenAt: string | undefined; location: { lat: number; lon: number } | undefined }> {
-  const exif = (await exifr.parse(jpeg, {
-    tiff: true,
-    exif: true,
-    gps: true,
-    ifd1: false,
-    interop: false,
-    xmp: false,
-    icc: false,
-    iptc: false,
-    jfif: false,
-    ihdr: false,
-    reviveValues: false,
-    translateValues: false,
-    pick: ['DateTimeOriginal', 'CreateDate', 'GPSLatitude', 'GPSLatitudeRef', 'GPSLongitude', 'GPSLongitudeRef'],
-  })) as Record<string, unknown> | undefined;
+  const exif = (await exifr.parse(jpeg, EXIF_READ_OPTIONS)) as Record<string, unknown> | undefined;
   return {
     takenAt: parseExifDateTime(exif?.DateTimeOriginal) ?? parseExifDateTime(exif?.CreateDate),
     location: validGpsPosition(exif?.latitude, exif?.longitude),
