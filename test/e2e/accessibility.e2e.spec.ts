@@ -7,7 +7,7 @@ import { makeFieldPhoto } from '../fixtures/photos/make-photos.js';
 import { launchChromium } from '../support/browser.js';
 import { createCompany, TEST_PASSWORD, type TestCompany } from '../support/fixtures.js';
 import { httpApiAs } from '../support/http-api.js';
-import { type Api, createJob, createSite, moveJob, recordAsBuilt } from '../support/records.js';
+import { type Api, createJob, createSite, issueAndWaitForPacket, moveJob, recordAsBuilt } from '../support/records.js';
 
 // A phone, held upright, with touch (issue 17).
 const PHONE = { viewport: { width: 390, height: 844 }, hasTouch: true, isMobile: true, locale: 'en-US', timezoneId: 'UTC' };
@@ -142,15 +142,7 @@ describe('accessibility scan (axe-core) of the lead’s and the homeowner’s pa
     const packetJob = await createJob(office, packetSiteId, { crewLeadUserId: company.users.lead.id });
     const packetRecorded = await recordAsBuilt(lead, packetJob, DEMO_AS_BUILT);
     const ready = await moveJob(office, await moveJob(lead, { ...packetJob, version: packetRecorded.version }, 'in_progress', 'submitted'), 'ready_to_issue');
-    const issued = await office.send('post', `/api/jobs/${ready.id}/packets`, undefined, { 'If-Match': `"${ready.version}"` });
-    if (issued.status !== 201) throw new Error(`issue → ${issued.status} ${JSON.stringify(issued.body)}`);
-    const deadline = Date.now() + 100_000;
-    for (;;) {
-      const body = await office.expectOk('get', `/api/packets/${issued.body.id}`);
-      if (body.status === 'ready') break;
-      if (body.status === 'failed' || Date.now() > deadline) throw new Error(`packet ${body.status}: ${body.failureReason}`);
-      await new Promise((resolve) => setTimeout(resolve, 300));
-    }
+    await issueAndWaitForPacket(office, ready);
     const link = await office.expectOk('post', `/api/sites/${packetSiteId}/locate-links`, { expiresInDays: 7, note: 'Fence crew' });
     locatePath = new URL(link.url as string).pathname;
   }, 180_000);

@@ -6,7 +6,7 @@ import { launchChromium } from '../support/browser.js';
 import { createCompany, TEST_PASSWORD, type TestCompany } from '../support/fixtures.js';
 import { httpApiAs } from '../support/http-api.js';
 import { waitForMail } from '../support/mail.js';
-import { type Api, createJob, createSite, moveJob, recordAsBuilt } from '../support/records.js';
+import { type Api, createJob, createSite, issueAndWaitForPacket, moveJob, recordAsBuilt } from '../support/records.js';
 
 const PHONE = { width: 390, height: 844 };
 const DESK = { width: 1280, height: 800 };
@@ -45,17 +45,8 @@ describe('delivery: the office sends the packet, the homeowner shares a locate l
     const recorded = await recordAsBuilt(lead, created, DEMO_AS_BUILT);
     const submitted = await moveJob(lead, { ...created, version: recorded.version }, 'in_progress', 'submitted');
     const ready = await moveJob(office, submitted, 'ready_to_issue');
-    const issued = await office.send('post', `/api/jobs/${ready.id}/packets`, undefined, { 'If-Match': `"${ready.version}"` });
-    if (issued.status !== 201) throw new Error(`issue → ${issued.status} ${JSON.stringify(issued.body)}`);
-    revisionId = issued.body.id;
+    revisionId = await issueAndWaitForPacket(office, ready);
     jobId = ready.id;
-    const deadline = Date.now() + 100_000;
-    for (;;) {
-      const body = await office.expectOk('get', `/api/packets/${revisionId}`);
-      if (body.status === 'ready') break;
-      if (body.status === 'failed' || Date.now() > deadline) throw new Error(`packet ${body.status}: ${body.failureReason}`);
-      await new Promise((resolve) => setTimeout(resolve, 300));
-    }
   }, 180_000);
 
   afterAll(async () => {

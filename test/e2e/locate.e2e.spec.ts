@@ -9,7 +9,7 @@ import { pdfPages } from '../print/packet-pdf.js';
 import { launchChromium } from '../support/browser.js';
 import { createCompany, type TestCompany, withDb } from '../support/fixtures.js';
 import { httpApiAs } from '../support/http-api.js';
-import { type Api, createJob, createSite, moveJob, recordAsBuilt, siteVersion } from '../support/records.js';
+import { type Api, createJob, createSite, issueAndWaitForPacket, moveJob, recordAsBuilt, siteVersion } from '../support/records.js';
 import { compareWithReference } from '../support/visual.js';
 
 const PHONE = { width: 390, height: 844 };
@@ -77,15 +77,7 @@ describe('locate view on a phone: touch, position, labels, print (issue 15)', ()
     const created = await createJob(office, siteId, { crewLeadUserId: company.users.lead.id });
     const recorded = await recordAsBuilt(lead, created, DEMO_AS_BUILT);
     const ready = await moveJob(office, await moveJob(lead, { ...created, version: recorded.version }, 'in_progress', 'submitted'), 'ready_to_issue');
-    const issued = await office.send('post', `/api/jobs/${ready.id}/packets`, undefined, { 'If-Match': `"${ready.version}"` });
-    if (issued.status !== 201) throw new Error(`issue → ${issued.status} ${JSON.stringify(issued.body)}`);
-    const deadline = Date.now() + 100_000;
-    for (;;) {
-      const body = await office.expectOk('get', `/api/packets/${issued.body.id}`);
-      if (body.status === 'ready') break;
-      if (body.status === 'failed' || Date.now() > deadline) throw new Error(`packet ${body.status}: ${body.failureReason}`);
-      await new Promise((resolve) => setTimeout(resolve, 300));
-    }
+    await issueAndWaitForPacket(office, ready);
     const link = await office.expectOk('post', `/api/sites/${siteId}/locate-links`, { expiresInDays: 7, note: 'Fence crew' });
     locatePath = new URL(link.url as string).pathname;
     token = link.token as string;

@@ -88,6 +88,22 @@ export async function moveJob(api: Api, job: JobFixture, ...statuses: string[]):
   return { ...job, version };
 }
 
+/**
+ * Issues a job that is ready to issue and waits (up to 100 s) until its packet is rendered: the
+ * revision's id. Throws with the API's answer when issuing is refused or the render fails.
+ */
+export async function issueAndWaitForPacket(api: Api, job: JobFixture): Promise<string> {
+  const issued = await api.send('post', `/api/jobs/${job.id}/packets`, undefined, { 'If-Match': `"${job.version}"` });
+  if (issued.status !== 201) throw new Error(`issue → ${issued.status} ${JSON.stringify(issued.body)}`);
+  const deadline = Date.now() + 100_000;
+  for (;;) {
+    const body = await api.expectOk('get', `/api/packets/${issued.body.id}`);
+    if (body.status === 'ready') return issued.body.id as string;
+    if (body.status === 'failed' || Date.now() > deadline) throw new Error(`packet ${body.status}: ${body.failureReason}`);
+    await new Promise((resolve) => setTimeout(resolve, 300));
+  }
+}
+
 function strip<T extends { id: string }>(entry: T): Omit<T, 'id'> {
   const { id: _id, ...rest } = entry;
   return rest;
