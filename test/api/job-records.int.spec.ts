@@ -189,6 +189,25 @@ describe('job records (zones, items, runs, depth readings, checks)', () => {
       expect(await count('depth_readings', 'run_id', run.id)).toBe(1);
     });
 
+    it('should keep a route bend placed by GPS with its accuracy, and refuse a GPS bend without one (issue 17)', async () => {
+      const { job, run, setVersion } = await jobWithRun();
+      const { id: _id, ...body } = run;
+      const route = [{ x: 0, y: 0 }, { x: 3.5, y: 4, source: 'gps', accuracyM: 4.8 }, { x: 6, y: 8, source: 'manual' }];
+      const res = await as.lead.expectOk('put', `/api/jobs/${job().id}/runs/${run.id}`, { ...body, route }, version(job()));
+      setVersion(res.jobVersion);
+      expect(res.run.route).toEqual(route);
+      const asBuilt = await as.lead.expectOk('get', `/api/jobs/${job().id}/as-built`);
+      expect(asBuilt.asBuilt.runs.find((r: { id: string }) => r.id === run.id).route).toEqual(route);
+      const stored = await withDb(async (db) => (await db.query('select source, accuracy_m from run_route_points where run_id = $1 order by ordinal', [run.id])).rows);
+      expect(stored).toEqual([{ source: null, accuracy_m: null }, { source: 'gps', accuracy_m: 4.8 }, { source: 'manual', accuracy_m: null }]);
+
+      const refused = await as.lead.send('put', `/api/jobs/${job().id}/runs/${run.id}`, { ...body, route: [{ x: 0, y: 0 }, { x: 6, y: 8, source: 'gps' }] }, version(job()));
+      expect(refused.status, JSON.stringify(refused.body)).toBe(400);
+      expect(refused.body.issues.map((i: { path: string }) => i.path)).toContain('route.1.accuracyM');
+      const after = await withDb(async (db) => (await db.query('select count(*)::int as n from run_route_points where run_id = $1 and source is not distinct from $2', [run.id, 'gps'])).rows[0].n as number);
+      expect(after).toBe(1);
+    });
+
     it('should answer 400 naming the field for a pair beyond the conductors, a loop and a missing item', async () => {
       const { job, run, amp, speaker } = await jobWithRun();
       const { id: _id, ...body } = run;

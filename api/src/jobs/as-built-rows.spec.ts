@@ -87,6 +87,19 @@ describe('toAsBuilt', () => {
     expect(toAsBuilt(shuffled)).toEqual(toAsBuilt(rows));
   });
 
+  it('should keep a GPS bend with its accuracy and read a bend without a source back without one (issue 17)', () => {
+    const asBuilt = structuredClone(DEMO_AS_BUILT) as { -readonly [K in keyof typeof DEMO_AS_BUILT]: (typeof DEMO_AS_BUILT)[K] };
+    const run = asBuilt.runs.find((r) => (r.route?.length ?? 0) >= 2)!;
+    run.route![1] = { ...run.route![1]!, source: 'gps', accuracyM: 4.2 };
+    const rows = asStored(asBuilt);
+    const stored = rows.routePoints.filter((p) => p.runId === `db:${run.id}`);
+    expect(stored[1]).toMatchObject({ source: 'gps', accuracyM: 4.2 });
+    expect(stored[0]).toMatchObject({ source: null, accuracyM: null });
+    const back = toAsBuilt(rows).runs.find((r) => r.id === `db:${run.id}`)!;
+    expect(back.route![1]).toEqual({ x: run.route![1]!.x, y: run.route![1]!.y, source: 'gps', accuracyM: 4.2 });
+    expect(back.route![0]).toEqual({ x: run.route![0]!.x, y: run.route![0]!.y });
+  });
+
   it('should omit optional fields whose columns are null instead of returning null', () => {
     const rows = asStored();
     const bare = toAsBuilt({ ...rows, runs: rows.runs.map((r) => ({ ...r, location: null, notes: null })) });

@@ -1,6 +1,6 @@
 import type { AsBuilt } from '../domain/as-built/as-built.schema.js';
 import type { AmplifierChannel, Item, Position } from '../domain/as-built/item.schema.js';
-import type { Run } from '../domain/as-built/run.schema.js';
+import type { RoutePoint, Run } from '../domain/as-built/run.schema.js';
 import type { CommissioningCheck } from '../domain/checks/commissioning-check.schema.js';
 import type { ChannelSetup } from '../domain/jobs/job-record.schema.js';
 import type { SiteRecordInfo } from '../domain/jobs/job.schema.js';
@@ -178,6 +178,16 @@ export function sortReadings<T extends { stationM: number; seq: number }>(readin
   return [...readings].sort((a, b) => a.stationM - b.stationM || a.seq - b.seq);
 }
 
+/** A stored bend; a NULL source (not stated: drawn, or stored before sources were kept) reads back without one. */
+function toRoutePoint(row: RunRoutePointRow): RoutePoint {
+  return {
+    x: row.x,
+    y: row.y,
+    ...(row.source !== null ? { source: row.source } : {}),
+    ...(row.accuracyM !== null ? { accuracyM: row.accuracyM } : {}),
+  };
+}
+
 function toRun(row: RunRow, pairs: RunPairRow[], route: RunRoutePointRow[], readings: DepthReadingRow[]): Run {
   return {
     id: row.id,
@@ -198,7 +208,7 @@ function toRun(row: RunRow, pairs: RunPairRow[], route: RunRoutePointRow[], read
     method: row.method,
     ...present({ location: row.location }),
     ...(route.length > 0
-      ? { route: [...route].sort((a, b) => a.ordinal - b.ordinal).map((p) => ({ x: p.x, y: p.y })) }
+      ? { route: [...route].sort((a, b) => a.ordinal - b.ordinal).map(toRoutePoint) }
       : {}),
     ...(readings.length > 0
       ? { depthReadings: sortReadings(readings).map((r) => ({ stationM: r.stationM, depthM: r.depthM })) }
@@ -503,7 +513,14 @@ export function toPairRows(run: Run, runId: string): NewRunPairRow[] {
 }
 
 export function toRoutePointRows(run: Run, runId: string): NewRunRoutePointRow[] {
-  return (run.route ?? []).map((point, ordinal) => ({ runId, ordinal, x: point.x, y: point.y }));
+  return (run.route ?? []).map((point, ordinal) => ({
+    runId,
+    ordinal,
+    x: point.x,
+    y: point.y,
+    source: point.source ?? null,
+    accuracyM: point.accuracyM ?? null,
+  }));
 }
 
 export function toCheckRow(check: CommissioningCheck, jobId: string, id: string, recordedByUserId: string | null): Omit<NewCommissioningCheckRow, 'seq'> {

@@ -372,8 +372,20 @@ export const runRoutePoints = pgTable(
     ordinal: integer('ordinal').notNull(),
     x: doublePrecision('x').notNull(),
     y: doublePrecision('y').notNull(),
+    /**
+     * How the bend was placed (issue 17): 'gps' = the phone's fix, 'manual' = placed on the plan, 'ties'.
+     * NULL = not stated: every bend stored before sources were kept, and bends drawn on the plan by the
+     * route tool, which sends no source; they read back without one and count as drawn by hand.
+     */
+    source: positionSource('source'),
+    /** Estimated horizontal error of the placement, metres; required for a GPS bend. */
+    accuracyM: doublePrecision('accuracy_m'),
   },
-  (t) => [unique('run_route_points_run_id_ordinal_key').on(t.runId, t.ordinal)],
+  (t) => [
+    unique('run_route_points_run_id_ordinal_key').on(t.runId, t.ordinal),
+    check('run_route_points_gps_accuracy', sql`${t.source} is distinct from 'gps' or ${t.accuracyM} is not null`),
+    check('run_route_points_accuracy_nonnegative', sql`${t.accuracyM} is null or ${t.accuracyM} >= 0`),
+  ],
 );
 
 /** Cover (top of cable to finished grade) measured at a station along a run from its from-end, metres. */

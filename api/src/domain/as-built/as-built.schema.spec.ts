@@ -31,6 +31,9 @@ describe('AsBuiltSchema', () => {
     ['a NaN depth', (ab) => void (ab.runs[1]!.depthReadings![2]!.depthM = Number.NaN), 'runs.1.depthReadings.2.depthM'],
     ['an infinite length', (ab) => void (ab.runs[0]!.measuredLengthM = Infinity), 'runs.0.measuredLengthM'],
     ['a NaN route point', (ab) => void (ab.runs[2]!.route![1]!.x = Number.NaN), 'runs.2.route.1.x'],
+    ['a GPS bend without its accuracy', (ab) => void (ab.runs[2]!.route![1] = { x: 1, y: 2, source: 'gps' }), 'runs.2.route.1.accuracyM'],
+    ['a negative bend accuracy', (ab) => void (ab.runs[2]!.route![1] = { x: 1, y: 2, source: 'gps', accuracyM: -1 }), 'runs.2.route.1.accuracyM'],
+    ['an unknown bend source', (ab) => void (ab.runs[2]!.route![1] = { x: 1, y: 2, source: 'compass' as 'gps', accuracyM: 3 }), 'runs.2.route.1.source'],
     ['a fractional AWG', (ab) => void (ab.runs[0]!.gauge = { system: 'awg', awg: 13.5 }), 'runs.0.gauge.awg'],
     ['an AWG beyond 4/0', (ab) => void (ab.runs[0]!.gauge = { system: 'awg', awg: -7 }), 'runs.0.gauge.awg'],
     ['an unknown metric size', (ab) => void (ab.runs[0]!.gauge = { system: 'mm2', mm2: 3 }), 'runs.0.gauge.mm2'],
@@ -50,6 +53,14 @@ describe('AsBuiltSchema', () => {
     ['an id longer than 64 characters', (ab) => void (ab.runs[3]!.id = 'x'.repeat(65)), 'runs.3.id'],
   ])('should reject %s with the path %s', (_name, mutate, path) => {
     expect(withRun(mutate)).toContain(path);
+  });
+
+  it('should accept route bends with a source, and a GPS bend with its accuracy', () => {
+    const paths = withRun((ab) => {
+      ab.runs[2]!.route![0] = { ...ab.runs[2]!.route![0]!, source: 'manual' };
+      ab.runs[2]!.route![1] = { ...ab.runs[2]!.route![1]!, source: 'gps', accuracyM: 4.5 };
+    });
+    expect(paths).toEqual([]);
   });
 
   it('should reject a cycle in the wiring on the run that closes it', () => {

@@ -47,6 +47,13 @@ export const PlanCoordinateSchema = FiniteSchema.min(-AS_BUILT_LIMITS.maxPlanExt
 export const PlanPointSchema = z.object({ x: PlanCoordinateSchema, y: PlanCoordinateSchema });
 export type PlanPoint = z.infer<typeof PlanPointSchema>;
 
+/** How a position was found: solved from taped ties, placed on the plan by hand, or a phone's GPS fix. */
+export const PositionSourceSchema = z.enum(['ties', 'manual', 'gps']);
+export type PositionSource = z.infer<typeof PositionSourceSchema>;
+
+/** The estimated horizontal error of a position, metres (10 km: beyond any fix worth keeping). */
+export const PositionAccuracyMSchema = FiniteSchema.nonnegative().max(10_000);
+
 /** A length in metres, zero or more. */
 export const LengthMSchema = FiniteSchema.nonnegative().max(AS_BUILT_LIMITS.maxLengthM);
 

@@ -10,6 +10,8 @@ import {
   LengthMSchema,
   OptionalTextSchema,
   PlanPointSchema,
+  PositionAccuracyMSchema,
+  PositionSourceSchema,
   PositiveLengthMSchema,
 } from './common.schema.js';
 
@@ -65,6 +67,22 @@ export const RunPairSchema = z.object({
 });
 export type RunPair = z.infer<typeof RunPairSchema>;
 
+/**
+ * A bend of a run's route on the plan. `source` says how it was placed, as for an item's position:
+ * 'gps' = the phone's fix converted to plan metres (then `accuracyM`, the fix's estimated horizontal
+ * error, is required: a phone fix is several times weaker than taped ties and must say by how much),
+ * 'manual' = placed on the plan, 'ties' = solved from taped ties. Absent = not stated: bends drawn on the
+ * plan, and every bend stored before sources were kept (they count as drawn by hand).
+ */
+export const RoutePointSchema = PlanPointSchema.extend({
+  source: PositionSourceSchema.optional(),
+  accuracyM: PositionAccuracyMSchema.optional(),
+}).refine((point) => point.source !== 'gps' || point.accuracyM !== undefined, {
+  path: ['accuracyM'],
+  message: 'a bend placed by GPS needs its accuracy in metres (accuracyM)',
+});
+export type RoutePoint = z.infer<typeof RoutePointSchema>;
+
 /** A depth reading: cover (top of cable to finished grade), metres, at a station measured from the run's from-end. */
 export const DepthReadingSchema = z.object({
   stationM: LengthMSchema,
@@ -90,7 +108,7 @@ export const RunSchema = z.object({
   measuredLengthM: PositiveLengthMSchema,
   method: InstallMethodSchema,
   location: BurialLocationSchema.optional(),
-  route: z.array(PlanPointSchema).min(2).max(AS_BUILT_LIMITS.maxRoutePoints).optional(),
+  route: z.array(RoutePointSchema).min(2).max(AS_BUILT_LIMITS.maxRoutePoints).optional(),
   depthReadings: z.array(DepthReadingSchema).max(AS_BUILT_LIMITS.maxDepthReadings).optional(),
   isSpare: z.boolean().optional(),
   isAbandoned: z.boolean().optional(),
