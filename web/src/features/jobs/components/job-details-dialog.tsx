@@ -1,35 +1,14 @@
-import { zodResolver } from '@hookform/resolvers/zod';
-import {
-  Button,
-  Combobox,
-  Dialog,
-  DialogActions,
-  DialogBody,
-  DialogContent,
-  DialogSurface,
-  DialogTitle,
-  DialogTrigger,
-  Field,
-  Input,
-  makeStyles,
-  MessageBar,
-  MessageBarBody,
-  Option,
-  Select,
-  Spinner,
-  Text,
-  tokens,
-} from '@fluentui/react-components';
+import { Button, Combobox, Field, makeStyles, MessageBar, MessageBarBody, Option, Select, Text, tokens } from '@fluentui/react-components';
 import { PeopleTeam20Regular } from '@fluentui/react-icons';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
-import { Controller, useForm, type FieldPath } from 'react-hook-form';
+import { Controller } from 'react-hook-form';
 import { z } from 'zod';
 import { JobDetailsSchema, type JobResponse, type UpdateJobInput } from '@domain/jobs/job.schema';
 
+import { FormDialog, FormTextField, type FormDialogHelpers } from '../../../components/form-dialog';
 import { useNotify } from '../../../components/notify';
-import { isApiError } from '../../../lib/api-client';
-import { describeRequestError, toSentence } from '../../../lib/form-errors';
+import { describeRequestError } from '../../../lib/form-errors';
 import { formatDate } from '../../../lib/format-date';
 import { useDateStyle } from '../../../lib/use-date-style';
 import { getUsersQueryOptions } from '../../users';
@@ -38,7 +17,6 @@ import { useJobWriter } from '../hooks/job-writer';
 const useStyles = makeStyles({
   trigger: { minHeight: '48px' },
   surface: { maxWidth: '34rem' },
-  form: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },
   dates: {
     display: 'grid',
     gridTemplateColumns: 'minmax(0, 1fr)',
@@ -46,7 +24,6 @@ const useStyles = makeStyles({
     '@media (min-width: 480px)': { gridTemplateColumns: 'repeat(2, minmax(0, 1fr))', columnGap: tokens.spacingHorizontalL },
   },
   control: { minHeight: '48px' },
-  action: { minHeight: '48px' },
   facts: { display: 'grid', gridTemplateColumns: 'max-content minmax(0, 1fr)', gap: `${tokens.spacingVerticalS} ${tokens.spacingHorizontalL}`, margin: 0 },
   term: { color: tokens.colorNeutralForeground2 },
   value: { margin: 0 },
@@ -93,65 +70,10 @@ type JobDetailsDialogProps = { job: JobResponse; canChange: boolean };
  */
 export function JobDetailsDialog({ job, canChange }: JobDetailsDialogProps) {
   const styles = useStyles();
-  const [open, setOpen] = useState(false);
-  return (
-    <Dialog open={open} onOpenChange={(_event, data) => setOpen(data.open)}>
-      <DialogTrigger disableButtonEnhancement>
-        <Button className={styles.trigger} icon={<PeopleTeam20Regular />}>
-          Crew and dates
-        </Button>
-      </DialogTrigger>
-      <DialogSurface className={styles.surface}>
-        {open && (canChange ? <DetailsForm job={job} onDone={() => setOpen(false)} /> : <DetailsView job={job} />)}
-      </DialogSurface>
-    </Dialog>
-  );
-}
-
-function DetailsView({ job }: { job: JobResponse }) {
-  const dateStyle = useDateStyle();
-  const styles = useStyles();
-  return (
-    <DialogBody>
-      <DialogTitle>Crew and dates</DialogTitle>
-      <DialogContent>
-        <dl className={styles.facts}>
-          <dt className={styles.term}>Crew lead</dt>
-          <dd className={styles.value}>{job.crewLead?.name ?? 'Nobody yet'}</dd>
-          <dt className={styles.term}>Technicians</dt>
-          <dd className={styles.value}>{job.technicians.length === 0 ? 'Nobody yet' : job.technicians.map((p) => p.name).join(', ')}</dd>
-          <dt className={styles.term}>Start</dt>
-          <dd className={styles.value}>{job.startDate ? formatDate(job.startDate, dateStyle) : 'Not set'}</dd>
-          <dt className={styles.term}>Finish</dt>
-          <dd className={styles.value}>{job.endDate ? formatDate(job.endDate, dateStyle) : 'Not set'}</dd>
-        </dl>
-        <Text as="p" block>
-          The office changes the crew and the dates.
-        </Text>
-      </DialogContent>
-      <DialogActions fluid>
-        <DialogTrigger disableButtonEnhancement>
-          <Button appearance="primary" className={styles.action}>
-            Close
-          </Button>
-        </DialogTrigger>
-      </DialogActions>
-    </DialogBody>
-  );
-}
-
-function DetailsForm({ job, onDone }: { job: JobResponse; onDone: () => void }) {
-  const styles = useStyles();
   const notify = useNotify();
   const writer = useJobWriter();
-  const users = useQuery(getUsersQueryOptions());
-  const [message, setMessage] = useState<string | undefined>();
-  const {
-    control,
-    handleSubmit,
-    setError,
-    formState: { errors, dirtyFields, isSubmitting },
-  } = useForm<JobDetailsForm, unknown, JobDetailsOutput>({ resolver: zodResolver(JobDetailsFormSchema), defaultValues: defaultsOf(job) });
+  const [open, setOpen] = useState(false);
+  const users = useQuery({ ...getUsersQueryOptions(), enabled: open && canChange });
 
   const active = (users.data ?? []).filter((user) => !user.isDisabled);
   // The same roles the API accepts (jobs.service): leads may be office or admin too; the crew are techs and leads.
@@ -160,55 +82,53 @@ function DetailsForm({ job, onDone }: { job: JobResponse; onDone: () => void }) 
   const nameOf = (id: string) =>
     users.data?.find((user) => user.id === id)?.name ?? job.technicians.find((person) => person.id === id)?.name ?? 'Someone';
 
-  const save = handleSubmit(async (values) => {
-    setMessage(undefined);
+  const save = async (values: JobDetailsOutput, { close, showFieldErrors, showMessage, form }: FormDialogHelpers<JobDetailsForm, JobDetailsOutput>) => {
+    const { dirtyFields } = form.formState;
     const changes: UpdateJobInput = {};
     for (const field of FIELDS) if (dirtyFields[field]) Object.assign(changes, { [field]: values[field] });
     if (Object.keys(changes).length === 0) {
-      onDone();
+      close();
       return;
     }
     try {
       const outcome = await writer.save({ endpoint: 'updateJob', params: {}, body: changes, label: 'Crew and dates' });
       if (outcome === 'saved') notify.success('Crew and dates saved', job.title);
       if (outcome === 'queued') notify.success('Waiting for a connection', 'The crew and dates are sent when you are back online.');
-      if (outcome !== 'conflict') onDone();
+      if (outcome !== 'conflict') close();
     } catch (error) {
-      let isShown = false;
-      if (isApiError(error)) {
-        for (const issue of error.issues) {
-          const field = issue.path.split('.')[0] as FieldPath<JobDetailsForm>;
-          if ((FIELDS as readonly string[]).includes(field)) {
-            setError(field, { message: toSentence(issue.message) });
-            isShown = true;
-          }
-        }
-      }
-      if (!isShown) setMessage(describeRequestError(error));
+      if (!showFieldErrors(error)) showMessage(describeRequestError(error));
     }
-  });
+  };
 
   return (
-    <form onSubmit={(event) => void save(event)} noValidate aria-label="Crew and dates">
-      <DialogBody>
-        <DialogTitle>Crew and dates</DialogTitle>
-        <DialogContent className={styles.form}>
-          {message && (
-            <MessageBar intent="error" layout="multiline">
-              <MessageBarBody>{message}</MessageBarBody>
-            </MessageBar>
-          )}
+    <FormDialog
+      trigger={
+        <Button className={styles.trigger} icon={<PeopleTeam20Regular />}>
+          Crew and dates
+        </Button>
+      }
+      title="Crew and dates"
+      formLabel="Crew and dates"
+      schema={JobDetailsFormSchema}
+      defaultValues={defaultsOf(job)}
+      onSubmit={save}
+      surfaceClassName={styles.surface}
+      onOpenChange={setOpen}
+      view={canChange ? undefined : { title: 'Crew and dates', content: <DetailsView job={job} /> }}
+    >
+      {(form, fieldError) => (
+        <>
           {users.isError && (
             <MessageBar intent="warning" layout="multiline">
               <MessageBarBody>The list of people could not be loaded. {describeRequestError(users.error)}</MessageBarBody>
             </MessageBar>
           )}
           <Controller
-            control={control}
+            control={form.control}
             name="crewLeadUserId"
-            render={({ field, fieldState }) => (
-              <Field label="Crew lead" validationMessage={fieldState.error?.message}>
-                <Select className={styles.control} value={field.value} onChange={(_event, data) => field.onChange(data.value)} onBlur={field.onBlur}>
+            render={({ field }) => (
+              <Field label="Crew lead" validationMessage={fieldError('crewLeadUserId')}>
+                <Select ref={field.ref} className={styles.control} value={field.value} onChange={(_event, data) => field.onChange(data.value)} onBlur={field.onBlur}>
                   <option value="">Nobody yet</option>
                   {field.value !== '' && !leads.some((user) => user.id === field.value) && <option value={field.value}>{job.crewLead?.name ?? 'Current lead'}</option>}
                   {leads.map((user) => (
@@ -221,13 +141,13 @@ function DetailsForm({ job, onDone }: { job: JobResponse; onDone: () => void }) 
             )}
           />
           <Controller
-            control={control}
+            control={form.control}
             name="technicianUserIds"
-            render={({ field, fieldState }) => (
+            render={({ field }) => (
               <Field
                 label="Technicians"
                 hint="They add photos, depth readings and checks on this job."
-                validationMessage={fieldState.error?.message ?? errors.technicianUserIds?.root?.message}
+                validationMessage={fieldError('technicianUserIds') ?? form.formState.errors.technicianUserIds?.root?.message}
               >
                 <Combobox
                   multiselect
@@ -249,43 +169,34 @@ function DetailsForm({ job, onDone }: { job: JobResponse; onDone: () => void }) 
             )}
           />
           <div className={styles.dates}>
-            <Controller
-              control={control}
-              name="startDate"
-              render={({ field, fieldState }) => (
-                <Field label="Start date" validationMessage={fieldState.error?.message}>
-                  <Input className={styles.control} type="date" value={field.value} onChange={(_event, data) => field.onChange(data.value)} onBlur={field.onBlur} />
-                </Field>
-              )}
-            />
-            <Controller
-              control={control}
-              name="endDate"
-              render={({ field, fieldState }) => (
-                <Field label="Finish date" validationMessage={fieldState.error?.message}>
-                  <Input className={styles.control} type="date" value={field.value} onChange={(_event, data) => field.onChange(data.value)} onBlur={field.onBlur} />
-                </Field>
-              )}
-            />
+            <FormTextField form={form} name="startDate" label="Start date" type="date" error={fieldError('startDate')} />
+            <FormTextField form={form} name="endDate" label="Finish date" type="date" error={fieldError('endDate')} />
           </div>
-        </DialogContent>
-        <DialogActions fluid>
-          <DialogTrigger disableButtonEnhancement>
-            <Button className={styles.action} disabled={isSubmitting}>
-              Cancel
-            </Button>
-          </DialogTrigger>
-          <Button
-            type="submit"
-            appearance="primary"
-            className={styles.action}
-            disabled={isSubmitting}
-            icon={isSubmitting ? <Spinner size="tiny" /> : undefined}
-          >
-            Save
-          </Button>
-        </DialogActions>
-      </DialogBody>
-    </form>
+        </>
+      )}
+    </FormDialog>
+  );
+}
+
+/** The crew and dates read-only, for everyone but the office. */
+function DetailsView({ job }: { job: JobResponse }) {
+  const dateStyle = useDateStyle();
+  const styles = useStyles();
+  return (
+    <>
+      <dl className={styles.facts}>
+        <dt className={styles.term}>Crew lead</dt>
+        <dd className={styles.value}>{job.crewLead?.name ?? 'Nobody yet'}</dd>
+        <dt className={styles.term}>Technicians</dt>
+        <dd className={styles.value}>{job.technicians.length === 0 ? 'Nobody yet' : job.technicians.map((p) => p.name).join(', ')}</dd>
+        <dt className={styles.term}>Start</dt>
+        <dd className={styles.value}>{job.startDate ? formatDate(job.startDate, dateStyle) : 'Not set'}</dd>
+        <dt className={styles.term}>Finish</dt>
+        <dd className={styles.value}>{job.endDate ? formatDate(job.endDate, dateStyle) : 'Not set'}</dd>
+      </dl>
+      <Text as="p" block>
+        The office changes the crew and the dates.
+      </Text>
+    </>
   );
 }
