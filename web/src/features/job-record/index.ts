@@ -3,3 +3,4 @@
 export { getJobAsBuiltQueryOptions, type JobAsBuiltResponse } from './api/get-job-as-built';
 export { jobKeys } from './api/job-keys';
 export { ITEM_KIND_LABELS, LOCATION_LABELS, METHOD_LABELS } from './utils/record-labels';
+export { gpsBends, gpsBendsText, type GpsBend } from './utils/gps-bends';

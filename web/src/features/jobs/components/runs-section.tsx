@@ -11,7 +11,7 @@ import { usePhotoActions } from '../../photos';
 import type { JobAsBuiltResponse } from '../../job-record';
 import { useWorkspaceFocus } from '../hooks/workspace-focus';
 import { runDeleteRequest } from '../utils/delete-requests';
-import { METHOD_LABELS } from '../../job-record';
+import { gpsBendsText, METHOD_LABELS } from '../../job-record';
 
 import { useCardStyles } from '../../../components/card-styles';
 import { useDeleteRecord } from './delete-record';
@@ -112,6 +112,8 @@ function RunCard({ run, index, data, mode, canRecord, canAddField, onMode, onDel
   const styles = useCardStyles();
   const formStyles = useFormStyles();
   const [units] = useUnitPreferences();
+  /** Route points from a phone fix, said as an item's "Placed by GPS, ±…" is: weaker than taped ties. */
+  const gpsText = gpsBendsText(run.route, units.length);
   const photos = usePhotoActions();
   const { asBuilt, analysis, records, job } = data;
   const depth = analysis.depth[index];
@@ -157,6 +159,7 @@ function RunCard({ run, index, data, mode, canRecord, canAddField, onMode, onDel
         )}
         {run.isSpare && <span>Spare</span>}
         {run.isAbandoned && <span>Abandoned</span>}
+        {gpsText && <span>{gpsText}</span>}
       </div>
       <SiteRecordNote data={data} recordId={run.id} label={run.label} canRecord={canRecord} />
       <PhotoStrip target={{ type: 'run', id: run.id }} label={`Run ${run.label}`} />

@@ -42,6 +42,11 @@ export type CanvasModel = {
   marks: CanvasMark[];
   /** A solved position with its accuracy (radius, metres). */
   solution?: { x: number; y: number; accuracyM: number; isWeak: boolean };
+  /**
+   * Route points placed by a phone's GPS fix (issue 17): drawn as a dashed circle of the fix's accuracy,
+   * so a bend from the phone reads as weaker than one taped or drawn.
+   */
+  gpsBends?: { key: string; x: number; y: number; accuracyM: number; label: string }[];
   showLabels: boolean;
   northAzimuthDeg: number | null;
   lengthSystem: 'metric' | 'imperial';
@@ -414,6 +419,24 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
               data-testid="accuracy-circle"
             />
             <circle cx={sx(model.solution.x)} cy={sy(model.solution.y)} r={4} fill={LEADER_INK} />
+          </g>
+        )}
+        {(model.gpsBends ?? []).length > 0 && (
+          <g data-layer="gps-bends" pointerEvents="none">
+            {model.gpsBends!.map((bend) => (
+              <g key={bend.key} role="graphics-symbol" aria-label={bend.label} data-role="gps-bend">
+                <circle
+                  cx={sx(bend.x)}
+                  cy={sy(bend.y)}
+                  r={Math.max(bend.accuracyM * transform.k, 8)}
+                  fill={SHADE}
+                  stroke={LEADER_INK}
+                  strokeWidth={1.5}
+                  strokeDasharray="3 3"
+                />
+                <circle cx={sx(bend.x)} cy={sy(bend.y)} r={3} fill={LEADER_INK} />
+              </g>
+            ))}
           </g>
         )}
         <g data-layer="reference-points">

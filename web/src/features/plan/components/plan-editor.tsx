@@ -10,7 +10,7 @@ import { paths } from '../../../config/paths';
 import { describeRequestError } from '../../../lib/form-errors';
 import { formatLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
-import type { JobAsBuiltResponse } from '../../job-record';
+import { gpsBends, type JobAsBuiltResponse } from '../../job-record';
 import { SaveStateBar } from '../../jobs';
 import { useJobWriter } from '../../jobs';
 import { jobPermissions } from '../../jobs';
@@ -234,6 +234,23 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
       tool === 'ties' && ties.solution?.ok
         ? { x: ties.solution.x, y: ties.solution.y, accuracyM: ties.solution.accuracyM, isWeak: ties.solution.isWeak }
         : undefined,
+    gpsBends: layers.runs
+      ? asBuilt.runs.flatMap((run) => {
+          if (!layers.spareAndAbandoned && (run.isSpare === true || run.isAbandoned === true)) return [];
+          const isDrafting = tool === 'route' && run.id === route.runId;
+          const points = isDrafting ? route.points : (run.route ?? []);
+          return gpsBends(points).map((bend) => {
+            const point = points[bend.pointNumber - 1]!;
+            return {
+              key: `${run.id}:${bend.pointNumber}`,
+              x: point.x,
+              y: point.y,
+              accuracyM: bend.accuracyM,
+              label: `Route point ${bend.pointNumber} of ${run.label}: a phone GPS fix, good to about ±${formatLong(bend.accuracyM)}`,
+            };
+          });
+        })
+      : [],
     showLabels: layers.labels,
     northAzimuthDeg: tool === 'north' ? north.previewDeg : (site.northAzimuthDeg ?? null),
     lengthSystem: units.length,

@@ -19,8 +19,6 @@ export type RoutePhonePosition = {
   isWaiting: boolean;
   /** Why the phone gave no position. */
   error: string | undefined;
-  /** The point that stands at the last phone fix (1-based), and that fix's accuracy radius in metres. */
-  fix: { pointNumber: number; accuracyM: number } | undefined;
   onUse: () => void;
 };
 
@@ -32,6 +30,8 @@ type RoutePanelProps = {
   points: readonly PlanPoint[];
   selectedIndex: number | undefined;
   hasDraft: boolean;
+  /** The points placed at a phone's GPS fix (1-based), with the fix's accuracy radius in metres. */
+  gpsPoints: readonly { pointNumber: number; accuracyM: number }[];
   isSaving: boolean;
   onUndo: () => void;
   onDeletePoint: () => void;
@@ -45,7 +45,6 @@ type RoutePanelProps = {
 
 function PhonePosition({ phone, isSaving }: { phone: RoutePhonePosition; isSaving: boolean }) {
   const styles = usePanelStyles();
-  const [units] = useUnitPreferences();
   return (
     <>
       <div className={styles.actions}>
@@ -59,12 +58,6 @@ function PhonePosition({ phone, isSaving }: { phone: RoutePhonePosition; isSavin
         </Button>
       </div>
       {!phone.canUse && <Text className={styles.muted}>Tap a point of the route first, then stand where that bend is.</Text>}
-      {phone.fix && (
-        <Text className={styles.warning} aria-live="polite">
-          Point {phone.fix.pointNumber} is your phone’s position, good to about ±{formatLength(phone.fix.accuracyM, units.length, 'long')}. A phone fix
-          is several times weaker than taped ties: tape the bends where you can.
-        </Text>
-      )}
       {phone.error && (
         <Text className={styles.warning} role="alert">
           {phone.error}
@@ -148,6 +141,14 @@ export function RoutePanel(props: RoutePanelProps) {
             )}
           </div>
           {props.phonePosition && <PhonePosition phone={props.phonePosition} isSaving={isSaving} />}
+          {props.gpsPoints.length > 0 && (
+            <Text className={styles.warning} aria-live="polite">
+              {props.gpsPoints
+                .map((p) => `Point ${p.pointNumber} is a phone’s position, good to about ±${formatLength(p.accuracyM, units.length, 'long')}.`)
+                .join(' ')}{' '}
+              A phone fix is several times weaker than taped ties: tape the bends where you can.
+            </Text>
+          )}
         </>
       )}
     </section>

@@ -8,7 +8,7 @@ import { findingText } from '@domain/analysis/finding';
 import { paths } from '../../../config/paths';
 import { formatLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
-import { ITEM_KIND_LABELS, METHOD_LABELS } from '../../job-record';
+import { gpsBendsText, ITEM_KIND_LABELS, METHOD_LABELS } from '../../job-record';
 
 import { usePanelStyles } from './panel-styles';
 
@@ -89,6 +89,7 @@ export function SelectionCard({ jobId, asBuilt, analysis, selection, canRecord, 
     const run = asBuilt.runs.find((candidate) => candidate.id === selection.id);
     const result = analysis.runs.find((r) => r.runId === selection.id);
     if (!run) return null;
+    const gpsText = gpsBendsText(run.route, units.length);
     return (
       <section className={styles.panel} aria-label={`Run ${run.label}`}>
         <Text as="h3" weight="semibold" size={400} className={styles.title}>
@@ -105,6 +106,12 @@ export function SelectionCard({ jobId, asBuilt, analysis, selection, canRecord, 
           <dd className={styles.factValue}>{length(run.measuredLengthM)}</dd>
           <dt className={styles.factName}>Drawn</dt>
           <dd className={styles.factValue}>{result?.routeLengthM != null ? length(result.routeLengthM) : 'no route yet'}</dd>
+          {gpsText && (
+            <>
+              <dt className={styles.factName}>From a phone</dt>
+              <dd className={styles.factValue}>{gpsText}</dd>
+            </>
+          )}
         </dl>
         {result?.lengthCheck?.isMismatch && (
           <Text className={styles.warning}>

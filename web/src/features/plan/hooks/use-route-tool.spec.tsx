@@ -2,6 +2,7 @@ import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import type { AsBuilt } from '@domain/as-built/as-built.schema';
 import type { PlanPoint } from '@domain/as-built/common.schema';
+import type { RoutePoint } from '@domain/as-built/run.schema';
 
 import { buildSessionUser } from '../../../testing/data';
 import { buildAsBuilt, buildJobAsBuilt, JOB_IDS } from '../../../testing/job-data';
@@ -21,7 +22,7 @@ const FIX = { latitude: 45.0001, longitude: -93, accuracy: 4 };
 const FIX_ON_PLAN = { x: 0, y: 11.113 };
 
 /** The amplifier at the plan origin and the satellite 10 m east; the site has a GPS origin unless told not to. */
-function placedAsBuilt({ withOrigin = true, route }: { withOrigin?: boolean; route?: PlanPoint[] } = {}): AsBuilt {
+function placedAsBuilt({ withOrigin = true, route }: { withOrigin?: boolean; route?: RoutePoint[] } = {}): AsBuilt {
   const asBuilt = buildAsBuilt();
   asBuilt.items = asBuilt.items.map((item) =>
     item.id === JOB_IDS.amp ? { ...item, position: { x: 0, y: 0, source: 'manual' } } : { ...item, position: { x: 10, y: 0, source: 'manual' } },
@@ -29,6 +30,18 @@ function placedAsBuilt({ withOrigin = true, route }: { withOrigin?: boolean; rou
   if (route) asBuilt.runs = asBuilt.runs.map((run) => ({ ...run, route }));
   if (withOrigin) asBuilt.site = { origin: ORIGIN, northAzimuthDeg: 0 };
   return asBuilt;
+}
+
+/** jsdom has no PointerEvent; a MouseEvent with a pointer id is enough for the drag handlers (as in plan-editor.spec). */
+if (typeof window.PointerEvent !== 'function') {
+  class TestPointerEvent extends MouseEvent {
+    readonly pointerId: number;
+    constructor(type: string, init: PointerEventInit = {}) {
+      super(type, init);
+      this.pointerId = init.pointerId ?? 1;
+    }
+  }
+  Object.defineProperty(window, 'PointerEvent', { writable: true, value: TestPointerEvent });
 }
 
 function mockGeolocation(answer: (done: PositionCallback, fail: PositionErrorCallback) => void) {
@@ -78,17 +91,21 @@ describe('route tool: Use my position on a bend (issue 17)', () => {
     await user.click(screen.getByRole('button', { name: 'Add a point at my position' }));
     await waitFor(() => expect(screen.getByTestId('draft-route')).toHaveAttribute('data-points', '2'));
     expect(getCurrentPosition).toHaveBeenCalledWith(expect.any(Function), expect.any(Function), expect.objectContaining({ enableHighAccuracy: true, maximumAge: 0 }));
-    expect(screen.getByText(/^Point 2 is your phone’s position, good to about ±4(\.0+)? m\. A phone fix is several times weaker than taped ties/)).toBeInTheDocument();
+    expect(screen.getByText(/^Point 2 is a phone’s position, good to about ±4(\.0+)? m\. A phone fix is several times weaker than taped ties/)).toBeInTheDocument();
+    // On the plan too: a dashed circle of the fix's accuracy around the bend.
+    expect(screen.getByRole('graphics-symbol', { name: /^Route point 2 of .*: a phone GPS fix, good to about ±4/ })).toBeInTheDocument();
 
     tapPlanAt({ x: 10, y: 0 });
     await waitFor(() => expect(screen.getByTestId('draft-route')).toHaveAttribute('data-points', '3'));
     await user.click(screen.getByRole('button', { name: 'Finish route' }));
     await waitFor(() => expect(puts).toHaveLength(1));
-    const route = (puts[0]!.body as { route: PlanPoint[] }).route;
+    const route = (puts[0]!.body as { route: RoutePoint[] }).route;
     expect(route).toHaveLength(3);
     expect(route[0]).toEqual({ x: 0, y: 0 });
     expect(route[1]!.x).toBeCloseTo(FIX_ON_PLAN.x, 2);
     expect(route[1]!.y).toBeCloseTo(FIX_ON_PLAN.y, 2);
+    // Stored as a GPS bend with the fix's accuracy, so the record says it is weaker than a taped one.
+    expect(route[1]).toMatchObject({ source: 'gps', accuracyM: 4 });
     expect(route[2]).toEqual({ x: 10, y: 0 });
   }, 30_000);
 
@@ -112,15 +129,16 @@ describe('route tool: Use my position on a bend (issue 17)', () => {
     fireEvent.click(container.querySelector('[data-hit="vertex"][data-index="1"] circle')!);
     await waitFor(() => expect(move).toBeEnabled());
     await user.click(move);
-    await screen.findByText(/^Point 2 is your phone’s position/);
+    await screen.findByText(/^Point 2 is a phone’s position/);
     expect(screen.getByTestId('draft-route')).toHaveAttribute('data-points', '3');
 
     await user.click(screen.getByRole('button', { name: 'Save route' }));
     await waitFor(() => expect(puts).toHaveLength(1));
-    const route = (puts[0]!.body as { route: PlanPoint[] }).route;
+    const route = (puts[0]!.body as { route: RoutePoint[] }).route;
     expect(route[0]).toEqual({ x: 0, y: 0 });
     expect(route[1]!.x).toBeCloseTo(FIX_ON_PLAN.x, 2);
     expect(route[1]!.y).toBeCloseTo(FIX_ON_PLAN.y, 2);
+    expect(route[1]).toMatchObject({ source: 'gps', accuracyM: 4 });
     expect(route[2]).toEqual({ x: 10, y: 0 });
   }, 30_000);
 
@@ -135,6 +153,40 @@ describe('route tool: Use my position on a bend (issue 17)', () => {
     await user.click(screen.getByRole('button', { name: 'Add a point at my position' }));
     expect(await screen.findByRole('alert')).toHaveTextContent(/Location permission was refused/);
     expect(screen.getByTestId('draft-route')).toHaveAttribute('data-points', '0');
+  }, 30_000);
+
+  it('should mark a saved GPS bend on the plan and on the run’s card, and drop the source when the bend is dragged off the fix', async () => {
+    const puts: MockRequest[] = [];
+    const route: RoutePoint[] = [{ x: 0, y: 0 }, { x: 4, y: 4, source: 'gps', accuracyM: 6 }, { x: 10, y: 0 }];
+    mockApi({
+      [`GET /api/jobs/${JOB_IDS.job}/as-built`]: () => jsonResponse(buildJobAsBuilt(placedAsBuilt({ withOrigin: false, route }))),
+      [`GET /api/sites/${JOB_IDS.site}`]: () => jsonResponse(buildSite()),
+      [RUN_PUT]: (request) => {
+        puts.push(request);
+        return jsonResponse({ run: { ...(request.body as object), id: JOB_IDS.run }, jobVersion: 4 });
+      },
+    });
+    const { user, container } = renderApp({ url: PLAN_URL, signedInAs: buildSessionUser('lead') });
+    await screen.findByRole('toolbar', { name: 'Plan tools' }, { timeout: 10_000 });
+    expect(await screen.findByRole('graphics-symbol', { name: /^Route point 2 of .*: a phone GPS fix, good to about ±6 m/ })).toBeInTheDocument();
+    fireEvent.click(container.querySelector(`[data-hit="run"][data-id="${JOB_IDS.run}"]`)!);
+    const card = await screen.findByRole('region', { name: /^Run / });
+    expect(within(card).getByText('Route point 2 by GPS, ±6 m')).toBeInTheDocument();
+
+    await openRouteTool(user);
+    expect(screen.getByText(/^Point 2 is a phone’s position, good to about ±6 m\./)).toBeInTheDocument();
+    const vertex = container.querySelector('[data-hit="vertex"][data-index="1"] circle')!;
+    fireEvent.pointerDown(vertex, { clientX: 0, clientY: 0, pointerId: 1, button: 0 });
+    fireEvent.pointerMove(vertex, { clientX: 15, clientY: 15, pointerId: 1 });
+    fireEvent.pointerMove(vertex, { clientX: 30, clientY: 30, pointerId: 1 });
+    fireEvent.pointerUp(vertex, { clientX: 30, clientY: 30, pointerId: 1 });
+    fireEvent.click(vertex, { clientX: 30, clientY: 30 });
+    await waitFor(() => expect(screen.queryByText(/^Point 2 is a phone’s position/)).not.toBeInTheDocument());
+    await user.click(screen.getByRole('button', { name: 'Save route' }));
+    await waitFor(() => expect(puts).toHaveLength(1));
+    const sent = (puts[0]!.body as { route: RoutePoint[] }).route;
+    expect(sent[1]).not.toHaveProperty('source');
+    expect(sent[1]).not.toHaveProperty('accuracyM');
   }, 30_000);
 
   it('should not offer the phone position where the site has no GPS origin', async () => {

@@ -1,9 +1,11 @@
 import { useState } from 'react';
 import type { AsBuilt } from '@domain/as-built/as-built.schema';
 import type { PlanPoint } from '@domain/as-built/common.schema';
+import type { RoutePoint } from '@domain/as-built/run.schema';
 
 import { usePersistedDraft } from '../../../lib/drafts';
-import { requestPhoneFix, type GpsFix, type useJobWriter } from '../../jobs';
+import { gpsBends } from '../../job-record';
+import { requestPhoneFix, type useJobWriter } from '../../jobs';
 import type { PlanHit } from '../components/plan-canvas';
 import type { RouteMode } from '../components/route-panel';
 import { insertRoutePoint, moveRoutePoint, removeRoutePoint, roundPlanPoint } from '../utils/plan-geometry';
@@ -33,12 +35,9 @@ export function useRouteTool({ jobId, asBuilt, saveJobWrite, selectedVertex, set
   const [mode, setMode] = useState<RouteMode>('draw');
   const run = asBuilt.runs.find((candidate) => candidate.id === runId);
   const draftKey = `job:${jobId}:plan-route:${runId || 'none'}`;
-  const draft = usePersistedDraft<PlanPoint[]>(draftKey, run?.route ?? []);
+  const draft = usePersistedDraft<RoutePoint[]>(draftKey, run?.route ?? []);
   const points = runId ? draft.value : [];
   const [phone, setPhone] = useState<PhoneState>({ status: 'idle' });
-  /** The last phone fix put on the route: shown with its accuracy while a point still stands there. */
-  const [lastFix, setLastFix] = useState<GpsFix | undefined>();
-  const fixIndex = lastFix ? points.findIndex((p) => p.x === lastFix.x && p.y === lastFix.y) : -1;
   const hasOrigin = Boolean(asBuilt.site?.origin);
 
   const start = (next: string) => {
@@ -60,9 +59,9 @@ export function useRouteTool({ jobId, asBuilt, saveJobWrite, selectedVertex, set
     setPhone({ status: 'waiting' });
     requestPhoneFix(asBuilt.site).then(
       (fix) => {
-        const point = { x: fix.x, y: fix.y };
+        // Kept with its source and accuracy, so the record says this bend is a phone fix (issue 17).
+        const point: RoutePoint = { x: fix.x, y: fix.y, source: 'gps', accuracyM: fix.accuracyM };
         draft.setValue((current) => (target === undefined ? [...current, point] : moveRoutePoint(current, target, point)));
-        setLastFix(fix);
         setPhone({ status: 'idle' });
       },
       (error: Error) => setPhone({ status: 'error', message: error.message }),
@@ -75,7 +74,7 @@ export function useRouteTool({ jobId, asBuilt, saveJobWrite, selectedVertex, set
       {
         endpoint: 'replaceRun',
         params: { runId: run.id },
-        body: runBodyWithRoute(run, points.map(roundPlanPoint)),
+        body: runBodyWithRoute(run, points.map((p) => ({ ...p, ...roundPlanPoint(p) }))),
         draftKey,
         label: `Route of "${run.label}"`,
       },
@@ -131,6 +130,8 @@ export function useRouteTool({ jobId, asBuilt, saveJobWrite, selectedVertex, set
       points,
       selectedIndex: selectedVertex,
       hasDraft: draft.hasDraft,
+      /** The points that stand at a phone fix (dragging one moves it off the fix and it becomes a drawn point). */
+      gpsPoints: gpsBends(points),
       onUndo: () => draft.setValue(points.slice(0, -1)),
       onDeletePoint: () => {
         if (selectedVertex === undefined) return;
@@ -154,7 +155,6 @@ export function useRouteTool({ jobId, asBuilt, saveJobWrite, selectedVertex, set
             canUse: mode === 'draw' || selectedVertex !== undefined,
             isWaiting: phone.status === 'waiting',
             error: phone.status === 'error' ? phone.message : undefined,
-            fix: lastFix && fixIndex >= 0 ? { pointNumber: fixIndex + 1, accuracyM: lastFix.accuracyM } : undefined,
             onUse: placeAtPhonePosition,
           }
         : undefined,
