@@ -11,7 +11,8 @@ import { createCompany, TEST_PASSWORD, type TestCompany } from '../support/fixtu
 import { httpApiAs } from '../support/http-api.js';
 import { type Api, createJob, createSite, moveJob, recordAsBuilt } from '../support/records.js';
 
-const PHONE = { viewport: { width: 390, height: 844 }, hasTouch: true, isMobile: true, locale: 'en-US' };
+// With the app's service worker, as users get it (the other browser tests block it: test/support/browser.ts).
+const PHONE = { viewport: { width: 390, height: 844 }, hasTouch: true, isMobile: true, locale: 'en-US', serviceWorkers: 'allow' as const };
 
 /** The office's start: an amplifier, a satellite, the trunk between them, and two taped corners. */
 const START: AsBuilt = {
