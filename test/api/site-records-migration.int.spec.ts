@@ -22,13 +22,21 @@ import { ensureDatabase, ensurePostgres } from '../../scripts/lib/setup.mjs';
  * its work date. Loads a database at the migration before it with demo-like data — two jobs on one site
  * (one issued twice, one issued once) and a draft on another site — runs the migration and compares
  * every record before and after: nothing lost or altered, each record on its job's site, installed on
- * its job's work date, runs already abandoned abandoned by their own job; revisions untouched.
+ * its job's work date, runs already abandoned abandoned by their own job; revisions untouched. Later
+ * migrations are checked here too where they touch these tables (0018 zones, 0020 change rows).
  */
 
 const TARGET = '0016_add_site_record_lifecycle';
 const drizzleFolder = new URL('../../drizzle/', import.meta.url).pathname;
 /** Columns that 0016 adds: absent before, checked separately after. */
 const NEW_COLUMNS = new Set(['site_id', 'installed_on', 'abandoned_by_job_id', 'abandoned_on', 'removed_by_job_id', 'removed_on']);
+/** Columns later migrations add to other tables: absent at 0015, so not written before; compared without. */
+const LATER_COLUMNS: Record<string, string[]> = {
+  // 0018: zones are dated (checked below).
+  zones: ['created_at'],
+  // 0019 (issue 17): how a route bend was placed, and its accuracy.
+  run_route_points: ['source', 'accuracy_m'],
+};
 const CHILD_TABLES = ['zones', 'amplifier_channels', 'item_ties', 'run_pairs', 'run_route_points', 'depth_readings', 'commissioning_checks', 'reference_points', 'packet_revisions', 'jobs', 'sites'];
 
 describe('migration 0016: items and runs become site records', () => {
@@ -68,15 +76,15 @@ describe('migration 0016: items and runs become site records', () => {
   async function insert(table: Table, row: Record<string, unknown>): Promise<void> {
     const columns = getTableColumns(table);
     const isRecordTable = table === schema.items || table === schema.runs;
+    const tableName = (table as unknown as Record<symbol, string>)[Symbol.for('drizzle:Name')]!;
     const names: string[] = [];
     const values: unknown[] = [];
     for (const [key, value] of Object.entries(row)) {
       const column = columns[key];
-      if (!column || (isRecordTable && NEW_COLUMNS.has(column.name)) || value === undefined) continue;
+      if (!column || (isRecordTable && NEW_COLUMNS.has(column.name)) || LATER_COLUMNS[tableName]?.includes(column.name) || value === undefined) continue;
       names.push(`"${column.name}"`);
       values.push(column.columnType === 'PgJsonb' ? JSON.stringify(value) : value);
     }
-    const tableName = (table as unknown as Record<symbol, string>)[Symbol.for('drizzle:Name')];
     await client.query(`insert into "${tableName}" (${names.join(', ')}) values (${values.map((_, i) => `$${i + 1}`).join(', ')})`, values);
   }
 
@@ -165,9 +173,8 @@ describe('migration 0016: items and runs become site records', () => {
     const zonesAfter = await dump('zones');
     const jobCreated = new Map((await dump('jobs')).map((job) => [job.id, job.created_at]));
     for (const zone of zonesAfter) expect(zone.created_at, 'a zone is dated from its job').toEqual(jobCreated.get(zone.job_id));
-    const laterColumns: Record<string, string[]> = { zones: ['created_at'] };
     const withoutLater = (table: string, row: Record<string, unknown>) =>
-      Object.fromEntries(Object.entries(row).filter(([k]) => !(laterColumns[table] ?? []).includes(k)));
+      Object.fromEntries(Object.entries(row).filter(([k]) => !(LATER_COLUMNS[table] ?? []).includes(k)));
     for (const table of CHILD_TABLES) expect((await dump(table)).map((row) => withoutLater(table, row)), table).toEqual(childrenBefore[table]);
 
     // Each record on its job's site, installed by its job (job_id) on the job's work date:
@@ -197,5 +204,20 @@ describe('migration 0016: items and runs become site records', () => {
     expect(runsAfter.filter((r) => r.is_abandoned)).toHaveLength(1);
     // The new columns are required from now on.
     await expect(client.query(`update items set site_id = null where job_id = $1`, [jobC])).rejects.toThrow(/null value/);
+
+    // 0020: a job keeps one change row per record and issue (its issued rows are revisions' history) and
+    // at most one unissued row per record, for the change it is making now.
+    const recordId = runsAfter[0]!.id as string;
+    const change = (issuedAt: string | null) =>
+      client.query(
+        `insert into site_record_changes (site_id, job_id, record_kind, record_id, change, before, changed_on, issued_at) values ($1, $2, 'run', $3, 'changed', '{}', '2027-04-02', $4)`,
+        [site1, jobB, recordId, issuedAt],
+      );
+    await change('2027-04-03T10:00:00Z');
+    await change('2027-06-01T10:00:00Z');
+    await change(null);
+    await expect(change(null)).rejects.toThrow(/site_record_changes_open_job_id_record_id_key/);
+    const held = await client.query(`select count(*)::int as n from site_record_changes where record_id = $1`, [recordId]);
+    expect(held.rows[0].n).toBe(3);
   });
 });

@@ -48,9 +48,9 @@ describe('the site system: a later job builds on what is in the ground', () => {
   /** The speaker the first job added in its revision 2 (set by the test that issues it). */
   let gateSpeaker = '';
 
-  /** A job in progress on the site, led by the company's lead; `write` keeps its version. */
-  async function openJob(title?: string) {
-    let job = await moveJob(office, await createJob(office, siteId, { crewLeadUserId: company.users.lead.id }), 'in_progress');
+  /** A job in progress on the site (or `onSite`), led by the company's lead; `write` keeps its version. */
+  async function openJob(title?: string, onSite = siteId) {
+    let job = await moveJob(office, await createJob(office, onSite, { crewLeadUserId: company.users.lead.id }), 'in_progress');
     if (title) job = { ...job, version: (await office.expectOk('patch', `/api/jobs/${job.id}`, { title, expectedVersion: job.version })).version };
     return writer(job);
   }
@@ -104,6 +104,28 @@ describe('the site system: a later job builds on what is in the ground', () => {
   afterAll(async () => {
     await app?.close();
   });
+
+  /** The frozen snapshot of a packet revision. */
+  const snapshotOf = async (revisionId: string) =>
+    withDb(async (db) => (await db.query(`select snapshot from packet_revisions where id = $1`, [revisionId])).rows[0].snapshot);
+
+  /** A job's change rows for a record, oldest first, as stored. */
+  const changeRows = async (jobId: string, recordId: string) =>
+    withDb(
+      async (db) =>
+        (
+          await db.query(
+            `select id, change, before, changed_on::text, issued_at from site_record_changes where job_id = $1 and record_id = $2 order by created_at`,
+            [jobId, recordId],
+          )
+        ).rows as { id: string; change: string; before: { record: { label: string } }; changed_on: string; issued_at: Date | null }[],
+    );
+
+  /** Reopens an issued job for its next revision, as its lead writes to it. */
+  async function reopen(job: JobFixture) {
+    const version = (await office.expectOk('get', `/api/jobs/${job.id}`)).version as number;
+    return writer(await moveJob(office, { ...job, version }, 'in_progress'));
+  }
 
   it('connects a second job to the first job’s spare end and channel, and checks the combined load', async () => {
     const b = await openJob('Fire pit zone');
@@ -397,5 +419,139 @@ describe('the site system: a later job builds on what is in the ground', () => {
     expect(snapshot.whatChanged.removed).toEqual([{ kind: 'item', id: gateSpeaker, label: 'Gate speaker', on: '2026-05-14', jobTitle: 'Garden speakers' }]);
     expect((await k.asBuilt()).asBuilt.items.map((i: { id: string }) => i.id)).not.toContain(gateSpeaker);
     expect(await row(gateSpeaker)).toMatchObject({ removed_by_job_id: first.job.id, removed_on: '2026-05-14' });
+  });
+  describe('a reopened job’s changes to the same record (one change row per issue)', () => {
+    let pondSite = '';
+    const pond = {} as { job: JobFixture; amp: string; speaker: string; run: string; spare: string; spareEnd: string };
+    let rework: ReturnType<typeof writer>;
+    let revision1 = '';
+    const runBody = (label: string, extra: object = {}) => {
+      const channel = { amplifierItemId: pond.amp, channelId: pondChannel };
+      return run(label, pond.amp, pond.speaker, channel, extra);
+    };
+    const spareBody = (label: string, extra: object = {}) => run(label, pond.amp, pond.spareEnd, null, { isSpare: true, ...extra });
+    let pondChannel = '';
+    const runOf = (view: { asBuilt: { runs: { id: string }[] } }, id: string) => view.asBuilt.runs.find((r) => r.id === id);
+
+    beforeAll(async () => {
+      // A site of its own: the tests above leave open jobs holding records of the first site.
+      ({ siteId: pondSite } = await createSite(office));
+      const p = await openJob('Pond lights', pondSite);
+      const amp = (await p.write('post', '/items', { ...AMP, label: 'Pond amplifier' })).item;
+      pond.amp = amp.id;
+      pondChannel = amp.channels[0]!.id;
+      pond.speaker = (await p.write('post', '/items', speaker('Pond speaker'))).item.id;
+      pond.spareEnd = (await p.write('post', '/items', { kind: 'spare_end', label: 'Spare end by the reeds', isCapped: true })).item.id;
+      pond.run = (await p.write('post', '/runs', runBody('Amp to pond speaker'))).run.id;
+      pond.spare = (await p.write('post', '/runs', spareBody('Spare to the reeds'))).run.id;
+      await withDb((db) => db.query(`update jobs set start_date = '2026-08-03', end_date = '2026-08-04' where id = $1`, [p.job().id]));
+      pond.job = p.job();
+      await issue(pond.job);
+
+      // A later job relabels the pond run and abandons the spare run, and issues that as its revision 1.
+      rework = await openJob('Pond rework', pondSite);
+      await withDb((db) => db.query(`update jobs set start_date = '2027-03-01', end_date = '2027-03-03' where id = $1`, [rework.job().id]));
+      await rework.write('put', `/runs/${pond.run}`, runBody('Pond run, relabelled'));
+      await rework.write('put', `/runs/${pond.spare}`, spareBody('Spare to the reeds', { isAbandoned: true }));
+      revision1 = (await issue(rework.job())).id;
+    });
+
+    it('keeps the issued change when the reopened job changes the record again, and undo goes back to the issued state', async () => {
+      const [issued] = await changeRows(rework.job().id, pond.run);
+      expect(issued).toMatchObject({ change: 'changed', changed_on: '2027-03-03', before: { record: { label: 'Amp to pond speaker' } } });
+      expect(issued!.issued_at).not.toBeNull();
+
+      // Reopened for revision 2, on a later work date: a further change to the same run is a row of its own,
+      // starting from the run as revision 1 issued it; the revision-1 row is untouched.
+      rework = await reopen(rework.job());
+      await withDb((db) => db.query(`update jobs set end_date = '2027-08-10' where id = $1`, [rework.job().id]));
+      await rework.write('put', `/runs/${pond.run}`, runBody('Pond run, third label'));
+      const rows = await changeRows(rework.job().id, pond.run);
+      expect(rows).toHaveLength(2);
+      expect(rows[0]).toEqual(issued);
+      expect(rows[1]).toMatchObject({ change: 'changed', changed_on: '2027-08-10', issued_at: null, before: { record: { label: 'Pond run, relabelled' } } });
+      // Provenance keeps both: revision 1's issued change with its date, and this revision's.
+      const view = await rework.asBuilt();
+      expect(view.records.siteRecords[pond.run].changedBy).toEqual([
+        { jobId: rework.job().id, jobTitle: 'Pond rework', change: 'changed', on: '2027-03-03', isIssued: true },
+        { jobId: rework.job().id, jobTitle: 'Pond rework', change: 'changed', on: '2027-08-10', isIssued: false },
+      ]);
+
+      // Undo takes back only this revision's change: the run is exactly as revision 1 froze it.
+      await rework.write('delete', `/site-changes/${pond.run}`);
+      expect(await changeRows(rework.job().id, pond.run)).toEqual([issued]);
+      const frozen = runOf(await snapshotOf(revision1), pond.run);
+      expect(runOf(await rework.asBuilt(), pond.run)).toEqual(frozen);
+      expect((await rework.asBuilt()).records.siteRecords[pond.run].changedBy).toEqual([
+        { jobId: rework.job().id, jobTitle: 'Pond rework', change: 'changed', on: '2027-03-03', isIssued: true },
+      ]);
+      // Nothing left to undo: an issued change is part of revision 1.
+      const nothing = await rework.send('delete', `/site-changes/${pond.run}`);
+      expect(nothing.status).toBe(404);
+      expect(nothing.body.code).toBe('CHANGE_NOT_FOUND');
+      expect(runOf(await rework.asBuilt(), pond.run)).toEqual(frozen);
+    });
+
+    it('still answers 409 to another open job while the reopened job holds the record, and not once it is undone', async () => {
+      const other = await openJob('Pond pump', pondSite);
+      // Only issued changes: the run is free for any job; the reopened job's new change holds it again.
+      const [first, second] = await Promise.all([
+        rework.send('put', `/runs/${pond.run}`, runBody('Pond run, raced by the rework')),
+        other.send('put', `/runs/${pond.run}`, runBody('Pond run, raced by the pump')),
+      ]);
+      expect([first.status, second.status].sort()).toEqual([200, 409]);
+      const [winner, loser] = first.status === 200 ? [rework, other] : [other, rework];
+      const refused = first.status === 200 ? second : first;
+      expect(refused.body).toMatchObject({ code: 'RECORD_CHANGED_BY_OTHER_JOB', message: expect.stringContaining(first.status === 200 ? 'Pond rework' : 'Pond pump') });
+      expect((await loser.send('put', `/runs/${pond.run}`, runBody('Again'))).status).toBe(409);
+      // At most one unissued change per record across the site; the rework's issued row is still there.
+      const open = await withDb(async (db) => (await db.query(`select count(*)::int as n from site_record_changes where record_id = $1 and issued_at is null`, [pond.run])).rows[0].n);
+      expect(open).toBe(1);
+      expect((await changeRows(rework.job().id, pond.run))[0]).toMatchObject({ changed_on: '2027-03-03', before: { record: { label: 'Amp to pond speaker' } } });
+      await winner.write('delete', `/site-changes/${pond.run}`);
+      expect((await loser.send('put', `/runs/${pond.run}`, runBody('Again'))).status).toBe(200);
+      await loser.write('delete', `/site-changes/${pond.run}`);
+      // Held by the reopened job again: the other job is refused, naming it.
+      await rework.write('put', `/runs/${pond.run}`, runBody('Pond run, revision 2'));
+      const held = await other.send('put', `/runs/${pond.run}`, runBody('Pump label'));
+      expect(held.status).toBe(409);
+      expect(held.body.message).toContain('Pond rework');
+    });
+
+    it('issued twice with a change each time: both rows stay, revision 2’s What changed lists only the second', async () => {
+      // Revision 2 also relabels the spare run revision 1 abandoned: a change, not a new abandonment.
+      await rework.write('put', `/runs/${pond.spare}`, spareBody('Abandoned spare to the reeds', { isAbandoned: true }));
+      const revision2 = (await issue(rework.job())).id;
+      const rows = await changeRows(rework.job().id, pond.run);
+      expect(rows.map((r) => `${r.changed_on} ${r.before.record.label} ${r.issued_at !== null}`)).toEqual([
+        '2027-03-03 Amp to pond speaker true',
+        '2027-08-10 Pond run, relabelled true',
+      ]);
+      expect((await changeRows(rework.job().id, pond.spare)).map((r) => `${r.change} ${r.changed_on}`)).toEqual(['abandoned 2027-03-03', 'changed 2027-08-10']);
+
+      const snapshot = await snapshotOf(revision2);
+      expect(snapshot.revision).toBe(2);
+      expect(snapshot.whatChanged.supersedes).toMatchObject({ revisionId: revision1, jobTitle: 'Pond rework', revision: 1 });
+      expect(snapshot.whatChanged.changed).toEqual([
+        { kind: 'run', id: pond.run, label: 'Pond run, revision 2', on: '2027-08-10', jobTitle: 'Pond rework' },
+        { kind: 'run', id: pond.spare, label: 'Abandoned spare to the reeds', on: '2027-08-10', jobTitle: 'Pond rework' },
+      ]);
+      expect([...snapshot.whatChanged.added, ...snapshot.whatChanged.abandoned, ...snapshot.whatChanged.removed]).toEqual([]);
+      // Provenance in the packet (and so on its plan and the locate map) keeps both changes, with their
+      // dates; the spare run stays abandoned since revision 1's date.
+      expect(snapshot.siteRecords[pond.run].changedBy.map((c: { on: string; change: string }) => `${c.change} ${c.on}`)).toEqual(['changed 2027-03-03', 'changed 2027-08-10']);
+      expect(snapshot.siteRecords[pond.spare].abandoned).toEqual({ jobId: rework.job().id, jobTitle: 'Pond rework', on: '2027-03-03' });
+      expect(snapshot.siteRecords[pond.spare].changedBy.map((c: { on: string; change: string }) => `${c.change} ${c.on}`)).toEqual(['abandoned 2027-03-03', 'changed 2027-08-10']);
+      // Revision 1 still says what it changed then.
+      const first = await snapshotOf(revision1);
+      expect(first.whatChanged.changed.map((r: { label: string; on: string }) => `${r.label} ${r.on}`)).toEqual(['Pond run, relabelled 2027-03-03']);
+      expect(first.whatChanged.abandoned.map((r: { label: string; on: string }) => `${r.label} ${r.on}`)).toEqual(['Spare to the reeds 2027-03-03']);
+      // A later job sees both changes in the run's history.
+      const later = await openJob('Pond survey', pondSite);
+      expect((await later.asBuilt()).records.siteRecords[pond.run].changedBy.map((c: { on: string; isIssued: boolean }) => `${c.on} ${c.isIssued}`)).toEqual([
+        '2027-03-03 true',
+        '2027-08-10 true',
+      ]);
+    });
   });
 });

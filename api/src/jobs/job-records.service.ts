@@ -304,14 +304,15 @@ export class JobRecordsService {
   }
 
   /**
-   * Undoes this job's change to an earlier job's record: the record gets back its fields (and channel
-   * set-up, readings …) as they were before this job's first change, and is no longer abandoned or
-   * removed by this job.
+   * Undoes this job's change to a record of the site's system since its last issue: the record gets
+   * back its fields (and channel set-up, readings …) as they were before that change — as an earlier
+   * job left it, or as this job's last issue left it — and is abandoned or not as it was then. A change
+   * already issued is part of a revision and stays (404: nothing to undo).
    */
   undoChange(actor: AuthUser, jobId: string, recordId: string, expectedVersion: number): Promise<JobVersionResponse> {
     return this.writer.write(actor, jobId, expectedVersion, 'record', async ({ tx, job, record }) => {
-      const change = await this.repository.findChange(job.id, recordId, tx);
-      if (!change) throw new NotFoundError('CHANGE_NOT_FOUND', 'This job has no change to that record.');
+      const change = await this.repository.findOpenChange(job.id, recordId, tx);
+      if (!change) throw new NotFoundError('CHANGE_NOT_FOUND', 'This job has no change to that record since its last issue.');
       const before = change.before as unknown as RecordBefore;
       const { rows, asBuilt } = await record();
       if (change.recordKind === 'item') {
@@ -351,7 +352,7 @@ export class JobRecordsService {
         await this.repository.setRemoved('run', recordId, null, tx);
         await this.repository.setAbandoned('run', recordId, before.abandoned, tx);
       }
-      await this.repository.deleteChange(job.id, recordId, tx);
+      await this.repository.deleteOpenChange(job.id, recordId, tx);
       return { result: {}, audit: { action: 'job.change.undo', targetType: change.recordKind, targetId: recordId } };
     });
   }
@@ -360,9 +361,10 @@ export class JobRecordsService {
    * Before this job writes to a record of the site's system: locks the record's row, refuses (409) when
    * another open job of the site has an unissued change to it, and, when the record is part of the
    * site's record — an earlier job installed it, or this job did and has issued it (a reopened job) —
-   * records this job's change (keeping the record as it was before the first one, amplifier channel
-   * set-ups included), so that other jobs go on seeing it as issued until this job issues. Answers
-   * whether the record is such a site record (false: this job's own, never issued).
+   * records this job's change (keeping the record as it was before the first change since this job's
+   * last issue, amplifier channel set-ups included), so that other jobs go on seeing it as issued until
+   * this job issues. A change this job already issued stays as issued; the new one is a row of its own.
+   * Answers whether the record is such a site record (false: this job's own, never issued).
    */
   private async hold(
     ctx: WriteContext,
@@ -390,14 +392,24 @@ export class JobRecordsService {
       abandoned: source?.abandonedByJobId && source.abandonedOn ? { jobId: source.abandonedByJobId, on: source.abandonedOn } : null,
       ...(channels.length > 0 ? { channelSetups: Object.fromEntries(channels.map((c) => [c.id, toChannelSetup(c)])) } : {}),
     };
+    // Abandoned or not when this job's open cycle began: the open change's `before`, else as it stands.
+    const open = await this.repository.findOpenChange(job.id, id, tx);
+    const wasAbandonedByThisJob = (open ? (open.before as unknown as RecordBefore).abandoned : before.abandoned)?.jobId === job.id;
+    const isAbandonedByThisJob = source?.abandonedByJobId === job.id;
     await this.repository.upsertChange(
       {
         siteId: job.siteId,
         jobId: job.id,
         recordKind: kind,
         recordId: id,
-        // A further change (a depth reading) to a record this job abandoned keeps it listed as abandoned.
-        change: change === 'changed' && !options.isExact && source?.abandonedByJobId === job.id ? 'abandoned' : change,
+        change:
+          // A further change (a depth reading) to a record this job abandoned since its last issue keeps
+          // it listed as abandoned; a change to one an earlier revision of this job abandoned is a change.
+          change === 'changed' && !options.isExact && isAbandonedByThisJob && !wasAbandonedByThisJob
+            ? 'abandoned'
+            : change === 'abandoned' && wasAbandonedByThisJob && isAbandonedByThisJob
+              ? 'changed'
+              : change,
         before: before as unknown as Record<string, unknown>,
         changedOn: jobWorkDate(job),
       },

@@ -445,38 +445,40 @@ export class JobsRepository {
     return row;
   }
 
-  /** The job's change row for a record, if it already changed it. */
-  async findChange(jobId: string, recordId: string, tx: Tx): Promise<SiteRecordChangeRow | undefined> {
+  /**
+   * The job's change to a record since its last issue (the open cycle's row), if it made one. Issued
+   * rows are the history earlier revisions rely on: never returned here, so never undone or rewritten.
+   */
+  async findOpenChange(jobId: string, recordId: string, tx: Tx): Promise<SiteRecordChangeRow | undefined> {
     const [row] = await tx
       .select()
       .from(siteRecordChanges)
-      .where(and(eq(siteRecordChanges.jobId, jobId), eq(siteRecordChanges.recordId, recordId)));
+      .where(and(eq(siteRecordChanges.jobId, jobId), eq(siteRecordChanges.recordId, recordId), isNull(siteRecordChanges.issuedAt)));
     return row;
   }
 
   /**
-   * Records (or updates) the job's change to an earlier record. `before` is kept from the first change
-   * since the job's last issue: once issued, the record as that issue left it is what a new change of a
-   * reopened job starts from (and what other jobs see until it issues again).
+   * Records (or updates) the job's change to an earlier record in its open cycle. `before` is kept from
+   * the cycle's first change. An issued row of the same job and record is left as issued: a reopened
+   * job's change is a new row whose `before` (given by the caller) is the record as that issue left it.
    */
-  async upsertChange(change: Omit<NewSiteRecordChangeRow, 'id'>, tx: Tx): Promise<void> {
+  async upsertChange(change: Omit<NewSiteRecordChangeRow, 'id' | 'issuedAt'>, tx: Tx): Promise<void> {
     await tx
       .insert(siteRecordChanges)
       .values(change)
       .onConflictDoUpdate({
+        // The partial unique index site_record_changes_open_job_id_record_id_key (issued_at is null).
         target: [siteRecordChanges.jobId, siteRecordChanges.recordId],
-        set: {
-          change: change.change,
-          changedOn: change.changedOn,
-          before: sql`case when ${siteRecordChanges.issuedAt} is null then ${siteRecordChanges.before} else excluded.before end`,
-          issuedAt: null,
-          updatedAt: new Date(),
-        },
+        targetWhere: sql`${siteRecordChanges.issuedAt} is null`,
+        set: { change: change.change, changedOn: change.changedOn, updatedAt: new Date() },
       });
   }
 
-  async deleteChange(jobId: string, recordId: string, tx: Tx): Promise<void> {
-    await tx.delete(siteRecordChanges).where(and(eq(siteRecordChanges.jobId, jobId), eq(siteRecordChanges.recordId, recordId)));
+  /** Deletes the job's unissued change to the record (an undo); its issued changes stay. */
+  async deleteOpenChange(jobId: string, recordId: string, tx: Tx): Promise<void> {
+    await tx
+      .delete(siteRecordChanges)
+      .where(and(eq(siteRecordChanges.jobId, jobId), eq(siteRecordChanges.recordId, recordId), isNull(siteRecordChanges.issuedAt)));
   }
 
   /** Sets (or clears, with null) the abandoned-by columns of a record. */
@@ -507,16 +509,23 @@ export class JobsRepository {
 
   /**
    * At issue: what the job did since its previous issue (records it added, runs it abandoned or removed)
-   * takes its work date; what an earlier revision already dated keeps its date. Its changes to earlier
-   * jobs' records become issued (they no longer hold those records).
+   * takes its work date; what an earlier revision already dated keeps its date. Its open changes to
+   * records of the site become issued (they no longer hold those records) and are never changed again.
    */
   async markIssued(jobId: string, workDate: string, tx: Tx): Promise<void> {
     const lastIssue = sql`(select max(${packetRevisions.issuedAt}) from ${packetRevisions} where ${packetRevisions.jobId} = ${jobId})`;
     const since = (column: AnyPgColumn) => sql`(${lastIssue} is null or ${column} > ${lastIssue})`;
     await tx.update(items).set({ installedOn: workDate }).where(and(eq(items.jobId, jobId), since(items.createdAt)));
     await tx.update(runs).set({ installedOn: workDate }).where(and(eq(runs.jobId, jobId), since(runs.createdAt)));
-    await tx.update(items).set({ abandonedOn: workDate }).where(and(eq(items.abandonedByJobId, jobId), since(items.updatedAt)));
-    await tx.update(runs).set({ abandonedOn: workDate }).where(and(eq(runs.abandonedByJobId, jobId), since(runs.updatedAt)));
+    // Abandoned since the last issue: a record of its own added since, or one its open change abandons.
+    // One an earlier revision abandoned keeps that revision's date, though this revision changed it since.
+    const abandonedNow = (table: typeof items | typeof runs) =>
+      or(
+        since(table.createdAt),
+        sql`exists (select 1 from ${siteRecordChanges} where ${siteRecordChanges.jobId} = ${jobId} and ${siteRecordChanges.recordId} = ${table.id} and ${siteRecordChanges.issuedAt} is null and ${siteRecordChanges.change} = 'abandoned')`,
+      );
+    await tx.update(items).set({ abandonedOn: workDate }).where(and(eq(items.abandonedByJobId, jobId), abandonedNow(items)));
+    await tx.update(runs).set({ abandonedOn: workDate }).where(and(eq(runs.abandonedByJobId, jobId), abandonedNow(runs)));
     await tx.update(items).set({ removedOn: workDate }).where(and(eq(items.removedByJobId, jobId), since(items.updatedAt)));
     await tx.update(runs).set({ removedOn: workDate }).where(and(eq(runs.removedByJobId, jobId), since(runs.updatedAt)));
     await tx

@@ -16,6 +16,7 @@ import {
   text,
   timestamp,
   unique,
+  uniqueIndex,
   uuid,
 } from 'drizzle-orm/pg-core';
 
@@ -447,11 +448,14 @@ export const siteRecordKind = pgEnum('site_record_kind', ['item', 'run']);
 export const siteRecordChange = pgEnum('site_record_change', ['changed', 'abandoned', 'removed']);
 
 /**
- * A job's change to a record of the site's system that an earlier job installed: the record's fields
- * changed (a spare run made live, an amplifier setting), or it was abandoned in place or removed. One
- * row per job and record; `before` is the record (as-built JSON) as it stood before this job's first
- * change, so the change can be shown and undone. `issuedAt` is set when the job's packet is issued: an
- * unissued change locks the record against changes by another open job of the site (409).
+ * A job's change to a record of the site's system that an earlier job installed (or this job issued in
+ * an earlier revision): the record's fields changed (a spare run made live, an amplifier setting), or it
+ * was abandoned in place or removed. One row per job, record and issue cycle: `before` is the record
+ * (as-built JSON) as it stood before the cycle's first change, so the change can be shown and undone.
+ * `issuedAt` is set when the job's packet is issued, and an issued row is never changed again: a
+ * reopened job's further change to the record is a new unissued row whose `before` is the record as
+ * issued (hence at most one UNISSUED row per job and record). An unissued change locks the record
+ * against changes by another open job of the site (409).
  */
 export const siteRecordChanges = pgTable(
   'site_record_changes',
@@ -473,7 +477,10 @@ export const siteRecordChanges = pgTable(
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
-    unique('site_record_changes_job_id_record_id_key').on(t.jobId, t.recordId),
+    // Issued rows are the history revisions relied on; only the open cycle's row is unique.
+    uniqueIndex('site_record_changes_open_job_id_record_id_key')
+      .on(t.jobId, t.recordId)
+      .where(sql`${t.issuedAt} is null`),
     index('site_record_changes_record_id_idx').on(t.recordId),
     index('site_record_changes_site_id_idx').on(t.siteId),
   ],

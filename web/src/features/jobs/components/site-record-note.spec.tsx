@@ -44,6 +44,18 @@ describe('site record note (issue 21)', () => {
     expect(siteRecordText(own, 'job-b')).toBe('Already in the ground: installed May 14, 2026 and issued in an earlier revision of this job. This job changes it.');
   });
 
+  it('tells a change an earlier revision of this job issued from the one this revision makes (issue 21, reopen)', () => {
+    const rev1 = { jobId: 'job-b', jobTitle: 'Fire pit zone', change: 'changed' as const, on: '2027-04-02', isIssued: true };
+    const issuedOnly = { ...earlier, changedBy: [rev1] };
+    expect(siteRecordText(issuedOnly, 'job-b')).toBe(
+      'Already in the ground: installed May 14, 2026 by “Garden speakers”. Changed by an earlier revision of this job (Apr 2, 2027). Read-only until this job changes it.',
+    );
+    const again = { ...earlier, changedBy: [rev1, { ...rev1, change: 'abandoned' as const, on: '2027-05-20', isIssued: false }] };
+    expect(siteRecordText(again, 'job-b')).toBe(
+      'Already in the ground: installed May 14, 2026 by “Garden speakers”. Changed by an earlier revision of this job (Apr 2, 2027). This job abandons it in place.',
+    );
+  });
+
   it('takes out this job’s own record once an earlier revision issued it; one never issued is deleted', () => {
     const own = { ...earlier, isThisJob: true, installedBy: { jobId: 'job-b', jobTitle: 'Fire pit zone' } };
     expect(isInSiteRecord({ ...own, isIssued: true })).toBe(true);

@@ -29,9 +29,18 @@ export function siteRecordText(info: SiteRecordInfo, jobId: string): string {
       : `Already in the ground: installed ${formatDate(info.installedOn)} by “${info.installedBy.jobTitle}”.`,
   ];
   if (info.abandoned && info.abandoned.jobId !== jobId) parts.push(`Abandoned in place since ${formatDate(info.abandoned.on)} (“${info.abandoned.jobTitle}”).`);
-  const mine = info.changedBy.find((c) => c.jobId === jobId);
+  // An earlier revision of this job changed it: that change is issued history, not this revision's.
+  const issuedHere = info.changedBy.filter((c) => c.jobId === jobId && c.isIssued);
+  const lastIssued = issuedHere.at(-1);
+  if (lastIssued) parts.push(`Changed by an earlier revision of this job (${formatDate(lastIssued.on)}).`);
+  const mine = openChangeOf(info, jobId);
   parts.push(mine ? CHANGE_WORDS[mine.change] : 'Read-only until this job changes it.');
   return parts.join(' ');
+}
+
+/** This job's change to the record since its last issue (the one Undo takes back), if any. */
+function openChangeOf(info: SiteRecordInfo, jobId: string): SiteRecordInfo['changedBy'][number] | undefined {
+  return info.changedBy.find((c) => c.jobId === jobId && !c.isIssued);
 }
 
 function useUndo(label: string, recordId: string) {
@@ -63,9 +72,10 @@ export function SiteRecordNote({ data, recordId, label, canRecord }: NoteProps) 
   const formStyles = useFormStyles();
   const { undo, error, isBusy } = useUndo(label, recordId);
   const info = data.records.siteRecords?.[recordId];
-  const isChangedHere = info?.changedBy.some((c) => c.jobId === data.job.id) ?? false;
+  // Only a change since this job's last issue can be undone; an issued one belongs to its revision.
+  const isChangedHere = info !== undefined && openChangeOf(info, data.job.id) !== undefined;
   // This job's own record: only while this revision has an unissued change to what an earlier one issued.
-  const isOwnChangedNow = info?.isIssued === true && info.changedBy.some((c) => c.jobId === data.job.id && !c.isIssued);
+  const isOwnChangedNow = info?.isIssued === true && isChangedHere;
   if (!info || (info.isThisJob && !isOwnChangedNow)) return null;
   return (
     <div role="note" aria-label={`Installed earlier: ${label}`}>

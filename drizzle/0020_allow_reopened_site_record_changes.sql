@@ -1,0 +1,2 @@
+ALTER TABLE "site_record_changes" DROP CONSTRAINT "site_record_changes_job_id_record_id_key";--> statement-breakpoint
+CREATE UNIQUE INDEX "site_record_changes_open_job_id_record_id_key" ON "site_record_changes" USING btree ("job_id","record_id") WHERE "site_record_changes"."issued_at" is null;
