@@ -11,10 +11,19 @@
  * signed-in pages carry the lead's refresh cookie from a sign-in of their own (the app restores the
  * session from it as on any reload; each refresh cookie is used once). Figures per page: the
  * performance score (goal ≥ 90) and the largest contentful paint (goal < 2.5 s).
+ *
+ * For finding out why a page is slow (environment variables, passed through by `npm run bench`):
+ * - `LIGHTHOUSE_PAGES=locate,sign-in` measures only the pages whose name contains one of the words
+ *   (figures are then printed but not recorded, so a partial run never replaces a whole one);
+ * - `LIGHTHOUSE_DETAIL=1` prints, per page, the LCP element and its breakdown (TTFB, load delay, load
+ *   time, render delay), the requests in the order they started with their sizes, which block
+ *   rendering, the script boot-up time per file and the main-thread work by kind;
+ * - `LIGHTHOUSE_WEB_DIST=/tmp/some-dist` serves that web build (e.g. `npx vite build --outDir …` of a
+ *   change being tried) instead of building and serving web/dist.
  */
 import { randomBytes } from 'node:crypto';
 import { mkdtemp, rm } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
+import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 
 import * as chromeLauncher from 'chrome-launcher';
@@ -63,6 +72,48 @@ async function getJson<T>(url: string, accessToken: string, init: RequestInit = 
 }
 
 type Page = { name: string; path: string; signedIn: boolean };
+
+const ONLY_PAGES = (process.env.LIGHTHOUSE_PAGES ?? '').split(',').map((p) => p.trim()).filter(Boolean);
+const DETAIL = process.env.LIGHTHOUSE_DETAIL === '1';
+const WEB_DIST = process.env.LIGHTHOUSE_WEB_DIST;
+
+type Lhr = NonNullable<Awaited<ReturnType<typeof lighthouse>>>['lhr'];
+type Row = Record<string, unknown>;
+
+function detailRows(lhr: Lhr, id: string): Row[] {
+  const details = lhr.audits[id]?.details as { items?: Row[] } | undefined;
+  return details?.items ?? [];
+}
+
+const kb = (bytes: unknown) => (typeof bytes === 'number' ? (bytes / 1024).toFixed(1) : '-');
+const ms = (value: unknown) => (typeof value === 'number' ? value.toFixed(0) : '-');
+const shortUrl = (url: unknown, base: string) => String(url).replace(base, '').slice(0, 70);
+
+/** The why of one page's figures (LIGHTHOUSE_DETAIL=1). */
+function printDetail(lhr: Lhr, base: string): void {
+  // LCP element: a list of two tables, the element, then the phases.
+  const [elementTable, phaseTable] = detailRows(lhr, 'largest-contentful-paint-element') as { items?: Row[] }[];
+  const node = elementTable?.items?.[0]?.node as { nodeLabel?: string; snippet?: string } | undefined;
+  console.log(`  LCP element: ${node?.snippet ?? '(none)'} "${(node?.nodeLabel ?? '').slice(0, 60)}"`);
+  for (const phase of phaseTable?.items ?? []) console.log(`    ${String(phase.phase).padEnd(22)} ${ms(phase.timing).padStart(6)} ms`);
+  const metrics = detailRows(lhr, 'metrics')[0] ?? {};
+  console.log(`  simulated: FCP ${ms(metrics.firstContentfulPaint)} ms, LCP ${ms(metrics.largestContentfulPaint)} ms, TTI ${ms(metrics.interactive)} ms, SI ${ms(metrics.speedIndex)}; observed (unthrottled) LCP ${ms(metrics.observedLargestContentfulPaint)} ms`);
+  const blocking = new Set([...detailRows(lhr, 'render-blocking-insight'), ...detailRows(lhr, 'render-blocking-resources')].map((r) => String(r.url)));
+  console.log('  requests (observed, unthrottled; start/end ms after navigation, transfer/resource KB, priority, B = render-blocking):');
+  const requests = detailRows(lhr, 'network-requests');
+  const t0 = Math.min(...requests.map((r) => Number(r.networkRequestTime ?? Infinity)));
+  for (const r of requests) {
+    console.log(
+      `    ${ms(Number(r.networkRequestTime) - t0).padStart(6)} ${ms(Number(r.networkEndTime) - t0).padStart(6)} ${kb(r.transferSize).padStart(7)} ${kb(r.resourceSize).padStart(7)} ${String(r.priority ?? '').padEnd(8)} ${blocking.has(String(r.url)) ? 'B' : ' '} ${String(r.resourceType ?? '').padEnd(10)} ${shortUrl(r.url, base)}`,
+    );
+  }
+  console.log('  boot-up time per script (ms: total / scripting / parse+compile):');
+  for (const r of detailRows(lhr, 'bootup-time')) console.log(`    ${ms(r.total).padStart(6)} ${ms(r.scripting).padStart(6)} ${ms(r.scriptParseCompile).padStart(6)}  ${shortUrl(r.url, base)}`);
+  console.log('  main-thread work (ms):');
+  for (const r of detailRows(lhr, 'mainthread-work-breakdown')) console.log(`    ${ms(r.duration).padStart(6)}  ${String(r.groupLabel ?? r.group)}`);
+  const failing = Object.values(lhr.audits).filter((a) => a.score !== null && a.score < 0.9 && a.scoreDisplayMode !== 'informative' && a.scoreDisplayMode !== 'notApplicable' && a.scoreDisplayMode !== 'manual');
+  console.log(`  audits below 0.9: ${failing.map((a) => `${a.id} (${a.displayValue ?? a.score})`).join('; ')}`);
+}
 type Measured = { name: string; score: number; lcpS: number; fcpS: number; tbtMs: number; transferKb: number };
 
 async function measure(baseUrl: string, page: Page): Promise<Measured> {
@@ -86,6 +137,10 @@ async function measure(baseUrl: string, page: Page): Promise<Measured> {
       if (typeof value !== 'number') throw new Error(`${page.name}: no ${id} figure (${lhr.audits[id]?.errorMessage ?? 'missing'})`);
       return value;
     };
+    if (DETAIL) {
+      console.log(`${page.name}:`);
+      printDetail(lhr, baseUrl);
+    }
     const score = lhr.categories.performance?.score;
     if (typeof score !== 'number') throw new Error(`${page.name}: no performance score`);
     return {
@@ -110,7 +165,7 @@ async function main(): Promise<void> {
   try {
     await migrate(databaseUrl);
     ensureApiBuilt();
-    ensureWebBuilt();
+    if (!WEB_DIST) ensureWebBuilt();
     await seedDemo(databaseUrl);
     api = await startApi(databaseUrl, {
       NODE_ENV: 'production',
@@ -118,7 +173,7 @@ async function main(): Promise<void> {
       JWT_ACCESS_SECRET: randomBytes(32).toString('hex'),
       PACKET_WORKER_IN_API: 'false',
       UPLOADS_DIR: uploads,
-      WEB_DIST_DIR: join(root as string, 'web/dist'),
+      WEB_DIST_DIR: WEB_DIST ?? join(root as string, 'web/dist'),
       SIGN_IN_LIMIT_PER_ADDRESS_PER_MINUTE: '1000',
       SIGN_IN_LIMIT_PER_ACCOUNT: '1000',
     });
@@ -135,13 +190,15 @@ async function main(): Promise<void> {
       body: JSON.stringify({ expiresInDays: 7, note: 'Lighthouse bench' }),
     });
 
-    const pages: Page[] = [
+    const allPages: Page[] = [
       { name: 'sign-in', path: '/sign-in', signedIn: false },
       { name: 'Today', path: '/', signedIn: true },
       { name: 'job page', path: `/jobs/${job.id}`, signedIn: true },
       { name: 'locate view', path: `/locate/${encodeURIComponent(link.token)}`, signedIn: false },
     ];
+    const pages = ONLY_PAGES.length === 0 ? allPages : allPages.filter((p) => ONLY_PAGES.some((word) => p.name.includes(word)));
     console.log(`Loamline Lighthouse benchmark — lighthouse mobile preset (simulated slow 4G, 4× CPU), ${chromiumPath as string}, node ${process.version}`);
+    console.log(`load average at the start: ${loadavg().map((l) => l.toFixed(2)).join(' ')} (Lighthouse's simulated figures still drift on a busy machine)`);
     console.log('');
     console.log('page          score   LCP s   FCP s   TBT ms   transfer KB');
     const results: Measured[] = [];
@@ -162,7 +219,8 @@ async function main(): Promise<void> {
       figures.push({ label: `${m.name}: largest contentful paint`, value: m.lcpS, unit: 's', goal: `< ${LCP_GOAL_S} s`, isMet: lcpMet });
       figures.push({ label: `${m.name}: bytes transferred`, value: m.transferKb, unit: 'KB' });
     }
-    recordResults('lighthouse', figures);
+    if (ONLY_PAGES.length === 0 && !WEB_DIST) recordResults('lighthouse', figures);
+    else console.log('(a partial run or another build: figures not recorded in bench/results.json)');
   } finally {
     await api?.process.stop();
     await rm(uploads, { recursive: true, force: true });
