@@ -59,6 +59,37 @@ const demo = DEMO_AS_BUILT;
 const demoAnalysis = analyzeAsBuilt(demo);
 const opts = { createCanvas: createNodeSvgCanvas };
 
+/**
+ * The runs (other than `own`) whose drawn line passes through the label box, found by walking every
+ * segment in 0.25 pt steps: independent of the placer's own clipping test.
+ */
+function runsAcross(box: { x: number; y: number; width: number; height: number }, runs: readonly { runId: string; points: readonly { x: number; y: number }[] }[], own?: string): string[] {
+  const out: string[] = [];
+  for (const run of runs) {
+    if (run.runId === own) continue;
+    // Runs wholly to one side of the box cannot touch it (a cheap first look: crowded jobs have hundreds).
+    if (run.points.every((p) => p.x < box.x) || run.points.every((p) => p.x > box.x + box.width)) continue;
+    if (run.points.every((p) => p.y < box.y) || run.points.every((p) => p.y > box.y + box.height)) continue;
+    const hit = run.points.slice(1).some((b, i) => {
+      const a = run.points[i]!;
+      const steps = Math.max(1, Math.ceil(Math.hypot(b.x - a.x, b.y - a.y) / 0.25));
+      for (let j = 0; j <= steps; j += 1) {
+        const x = a.x + ((b.x - a.x) * j) / steps;
+        const y = a.y + ((b.y - a.y) * j) / steps;
+        if (x >= box.x && x <= box.x + box.width && y >= box.y && y <= box.y + box.height) return true;
+      }
+      return false;
+    });
+    if (hit) out.push(run.runId);
+  }
+  return out;
+}
+
+/** Every label of the plan with the runs it lies across that it does not name (a run's label may touch its own run). */
+function labelsAcrossRuns(m: ReturnType<typeof layoutSitePlan>): string[] {
+  return m.labels.flatMap((l) => runsAcross(l.box, m.runs, l.kind === 'run' ? l.forId : undefined).map((runId) => `${l.id} across ${runId}`));
+}
+
 function withRuns(base: AsBuilt, change: (run: Run) => Run): AsBuilt {
   return { ...base, runs: base.runs.map(change) };
 }
@@ -214,6 +245,16 @@ describe('drawSitePlan', () => {
     expect(all(parseSvg(svg), '[data-box]').length).toBe(model.labels.length);
   });
 
+  it('should lay no label across a run it does not name, near the splices too (demo, Letter and A4 metric)', () => {
+    // Before the runs were obstacles, "Patio splice to P3" sat across the trunk and the subwoofer's label across the spare run.
+    expect(labelsAcrossRuns(model)).toEqual([]);
+    const a4 = layoutSitePlan(demo, demoAnalysis, { paper: 'a4', orientation: 'landscape', units: 'metric' });
+    expect(labelsAcrossRuns(a4)).toEqual([]);
+    expect(a4.omittedLabelCount).toBe(0);
+    // Moved labels point back with a leader.
+    expect(model.labels.filter((l) => l.leader !== null).length).toBeGreaterThan(0);
+  });
+
   it('should carry the north arrow, the dig note and no external references', () => {
     const doc = parseSvg(svg);
     // Plan +y is 12° east of true north, so the arrow turns 12° anticlockwise.
@@ -294,10 +335,11 @@ describe('drawSitePlan', () => {
           for (let j = i + 1; j < m.labels.length; j += 1) expect(boxesIntersect(m.labels[i]!.box, m.labels[j]!.box)).toBe(false);
         }
         expect(m.labels.length + m.omittedLabelCount).toBe(n + runs.length + 1);
+        expect(labelsAcrossRuns(m)).toEqual([]);
       }),
       { numRuns: 40 },
     );
-  });
+  }, 60_000);
 });
 
 describe('drawSitePlan: the legend spelled for the company locale (issue 16)', () => {
@@ -353,6 +395,17 @@ describe('drawSitePlan: ties sheet and paper orientation', () => {
     expect(all(doc, '[data-tie]').length).toBe(tieCount);
     expect(all(doc, '[data-kind="run"]')).toEqual([]);
   });
+
+  it('should lay no label across another run on a crowded generated job, counting those left off (500 items)', () => {
+    const crowded = generateSyntheticAsBuilt(7);
+    const m = layoutSitePlan(crowded, analyzeAsBuilt(crowded), { units: 'imperial' });
+    expect(m.labels.length).toBeGreaterThan(50);
+    expect(labelsAcrossRuns(m)).toEqual([]);
+    // What found no spot clear of the runs is left off and counted (the plan says how many).
+    const named = m.labels.filter((l) => l.kind !== 'feature').length;
+    expect(named + m.omittedLabelCount).toBe(m.items.length + m.runs.length + m.references.length);
+    expect(m.omittedLabelCount).toBeGreaterThan(0);
+  }, 60_000);
 
   it('should keep labels apart on the ties sheet of a crowded generated job (500 items, 3 reference points)', () => {
     const crowded = generateSyntheticAsBuilt(7);

@@ -99,3 +99,32 @@ describe(placeLabels.name, () => {
     );
   });
 });
+
+describe('placeLabels with run lines as obstacles', () => {
+  const run = { id: 'other-run', points: [{ x: 150, y: 0 }, { x: 150, y: 200 }] };
+
+  it('moves a label off a line it does not own, with a leader, and keeps it on its own line', () => {
+    // The preferred spot (right of the symbol at x 100–140 … 150+) lies across the vertical line at x = 150.
+    const request: LabelRequest = { id: 'a', width: 60, height: 9, priority: 1, anchor: { x: 120, y: 100 }, preferred: [{ x: 150, y: 100 }] };
+    const moved = placeLabels([request], { bounds: BOUNDS, lines: [run] }).placed[0]!;
+    expect(moved.box.x + moved.box.width < 149 || moved.box.x > 151).toBe(true);
+    expect(moved.leader).not.toBeNull();
+    const own = placeLabels([{ ...request, ownLines: ['other-run'] }], { bounds: BOUNDS, lines: [run] }).placed[0]!;
+    expect(own.box).toEqual({ x: 120, y: 95.5, width: 60, height: 9 });
+    expect(own.leader).toBeNull();
+  });
+
+  it('leaves a label off (reported) when every spot lies across a line it does not own', () => {
+    const grid = Array.from({ length: 31 }, (_, i) => ({ id: `l${i}`, points: [{ x: i * 10, y: 0 }, { x: i * 10, y: 200 }] }));
+    const { placed, unplaced } = placeLabels([pointLabel('wide', 150, 100, 40, 9)], { bounds: BOUNDS, lines: grid });
+    expect(placed).toEqual([]);
+    expect(unplaced).toEqual(['wide']);
+  });
+
+  it('keeps 1 pt clear of a line by default (a stroke has width)', () => {
+    const request: LabelRequest = { id: 'a', width: 20, height: 9, priority: 1, anchor: { x: 100, y: 100 }, preferred: [{ x: 139.5, y: 100 }], allowDisplacement: false };
+    // Box right edge at 149.5: half a point from the line's centre.
+    expect(placeLabels([request], { bounds: BOUNDS, lines: [run] }).unplaced).toEqual(['a']);
+    expect(placeLabels([request], { bounds: BOUNDS, lines: [run], lineClearance: 0 }).unplaced).toEqual([]);
+  });
+});

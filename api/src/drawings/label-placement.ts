@@ -13,6 +13,14 @@ export interface LabelRequest {
   preferred: readonly Point[];
   /** False: only the preferred spots are tried (for labels a leader would make ambiguous). Default true. */
   allowDisplacement?: boolean;
+  /** Ids of the `lines` this label may lie across (a run's label may touch its own run); others never. */
+  ownLines?: readonly string[];
+}
+
+/** A drawn polyline labels must not lie across (a cable run), with the id that owns it. */
+export interface LineObstacle {
+  id: string;
+  points: readonly Point[];
 }
 
 export interface PlacedLabel {
@@ -25,10 +33,18 @@ export interface PlacedLabel {
 export interface LabelPlacementOptions {
   /** Labels must lie wholly inside this box (the drawing frame). */
   bounds: Box;
-  /** Symbols: labels avoid covering them whenever any other spot is free (cost 30 per symbol covered). */
+  /** Symbols: labels avoid covering them whenever any other spot is free (cost 60 per symbol covered). */
   obstacles?: readonly Box[];
   /** Samples along lines (see `lineObstacles`): covering them costs a little (1.5 per sample). */
   softObstacles?: readonly Box[];
+  /**
+   * Lines no label may lie across unless it owns them (`LabelRequest.ownLines`): a candidate whose box
+   * any segment of another line crosses is never chosen, so a label with no spot clear of them within
+   * `maxRings` is left off (reported in `unplaced`, for the drawing to count).
+   */
+  lines?: readonly LineObstacle[];
+  /** Clear space kept between a label box and the centre of those lines (half a stroke and a little), pt. Default 1. */
+  lineClearance?: number;
   /** Minimum clear space between two label boxes, pt. */
   gap?: number;
   /** Distance between rings of displaced candidates, pt. */
@@ -90,14 +106,114 @@ class BoxGrid {
   }
 }
 
+/** Whether the segment a–b meets the box (Liang–Barsky clipping; touching the edge counts). */
+export function segmentIntersectsBox(a: Point, b: Point, box: Box): boolean {
+  const dx = b.x - a.x;
+  const dy = b.y - a.y;
+  let t0 = 0;
+  let t1 = 1;
+  const edges: [number, number][] = [
+    [-dx, a.x - box.x],
+    [dx, box.x + box.width - a.x],
+    [-dy, a.y - box.y],
+    [dy, box.y + box.height - a.y],
+  ];
+  for (const [p, q] of edges) {
+    if (p === 0) {
+      if (q < 0) return false;
+    } else {
+      const t = q / p;
+      if (p < 0) t0 = Math.max(t0, t);
+      else t1 = Math.min(t1, t);
+      if (t0 > t1) return false;
+    }
+  }
+  return true;
+}
+
+/** Whether segments p–q and a–b properly cross (sharing an end point does not count). */
+function segmentsCross(p: Point, q: Point, a: Point, b: Point): boolean {
+  const side = (o: Point, u: Point, v: Point) => (u.x - o.x) * (v.y - o.y) - (u.y - o.y) * (v.x - o.x);
+  const d1 = side(a, b, p);
+  const d2 = side(a, b, q);
+  const d3 = side(p, q, a);
+  const d4 = side(p, q, b);
+  return ((d1 > 0 && d2 < 0) || (d1 < 0 && d2 > 0)) && ((d3 > 0 && d4 < 0) || (d3 < 0 && d4 > 0));
+}
+
+/** The segments of owned lines in a uniform grid, for "does this box lie across a line it does not own". */
+class SegmentGrid {
+  private readonly cells = new Map<string, number[]>();
+  private readonly segments: { owner: string; a: Point; b: Point }[] = [];
+
+  constructor(private readonly cellSize: number) {}
+
+  add(owner: string, a: Point, b: Point): void {
+    const index = this.segments.length;
+    this.segments.push({ owner, a, b });
+    const x0 = Math.floor(Math.min(a.x, b.x) / this.cellSize);
+    const x1 = Math.floor(Math.max(a.x, b.x) / this.cellSize);
+    const y0 = Math.floor(Math.min(a.y, b.y) / this.cellSize);
+    const y1 = Math.floor(Math.max(a.y, b.y) / this.cellSize);
+    for (let i = x0; i <= x1; i += 1) {
+      for (let j = y0; j <= y1; j += 1) {
+        // Only the cells the segment passes through (a long diagonal would otherwise fill its whole bounding box).
+        const cell = { x: i * this.cellSize, y: j * this.cellSize, width: this.cellSize, height: this.cellSize };
+        if (!segmentIntersectsBox(a, b, cell)) continue;
+        const key = `${i},${j}`;
+        const list = this.cells.get(key);
+        if (list === undefined) this.cells.set(key, [index]);
+        else list.push(index);
+      }
+    }
+  }
+
+  /** How many lines not in `own` the segment p–q crosses (a leader line drawn over other runs). */
+  countCrossings(p: Point, q: Point, own: readonly string[]): number {
+    const box = { x: Math.min(p.x, q.x), y: Math.min(p.y, q.y), width: Math.abs(q.x - p.x), height: Math.abs(q.y - p.y) };
+    const crossed = new Set<string>();
+    const x0 = Math.floor(box.x / this.cellSize);
+    const x1 = Math.floor((box.x + box.width) / this.cellSize);
+    const y0 = Math.floor(box.y / this.cellSize);
+    const y1 = Math.floor((box.y + box.height) / this.cellSize);
+    for (let i = x0; i <= x1; i += 1) {
+      for (let j = y0; j <= y1; j += 1) {
+        for (const k of this.cells.get(`${i},${j}`) ?? []) {
+          const s = this.segments[k]!;
+          if (!own.includes(s.owner) && !crossed.has(s.owner) && segmentsCross(p, q, s.a, s.b)) crossed.add(s.owner);
+        }
+      }
+    }
+    return crossed.size;
+  }
+
+  /** True when a segment of a line not in `own` meets the box. */
+  crosses(box: Box, own: readonly string[]): boolean {
+    const x0 = Math.floor(box.x / this.cellSize);
+    const x1 = Math.floor((box.x + box.width) / this.cellSize);
+    const y0 = Math.floor(box.y / this.cellSize);
+    const y1 = Math.floor((box.y + box.height) / this.cellSize);
+    for (let i = x0; i <= x1; i += 1) {
+      for (let j = y0; j <= y1; j += 1) {
+        for (const k of this.cells.get(`${i},${j}`) ?? []) {
+          const s = this.segments[k]!;
+          if (!own.includes(s.owner) && segmentIntersectsBox(s.a, s.b, box)) return true;
+        }
+      }
+    }
+    return false;
+  }
+}
+
 /** Ring directions, degrees (y down): the four sides first, then the diagonals, then the rest. */
 const RING_ANGLES = [0, 180, 270, 90, 315, 225, 45, 135, 337.5, 202.5, 292.5, 247.5, 22.5, 157.5, 67.5, 112.5];
 
-const SYMBOL_COST = 30;
+const SYMBOL_COST = 60;
 const LINE_SAMPLE_COST = 1.5;
 const PREFERRED_STEP_COST = 0.3;
 const DISPLACED_BASE_COST = 8;
 const DISPLACED_RING_COST = 2;
+const LEADER_CROSSING_COST = 12;
 
 function boxAt(centre: Point, width: number, height: number): Box {
   return { x: centre.x - width / 2, y: centre.y - height / 2, width, height };
@@ -117,18 +233,25 @@ function nearestPointOnBox(box: Box, p: Point): Point {
  * - preferred spots (beside the symbol or the line) cost 0.3 per step down the preference list;
  * - displaced spots, on rings of growing radius around the anchor (16 directions per ring), cost
  *   8 + 2 per ring and get a leader line;
- * - covering a symbol adds 30, covering a line sample 1.5.
+ * - covering a symbol adds 60 (more than the farthest ring), covering a line sample 1.5;
+ * - a displaced spot whose leader would cross a line of `lines` the label does not own adds 12 per line;
+ * - a spot across a line of `lines` the label does not own is never taken.
  * Placed labels never overlap each other; a label with no free spot at all is reported in `unplaced`.
  */
 export function placeLabels(requests: readonly LabelRequest[], options: LabelPlacementOptions): LabelPlacementResult {
   const gap = options.gap ?? 1;
   const ringStep = options.ringStep ?? 6;
   const maxRings = options.maxRings ?? 14;
+  const lineClearance = options.lineClearance ?? 1;
   const labels = new BoxGrid(48);
   const symbols = new BoxGrid(48);
   const lines = new BoxGrid(24);
   for (const box of options.obstacles ?? []) symbols.add(box);
   for (const box of options.softObstacles ?? []) lines.add(box);
+  const hardLines = new SegmentGrid(24);
+  for (const line of options.lines ?? []) {
+    for (let i = 0; i + 1 < line.points.length; i += 1) hardLines.add(line.id, line.points[i]!, line.points[i + 1]!);
+  }
 
   // Ties are broken by where the label belongs before its id: a recorded job's ids are random uuids, and
   // ordering by them alone would move labels between two copies of the same job.
@@ -164,7 +287,13 @@ export function placeLabels(requests: readonly LabelRequest[], options: LabelPla
     for (const c of candidates) {
       if (best !== undefined && c.base >= best.cost) break;
       if (!boxContains(options.bounds, c.box) || labels.hits(c.box, gap)) continue;
-      const cost = c.base + symbols.count(c.box) * SYMBOL_COST + lines.count(c.box) * LINE_SAMPLE_COST;
+      const clear = { x: c.box.x - lineClearance, y: c.box.y - lineClearance, width: c.box.width + 2 * lineClearance, height: c.box.height + 2 * lineClearance };
+      if (hardLines.crosses(clear, request.ownLines ?? [])) continue;
+      let cost = c.base + symbols.count(c.box) * SYMBOL_COST + lines.count(c.box) * LINE_SAMPLE_COST;
+      if (c.isDisplaced) {
+        const end = nearestPointOnBox(c.box, request.anchor);
+        cost += hardLines.countCrossings(request.anchor, end, request.ownLines ?? []) * LEADER_CROSSING_COST;
+      }
       if (best === undefined || cost < best.cost) best = { box: c.box, cost, isDisplaced: c.isDisplaced };
     }
     if (best === undefined) {

@@ -1,4 +1,5 @@
 import { formatLength, type LengthSystem } from '../domain/format/length.js';
+import { mapItemLabel } from '../domain/locate/item-map-label.js';
 import type { SiteMap } from '../domain/locate/site-map.schema.js';
 import { lineLabelCandidates, lineObstacles, placeLabels, pointLabelCandidates, type LabelRequest } from './label-placement.js';
 import { FEATURE_FILL, FEATURE_LABEL, FEATURE_STROKE, INK, PAPER, REFERENCE_INK, RUN_STROKES, runStyleKey } from './marking-palette.js';
@@ -137,12 +138,17 @@ export function drawLocateSheetMap(map: SiteMap, options: LocateSheetMapOptions)
   const requests: Req[] = [];
   const bounds = { x: 2, y: 2, width: W - 4, height: H - 4 };
   const label = (id: string, text: string, size: number, priority: number, anchor: Point, preferred: (w: number, h: number) => Point[], style: Partial<Req> = {}) => {
-    const { width, height } = labelSize([text], size);
+    // Measured in the face it prints in (600 and 700 with the bold advances, which err wide).
+    const face = (style.weight ?? 400) >= 600 ? 'bold' : style.italic ? 'italic' : 'regular';
+    const { width, height } = labelSize([text], size, () => face);
     requests.push({ id, text, size, weight: 400, fill: INK, width, height, priority, anchor, preferred: preferred(width, height), ...style });
   };
   for (const run of runs) {
     const route = run.route!.map(at);
-    label(`run:${run.id}`, sheetRunLabel(run, units), RUN_FONT, run.isShallow ? 100 : 90, route[Math.floor(route.length / 2)]!, (w, h) => lineLabelCandidates(route, w, h), { weight: run.isShallow ? 700 : 600 });
+    label(`run:${run.id}`, sheetRunLabel(run, units), RUN_FONT, run.isShallow ? 100 : 90, route[Math.floor(route.length / 2)]!, (w, h) => lineLabelCandidates(route, w, h), {
+      weight: run.isShallow ? 700 : 600,
+      ownLines: [run.id],
+    });
   }
   for (const tie of ties) {
     const mid = { x: (tie.from.x + tie.to.x) / 2, y: (tie.from.y + tie.to.y) / 2 };
@@ -152,8 +158,7 @@ export function drawLocateSheetMap(map: SiteMap, options: LocateSheetMapOptions)
     label(`ref:${ref.id}`, ref.label, SMALL_FONT, 60, at(ref), (w, h) => pointLabelCandidates(at(ref), 6, w, h), { weight: 600, italic: true });
   }
   for (const item of located) {
-    const text = item.kind === 'wall_entry' ? `Wall entry: ${item.label}` : item.label;
-    label(`item:${item.id}`, text, SMALL_FONT, 50, at(item.position!), (w, h) => pointLabelCandidates(at(item.position!), 5, w, h));
+    label(`item:${item.id}`, mapItemLabel(item), SMALL_FONT, 50, at(item.position!), (w, h) => pointLabelCandidates(at(item.position!), 5, w, h));
   }
   for (const f of map.siteFeatures) {
     const centre = f.points.reduce((a, p) => ({ x: a.x + p.x / f.points.length, y: a.y + p.y / f.points.length }), { x: 0, y: 0 });
@@ -169,18 +174,31 @@ export function drawLocateSheetMap(map: SiteMap, options: LocateSheetMapOptions)
     ...located.map((i) => ({ x: at(i.position!).x - 5, y: at(i.position!).y - 5, width: 10, height: 10 })),
   ];
   const soft = runs.flatMap((r) => lineObstacles(r.route!.map(at)));
-  const placed = placeLabels(requests, { bounds, obstacles, softObstacles: soft, gap: 1.5 });
+  // No label lies across a run it does not name (only its own run's line may pass under it).
+  const lines = runs.map((r) => ({ id: r.id, points: r.route!.map(at) }));
+  const placed = placeLabels(requests, { bounds, obstacles, softObstacles: soft, lines, gap: 1.5, maxRings: 20 });
   const byId = new Map(requests.map((r) => [r.id, r]));
+  let leftOff = placed.unplaced.filter((id) => !id.startsWith('feature:')).length;
   out.push('<g data-layer="labels">');
   for (const p of placed.placed) {
     const r = byId.get(p.id)!;
-    if (reserved.some((b) => p.box.x < b.x + b.width && b.x < p.box.x + p.box.width && p.box.y < b.y + b.height && b.y < p.box.y + p.box.height)) continue;
+    if (reserved.some((b) => p.box.x < b.x + b.width && b.x < p.box.x + p.box.width && p.box.y < b.y + b.height && b.y < p.box.y + p.box.height)) {
+      if (!p.id.startsWith('feature:')) leftOff += 1;
+      continue;
+    }
     if (p.leader) out.push(`<line x1="${n(p.leader.from.x)}" y1="${n(p.leader.from.y)}" x2="${n(p.leader.to.x)}" y2="${n(p.leader.to.y)}" stroke="#333333" stroke-width="0.4"/>`);
     out.push(
-      `<text data-label="${esc(p.id)}" x="${n(p.box.x + 1)}" y="${n(p.box.y + 1 + r.size * 0.9)}" font-size="${r.size}" font-weight="${r.weight}"${r.italic ? ' font-style="italic"' : ''} fill="${r.fill}" stroke="${PAPER}" stroke-width="2" paint-order="stroke">${esc(r.text)}</text>`,
+      `<text data-label="${esc(p.id)}" data-box="${[p.box.x, p.box.y, p.box.width, p.box.height].map(n).join(' ')}" x="${n(p.box.x + 1)}" y="${n(p.box.y + 1 + r.size * 0.9)}" font-size="${r.size}" font-weight="${r.weight}"${r.italic ? ' font-style="italic"' : ''} fill="${r.fill}" stroke="${PAPER}" stroke-width="2" paint-order="stroke">${esc(r.text)}</text>`,
     );
   }
   out.push('</g>');
+  if (leftOff > 0) {
+    // Counted, never silently dropped (every run is also in the sheet's table of runs).
+    const note = `${leftOff} label${leftOff === 1 ? '' : 's'} left off: no spot clear of the other runs and labels.`;
+    out.push(
+      `<text data-role="labels-left-off" x="6" y="12" font-size="${SMALL_FONT}" font-style="italic" fill="${INK}" stroke="${PAPER}" stroke-width="2" paint-order="stroke">${esc(note)}</text>`,
+    );
+  }
 
   // Scale bar (bottom left) in the viewer's units, north arrow (top right).
   const bar = scaleBar(k, units, 120);

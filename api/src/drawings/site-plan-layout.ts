@@ -365,6 +365,7 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
         fontSize: RUN_LABEL_FONT_PT,
         ...size,
         priority: 80,
+        ownLines: [run.id],
         anchor: lineLabelAnchor(planRun.points),
         preferred: lineLabelCandidates(planRun.points, size.width, size.height),
       });
@@ -437,6 +438,9 @@ export function layoutSitePlan(asBuilt: AsBuilt, analysis: AsBuiltAnalysis, opti
     bounds: { x: frame.x + inset, y: frame.y + inset, width: frame.width - 2 * inset, height: frame.height - 2 * inset },
     obstacles,
     softObstacles,
+    // No label lies across a run it does not name (near a splice a run's label would otherwise sit on
+    // the next run, with only its halo between them).
+    lines: runs.map((run) => ({ id: run.runId, points: run.points })),
   });
   const requestById = new Map(requests.map((r) => [r.id, r]));
   const labels: PlanLabel[] = placement.placed.map((p) => {
