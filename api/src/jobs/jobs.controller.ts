@@ -54,7 +54,8 @@ export class JobsController {
     description:
       '`q` searches title, site label, address, city and customer name; `status` is one status, a comma-separated ' +
       'list or the parameter repeated; `sort` is updatedAt|title|status|startDate|site|customer, prefixed with - for descending (default -updatedAt); ' +
-      '`page` from 1; `pageSize` up to 100 (default 25); `mine=true` keeps jobs you lead or are assigned to.',
+      '`page` from 1 or `cursor` (the `nextCursor` of the page before, read in the same `sort`: steady while jobs are added or removed); ' +
+      '`pageSize` up to 100 (default 25); `mine=true` keeps jobs you lead or are assigned to.',
   })
   @ApiContract({ query: JobListQuerySchema, responses: { 200: JobListResponseSchema } })
   list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(JobListQuerySchema)) query: JobListQuery): Promise<JobListResponse> {

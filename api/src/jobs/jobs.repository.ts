@@ -3,6 +3,7 @@ import { and, asc, count, desc, eq, exists, ilike, inArray, isNull, ne, not, not
 import { alias, type AnyPgColumn } from 'drizzle-orm/pg-core';
 
 import { DB, type Db, type Tx } from '../db/db.module.js';
+import { afterSortedCursor } from '../db/keyset.js';
 import {
   companySettings,
   amplifierChannels,
@@ -38,6 +39,7 @@ import {
 } from '../db/schema/index.js';
 import type { DepthRuleTable } from '../domain/depth/depth-rules.schema.js';
 import type { JobListQuery, JobSortField } from '../domain/jobs/job.schema.js';
+import { cursorLimit, cursorPageOffset } from '../domain/paging/page.schema.js';
 import type { PacketSnapshot } from '../domain/packet/packet-snapshot.js';
 import type { JobRecordRows } from './as-built-rows.js';
 
@@ -90,6 +92,9 @@ export type JobView = {
   customer: { id: string; name: string };
   crewLeadName: string | null;
 };
+
+/** A row of the jobs list: the job's view, its id and its value of the list's sort column as text. */
+export type JobListRow = JobView & { id: string; sortKey: string | null };
 
 /** What the as-built read looks up before the record itself (see JobsRepository.findAsBuiltHead). */
 export interface AsBuiltHead {
@@ -154,8 +159,13 @@ export class JobsRepository {
 
   // ---- jobs -------------------------------------------------------------------------------------
 
-  /** One page of the company's jobs matching the query, and the total count of matches. */
-  async list(companyId: string, userId: string, query: JobListQuery): Promise<{ rows: JobView[]; total: number }> {
+  /**
+   * One page of the company's jobs matching the query (with one row more than the page, to tell whether
+   * another follows), and the total count of matches. Each row carries its id and its value of the sort
+   * column as PostgreSQL writes it as text (`sortKey`, null where it has none): a cursor keeps it whole,
+   * where a JavaScript Date would drop a timestamp's microseconds and skip or repeat rows.
+   */
+  async list(companyId: string, userId: string, query: JobListQuery): Promise<{ rows: JobListRow[]; total: number }> {
     const conditions: SQL[] = [eq(jobs.companyId, companyId)];
     if (query.q) {
       const pattern = likePattern(query.q);
@@ -188,16 +198,17 @@ export class JobsRepository {
     const column = SORT_COLUMNS[query.sort.replace(/^-/, '') as JobSortField];
     const [rows, [total]] = await Promise.all([
       this.db
-        .select(jobViewColumns)
+        .select({ ...jobViewColumns, id: jobs.id, sortKey: sql<string | null>`${column}::text` })
         .from(jobs)
         .innerJoin(sites, eq(sites.id, jobs.siteId))
         .innerJoin(customers, eq(customers.id, sites.customerId))
         .leftJoin(crewLead, eq(crewLead.id, jobs.crewLeadUserId))
-        .where(where)
-        // The id breaks ties so that paging is stable.
+        .where(and(where, afterSortedCursor(column, jobs.id, query.cursor, isDescending)))
+        // The id breaks ties so that paging is stable; NULLs (no start date) sit where PostgreSQL puts
+        // them by default (last ascending, first descending), which afterSortedCursor follows.
         .orderBy(isDescending ? desc(column) : asc(column), asc(jobs.id))
-        .limit(query.pageSize)
-        .offset((query.page - 1) * query.pageSize),
+        .limit(cursorLimit(query))
+        .offset(cursorPageOffset(query)),
       this.db
         .select({ n: count() })
         .from(jobs)

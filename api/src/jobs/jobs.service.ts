@@ -18,6 +18,7 @@ import type {
   UpdateJobInput,
 } from '../domain/jobs/job.schema.js';
 import type { FieldIssue } from '../domain/jobs/record-validation.js';
+import { sortedCursorPageOf } from '../domain/paging/page.schema.js';
 import { AsBuiltCache, type CachedAsBuilt, sha1, spliceAsBuiltAnswer } from './as-built-cache.js';
 import { depthReadingIdsByRun, toAsBuilt, toChannelSetups, toSiteRecords } from './as-built-rows.js';
 import { denied, invalid, jobNotFound, versionConflict } from './job-errors.js';
@@ -66,7 +67,7 @@ export class JobsService {
 
   async list(actor: AuthUser, query: JobListQuery): Promise<JobListResponse> {
     const { rows, total } = await this.repository.list(actor.companyId, actor.id, query);
-    return { items: rows.map(toJobSummary), total, page: query.page, pageSize: query.pageSize };
+    return sortedCursorPageOf(rows, total, query, (row) => row.sortKey, toJobSummary);
   }
 
   async get(actor: AuthUser, id: string): Promise<JobResponse> {

@@ -36,7 +36,7 @@ export function buildJobSummary(overrides: Partial<JobSummaryResponse> = {}): Jo
 }
 
 export function buildJobList(items: JobSummaryResponse[], overrides: Partial<JobListResponse> = {}): JobListResponse {
-  return { items, total: items.length, page: 1, pageSize: 25, ...overrides };
+  return { items, total: items.length, page: 1, pageSize: 25, nextCursor: null, ...overrides };
 }
 
 export function buildJob(overrides: Partial<JobResponse> = {}): JobResponse {

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import type { AsBuiltAnalysis } from '../analysis/analyze.js';
 import { type AsBuilt, AsBuiltSchema } from '../as-built/as-built.schema.js';
 import { AsBuiltAnalysisSchema } from '../analysis/analysis.schema.js';
-import { pageSchemaOf } from '../paging/page.schema.js';
+import { cursorPageSchemaOf, refineCursorPage, refineSortedCursor, sortedCursorPageShape } from '../paging/page.schema.js';
 import { IsoDateSchema } from '../as-built/common.schema.js';
 import { JOB_STATUSES, type JobStatus, REQUESTABLE_STATUSES } from './job-rules.js';
 import { ChannelSetupSchema } from './job-record.schema.js';
@@ -60,13 +60,16 @@ export type ChangeJobStatusInput = z.infer<typeof ChangeJobStatusSchema>;
 
 export const JOB_SORTS = ['updatedAt', 'title', 'status', 'startDate', 'site', 'customer'] as const;
 export type JobSortField = (typeof JOB_SORTS)[number];
+/** The sorts whose column may be empty (a job without a start date): their cursors may hold no key. */
+export const NULLABLE_JOB_SORTS: readonly JobSortField[] = ['startDate'];
 
 /**
  * `GET /api/jobs`: `q` searches title, site label/address/city and customer name; `status` takes one
  * status, a comma-separated list or the parameter repeated (`status=draft&status=in_progress`); `sort` is a field, `-field` for descending (default `-updatedAt`);
- * `page` is 1-based; `mine=true` keeps jobs the caller leads or is assigned to.
+ * `page` is 1-based, or `cursor` (the `nextCursor` of the page before, read in the same sort) instead;
+ * `mine=true` keeps jobs the caller leads or is assigned to.
  */
-export const JobListQuerySchema = z.object({
+const JobListQueryObjectSchema = z.object({
   q: z.string().trim().max(120).optional(),
   status: z
     .union([z.string(), z.array(z.string()).max(JOB_STATUSES.length * 2)])
@@ -84,13 +87,13 @@ export const JobListQuerySchema = z.object({
     .string()
     .regex(new RegExp(`^-?(${JOB_SORTS.join('|')})$`), { error: `must be one of ${JOB_SORTS.join(', ')} (prefix - for descending)` })
     .default('-updatedAt'),
-  page: z.coerce.number().int().min(1).max(100_000).default(1),
-  pageSize: z.coerce.number().int().min(1).max(100).default(25),
+  ...sortedCursorPageShape,
   mine: z
     .enum(['true', 'false'])
     .transform((v) => v === 'true')
     .optional(),
 });
+export const JobListQuerySchema = refineSortedCursor(refineCursorPage(JobListQueryObjectSchema), NULLABLE_JOB_SORTS);
 export type JobListQuery = z.infer<typeof JobListQuerySchema>;
 
 export const PersonRefSchema = z.object({ id: z.string(), name: z.string() });
@@ -111,7 +114,7 @@ export const JobSummaryResponseSchema = z.object({
 });
 export type JobSummaryResponse = z.infer<typeof JobSummaryResponseSchema>;
 
-export const JobListResponseSchema = pageSchemaOf(JobSummaryResponseSchema);
+export const JobListResponseSchema = cursorPageSchemaOf(JobSummaryResponseSchema);
 export type JobListResponse = z.infer<typeof JobListResponseSchema>;
 
 export const JobResponseSchema = JobSummaryResponseSchema.extend({

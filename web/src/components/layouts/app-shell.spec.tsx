@@ -15,7 +15,7 @@ describe('AppShell', () => {
     // The default user is a crew lead, who lands on Today (its jobs list); anything else gets the health answer.
     vi.spyOn(globalThis, 'fetch').mockImplementation((input) =>
       Promise.resolve(
-        jsonResponse(String(input).startsWith('/api/jobs?') ? { items: [], total: 0, page: 1, pageSize: 25 } : healthy),
+        jsonResponse(String(input).startsWith('/api/jobs?') ? { items: [], total: 0, page: 1, pageSize: 25, nextCursor: null } : healthy),
       ),
     );
   });

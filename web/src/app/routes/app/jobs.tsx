@@ -12,7 +12,8 @@ import { getJobsQueryOptions, JOBS_PAGE_SIZE, useJobs, type JobListParams } from
 import { CreateJobDialog } from '../../../features/jobs/components/create-job-dialog';
 import { JobsFilters } from '../../../features/jobs/components/jobs-filters';
 import { JobsTable } from '../../../features/jobs/components/jobs-table';
-import { jobListAddressSearch, parseJobListParams } from '../../../features/jobs/utils/job-list-params';
+import { useJobPageCursors } from '../../../features/jobs/hooks/use-job-page-cursors';
+import { changeJobListParams, jobListAddressSearch, parseJobListParams } from '../../../features/jobs/utils/job-list-params';
 import { useSessionUser } from '../../../lib/session';
 import { useMediaQuery } from '../../../lib/use-media-query';
 
@@ -33,6 +34,7 @@ export default function JobsRoute() {
   const role = user?.role ?? 'tech';
   const params = parseJobListParams(searchParams, role);
   const jobs = useJobs(params);
+  const cursorFor = useJobPageCursors(params, jobs.data);
   const paramsKey = searchParams.toString();
   // The address changes in a transition, so a second change right after the first (a filter, then
   // "Next") must build on the first one's result, not on what is still on screen.
@@ -44,7 +46,7 @@ export default function JobsRoute() {
   const update = useCallback(
     (changes: Partial<JobListParams>) => {
       const base = new URLSearchParams(pendingSearch.current ?? paramsKey);
-      const search = jobListAddressSearch({ ...parseJobListParams(base, role), ...changes }, role);
+      const search = jobListAddressSearch(changeJobListParams(parseJobListParams(base, role), changes), role);
       pendingSearch.current = search;
       setSearchParams(new URLSearchParams(search));
     },
@@ -88,7 +90,7 @@ export default function JobsRoute() {
             pageSize={JOBS_PAGE_SIZE}
             total={jobs.data.total}
             noun="jobs"
-            onPageChange={(page) => update({ page })}
+            onPageChange={(page) => update({ page, cursor: cursorFor(page) })}
           />
         </>
       ) : (

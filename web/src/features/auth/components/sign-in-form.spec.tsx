@@ -90,8 +90,8 @@ describe('SignInForm', () => {
       'GET /api/signup/status': () => jsonResponse(signupStatus),
       'GET /api/outbox/status': () => jsonResponse({ captured: true, destination: null }),
       // The office lands on the work queue (app/routes/app/home.tsx).
-      'GET /api/jobs?status=submitted&sort=updatedAt&page=1&pageSize=25': () => jsonResponse({ items: [], total: 0, page: 1, pageSize: 25 }),
-      'GET /api/jobs?status=ready_to_issue&sort=updatedAt&page=1&pageSize=25': () => jsonResponse({ items: [], total: 0, page: 1, pageSize: 25 }),
+      'GET /api/jobs?status=submitted&sort=updatedAt&page=1&pageSize=25': () => jsonResponse({ items: [], total: 0, page: 1, pageSize: 25, nextCursor: null }),
+      'GET /api/jobs?status=ready_to_issue&sort=updatedAt&page=1&pageSize=25': () => jsonResponse({ items: [], total: 0, page: 1, pageSize: 25, nextCursor: null }),
       'GET /api/deliveries/failed': () => jsonResponse([]),
     });
     const { user, router } = renderApp({ url: '/sign-in?next=%2F%2Fevil.example%2F', signedInAs: null });

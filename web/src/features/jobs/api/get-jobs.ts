@@ -17,16 +17,23 @@ export type JobListParams = {
   /** A field, `-field` for descending. */
   sort: string;
   page: number;
+  /**
+   * The `nextCursor` of the page before `page`, read with the same filters and sort: the page then starts
+   * right after the last job seen, so jobs added or removed meanwhile neither repeat nor go missing.
+   * Without it, the page is counted by number.
+   */
+  cursor?: string | undefined;
   mine: boolean;
 };
 
-/** The API's query string for `params` (empty values left out, stable order). */
+/** The API's query string for `params` (empty values left out, stable order): the cursor, or else the page. */
 export function jobListSearch(params: JobListParams): string {
   const search = new URLSearchParams();
   if (params.q.trim() !== '') search.set('q', params.q.trim());
   if (params.status.length > 0) search.set('status', params.status.join(','));
   search.set('sort', params.sort);
-  search.set('page', String(params.page));
+  if (params.cursor) search.set('cursor', params.cursor);
+  else search.set('page', String(params.page));
   search.set('pageSize', String(JOBS_PAGE_SIZE));
   if (params.mine) search.set('mine', 'true');
   return search.toString();

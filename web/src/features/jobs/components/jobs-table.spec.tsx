@@ -47,6 +47,39 @@ describe('JobsTable', () => {
     expect(router.state.location.search).toContain('mine=false');
   }, 30_000);
 
+  it('should walk pages by cursor: Next sends the page’s nextCursor, Previous the cursor it came by, and a new sort starts again', async () => {
+    const first = buildJobList([buildJobSummary()], { total: 60, nextCursor: 'c2' });
+    const second = buildJobList([buildJobSummary({ id: '7d1e2f30-1111-4a4a-9b9b-0000000000f2', title: 'Spa lights' })], { total: 60, page: 2, nextCursor: 'c3' });
+    const third = buildJobList([buildJobSummary({ id: '7d1e2f30-1111-4a4a-9b9b-0000000000f3', title: 'Pond pump' })], { total: 60, page: 3, nextCursor: null });
+    const fetchMock = mockApi({
+      'GET /api/jobs?sort=-updatedAt&page=1&pageSize=25': () => jsonResponse(first),
+      'GET /api/jobs?sort=-updatedAt&cursor=c2&pageSize=25': () => jsonResponse(second),
+      'GET /api/jobs?sort=-updatedAt&cursor=c3&pageSize=25': () => jsonResponse(third),
+      'GET /api/jobs?sort=title&page=1&pageSize=25': () => jsonResponse(first),
+    });
+    const { user, router } = renderApp({ url: '/jobs', signedInAs: buildSessionUser('office') });
+    await screen.findByRole('grid', { name: 'Jobs' });
+
+    await user.click(screen.getByRole('button', { name: 'Next' }));
+    expect(await screen.findByRole('link', { name: 'Spa lights' })).toBeInTheDocument();
+    expect(router.state.location.search).toBe('?page=2&cursor=c2');
+    await user.click(screen.getByRole('button', { name: 'Next' }));
+    expect(await screen.findByRole('link', { name: 'Pond pump' })).toBeInTheDocument();
+    expect(screen.getByText('51–60 of 60 jobs')).toBeInTheDocument();
+    expect(router.state.location.search).toBe('?page=3&cursor=c3');
+
+    await user.click(screen.getByRole('button', { name: 'Previous' }));
+    expect(await screen.findByRole('link', { name: 'Spa lights' })).toBeInTheDocument();
+    expect(router.state.location.search).toBe('?page=2&cursor=c2');
+    // Every page after the first was asked for by cursor, never by its number.
+    expect(fetchMock.mock.calls.map(([input]) => String(input)).filter((url) => /[?&]page=[2-9]/.test(url))).toEqual([]);
+
+    // A cursor belongs to its sort: choosing another starts again at page 1, without one.
+    await user.click(within(screen.getByRole('grid', { name: 'Jobs' })).getByText('Job'));
+    await waitForRequest(fetchMock, 'sort=title&page=1');
+    expect(router.state.location.search).toBe('?sort=title');
+  }, 30_000);
+
   it('should sort on the server when a column header is chosen', async () => {
     const fetchMock = mockApi({
       'GET /api/jobs?sort=-updatedAt&page=1&pageSize=25': () => jsonResponse(page1),
