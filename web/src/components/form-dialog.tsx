@@ -20,7 +20,7 @@ import {
 } from '@fluentui/react-components';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { createContext, useContext, useLayoutEffect, useRef, useState, type ChangeEvent, type ReactElement, type ReactNode } from 'react';
-import { Controller, useForm, type DefaultValues, type FieldValues, type Path, type PathValue, type UseFormReturn } from 'react-hook-form';
+import { Controller, get, useForm, type DefaultValues, type FieldValues, type Path, type PathValue, type UseFormReturn } from 'react-hook-form';
 import type { z } from 'zod';
 
 import { fieldErrorsFromApi, toSentence } from '../lib/form-errors';
@@ -181,8 +181,9 @@ export function FormDialog<TValues extends FieldValues, TOutput>({
   });
 
   const fieldError = (name: Path<TValues>): string | undefined => {
-    const error = form.formState.errors[name];
-    const text = typeof error?.message === 'string' ? error.message : undefined;
+    // A nested field (`findings.1.reason`) has its error nested the same way.
+    const error: unknown = get(form.formState.errors, name);
+    const text = error && typeof error === 'object' && 'message' in error && typeof error.message === 'string' ? error.message : undefined;
     return text ? toSentence(text) : undefined;
   };
 

@@ -35,17 +35,17 @@ export const FindingAcknowledgementSchema = z
   .strict();
 export type FindingAcknowledgementInput = z.infer<typeof FindingAcknowledgementSchema>;
 
+/** The body of `POST /api/jobs/:jobId/packets` when one is sent (the web's issue dialog builds it). */
+export const IssuePacketBodySchema = z
+  .object({
+    acknowledgements: z.array(FindingAcknowledgementSchema).max(MAX_ACKNOWLEDGEMENTS, `must hold at most ${MAX_ACKNOWLEDGEMENTS} entries`).optional(),
+    /** The job version, when not sent as If-Match. */
+    expectedVersion: z.number().int().min(1).optional(),
+  })
+  .strict();
+
 /** The body of `POST /api/jobs/:jobId/packets` (optional: a job without open must-fix findings needs none). */
-export const IssuePacketInputSchema = z.preprocess(
-  (v) => (v === undefined || v === null ? {} : v),
-  z
-    .object({
-      acknowledgements: z.array(FindingAcknowledgementSchema).max(MAX_ACKNOWLEDGEMENTS, `must hold at most ${MAX_ACKNOWLEDGEMENTS} entries`).optional(),
-      /** The job version, when not sent as If-Match. */
-      expectedVersion: z.number().int().min(1).optional(),
-    })
-    .strict(),
-);
+export const IssuePacketInputSchema = z.preprocess((v) => (v === undefined || v === null ? {} : v), IssuePacketBodySchema);
 export type IssuePacketInput = z.infer<typeof IssuePacketInputSchema>;
 
 /** An acknowledgement as frozen into the revision's snapshot. */

@@ -103,4 +103,36 @@ describe('IssuePacketDialog', () => {
     await user.click(dialog.getByRole('button', { name: 'Close', hidden: true }));
     await expect.poll(() => screen.queryByText('Revision 1 issued')).toBeNull();
   }, 60_000);
+
+  it('should put the API’s refusal of one acknowledgement under that finding’s reason, and keep the dialog open', async () => {
+    mockApi({
+      [`POST /api/jobs/${JOB_ID}/packets`]: () =>
+        apiErrorResponse(400, {
+          message: 'acknowledgements.1: DEPTH_SHALLOW at "runs.3.depthReadings.1" is not an open finding of this job',
+          code: 'VALIDATION_FAILED',
+          issues: [{ path: 'acknowledgements.1', message: 'DEPTH_SHALLOW at "runs.3.depthReadings.1" is not an open finding of this job' }],
+        }),
+    });
+    renderDialog([MUST_FIX_A, CHECK]);
+    const user = userEvent.setup();
+    await user.click(screen.getByRole('button', { name: 'Issue packet' }));
+    const dialog = await openDialog('Issue the handover packet?');
+    const required = dialog.getByRole('textbox', { name: /Reason \(required\)/, hidden: true });
+    const optional = dialog.getByRole('textbox', { name: /Reason \(optional/, hidden: true });
+    await user.type(required, 'Kept; limit set.');
+    await user.type(optional, 'Rock; sleeved.');
+    await user.click(dialog.getByRole('button', { name: 'Issue revision', hidden: true }));
+
+    // The second acknowledgement sent is the check's: its reason field carries the refusal.
+    const refusal = 'DEPTH_SHALLOW at "runs.3.depthReadings.1" is not an open finding of this job.';
+    expect(await dialog.findByText(refusal)).toBeInTheDocument();
+    expect(optional).toHaveAccessibleDescription(refusal);
+    expect(required).not.toHaveAccessibleDescription(refusal);
+    expect(dialog.getByText('Issue the handover packet?')).toBeInTheDocument();
+
+    // Clearing the must-fix reason after a refusal holds the issue again and says why under it.
+    await user.clear(required);
+    expect(await dialog.findByText('Give a reason of at least 3 characters.')).toBeInTheDocument();
+    expect(dialog.getByRole('button', { name: 'Give 1 reason to issue', hidden: true })).toBeDisabled();
+  }, 60_000);
 });

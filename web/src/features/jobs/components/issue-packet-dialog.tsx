@@ -1,43 +1,51 @@
-import {
-  Button,
-  Dialog,
-  DialogActions,
-  DialogBody,
-  DialogContent,
-  DialogSurface,
-  DialogTitle,
-  DialogTrigger,
-  Field,
-  makeStyles,
-  MessageBar,
-  MessageBarBody,
-  Spinner,
-  Text,
-  Textarea,
-  tokens,
-} from '@fluentui/react-components';
+import { Button, Field, makeStyles, MessageBar, MessageBarBody, Text, Textarea, tokens } from '@fluentui/react-components';
 import { DocumentArrowUp20Regular } from '@fluentui/react-icons';
+import { useState } from 'react';
+import { Controller } from 'react-hook-form';
+import { z } from 'zod';
 import type { Finding } from '@domain/analysis/finding';
 import { FINDING_SEVERITY_LABELS, findingText } from '@domain/analysis/finding';
-import { useState } from 'react';
+import { findingKey, IssuePacketBodySchema, MAX_ACKNOWLEDGEMENT_REASON_CHARS } from '@domain/packet/known-exceptions';
 
+import { FormDialog } from '../../../components/form-dialog';
+import { isApiError } from '../../../lib/api-client';
 import { describeRequestError } from '../../../lib/form-errors';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
-import { type FindingAcknowledgement, type IssuePacketResponse, useIssuePacket } from '../api/issue-packet';
+import { type IssuePacketResponse, useIssuePacket } from '../api/issue-packet';
 
-/** As the API: at least 3 characters, at most 300. */
+/** As the API (FindingAcknowledgementSchema): a reason of at least 3 characters once trimmed. */
 const MIN_REASON = 3;
-const MAX_REASON = 300;
+const REASON_NEEDED = 'Give a reason of at least 3 characters.';
 
 const useStyles = makeStyles({
   surface: { maxWidth: 'min(640px, calc(100vw - 24px))' },
-  content: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
   list: { listStyle: 'none', margin: 0, padding: 0, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
   finding: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXS, overflowWrap: 'anywhere' },
   severity: { fontWeight: tokens.fontWeightSemibold },
   action: { minHeight: '44px' },
-  failed: { color: tokens.colorPaletteRedForeground1 },
 });
+
+const hasReason = (reason: string) => reason.trim().length >= MIN_REASON;
+
+/**
+ * One entry per open finding group as the form holds it; the request carries the entries with a reason
+ * (every must-fix one needs it), as the shared IssuePacketBodySchema has them.
+ */
+const IssuePacketFormSchema = z
+  .object({
+    findings: z.array(
+      z
+        .object({ key: z.string(), code: z.string(), path: z.string(), isMustFix: z.boolean(), reason: z.string() })
+        .refine((entry) => !entry.isMustFix || hasReason(entry.reason), { error: REASON_NEEDED, path: ['reason'] }),
+    ),
+  })
+  .transform(({ findings }): z.input<typeof IssuePacketBodySchema> => ({
+    acknowledgements: findings.filter((entry) => hasReason(entry.reason)).map(({ code, path, reason }) => ({ code, path, reason: reason.trim() })),
+  }))
+  .pipe(IssuePacketBodySchema);
+type IssuePacketForm = z.input<typeof IssuePacketFormSchema>;
+
+const missingReasons = (values: IssuePacketForm) => values.findings.filter((entry) => entry.isMustFix && !hasReason(entry.reason)).length;
 
 type IssuePacketDialogProps = {
   jobId: string;
@@ -45,8 +53,6 @@ type IssuePacketDialogProps = {
   /** The job's findings as the workspace shows them (notes are not asked about). */
   findings: readonly Finding[];
 };
-
-const keyOf = (f: Finding) => `${f.code}@${f.path.join('.')}`;
 
 /**
  * "Issue packet" with a confirmation step: the open findings are shown; each must-fix finding needs a
@@ -56,132 +62,125 @@ const keyOf = (f: Finding) => `${f.code}@${f.path.join('.')}`;
 export function IssuePacketDialog({ jobId, jobVersion, findings }: IssuePacketDialogProps) {
   const styles = useStyles();
   const [units] = useUnitPreferences();
-  const [open, setOpen] = useState(false);
   const issue = useIssuePacket(jobId);
-  const [reasons, setReasons] = useState<Record<string, string>>({});
   const [issued, setIssued] = useState<IssuePacketResponse | undefined>();
 
   // One entry per code and path: findings that share them (two channels of one amplifier) are acknowledged together.
-  const open_ = new Map<string, Finding[]>();
-  for (const f of findings) if (f.severity !== 'info') open_.set(keyOf(f), [...(open_.get(keyOf(f)) ?? []), f]);
-  const groups = [...open_.entries()].map(([key, list]) => ({
+  const groups = new Map<string, Finding[]>();
+  for (const f of findings) if (f.severity !== 'info') groups.set(findingKey(f), [...(groups.get(findingKey(f)) ?? []), f]);
+  const entries = [...groups.entries()].map(([key, list]) => ({
     key,
-    findings: list,
+    code: list[0]!.code,
+    path: list[0]!.path.join('.'),
     isMustFix: list.some((f) => f.severity === 'critical'),
+    reason: '',
   }));
-  groups.sort((a, b) => Number(b.isMustFix) - Number(a.isMustFix));
-  const reasonOf = (key: string) => (reasons[key] ?? '').trim();
-  const missing = groups.filter((g) => g.isMustFix && reasonOf(g.key).length < MIN_REASON);
-
-  const submit = async () => {
-    const acknowledgements: FindingAcknowledgement[] = groups
-      .filter((g) => reasonOf(g.key).length >= MIN_REASON)
-      .map((g) => ({ code: g.findings[0]!.code, path: g.findings[0]!.path.join('.'), reason: reasonOf(g.key) }));
-    try {
-      const result = await issue.mutateAsync({ version: jobVersion, acknowledgements });
-      if ((result.warnings?.length ?? 0) > 0) setIssued(result);
-      else setOpen(false);
-    } catch {
-      // Shown below from issue.error.
-    }
-  };
+  entries.sort((a, b) => Number(b.isMustFix) - Number(a.isMustFix));
 
   return (
-    <Dialog
-      open={open}
-      onOpenChange={(_event, data) => {
-        setOpen(data.open);
-        if (data.open) {
+    <FormDialog
+      trigger={
+        <Button appearance="primary" className={styles.action} icon={<DocumentArrowUp20Regular />}>
+          Issue packet
+        </Button>
+      }
+      title="Issue the handover packet?"
+      schema={IssuePacketFormSchema}
+      defaultValues={{ findings: entries }}
+      isPending={issue.isPending}
+      submitLabel={(values) => {
+        const missing = missingReasons(values);
+        return missing > 0 ? `Give ${missing} reason${missing === 1 ? '' : 's'} to issue` : 'Issue revision';
+      }}
+      isSubmitDisabled={(values) => missingReasons(values) > 0}
+      surfaceClassName={styles.surface}
+      onOpenChange={(open) => {
+        if (open) {
           setIssued(undefined);
           issue.reset();
         }
       }}
+      view={
+        issued && {
+          title: `Revision ${issued.revision} issued`,
+          content: (
+            <>
+              <Text>The PDF is rendering now; follow it under “Handover packet”.</Text>
+              {issued.warnings?.map((warning) => (
+                <MessageBar key={warning.code} intent="warning" layout="multiline">
+                  <MessageBarBody>{warning.message}</MessageBarBody>
+                </MessageBar>
+              ))}
+            </>
+          ),
+        }
+      }
+      onSubmit={async ({ acknowledgements }, { close, showMessage, form }) => {
+        try {
+          const result = await issue.mutateAsync({ version: jobVersion, acknowledgements });
+          if ((result.warnings?.length ?? 0) > 0) setIssued(result);
+          else close();
+        } catch (error) {
+          // A refused acknowledgement is named by its place in the request (`acknowledgements.1`): put it under its reason.
+          const sentAt = form.getValues('findings').flatMap((entry, at) => (hasReason(entry.reason) ? [at] : []));
+          for (const problem of isApiError(error) ? error.issues : []) {
+            const index = /^acknowledgements\.(\d+)/.exec(problem.path)?.[1];
+            const at = index === undefined ? undefined : sentAt[Number(index)];
+            if (at !== undefined) form.setError(`findings.${at}.reason`, { message: problem.message });
+          }
+          showMessage(describeRequestError(error));
+        }
+      }}
     >
-      <DialogTrigger disableButtonEnhancement>
-        <Button appearance="primary" className={styles.action} icon={<DocumentArrowUp20Regular />}>
-          Issue packet
-        </Button>
-      </DialogTrigger>
-      <DialogSurface className={styles.surface}>
-        <DialogBody>
-          <DialogTitle>{issued ? `Revision ${issued.revision} issued` : 'Issue the handover packet?'}</DialogTitle>
-          <DialogContent className={styles.content}>
-            {issued ? (
-              <>
-                <Text>The PDF is rendering now; follow it under “Handover packet”.</Text>
-                {issued.warnings?.map((warning) => (
-                  <MessageBar key={warning.code} intent="warning" layout="multiline">
-                    <MessageBarBody>{warning.message}</MessageBarBody>
-                  </MessageBar>
-                ))}
-              </>
+      {(form, fieldError) => {
+        const values = form.watch('findings');
+        return (
+          <>
+            <Text>Issuing freezes the job as recorded into the next revision and marks the job issued. Later changes need a new revision.</Text>
+            {values.length === 0 ? (
+              <Text>There are no open findings.</Text>
             ) : (
               <>
                 <Text>
-                  Issuing freezes the job as recorded into the next revision and marks the job issued. Later changes need a new revision.
+                  Give a short reason for each finding marked “{FINDING_SEVERITY_LABELS.critical}”. Each finding with a reason is listed in the
+                  packet as a known exception, in plain words for the homeowner.
                 </Text>
-                {groups.length === 0 ? (
-                  <Text>There are no open findings.</Text>
-                ) : (
-                  <>
-                    <Text>
-                      Give a short reason for each finding marked “{FINDING_SEVERITY_LABELS.critical}”. Each finding with a reason is listed in
-                      the packet as a known exception, in plain words for the homeowner.
-                    </Text>
-                    <ul className={styles.list} aria-label="Open findings">
-                      {groups.map((g) => (
-                        <li key={g.key} className={styles.finding}>
-                          <Text className={styles.severity}>{FINDING_SEVERITY_LABELS[g.isMustFix ? 'critical' : 'warning']}</Text>
-                          {g.findings.map((f, i) => (
-                            <Text key={i}>{findingText(f, units.length)}</Text>
-                          ))}
+                <ul className={styles.list} aria-label="Open findings">
+                  {values.map((entry, index) => (
+                    <li key={entry.key} className={styles.finding}>
+                      <Text className={styles.severity}>{FINDING_SEVERITY_LABELS[entry.isMustFix ? 'critical' : 'warning']}</Text>
+                      {(groups.get(entry.key) ?? []).map((f, i) => (
+                        <Text key={i}>{findingText(f, units.length)}</Text>
+                      ))}
+                      <Controller
+                        control={form.control}
+                        name={`findings.${index}.reason`}
+                        render={({ field }) => (
                           <Field
-                            label={g.isMustFix ? 'Reason (required)' : 'Reason (optional: lists it in the packet)'}
-                            required={g.isMustFix}
-                            validationMessage={
-                              g.isMustFix && issue.isError && reasonOf(g.key).length < MIN_REASON ? 'Give a reason of at least 3 characters.' : undefined
-                            }
+                            label={entry.isMustFix ? 'Reason (required)' : 'Reason (optional: lists it in the packet)'}
+                            required={entry.isMustFix}
+                            validationMessage={fieldError(`findings.${index}.reason`)}
                           >
                             <Textarea
-                              value={reasons[g.key] ?? ''}
-                              maxLength={MAX_REASON}
+                              ref={field.ref}
+                              name={field.name}
+                              value={field.value}
+                              maxLength={MAX_ACKNOWLEDGEMENT_REASON_CHARS}
                               resize="vertical"
-                              onChange={(_event, data) => setReasons((current) => ({ ...current, [g.key]: data.value }))}
+                              onChange={(_event, data) => field.onChange(data.value)}
+                              onBlur={field.onBlur}
                             />
                           </Field>
-                        </li>
-                      ))}
-                    </ul>
-                  </>
-                )}
-                {issue.isError && <Text className={styles.failed}>{describeRequestError(issue.error)}</Text>}
+                        )}
+                      />
+                    </li>
+                  ))}
+                </ul>
               </>
             )}
-          </DialogContent>
-          <DialogActions>
-            {issued ? (
-              <Button appearance="primary" className={styles.action} onClick={() => setOpen(false)}>
-                Close
-              </Button>
-            ) : (
-              <>
-                <DialogTrigger disableButtonEnhancement>
-                  <Button className={styles.action}>Cancel</Button>
-                </DialogTrigger>
-                <Button
-                  appearance="primary"
-                  className={styles.action}
-                  disabled={issue.isPending || missing.length > 0}
-                  icon={issue.isPending ? <Spinner size="tiny" /> : undefined}
-                  onClick={() => void submit()}
-                >
-                  {missing.length > 0 ? `Give ${missing.length} reason${missing.length === 1 ? '' : 's'} to issue` : 'Issue revision'}
-                </Button>
-              </>
-            )}
-          </DialogActions>
-        </DialogBody>
-      </DialogSurface>
-    </Dialog>
+          </>
+        );
+      }}
+    </FormDialog>
   );
 }
