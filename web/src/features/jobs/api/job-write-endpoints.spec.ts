@@ -35,6 +35,7 @@ const CALLS: Record<JobWriteEndpoint, JobWriteCall> = {
   deleteCheck: { endpoint: 'deleteCheck', params: { checkId: 'k1' } },
   saveSignature: { endpoint: 'saveSignature', params: { role: 'lead' }, body: { signerName: 'Ola Brenner', svgPath: 'M 1 1 L 2 2' } },
   clearSignature: { endpoint: 'clearSignature', params: { role: 'homeowner' } },
+  createReferencePoint: { endpoint: 'createReferencePoint', params: { siteId: 's1' }, body: { label: 'Gate post', x: 1, y: 2 } },
 };
 
 describe('job write endpoints (issues 17 and 20)', () => {
@@ -47,10 +48,14 @@ describe('job write endpoints (issues 17 and 20)', () => {
     expect(routeOf(CALLS.undoSiteChange)).toEqual({ method: 'DELETE', path: '/site-changes/r1' });
     expect(routeOf(CALLS.saveSignature)).toEqual({ method: 'PUT', path: '/signatures/lead' });
     expect(routeOf({ endpoint: 'deleteRun', params: { runId: 'a/b?c' } }).path, 'a parameter cannot reach another route').toBe('/runs/a%2Fb%3Fc');
+    // A reference point added from the job goes to the job's site, on the site's version (issue 17).
+    expect(routeOf(CALLS.createReferencePoint)).toEqual({ method: 'POST', path: '/reference-points', siteId: 's1' });
+    expect(Object.values(CALLS).filter((call) => routeOf(call).siteId !== undefined).map((call) => call.endpoint)).toEqual(['createReferencePoint']);
   });
 
   it('should read back every write an earlier app kept as a path, and nothing else', () => {
-    for (const call of Object.values(CALLS)) {
+    // Site writes were never queued as paths (they joined the queue by name), so none is read back.
+    for (const call of Object.values(CALLS).filter((candidate) => routeOf(candidate).siteId === undefined)) {
       const { method, path } = routeOf(call);
       expect(callFromLegacyPath(method, path, call.body), `${method} ${path}`).toEqual(call.body === undefined ? { endpoint: call.endpoint, params: call.params } : call);
     }
@@ -61,7 +66,7 @@ describe('job write endpoints (issues 17 and 20)', () => {
 
   it('should treat only writes that add a record as safe to send on a newer version', () => {
     const additive = (Object.keys(CALLS) as JobWriteEndpoint[]).filter(isAdditiveEndpoint).sort();
-    expect(additive).toEqual(['addDepthReading', 'createCheck', 'createItem', 'createRun', 'createZone']);
+    expect(additive).toEqual(['addDepthReading', 'createCheck', 'createItem', 'createReferencePoint', 'createRun', 'createZone']);
   });
 });
 
@@ -75,5 +80,9 @@ describe('JOB_WRITE_RESPONSES', () => {
     expect(JOB_WRITE_RESPONSES.updateJob.safeParse({ version: 5 }).success).toBe(false);
     expect(JOB_WRITE_RESPONSES.updateJob.safeParse({ ...buildJob(), version: 5 }).success).toBe(true);
     expect(JOB_WRITE_RESPONSES.deleteZone.safeParse({}).success).toBe(false);
+    // A reference point answers the point with the site's version and the jobs it bumped.
+    const point = { id: 'p1', label: 'Gate post', x: 1, y: 2, notes: null };
+    expect(JOB_WRITE_RESPONSES.createReferencePoint.safeParse({ ...point, siteVersion: 4, jobVersions: { j1: 6 } }).success).toBe(true);
+    expect(JOB_WRITE_RESPONSES.createReferencePoint.safeParse(point).success).toBe(false);
   });
 });

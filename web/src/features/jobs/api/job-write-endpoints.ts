@@ -11,6 +11,7 @@ import {
 } from '@domain/jobs/job-record.schema';
 import { type ChangeJobStatusInput, JobResponseSchema, JobVersionResponseSchema, type UpdateJobInput } from '@domain/jobs/job.schema';
 import { type SignatureInput, type SignatureRole, SignatureWriteResponseSchema } from '@domain/packet/signature.schema';
+import { type CreateReferencePointInput, ReferencePointResponseSchema, SiteVersionResponseSchema } from '@domain/sites/site.schema';
 import type { z } from 'zod';
 
 /*
@@ -49,6 +50,11 @@ export type JobWriteEndpoints = {
   deleteCheck: { params: { checkId: string }; body?: undefined };
   saveSignature: { params: { role: SignatureRole }; body: SignatureInput };
   clearSignature: { params: { role: SignatureRole }; body?: undefined };
+  /**
+   * A reference point added to the job's site from the job (its plan): a site write, sent on the
+   * site's version, queued with the job's writes so a tie made offline to the new point goes after it.
+   */
+  createReferencePoint: { params: { siteId: string }; body: CreateReferencePointInput };
 };
 
 export type JobWriteEndpoint = keyof JobWriteEndpoints;
@@ -64,14 +70,24 @@ export type JobWriteCallOf<E extends JobWriteEndpoint> = Extract<JobWriteCall, {
  * Endpoints that add a record without replacing anyone's: such a write may be sent again on top of
  * whatever version the job has reached (the server still checks the record itself).
  */
-const ADDITIVE: ReadonlySet<JobWriteEndpoint> = new Set<JobWriteEndpoint>(['createZone', 'createItem', 'createRun', 'addDepthReading', 'createCheck']);
+const ADDITIVE: ReadonlySet<JobWriteEndpoint> = new Set<JobWriteEndpoint>([
+  'createZone',
+  'createItem',
+  'createRun',
+  'addDepthReading',
+  'createCheck',
+  'createReferencePoint',
+]);
 
 export function isAdditiveEndpoint(endpoint: JobWriteEndpoint): boolean {
   return ADDITIVE.has(endpoint);
 }
 
-/** HTTP method and path below `/api/jobs/:jobId` of one call. */
-export type JobWriteRoute = { method: 'POST' | 'PUT' | 'PATCH' | 'DELETE'; path: string };
+/**
+ * HTTP method and path below `/api/jobs/:jobId` of one call; with `siteId`, a write to the job's site
+ * instead: the path is below `/api/sites/:siteId` and `If-Match` names the site's version.
+ */
+export type JobWriteRoute = { method: 'POST' | 'PUT' | 'PATCH' | 'DELETE'; path: string; siteId?: string };
 
 const id = (value: string) => encodeURIComponent(value);
 
@@ -98,6 +114,7 @@ export const JOB_WRITE_ROUTES: { [E in JobWriteEndpoint]: (params: JobWriteEndpo
   deleteCheck: ({ checkId }) => ({ method: 'DELETE', path: `/checks/${id(checkId)}` }),
   saveSignature: ({ role }) => ({ method: 'PUT', path: `/signatures/${id(role)}` }),
   clearSignature: ({ role }) => ({ method: 'DELETE', path: `/signatures/${id(role)}` }),
+  createReferencePoint: ({ siteId }) => ({ method: 'POST', path: '/reference-points', siteId }),
 };
 
 /** The answer of a write: records answer `jobVersion`, job-level writes the whole job with `version`. */
@@ -126,6 +143,7 @@ export const JOB_WRITE_RESPONSES: { [E in JobWriteEndpoint]: z.ZodType<JobWriteR
   deleteCheck: JobVersionResponseSchema,
   saveSignature: SignatureWriteResponseSchema,
   clearSignature: JobVersionResponseSchema,
+  createReferencePoint: ReferencePointResponseSchema.extend(SiteVersionResponseSchema.shape),
 };
 
 /** The route of `call`. */

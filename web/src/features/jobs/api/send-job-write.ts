@@ -26,17 +26,33 @@ export type JobWrite = JobWriteCall & {
   localId?: string;
 };
 
-/** Sends `write` as a change to `version` of the job (`If-Match`). */
+/**
+ * Sends `write` as a change to `version` of the job (`If-Match`); a write to the job's site
+ * (`siteOf(write)`) goes to the site instead, and `version` is then the site's.
+ */
 export function sendJobWrite(jobId: string, version: number, write: JobWrite): Promise<JobWriteResponse> {
   const route = routeOf(write);
-  return apiRequest(`/api/jobs/${encodeURIComponent(jobId)}${route.path}`, JOB_WRITE_RESPONSES[write.endpoint], {
+  const base = route.siteId ? `/api/sites/${encodeURIComponent(route.siteId)}` : `/api/jobs/${encodeURIComponent(jobId)}`;
+  return apiRequest(`${base}${route.path}`, JOB_WRITE_RESPONSES[write.endpoint], {
     method: route.method,
     body: write.body,
     headers: { 'If-Match': `"${version}"`, ...(write.idempotencyKey ? { 'Idempotency-Key': write.idempotencyKey } : {}) },
   });
 }
 
-/** The job version a write answered with. */
-export function versionAfter(response: JobWriteResponse): number | undefined {
-  return typeof response.jobVersion === 'number' ? response.jobVersion : typeof response.version === 'number' ? response.version : undefined;
+/** The site a write goes to (its version is the one `If-Match` names), or undefined for a write to the job. */
+export function siteOf(write: JobWrite): string | undefined {
+  return routeOf(write).siteId;
+}
+
+/**
+ * The job version a write answered with. A site write answers the site's version and the new version
+ * of every open job on the site it bumped (`jobVersions`): then `jobId`'s, when it is one of them.
+ */
+export function versionAfter(response: JobWriteResponse, jobId?: string): number | undefined {
+  if (typeof response.jobVersion === 'number') return response.jobVersion;
+  if (typeof response.version === 'number') return response.version;
+  const bumped = response.jobVersions as Record<string, unknown> | undefined;
+  const version = jobId !== undefined && bumped && typeof bumped === 'object' ? bumped[jobId] : undefined;
+  return typeof version === 'number' ? version : undefined;
 }

@@ -27,7 +27,8 @@ import { isApiError } from '../../../lib/api-client';
 import { clearDraft } from '../../../lib/drafts';
 import { describeRequestError } from '../../../lib/form-errors';
 import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse, jobKeys } from '../../job-record';
-import { sendJobWrite, versionAfter, type JobWrite, type JobWriteResponse } from '../api/send-job-write';
+import { applySiteVersions, getSiteQueryOptions, siteVersionOf, type SiteVersionResponse } from '../../sites';
+import { sendJobWrite, siteOf, versionAfter, type JobWrite, type JobWriteResponse } from '../api/send-job-write';
 import { withLocalId, withOfflineRecord } from '../utils/offline-records';
 import { enqueuePendingWrite, newIdempotencyKey, readPendingWrites, subscribePendingWrites, type PendingWrite } from '../utils/pending-writes';
 import { handleConflictsOf, isWorthRetrying, replayPendingWrites } from '../utils/replay-pending-writes';
@@ -90,14 +91,29 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
 
   const refresh = useCallback(() => queryClient.invalidateQueries({ queryKey: jobKeys.all }), [queryClient]);
 
+  /** The version a write names: the job's, or for a write to the job's site (a reference point) the site's. */
+  const versionFor = useCallback(
+    (write: JobWrite) => {
+      const siteId = siteOf(write);
+      return siteId !== undefined ? siteVersionOf(queryClient, siteId) : currentVersion();
+    },
+    [currentVersion, queryClient],
+  );
+
   const send = useCallback(
     async (write: JobWrite, version: number): Promise<JobWriteResponse> => {
       const response = await sendJobWrite(jobId, version, write);
-      applyVersion(versionAfter(response));
+      const siteId = siteOf(write);
+      if (siteId !== undefined) {
+        // The site's new version (and every job it bumped, this one included) kept; its points read again.
+        applySiteVersions(queryClient, siteId, response as Partial<SiteVersionResponse>);
+        void queryClient.invalidateQueries({ queryKey: getSiteQueryOptions(siteId).queryKey });
+      }
+      applyVersion(versionAfter(response, jobId));
       if (write.draftKey) clearDraft(write.draftKey);
       return response;
     },
-    [applyVersion, jobId],
+    [applyVersion, jobId, queryClient],
   );
 
   const save = useCallback(
@@ -120,7 +136,7 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
         return outcome;
       }
       try {
-        await send(write, version);
+        await send(write, versionFor(write));
         await refresh();
         return 'saved';
       } catch (error) {
@@ -133,7 +149,7 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
         throw error;
       }
     },
-    [currentVersion, jobId, queryClient, queryKey, refresh, send],
+    [currentVersion, jobId, queryClient, queryKey, refresh, send, versionFor],
   );
 
   // Queued writes of this job that meet someone else's change ask here, whoever started the replay
@@ -155,6 +171,7 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
       const { sent } = await replayPendingWrites(jobId, {
         send: (_jobId, version, write) => send(write, version),
         knownVersion: () => queryClient.getQueryData<JobAsBuiltResponse>(queryKey)?.job.version,
+        knownSiteVersion: (siteId) => siteVersionOf(queryClient, siteId) || undefined,
         onRefused: (write, error) => notify.error(`Could not save: ${write.label}`, describeRequestError(error)),
       });
       if (sent > 0) {
@@ -178,12 +195,14 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
     setIsResolving(true);
     try {
       await queryClient.refetchQueries({ queryKey, exact: true });
+      const siteId = siteOf(conflict.write);
+      if (siteId !== undefined) await queryClient.refetchQueries({ queryKey: getSiteQueryOptions(siteId).queryKey, exact: true });
       if (choice === 'reload') {
         if (conflict.write.draftKey) clearDraft(conflict.write.draftKey);
         conflict.resolve('conflict');
         notify.success('Showing the latest version', 'Your change was discarded.');
       } else {
-        await send(conflict.write, currentVersion());
+        await send(conflict.write, versionFor(conflict.write));
         await refresh();
         conflict.resolve('saved');
         notify.success('Saved on top of the latest version');

@@ -5,18 +5,32 @@ import { useNotify } from '../../../components/notify';
 import { clearDraft } from '../../../lib/drafts';
 import { describeRequestError } from '../../../lib/form-errors';
 import { getJobAsBuiltQueryOptions, type JobAsBuiltResponse, jobKeys } from '../../job-record';
-import { sendJobWrite, versionAfter } from '../api/send-job-write';
+import type { SiteVersionResponse } from '../../sites';
+import { sendJobWrite, siteOf, versionAfter } from '../api/send-job-write';
 import { readAllPendingWrites } from '../utils/pending-writes';
 import { replayAllPendingWrites, type ReplayDeps } from '../utils/replay-pending-writes';
 
 /** How often to try again while writes wait: `online` is not always fired (captive portals, flaky radio). */
 export const RETRY_EVERY_MS = 20_000;
 
+/**
+ * The sites feature, loaded only when a write to a site waits (a reference point made from a job): this
+ * runner starts on every page, and most queues hold job writes only.
+ */
+const loadSites = () => import('../../sites');
+
 /** Sends through the job's endpoint and keeps the version it answered with in the kept as-built. */
 export function sendAndKeepVersion(queryClient: QueryClient): ReplayDeps['send'] {
   return async (jobId, version, write) => {
     const response = await sendJobWrite(jobId, version, write);
-    const after = versionAfter(response);
+    const siteId = siteOf(write);
+    if (siteId !== undefined) {
+      // A reference point made from the job: the site's new version (and every job it bumped) kept, its list read again.
+      const sites = await loadSites();
+      sites.applySiteVersions(queryClient, siteId, response as Partial<SiteVersionResponse>);
+      void queryClient.invalidateQueries({ queryKey: sites.getSiteQueryOptions(siteId).queryKey });
+    }
+    const after = versionAfter(response, jobId);
     if (after !== undefined) {
       queryClient.setQueryData<JobAsBuiltResponse>(getJobAsBuiltQueryOptions(jobId).queryKey, (previous) =>
         previous && previous.job.version < after ? { ...previous, job: { ...previous.job, version: after } } : previous,
@@ -36,13 +50,17 @@ export function useJobWritesRunner(): void {
   const queryClient = useQueryClient();
   const notify = useNotify();
   useEffect(() => {
+    let sites: Awaited<ReturnType<typeof loadSites>> | undefined;
     const deps: ReplayDeps = {
       send: sendAndKeepVersion(queryClient),
       knownVersion: (jobId) => queryClient.getQueryData<JobAsBuiltResponse>(getJobAsBuiltQueryOptions(jobId).queryKey)?.job.version,
+      knownSiteVersion: (siteId) => sites?.siteVersionOf(queryClient, siteId) || undefined,
       onRefused: (write, error) => notify.error(`Could not save: ${write.label}`, describeRequestError(error)),
     };
     const run = async () => {
-      if (readAllPendingWrites().length === 0) return;
+      const waiting = readAllPendingWrites();
+      if (waiting.length === 0) return;
+      if (!sites && waiting.some((entry) => siteOf(entry.write) !== undefined)) sites = await loadSites();
       const { sent } = await replayAllPendingWrites(deps);
       if (sent > 0) {
         notify.success(sent === 1 ? 'Sent the change made offline' : `Sent ${sent} changes made offline`);

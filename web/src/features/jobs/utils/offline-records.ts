@@ -8,13 +8,15 @@ import type { JobWrite, JobWriteResponse } from '../api/send-job-write';
  * the server gave it. Amplifier channels made offline go by `<local id>:ch<index>`.
  */
 
-type Creating = 'createItem' | 'createRun' | 'createZone' | 'createCheck';
+type Creating = 'createItem' | 'createRun' | 'createZone' | 'createCheck' | 'createReferencePoint';
 
-const LISTS: Record<Creating, 'items' | 'runs' | 'zones' | 'checks'> = {
+const LISTS: Record<Creating, 'items' | 'runs' | 'zones' | 'checks' | 'referencePoints'> = {
   createItem: 'items',
   createRun: 'runs',
   createZone: 'zones',
   createCheck: 'checks',
+  // A reference point of the site made from the job: ties made offline pick it under its local id.
+  createReferencePoint: 'referencePoints',
 };
 
 function creates(write: JobWrite): write is JobWrite & { endpoint: Creating } {
@@ -53,7 +55,10 @@ export function withOfflineRecord(previous: JobAsBuiltResponse | undefined, writ
 export function idsLearned(write: JobWrite, response: JobWriteResponse): Map<string, string> {
   const ids = new Map<string, string>();
   if (!creates(write) || !write.localId) return ids;
-  const created = response[LISTS[write.endpoint].slice(0, -1)] as { id?: unknown; channels?: { id?: unknown }[] } | undefined;
+  // A record write answers `{ item: … }`; a reference point write answers the point itself.
+  const created = (write.endpoint === 'createReferencePoint' ? response : response[LISTS[write.endpoint].slice(0, -1)]) as
+    | { id?: unknown; channels?: { id?: unknown }[] }
+    | undefined;
   if (typeof created?.id !== 'string') return ids;
   ids.set(write.localId, created.id);
   created.channels?.forEach((channel, index) => {

@@ -169,4 +169,51 @@ describe('replaying the offline write queue (issue 17)', () => {
     expect(server.bodies.map((write) => write.endpoint)).toEqual(['createItem', 'createItem', 'createRun', 'addDepthReading']);
     expect(server.bodies[3]!.params, 'ids that are not local stay as they are').toEqual({ runId: 'unrelated-run' });
   });
+
+  it('should send a reference point made offline to the site on the site version, before the tie made to it, with the id the server gave (issue 17)', async () => {
+    const point = withLocalId({
+      endpoint: 'createReferencePoint',
+      params: { siteId: 'site-1' },
+      body: { label: 'Gate post', x: 4, y: -2 },
+      label: 'Reference point "Gate post"',
+    });
+    expect(point.localId).toEqual(expect.any(String));
+    const kept = withOfflineRecord(buildJobAsBuilt(buildAsBuilt()), point)!;
+    expect(kept.asBuilt.referencePoints.at(-1), 'shown on the device at once, for ties to pick').toMatchObject({ id: point.localId, label: 'Gate post', x: 4, y: -2 });
+    const speaker = withLocalId({
+      endpoint: 'createItem',
+      params: {},
+      body: { kind: 'speaker', label: 'P2', ties: [{ referencePointId: point.localId, distanceM: 3 }] },
+      label: 'P2',
+    });
+    await enqueuePendingWrite('job-1', point, 7);
+    await enqueuePendingWrite('job-1', speaker, 7);
+
+    const sent: { endpoint: string; version: number; body: unknown }[] = [];
+    let jobVersion = 7;
+    const deps: ReplayDeps = {
+      send: vi.fn<ReplayDeps['send']>(async (_jobId, version, write) => {
+        sent.push({ endpoint: write.endpoint, version, body: write.body });
+        if (write.endpoint === 'createReferencePoint') {
+          // A site write bumps the site and every open job on it.
+          jobVersion += 1;
+          return { ...(write.body as object), id: 'server-point', notes: null, siteVersion: 13, jobVersions: { 'job-1': jobVersion } };
+        }
+        jobVersion += 1;
+        return { jobVersion, ...created(write) };
+      }),
+      // What the kept as-built says: the sender keeps each answer's job version there.
+      knownVersion: () => jobVersion,
+      knownSiteVersion: (siteId) => (siteId === 'site-1' ? 12 : undefined),
+      onRefused: vi.fn(),
+    };
+
+    expect(await replayPendingWrites('job-1', deps)).toEqual({ sent: 2 });
+    expect(sent.map(({ endpoint, version }) => ({ endpoint, version }))).toEqual([
+      { endpoint: 'createReferencePoint', version: 12 },
+      { endpoint: 'createItem', version: 8 },
+    ]);
+    expect(sent[1]!.body).toMatchObject({ ties: [{ referencePointId: 'server-point', distanceM: 3 }] });
+    expect(readPendingWrites('job-1')).toEqual([]);
+  });
 });

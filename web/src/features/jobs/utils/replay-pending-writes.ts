@@ -1,6 +1,6 @@
 import { isApiError } from '../../../lib/api-client';
 import { isAdditiveEndpoint } from '../api/job-write-endpoints';
-import { versionAfter, type JobWrite, type JobWriteResponse } from '../api/send-job-write';
+import { siteOf, versionAfter, type JobWrite, type JobWriteResponse } from '../api/send-job-write';
 
 import { idsLearned, withServerIds } from './offline-records';
 import { readAllPendingWrites, readPendingWrites, removePendingWrite, rewritePendingWrites } from './pending-writes';
@@ -37,6 +37,8 @@ export type ReplayDeps = {
   send: (jobId: string, version: number, write: JobWrite) => Promise<JobWriteResponse>;
   /** The job version this device knows (the kept as-built), if any. */
   knownVersion: (jobId: string) => number | undefined;
+  /** The site version this device knows (the kept site), for a write to the job's site (a reference point). */
+  knownSiteVersion?: (siteId: string) => number | undefined;
   /** The server refused `write` for good (the job closed, a record deleted…); it is taken off the queue. */
   onRefused: (write: JobWrite, error: unknown) => void;
 };
@@ -74,7 +76,9 @@ async function replayJob(jobId: string, deps: ReplayDeps): Promise<ReplayResult>
     if (!entry) continue;
     const base = rebased.get(entry.baseVersion) ?? entry.baseVersion;
     const isAdditive = isAdditiveEndpoint(entry.write.endpoint);
-    const version = isAdditive ? (deps.knownVersion(jobId) ?? base) : base;
+    // A write to the job's site (a reference point: only adds) goes on the site's version as it is now.
+    const siteId = siteOf(entry.write);
+    const version = siteId !== undefined ? (deps.knownSiteVersion?.(siteId) ?? 0) : isAdditive ? (deps.knownVersion(jobId) ?? base) : base;
     try {
       let response: JobWriteResponse;
       try {
@@ -84,13 +88,14 @@ async function replayJob(jobId: string, deps: ReplayDeps): Promise<ReplayResult>
         if (!isAdditive || newer === undefined) throw error;
         response = await deps.send(jobId, newer, entry.write);
       }
-      const after = versionAfter(response);
+      // A site write bumps the job too (its answer names the job's new version in jobVersions).
+      const after = versionAfter(response, jobId);
       // A record created offline now has the server's id: the writes that build on it say so from now on.
       const learned = idsLearned(entry.write, response);
       if (learned.size > 0) await rewritePendingWrites(jobId, (write) => withServerIds(write, learned));
       if (after !== undefined) {
         rebased.set(entry.baseVersion, after);
-        rebased.set(version, after);
+        if (siteId === undefined) rebased.set(version, after);
       }
       await removePendingWrite(jobId, entry.id);
       sent += 1;

@@ -137,7 +137,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
   // Site writes name the site's version: "someone changed this site first" asks as job writes do.
   const siteConflict = useSiteConflict();
   const north = useNorthTool({ site, siteConflict });
-  const reference = useReferenceTool({ site, siteConflict });
+  const reference = useReferenceTool({ site, writer });
   const feature = useFeatureTool({ site, features: siteFeatures, siteConflict, selectedVertex, setSelectedVertex });
 
   const planImage = planImageOf(site);

@@ -1,77 +1,58 @@
-import { Button, Dialog, DialogActions, DialogBody, DialogContent, DialogSurface, DialogTitle, Field, Input, Spinner } from '@fluentui/react-components';
-import { useState, type FormEvent } from 'react';
+import { z } from 'zod';
 import type { PlanPoint } from '@domain/as-built/common.schema';
+import { CreateReferencePointSchema, type CreateReferencePointInput } from '@domain/sites/site.schema';
 
+import { FormDialog, type FormDialogHelpers, FormTextField } from '../../../components/form-dialog';
 import { formatLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 
-import { usePanelStyles } from './panel-styles';
+type ReferencePointValues = { label: string };
+
+/** The name typed, at the point tapped: the site's reference-point request. */
+function referencePointFormSchema(point: PlanPoint) {
+  return z
+    .object({ label: z.string().trim().min(1, 'Give the point a name, e.g. "NE house corner"') })
+    .transform(({ label }) => ({ label, x: point.x, y: point.y }))
+    .pipe(CreateReferencePointSchema);
+}
 
 type ReferencePointDialogProps = {
+  /** Where the point was tapped on the plan; the dialog is open while there is one. */
   point: PlanPoint | undefined;
-  isSaving: boolean;
-  error?: string;
-  onSave: (label: string) => void;
+  /**
+   * Adds the point (or keeps it on the device with no signal). The dialog stays busy until it settles;
+   * close it with `helpers.close()`, or show what the server refused with `helpers.showFieldErrors`.
+   */
+  onSave: (input: CreateReferencePointInput, helpers: FormDialogHelpers<ReferencePointValues, CreateReferencePointInput>) => Promise<void>;
   onCancel: () => void;
 };
 
 /** Names the reference point just tapped on the plan. */
-export function ReferencePointDialog({ point, isSaving, error, onSave, onCancel }: ReferencePointDialogProps) {
-  const styles = usePanelStyles();
+export function ReferencePointDialog({ point, onSave, onCancel }: ReferencePointDialogProps) {
   const [units] = useUnitPreferences();
-  const [label, setLabel] = useState('');
-  const [isTouched, setIsTouched] = useState(false);
-  const problem = error ?? (isTouched && label.trim() === '' ? 'Give the point a name, e.g. "NE house corner".' : undefined);
-  const submit = (event: FormEvent) => {
-    event.preventDefault();
-    setIsTouched(true);
-    if (label.trim() !== '') onSave(label.trim());
-  };
+  // The dialog keeps the last point while it closes, so its schema always has one.
+  const at = point ?? { x: 0, y: 0 };
   return (
-    <Dialog
+    <FormDialog
       open={point !== undefined}
-      onOpenChange={(_e, data) => {
-        if (!data.open) {
-          setLabel('');
-          setIsTouched(false);
-          onCancel();
-        }
+      title="New reference point"
+      schema={referencePointFormSchema(at)}
+      defaultValues={{ label: '' }}
+      submitLabel="Add point"
+      onOpenChange={(open) => {
+        if (!open) onCancel();
       }}
+      onSubmit={onSave}
     >
-      <DialogSurface>
-        <form onSubmit={submit} noValidate>
-          <DialogBody>
-            <DialogTitle>New reference point</DialogTitle>
-            <DialogContent>
-              {point && (
-                <p>
-                  At x {formatLength(point.x, units.length, 'long')}, y {formatLength(point.y, units.length, 'long')} on the plan. Pick something that
-                  will still be there in years: a house corner, a gate post, the meter base.
-                </p>
-              )}
-              <Field label="Name" required validationMessage={problem}>
-                <Input className={styles.control} value={label} onChange={(_e, d) => setLabel(d.value)} autoFocus />
-              </Field>
-            </DialogContent>
-            <DialogActions fluid>
-              <Button
-                className={styles.button}
-                disabled={isSaving}
-                onClick={() => {
-                  setLabel('');
-                  setIsTouched(false);
-                  onCancel();
-                }}
-              >
-                Cancel
-              </Button>
-              <Button type="submit" appearance="primary" className={styles.button} disabled={isSaving} icon={isSaving ? <Spinner size="tiny" /> : undefined}>
-                Add point
-              </Button>
-            </DialogActions>
-          </DialogBody>
-        </form>
-      </DialogSurface>
-    </Dialog>
+      {(form, fieldError) => (
+        <>
+          <p>
+            At x {formatLength(at.x, units.length, 'long')}, y {formatLength(at.y, units.length, 'long')} on the plan. Pick something that will still
+            be there in years: a house corner, a gate post, the meter base.
+          </p>
+          <FormTextField form={form} name="label" label="Name" required error={fieldError('label')} placeholder="e.g. NE house corner" />
+        </>
+      )}
+    </FormDialog>
   );
 }
