@@ -1,6 +1,6 @@
 // `npm test`: the same set-up as `npm start` (packages, dependencies, PostgreSQL, builds), then every
 // Vitest project. Each test project gets its own fresh database on the local cluster.
-import { spawnSync } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
 import { existsSync, readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 
@@ -15,15 +15,32 @@ import {
   stopPostgres,
 } from './lib/setup.mjs';
 
+/** Starts a command, keeping its output (both streams, in order) for when it ends. */
+function runInBackground(command, args) {
+  return new Promise((resolve) => {
+    const child = spawn(command, args, { cwd: root, stdio: ['ignore', 'pipe', 'pipe'] });
+    const chunks = [];
+    child.stdout.on('data', (chunk) => chunks.push(chunk));
+    child.stderr.on('data', (chunk) => chunks.push(chunk));
+    child.on('error', (error) => resolve({ status: 1, output: `${command}: ${error.message}\n` }));
+    child.on('close', (status) => resolve({ status: status ?? 1, output: Buffer.concat(chunks).toString() }));
+  });
+}
+
 let pg;
 let status = 1;
 try {
   ensureDebianPackages({ postgres: !process.env.DATABASE_URL, chromium: true, poppler: true, unzip: true });
   ensureNpmDependencies();
-  if (spawnSync('npm', ['run', 'lint'], { cwd: root, stdio: 'inherit' }).status !== 0) throw new Error('npm run lint found errors (see above)');
+  // The linter needs neither the database nor the builds, so it runs beside them (linting a clean clone
+  // without its cache took 25 s of CPU here) and its report is printed once it ends.
+  const lint = runInBackground('npm', ['run', '--silent', 'lint']);
   pg = ensurePostgres();
   ensureApiBuilt();
   ensureWebBuilt();
+  const linted = await lint;
+  process.stdout.write(linted.output);
+  if (linted.status !== 0) throw new Error('npm run lint found errors (see above)');
   const report = join(dataDir, 'vitest-report.json');
   rmSync(report, { force: true });
   const result = spawnSync(
