@@ -1,37 +1,16 @@
-import { zodResolver } from '@hookform/resolvers/zod';
-import {
-  Button,
-  Dialog,
-  DialogActions,
-  DialogBody,
-  DialogContent,
-  DialogSurface,
-  DialogTitle,
-  DialogTrigger,
-  Field,
-  Input,
-  makeStyles,
-  MessageBar,
-  MessageBarBody,
-  Radio,
-  RadioGroup,
-  Select,
-  Spinner,
-  Text,
-  tokens,
-} from '@fluentui/react-components';
+import { Button, Field, makeStyles, MessageBar, MessageBarBody, Radio, RadioGroup, Select, Text, tokens } from '@fluentui/react-components';
 import { LinkDismiss20Regular, PersonAdd20Regular } from '@fluentui/react-icons';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
+import { Controller } from 'react-hook-form';
 import { z } from 'zod';
 import { InviteHomeownerSchema } from '@domain/sites/homeowner-invitation.schema';
-import type { SiteResponse } from '@domain/sites/site.schema';
+import { LinkHomeownerSchema, type SiteResponse } from '@domain/sites/site.schema';
 
 import { ConfirmDialog } from '../../../components/confirm-dialog';
+import { FormDialog, FormTextField } from '../../../components/form-dialog';
 import { useNotify } from '../../../components/notify';
-import { isApiError } from '../../../lib/api-client';
-import { describeRequestError, toSentence } from '../../../lib/form-errors';
+import { describeRequestError } from '../../../lib/form-errors';
 import { getUsersQueryOptions } from '../../users';
 import { useInviteHomeowner } from '../api/invite-homeowner';
 import { useLinkHomeowner } from '../api/link-homeowner';
@@ -56,7 +35,6 @@ const useStyles = makeStyles({
   muted: { color: tokens.colorNeutralForeground2 },
   control: { minHeight: '48px' },
   surface: { maxWidth: '32rem' },
-  form: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },
 });
 
 type SiteHomeownersProps = { site: Pick<SiteResponse, 'id' | 'label' | 'homeowners'>; canChange: boolean };
@@ -133,17 +111,26 @@ export function SiteHomeowners({ site, canChange }: SiteHomeownersProps) {
   );
 }
 
+/** How the homeowner is added, as the form holds it; each way parses into its shared request schema. */
 const AddHomeownerFormSchema = z.discriminatedUnion('how', [
-  z.object({ how: z.literal('link'), userId: z.string().min(1, { error: 'Choose the homeowner to link.' }), email: z.string(), name: z.string() }),
+  z.object({
+    how: z.literal('link'),
+    userId: z.string().min(1, { error: 'Choose the homeowner to link.' }).pipe(LinkHomeownerSchema.shape.userId),
+    email: z.string(),
+    name: z.string(),
+  }),
   z.object({
     how: z.literal('invite'),
     userId: z.string(),
     email: InviteHomeownerSchema.shape.email,
-    name: z.string().trim().max(120),
+    // Blank: they fill in their name when they accept.
+    name: z
+      .string()
+      .transform((name) => (name.trim() === '' ? undefined : name))
+      .pipe(InviteHomeownerSchema.shape.name),
   }),
 ]);
 type AddHomeownerForm = z.input<typeof AddHomeownerFormSchema>;
-type AddHomeownerValues = z.output<typeof AddHomeownerFormSchema>;
 
 const EMPTY: AddHomeownerForm = { how: 'link', userId: '', email: '', name: '' };
 
@@ -154,136 +141,84 @@ function AddHomeownerDialog({ site }: { site: SiteHomeownersProps['site'] }) {
   const link = useLinkHomeowner();
   const invite = useInviteHomeowner();
   const users = useQuery({ ...getUsersQueryOptions(), enabled: open });
-  const [message, setMessage] = useState<string | undefined>();
-  const { control, handleSubmit, watch, reset, setError, formState } = useForm<AddHomeownerForm, unknown, AddHomeownerValues>({
-    resolver: zodResolver(AddHomeownerFormSchema),
-    defaultValues: EMPTY,
-  });
-  const how = watch('how');
   const linkedIds = new Set(site.homeowners.map((owner) => owner.id));
   const candidates = (users.data ?? []).filter((user) => user.role === 'homeowner' && !user.isDisabled && !linkedIds.has(user.id));
 
-  const close = () => {
-    setOpen(false);
-    setMessage(undefined);
-    reset(EMPTY);
-  };
-
-  const save = handleSubmit(async (values) => {
-    setMessage(undefined);
-    try {
-      if (values.how === 'link') {
-        await link.mutateAsync({ siteId: site.id, userId: values.userId });
-        notify.success('Homeowner linked', `${candidates.find((user) => user.id === values.userId)?.name ?? 'They'} now see ${site.label} in the portal.`);
-      } else {
-        const name = values.name === '' ? undefined : values.name;
-        await invite.mutateAsync({ siteId: site.id, input: { email: values.email, ...(name ? { name } : {}) } });
-        notify.success('Invitation sent', `${values.email} is linked to ${site.label} when they accept.`);
-      }
-      close();
-    } catch (error) {
-      const issues = isApiError(error) ? error.issues : [];
-      for (const issue of issues) {
-        const field = issue.path.split('.')[0];
-        if (field === 'userId' || field === 'email' || field === 'name') setError(field, { message: toSentence(issue.message) });
-      }
-      if (issues.length === 0) setMessage(describeRequestError(error));
-    }
-  });
-
   return (
-    <Dialog open={open} onOpenChange={(_event, data) => (data.open ? setOpen(true) : !formState.isSubmitting && close())}>
-      <DialogTrigger disableButtonEnhancement>
+    <FormDialog
+      trigger={
         <Button className={styles.control} icon={<PersonAdd20Regular />}>
           Add homeowner
         </Button>
-      </DialogTrigger>
-      <DialogSurface className={styles.surface}>
-        <form onSubmit={(event) => void save(event)} noValidate aria-label="Add a homeowner">
-          <DialogBody>
-            <DialogTitle>Add a homeowner to {site.label}</DialogTitle>
-            <DialogContent className={styles.form}>
-              {message && (
-                <MessageBar intent="error" layout="multiline">
-                  <MessageBarBody>{message}</MessageBarBody>
-                </MessageBar>
+      }
+      title={`Add a homeowner to ${site.label}`}
+      formLabel="Add a homeowner"
+      schema={AddHomeownerFormSchema}
+      defaultValues={EMPTY}
+      submitLabel={(values) => (values.how === 'link' ? 'Link homeowner' : 'Send invitation')}
+      surfaceClassName={styles.surface}
+      onOpenChange={setOpen}
+      onSubmit={async (values, { close, showFieldErrors, showMessage }) => {
+        try {
+          if (values.how === 'link') {
+            await link.mutateAsync({ siteId: site.id, userId: values.userId });
+            notify.success('Homeowner linked', `${candidates.find((user) => user.id === values.userId)?.name ?? 'They'} now see ${site.label} in the portal.`);
+          } else {
+            await invite.mutateAsync({ siteId: site.id, input: { email: values.email, ...(values.name ? { name: values.name } : {}) } });
+            notify.success('Invitation sent', `${values.email} is linked to ${site.label} when they accept.`);
+          }
+          close();
+        } catch (error) {
+          if (!showFieldErrors(error)) showMessage(describeRequestError(error));
+        }
+      }}
+    >
+      {(form, fieldError) => (
+        <>
+          <Controller
+            control={form.control}
+            name="how"
+            render={({ field }) => (
+              <RadioGroup value={field.value} onChange={(_event, data) => field.onChange(data.value)} aria-label="How">
+                <Radio value="link" label="They already have a portal account" />
+                <Radio value="invite" label="Invite them by e-mail" />
+              </RadioGroup>
+            )}
+          />
+          {form.watch('how') === 'link' ? (
+            <Controller
+              control={form.control}
+              name="userId"
+              render={({ field }) => (
+                <Field
+                  label="Homeowner"
+                  required
+                  validationMessage={fieldError('userId')}
+                  hint={!users.isLoading && candidates.length === 0 ? 'No other homeowner account yet: invite them by e-mail.' : undefined}
+                >
+                  <Select ref={field.ref} className={styles.control} value={field.value} onChange={(_event, data) => field.onChange(data.value)} onBlur={field.onBlur}>
+                    <option value="">{users.isLoading ? 'Loading…' : 'Choose a homeowner'}</option>
+                    {candidates.map((user) => (
+                      <option key={user.id} value={user.id}>
+                        {user.name} ({user.email})
+                      </option>
+                    ))}
+                  </Select>
+                </Field>
               )}
-              <Controller
-                control={control}
-                name="how"
-                render={({ field }) => (
-                  <RadioGroup value={field.value} onChange={(_event, data) => field.onChange(data.value)} aria-label="How">
-                    <Radio value="link" label="They already have a portal account" />
-                    <Radio value="invite" label="Invite them by e-mail" />
-                  </RadioGroup>
-                )}
-              />
-              {how === 'link' ? (
-                <Controller
-                  control={control}
-                  name="userId"
-                  render={({ field, fieldState }) => (
-                    <Field
-                      label="Homeowner"
-                      required
-                      validationMessage={fieldState.error?.message}
-                      hint={!users.isLoading && candidates.length === 0 ? 'No other homeowner account yet: invite them by e-mail.' : undefined}
-                    >
-                      <Select className={styles.control} value={field.value} onChange={(_event, data) => field.onChange(data.value)} onBlur={field.onBlur}>
-                        <option value="">{users.isLoading ? 'Loading…' : 'Choose a homeowner'}</option>
-                        {candidates.map((user) => (
-                          <option key={user.id} value={user.id}>
-                            {user.name} ({user.email})
-                          </option>
-                        ))}
-                      </Select>
-                    </Field>
-                  )}
-                />
-              ) : (
-                <>
-                  <Controller
-                    control={control}
-                    name="email"
-                    render={({ field, fieldState }) => (
-                      <Field label="E-mail" required validationMessage={fieldState.error?.message && toSentence(fieldState.error.message)}>
-                        <Input className={styles.control} type="email" autoComplete="off" value={field.value} onChange={(_event, data) => field.onChange(data.value)} onBlur={field.onBlur} />
-                      </Field>
-                    )}
-                  />
-                  <Controller
-                    control={control}
-                    name="name"
-                    render={({ field, fieldState }) => (
-                      <Field label="Name" hint="Optional: they can fill it in when they accept." validationMessage={fieldState.error?.message}>
-                        <Input className={styles.control} value={field.value} onChange={(_event, data) => field.onChange(data.value)} onBlur={field.onBlur} />
-                      </Field>
-                    )}
-                  />
-                  <Text className={styles.muted}>
-                    The e-mail has a link to set a password. When they accept, this site is linked to their account. Open invitations are listed
-                    on the Users page.
-                  </Text>
-                </>
-              )}
-            </DialogContent>
-            <DialogActions fluid>
-              <Button className={styles.control} disabled={formState.isSubmitting} onClick={close}>
-                Cancel
-              </Button>
-              <Button
-                type="submit"
-                appearance="primary"
-                className={styles.control}
-                disabled={formState.isSubmitting}
-                icon={formState.isSubmitting ? <Spinner size="tiny" /> : undefined}
-              >
-                {how === 'link' ? 'Link homeowner' : 'Send invitation'}
-              </Button>
-            </DialogActions>
-          </DialogBody>
-        </form>
-      </DialogSurface>
-    </Dialog>
+            />
+          ) : (
+            <>
+              <FormTextField form={form} name="email" label="E-mail" required type="email" autoComplete="off" error={fieldError('email')} />
+              <FormTextField form={form} name="name" label="Name" hint="Optional: they can fill it in when they accept." error={fieldError('name')} />
+              <Text className={styles.muted}>
+                The e-mail has a link to set a password. When they accept, this site is linked to their account. Open invitations are listed on
+                the Users page.
+              </Text>
+            </>
+          )}
+        </>
+      )}
+    </FormDialog>
   );
 }
