@@ -11,17 +11,30 @@ type RouteModule = {
   ErrorBoundary?: ComponentType;
 };
 
-function convert(queryClient: QueryClient) {
-  return ({ default: Component, clientLoader, ErrorBoundary }: RouteModule) => ({
-    Component,
-    ErrorBoundary,
-    loader: clientLoader?.(queryClient),
-  });
+function convert(queryClient: QueryClient, beforeLoaders: Promise<void> | undefined) {
+  return ({ default: Component, clientLoader, ErrorBoundary }: RouteModule) => {
+    const loader = clientLoader?.(queryClient);
+    return {
+      Component,
+      ErrorBoundary,
+      loader:
+        loader && beforeLoaders
+          ? async (...args: Parameters<LoaderFunction>) => {
+              await beforeLoaders;
+              return loader(...args);
+            }
+          : loader,
+    };
+  };
 }
 
-/** The route tree, shared by the browser router and the memory router in tests. */
-export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
-  const load = convert(queryClient);
+/**
+ * The route tree, shared by the browser router and the memory router in tests. `beforeLoaders`: what
+ * every route loader waits for first (the data kept on the device, main.tsx); the route modules
+ * themselves download meanwhile rather than after it.
+ */
+export function createAppRoutes(queryClient: QueryClient, beforeLoaders?: Promise<void>): RouteObject[] {
+  const load = convert(queryClient, beforeLoaders);
   return [
     {
       path: paths.home.path,
@@ -70,9 +83,9 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
   ];
 }
 
-type AppRouterProps = { queryClient: QueryClient };
+type AppRouterProps = { queryClient: QueryClient; beforeLoaders?: Promise<void> };
 
-export function AppRouter({ queryClient }: AppRouterProps) {
-  const router = useMemo(() => createBrowserRouter(createAppRoutes(queryClient)), [queryClient]);
+export function AppRouter({ queryClient, beforeLoaders }: AppRouterProps) {
+  const router = useMemo(() => createBrowserRouter(createAppRoutes(queryClient, beforeLoaders)), [queryClient, beforeLoaders]);
   return <RouterProvider router={router} />;
 }

@@ -44,9 +44,28 @@ export function useAppUpdate(): AppUpdateState {
 /** How often an open app asks the server whether a new version exists (a phone left open all day). */
 const UPDATE_CHECK_MS = 60 * 60 * 1000;
 
+/** Longest wait for an idle moment after `load` before the worker registers anyway (a busy page). */
+const IDLE_TIMEOUT_MS = 5_000;
+
 /**
- * Registers `/sw.js` in a production build (the dev server and tests have none). Safe to call once at
- * start-up; does nothing where service workers are unavailable (plain http on another host, old browsers).
+ * Calls `start` once the page has loaded and then the main thread is idle. The worker's first install
+ * downloads every file of the app (the plan editor with its layout engine and the HEIC converter are
+ * megabytes); started at start-up, that download and the worker's script compete with the page being
+ * opened on a weak signal. After `load` and an idle moment, the page has what it needs.
+ */
+export function whenLoadedAndIdle(start: () => void): void {
+  const onIdle = () => {
+    if (typeof window.requestIdleCallback === 'function') window.requestIdleCallback(() => start(), { timeout: IDLE_TIMEOUT_MS });
+    else window.setTimeout(start, 0);
+  };
+  if (document.readyState === 'complete') onIdle();
+  else window.addEventListener('load', onIdle, { once: true });
+}
+
+/**
+ * Registers `/sw.js` in a production build (the dev server and tests have none). Safe to call once,
+ * after the page has loaded (`whenLoadedAndIdle`); does nothing where service workers are unavailable
+ * (plain http on another host, old browsers).
  */
 export async function registerServiceWorker(): Promise<void> {
   if (!import.meta.env.PROD || typeof navigator === 'undefined' || !('serviceWorker' in navigator)) return;

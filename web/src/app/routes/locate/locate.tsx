@@ -31,9 +31,10 @@ const useStyles = makeStyles({
 
 export const clientLoader =
   (queryClient: QueryClient) =>
-  async ({ params }: LoaderFunctionArgs) => {
+  ({ params }: LoaderFunctionArgs) => {
+    // Started here, not awaited: the page's frame draws at once on a weak signal and the map follows.
     // Never throws: a refused link is a page of its own, drawn by the component.
-    await queryClient.prefetchQuery(getLocateViewQueryOptions(params.token ?? ''));
+    void queryClient.prefetchQuery(getLocateViewQueryOptions(params.token ?? ''));
     return null;
   };
 

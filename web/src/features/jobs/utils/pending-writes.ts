@@ -1,7 +1,6 @@
 import { createStore, del, entries, set, type UseStore } from 'idb-keyval';
 
 import { getSessionUser, subscribeSession } from '../../../lib/session';
-import { callFromLegacyPath } from '../api/job-write-endpoints';
 import type { JobWrite } from '../api/send-job-write';
 
 /**
@@ -81,8 +80,13 @@ export function loadPendingWrites(): Promise<void> {
 type WriteBefore = Omit<JobWrite, 'endpoint' | 'params' | 'body'> & { method: string; path: string; body?: unknown };
 type StoredBefore = Omit<PendingWrite, 'write'> & { write: WriteBefore };
 
-/** The endpoint and parameters of a write kept as a path, or undefined when the path is not one of ours. */
-function writeFrom(before: WriteBefore): JobWrite | undefined {
+/**
+ * The endpoint and parameters of a write kept as a path, or undefined when the path is not one of ours.
+ * The reader of old paths (with every job write's schema) is loaded only when such an entry is found,
+ * so the start-up code that reads the queue on every page stays small.
+ */
+async function writeFrom(before: WriteBefore): Promise<JobWrite | undefined> {
+  const { callFromLegacyPath } = await import('../api/job-write-endpoints');
   const call = callFromLegacyPath(before.method, before.path, before.body);
   if (!call) return undefined;
   return { ...call, label: before.label, ...(before.draftKey ? { draftKey: before.draftKey } : {}), ...(before.idempotencyKey ? { idempotencyKey: before.idempotencyKey } : {}) };
@@ -93,7 +97,7 @@ function writeFrom(before: WriteBefore): JobWrite | undefined {
  * path names no endpoint stays stored (nothing is silently dropped) but is not sent.
  */
 async function upgradeStored(before: StoredBefore): Promise<PendingWrite | undefined> {
-  const write = writeFrom(before.write);
+  const write = await writeFrom(before.write);
   if (!write) return undefined;
   const upgraded: PendingWrite = { ...before, write };
   await set(upgraded.id, upgraded, writesStore()).catch(() => undefined);
@@ -112,9 +116,10 @@ async function moveLegacyWrites(): Promise<void> {
     const jobId = key.slice(LEGACY_PREFIX.length);
     try {
       const legacy = JSON.parse(localStorage.getItem(key) ?? '[]') as { id: string; write: WriteBefore; baseVersion: number; queuedAt: string }[];
-      if (legacy.some((entry) => !writeFrom(entry.write))) continue; // Unreadable: left where it is.
-      for (const entry of legacy) {
-        const write = writeFrom(entry.write)!;
+      const writes = await Promise.all(legacy.map((entry) => writeFrom(entry.write)));
+      if (writes.some((write) => !write)) continue; // Unreadable: left where it is.
+      for (const [index, entry] of legacy.entries()) {
+        const write = writes[index]!;
         const moved: PendingWrite = { ...entry, jobId, userId: user?.id ?? '', seq: nextSeq(), write: { ...write, idempotencyKey: newIdempotencyKey() } };
         all.push(moved);
         if (hasIndexedDb()) await set(moved.id, moved, writesStore());
