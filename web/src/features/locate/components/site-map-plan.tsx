@@ -4,6 +4,7 @@ import { select } from 'd3-selection';
 import { zoom, zoomIdentity, type ZoomBehavior, type ZoomTransform } from 'd3-zoom';
 import { useCallback, useEffect, useId, useLayoutEffect, useRef, useState } from 'react';
 import { formatDate } from '@domain/format/date-time';
+import { mapItemLabel } from '@domain/locate/item-map-label';
 import type { SiteMap } from '@domain/locate/site-map.schema';
 
 import { FEATURE_FILL, FEATURE_LABEL, FEATURE_STROKE, INK, PAPER, REFERENCE_INK, RUN_STROKES, runStyleKey, scaleDash, type LegendKey } from '@drawings/marking-palette';
@@ -322,7 +323,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
   }
   for (const item of located) {
     const p = { x: sx(item.position!.x), y: sy(item.position!.y) };
-    requests.push({ id: `item:${item.id}`, text: item.kind === 'wall_entry' ? `Wall entry: ${item.label}` : item.label, fontSize: 12, priority: 5, spots: around(p, 12, 12) });
+    requests.push({ id: `item:${item.id}`, text: mapItemLabel(item), fontSize: 12, priority: 5, spots: around(p, 12, 12) });
   }
   for (const ref of map.referencePoints) {
     const p = { x: sx(ref.x), y: sy(ref.y) };
@@ -438,7 +439,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
             const p = item.position!;
             const isWall = item.kind === 'wall_entry';
             return (
-              <g key={`item-${item.id}`} role="graphics-symbol" aria-label={isWall ? `Wall entry ${item.label}` : item.label}>
+              <g key={`item-${item.id}`} role="graphics-symbol" aria-label={mapItemLabel(item)}>
                 {isWall ? (
                   <g>
                     {/* As printed: a square half filled along its diagonal (a sleeve through a wall). */}
