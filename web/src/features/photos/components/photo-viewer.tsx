@@ -21,7 +21,9 @@ import { useNotify } from '../../../components/notify';
 import { formatDateTime } from '../../../lib/format-date';
 import { useDateStyle } from '../../../lib/use-date-style';
 import { describeRequestError } from '../../../lib/form-errors';
-import { useChangePhoto } from '../api/change-photo';
+import { useDeletePhoto } from '../api/delete-photo';
+import { useRestorePhoto } from '../api/restore-photo';
+import { useUpdatePhoto } from '../api/update-photo';
 import type { PhotoResponse } from '../api/get-job-photos';
 import { usePhotoUrl } from '../api/get-photo-file';
 import { usePhotoActions } from '../hooks/photo-actions';
@@ -166,7 +168,10 @@ function PhotoDetails({ photo, onDeleted }: { photo: PhotoResponse; onDeleted: (
   const styles = useStyles();
   const notify = useNotify();
   const { jobId, canChange, targetOptions } = usePhotoActions();
-  const change = useChangePhoto(jobId);
+  const update = useUpdatePhoto(jobId);
+  const del = useDeletePhoto(jobId);
+  const restore = useRestorePhoto(jobId);
+  const isChanging = update.isPending || del.isPending || restore.isPending;
   const [isEditing, setIsEditing] = useState(false);
   const [caption, setCaption] = useState(photo.caption ?? '');
   const [target, setTarget] = useState<PhotoTarget>(photo.target);
@@ -180,7 +185,7 @@ function PhotoDetails({ photo, onDeleted }: { photo: PhotoResponse; onDeleted: (
   const save = async () => {
     setError(undefined);
     try {
-      await change.mutateAsync({ kind: 'update', photoId: photo.id, caption: caption.trim() === '' ? null : caption, target });
+      await update.mutateAsync({ photoId: photo.id, caption: caption.trim() === '' ? null : caption, target });
       setIsEditing(false);
       notify.success('Photo changed');
     } catch (caught) {
@@ -191,10 +196,10 @@ function PhotoDetails({ photo, onDeleted }: { photo: PhotoResponse; onDeleted: (
   const remove = async () => {
     setError(undefined);
     try {
-      await change.mutateAsync({ kind: 'delete', photoId: photo.id });
+      await del.mutateAsync({ photoId: photo.id });
       onDeleted();
       notify.undoable('Photo deleted', () => {
-        change.mutateAsync({ kind: 'restore', photoId: photo.id }).then(
+        restore.mutateAsync({ photoId: photo.id }).then(
           () => notify.success('Photo restored'),
           (caught: unknown) => notify.error('Could not restore the photo', describeRequestError(caught)),
         );
@@ -222,8 +227,8 @@ function PhotoDetails({ photo, onDeleted }: { photo: PhotoResponse; onDeleted: (
             <Button
               appearance="primary"
               className={styles.button}
-              disabled={change.isPending}
-              icon={change.isPending ? <Spinner size="tiny" /> : undefined}
+              disabled={isChanging}
+              icon={isChanging ? <Spinner size="tiny" /> : undefined}
               onClick={() => void save()}
             >
               Save
@@ -248,7 +253,7 @@ function PhotoDetails({ photo, onDeleted }: { photo: PhotoResponse; onDeleted: (
               <Button className={styles.button} icon={<Edit20Regular />} onClick={() => setIsEditing(true)}>
                 Change caption or target
               </Button>
-              <Button className={styles.button} icon={<Delete20Regular />} disabled={change.isPending} onClick={() => void remove()}>
+              <Button className={styles.button} icon={<Delete20Regular />} disabled={isChanging} onClick={() => void remove()}>
                 Delete
               </Button>
             </div>

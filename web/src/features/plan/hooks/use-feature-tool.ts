@@ -5,7 +5,7 @@ import type { PlanPoint } from '@domain/as-built/common.schema';
 import { useNotify } from '../../../components/notify';
 import { describeRequestError } from '../../../lib/form-errors';
 import type { SiteResponse } from '../../sites';
-import { useWriteSiteFeature, type useSiteConflict } from '../../sites';
+import { useCreateSiteFeature, useDeleteSiteFeature, useUpdateSiteFeature, type useSiteConflict } from '../../sites';
 import type { FeatureDraft } from '../components/feature-panel';
 import type { PlanHit } from '../components/plan-canvas';
 import { roundPlanPoint } from '../utils/plan-geometry';
@@ -27,7 +27,9 @@ type FeatureToolOptions = {
  */
 export function useFeatureTool({ site, features, siteConflict, selectedVertex, setSelectedVertex }: FeatureToolOptions) {
   const notify = useNotify();
-  const writeFeature = useWriteSiteFeature();
+  const createFeature = useCreateSiteFeature();
+  const updateFeature = useUpdateSiteFeature();
+  const deleteFeature = useDeleteSiteFeature();
   const [draft, setDraft] = useState<FeatureDraft>(NEW_FEATURE);
   const [points, setPoints] = useState<PlanPoint[]>([]);
   const [error, setError] = useState<string | undefined>();
@@ -47,27 +49,26 @@ export function useFeatureTool({ site, features, siteConflict, selectedVertex, s
 
   const save = (): void => {
     const input = { kind: draft.kind, name: draft.name.trim(), shape: draft.shape, points: points.map(roundPlanPoint) };
-    writeFeature.mutate(
-      { siteId: site.id, ...(draft.featureId ? { featureId: draft.featureId } : {}), input },
-      {
-        onSuccess: () => {
-          notify.success('Landmark saved', input.name);
-          setDraft(NEW_FEATURE);
-          setPoints([]);
-          setSelectedVertex(undefined);
-        },
-        onError: (failure) => {
-          if (!siteConflict.handle(failure, `the landmark “${input.name}”`, save)) setError(describeRequestError(failure));
-        },
+    const outcome = {
+      onSuccess: () => {
+        notify.success('Landmark saved', input.name);
+        setDraft(NEW_FEATURE);
+        setPoints([]);
+        setSelectedVertex(undefined);
       },
-    );
+      onError: (failure: Error) => {
+        if (!siteConflict.handle(failure, `the landmark “${input.name}”`, save)) setError(describeRequestError(failure));
+      },
+    };
+    if (draft.featureId) updateFeature.mutate({ siteId: site.id, featureId: draft.featureId, input }, outcome);
+    else createFeature.mutate({ siteId: site.id, input }, outcome);
   };
 
   const remove = (): void => {
     const { featureId, name } = draft;
     if (!featureId) return;
-    writeFeature.mutate(
-      { siteId: site.id, featureId, isDelete: true },
+    deleteFeature.mutate(
+      { siteId: site.id, featureId },
       {
         onSuccess: () => {
           notify.success('Landmark deleted', name);
@@ -107,7 +108,7 @@ export function useFeatureTool({ site, features, siteConflict, selectedVertex, s
       features,
       draft,
       pointCount: points.length,
-      isSaving: writeFeature.isPending,
+      isSaving: createFeature.isPending || updateFeature.isPending || deleteFeature.isPending,
       error,
       onPick: pick,
       onChange: (next: FeatureDraft) => {

@@ -7,7 +7,8 @@ import { CreateSiteSchema, type SiteResponse } from '@domain/sites/site.schema';
 import { FormDialog, FormTextField } from '../../../components/form-dialog';
 import { useNotify } from '../../../components/notify';
 import { blankToNull, describeRequestError } from '../../../lib/form-errors';
-import { useSaveSite } from '../api/save-site';
+import { useCreateSite } from '../api/create-site';
+import { useUpdateSite } from '../api/update-site';
 import { useSiteConflict } from '../hooks/use-site-conflict';
 
 const useStyles = makeStyles({
@@ -44,7 +45,8 @@ function siteFormSchema(customerId: string) {
 export function SiteDialog({ customerId, site, onSaved }: { customerId: string; site?: SiteResponse; onSaved?: (site: SiteResponse) => void }) {
   const styles = useStyles();
   const notify = useNotify();
-  const save = useSaveSite();
+  const create = useCreateSite();
+  const update = useUpdateSite();
   const conflict = useSiteConflict();
   const schema = useMemo(() => siteFormSchema(customerId), [customerId]);
 
@@ -66,25 +68,24 @@ export function SiteDialog({ customerId, site, onSaved }: { customerId: string; 
         postalCode: site?.postalCode ?? '',
         country: site?.country ?? '',
       }}
-      isPending={save.isPending}
+      isPending={create.isPending || update.isPending}
       after={conflict.dialog}
-      onSubmit={(input, { close, showFieldErrors, submitAgain }) =>
-        save.mutate(
-          { id: site?.id, input },
-          {
-            onSuccess: (saved) => {
-              notify.success(site ? 'Site saved' : 'Site added', saved.label);
-              close();
-              onSaved?.(saved);
-            },
-            onError: (error) => {
-              // Someone changed the site meanwhile: keep what was typed, and ask (the form stays open).
-              if (site && conflict.handle(error, `the address of ${site.label}`, submitAgain)) return;
-              if (!showFieldErrors(error)) notify.error('Could not save the site', describeRequestError(error));
-            },
+      onSubmit={(input, { close, showFieldErrors, submitAgain }) => {
+        const outcome = {
+          onSuccess: (saved: SiteResponse) => {
+            notify.success(site ? 'Site saved' : 'Site added', saved.label);
+            close();
+            onSaved?.(saved);
           },
-        )
-      }
+          onError: (error: Error) => {
+            // Someone changed the site meanwhile: keep what was typed, and ask (the form stays open).
+            if (site && conflict.handle(error, `the address of ${site.label}`, submitAgain)) return;
+            if (!showFieldErrors(error)) notify.error('Could not save the site', describeRequestError(error));
+          },
+        };
+        if (site) update.mutate({ id: site.id, input }, outcome);
+        else create.mutate(input, outcome);
+      }}
     >
       {(form, fieldError) =>
         FIELDS.map((field) => (
