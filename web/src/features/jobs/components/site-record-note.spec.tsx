@@ -48,11 +48,32 @@ describe('site record note (issue 21)', () => {
     const rev1 = { jobId: 'job-b', jobTitle: 'Fire pit zone', change: 'changed' as const, on: '2027-04-02', isIssued: true };
     const issuedOnly = { ...earlier, changedBy: [rev1] };
     expect(siteRecordText(issuedOnly, 'job-b')).toBe(
-      'Already in the ground: installed May 14, 2026 by “Garden speakers”. Changed by an earlier revision of this job (Apr 2, 2027). Read-only until this job changes it.',
+      'Already in the ground: installed May 14, 2026 by “Garden speakers”. Changed Apr 2, 2027 by an earlier revision of this job. Read-only until this job changes it.',
     );
     const again = { ...earlier, changedBy: [rev1, { ...rev1, change: 'abandoned' as const, on: '2027-05-20', isIssued: false }] };
     expect(siteRecordText(again, 'job-b')).toBe(
-      'Already in the ground: installed May 14, 2026 by “Garden speakers”. Changed by an earlier revision of this job (Apr 2, 2027). This job abandons it in place.',
+      'Already in the ground: installed May 14, 2026 by “Garden speakers”. Changed Apr 2, 2027 by an earlier revision of this job. This job abandons it in place.',
+    );
+  });
+
+  it('lists the issued changes of every job with their dates, and an abandonment by an earlier revision of this job', () => {
+    const history = {
+      ...earlier,
+      abandoned: { jobId: 'job-c', jobTitle: 'Pond rework', on: '2027-03-03' },
+      changedBy: [
+        { jobId: 'job-b', jobTitle: 'Fire pit zone', change: 'changed' as const, on: '2027-04-02', isIssued: true },
+        { jobId: 'job-c', jobTitle: 'Pond rework', change: 'abandoned' as const, on: '2027-03-03', isIssued: true },
+        { jobId: 'job-c', jobTitle: 'Pond rework', change: 'changed' as const, on: '2027-08-10', isIssued: true },
+      ],
+    };
+    // Seen from another job: who changed it and when; the abandonment once, in its own sentence.
+    expect(siteRecordText(history, 'job-d')).toBe(
+      'Already in the ground: installed May 14, 2026 by “Garden speakers”. Abandoned in place since Mar 3, 2027 (“Pond rework”). Changed Apr 2, 2027 by “Fire pit zone”; Aug 10, 2027 by “Pond rework”. Read-only until this job changes it.',
+    );
+    // Seen from the reopened job that abandoned it in revision 1 and changes it now.
+    const reopened = { ...history, changedBy: [...history.changedBy, { jobId: 'job-c', jobTitle: 'Pond rework', change: 'changed' as const, on: '2027-09-01', isIssued: false }] };
+    expect(siteRecordText(reopened, 'job-c')).toBe(
+      'Already in the ground: installed May 14, 2026 by “Garden speakers”. Abandoned in place since Mar 3, 2027 by an earlier revision of this job. Changed Apr 2, 2027 by “Fire pit zone”; Aug 10, 2027 by an earlier revision of this job. This job changes it.',
     );
   });
 

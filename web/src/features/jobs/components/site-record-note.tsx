@@ -28,12 +28,16 @@ export function siteRecordText(info: SiteRecordInfo, jobId: string): string {
       ? `Already in the ground: installed ${formatDate(info.installedOn)} and issued in an earlier revision of this job.`
       : `Already in the ground: installed ${formatDate(info.installedOn)} by “${info.installedBy.jobTitle}”.`,
   ];
-  if (info.abandoned && info.abandoned.jobId !== jobId) parts.push(`Abandoned in place since ${formatDate(info.abandoned.on)} (“${info.abandoned.jobTitle}”).`);
-  // An earlier revision of this job changed it: that change is issued history, not this revision's.
-  const issuedHere = info.changedBy.filter((c) => c.jobId === jobId && c.isIssued);
-  const lastIssued = issuedHere.at(-1);
-  if (lastIssued) parts.push(`Changed by an earlier revision of this job (${formatDate(lastIssued.on)}).`);
   const mine = openChangeOf(info, jobId);
+  const byWhom = (c: { jobId: string; jobTitle: string }) => (c.jobId === jobId ? 'an earlier revision of this job' : `“${c.jobTitle}”`);
+  if (info.abandoned && info.abandoned.jobId !== jobId) parts.push(`Abandoned in place since ${formatDate(info.abandoned.on)} (“${info.abandoned.jobTitle}”).`);
+  // Abandoned by an earlier revision of this job (not by this revision: that is its own change, below).
+  if (info.abandoned && info.abandoned.jobId === jobId && mine?.change !== 'abandoned') {
+    parts.push(`Abandoned in place since ${formatDate(info.abandoned.on)} by an earlier revision of this job.`);
+  }
+  // Changes already issued (another job's, or an earlier revision of this one), oldest first, with dates.
+  const issued = info.changedBy.filter((c) => c.isIssued && c.change === 'changed');
+  if (issued.length > 0) parts.push(`Changed ${issued.map((c) => `${formatDate(c.on)} by ${byWhom(c)}`).join('; ')}.`);
   parts.push(mine ? CHANGE_WORDS[mine.change] : 'Read-only until this job changes it.');
   return parts.join(' ');
 }
