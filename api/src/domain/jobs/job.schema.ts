@@ -139,7 +139,10 @@ export const SiteRecordInfoSchema = z.object({
   installedBy: z.object({ jobId: z.string(), jobTitle: z.string() }),
   /** ISO date: the installing job's work date. */
   installedOn: z.string(),
-  /** Jobs that changed the record after it went in, oldest first (`isIssued` false: not issued yet). */
+  /**
+   * Jobs that changed the record after it went in, oldest first (`isIssued` false: not issued yet): one
+   * entry per job and issue, so a reopened job that changes it again is listed again, with its new date.
+   */
   changedBy: z.array(
     z.object({
       jobId: z.string(),
