@@ -6,7 +6,8 @@ import { CreateCustomerSchema, type CustomerResponse } from '@domain/customers/c
 import { FormDialog, FormTextField } from '../../../components/form-dialog';
 import { useNotify } from '../../../components/notify';
 import { blankToNull, describeRequestError } from '../../../lib/form-errors';
-import { useSaveCustomer } from '../api/save-customer';
+import { useCreateCustomer } from '../api/create-customer';
+import { useUpdateCustomer } from '../api/update-customer';
 
 const useStyles = makeStyles({
   control: { minHeight: '48px' },
@@ -20,7 +21,8 @@ const CustomerFormSchema = z
 export function CustomerDialog({ customer, onSaved }: { customer?: CustomerResponse; onSaved?: (customer: CustomerResponse) => void }) {
   const styles = useStyles();
   const notify = useNotify();
-  const save = useSaveCustomer();
+  const create = useCreateCustomer();
+  const update = useUpdateCustomer();
 
   return (
     <FormDialog
@@ -32,22 +34,21 @@ export function CustomerDialog({ customer, onSaved }: { customer?: CustomerRespo
       title={customer ? `Change ${customer.name}` : 'New customer'}
       schema={CustomerFormSchema}
       defaultValues={{ name: customer?.name ?? '', email: customer?.email ?? '', phone: customer?.phone ?? '', notes: customer?.notes ?? '' }}
-      isPending={save.isPending}
-      onSubmit={(input, { close, showFieldErrors }) =>
-        save.mutate(
-          { id: customer?.id, input },
-          {
-            onSuccess: (saved) => {
-              notify.success(customer ? 'Customer saved' : 'Customer added', saved.name);
-              close();
-              onSaved?.(saved);
-            },
-            onError: (error) => {
-              if (!showFieldErrors(error)) notify.error('Could not save the customer', describeRequestError(error));
-            },
+      isPending={create.isPending || update.isPending}
+      onSubmit={(input, { close, showFieldErrors }) => {
+        const outcome = {
+          onSuccess: (saved: CustomerResponse) => {
+            notify.success(customer ? 'Customer saved' : 'Customer added', saved.name);
+            close();
+            onSaved?.(saved);
           },
-        )
-      }
+          onError: (error: Error) => {
+            if (!showFieldErrors(error)) notify.error('Could not save the customer', describeRequestError(error));
+          },
+        };
+        if (customer) update.mutate({ id: customer.id, input }, outcome);
+        else create.mutate(input, outcome);
+      }}
     >
       {(form, fieldError) => (
         <>
