@@ -3,7 +3,7 @@ import { Navigate, redirect } from 'react-router';
 
 import { RouteErrorPage } from '../../../components/errors/route-error-page';
 import { paths } from '../../../config/paths';
-import { getFailedDeliveriesQueryOptions } from '../../../features/delivery/api/deliveries';
+import { getFailedDeliveriesQueryOptions } from '../../../features/delivery/api/get-failed-deliveries';
 import { getQueueQueryOptions, getTodayQueryOptions } from '../../../features/home/api/get-home-jobs';
 import { Today } from '../../../features/home/components/today';
 import { WorkQueue } from '../../../features/home/components/work-queue';

@@ -16,7 +16,8 @@ import { paths } from '../../../config/paths';
 import { describeRequestError } from '../../../lib/form-errors';
 import { formatDateTime } from '../../../lib/format-date';
 import { useDateStyle } from '../../../lib/use-date-style';
-import { useDismissDelivery, useResendDelivery } from '../api/deliveries';
+import { useDismissDelivery } from '../api/dismiss-delivery';
+import { useResendDelivery } from '../api/resend-delivery';
 
 const useStyles = makeStyles({
   list: { listStyle: 'none', margin: 0, padding: 0, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },

@@ -1,7 +1,7 @@
 import { makeStyles, Text, tokens } from '@fluentui/react-components';
 import { MailError20Regular } from '@fluentui/react-icons';
 
-import { useFailedDeliveries } from '../api/deliveries';
+import { useFailedDeliveries } from '../api/get-failed-deliveries';
 
 import { DeliveryStatusList } from './delivery-status-list';
 

@@ -1,7 +1,7 @@
 import { makeStyles, MessageBar, MessageBarBody, MessageBarTitle, Spinner, Text, tokens } from '@fluentui/react-components';
 
 import { describeRequestError } from '../../../lib/form-errors';
-import { useJobDeliveries } from '../api/deliveries';
+import { useJobDeliveries } from '../api/get-job-deliveries';
 
 import { DeliveryStatusList } from './delivery-status-list';
 

@@ -18,7 +18,8 @@ import { FormDialog, type FormDialogHelpers } from '../../../components/form-dia
 import { useNotify } from '../../../components/notify';
 import { isApiError } from '../../../lib/api-client';
 import { describeRequestError } from '../../../lib/form-errors';
-import { useSendOptions, useSendPacket } from '../api/deliveries';
+import { useSendOptions } from '../api/get-send-options';
+import { useSendPacket } from '../api/send-packet';
 
 const MESSAGE_MAX = 1000;
 
