@@ -9,19 +9,19 @@ import { Today } from '../../../features/home/components/today';
 import { WorkQueue } from '../../../features/home/components/work-queue';
 import { getSessionUser, useSessionUser } from '../../../lib/session';
 
-export const clientLoader = (queryClient: QueryClient) => async () => {
+export const clientLoader = (queryClient: QueryClient) => () => {
   const role = getSessionUser()?.role;
   // A homeowner's home is their property.
   if (role === 'homeowner') throw redirect(paths.portal.getHref());
-  // prefetchQuery never throws: a list that fails to load says so on the page.
+  // Started here, not awaited: the page (its heading and what it is for) draws at once on a weak
+  // signal and each list shows its own loading state until it arrives. prefetchQuery never throws: a
+  // list that fails to load says so on the page.
   if (role === 'admin' || role === 'office') {
-    await Promise.all([
-      queryClient.prefetchQuery(getQueueQueryOptions('submitted')),
-      queryClient.prefetchQuery(getQueueQueryOptions('ready_to_issue')),
-      queryClient.prefetchQuery(getFailedDeliveriesQueryOptions()),
-    ]);
+    void queryClient.prefetchQuery(getQueueQueryOptions('submitted'));
+    void queryClient.prefetchQuery(getQueueQueryOptions('ready_to_issue'));
+    void queryClient.prefetchQuery(getFailedDeliveriesQueryOptions());
   } else if (role === 'lead' || role === 'tech') {
-    await queryClient.prefetchQuery(getTodayQueryOptions());
+    void queryClient.prefetchQuery(getTodayQueryOptions());
   }
   return null;
 };
