@@ -266,7 +266,7 @@ type FormTextFieldProps<TValues extends FieldValues, TOutput> = {
   hint?: string;
   /** A Textarea instead of a one-line Input. */
   isMultiline?: boolean;
-} & Pick<InputProps, 'type' | 'inputMode' | 'placeholder' | 'autoComplete' | 'autoCapitalize' | 'spellCheck'>;
+} & Pick<InputProps, 'type' | 'inputMode' | 'placeholder' | 'autoComplete' | 'autoCapitalize' | 'spellCheck' | 'min' | 'max' | 'maxLength'>;
 
 /** A labelled text field of a FormDialog, bound to the form by name. */
 export function FormTextField<TValues extends FieldValues, TOutput>({
@@ -287,7 +287,14 @@ export function FormTextField<TValues extends FieldValues, TOutput>({
       render={({ field }) => (
         <Field label={label} required={required} hint={error ? undefined : hint} validationMessage={error}>
           {isMultiline ? (
-            <Textarea ref={field.ref} name={name} value={field.value} onChange={(_e, d) => field.onChange(d.value)} onBlur={field.onBlur} />
+            <Textarea
+              ref={field.ref}
+              name={name}
+              value={field.value}
+              maxLength={inputProps.maxLength}
+              onChange={(_e, d) => field.onChange(d.value)}
+              onBlur={field.onBlur}
+            />
           ) : (
             <Input
               ref={field.ref}

@@ -1,30 +1,13 @@
-import {
-  Badge,
-  Button,
-  Dialog,
-  DialogActions,
-  DialogBody,
-  DialogContent,
-  DialogSurface,
-  DialogTitle,
-  DialogTrigger,
-  Field,
-  Input,
-  makeStyles,
-  MessageBar,
-  MessageBarBody,
-  Spinner,
-  Text,
-  Textarea,
-  tokens,
-} from '@fluentui/react-components';
+import { Badge, Button, Input, makeStyles, MessageBar, MessageBarBody, Spinner, Text, tokens } from '@fluentui/react-components';
 import { Add20Regular, Copy20Regular, Delete20Regular } from '@fluentui/react-icons';
-import { useState, type FormEvent } from 'react';
+import { useState } from 'react';
+import { z } from 'zod';
 import { CreateLocateLinkSchema } from '@domain/locate/locate-link.schema';
 
 import { ConfirmDialog } from '../../../components/confirm-dialog';
+import { FormDialog, FormTextField } from '../../../components/form-dialog';
 import { useNotify } from '../../../components/notify';
-import { describeRequestError, fieldErrorsFromApi, fieldErrorsFromZod, type FieldErrors } from '../../../lib/form-errors';
+import { describeRequestError } from '../../../lib/form-errors';
 import { formatDate, formatDateTime } from '../../../lib/format-date';
 import { useDateStyle } from '../../../lib/use-date-style';
 import { useCreateLocateLink, type CreatedLocateLinkResponse } from '../api/create-locate-link';
@@ -33,8 +16,6 @@ import { useRevokeLocateLink } from '../api/revoke-locate-link';
 
 const useStyles = makeStyles({
   root: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
-  form: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },
-  control: { minHeight: '48px' },
   created: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
   url: { display: 'flex', gap: tokens.spacingHorizontalS, alignItems: 'stretch' },
   urlInput: { flexGrow: 1, minHeight: '48px', fontFamily: tokens.fontFamilyMonospace },
@@ -54,8 +35,6 @@ const useStyles = makeStyles({
   muted: { color: tokens.colorNeutralForeground2 },
   button: { minHeight: '44px' },
 });
-
-type Key = 'expiresInDays' | 'note';
 
 function CreatedLink({ link }: { link: CreatedLocateLinkResponse }) {
   const dateStyle = useDateStyle();
@@ -85,122 +64,83 @@ function CreatedLink({ link }: { link: CreatedLocateLinkResponse }) {
   );
 }
 
+/** The form's text as typed; parsed into the shared CreateLocateLinkSchema (blank days: not a number, blank note: none). */
+const LocateLinkFormSchema = z
+  .object({ expiresInDays: z.string(), note: z.string() })
+  .transform(
+    ({ expiresInDays, note }): z.input<typeof CreateLocateLinkSchema> => ({
+      expiresInDays: expiresInDays.trim() === '' ? Number.NaN : Number(expiresInDays),
+      ...(note.trim() === '' ? {} : { note }),
+    }),
+  )
+  .pipe(CreateLocateLinkSchema);
+
 /** Make a link for a contractor: how long it works, an optional note; then show its URL once. */
 export function CreateLocateLinkDialog({ siteId }: { siteId: string }) {
   const styles = useStyles();
   const create = useCreateLocateLink();
-  const [open, setOpen] = useState(false);
-  const [days, setDays] = useState('14');
-  const [note, setNote] = useState('');
-  const [errors, setErrors] = useState<FieldErrors<Key>>({});
   const [created, setCreated] = useState<CreatedLocateLinkResponse | undefined>();
 
-  const reset = () => {
-    setDays('14');
-    setNote('');
-    setErrors({});
-    setCreated(undefined);
-    create.reset();
-  };
-
-  const submit = (event: FormEvent) => {
-    event.preventDefault();
-    const parsed = CreateLocateLinkSchema.safeParse({
-      expiresInDays: days.trim() === '' ? Number.NaN : Number(days),
-      note: note.trim() === '' ? undefined : note,
-    });
-    if (!parsed.success) {
-      setErrors(fieldErrorsFromZod<Key>(parsed.error));
-      return;
-    }
-    setErrors({});
-    create.mutate(
-      { siteId, input: parsed.data },
-      {
-        onSuccess: setCreated,
-        onError: (error) => setErrors(fieldErrorsFromApi<Key>(error)),
-      },
-    );
-  };
-
   return (
-    <Dialog
-      open={open}
-      onOpenChange={(_event, data) => {
-        setOpen(data.open);
-        if (!data.open) reset();
-      }}
-    >
-      <DialogTrigger disableButtonEnhancement>
+    <FormDialog
+      trigger={
         <Button appearance="primary" className={styles.button} icon={<Add20Regular />}>
           New locate link
         </Button>
-      </DialogTrigger>
-      <DialogSurface>
-        {created ? (
-          <DialogBody>
-            <DialogTitle>Locate link ready</DialogTitle>
-            <DialogContent>
-              <CreatedLink link={created} />
-            </DialogContent>
-            <DialogActions>
-              <DialogTrigger disableButtonEnhancement>
-                <Button appearance="primary" className={styles.button}>
-                  Done
-                </Button>
-              </DialogTrigger>
-            </DialogActions>
-          </DialogBody>
-        ) : (
-          <form onSubmit={submit} noValidate>
-            <DialogBody>
-              <DialogTitle>New locate link</DialogTitle>
-              <DialogContent className={styles.form}>
-                <Text>
-                  Send this link to whoever is about to dig (landscaper, fence or irrigation contractor). It shows the map of
-                  buried cables and their depths, without signing in.
-                </Text>
-                {create.isError && Object.keys(errors).length === 0 && (
-                  <MessageBar intent="error">
-                    <MessageBarBody>{describeRequestError(create.error)}</MessageBarBody>
-                  </MessageBar>
-                )}
-                <Field label="Works for (days)" required validationMessage={errors.expiresInDays} hint="1 to 365 days">
-                  <Input
-                    className={styles.control}
-                    type="number"
-                    inputMode="numeric"
-                    min={1}
-                    max={365}
-                    value={days}
-                    onChange={(_e, data) => setDays(data.value)}
-                  />
-                </Field>
-                <Field label="Note (optional)" validationMessage={errors.note} hint="Shown to whoever opens the link">
-                  <Textarea value={note} maxLength={500} onChange={(_e, data) => setNote(data.value)} />
-                </Field>
-              </DialogContent>
-              <DialogActions>
-                <DialogTrigger disableButtonEnhancement>
-                  <Button className={styles.button} disabled={create.isPending}>
-                    Cancel
-                  </Button>
-                </DialogTrigger>
-                <Button
-                  type="submit"
-                  appearance="primary"
-                  className={styles.button}
-                  disabled={create.isPending}
-                  icon={create.isPending ? <Spinner size="tiny" /> : undefined}
-                >
-                  Create link
-                </Button>
-              </DialogActions>
-            </DialogBody>
-          </form>
-        )}
-      </DialogSurface>
-    </Dialog>
+      }
+      title="New locate link"
+      schema={LocateLinkFormSchema}
+      defaultValues={{ expiresInDays: '14', note: '' }}
+      isPending={create.isPending}
+      submitLabel="Create link"
+      onOpenChange={(open) => {
+        if (open) return;
+        setCreated(undefined);
+        create.reset();
+      }}
+      view={created && { title: 'Locate link ready', content: <CreatedLink link={created} />, closeLabel: 'Done' }}
+      onSubmit={(input, { showFieldErrors, showMessage }) =>
+        create.mutate(
+          { siteId, input },
+          {
+            onSuccess: setCreated,
+            onError: (error) => {
+              if (!showFieldErrors(error)) showMessage(describeRequestError(error));
+            },
+          },
+        )
+      }
+    >
+      {(form, fieldError) => (
+        <>
+          <Text>
+            Send this link to whoever is about to dig (landscaper, fence or irrigation contractor). It shows the map of buried cables and
+            their depths, without signing in.
+          </Text>
+          <FormTextField
+            form={form}
+            name="expiresInDays"
+            label="Works for (days)"
+            required
+            type="number"
+            inputMode="numeric"
+            min={1}
+            max={365}
+            hint="1 to 365 days"
+            error={fieldError('expiresInDays')}
+          />
+          <FormTextField
+            form={form}
+            name="note"
+            label="Note (optional)"
+            isMultiline
+            maxLength={500}
+            hint="Shown to whoever opens the link"
+            error={fieldError('note')}
+          />
+        </>
+      )}
+    </FormDialog>
   );
 }
 
