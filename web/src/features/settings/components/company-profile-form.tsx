@@ -6,7 +6,10 @@ import { isIanaTimeZone, isSupportedLocale } from '@domain/company/company-profi
 import { useNotify } from '../../../components/notify';
 import { isApiError } from '../../../lib/api-client';
 import { describeRequestError, toSentence } from '../../../lib/form-errors';
-import { useLogoUrl, useRemoveLogo, useUpdateCompanyProfile, useUploadLogo } from '../api/company-profile';
+import { useLogoUrl } from '../api/get-logo';
+import { useRemoveLogo } from '../api/remove-logo';
+import { useUpdateCompanyProfile } from '../api/update-company-profile';
+import { useUploadLogo } from '../api/upload-logo';
 
 const useStyles = makeStyles({
   form: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },

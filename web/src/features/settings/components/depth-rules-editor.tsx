@@ -8,7 +8,8 @@ import { describeRequestError } from '../../../lib/form-errors';
 import { formatLength, lengthInputValue, parseLength, unitLabel } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 import { LOCATION_LABELS, METHOD_LABELS } from '../../job-record';
-import { useResetDepthRules, useUpdateDepthRules } from '../api/company-profile';
+import { useResetDepthRules } from '../api/reset-depth-rules';
+import { useUpdateDepthRules } from '../api/update-depth-rules';
 
 const useStyles = makeStyles({
   root: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
