@@ -84,7 +84,7 @@ try {
   const p = median(pipeline);
   const c = median(printOnly);
   console.log(`demo packet, 24 photos: ${pages} pages, ${(bytes / 1024 / 1024).toFixed(1)} MiB PDF; median of ${ITERATIONS}, warm browser`);
-  console.log(`  whole pipeline (view model + drawings + QR + template + 2 prints)  ${p.toFixed(0).padStart(6)} ms`);
+  console.log(`  whole pipeline (view model + drawings + QR + template + draft + final) ${p.toFixed(0).padStart(5)} ms`);
   console.log(`  Chromium printing the final HTML alone                             ${c.toFixed(0).padStart(6)} ms`);
   console.log(`  ratio pipeline / print alone                                       ${(p / c).toFixed(2).padStart(6)} ×  (goal ≤ 1.20)`);
   for (const [name, samples] of stages) console.log(`    stage: ${name.padEnd(62)}${median(samples).toFixed(0).padStart(6)} ms`);

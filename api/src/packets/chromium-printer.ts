@@ -34,6 +34,26 @@ export interface PrintRequest {
   onPrinting?: () => void;
 }
 
+/** A page loaded with its HTML (fonts decoded), ready to print; closed by its owner. */
+export interface LoadedPage {
+  /**
+   * Sets the text of the elements `selector` matches, in place (no reload): for text whose box has a
+   * fixed size, such as the contents' page numbers, so nothing else on the page moves. Resolves with how
+   * many elements were set.
+   */
+  setTexts(texts: readonly { selector: string; text: string }[]): Promise<number>;
+  /** Prints the page as it is now (see {@link PrintRequest.onPrinting}). */
+  print(): Promise<Buffer>;
+  close(): Promise<void>;
+}
+
+/** The printer's pages for one job of work (a packet): it holds one of the printer's turns throughout. */
+export interface PrintSession {
+  print(request: PrintRequest): Promise<Buffer>;
+  /** Loads a page and leaves it open: the caller prints it (possibly more than once) and closes it. */
+  load(request: PrintRequest): Promise<LoadedPage>;
+}
+
 /** Chromium flags proven on Debian 12 (shared VERSIONS.md); the profile folder is added per launch. */
 const CHROMIUM_ARGS = [
   '--headless',
@@ -76,7 +96,8 @@ async function openBlankPage(browser: Browser): Promise<Page> {
  * can drive it directly; `PdfRendererService` owns one in the Nest app.
  *
  * Opening a page (a new renderer) takes a few hundred milliseconds, so one blank page is kept open
- * ahead: each print takes it and opens the next one while it prints. A page is never used twice.
+ * ahead: each load takes it and opens the next one while it loads. A page is never given new HTML
+ * (only its texts set in place, see {@link LoadedPage.setTexts}).
  */
 export class ChromiumPrinter {
   private browser: Promise<Browser> | undefined;
@@ -90,24 +111,61 @@ export class ChromiumPrinter {
   constructor(private readonly options: ChromiumPrinterOptions) {}
 
   async print(request: PrintRequest): Promise<Buffer> {
+    return this.session((pages) => pages.print(request));
+  }
+
+  /**
+   * One turn of the printer (`concurrency` counts these) for `work`, which may use more than one page
+   * at once: the packet loads its final page while its page-numbering draft is still printing.
+   */
+  async session<T>(work: (pages: PrintSession) => Promise<T>): Promise<T> {
     await this.acquire();
     try {
-      const page = await this.takePage();
-      try {
-        page.on('request', (req: HTTPRequest) => {
-          if (isAllowedRequest(req.url())) {
-            void req.continue();
-          } else {
-            request.onBlockedRequest?.(req.url());
-            void req.abort('blockedbyclient');
+      return await work({
+        print: async (request) => {
+          const page = await this.load(request);
+          try {
+            return await page.print();
+          } finally {
+            await page.close();
           }
-        });
-        await page.setContent(request.html, { waitUntil: 'load', timeout: this.options.contentTimeoutMs });
-        // Page scripts are off, but DevTools evaluation still works: wait for the inline fonts to decode.
-        // (A string expression: the API is compiled without the DOM library.)
-        await page.evaluate('document.fonts.ready.then(() => true)');
+        },
+        load: (request) => this.load(request),
+      });
+    } finally {
+      this.release();
+    }
+  }
+
+  private async load(request: PrintRequest): Promise<LoadedPage> {
+    const page = await this.takePage();
+    try {
+      page.on('request', (req: HTTPRequest) => {
+        if (isAllowedRequest(req.url())) {
+          void req.continue();
+        } else {
+          request.onBlockedRequest?.(req.url());
+          void req.abort('blockedbyclient');
+        }
+      });
+      await page.setContent(request.html, { waitUntil: 'load', timeout: this.options.contentTimeoutMs });
+      // Page scripts are off, but DevTools evaluation still works: wait for the inline fonts to decode.
+      // (A string expression: the API is compiled without the DOM library.)
+      await page.evaluate('document.fonts.ready.then(() => true)');
+    } catch (error) {
+      await page.close().catch(() => undefined);
+      throw error;
+    }
+    return {
+      setTexts: async (texts) =>
+        Number(
+          await page.evaluate(
+            `(() => { let n = 0; for (const t of ${JSON.stringify(texts)}) for (const el of document.querySelectorAll(t.selector)) { el.textContent = t.text; n += 1; } return n; })()`,
+          ),
+        ),
+      print: async () => {
         const printing = page.pdf({
-          // The fonts were awaited just above; puppeteer's own wait would cost another round trip.
+          // The fonts were awaited after loading; puppeteer's own wait would cost another round trip.
           waitForFonts: false,
           printBackground: true,
           preferCSSPageSize: true,
@@ -122,12 +180,9 @@ export class ChromiumPrinter {
         // page.pdf() has sent Page.printToPDF before its first await: Chromium is printing now.
         request.onPrinting?.();
         return Buffer.from(await printing);
-      } finally {
-        await page.close().catch(() => undefined);
-      }
-    } finally {
-      this.release();
-    }
+      },
+      close: () => page.close().catch(() => undefined),
+    };
   }
 
   /** A fresh page of the current browser: the one kept ahead when it is there, else a new one. */

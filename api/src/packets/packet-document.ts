@@ -248,12 +248,19 @@ export interface RenderedPacket {
   drawings: PacketDrawings;
 }
 
+/** The contents' page-number cells, one per section id (packet.html.hbs `data-toc-page`). */
+const TOC_PAGE_CELL = /<span class="toc-page" data-toc-page="([a-z0-9-]+)">[^<]*<\/span>/g;
+
 /**
- * The whole packet pipeline: view model → drawings → HTML → PDF. Page numbers for the contents are found
- * by a first print (photos and drawings replaced by empty boxes of the same size, which is cheap) whose named destinations,
- * read with pdf.js, give each section's page; the second print carries them. The contents page has a fixed layout, so
- * filling in the numbers cannot move a section. The drawings are drawn while Chromium prints that draft,
- * so the draft costs little more than its page load.
+ * The whole packet pipeline: view model → drawings → HTML → PDF, in one turn of the printer.
+ *
+ * Page numbers for the contents come from a first print (photos and drawings replaced by empty boxes of
+ * the same size, which is cheap) whose named destinations, read with pdf.js, give each section's page.
+ * The drawings are drawn while Chromium prints that draft; then the final HTML, its contents' numbers
+ * still dashes, loads into a second page while the draft is read. The numbers are written into that
+ * page in place: their cells have a fixed width (print.css `.toc-page`) and the contents page a fixed
+ * layout, so nothing moves, and one final print suffices. The final print's own destinations are
+ * checked against the numbers it carries (printed once more, fully, should they ever differ).
  */
 export async function renderPacket(
   printer: ChromiumPrinter,
@@ -262,7 +269,7 @@ export async function renderPacket(
     planImage?: PlanImage;
     onBlockedRequest?: (url: string) => void;
     /** Called after each stage with its wall time, ms (the benchmark's breakdown). */
-    onStage?: (stage: 'drawings' | 'first print' | 'page numbers' | 'final print' | 'document info', ms: number) => void;
+    onStage?: (stage: 'drawings' | 'first print' | 'final load' | 'final print' | 'document info' | 'reprint', ms: number) => void;
   },
 ): Promise<RenderedPacket> {
   let mark = performance.now();
@@ -274,6 +281,7 @@ export async function renderPacket(
   const draft = buildPacketViewModel(input);
   const qrSvg = await qrCodeSvg(input.locateUrl);
   const footerTemplate = renderFooterTemplate(draft);
+  const locale = input.snapshot.settings.locale ?? null;
   // The first pass only needs to know where pages break. The site plan, ties sheet and schematic each
   // fill exactly one page of their own (sized to it: see drawPacketDrawings), so empty placeholders
   // stand in for them and they are drawn while Chromium prints the draft; depth profiles share pages
@@ -284,41 +292,69 @@ export async function renderPacket(
     drawings: { sitePlan: PAGE_PLACEHOLDER, ties: PAGE_PLACEHOLDER, schematic: PAGE_PLACEHOLDER, profiles: profiles.map((p) => ({ ...p, svg: emptySvgLike(p.svg) })) },
     qrSvg,
     logoDataUri: input.logoDataUri,
-    locale: input.snapshot.settings.locale ?? null,
+    locale,
   });
-  let isPrinting!: () => void;
-  const draftPrinting = new Promise<void>((resolve) => (isPrinting = resolve));
-  const firstPrint = printer.print({ html: firstHtml, footerTemplate, isDraft: true, onBlockedRequest: input.onBlockedRequest, onPrinting: isPrinting });
-  // A rejected draft is awaited below; until then keep it from counting as unhandled.
-  firstPrint.catch(() => undefined);
-  // The draft page loads through this process (each of its requests is answered here), so drawing now
-  // would hold it up: the drawings are drawn once Chromium prints the draft on its own (or it failed).
-  await Promise.race([draftPrinting, firstPrint.then(noop, noop)]);
-  const drawings = { ...(await drawPacketDrawings(input.snapshot, draft, input.planImage, { withProfiles: false })), profiles };
-  stage('drawings');
-  const first = await readPdfLayout(await firstPrint);
-  stage('first print');
   const numbersFrom = (layout: { destinations: Map<string, number> }) =>
     Object.fromEntries(draft.toc.map((entry) => [entry.id, layout.destinations.get(entry.id)]).filter(([, page]) => page !== undefined)) as Record<string, number>;
-  let pageNumbers = numbersFrom(first);
-  stage('page numbers');
-  for (let attempt = 0; ; attempt += 1) {
-    const vm = buildPacketViewModel({ ...input, pageNumbers });
-    const html = renderPacketHtml({ vm, drawings, qrSvg, logoDataUri: input.logoDataUri, locale: input.snapshot.settings.locale ?? null });
-    const printed = await printer.print({ html, footerTemplate, onBlockedRequest: input.onBlockedRequest });
+  /** The final HTML with these numbers in the contents (the template's own text for a section without one). */
+  const withNumbers = (html: string, numbers: Record<string, number>) =>
+    html.replace(TOC_PAGE_CELL, (cell: string, id: string) => cell.replace(/>[^<]*<\/span>$/, `>${numbers[id] ?? '–'}</span>`));
+
+  return printer.session(async (pages) => {
+    let isPrinting!: () => void;
+    const draftPrinting = new Promise<void>((resolve) => (isPrinting = resolve));
+    const firstPrint = pages.print({ html: firstHtml, footerTemplate, isDraft: true, onBlockedRequest: input.onBlockedRequest, onPrinting: isPrinting });
+    // A rejected draft is awaited below; until then keep it from counting as unhandled.
+    firstPrint.catch(() => undefined);
+    // The draft page loads through this process (each of its requests is answered here), so drawing now
+    // would hold it up: the drawings are drawn once Chromium prints the draft on its own (or it failed).
+    await Promise.race([draftPrinting, firstPrint.then(noop, noop)]);
+    const drawings = { ...(await drawPacketDrawings(input.snapshot, draft, input.planImage, { withProfiles: false })), profiles };
+    stage('drawings');
+    // The final page loads (photos and all, the bulk of Chromium's work) while the draft is read.
+    const dashed = renderPacketHtml({ vm: draft, drawings, qrSvg, logoDataUri: input.logoDataUri, locale });
+    const loading = pages.load({ html: dashed, footerTemplate, onBlockedRequest: input.onBlockedRequest });
+    loading.catch(() => undefined);
+    let pageNumbers: Record<string, number>;
+    try {
+      pageNumbers = numbersFrom(await readPdfLayout(await firstPrint));
+    } catch (error) {
+      await (await loading.catch(() => undefined))?.close();
+      throw error;
+    }
+    stage('first print');
+    const page = await loading;
+    stage('final load');
+    let printed: Buffer;
+    try {
+      const cells = draft.toc.map((entry) => ({ selector: `[data-toc-page="${entry.id}"]`, text: String(pageNumbers[entry.id] ?? '–') }));
+      const set = await page.setTexts(cells);
+      if (set !== cells.length) throw new Error(`the contents have ${set} page-number cells for ${cells.length} sections`);
+      printed = await page.print();
+    } finally {
+      await page.close();
+    }
     stage('final print');
+    let html = withNumbers(dashed, pageNumbers);
+    let vm = buildPacketViewModel({ ...input, pageNumbers });
     // One pdf.js opening of the final print gives its pages, destinations and Chromium's information
     // dictionary; labelling it appends to the bytes without moving a page, so it is not read again.
-    const { layout, info } = await readPdfFacts(printed);
-    const pdf = await withDocumentInfo(printed, packetDocumentInfo(vm, input.snapshot), input.snapshot.issuedAt, info);
+    let facts = await readPdfFacts(printed);
+    const printedNumbers = numbersFrom(facts.layout);
+    if (!Object.entries(printedNumbers).every(([id, n]) => pageNumbers[id] === n)) {
+      // Should a drawing have taken more than its page after all, the contents are printed again with
+      // the pages the final print has (once: the contents page's layout is fixed, so it cannot move).
+      pageNumbers = printedNumbers;
+      html = withNumbers(dashed, pageNumbers);
+      vm = buildPacketViewModel({ ...input, pageNumbers });
+      printed = await pages.print({ html, footerTemplate, onBlockedRequest: input.onBlockedRequest });
+      facts = await readPdfFacts(printed);
+      stage('reprint');
+    }
+    const pdf = await withDocumentInfo(printed, packetDocumentInfo(vm, input.snapshot), input.snapshot.issuedAt, facts.info);
     stage('document info');
-    // Should a drawing have taken more than its page after all, the contents are printed again with
-    // the pages the final print has (once: the contents page's layout is fixed, so it cannot move).
-    const printedNumbers = numbersFrom(layout);
-    const isRight = Object.entries(printedNumbers).every(([id, page]) => pageNumbers[id] === page);
-    if (isRight || attempt >= 1) return { pdf, pageCount: layout.pageCount, html, drawings };
-    pageNumbers = printedNumbers;
-  }
+    return { pdf, pageCount: facts.layout.pageCount, html, drawings };
+  });
 }
 
 /** The PDF's document information: what a file browser or PDF reader shows before anyone opens it. */
