@@ -126,4 +126,58 @@ describe('ItemForm ties (issue 17)', () => {
     await waitFor(() => expect(screen.getByLabelText('Tie 1 from')).toHaveValue(post.id), { timeout: 30_000 });
     expect(screen.getByRole('button', { name: 'Add', hidden: true })).toBeInTheDocument();
   }, 60_000);
+
+  it('should add a reference point from the ties with no signal, tape from it at once, and send it before the item when the signal returns', async () => {
+    const sent: MockRequest[] = [];
+    const serverPoint = { id: '7d1e2f30-1111-4a4a-9b9b-0000000000c4', label: 'Gate post', x: 4, y: -6, notes: null };
+    let isOnline = false;
+    const online = (answer: (request: MockRequest) => Response) => (request: MockRequest) => {
+      if (!isOnline) throw new TypeError('Failed to fetch');
+      sent.push(request);
+      return answer(request);
+    };
+    mockApi({
+      [`GET /api/jobs/${JOB_IDS.job}/as-built`]: () => jsonResponse(buildJobAsBuilt({ ...buildAsBuilt(), referencePoints: CORNERS })),
+      [`GET /api/sites/${JOB_IDS.site}`]: online(() => jsonResponse(buildSite({ version: 2 }))),
+      [`POST /api/sites/${JOB_IDS.site}/reference-points`]: online(() => jsonResponse({ ...serverPoint, siteVersion: 3, jobVersions: { [JOB_IDS.job]: 4 } })),
+      [`POST /api/jobs/${JOB_IDS.job}/items`]: online((request) =>
+        jsonResponse({ item: { id: '7d1e2f30-1111-4a4a-9b9b-0000000000e2', ...(request.body as object) }, jobVersion: 5 }),
+      ),
+    });
+    const { user } = renderApp({ url: `${JOB_URL}?section=equipment`, signedInAs: buildSessionUser('lead') });
+    await user.click(await screen.findByRole('button', { name: 'Add equipment' }, { timeout: 30_000 }));
+    await user.type(await screen.findByLabelText(/^Name/, undefined, { timeout: 30_000 }), 'Gate speaker');
+    await user.click(await screen.findByRole('button', { name: 'New reference point' }, { timeout: 30_000 }));
+    const form = within(await screen.findByRole('form', { name: 'New reference point', hidden: true }, { timeout: 30_000 }));
+    await user.type(form.getByLabelText(/^Name/), 'Gate post');
+    await user.type(form.getByLabelText(/^x \(east/), '4 m');
+    await user.type(form.getByLabelText(/^y \(north/), '-6 m');
+    await user.click(form.getByRole('button', { name: 'Save point', hidden: true }));
+
+    // Kept on the device and chosen for the first tie under the id the device gave it.
+    await waitFor(() => expect(screen.getAllByText(/Waiting to send \(1\)/).length).toBeGreaterThan(0), { timeout: 30_000 });
+    const tie = screen.getByLabelText('Tie 1 from') as HTMLSelectElement;
+    await waitFor(() => expect(tie.selectedOptions[0]?.textContent).toMatch(/Gate post/));
+    const localId = tie.value;
+    expect(localId).not.toBe(serverPoint.id);
+    await user.type(screen.getAllByLabelText(/^Distance/)[0]!, '5 m');
+    await user.click(screen.getByRole('button', { name: 'Add a tie' }));
+    await user.selectOptions(screen.getByLabelText('Tie 2 from'), 'House NW corner');
+    await user.type(screen.getAllByLabelText(/^Distance/)[1]!, '6 m');
+    await user.click(screen.getByRole('radio', { name: 'Right' }));
+    await user.click(screen.getByRole('button', { name: 'Add', hidden: true }));
+    await waitFor(() => expect(screen.getAllByText(/Waiting to send \(2\)/).length).toBeGreaterThan(0), { timeout: 30_000 });
+    expect(sent).toHaveLength(0);
+
+    isOnline = true;
+    window.dispatchEvent(new Event('online'));
+    await waitFor(() => expect(sent.filter((r) => r.method === 'POST').map((r) => r.path)).toHaveLength(2), { timeout: 30_000 });
+    const posts = sent.filter((r) => r.method === 'POST');
+    expect(posts.map((r) => r.path)).toEqual([`/api/sites/${JOB_IDS.site}/reference-points`, `/api/jobs/${JOB_IDS.job}/items`]);
+    expect(posts[0]!.body).toEqual({ label: 'Gate post', x: 4, y: -6 });
+    expect(posts[0]!.headers.get('If-Match'), 'the site version, read when the signal returned').toBe('"2"');
+    expect((posts[1]!.body as { ties: { referencePointId: string }[] }).ties.map((t) => t.referencePointId)).toEqual([serverPoint.id, CORNERS[0]!.id]);
+    expect(posts[1]!.headers.get('If-Match'), 'on the job version the site write produced').toBe('"4"');
+    await waitFor(() => expect(screen.queryByText(/Waiting to send/)).not.toBeInTheDocument(), { timeout: 30_000 });
+  }, 90_000);
 });

@@ -3,10 +3,12 @@ import { Add20Regular, Delete20Regular, Location20Regular, Pin20Regular } from '
 import { useState } from 'react';
 import type { ReferencePoint } from '@domain/as-built/item.schema';
 import { solvePositionFromTies, type TieObservation, type TieSolution } from '@domain/geometry/ties';
+import { type CreateReferencePointInput, type ReferencePointResponse, ReferencePointResponseSchema } from '@domain/sites/site.schema';
 
 import { formatLength, parseLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 import { ReferencePointForm } from '../../sites';
+import { useJobWriter } from '../hooks/job-writer';
 import { fieldDomId } from '../utils/finding-target';
 
 import { useFormStyles } from '../../../components/form-styles';
@@ -35,6 +37,27 @@ const useStyles = makeStyles({
 });
 
 export type TieDraft = { referencePointId: string; distance: string };
+
+/**
+ * The site's new-point form, saving through the job's writer (issue 17): with no signal the point waits
+ * on the device with the job's other writes, is offered for ties at once under the id the device gave
+ * it, and goes to the server before the item taped from it.
+ */
+function JobReferencePointForm(props: { siteId: string; onDone: () => void; onSaved: (point: ReferencePointResponse) => void }) {
+  const writer = useJobWriter();
+  const addPoint = async (input: CreateReferencePointInput): Promise<ReferencePointResponse | undefined> => {
+    const result = await writer.saveWithResult({
+      endpoint: 'createReferencePoint',
+      params: { siteId: props.siteId },
+      body: input,
+      label: `Reference point "${input.label}"`,
+    });
+    if (result.outcome === 'saved' && result.response) return ReferencePointResponseSchema.parse(result.response);
+    if (result.outcome === 'queued' && result.localId) return { id: result.localId, label: input.label, x: input.x, y: input.y, notes: input.notes ?? null };
+    return undefined;
+  };
+  return <ReferencePointForm {...props} addPoint={addPoint} />;
+}
 
 type TiesEditorProps = {
   recordId: string;
@@ -88,7 +111,7 @@ export function TiesEditor({ recordId, referencePoints, ties, sideHint, onChange
           <DialogBody>
             <DialogTitle>New reference point</DialogTitle>
             <DialogContent>
-              <ReferencePointForm
+              <JobReferencePointForm
                 siteId={siteId}
                 onDone={() => setIsAddingPoint(false)}
                 onSaved={(point) => {

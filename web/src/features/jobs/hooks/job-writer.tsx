@@ -38,6 +38,13 @@ const useStyles = makeStyles({ action: { minHeight: '48px' } });
 /** What `save` did with a write. */
 export type SaveOutcome = 'saved' | 'queued' | 'conflict';
 
+/**
+ * What `saveWithResult` did: with the server's answer when it was saved at once, and with the id the
+ * record goes by on this device when it was queued (a create: a reference point made offline is taped
+ * from under that id until the server names it).
+ */
+export type SaveResult = { outcome: SaveOutcome; response?: JobWriteResponse; localId?: string };
+
 type JobWriter = {
   /**
    * Saves `write` on top of the job version this screen has. Resolves `saved` (the findings are
@@ -46,6 +53,8 @@ type JobWriter = {
    * `ApiError` for anything else (validation, permission), for the form to show.
    */
   save: (write: JobWrite) => Promise<SaveOutcome>;
+  /** `save`, telling also the server's answer (saved at once) or the local id (queued). */
+  saveWithResult: (write: JobWrite) => Promise<SaveResult>;
   pending: PendingWrite[];
   /** Sends the waiting writes now. */
   retryPending: () => void;
@@ -91,11 +100,15 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
 
   const refresh = useCallback(() => queryClient.invalidateQueries({ queryKey: jobKeys.all }), [queryClient]);
 
-  /** The version a write names: the job's, or for a write to the job's site (a reference point) the site's. */
+  /**
+   * The version a write names: the job's, or for a write to the job's site (a reference point) the
+   * site's, read first when this page has not (with no signal that fails, and the write is queued).
+   */
   const versionFor = useCallback(
-    (write: JobWrite) => {
+    async (write: JobWrite): Promise<number> => {
       const siteId = siteOf(write);
-      return siteId !== undefined ? siteVersionOf(queryClient, siteId) : currentVersion();
+      if (siteId === undefined) return currentVersion();
+      return siteVersionOf(queryClient, siteId) || (await queryClient.ensureQueryData(getSiteQueryOptions(siteId))).version;
     },
     [currentVersion, queryClient],
   );
@@ -116,34 +129,44 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
     [applyVersion, jobId, queryClient],
   );
 
-  const save = useCallback(
-    async (unkeyed: JobWrite): Promise<SaveOutcome> => {
+  const saveWithResult = useCallback(
+    async (unkeyed: JobWrite): Promise<SaveResult> => {
       // One key per change, before the first attempt: if this attempt reaches the server but its answer
       // is lost, the queued copy sent later is recognised and not written twice.
       const write: JobWrite = { ...unkeyed, idempotencyKey: unkeyed.idempotencyKey ?? newIdempotencyKey() };
       const version = currentVersion();
       // Kept on this device; a new record shows at once under a local id, so more can be built on it.
-      const queue = async () => {
+      const queue = async (): Promise<SaveResult> => {
         const queued = withLocalId(write);
         await enqueuePendingWrite(jobId, queued, version);
         queryClient.setQueryData<JobAsBuiltResponse>(queryKey, (previous) => withOfflineRecord(previous, queued));
-        return 'queued' as const;
+        return { outcome: 'queued', ...(queued.localId ? { localId: queued.localId } : {}) };
       };
       // Writes still waiting go first: this one may build on them (a run to a speaker added offline).
       if (readPendingWrites(jobId).length > 0) {
-        const outcome = await queue();
+        const result = await queue();
         void flushRef.current();
-        return outcome;
+        return result;
       }
-      try {
-        await send(write, versionFor(write));
+      const sendNow = async (siteVersion?: number): Promise<SaveResult> => {
+        const response = await send(write, siteVersion ?? (await versionFor(write)));
         await refresh();
-        return 'saved';
+        return { outcome: 'saved', response };
+      };
+      try {
+        try {
+          return await sendNow();
+        } catch (error) {
+          // A new reference point replaces nobody's: sent again on the site's version the conflict names.
+          const newer = isApiError(error) && error.code === 'VERSION_CONFLICT' ? error.currentVersion : undefined;
+          if (siteOf(write) === undefined || newer === undefined) throw error;
+          return await sendNow(newer);
+        }
       } catch (error) {
         if (isWorthRetrying(error)) return queue();
         if (isApiError(error) && error.code === 'VERSION_CONFLICT') {
-          return new Promise<SaveOutcome>((resolve) =>
-            setConflict({ write, currentVersion: error.currentVersion, resolve }),
+          return new Promise<SaveResult>((resolve) =>
+            setConflict({ write, currentVersion: error.currentVersion, resolve: (outcome) => resolve({ outcome }) }),
           );
         }
         throw error;
@@ -151,6 +174,8 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
     },
     [currentVersion, jobId, queryClient, queryKey, refresh, send, versionFor],
   );
+
+  const save = useCallback(async (write: JobWrite): Promise<SaveOutcome> => (await saveWithResult(write)).outcome, [saveWithResult]);
 
   // Queued writes of this job that meet someone else's change ask here, whoever started the replay
   // (this page, or the app shell coming back online).
@@ -171,7 +196,12 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
       const { sent } = await replayPendingWrites(jobId, {
         send: (_jobId, version, write) => send(write, version),
         knownVersion: () => queryClient.getQueryData<JobAsBuiltResponse>(queryKey)?.job.version,
-        knownSiteVersion: (siteId) => siteVersionOf(queryClient, siteId) || undefined,
+        knownSiteVersion: (siteId) =>
+          siteVersionOf(queryClient, siteId) ||
+          queryClient
+            .ensureQueryData(getSiteQueryOptions(siteId))
+            .then((site) => site.version)
+            .catch(() => undefined),
         onRefused: (write, error) => notify.error(`Could not save: ${write.label}`, describeRequestError(error)),
       });
       if (sent > 0) {
@@ -202,7 +232,7 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
         conflict.resolve('conflict');
         notify.success('Showing the latest version', 'Your change was discarded.');
       } else {
-        await send(conflict.write, versionFor(conflict.write));
+        await send(conflict.write, await versionFor(conflict.write));
         await refresh();
         conflict.resolve('saved');
         notify.success('Saved on top of the latest version');
@@ -219,8 +249,8 @@ export function JobWriterProvider({ jobId, children }: { jobId: string; children
   };
 
   const value = useMemo<JobWriter>(
-    () => ({ save, pending, retryPending: () => void flush(), isSending }),
-    [flush, isSending, pending, save],
+    () => ({ save, saveWithResult, pending, retryPending: () => void flush(), isSending }),
+    [flush, isSending, pending, save, saveWithResult],
   );
 
   return (

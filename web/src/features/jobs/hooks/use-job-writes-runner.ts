@@ -54,7 +54,13 @@ export function useJobWritesRunner(): void {
     const deps: ReplayDeps = {
       send: sendAndKeepVersion(queryClient),
       knownVersion: (jobId) => queryClient.getQueryData<JobAsBuiltResponse>(getJobAsBuiltQueryOptions(jobId).queryKey)?.job.version,
-      knownSiteVersion: (siteId) => sites?.siteVersionOf(queryClient, siteId) || undefined,
+      knownSiteVersion: async (siteId) => {
+        if (!sites) return undefined;
+        const kept = sites.siteVersionOf(queryClient, siteId);
+        if (kept) return kept;
+        // Not read on this device yet: read it now (with no signal this fails and the write waits).
+        return (await queryClient.ensureQueryData(sites.getSiteQueryOptions(siteId)).catch(() => undefined))?.version;
+      },
       onRefused: (write, error) => notify.error(`Could not save: ${write.label}`, describeRequestError(error)),
     };
     const run = async () => {

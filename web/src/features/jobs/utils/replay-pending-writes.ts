@@ -37,8 +37,11 @@ export type ReplayDeps = {
   send: (jobId: string, version: number, write: JobWrite) => Promise<JobWriteResponse>;
   /** The job version this device knows (the kept as-built), if any. */
   knownVersion: (jobId: string) => number | undefined;
-  /** The site version this device knows (the kept site), for a write to the job's site (a reference point). */
-  knownSiteVersion?: (siteId: string) => number | undefined;
+  /**
+   * The site version this device knows (the kept site, read first if it has none), for a write to the
+   * job's site (a reference point).
+   */
+  knownSiteVersion?: (siteId: string) => number | undefined | Promise<number | undefined>;
   /** The server refused `write` for good (the job closed, a record deleted…); it is taken off the queue. */
   onRefused: (write: JobWrite, error: unknown) => void;
 };
@@ -78,7 +81,7 @@ async function replayJob(jobId: string, deps: ReplayDeps): Promise<ReplayResult>
     const isAdditive = isAdditiveEndpoint(entry.write.endpoint);
     // A write to the job's site (a reference point: only adds) goes on the site's version as it is now.
     const siteId = siteOf(entry.write);
-    const version = siteId !== undefined ? (deps.knownSiteVersion?.(siteId) ?? 0) : isAdditive ? (deps.knownVersion(jobId) ?? base) : base;
+    const version = siteId !== undefined ? ((await deps.knownSiteVersion?.(siteId)) ?? 0) : isAdditive ? (deps.knownVersion(jobId) ?? base) : base;
     try {
       let response: JobWriteResponse;
       try {

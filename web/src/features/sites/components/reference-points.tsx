@@ -1,7 +1,7 @@
 import { Button, Field, Input, makeStyles, MessageBar, MessageBarBody, Text, tokens } from '@fluentui/react-components';
 import { Add20Regular, Delete20Regular, Edit20Regular } from '@fluentui/react-icons';
 import { useState, type FormEvent } from 'react';
-import { CreateReferencePointSchema, type ReferencePointResponse } from '@domain/sites/site.schema';
+import { type CreateReferencePointInput, CreateReferencePointSchema, type ReferencePointResponse } from '@domain/sites/site.schema';
 
 import { ConfirmDialog } from '../../../components/confirm-dialog';
 import { useNotify } from '../../../components/notify';
@@ -167,12 +167,19 @@ export function ReferencePointForm({
   point,
   onDone,
   onSaved,
+  addPoint,
 }: {
   siteId: string;
   point?: ReferencePointResponse;
   onDone: () => void;
   /** The point as stored (a new one with its id). */
   onSaved?: (point: ReferencePointResponse) => void;
+  /**
+   * Adds a new point instead of the site's own request: a job's ties pass the job's writer, which keeps
+   * the point on the device with no signal (under an id of the device) and sends it before the ties
+   * made to it. Resolves the point, or undefined when the job's conflict dialog took over.
+   */
+  addPoint?: (input: CreateReferencePointInput) => Promise<ReferencePointResponse | undefined>;
 }) {
   const styles = useStyles();
   const notify = useNotify();
@@ -183,6 +190,7 @@ export function ReferencePointForm({
   const [x, setX] = useState(point ? lengthInputValue(point.x, units.length, 'long') : '');
   const [y, setY] = useState(point ? lengthInputValue(point.y, units.length, 'long') : '');
   const [errors, setErrors] = useState<FieldErrors<Field>>({});
+  const [isAdding, setIsAdding] = useState(false);
 
   // Coordinates may be negative (west or south of the origin): parse the size, keep the sign.
   const coordinate = (value: string) => {
@@ -198,22 +206,33 @@ export function ReferencePointForm({
       setErrors(fieldErrorsFromZod<Field>(parsed.error));
       return;
     }
-    save.mutate(
-      { siteId, pointId: point?.id, input: parsed.data },
-      {
-        onSuccess: (saved) => {
-          notify.success(point ? 'Reference point saved' : 'Reference point added', parsed.data.label);
-          onSaved?.(saved);
-          onDone();
+    const onSuccess = (saved: ReferencePointResponse) => {
+      notify.success(point ? 'Reference point saved' : 'Reference point added', parsed.data.label);
+      onSaved?.(saved);
+      onDone();
+    };
+    const onError = (error: unknown) => {
+      if (conflict.handle(error, point ? `changing “${point.label}”` : `adding “${parsed.data.label}”`, () => submit())) return;
+      const found = fieldErrorsFromApi<Field>(error);
+      if (Object.keys(found).length === 0) notify.error('Could not save the point', describeRequestError(error));
+      setErrors(found);
+    };
+    if (!point && addPoint) {
+      setIsAdding(true);
+      addPoint(parsed.data).then(
+        (added) => {
+          setIsAdding(false);
+          if (added) onSuccess(added);
+          else onDone();
         },
-        onError: (error) => {
-          if (conflict.handle(error, point ? `changing “${point.label}”` : `adding “${parsed.data.label}”`, () => submit())) return;
-          const found = fieldErrorsFromApi<Field>(error);
-          if (Object.keys(found).length === 0) notify.error('Could not save the point', describeRequestError(error));
-          setErrors(found);
+        (error: unknown) => {
+          setIsAdding(false);
+          onError(error);
         },
-      },
-    );
+      );
+      return;
+    }
+    save.mutate({ siteId, pointId: point?.id, input: parsed.data }, { onSuccess, onError });
   };
 
   return (
@@ -228,7 +247,7 @@ export function ReferencePointForm({
         <Input className={styles.control} inputMode="decimal" value={y} onChange={(_e, d) => setY(d.value)} />
       </Field>
       <div className={styles.actions}>
-        <Button type="submit" appearance="primary" className={styles.control} disabled={save.isPending}>
+        <Button type="submit" appearance="primary" className={styles.control} disabled={save.isPending || isAdding}>
           Save point
         </Button>
         <Button className={styles.control} onClick={onDone}>
