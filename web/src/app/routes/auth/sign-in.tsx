@@ -5,7 +5,7 @@ import { RouteErrorPage } from '../../../components/errors/route-error-page';
 import { AuthLayout } from '../../../components/layouts/auth-layout';
 import { restoreSession } from '../../../features/auth/api/restore-session';
 import { SignInForm } from '../../../features/auth/components/sign-in-form';
-import { useSignupStatus } from '../../../features/signup/api/signup';
+import { useSignupStatus } from '../../../features/signup/api/get-signup-status';
 import { paths } from '../../../config/paths';
 import { safeNextPath } from '../../../features/auth/utils/safe-next-path';
 import { useSessionState } from '../../../lib/session';

@@ -5,7 +5,7 @@ import { Link, useNavigate, useSearchParams } from 'react-router';
 import { RouteErrorPage } from '../../../components/errors/route-error-page';
 import { AuthLayout } from '../../../components/layouts/auth-layout';
 import { paths } from '../../../config/paths';
-import { useVerifySignup } from '../../../features/signup/api/signup';
+import { useVerifySignup } from '../../../features/signup/api/verify-signup';
 import { isApiError } from '../../../lib/api-client';
 import { describeRequestError } from '../../../lib/form-errors';
 

@@ -7,7 +7,7 @@ import type { SignupAcceptedResponse } from '@domain/signup/signup.schema';
 import { RouteErrorPage } from '../../../components/errors/route-error-page';
 import { AuthLayout } from '../../../components/layouts/auth-layout';
 import { paths } from '../../../config/paths';
-import { getSignupStatusQueryOptions, useSignupStatus } from '../../../features/signup/api/signup';
+import { getSignupStatusQueryOptions, useSignupStatus } from '../../../features/signup/api/get-signup-status';
 import { CheckYourMail } from '../../../features/signup/components/check-your-mail';
 import { SignUpForm } from '../../../features/signup/components/sign-up-form';
 import { describeRequestError } from '../../../lib/form-errors';

@@ -1,7 +1,7 @@
 import { makeStyles, MessageBar, MessageBarBody, Spinner, Text, tokens } from '@fluentui/react-components';
 import { Link } from 'react-router';
 
-import { useSignupMail } from '../api/signup';
+import { useSignupMail } from '../api/get-signup-mail';
 
 const useStyles = makeStyles({
   wrap: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },

@@ -4,7 +4,7 @@ import { CreateSignupSchema, type SignupAcceptedResponse, type SignupMode } from
 
 import { PasswordInput } from '../../../components/password-input';
 import { describeRequestError, fieldErrorsFromApi, fieldErrorsFromZod, type FieldErrors } from '../../../lib/form-errors';
-import { useRequestSignup } from '../api/signup';
+import { useRequestSignup } from '../api/request-signup';
 
 const useStyles = makeStyles({
   form: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },
