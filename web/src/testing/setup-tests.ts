@@ -81,3 +81,25 @@ if (typeof Blob.prototype.arrayBuffer !== 'function') {
     },
   });
 }
+
+// Fluent's styles are thousands of one-declaration rules, and jsdom matches every rule's selector
+// against every element whose style is asked for: the accessible-name and visibility checks behind
+// getByRole asked for so many that they took 40 % of the item form spec's CPU. jsdom lays nothing out,
+// so the only styles a test can observe are those that hide or disable: a Fluent rule is kept when it
+// sets display, visibility, opacity (jest-dom's toBeVisible), pointer-events (user-event refuses to
+// click through `none`) or content; every other style rule (colours, spacing, fonts) is left out of
+// the page. At-rules are kept as they are (jsdom skips media queries other than plain "screen").
+const STYLE_A_TEST_CAN_SEE = /[{;]\s*(?:display|visibility|opacity|pointer-events|content)\s*:/;
+const styleProbe = document.createElement('style');
+document.head.append(styleProbe);
+const sheetPrototype = Object.getPrototypeOf(styleProbe.sheet) as CSSStyleSheet & { loamlineFiltered?: boolean };
+styleProbe.remove();
+if (!sheetPrototype.loamlineFiltered) {
+  const insertRule = sheetPrototype.insertRule;
+  sheetPrototype.insertRule = function insertVisibleRule(this: CSSStyleSheet, rule: string, index?: number): number {
+    const isStyleRule = !rule.trimStart().startsWith('@');
+    if (isStyleRule && !STYLE_A_TEST_CAN_SEE.test(rule)) return index ?? 0;
+    return insertRule.call(this, rule, index);
+  };
+  sheetPrototype.loamlineFiltered = true;
+}
