@@ -6,7 +6,8 @@ import { useSearchParams, type LoaderFunctionArgs } from 'react-router';
 import { RouteErrorPage } from '../../../components/errors/route-error-page';
 import { PageHeader } from '../../../components/page-header';
 import { requireRole } from '../../../features/auth/utils/require-user';
-import { getMailStatusQueryOptions, getOutboxQueryOptions, useMailStatus, useOutbox } from '../../../features/outbox/api/get-outbox';
+import { getMailStatusQueryOptions, useMailStatus } from '../../../features/outbox/api/get-mail-status';
+import { getOutboxQueryOptions, useOutbox } from '../../../features/outbox/api/get-outbox';
 import { OutboxList } from '../../../features/outbox/components/outbox-list';
 
 const useStyles = makeStyles({

@@ -9,7 +9,7 @@ import { paths } from '../../../config/paths';
 import { restoreSession } from '../../../features/auth/api/restore-session';
 import { currentPathOf } from '../../../features/auth/utils/safe-next-path';
 import { WaitingToSend } from '../../../features/jobs/components/waiting-to-send';
-import { useHasOutbox } from '../../../features/outbox/api/get-outbox';
+import { useHasOutbox } from '../../../features/outbox/api/get-mail-status';
 import { useSessionUser } from '../../../lib/session';
 
 // The account menu (Fluent's menu, popover positioning, avatar) is its own chunk: the loader below

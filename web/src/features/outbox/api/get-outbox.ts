@@ -1,6 +1,5 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { type OutboxListResponse, OutboxListResponseSchema } from '@domain/mail/outbox.schema';
-import { MailStatusResponseSchema } from '@domain/signup/signup.schema';
 
 import { apiRequest, isApiError } from '../../../lib/api-client';
 
@@ -37,26 +36,4 @@ export function getOutboxQueryOptions({ page }: { page: number }) {
 
 export function useOutbox({ page }: { page: number }) {
   return useQuery({ ...getOutboxQueryOptions({ page }), placeholderData: keepPreviousData, refetchInterval: 15_000 });
-}
-
-/** Where mail goes: captured by this server (the Outbox has it) or handed to a mail service. */
-export function getMailStatusQueryOptions() {
-  return queryOptions({
-    queryKey: ['outbox', 'status'],
-    queryFn: ({ signal }) => apiRequest('/api/outbox/status', MailStatusResponseSchema, { signal }),
-    staleTime: Infinity,
-  });
-}
-
-export function useMailStatus(enabled = true) {
-  return useQuery({ ...getMailStatusQueryOptions(), enabled });
-}
-
-/**
- * Whether to offer the Outbox at all: only to admins and office staff, and only when the server keeps
- * local mail. Asks `/api/outbox/status`, which always answers them (never a 404 to log).
- */
-export function useHasOutbox(mayRead: boolean): boolean {
-  const query = useMailStatus(mayRead);
-  return mayRead && query.data?.captured === true;
 }
