@@ -154,8 +154,9 @@ describe('ItemForm ties (issue 17)', () => {
     await user.type(form.getByLabelText(/^y \(north/), '-6 m');
     await user.click(form.getByRole('button', { name: 'Save point', hidden: true }));
 
-    // Kept on the device and chosen for the first tie under the id the device gave it.
+    // Kept on the device (and said so) and chosen for the first tie under the id the device gave it.
     await waitFor(() => expect(screen.getAllByText(/Waiting to send \(1\)/).length).toBeGreaterThan(0), { timeout: 30_000 });
+    expect(await screen.findByText('Kept on this device')).toBeInTheDocument();
     const tie = screen.getByLabelText('Tie 1 from') as HTMLSelectElement;
     await waitFor(() => expect(tie.selectedOptions[0]?.textContent).toMatch(/Gate post/));
     const localId = tie.value;

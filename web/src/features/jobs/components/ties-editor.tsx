@@ -45,15 +45,17 @@ export type TieDraft = { referencePointId: string; distance: string };
  */
 function JobReferencePointForm(props: { siteId: string; onDone: () => void; onSaved: (point: ReferencePointResponse) => void }) {
   const writer = useJobWriter();
-  const addPoint = async (input: CreateReferencePointInput): Promise<ReferencePointResponse | undefined> => {
+  const addPoint = async (input: CreateReferencePointInput): Promise<{ point: ReferencePointResponse; isKept: boolean } | undefined> => {
     const result = await writer.saveWithResult({
       endpoint: 'createReferencePoint',
       params: { siteId: props.siteId },
       body: input,
       label: `Reference point "${input.label}"`,
     });
-    if (result.outcome === 'saved' && result.response) return ReferencePointResponseSchema.parse(result.response);
-    if (result.outcome === 'queued' && result.localId) return { id: result.localId, label: input.label, x: input.x, y: input.y, notes: input.notes ?? null };
+    if (result.outcome === 'saved' && result.response) return { point: ReferencePointResponseSchema.parse(result.response), isKept: false };
+    if (result.outcome === 'queued' && result.localId) {
+      return { point: { id: result.localId, label: input.label, x: input.x, y: input.y, notes: input.notes ?? null }, isKept: true };
+    }
     return undefined;
   };
   return <ReferencePointForm {...props} addPoint={addPoint} />;

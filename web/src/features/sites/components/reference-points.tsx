@@ -177,9 +177,10 @@ export function ReferencePointForm({
   /**
    * Adds a new point instead of the site's own request: a job's ties pass the job's writer, which keeps
    * the point on the device with no signal (under an id of the device) and sends it before the ties
-   * made to it. Resolves the point, or undefined when the job's conflict dialog took over.
+   * made to it. Resolves the point (`isKept`: on this device only, for now), or undefined when the
+   * job's conflict dialog took over.
    */
-  addPoint?: (input: CreateReferencePointInput) => Promise<ReferencePointResponse | undefined>;
+  addPoint?: (input: CreateReferencePointInput) => Promise<{ point: ReferencePointResponse; isKept: boolean } | undefined>;
 }) {
   const styles = useStyles();
   const notify = useNotify();
@@ -206,8 +207,9 @@ export function ReferencePointForm({
       setErrors(fieldErrorsFromZod<Field>(parsed.error));
       return;
     }
-    const onSuccess = (saved: ReferencePointResponse) => {
-      notify.success(point ? 'Reference point saved' : 'Reference point added', parsed.data.label);
+    const onSuccess = (saved: ReferencePointResponse, isKept = false) => {
+      if (isKept) notify.success('Kept on this device', `"${parsed.data.label}" is added to the site as soon as the phone is back online.`);
+      else notify.success(point ? 'Reference point saved' : 'Reference point added', parsed.data.label);
       onSaved?.(saved);
       onDone();
     };
@@ -222,7 +224,7 @@ export function ReferencePointForm({
       addPoint(parsed.data).then(
         (added) => {
           setIsAdding(false);
-          if (added) onSuccess(added);
+          if (added) onSuccess(added.point, added.isKept);
           else onDone();
         },
         (error: unknown) => {
@@ -232,7 +234,7 @@ export function ReferencePointForm({
       );
       return;
     }
-    save.mutate({ siteId, pointId: point?.id, input: parsed.data }, { onSuccess, onError });
+    save.mutate({ siteId, pointId: point?.id, input: parsed.data }, { onSuccess: (saved) => onSuccess(saved), onError });
   };
 
   return (
