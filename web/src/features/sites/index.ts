@@ -3,7 +3,8 @@
 export { getSiteQueryOptions, type SiteResponse } from './api/get-site';
 export { useSites } from './api/get-sites';
 export { siteKeys } from './api/site-keys';
-export { useSaveReferencePoint } from './api/save-reference-point';
+export { useCreateReferencePoint } from './api/create-reference-point';
+export { useUpdateReferencePoint } from './api/update-reference-point';
 export { ReferencePointForm } from './components/reference-points';
 export { useCreateSiteFeature } from './api/create-site-feature';
 export { useDeleteSiteFeature } from './api/delete-site-feature';

@@ -9,7 +9,8 @@ import { describeRequestError, fieldErrorsFromApi, fieldErrorsFromZod, type Fiel
 import { formatLength, lengthInputValue, parseLength } from '../../../lib/units';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 import { useDeleteReferencePoint } from '../api/delete-reference-point';
-import { useSaveReferencePoint } from '../api/save-reference-point';
+import { useCreateReferencePoint } from '../api/create-reference-point';
+import { useUpdateReferencePoint } from '../api/update-reference-point';
 import { useSiteConflict } from '../hooks/use-site-conflict';
 
 const useStyles = makeStyles({
@@ -52,7 +53,7 @@ export function ReferencePoints({ siteId, points, canEdit }: { siteId: string; p
   const [editing, setEditing] = useState<string | undefined>();
   const notify = useNotify();
   const remove = useDeleteReferencePoint();
-  const restore = useSaveReferencePoint();
+  const restore = useCreateReferencePoint();
   const [deleting, setDeleting] = useState<ReferencePointResponse | undefined>();
   const [deleteError, setDeleteError] = useState<string | undefined>();
   const conflict = useSiteConflict();
@@ -184,7 +185,8 @@ export function ReferencePointForm({
 }) {
   const styles = useStyles();
   const notify = useNotify();
-  const save = useSaveReferencePoint();
+  const create = useCreateReferencePoint();
+  const update = useUpdateReferencePoint();
   const conflict = useSiteConflict();
   const [units] = useUnitPreferences();
   const [label, setLabel] = useState(point?.label ?? '');
@@ -234,7 +236,9 @@ export function ReferencePointForm({
       );
       return;
     }
-    save.mutate({ siteId, pointId: point?.id, input: parsed.data }, { onSuccess: (saved) => onSuccess(saved), onError });
+    const outcome = { onSuccess: (saved: ReferencePointResponse) => onSuccess(saved), onError };
+    if (point) update.mutate({ siteId, pointId: point.id, input: parsed.data }, outcome);
+    else create.mutate({ siteId, input: parsed.data }, outcome);
   };
 
   return (
@@ -249,7 +253,7 @@ export function ReferencePointForm({
         <Input className={styles.control} inputMode="decimal" value={y} onChange={(_e, d) => setY(d.value)} />
       </Field>
       <div className={styles.actions}>
-        <Button type="submit" appearance="primary" className={styles.control} disabled={save.isPending || isAdding}>
+        <Button type="submit" appearance="primary" className={styles.control} disabled={create.isPending || update.isPending || isAdding}>
           Save point
         </Button>
         <Button className={styles.control} onClick={onDone}>
