@@ -21,7 +21,8 @@ describe('drawPacketDrawings', () => {
     expect(without.sitePlan).not.toContain('<image');
     // Everything but the underlay is the same drawing.
     expect(withImage.schematic).toBe(without.schematic);
-  });
+    // The file's first drawings load the drawing modules (elkjs, svg.js): seconds on a crowded machine.
+  }, 30_000);
 
   it('labels each run of the site record with when it went in, by which job, and since when it is abandoned (issue 21)', async () => {
     const [first, second] = snapshot.asBuilt.runs;
