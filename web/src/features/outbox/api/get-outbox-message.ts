@@ -1,7 +1,7 @@
 import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
 import { type OutboxMessageResponse, OutboxMessageResponseSchema } from '@domain/mail/outbox.schema';
 
-import { apiBlob, apiRequest } from '../../../lib/api-client';
+import { apiRequest } from '../../../lib/api-client';
 
 export type { OutboxMessageResponse };
 
@@ -20,15 +20,4 @@ export function getOutboxMessageQueryOptions(id: string) {
 
 export function useOutboxMessage(id: string) {
   return useSuspenseQuery(getOutboxMessageQueryOptions(id));
-}
-
-/**
- * The attachment's bytes. A plain link cannot carry the access token (it lives in memory, not in a
- * cookie), so the file is fetched and handed to the browser as a download.
- */
-export function getOutboxAttachment(messageId: string, attachmentId: string): Promise<Blob> {
-  return apiBlob(`/api/outbox/${encodeURIComponent(messageId)}/attachments/${encodeURIComponent(attachmentId)}`, {
-    headers: { Accept: '*/*' },
-    timeoutMs: 60_000,
-  });
 }

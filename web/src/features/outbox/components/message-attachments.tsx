@@ -5,7 +5,7 @@ import type { OutboxMessageResponse } from '@domain/mail/outbox.schema';
 
 import { useNotify } from '../../../components/notify';
 import { describeRequestError } from '../../../lib/form-errors';
-import { getOutboxAttachment } from '../api/get-outbox-message';
+import { getOutboxAttachment } from '../api/get-outbox-attachment';
 
 const useStyles = makeStyles({
   list: { listStyle: 'none', margin: 0, padding: 0, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
