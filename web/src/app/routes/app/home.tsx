@@ -1,4 +1,5 @@
 import type { QueryClient } from '@tanstack/react-query';
+import { lazy, Suspense } from 'react';
 import { Navigate, redirect } from 'react-router';
 
 import { RouteErrorPage } from '../../../components/errors/route-error-page';
@@ -6,8 +7,12 @@ import { paths } from '../../../config/paths';
 import { getFailedDeliveriesQueryOptions } from '../../../features/delivery/api/get-failed-deliveries';
 import { getQueueQueryOptions, getTodayQueryOptions } from '../../../features/home/api/get-home-jobs';
 import { Today } from '../../../features/home/components/today';
-import { WorkQueue } from '../../../features/home/components/work-queue';
 import { getSessionUser, useSessionUser } from '../../../lib/session';
+
+// The office's work queue (with the delivery feature's resend dialog and its form code) is a chunk of
+// its own: a crew lead opening Today on a weak signal does not download it.
+const loadWorkQueue = () => import('../../../features/home/components/work-queue');
+const WorkQueue = lazy(() => loadWorkQueue().then(({ WorkQueue }) => ({ default: WorkQueue })));
 
 export const clientLoader = (queryClient: QueryClient) => () => {
   const role = getSessionUser()?.role;
@@ -17,6 +22,7 @@ export const clientLoader = (queryClient: QueryClient) => () => {
   // signal and each list shows its own loading state until it arrives. prefetchQuery never throws: a
   // list that fails to load says so on the page.
   if (role === 'admin' || role === 'office') {
+    void loadWorkQueue();
     void queryClient.prefetchQuery(getQueueQueryOptions('submitted'));
     void queryClient.prefetchQuery(getQueueQueryOptions('ready_to_issue'));
     void queryClient.prefetchQuery(getFailedDeliveriesQueryOptions());
@@ -37,7 +43,13 @@ export default function HomeRoute() {
   // The loader may run before the session is known (a reload): send a homeowner on here too, before any
   // staff list is asked for.
   if (user.role === 'homeowner') return <Navigate to={paths.portal.getHref()} replace />;
-  if (user.role === 'admin' || user.role === 'office') return <WorkQueue role={user.role} />;
+  if (user.role === 'admin' || user.role === 'office') {
+    return (
+      <Suspense fallback={null}>
+        <WorkQueue role={user.role} />
+      </Suspense>
+    );
+  }
   return <Today role={user.role} />;
 }
 
