@@ -20,7 +20,9 @@ import { paths } from '../../../config/paths';
 import { useNotify } from '../../../components/notify';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 import { useDateStyle } from '../../../lib/use-date-style';
-import { drawingUrls, useDownloadDrawing } from '../api/download-drawing';
+import { useDownloadDepthProfile } from '../api/download-depth-profile';
+import { useDownloadSchematic } from '../api/download-schematic';
+import { useDownloadSitePlan } from '../api/download-site-plan';
 import { usePlanImage } from '../api/get-plan-image';
 import { createBrowserSvgCanvas } from '../utils/browser-svg-canvas';
 
@@ -71,7 +73,10 @@ export function JobDrawings({ data }: JobDrawingsProps) {
   const [{ length: units }] = useUnitPreferences();
   const [layersOff, setLayersOff] = useState<readonly SitePlanLayerName[]>([]);
   const planImage = usePlanImage(job.site.id);
-  const download = useDownloadDrawing();
+  const downloadSitePlan = useDownloadSitePlan();
+  const downloadSchematic = useDownloadSchematic();
+  const downloadDepthProfile = useDownloadDepthProfile();
+  const isDownloading = downloadSitePlan.isPending || downloadSchematic.isPending || downloadDepthProfile.isPending;
   const notify = useNotify();
 
   // The legend is spelled as the company's packet spells it (en-US "color", en-GB "colour").
@@ -92,8 +97,7 @@ export function JobDrawings({ data }: JobDrawingsProps) {
   const drawSchematic = useCallback(() => drawJobSchematic(input), [input]);
   const runs = profileRuns(data);
 
-  const save = (url: string, fileName: string) =>
-    download.mutate({ url, fileName }, { onError: (error) => notify.error('The drawing could not be downloaded', error.message) });
+  const whenFailed = { onError: (error: Error) => notify.error('The drawing could not be downloaded', error.message) };
   const toggleLayer = (name: SitePlanLayerName, isOn: boolean) =>
     setLayersOff((current) => (isOn ? current.filter((n) => n !== name) : [...current, name]));
 
@@ -123,8 +127,8 @@ export function JobDrawings({ data }: JobDrawingsProps) {
           <Button
             className={styles.touch}
             icon={<ArrowDownload20Regular />}
-            onClick={() => save(drawingUrls.sitePlan(job.id, { units, layersOff }), 'site-plan.svg')}
-            disabled={download.isPending}
+            onClick={() => downloadSitePlan.mutate({ jobId: job.id, units, layersOff, fileName: 'site-plan.svg' }, whenFailed)}
+            disabled={isDownloading}
           >
             Download site plan (SVG)
           </Button>
@@ -154,7 +158,7 @@ export function JobDrawings({ data }: JobDrawingsProps) {
           <Text as="h3" size={500} weight="semibold" className={styles.heading}>
             Wiring schematic
           </Text>
-          <Button className={styles.touch} icon={<ArrowDownload20Regular />} onClick={() => save(drawingUrls.schematic(job.id, units), 'schematic.svg')} disabled={download.isPending}>
+          <Button className={styles.touch} icon={<ArrowDownload20Regular />} onClick={() => downloadSchematic.mutate({ jobId: job.id, units, fileName: 'schematic.svg' }, whenFailed)} disabled={isDownloading}>
             Download schematic (SVG)
           </Button>
         </div>
@@ -175,8 +179,13 @@ export function JobDrawings({ data }: JobDrawingsProps) {
                 label={run.label}
                 runId={run.id}
                 input={input}
-                onDownload={() => save(drawingUrls.depthProfile(job.id, run.id, units), `depth-profile-${run.label.replace(/[^A-Za-z0-9]+/g, '-')}.svg`)}
-                isDownloading={download.isPending}
+                onDownload={() =>
+                  downloadDepthProfile.mutate(
+                    { jobId: job.id, runId: run.id, units, fileName: `depth-profile-${run.label.replace(/[^A-Za-z0-9]+/g, '-')}.svg` },
+                    whenFailed,
+                  )
+                }
+                isDownloading={isDownloading}
               />
             ))}
           </div>
