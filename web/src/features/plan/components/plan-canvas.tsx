@@ -331,11 +331,12 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
     drag?.hasMoved === true && drag.hit.type === hit.type && ('id' in hit ? 'id' in drag.hit && drag.hit.id === hit.id : 'index' in drag.hit && drag.hit.index === hit.index);
   const draftPoints = (model.draftRoute?.points ?? []).map((p, index) => (isDragging({ type: 'vertex', index }) ? drag!.point : p));
   const items = model.items.map((item) => (isDragging({ type: 'item', id: item.id }) ? { ...item, ...drag!.point } : item));
-  // Item labels first (they matter most), then reference points; each where it is clear of the others.
+  // Item labels first (they matter most), then reference points; each where it is clear of the others,
+  // or left off until a zoom makes room (the selected item's always shows).
   const labels = model.showLabels
     ? layoutLabels(
         [
-          ...items.map((item) => ({ id: `item:${item.id}`, x: sx(item.x), y: sy(item.y), text: item.label, fontSize: 12 })),
+          ...items.map((item) => ({ id: `item:${item.id}`, x: sx(item.x), y: sy(item.y), text: item.label, fontSize: 12, isPinned: item.isSelected })),
           ...model.references.map((ref) => ({ id: `ref:${ref.id}`, x: sx(ref.x), y: sy(ref.y), text: ref.label, fontSize: 12 })),
         ],
         size,
@@ -444,7 +445,7 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
             <g key={ref.id} data-hit="reference" data-id={ref.id} role="graphics-symbol" aria-label={`Reference point ${ref.label}`}>
               <circle cx={sx(ref.x)} cy={sy(ref.y)} r={HIT_RADIUS_PX} fill="transparent" />
               <ReferenceSymbol x={sx(ref.x)} y={sy(ref.y)} isSelected={ref.isSelected} />
-              {model.showLabels && (
+              {labels.has(`ref:${ref.id}`) && (
                 <text {...labels.get(`ref:${ref.id}`)} fontSize={12} fill={REFERENCE_INK} stroke={HALO} strokeWidth={3} paintOrder="stroke">
                   {ref.label}
                 </text>
@@ -465,7 +466,7 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
               <circle cx={sx(item.x)} cy={sy(item.y)} r={HIT_RADIUS_PX} fill="transparent" />
               <ItemSymbol kind={item.kind} x={sx(item.x)} y={sy(item.y)} isSelected={item.isSelected} />
               {item.hasFinding && <circle cx={sx(item.x) + 11} cy={sy(item.y) - 11} r={5} fill={WARNING_INK} stroke={PAPER} strokeWidth={1.5} />}
-              {model.showLabels && (
+              {labels.has(`item:${item.id}`) && (
                 <text {...labels.get(`item:${item.id}`)} fontSize={12} fontWeight={600} fill={SCREEN_INK} stroke={HALO} strokeWidth={3} paintOrder="stroke">
                   {item.label}
                 </text>
