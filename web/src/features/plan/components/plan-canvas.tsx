@@ -459,6 +459,9 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
               key={item.id}
               data-hit="item"
               data-id={item.id}
+              // ARIA allows aria-label only on an element with a role (axe: aria-prohibited-attr); the
+              // name must not depend on the label being drawn (a crowded plan leaves some off).
+              role="graphics-symbol"
               aria-label={`${item.label}`}
               {...(item.isDraggable ? dragHandlers({ type: 'item', id: item.id }) : {})}
               style={item.isDraggable ? { cursor: 'grab' } : undefined}
