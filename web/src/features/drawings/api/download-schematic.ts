@@ -1,7 +1,7 @@
 import { useMutation } from '@tanstack/react-query';
 
 import { apiBlob } from '../../../lib/api-client';
-import { saveFile } from '../utils/save-file';
+import { saveFile } from '../../../lib/save-file';
 
 export type SchematicDownload = { jobId: string; units: string; fileName: string };
 

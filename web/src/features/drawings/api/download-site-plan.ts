@@ -1,7 +1,7 @@
 import { useMutation } from '@tanstack/react-query';
 
 import { apiBlob } from '../../../lib/api-client';
-import { saveFile } from '../utils/save-file';
+import { saveFile } from '../../../lib/save-file';
 
 export type SitePlanDownload = { jobId: string; units: string; layersOff: readonly string[]; fileName: string };
 

@@ -1,6 +1,7 @@
 import { useMutation } from '@tanstack/react-query';
 
 import { apiBlob } from '../../../lib/api-client';
+import { saveFile } from '../../../lib/save-file';
 
 /**
  * A revision's PDF or archive (`url` from the packet list). The access token lives in memory, not a
@@ -13,16 +14,6 @@ export function getPacketFile(url: string): Promise<Blob> {
 /** Fetches the file and saves it under `fileName`. */
 export function useDownloadPacketFile() {
   return useMutation({
-    mutationFn: async ({ url, fileName }: { url: string; fileName: string }) => {
-      const blob = await getPacketFile(url);
-      const href = URL.createObjectURL(blob);
-      const link = document.createElement('a');
-      link.href = href;
-      link.download = fileName;
-      document.body.append(link);
-      link.click();
-      link.remove();
-      window.setTimeout(() => URL.revokeObjectURL(href), 10_000);
-    },
+    mutationFn: async ({ url, fileName }: { url: string; fileName: string }) => saveFile(await getPacketFile(url), fileName),
   });
 }

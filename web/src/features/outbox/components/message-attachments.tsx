@@ -5,6 +5,7 @@ import type { OutboxMessageResponse } from '@domain/mail/outbox.schema';
 
 import { useNotify } from '../../../components/notify';
 import { describeRequestError } from '../../../lib/form-errors';
+import { saveFile } from '../../../lib/save-file';
 import { getOutboxAttachment } from '../api/get-outbox-attachment';
 
 const useStyles = makeStyles({
@@ -33,18 +34,6 @@ export function formatSize(bytes: number): string {
 
 type Attachment = OutboxMessageResponse['attachments'][number];
 
-function saveBlob(blob: Blob, filename: string): void {
-  const url = URL.createObjectURL(blob);
-  const anchor = document.createElement('a');
-  anchor.href = url;
-  anchor.download = filename;
-  document.body.append(anchor);
-  anchor.click();
-  anchor.remove();
-  // Give the browser a moment to start the download before the address stops working.
-  setTimeout(() => URL.revokeObjectURL(url), 10_000);
-}
-
 export function MessageAttachments({ messageId, attachments }: { messageId: string; attachments: readonly Attachment[] }) {
   const styles = useStyles();
   const notify = useNotify();
@@ -53,7 +42,7 @@ export function MessageAttachments({ messageId, attachments }: { messageId: stri
   const download = async (attachment: Attachment) => {
     setDownloading(attachment.id);
     try {
-      saveBlob(await getOutboxAttachment(messageId, attachment.id), attachment.filename);
+      saveFile(await getOutboxAttachment(messageId, attachment.id), attachment.filename);
     } catch (error) {
       notify.error(`Could not download ${attachment.filename}`, describeRequestError(error));
     } finally {

@@ -5,10 +5,11 @@ import { useState } from 'react';
 import { useNotify } from '../../../components/notify';
 import { describeRequestError } from '../../../lib/form-errors';
 import { formatDate } from '../../../lib/format-date';
+import { saveFile } from '../../../lib/save-file';
 import { useDateStyle } from '../../../lib/use-date-style';
 import type { PortalPacket } from '../api/get-portal-site';
 import { getPacketFile } from '../api/get-packet-file';
-import { saveBlob, sha256Hex } from '../utils/sha256';
+import { sha256Hex } from '../utils/sha256';
 
 const useStyles = makeStyles({
   list: { listStyle: 'none', margin: 0, padding: 0, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
@@ -48,7 +49,7 @@ function PacketFile({ label, file, fileName }: { label: string; file: PortalPack
   const download = async () => {
     setDownloading(true);
     try {
-      saveBlob(await getPacketFile(file.url), fileName);
+      saveFile(await getPacketFile(file.url), fileName);
     } catch (error) {
       notify.error('Could not download the file', describeRequestError(error));
     } finally {
