@@ -168,38 +168,33 @@ class SegmentGrid {
     }
   }
 
-  /** How many lines not in `own` the segment p–q crosses (a leader line drawn over other runs). */
-  countCrossings(p: Point, q: Point, own: readonly string[]): number {
-    const box = { x: Math.min(p.x, q.x), y: Math.min(p.y, q.y), width: Math.abs(q.x - p.x), height: Math.abs(q.y - p.y) };
-    const crossed = new Set<string>();
+  /** The segments in the grid cells that `box` touches (a segment in two cells comes twice). */
+  private *segmentsNear(box: Box): Generator<{ a: Point; b: Point; owner: string }> {
     const x0 = Math.floor(box.x / this.cellSize);
     const x1 = Math.floor((box.x + box.width) / this.cellSize);
     const y0 = Math.floor(box.y / this.cellSize);
     const y1 = Math.floor((box.y + box.height) / this.cellSize);
     for (let i = x0; i <= x1; i += 1) {
       for (let j = y0; j <= y1; j += 1) {
-        for (const k of this.cells.get(`${i},${j}`) ?? []) {
-          const s = this.segments[k]!;
-          if (!own.includes(s.owner) && !crossed.has(s.owner) && segmentsCross(p, q, s.a, s.b)) crossed.add(s.owner);
-        }
+        for (const k of this.cells.get(`${i},${j}`) ?? []) yield this.segments[k]!;
       }
+    }
+  }
+
+  /** How many lines not in `own` the segment p–q crosses (a leader line drawn over other runs). */
+  countCrossings(p: Point, q: Point, own: readonly string[]): number {
+    const box = { x: Math.min(p.x, q.x), y: Math.min(p.y, q.y), width: Math.abs(q.x - p.x), height: Math.abs(q.y - p.y) };
+    const crossed = new Set<string>();
+    for (const s of this.segmentsNear(box)) {
+      if (!own.includes(s.owner) && !crossed.has(s.owner) && segmentsCross(p, q, s.a, s.b)) crossed.add(s.owner);
     }
     return crossed.size;
   }
 
   /** True when a segment of a line not in `own` meets the box. */
   crosses(box: Box, own: readonly string[]): boolean {
-    const x0 = Math.floor(box.x / this.cellSize);
-    const x1 = Math.floor((box.x + box.width) / this.cellSize);
-    const y0 = Math.floor(box.y / this.cellSize);
-    const y1 = Math.floor((box.y + box.height) / this.cellSize);
-    for (let i = x0; i <= x1; i += 1) {
-      for (let j = y0; j <= y1; j += 1) {
-        for (const k of this.cells.get(`${i},${j}`) ?? []) {
-          const s = this.segments[k]!;
-          if (!own.includes(s.owner) && segmentIntersectsBox(s.a, s.b, box)) return true;
-        }
-      }
+    for (const s of this.segmentsNear(box)) {
+      if (!own.includes(s.owner) && segmentIntersectsBox(s.a, s.b, box)) return true;
     }
     return false;
   }
