@@ -58,7 +58,8 @@ describe('image limits and upload concurrency', () => {
       .attach('file', content, { filename: 'plan.png', contentType: 'image/png' });
   };
 
-  const storedFiles = async () => (await readdir(root, { recursive: true }).catch(() => [])).length;
+  /** This company's stored files (this app's packet worker may finish a packet another spec file queued, under its company). */
+  const storedFiles = async () => (await readdir(join(root, 'companies', company.id), { recursive: true }).catch(() => [])).length;
 
   async function jobInProgress(): Promise<JobFixture> {
     const job = await createJob(as.office, siteId, { crewLeadUserId: company.users.lead.id, technicianUserIds: [company.users.tech.id] });
