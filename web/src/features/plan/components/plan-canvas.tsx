@@ -7,7 +7,7 @@ import type { PlanPoint } from '@domain/as-built/common.schema';
 import type { ItemKind } from '@domain/as-built/item.schema';
 import { FEATURE_FILL, FEATURE_LABEL, FEATURE_STROKE, LEADER_INK, PAPER, REFERENCE_INK, WARNING_INK } from '@drawings/marking-palette';
 
-import { layoutLabels, type PlacedLabel } from '../utils/label-layout';
+import { landmarkSpots, layoutLabels, type Box, type LabelRequest, type PlacedLabel } from '../utils/label-layout';
 import { imagePlanBox, normalizeDegrees, scaleBarFor, type ImagePlacement } from '../utils/plan-geometry';
 import type { RunStyle } from '../utils/plan-records';
 
@@ -110,6 +110,45 @@ const useStyles = makeStyles({
 
 const HIT_RADIUS_PX = 22;
 const FALLBACK_SIZE = { width: 360, height: 480 };
+/** Kept between a name and a control laid over the plan, pixels. */
+const CONTROL_MARGIN_PX = 4;
+/** The north arrow's ring: centre from the top right corner, and radius. */
+const NORTH_FROM_RIGHT = 34;
+const NORTH_FROM_TOP = 40;
+const NORTH_RADIUS = 26;
+
+/** Where the HTML controls over the plan (zoom buttons, hint) were measured, relative to the drawing; undefined until measured. */
+type ControlBoxes = { buttons: Box | undefined; hint: Box | undefined };
+
+/**
+ * The parts of the frame no name may be placed under: the controls drawn over the plan (north arrow top
+ * right, scale bar bottom left) and the HTML ones laid on top (the zoom and layers buttons bottom right,
+ * the hint along the top), each with a small margin. Where the HTML ones cannot be measured (no layout,
+ * as in jsdom) their box is estimated from the styles below: 48 px buttons, 4 px apart, 8 px from the edges.
+ */
+function controlBoxes(
+  size: { width: number; height: number },
+  barPixels: number,
+  measured: ControlBoxes | undefined,
+  shown: { hint: boolean; buttonCount: number },
+): Box[] {
+  const grow = (b: Box): Box => ({ left: b.left - CONTROL_MARGIN_PX, top: b.top - CONTROL_MARGIN_PX, right: b.right + CONTROL_MARGIN_PX, bottom: b.bottom + CONTROL_MARGIN_PX });
+  const buttons = measured?.buttons ?? { left: size.width - 8 - 48, top: size.height - 8 - shown.buttonCount * 52 + 4, right: size.width - 8, bottom: size.height - 8 };
+  const hint = shown.hint ? (measured?.hint ?? { left: 8, top: 8, right: size.width - 72, bottom: 8 + 64 }) : undefined;
+  const north = { x: size.width - NORTH_FROM_RIGHT, y: NORTH_FROM_TOP };
+  return [
+    buttons,
+    ...(hint ? [hint] : []),
+    { left: north.x - NORTH_RADIUS, top: north.y - NORTH_RADIUS, right: north.x + NORTH_RADIUS, bottom: north.y + NORTH_RADIUS },
+    // The scale bar's panel: translate(12, height − 20), rect from (−6, −24), 34 px tall.
+    { left: 6, top: size.height - 44, right: 18 + barPixels, bottom: size.height - 10 },
+  ].map(grow);
+}
+
+function sameBox(a: Box | undefined, b: Box | undefined): boolean {
+  if (!a || !b) return a === b;
+  return Math.round(a.left) === Math.round(b.left) && Math.round(a.top) === Math.round(b.top) && Math.round(a.right) === Math.round(b.right) && Math.round(a.bottom) === Math.round(b.bottom);
+}
 
 function hitOf(target: EventTarget | null): PlanHit | undefined {
   const element = (target as Element | null)?.closest?.('[data-hit]');
@@ -163,17 +202,44 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
   const onZoomRef = useRef(onZoom);
   onZoomRef.current = onZoom;
 
+  const buttonsRef = useRef<HTMLDivElement>(null);
+  const hintElement = useRef<HTMLDivElement | null>(null);
+  const observerRef = useRef<ResizeObserver | undefined>(undefined);
+  const [controls, setControls] = useState<ControlBoxes | undefined>(undefined);
+
   const measure = useCallback(() => {
     const rect = svgRef.current?.getBoundingClientRect();
-    if (rect && rect.width > 0 && rect.height > 0) setSize({ width: rect.width, height: rect.height });
+    if (!rect || rect.width <= 0 || rect.height <= 0) return;
+    setSize({ width: rect.width, height: rect.height });
+    const boxOf = (element: Element | null): Box | undefined => {
+      const b = element?.getBoundingClientRect();
+      return b && b.width > 0 && b.height > 0 ? { left: b.left - rect.left, top: b.top - rect.top, right: b.right - rect.left, bottom: b.bottom - rect.top } : undefined;
+    };
+    const next = { buttons: boxOf(buttonsRef.current), hint: boxOf(hintElement.current) };
+    setControls((previous) => (previous && sameBox(previous.buttons, next.buttons) && sameBox(previous.hint, next.hint) ? previous : next));
   }, []);
 
   useLayoutEffect(() => {
     measure();
     const observer = new ResizeObserver(measure);
-    if (svgRef.current) observer.observe(svgRef.current);
-    return () => observer.disconnect();
+    observerRef.current = observer;
+    for (const element of [svgRef.current, buttonsRef.current, hintElement.current]) if (element) observer.observe(element);
+    return () => {
+      observer.disconnect();
+      observerRef.current = undefined;
+    };
   }, [measure]);
+
+  // The hint comes and goes with the tool and changes height with its text: names keep off it.
+  const hintRef = useCallback(
+    (element: HTMLDivElement | null) => {
+      if (hintElement.current) observerRef.current?.unobserve(hintElement.current);
+      hintElement.current = element;
+      if (element) observerRef.current?.observe(element);
+      measure();
+    },
+    [measure],
+  );
 
   useEffect(() => {
     const svg = svgRef.current;
@@ -293,7 +359,7 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
   });
 
   const [isTurning, setIsTurning] = useState(false);
-  const northCentre = { x: size.width - 34, y: 40 };
+  const northCentre = { x: size.width - NORTH_FROM_RIGHT, y: NORTH_FROM_TOP };
   const turnTo = (event: ReactPointerEvent<SVGElement>) => {
     const rect = svgRef.current?.getBoundingClientRect();
     const dx = event.clientX - (rect?.left ?? 0) - northCentre.x;
@@ -331,19 +397,31 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
     drag?.hasMoved === true && drag.hit.type === hit.type && ('id' in hit ? 'id' in drag.hit && drag.hit.id === hit.id : 'index' in drag.hit && drag.hit.index === hit.index);
   const draftPoints = (model.draftRoute?.points ?? []).map((p, index) => (isDragging({ type: 'vertex', index }) ? drag!.point : p));
   const items = model.items.map((item) => (isDragging({ type: 'item', id: item.id }) ? { ...item, ...drag!.point } : item));
-  // Item labels first (they matter most), then reference points; each where it is clear of the others,
-  // or left off until a zoom makes room (the selected item's always shows).
-  const labels = model.showLabels
-    ? layoutLabels(
-        [
-          ...items.map((item) => ({ id: `item:${item.id}`, x: sx(item.x), y: sy(item.y), text: item.label, fontSize: 12, isPinned: item.isSelected })),
-          ...model.references.map((ref) => ({ id: `ref:${ref.id}`, x: sx(ref.x), y: sy(ref.y), text: ref.label, fontSize: 12 })),
-        ],
-        size,
-      )
-    : new Map<string, PlacedLabel>();
   const pixelsPerMetre = transform.k;
   const bar = scaleBarFor(pixelsPerMetre, Math.min(140, size.width / 3), model.lengthSystem);
+  // Item names first (they are the job's record), then reference points, then landmarks (they only
+  // orient the reader, and their shape shows without a name); each where it is clear of the others, of
+  // every symbol and of the controls over the plan, or left off until a zoom makes room (the selected
+  // item's or landmark's always shows).
+  const labelRequests: LabelRequest[] = [
+    ...items.map((item) => ({ id: `item:${item.id}`, x: sx(item.x), y: sy(item.y), text: item.label, fontSize: 12, isPinned: item.isSelected })),
+    ...model.references.map((ref) => ({ id: `ref:${ref.id}`, x: sx(ref.x), y: sy(ref.y), text: ref.label, fontSize: 12 })),
+    ...(model.features ?? []).map((f) => ({
+      id: `feature:${f.id}`,
+      text: f.name,
+      fontSize: 12,
+      isPinned: f.isSelected,
+      spots: landmarkSpots(
+        f.shape,
+        f.points.map((p) => ({ x: sx(p.x), y: sy(p.y) })),
+        12,
+        size,
+      ),
+    })),
+  ];
+  const labels = model.showLabels
+    ? layoutLabels(labelRequests, size, controlBoxes(size, bar.pixels, controls, { hint: Boolean(hint), buttonCount: extraButtons ? 4 : 3 }))
+    : new Map<string, PlacedLabel>();
   const image = model.image;
   const imageBox = image ? imagePlanBox(image.widthPx, image.heightPx, image.placement) : undefined;
 
@@ -373,8 +451,7 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
           {(model.features ?? []).map((f) => {
             const pts = f.points.map((p) => `${sx(p.x)},${sy(p.y)}`).join(' ');
             const width = (f.kind === 'fence' || f.kind === 'wall' || f.kind === 'house' ? 2 : 1.3) * (f.isSelected ? 2 : 1);
-            const n = Math.max(f.points.length, 1);
-            const centre = { x: f.points.reduce((a, p) => a + p.x, 0) / n, y: f.points.reduce((a, p) => a + p.y, 0) / n };
+            const placed = labels.get(`feature:${f.id}`);
             return (
               <g key={f.id} data-feature-id={f.id} role="graphics-symbol" aria-label={f.name}>
                 {f.shape === 'polygon' ? (
@@ -382,8 +459,8 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
                 ) : (
                   <polyline points={pts} fill="none" stroke={FEATURE_STROKE} strokeWidth={width + 1} strokeDasharray={f.kind === 'path' ? '8 4' : undefined} />
                 )}
-                {model.showLabels && (
-                  <text x={sx(centre.x)} y={sy(centre.y)} textAnchor="middle" fontSize={12} fontStyle="italic" fill={FEATURE_LABEL} stroke={HALO} strokeWidth={3} paintOrder="stroke">
+                {placed && (
+                  <text {...placed} fontSize={12} fontStyle="italic" fill={FEATURE_LABEL} stroke={HALO} strokeWidth={3} paintOrder="stroke">
                     {f.name}
                   </text>
                 )}
@@ -567,7 +644,7 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
           </text>
         </g>
         <g data-layer="north-arrow" transform={`translate(${northCentre.x}, ${northCentre.y})`} {...northHandlers} role={onNorthTurn ? 'graphics-symbol' : undefined} aria-label={onNorthTurn ? 'Turn the north arrow' : undefined}>
-          <circle r={26} fill={OVERLAY_PAPER} stroke={onNorthTurn ? SELECTION : COMPASS_RING} strokeWidth={onNorthTurn ? 3 : 1} />
+          <circle r={NORTH_RADIUS} fill={OVERLAY_PAPER} stroke={onNorthTurn ? SELECTION : COMPASS_RING} strokeWidth={onNorthTurn ? 3 : 1} />
           {model.northAzimuthDeg === null ? (
             <text textAnchor="middle" y={4} fontSize={10} fill={MUTED_INK}>
               North?
@@ -584,11 +661,11 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
         </g>
       </svg>
       {hint && (
-        <div className={styles.hint} role="status" aria-live="polite" data-testid="plan-hint">
+        <div ref={hintRef} className={styles.hint} role="status" aria-live="polite" data-testid="plan-hint">
           {hint}
         </div>
       )}
-      <div className={styles.zoomButtons}>
+      <div ref={buttonsRef} className={styles.zoomButtons}>
         {extraButtons}
         <Tooltip content="Zoom in" relationship="label">
           <Button className={styles.zoomButton} icon={<Add24Regular />} onClick={() => zoomBy(1.6)} />

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 
-import { layoutLabels } from './label-layout';
+import { boxesOverlap, EDGE_PX, labelBox, landmarkSpots, layoutLabels, type LabelRequest } from './label-layout';
 
 const VIEW = { width: 400, height: 300 };
 
@@ -46,5 +46,123 @@ describe('layoutLabels', () => {
       return { left, right: left + width, top: spot.y - 12, bottom: spot.y + 3 };
     });
     for (const [i, a] of boxes.entries()) for (const b of boxes.slice(i + 1)) expect(a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom).toBe(false);
+  });
+
+  it('should keep a landmark’s name off an item’s name and symbol: moved when it can be, else left off', () => {
+    // The patio's centroid is (150, 100): its name centred there would run over the satellite's name
+    // (right of the symbol at 100, 100), so it goes on the line above or below.
+    const patio = [{ x: 110, y: 70 }, { x: 190, y: 70 }, { x: 190, y: 130 }, { x: 110, y: 130 }];
+    const requests: LabelRequest[] = [
+      { id: 'item', x: 100, y: 100, text: 'Patio satellite', fontSize: 12 },
+      { id: 'patio', text: 'Back patio', fontSize: 12, spots: landmarkSpots('polygon', patio, 12, VIEW) },
+    ];
+    const placed = layoutLabels(requests, VIEW);
+    expect(placed.get('item')).toEqual({ x: 115, y: 104, textAnchor: 'start' });
+    const itemBox = labelBox(requests[0]!, placed.get('item')!);
+    const patioBox = labelBox(requests[1]!, placed.get('patio')!);
+    expect(boxesOverlap(labelBox(requests[1]!, landmarkSpots('polygon', patio, 12, VIEW)[0]!), itemBox)).toBe(true);
+    expect(boxesOverlap(patioBox, itemBox)).toBe(false);
+    expect(boxesOverlap(patioBox, { left: 89, top: 89, right: 111, bottom: 111 })).toBe(false);
+
+    // A landmark whose only spot is the item's name's is left off, and the item keeps its name.
+    const crowded = layoutLabels([requests[0]!, { id: 'patio', text: 'Back patio', fontSize: 12, spots: [{ x: 140, y: 104, textAnchor: 'middle' }] }], VIEW);
+    expect(crowded.has('patio')).toBe(false);
+    expect(crowded.get('item')).toEqual({ x: 115, y: 104, textAnchor: 'start' });
+  });
+
+  it('should never write a landmark’s name over an item’s symbol, even with nothing else near', () => {
+    const placed = layoutLabels(
+      [
+        { id: 'item', x: 150, y: 100, text: 'Amp', fontSize: 12 },
+        { id: 'fence', text: 'East fence', fontSize: 12, spots: [{ x: 150, y: 104, textAnchor: 'middle' }, { x: 150, y: 130, textAnchor: 'middle' }] },
+      ],
+      VIEW,
+    );
+    expect(placed.get('fence')).toEqual({ x: 150, y: 130, textAnchor: 'middle' });
+  });
+
+  it('should show a selected landmark’s name even where it overlaps, before the others', () => {
+    const placed = layoutLabels(
+      [
+        { id: 'item', x: 100, y: 100, text: 'Patio satellite', fontSize: 12 },
+        { id: 'patio', text: 'Back patio', fontSize: 12, isPinned: true, spots: [{ x: 140, y: 104, textAnchor: 'middle' }] },
+      ],
+      VIEW,
+    );
+    expect(placed.get('patio')).toEqual({ x: 140, y: 104, textAnchor: 'middle' });
+    expect(placed.get('item')?.textAnchor).not.toBe('start');
+  });
+
+  it('should move a name off the controls’ box, or leave it off when every spot is under the controls', () => {
+    // Zoom buttons in the bottom right corner, 56 px wide and 170 px tall.
+    const buttons = { left: 340, top: 126, right: 400, bottom: 300 };
+    const request = { id: 'a', x: 240, y: 200, text: 'Spa splice box', fontSize: 12 };
+    expect(labelBox(request, layoutLabels([request], VIEW).get('a')!).right).toBeGreaterThan(buttons.left);
+    const moved = layoutLabels([request], VIEW, [buttons]).get('a')!;
+    expect(moved.textAnchor).toBe('end');
+    expect(boxesOverlap(labelBox(request, moved), buttons)).toBe(false);
+
+    // A symbol under the middle of a wide control: no spot around it is clear.
+    const hint = { left: 0, top: 0, right: 400, bottom: 120 };
+    expect(layoutLabels([{ id: 'b', x: 200, y: 40, text: 'Gate post', fontSize: 12 }], VIEW, [hint]).has('b')).toBe(false);
+    // Pinned, it still shows, on a spot off the controls when there is one, even where every such spot
+    // runs over a symbol (a row of them just below it).
+    const pinned = { id: 'c', x: 200, y: 110, text: 'Gate post', fontSize: 12, isPinned: true };
+    const row = Array.from({ length: 21 }, (_v, i) => ({ id: `s${i}`, x: 120 + i * 8, y: 140, text: '', fontSize: 12 }));
+    expect(layoutLabels([{ ...pinned, isPinned: false }, ...row], VIEW, [hint]).has('c')).toBe(false);
+    const spot = layoutLabels([pinned, ...row], VIEW, [hint]).get('c')!;
+    expect(spot).toEqual({ x: 200, y: 137, textAnchor: 'middle' });
+    expect(boxesOverlap(labelBox(pinned, spot), hint)).toBe(false);
+  });
+
+  it('should keep every name inside the frame, clear of its edges', () => {
+    // Right of the symbol the name would end 2.4 px from the right edge: inside the view, not clear of its edge.
+    const request = { id: 'a', x: 313, y: 100, text: 'Spa lights', fontSize: 12 };
+    const end = 313 + 15 + labelBox(request, { x: 0, y: 0, textAnchor: 'start' }).right;
+    expect(end).toBeGreaterThan(VIEW.width - EDGE_PX);
+    expect(end).toBeLessThan(VIEW.width);
+    expect(layoutLabels([request], VIEW).get('a')?.textAnchor).toBe('end');
+    // A landmark whose spots are all off screen is left off rather than cut.
+    expect(layoutLabels([{ id: 'f', text: 'Driveway', fontSize: 12, spots: [{ x: 5, y: 100, textAnchor: 'middle' }] }], VIEW).has('f')).toBe(false);
+  });
+});
+
+describe('landmarkSpots', () => {
+  it('should centre an area’s name on its centroid first, then on the line above and below', () => {
+    // An L-shaped house: its area centroid (shoelace), not the mean of its corners.
+    const house = [{ x: 0, y: 0 }, { x: 200, y: 0 }, { x: 200, y: 100 }, { x: 100, y: 100 }, { x: 100, y: 200 }, { x: 0, y: 200 }];
+    const [first, above, below] = landmarkSpots('polygon', house, 12, { width: 400, height: 400 });
+    // Centroid of the L: (3 squares of 100: centres (50,50), (150,50), (50,150)) = (83.3, 83.3).
+    expect(first!.x).toBeCloseTo(250 / 3, 5);
+    expect(first!.y).toBeCloseTo(250 / 3 + 4, 5);
+    expect(first!.textAnchor).toBe('middle');
+    expect(above!.y).toBeLessThan(first!.y);
+    expect(below!.y).toBeGreaterThan(first!.y);
+  });
+
+  it('should try the middle of the part in view when an area’s centroid is off screen', () => {
+    // A lawn from x −300 to 100: its centroid (−100) is off screen, the part in view is x 0..100.
+    const lawn = [{ x: -300, y: 50 }, { x: 100, y: 50 }, { x: 100, y: 150 }, { x: -300, y: 150 }];
+    const spots = landmarkSpots('polygon', lawn, 12, VIEW);
+    expect(spots[0]!.x).toBe(-100);
+    expect(spots.slice(3, 6).map((s) => s.x)).toEqual([50, 50, 50]);
+    expect(layoutLabels([{ id: 'lawn', text: 'Lawn', fontSize: 12, spots }], VIEW).get('lawn')).toEqual({ x: 50, y: 104, textAnchor: 'middle' });
+  });
+
+  it('should put a small area’s name beside its outline when there is no room inside', () => {
+    // A spa 24 px across with an item's symbol on it: its name goes just right of the outline.
+    const spa = [{ x: 188, y: 88 }, { x: 212, y: 88 }, { x: 212, y: 112 }, { x: 188, y: 112 }];
+    const placed = layoutLabels([{ id: 'light', x: 200, y: 100, text: '', fontSize: 12 }, { id: 'spa', text: 'Spa', fontSize: 12, spots: landmarkSpots('polygon', spa, 12, VIEW) }], VIEW);
+    expect(placed.get('spa')).toEqual({ x: 216, y: 104, textAnchor: 'start' });
+  });
+
+  it('should put a line’s name just above its middle, then below it, then farther along', () => {
+    const fence = [{ x: 0, y: 100 }, { x: 100, y: 100 }, { x: 100, y: 300 }];
+    const spots = landmarkSpots('line', fence, 12, VIEW);
+    // 300 px long: the middle is 150 px along, 50 px down the second leg.
+    expect(spots[0]).toEqual({ x: 100, y: 145, textAnchor: 'middle' });
+    expect(spots[1]).toEqual({ x: 100, y: 164, textAnchor: 'middle' });
+    // 105 px along: 5 px down the second leg.
+    expect(spots[2]).toEqual({ x: 100, y: 100, textAnchor: 'middle' });
   });
 });
