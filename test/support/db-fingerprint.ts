@@ -13,8 +13,13 @@ export type DbFingerprint = Record<string, { rows: number; md5: string }>;
 /**
  * A cheap whole-database fingerprint for "nothing was written": one SQL statement over every table of
  * the `public` schema (the queue's own `pgboss` schema polls on timers and is left out) giving each
- * table's row count and the md5 of its rows' md5s in order. Two equal fingerprints mean no
- * row was inserted, changed or deleted in between.
+ * table's row count and an md5 of its rows' versions. A row version is named by the transaction that
+ * wrote it and where it lies (PostgreSQL's `xmin` and `ctid` system columns): every insert or update,
+ * even one that writes the same values again, makes a new version with a new `ctid`, a delete takes
+ * one away, and the versions of a rolled-back transaction are never seen. Neither plain (auto)vacuum nor
+ * freezing changes a live row's `xmin` or `ctid`. So two equal fingerprints mean no row was written in
+ * between, without reading the rows' contents (a captured mail attachment is megabytes): on a worker's
+ * database late in a run, about 10 ms instead of 63 ms for hashing every row's text.
  */
 export async function fingerprintDatabase(
   client: pg.Client,
@@ -34,11 +39,9 @@ export async function fingerprintDatabase(
           ? `select ${client.escapeLiteral(name)} as name, count(*)::int as rows,
                 coalesce(md5(string_agg(t.id::text, E'\\n' order by t.id::text)), '') as md5
            from public.${client.escapeIdentifier(name)} t`
-          : // Each row's text is hashed once and the hashes are sorted (not the rows' text, megabytes
-            // for a mail attachment): on a worker's database late in a run, 63 ms instead of 120 ms.
-            `select ${client.escapeLiteral(name)} as name, count(*)::int as rows,
-                coalesce(md5(string_agg(r.h, '' order by r.h)), '') as md5
-           from (select md5(t::text) as h from public.${client.escapeIdentifier(name)} t) r`,
+          : `select ${client.escapeLiteral(name)} as name, count(*)::int as rows,
+                coalesce(md5(string_agg(t.xmin::text || '@' || t.ctid::text, ',' order by t.ctid)), '') as md5
+           from public.${client.escapeIdentifier(name)} t`,
     )
     .join(' union all ');
   const { rows } = await client.query<{ name: string; rows: number; md5: string }>(sql);
