@@ -9,6 +9,7 @@ import { defineConfig, type Plugin } from 'vite';
 import { VitePWA } from 'vite-plugin-pwa';
 
 const repoRoot = fileURLToPath(new URL('..', import.meta.url));
+const appRoot = fileURLToPath(new URL('.', import.meta.url));
 const domain = fileURLToPath(new URL('../api/src/domain', import.meta.url));
 const drawings = fileURLToPath(new URL('../api/src/drawings', import.meta.url));
 const apiTarget = `http://127.0.0.1:${process.env.API_PORT ?? '3001'}`;
@@ -52,6 +53,35 @@ function precompress(): Plugin {
         if (br.length < content.length) await writeFile(`${file}.br`, br);
         if (gz.length < content.length) await writeFile(`${file}.gz`, gz);
       }
+    },
+  };
+}
+
+/**
+ * Writes `dist/.vite/chunk-contents.json`: for every built script, the npm packages and the source files
+ * bundled into it. Vite's manifest names only chunks; this says what is inside them, so a test can check
+ * that the public locate page's scripts hold no Fluent UI, router or query cache
+ * (test/e2e/locate-bundle.e2e.spec.ts). Not served: the server skips `.vite/`.
+ */
+function chunkContents(): Plugin {
+  return {
+    name: 'loamline-chunk-contents',
+    apply: 'build',
+    generateBundle(_options, bundle) {
+      const contents: Record<string, { packages: string[]; sources: string[] }> = {};
+      for (const output of Object.values(bundle)) {
+        if (output.type !== 'chunk') continue;
+        const packages = new Set<string>();
+        const sources = new Set<string>();
+        for (const id of output.moduleIds) {
+          const path = id.replace(/\\/g, '/').replace(/^\0/, '');
+          const inPackage = /\/node_modules\/((?:@[^/]+\/)?[^/]+)\//.exec(path);
+          if (inPackage) packages.add(inPackage[1]!);
+          else if (path.startsWith(repoRoot.replace(/\\/g, '/'))) sources.add(path.slice(repoRoot.length));
+        }
+        contents[output.fileName] = { packages: [...packages].sort(), sources: [...sources].sort() };
+      }
+      this.emitFile({ type: 'asset', fileName: '.vite/chunk-contents.json', source: JSON.stringify(contents, null, 1) });
     },
   };
 }
@@ -110,12 +140,16 @@ const pwa = VitePWA({
     // Every file of the build the app can load (the compressed .br/.gz copies are the server's business).
     // The HEIC converter's WebAssembly is among them, so a HEIC photo taken offline converts too.
     globPatterns: ['**/*.{js,css,html,svg,png,woff2,webmanifest,wasm}'],
+    // The public locate page is not: it shows nothing without its /api answer, which the worker never
+    // keeps, and the stranger it is for never installs the app (its scripts are precached with the rest).
+    globIgnores: ['locate.html'],
     // The largest route chunk (the plan editor with elkjs) is above Workbox's 2 MiB default.
     maximumFileSizeToCacheInBytes: 8 * 1024 * 1024,
     // A reload of any client-side route with no signal gets the precached shell…
     navigateFallback: '/index.html',
-    // …but never for the API, nor for the public locate view's own links that the server answers.
-    navigateFallbackDenylist: [/^\/api(\/|$)/],
+    // …but never for the API, nor for the public locate view's own links (`/locate/<token>`), which the
+    // server answers with locate.html, a page of its own.
+    navigateFallbackDenylist: [/^\/api(\/|$)/, /^\/locate\//],
     // Nothing at run time: /api answers are never kept by the worker (see above).
     runtimeCaching: [],
     cleanupOutdatedCaches: true,
@@ -128,7 +162,7 @@ const pwa = VitePWA({
 });
 
 export default defineConfig({
-  plugins: [react(), pwa, precompress()],
+  plugins: [react(), pwa, precompress(), chunkContents()],
   resolve: {
     alias: { '@domain': domain, '@drawings': drawings },
   },
@@ -145,5 +179,10 @@ export default defineConfig({
     emptyOutDir: true,
     // dist/.vite/manifest.json: which chunks each route module pulls in (read by bench/web-bundle.bench.ts).
     manifest: true,
+    rolldownOptions: {
+      // Two pages: the app, and the public locate view on its own (issue 17: React and the locate view
+      // only, no Fluent UI, router or query cache; api/src/common/web-app.ts answers /locate/* with it).
+      input: { index: resolve(appRoot, 'index.html'), locate: resolve(appRoot, 'locate.html') },
+    },
   },
 });

@@ -8,10 +8,11 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { createCompany, type TestCompany } from '../support/fixtures.js';
 
-// A stand-in web build (index.html and one hashed asset), served by the API as `npm start` serves web/dist.
+// A stand-in web build (index.html, locate.html and one hashed asset), served by the API as `npm start` serves web/dist.
 const WEB_DIST_DIR = mkdtempSync(join(tmpdir(), 'loamline-web-dist-'));
 mkdirSync(join(WEB_DIST_DIR, 'assets'));
 writeFileSync(join(WEB_DIST_DIR, 'index.html'), '<!doctype html><html><body><div id="root"></div><script type="module" src="/assets/index-abc.js"></script></body></html>');
+writeFileSync(join(WEB_DIST_DIR, 'locate.html'), '<!doctype html><html><body><div id="root"></div><script type="module" src="/assets/locate-abc.js"></script></body></html>');
 writeFileSync(join(WEB_DIST_DIR, 'assets', 'index-abc.js'), 'console.log("app")');
 
 /** The directives of a Content-Security-Policy header, by name. */
@@ -66,15 +67,17 @@ describe('security of the HTTP surface', () => {
       expect(csp.get('connect-src')).toEqual(["'self'"]);
     });
 
-    it('should have no inline script in the page source that such a policy would block', () => {
-      const html = readFileSync(join(import.meta.dirname, '../../web/index.html'), 'utf8');
-      const scripts = [...html.matchAll(/<script\b([^>]*)>([\s\S]*?)<\/script>/gi)];
-      expect(scripts.length).toBeGreaterThan(0);
-      for (const [, attributes, body] of scripts) {
-        expect(attributes).toMatch(/\bsrc=/);
-        expect(body!.trim()).toBe('');
+    it('should have no inline script in the pages’ source that such a policy would block (the app and the locate view)', () => {
+      for (const page of ['index.html', 'locate.html']) {
+        const html = readFileSync(join(import.meta.dirname, '../../web', page), 'utf8');
+        const scripts = [...html.matchAll(/<script\b([^>]*)>([\s\S]*?)<\/script>/gi)];
+        expect(scripts.length, page).toBeGreaterThan(0);
+        for (const [, attributes, body] of scripts) {
+          expect(attributes, page).toMatch(/\bsrc=/);
+          expect(body!.trim(), page).toBe('');
+        }
+        expect(html, page).not.toMatch(/\son[a-z]+=/i);
       }
-      expect(html).not.toMatch(/\son[a-z]+=/i);
     });
 
     it('should send the other protective headers and no X-Powered-By', async () => {

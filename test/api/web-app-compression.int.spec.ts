@@ -9,16 +9,19 @@ import type { NestExpressApplication } from '@nestjs/platform-express';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 // A stand-in web build as `vite build` writes it (web/vite.config.ts, `precompress`): a hashed script and
-// stylesheet with their .br and .gz copies, a hashed image with none, and index.html.
+// stylesheet with their .br and .gz copies, a hashed image with none, index.html and the public locate
+// view's own page, locate.html.
 const WEB_DIST_DIR = mkdtempSync(join(tmpdir(), 'loamline-web-compress-'));
 const SCRIPT = `export const rows = [${Array.from({ length: 400 }, (_, i) => `{"run":${i},"depth":"18 in"}`).join(',')}];\n`;
 const STYLE = `.row{margin:0;padding:0}\n`.repeat(200);
 const INDEX = `<!doctype html><html><head><script type="module" src="/assets/index-Ab12Cd34.js"></script></head><body><div id="root"></div>${'<!-- - -->'.repeat(150)}</body></html>`;
+const LOCATE = `<!doctype html><html><head><script type="module" src="/assets/locate-Ij90Kl12.js"></script></head><body><div id="root"></div>${'<!-- + -->'.repeat(150)}</body></html>`;
 mkdirSync(join(WEB_DIST_DIR, 'assets'));
 for (const [name, text] of [
   ['assets/index-Ab12Cd34.js', SCRIPT],
   ['assets/index-Ef56Gh78.css', STYLE],
   ['index.html', INDEX],
+  ['locate.html', LOCATE],
 ] as const) {
   writeFileSync(join(WEB_DIST_DIR, name), text);
   writeFileSync(join(WEB_DIST_DIR, `${name}.br`), brotliCompressSync(text));
@@ -127,7 +130,7 @@ describe('the built web app, precompressed (issue 17: fast on a weak signal)', (
   });
 
   it('should send index.html for a client route, compressed, with no-cache and the Content-Security-Policy', async () => {
-    for (const path of ['/', '/jobs', '/locate/some-token', '/index.html']) {
+    for (const path of ['/', '/jobs', '/jobs/4f1c', '/locate', '/locate/some-token/more', '/index.html']) {
       const res = await get(path, 'gzip, deflate, br');
       expect(res.status, path).toBe(200);
       expect(res.headers['content-type'], path).toMatch(/^text\/html/);
@@ -141,6 +144,29 @@ describe('the built web app, precompressed (issue 17: fast on a weak signal)', (
     expect(plain.headers['content-encoding']).toBeUndefined();
     expect(plain.headers['cache-control']).toBe('no-cache');
     expect(plain.body.toString()).toBe(INDEX);
+  });
+
+  it('should send locate.html, not the app, for a locate link: compressed, with no-cache and the Content-Security-Policy', async () => {
+    for (const path of ['/locate/some-token', '/locate/Ab_9-xY/', '/locate.html']) {
+      const res = await get(path, 'gzip, deflate, br');
+      expect(res.status, path).toBe(200);
+      expect(res.headers['content-type'], path).toMatch(/^text\/html/);
+      expect(res.headers['content-encoding'], path).toBe('br');
+      expect(varyNames(res), path).toContain('accept-encoding');
+      expect(res.headers['cache-control'], path).toBe('no-cache');
+      expect(String(res.headers['content-security-policy']), path).toContain("script-src 'self'");
+      expect(brotliDecompressSync(res.body).toString(), path).toBe(LOCATE);
+    }
+    const gzip = await get('/locate/some-token', 'gzip');
+    expect(gzip.headers['content-encoding']).toBe('gzip');
+    expect(gunzipSync(gzip.body).toString()).toBe(LOCATE);
+    const plain = await get('/locate/some-token');
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    expect(plain.headers['cache-control']).toBe('no-cache');
+    expect(plain.body.toString()).toBe(LOCATE);
+    // The locate view's data stays the API's: JSON, never the page.
+    const api = await get('/api/locate/some-token', 'br, gzip');
+    expect(api.headers['content-type']).toMatch(/^application\/json/);
   });
 
   it('should leave the API uncompressed by these copies and uncached', async () => {

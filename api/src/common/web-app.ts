@@ -12,7 +12,7 @@ export const IMMUTABLE_CACHE_CONTROL = 'public, max-age=31536000, immutable';
  * worker (a cached `sw.js` would hold a phone on an old version; browsers cap its HTTP cache at a day
  * anyway, but `no-cache` makes the update check immediate) and the web app manifest.
  */
-const ALWAYS_REVALIDATE = new Set(['/index.html', '/sw.js', '/manifest.webmanifest']);
+const ALWAYS_REVALIDATE = new Set(['/index.html', '/locate.html', '/sw.js', '/manifest.webmanifest']);
 
 /** The Cache-Control for a built file at `path` (`/assets/…`, `/sw.js`, `/favicon.svg` …). */
 export function cacheControlFor(path: string): string {
@@ -24,10 +24,15 @@ export function cacheControlFor(path: string): string {
 type Encoding = 'br' | 'gzip';
 const SUFFIX: Record<Encoding, string> = { br: '.br', gzip: '.gz' };
 
+/** The public locate view's links (`/locate/<token>`): answered with the build's own small page for it. */
+const LOCATE_PAGE = /^\/locate\/[^/]+\/?$/;
+
 /**
  * Serves the built single-page app from `dir` on the same port as the API: hashed assets with a long,
  * immutable cache lifetime, and `index.html` (never cached without asking) for any other GET outside
- * `/api` so client-side routes survive a reload.
+ * `/api` so client-side routes survive a reload — except a locate link, `/locate/<token>`, which gets
+ * `locate.html`: the public locate view as a page of its own, without the app's shell (issue 17: a
+ * stranger's phone on a weak signal loads only what that view needs), with the same cache rules.
  *
  * The web build writes brotli (`.br`) and gzip (`.gz`) copies beside its text files (web/vite.config.ts,
  * `precompress`); a request whose `Accept-Encoding` allows one gets that copy with `Content-Encoding`,
@@ -38,6 +43,8 @@ export function serveWebApp(app: NestExpressApplication, dir: string): void {
   const root = resolve(dir);
   const indexHtml = join(root, 'index.html');
   if (!existsSync(indexHtml)) throw new Error(`WEB_DIST_DIR has no index.html: ${root}`);
+  const locateHtml = join(root, 'locate.html');
+  if (!existsSync(locateHtml)) throw new Error(`WEB_DIST_DIR has no locate.html: ${root}`);
   // The build does not change while the server runs: list its compressed copies once.
   const copies = listCompressedCopies(root);
 
@@ -64,7 +71,8 @@ export function serveWebApp(app: NestExpressApplication, dir: string): void {
   app.use((req: Request, res: Response, next: NextFunction) => {
     const isPageRequest = (req.method === 'GET' || req.method === 'HEAD') && !/^\/api(\/|$)/.test(req.path);
     if (!isPageRequest) return next();
-    sendIndex(req, res, indexHtml, copies, next);
+    if (LOCATE_PAGE.test(req.path)) sendPage(req, res, '/locate.html', locateHtml, copies, next);
+    else sendPage(req, res, '/index.html', indexHtml, copies, next);
   });
 }
 
@@ -136,16 +144,17 @@ function precompressed(root: string, copies: Set<string>) {
   };
 }
 
-function sendIndex(req: Request, res: Response, indexHtml: string, copies: Set<string>, next: NextFunction): void {
+/** Sends a page of the build (`path` in it, at `htmlFile`) for a route, as its precompressed copy if taken. */
+function sendPage(req: Request, res: Response, path: string, htmlFile: string, copies: Set<string>, next: NextFunction): void {
   res.setHeader('Cache-Control', 'no-cache');
-  let file = indexHtml;
-  if (hasCopies('/index.html', copies)) {
+  let file = htmlFile;
+  if (hasCopies(path, copies)) {
     res.vary('Accept-Encoding');
-    const encoding = chooseCopy('/index.html', req.headers['accept-encoding'], copies);
+    const encoding = chooseCopy(path, req.headers['accept-encoding'], copies);
     if (encoding) {
       res.setHeader('Content-Encoding', encoding);
       res.type('html');
-      file = indexHtml + SUFFIX[encoding];
+      file = htmlFile + SUFFIX[encoding];
     }
   }
   res.sendFile(file, (error) => {

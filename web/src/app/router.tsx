@@ -48,8 +48,6 @@ export function createAppRoutes(queryClient: QueryClient, beforeLoaders?: Promis
         { path: paths.signUpVerify.path, lazy: () => import('./routes/auth/sign-up-verify').then(load) },
         { path: paths.forgotPassword.path, lazy: () => import('./routes/auth/forgot-password').then(load) },
         { path: paths.resetPassword.path, lazy: () => import('./routes/auth/reset-password').then(load) },
-        // Public and outside the app frame: a contractor's phone, no account, no navigation.
-        { path: paths.locate.path, lazy: () => import('./routes/locate/locate').then(load) },
         {
           lazy: () => import('./routes/app/root').then(load),
           children: [

@@ -1,38 +1,7 @@
-import { makeStyles, Text, tokens } from '@fluentui/react-components';
-import { Call20Regular, Mail20Regular } from '@fluentui/react-icons';
 import { telHref } from '@domain/company/company-profile.schema';
 
-const useStyles = makeStyles({
-  section: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
-  heading: { margin: 0 },
-  muted: { color: tokens.colorNeutralForeground2 },
-  contact: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM },
-  call: {
-    display: 'inline-flex',
-    alignItems: 'center',
-    gap: tokens.spacingHorizontalS,
-    minHeight: '48px',
-    paddingInline: tokens.spacingHorizontalL,
-    borderRadius: tokens.borderRadiusMedium,
-    backgroundColor: tokens.colorBrandBackground,
-    color: tokens.colorNeutralForegroundOnBrand,
-    fontWeight: tokens.fontWeightSemibold,
-    textDecorationLine: 'none',
-    ':hover': { backgroundColor: tokens.colorBrandBackgroundHover },
-  },
-  mail: {
-    display: 'inline-flex',
-    alignItems: 'center',
-    gap: tokens.spacingHorizontalS,
-    minHeight: '48px',
-    paddingInline: tokens.spacingHorizontalL,
-    borderRadius: tokens.borderRadiusMedium,
-    border: `1px solid ${tokens.colorNeutralStroke1}`,
-    color: tokens.colorBrandForegroundLink,
-    fontWeight: tokens.fontWeightSemibold,
-    textDecorationLine: 'none',
-  },
-});
+import styles from './installer-card.module.css';
+import { CallIcon, MailIcon } from './plain/icons';
 
 export type InstallerContact = { companyName: string; phone: string | null; email: string | null; licenceNumbers: string[] };
 
@@ -47,37 +16,38 @@ type InstallerCardProps = {
 
 /**
  * "Installed by": the company's name with tap-to-call (`tel:`) and `mailto:` links, from the company
- * profile. Shown in the homeowner portal and the public locate view.
+ * profile. Shown in the homeowner portal and the public locate view (no Fluent UI: plain CSS on Fluent's
+ * token variables).
  */
 export function InstallerCard({ installer, headingId, headingLevel = 'h2', reason }: InstallerCardProps) {
-  const styles = useStyles();
+  const Heading = headingLevel;
   return (
     <section className={styles.section} aria-labelledby={headingId}>
-      <Text as={headingLevel} id={headingId} size={500} weight="semibold" className={styles.heading}>
+      <Heading id={headingId} className={styles.heading}>
         Installed by {installer.companyName}
-      </Text>
-      <Text className={styles.muted}>
+      </Heading>
+      <span className={styles.muted}>
         {reason === 'locate'
           ? 'Call the installer before digging near these cables if anything on this map is unclear.'
           : 'Questions about your system, or digging planned near it? Contact the installer.'}
-      </Text>
+      </span>
       <div className={styles.contact}>
         {installer.phone ? (
           <a href={telHref(installer.phone)} className={styles.call}>
-            <Call20Regular aria-hidden="true" />
+            <CallIcon />
             Call the installer: {installer.phone}
           </a>
         ) : (
-          <Text className={styles.muted}>No phone number on file.</Text>
+          <span className={styles.muted}>No phone number on file.</span>
         )}
         {installer.email && (
           <a href={`mailto:${installer.email}`} className={styles.mail}>
-            <Mail20Regular aria-hidden="true" />
+            <MailIcon />
             E-mail {installer.email}
           </a>
         )}
       </div>
-      {installer.licenceNumbers.length > 0 && <Text className={styles.muted}>Licence {installer.licenceNumbers.join(', ')}</Text>}
+      {installer.licenceNumbers.length > 0 && <span className={styles.muted}>Licence {installer.licenceNumbers.join(', ')}</span>}
     </section>
   );
 }

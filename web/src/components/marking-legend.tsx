@@ -1,27 +1,10 @@
-import { makeStyles, tokens } from '@fluentui/react-components';
 import type { ItemKind } from '@domain/as-built/item.schema';
 import { colourKeyNote, FEATURE_FILL, FEATURE_STROKE, legendText, REFERENCE_INK, WARNING_INK, type LegendKey } from '@drawings/marking-palette';
 
 import { ItemSymbol, ReferenceSymbol, RunLine } from '../features/plan/components/plan-symbols';
 import { HALO } from '../config/canvas-theme';
-import { useDateStyle } from '../lib/use-date-style';
 
-const useStyles = makeStyles({
-  root: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXS, margin: 0 },
-  list: {
-    listStyle: 'none',
-    margin: 0,
-    padding: 0,
-    display: 'grid',
-    gridTemplateColumns: 'repeat(auto-fill, minmax(200px, 1fr))',
-    gap: `${tokens.spacingVerticalXS} ${tokens.spacingHorizontalL}`,
-    color: tokens.colorNeutralForeground1,
-    fontSize: tokens.fontSizeBase200,
-  },
-  entry: { display: 'flex', alignItems: 'center', gap: tokens.spacingHorizontalS, minHeight: '24px' },
-  swatch: { flexShrink: 0 },
-  note: { color: tokens.colorNeutralForeground2, fontSize: tokens.fontSizeBase200, margin: 0 },
-});
+import styles from './marking-legend.module.css';
 
 const ITEM_KINDS: readonly string[] = ['amplifier', 'speaker', 'subwoofer', 'junction', 'spare_end', 'wall_entry'];
 
@@ -54,12 +37,11 @@ function Swatch({ entry }: { entry: LegendKey }) {
 /**
  * The map legend: the same words as the printed drawings and the packet (marking-palette.ts,
  * MARKING_LEGEND), with the same line styles, for the entries the map shows. Its words are spelled for
- * `locale` (the installer's, on a public page), else the signed-in person's company locale.
+ * `locale`: the installer's on a public page, the signed-in person's company locale in the app (none: en-US). No
+ * Fluent UI (the public locate view has none): plain CSS on Fluent's token variables.
  */
-export function MarkingLegend({ keys, label = 'Legend', locale }: { keys: readonly LegendKey[]; label?: string; locale?: string }) {
-  const styles = useStyles();
-  const companyLocale = useDateStyle().locale;
-  const spelling = locale ?? companyLocale;
+export function MarkingLegend({ keys, label = 'Legend', locale }: { keys: readonly LegendKey[]; label?: string; locale: string | null | undefined }) {
+  const spelling = locale;
   return (
     <div className={styles.root} role="group" aria-label={label} data-testid="marking-legend">
       <ul className={styles.list}>

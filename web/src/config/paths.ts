@@ -89,8 +89,4 @@ export const paths = {
     path: '/portal/sites/:siteId',
     getHref: (siteId: string) => `/portal/sites/${encodeURIComponent(siteId)}`,
   },
-  locate: {
-    path: '/locate/:token',
-    getHref: (token: string) => `/locate/${encodeURIComponent(token)}`,
-  },
 } as const;

@@ -1,8 +1,7 @@
 import { formatDate as formatDomainDate, formatDateTime as formatDomainDateTime } from '@domain/format/date-time';
 import { describe, expect, it } from 'vitest';
 
-import { formatDate, formatDateTime, readerDateStyle } from './format-date';
-import { companyDateStyle } from './use-date-style';
+import { companyDateStyle, formatDate, formatDateTime, readerDateStyle } from './format-date';
 
 describe('screen dates (the domain formatter in the company zone)', () => {
   const losAngeles = { timeZone: 'America/Los_Angeles', locale: 'en-US' };

@@ -12,6 +12,17 @@ export function readerDateStyle(): DateStyle {
   return { timeZone: resolved.timeZone, locale: resolved.locale };
 }
 
+/**
+ * The zone and locale screens write dates in: the company's (its profile, sent to everyone of the
+ * company with their preferences), as the packet, e-mails and CSV write them, so the office in one zone
+ * and a technician's phone set to another read the same day. A company that has not chosen a zone yet,
+ * and anyone before the server has answered or signed out, gets the browser's zone.
+ */
+export function companyDateStyle(company: { timeZone: string | null; locale: string } | undefined, reader: DateStyle = readerDateStyle()): DateStyle {
+  if (!company) return reader;
+  return { timeZone: company.timeZone ?? reader.timeZone ?? null, locale: company.locale };
+}
+
 /** `May 14, 2026, 5:29 PM CDT` in the style's zone and locale. */
 export function formatDateTime(iso: string, style: DateStyle): string {
   return formatDomainDateTime(iso, style);

@@ -14,6 +14,7 @@ import { usePortalSiteMap } from '../../../features/portal/api/get-portal-site-m
 import { LocateLinks } from '../../../features/portal/components/locate-links';
 import { PacketList } from '../../../features/portal/components/packet-list';
 import { describeRequestError } from '../../../lib/form-errors';
+import { useDateStyle } from '../../../lib/use-date-style';
 import { useUnitPreferences } from '../../../lib/use-unit-preferences';
 
 const useStyles = makeStyles({
@@ -45,11 +46,12 @@ function SiteMapSection({ siteId }: { siteId: string }) {
   const styles = useStyles();
   const map = usePortalSiteMap(siteId);
   const [preferences] = useUnitPreferences();
+  const { locale } = useDateStyle();
   if (map.isPending) return <Spinner size="small" label="Loading the map…" />;
   if (map.isError) return <Text>{describeRequestError(map.error)}</Text>;
   return (
     <>
-      <SiteMapPlan map={map.data} units={preferences.length} />
+      <SiteMapPlan map={map.data} units={preferences.length} locale={locale} />
       {map.data.revisions.length > 0 && (
         <>
           <Text className={styles.muted}>Drawn from:</Text>

@@ -1,4 +1,3 @@
-import { queryOptions, useQuery } from '@tanstack/react-query';
 import { type LocateViewResponse, LocateViewResponseSchema } from '@domain/locate/locate-link.schema';
 
 import { apiRequest, isApiError } from '../../../lib/api-client';
@@ -10,19 +9,28 @@ export function getLocateView(token: string, { signal }: { signal?: AbortSignal 
   return apiRequest(`/api/locate/${encodeURIComponent(token)}`, LocateViewResponseSchema, { signal, auth: false });
 }
 
-export function getLocateViewQueryOptions(token: string) {
-  return queryOptions({
-    queryKey: ['locate', token],
-    queryFn: ({ signal }) => getLocateView(token, { signal }),
-    // Every open is logged and a miss counts towards the rate limit: never retry a refusal.
-    retry: (failureCount, error) => !(isApiError(error) && (error.status === 404 || error.status === 429)) && failureCount < 2,
-    staleTime: 5 * 60_000,
-    refetchOnWindowFocus: false,
-    // The loader already asked; a refusal shown on mount must not be asked again (it counts as a miss).
-    retryOnMount: false,
-  });
+/** Waits between tries of a request that failed on the way (1 s, then 2 s), as the app's queries do. */
+const RETRY_DELAYS_MS = [1_000, 2_000];
+
+/**
+ * The locate view, tried again after a failure on the way (no answer, a server error) at most twice.
+ * Never again after a refusal: every open is logged, and a miss (404) counts towards the rate limit (429).
+ */
+export async function loadLocateView(token: string, retryDelaysMs: readonly number[] = RETRY_DELAYS_MS): Promise<LocateViewResponse> {
+  for (let attempt = 0; ; attempt += 1) {
+    try {
+      return await getLocateView(token);
+    } catch (error) {
+      const delay = retryDelaysMs[attempt];
+      if (delay === undefined || (isApiError(error) && (error.status === 404 || error.status === 429))) throw error;
+      await new Promise((resolve) => setTimeout(resolve, delay));
+    }
+  }
 }
 
-export function useLocateView(token: string) {
-  return useQuery(getLocateViewQueryOptions(token));
+/** What the page says instead of the map: the link is gone, too many tries, or it could not be loaded. */
+export function unavailableReason(error: unknown): 'not-valid' | 'rate-limited' | 'error' {
+  if (isApiError(error) && error.status === 404) return 'not-valid';
+  if (isApiError(error) && error.status === 429) return 'rate-limited';
+  return 'error';
 }

@@ -1,15 +1,30 @@
-import { screen, within } from '@testing-library/react';
-import { describe, expect, it, vi } from 'vitest';
+import { render, screen, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 
 import { apiErrorResponse, mockApi } from '../../../testing/mock-api';
-import { jsonResponse, renderApp } from '../../../testing/render-app';
+import { jsonResponse } from '../../../testing/render-app';
+import { loadLocateView } from '../api/get-locate-view';
 import { buildLocateView } from '../testing-fixtures';
 
+import { LocatePage } from './locate-page';
+
+/** The locate page (locate.html) as locate-main.tsx starts it, for `/locate/<token>`, signed out. */
+function renderLocate(token: string, retryDelaysMs: readonly number[] = []) {
+  window.history.replaceState(null, '', `/locate/${token}`);
+  const user = userEvent.setup();
+  render(<LocatePage view={loadLocateView(token, retryDelaysMs)} />);
+  return { user };
+}
+
 describe('Locate view', () => {
+  beforeAll(() => window.history.replaceState(null, '', '/'));
+  afterAll(() => window.history.replaceState(null, '', '/'));
+
   it('should show the cautions, the installer, the map with depths and a run’s profile and photos, signed out', async () => {
     const fetchMock = mockApi({ 'GET /api/locate/tok': () => jsonResponse(buildLocateView('tok')) });
 
-    const { user } = renderApp({ url: '/locate/tok', signedInAs: null });
+    const { user } = renderLocate('tok');
 
     expect(await screen.findByRole('heading', { name: 'Before you dig' }, { timeout: 15_000 })).toBeInTheDocument();
     expect(screen.getByText(/one-call locators do not mark them/)).toBeInTheDocument();
@@ -39,7 +54,7 @@ describe('Locate view', () => {
 
   it('should write the caution box with the shared formatter and the company spelling: a metric en-GB company reads 0.5 m and centre', async () => {
     mockApi({ 'GET /api/locate/tok': () => jsonResponse({ ...buildLocateView('tok'), units: 'metric', locale: 'en-GB' }) });
-    renderApp({ url: '/locate/tok', signedInAs: null });
+    renderLocate('tok');
     expect(await screen.findByRole('heading', { name: 'Before you dig' }, { timeout: 15_000 })).toBeInTheDocument();
     // As the packet and locate sheet print it (rounded up to 0.1 m), not the raw 45.7 cm.
     expect(screen.getByText('Hand-dig within 0.5 m of any line on this map.')).toBeInTheDocument();
@@ -48,7 +63,7 @@ describe('Locate view', () => {
 
   it('should spell center for an en-US company', async () => {
     mockApi({ 'GET /api/locate/tok': () => jsonResponse(buildLocateView('tok')) });
-    renderApp({ url: '/locate/tok', signedInAs: null });
+    renderLocate('tok');
     expect(await screen.findByText('Call the one-call center (811 in the United States) before any digging.', undefined, { timeout: 15_000 })).toBeInTheDocument();
   }, 60_000);
 
@@ -59,7 +74,7 @@ describe('Locate view', () => {
     view.map.runs = [view.map.runs[0]!, { ...view.map.runs[0]!, id: 'run-2', label: 'Run B', minDepthM: 0.1016, isShallow: true, route: [{ x: 1, y: 1 }, { x: 1, y: 8 }] }];
     view.map.items[1]!.ties = [{ referencePointId: 'rp-1', distanceM: Math.hypot(9, 6) }];
     mockApi({ 'GET /api/locate/tok': () => jsonResponse(view) });
-    const { user } = renderApp({ url: '/locate/tok', signedInAs: null });
+    const { user } = renderLocate('tok');
     expect(await screen.findByRole('heading', { name: 'Cable runs' }, { timeout: 15_000 })).toBeInTheDocument();
 
     const items = screen.getAllByRole('listitem').filter((li) => li.id.startsWith('locate-run-'));
@@ -78,7 +93,7 @@ describe('Locate view', () => {
 
   it('should say there are no ties when none were taped (no switch, no list)', async () => {
     mockApi({ 'GET /api/locate/tok': () => jsonResponse(buildLocateView('tok')) });
-    renderApp({ url: '/locate/tok', signedInAs: null });
+    renderLocate('tok');
     expect(await screen.findByText('No taped ties were recorded at this site.', {}, { timeout: 15_000 })).toBeInTheDocument();
     expect(screen.queryByRole('switch')).not.toBeInTheDocument();
     expect(screen.queryByRole('region', { name: 'Measure from' })).not.toBeInTheDocument();
@@ -103,7 +118,7 @@ describe('Locate view', () => {
     });
     const clearWatch = vi.fn();
     Object.defineProperty(navigator, 'geolocation', { value: { watchPosition, clearWatch }, configurable: true });
-    const { user } = renderApp({ url: '/locate/tok', signedInAs: null });
+    const { user } = renderLocate('tok');
     await user.click(await screen.findByRole('button', { name: 'Show my position' }, { timeout: 15_000 }));
     expect(watchPosition.mock.calls[0]![2]).toMatchObject({ enableHighAccuracy: true });
     const map = screen.getByRole('img', { name: /Site plan/ });
@@ -126,7 +141,7 @@ describe('Locate view', () => {
 
   it('should share the link with the share sheet, and copy it where there is none', async () => {
     mockApi({ 'GET /api/locate/tok': () => jsonResponse(buildLocateView('tok')) });
-    const { user } = renderApp({ url: '/locate/tok', signedInAs: null });
+    const { user } = renderLocate('tok');
     const button = await screen.findByRole('button', { name: 'Share this map' }, { timeout: 15_000 });
     const writeText = vi.fn(async () => undefined);
     Object.defineProperty(navigator, 'clipboard', { value: { writeText }, configurable: true });
@@ -146,7 +161,7 @@ describe('Locate view', () => {
   it('should show only a clear page for a link that no longer works', async () => {
     mockApi({ 'GET /api/locate/gone': () => apiErrorResponse(404, { message: 'Not valid.', code: 'LOCATE_LINK_NOT_VALID' }) });
 
-    renderApp({ url: '/locate/gone', signedInAs: null });
+    renderLocate('gone');
 
     expect(await screen.findByRole('heading', { name: 'This link no longer works' })).toBeInTheDocument();
     expect(screen.getByText(/Ask the homeowner for a new one/)).toBeInTheDocument();
@@ -157,9 +172,31 @@ describe('Locate view', () => {
   it('should ask to wait when rate-limited', async () => {
     const fetchMock = mockApi({ 'GET /api/locate/busy': () => apiErrorResponse(429, { message: 'Too many requests.' }) });
 
-    renderApp({ url: '/locate/busy', signedInAs: null });
+    renderLocate('busy', [0, 0]);
 
     expect(await screen.findByRole('heading', { name: 'Too many tries, wait a minute' })).toBeInTheDocument();
     expect(fetchMock.mock.calls.filter(([url]) => String(url) === '/api/locate/busy')).toHaveLength(1);
+  });
+
+  it('should try a failed request twice more, then say the map could not be loaded', async () => {
+    const fetchMock = mockApi({ 'GET /api/locate/down': () => apiErrorResponse(503, { message: 'Database unavailable.', code: 'DATABASE_UNAVAILABLE' }) });
+
+    renderLocate('down', [0, 0]);
+
+    expect(await screen.findByRole('heading', { name: 'The map could not be loaded' })).toBeInTheDocument();
+    expect(fetchMock.mock.calls.filter(([url]) => String(url) === '/api/locate/down')).toHaveLength(3);
+  });
+
+  it('should show the loading frame until the answer comes', async () => {
+    let answer: (response: Response) => void = () => undefined;
+    mockApi({ 'GET /api/locate/slow': () => new Promise<Response>((resolve) => (answer = resolve)) });
+
+    renderLocate('slow');
+
+    expect(screen.getByRole('progressbar', { name: 'Loading the map…' })).toBeInTheDocument();
+    expect(screen.getByText('Buried cables')).toBeInTheDocument();
+    answer(jsonResponse(buildLocateView('slow')));
+    expect(await screen.findByRole('heading', { name: 'Before you dig' })).toBeInTheDocument();
+    expect(screen.queryByRole('progressbar')).not.toBeInTheDocument();
   });
 });

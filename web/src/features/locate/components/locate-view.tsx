@@ -1,90 +1,25 @@
-import { Button, makeStyles, Switch, Text, tokens } from '@fluentui/react-components';
-import { ArrowDownload20Regular, Location20Regular, Print20Regular, Share20Regular, Warning24Filled } from '@fluentui/react-icons';
 import { useMemo, useState } from 'react';
-import { useLocation } from 'react-router';
-
-import { InstallerCard } from '../../../components/installer-card';
-import { formatDate } from '../../../lib/format-date';
-import { companyDateStyle } from '../../../lib/use-date-style';
 import { type DateStyle, formatDate as formatWorkDate, spell } from '@domain/format/date-time';
 import { formatToleranceZone } from '@domain/format/length';
+
+import { InstallerCard } from '../../../components/installer-card';
+import { PlainButton, PlainSwitch } from '../../../components/plain/controls';
+import { DownloadIcon, LocationIcon, PrintIcon, ShareIcon, WarningFilledIcon } from '../../../components/plain/icons';
+import { Text } from '../../../components/plain/text';
+import { PREVIEW_PAPER } from '../../../config/canvas-theme';
+import { companyDateStyle, formatDate } from '../../../lib/format-date';
 import { formatLength } from '../../../lib/units';
 import type { LocateViewResponse } from '../api/get-locate-view';
-
 import { useMyPosition } from '../hooks/use-my-position';
 import { geoJsonToKml, kmlFileName } from '../utils/kml';
 
+import styles from './locate-view.module.css';
 import { depthLabel, SiteMapPlan } from './site-map-plan';
-import { PREVIEW_PAPER } from '../../../config/canvas-theme';
 
-const WIDE = '@media (min-width: 720px)';
-
-const useStyles = makeStyles({
-  root: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXL },
-  cautions: {
-    display: 'flex',
-    flexDirection: 'column',
-    gap: tokens.spacingVerticalS,
-    padding: tokens.spacingHorizontalL,
-    borderRadius: tokens.borderRadiusLarge,
-    backgroundColor: tokens.colorPaletteYellowBackground1,
-    border: `${tokens.strokeWidthThick} solid ${tokens.colorPaletteMarigoldBorderActive}`,
-    color: tokens.colorNeutralForeground1,
-  },
-  cautionTitle: { display: 'flex', alignItems: 'center', gap: tokens.spacingHorizontalS, margin: 0 },
-  cautionList: { margin: 0, paddingInlineStart: tokens.spacingHorizontalXL, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
-  section: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
-  heading: { margin: 0 },
-  muted: { color: tokens.colorNeutralForeground2 },
-  address: { fontStyle: 'normal', display: 'flex', flexDirection: 'column' },
-  contact: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM },
-  contactLink: {
-    display: 'inline-flex',
-    alignItems: 'center',
-    gap: tokens.spacingHorizontalS,
-    minHeight: '48px',
-    paddingInline: tokens.spacingHorizontalL,
-    borderRadius: tokens.borderRadiusMedium,
-    backgroundColor: tokens.colorBrandBackground,
-    color: tokens.colorNeutralForegroundOnBrand,
-    fontWeight: tokens.fontWeightSemibold,
-    textDecorationLine: 'none',
-    ':hover': { backgroundColor: tokens.colorBrandBackgroundHover },
-  },
-  secondaryLink: {
-    display: 'inline-flex',
-    alignItems: 'center',
-    gap: tokens.spacingHorizontalS,
-    minHeight: '44px',
-    color: tokens.colorBrandForegroundLink,
-    fontWeight: tokens.fontWeightSemibold,
-  },
-  runs: { listStyle: 'none', margin: 0, padding: 0, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
-  run: {
-    display: 'flex',
-    flexDirection: 'column',
-    gap: tokens.spacingVerticalS,
-    padding: tokens.spacingHorizontalM,
-    borderRadius: tokens.borderRadiusLarge,
-    backgroundColor: tokens.colorNeutralBackground1,
-    boxShadow: tokens.shadow2,
-  },
-  runButton: { justifyContent: 'space-between', minHeight: '56px', width: '100%', textAlign: 'start' },
-  mapLayout: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL, [WIDE]: { flexDirection: 'row', alignItems: 'flex-start' } },
-  mapMain: { flexGrow: 1, minWidth: 0 },
-  mapSide: { [WIDE]: { flexBasis: '16rem', flexShrink: 0 } },
-  positionBox: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXS, alignItems: 'flex-start' },
-  tallButton: { minHeight: '44px' },
-  shallowNote: { display: 'flex', alignItems: 'center', gap: tokens.spacingHorizontalXS, fontWeight: tokens.fontWeightSemibold },
-  shallowRun: { borderLeftWidth: '6px', borderLeftStyle: 'solid', borderLeftColor: tokens.colorNeutralForeground1 },
-  measureFrom: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS, margin: 0 },
-  measureList: { margin: 0, paddingInlineStart: tokens.spacingHorizontalL, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXS },
-  profile: { width: '100%', height: 'auto', backgroundColor: PREVIEW_PAPER, borderRadius: tokens.borderRadiusMedium },
-  photos: { display: 'grid', gridTemplateColumns: 'repeat(auto-fill, minmax(96px, 1fr))', gap: tokens.spacingHorizontalS, [WIDE]: { gridTemplateColumns: 'repeat(auto-fill, minmax(140px, 1fr))' } },
-  thumbButton: { padding: 0, border: 'none', background: 'none', cursor: 'pointer', minHeight: '44px' },
-  thumb: { width: '100%', aspectRatio: '4 / 3', objectFit: 'cover', borderRadius: tokens.borderRadiusMedium, display: 'block' },
-  screen: { width: '100%', height: 'auto', borderRadius: tokens.borderRadiusMedium },
-});
+/** Class names joined, the falsy ones left out. */
+function cx(...names: (string | false | undefined)[]): string {
+  return names.filter(Boolean).join(' ');
+}
 
 const METHOD_LABELS: Record<LocateViewResponse['runs'][number]['method'], string> = {
   direct_burial: 'direct burial',
@@ -94,13 +29,12 @@ const METHOD_LABELS: Record<LocateViewResponse['runs'][number]['method'], string
 };
 
 function Cautions({ view }: { view: LocateViewResponse }) {
-  const styles = useStyles();
   // Written as the packet and the locate sheet write it (the shared formatter): 18 in, or 0.5 m.
   const zone = formatToleranceZone(view.toleranceZoneM, view.units);
   return (
     <section className={styles.cautions} aria-labelledby="locate-cautions" role="region">
       <Text as="h2" id="locate-cautions" size={500} weight="bold" className={styles.cautionTitle}>
-        <Warning24Filled aria-hidden="true" />
+        <WarningFilledIcon />
         Before you dig
       </Text>
       <ul className={styles.cautionList}>
@@ -145,12 +79,11 @@ function Cautions({ view }: { view: LocateViewResponse }) {
 }
 
 function RunDetails({ run, dateStyle }: { run: LocateViewResponse['runs'][number]; dateStyle: DateStyle }) {
-  const styles = useStyles();
   const [openPhoto, setOpenPhoto] = useState<string | undefined>();
   const photo = run.photos.find((p) => p.id === openPhoto);
   return (
     <div className={styles.section}>
-      <img src={run.depthProfileUrl} alt={`Depth profile of ${run.label}`} className={styles.profile} />
+      <img src={run.depthProfileUrl} alt={`Depth profile of ${run.label}`} className={styles.profile} style={{ backgroundColor: PREVIEW_PAPER }} />
       {run.photos.length === 0 ? (
         <Text className={styles.muted}>No trench photos for this run.</Text>
       ) : (
@@ -164,7 +97,7 @@ function RunDetails({ run, dateStyle }: { run: LocateViewResponse['runs'][number
             ))}
           </div>
           {photo && (
-            <figure style={{ margin: 0 }}>
+            <figure className={styles.figure}>
               <img src={photo.screenUrl} alt={photo.caption ?? `Trench photo of ${run.label}, large`} className={styles.screen} />
               {(photo.caption || photo.takenAt) && (
                 <figcaption className={styles.muted}>{[photo.caption, photo.takenAt && formatDate(photo.takenAt, dateStyle)].filter(Boolean).join(' · ')}</figcaption>
@@ -202,13 +135,13 @@ export async function shareLocateLink(url: string, title: string): Promise<Share
 
 function ShareButton({ title }: { title: string }) {
   const [state, setState] = useState<ShareState>('idle');
-  // The page's own link (the token is in its path), whatever router drew it.
-  const url = new URL(useLocation().pathname, window.location.origin).href;
+  // The page's own link (the token is in its path), without its query or fragment.
+  const url = new URL(window.location.pathname, window.location.origin).href;
   return (
-    <div style={{ display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXS }}>
-      <Button icon={<Share20Regular />} style={{ minHeight: '44px', alignSelf: 'flex-start' }} onClick={async () => setState(await shareLocateLink(url, title))}>
+    <div className={styles.share}>
+      <PlainButton icon={<ShareIcon />} className={styles.tallButton} onClick={async () => setState(await shareLocateLink(url, title))}>
         Share this map
-      </Button>
+      </PlainButton>
       <Text role="status" aria-live="polite">
         {state === 'copied' ? 'Link copied: paste it in a message to whoever is digging.' : state === 'shared' ? 'Link shared.' : state === 'failed' ? `Copy this link: ${url}` : ''}
       </Text>
@@ -223,7 +156,6 @@ export function runsShallowFirst<T extends { isShallow: boolean }>(runs: readonl
 
 /** Every taped tie, grouped by the reference point it was measured from, in the viewer's units. */
 function MeasureFrom({ view }: { view: LocateViewResponse }) {
-  const styles = useStyles();
   const groups = view.map.referencePoints
     .map((ref) => ({
       ref,
@@ -232,7 +164,7 @@ function MeasureFrom({ view }: { view: LocateViewResponse }) {
     .filter((g) => g.ties.length > 0);
   return (
     <section className={styles.measureFrom} aria-labelledby="locate-measure-from">
-      <Text as="h3" id="locate-measure-from" size={400} weight="semibold" className={styles.heading}>
+      <Text as="h3" id="locate-measure-from" size={400} weight="semibold" className={styles.flush}>
         Measure from
       </Text>
       {groups.length === 0 ? (
@@ -267,7 +199,6 @@ function MeasureFrom({ view }: { view: LocateViewResponse }) {
  * drawn on the map by the caller; this says plainly what it is worth.
  */
 function MyPositionControl({ view, position }: { view: LocateViewResponse; position: ReturnType<typeof useMyPosition> }) {
-  const styles = useStyles();
   if (!view.map.frame.origin) {
     return (
       <Text size={200} className={styles.muted} data-testid="no-position-reason">
@@ -279,9 +210,9 @@ function MyPositionControl({ view, position }: { view: LocateViewResponse; posit
   const on = state.status === 'on' || state.status === 'waiting';
   return (
     <div className={styles.positionBox}>
-      <Button icon={<Location20Regular />} className={styles.tallButton} aria-pressed={on} onClick={toggle}>
+      <PlainButton icon={<LocationIcon />} className={styles.tallButton} aria-pressed={on} onClick={toggle}>
         {on ? 'Hide my position' : 'Show my position'}
-      </Button>
+      </PlainButton>
       <Text size={200} role="status" aria-live="polite">
         {state.status === 'waiting'
           ? 'Finding your position…'
@@ -300,7 +231,6 @@ function MyPositionControl({ view, position }: { view: LocateViewResponse; posit
 
 /** The contractor's view of a site: cautions first, then who installed it, the map and the runs. */
 export function LocateView({ view }: { view: LocateViewResponse }) {
-  const styles = useStyles();
   const [selectedRunId, setSelectedRunId] = useState<string | undefined>();
   const [showTies, setShowTies] = useState(false);
   const { site, installer } = view;
@@ -322,7 +252,7 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
       <Cautions view={view} />
 
       <section className={styles.section} aria-labelledby="locate-site">
-        <Text as="h1" id="locate-site" size={600} weight="bold" className={styles.heading}>
+        <Text as="h1" id="locate-site" size={600} weight="bold" className={styles.flush}>
           {site.label}
         </Text>
         <address className={styles.address}>
@@ -337,12 +267,12 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
       <InstallerCard installer={installer} headingId="locate-installer" reason="locate" />
 
       <section className={styles.section} aria-labelledby="locate-map">
-        <Text as="h2" id="locate-map" size={500} weight="semibold" className={styles.heading}>
+        <Text as="h2" id="locate-map" size={500} weight="semibold" className={styles.flush}>
           Map of buried cables
         </Text>
         <MyPositionControl view={view} position={position} />
         {hasTies ? (
-          <Switch checked={showTies} onChange={(_, data) => setShowTies(data.checked)} label="Show taped ties on the map" />
+          <PlainSwitch checked={showTies} onChange={setShowTies} label="Show taped ties on the map" />
         ) : (
           <Text className={styles.muted}>No taped ties were recorded at this site.</Text>
         )}
@@ -366,25 +296,25 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
           )}
         </div>
         <a href={view.sheetUrl} target="_blank" rel="noopener" className={styles.secondaryLink}>
-          <Print20Regular aria-hidden="true" />
+          <PrintIcon />
           Print locate sheet (PDF, one page)
         </a>
         {view.geojsonUrl && (
           <a href={view.geojsonUrl} download className={styles.secondaryLink}>
-            <ArrowDownload20Regular aria-hidden="true" />
+            <DownloadIcon />
             Download GeoJSON
           </a>
         )}
         {view.map.geojson ? (
           <a href={`data:application/vnd.google-earth.kml+xml;charset=utf-8,${encodeURIComponent(geoJsonToKml(view.map.geojson, site.label))}`} download={kmlFileName(site.label)} className={styles.secondaryLink}>
-            <ArrowDownload20Regular aria-hidden="true" />
+            <DownloadIcon />
             Download KML
           </a>
         ) : (
           <div>
-            <Button disabled icon={<ArrowDownload20Regular />} aria-describedby="locate-kml-why">
+            <PlainButton disabled icon={<DownloadIcon />} aria-describedby="locate-kml-why">
               Download KML
-            </Button>
+            </PlainButton>
             <Text id="locate-kml-why" size={200} className={styles.muted} block>
               No KML or GeoJSON: this site has no GPS origin, so the map has plan positions only. Measure from the reference points.
             </Text>
@@ -393,7 +323,7 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
       </section>
 
       <section className={styles.section} aria-labelledby="locate-runs">
-        <Text as="h2" id="locate-runs" size={500} weight="semibold" className={styles.heading}>
+        <Text as="h2" id="locate-runs" size={500} weight="semibold" className={styles.flush}>
           Cable runs
         </Text>
         {runs.length === 0 ? (
@@ -403,8 +333,8 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
             {runs.map((run) => {
               const open = run.id === selectedRunId;
               return (
-                <li key={run.id} id={`locate-run-${run.id}`} className={run.isShallow ? `${styles.run} ${styles.shallowRun}` : styles.run} data-shallow={run.isShallow ? 'true' : undefined}>
-                  <Button
+                <li key={run.id} id={`locate-run-${run.id}`} className={cx(styles.run, run.isShallow && styles.shallowRun)} data-shallow={run.isShallow ? 'true' : undefined}>
+                  <PlainButton
                     appearance="subtle"
                     className={styles.runButton}
                     aria-expanded={open}
@@ -422,8 +352,8 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
                         {runProvenance(run)}
                       </Text>
                       {run.isShallow && run.minDepthM !== null && (
-                        <Text size={200} className={styles.shallowNote} block>
-                          <Warning24Filled aria-hidden="true" />
+                        <Text size={200} weight="semibold" className={styles.shallowNote} block>
+                          <WarningFilledIcon />
                           Shallower than the depth rule: {formatLength(run.minDepthM, view.units, 'short')} where the rule asks
                           {run.minCoverM !== null ? ` ${formatLength(run.minCoverM, view.units, 'short')}` : ' more'}. Hand-dig.
                         </Text>
@@ -435,7 +365,7 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
                         ? ` – ${formatLength(run.maxDepthM, view.units, 'short')}`
                         : ''}
                     </Text>
-                  </Button>
+                  </PlainButton>
                   {open && <RunDetails run={run} dateStyle={dateStyle} />}
                 </li>
               );

@@ -1,12 +1,8 @@
-import { FluentProvider, webLightTheme } from '@fluentui/react-components';
-import { QueryClientProvider } from '@tanstack/react-query';
-import { type ReactNode, useState } from 'react';
 import { fireEvent, render, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { markingMeaning, REFERENCE_INK, RUN_ORANGE } from '@drawings/marking-palette';
 import { describe, expect, it } from 'vitest';
 
-import { createTestQueryClient } from '../../../testing/render-app';
 import { buildSiteMap } from '../testing-fixtures';
 
 import { boxesOverlap, labelBox } from '../utils/map-labels';
@@ -19,12 +15,6 @@ import { runMapLabel, runProvenanceText, SiteMapPlan } from './site-map-plan';
  * red power, yellow gas, green sewer, blue potable water, purple reclaimed water are other utilities'.
  */
 const OTHER_UTILITIES = ['power', 'gas', 'sewer', 'water', 'reclaimed'];
-
-/** The map's legend reads the company's locale from the preferences query, as in the app. */
-function WithQueries({ children }: { children: ReactNode }) {
-  const [client] = useState(createTestQueryClient);
-  return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
-}
 
 function mapWithEveryRunKind() {
   const map = buildSiteMap();
@@ -44,10 +34,7 @@ function mapWithEveryRunKind() {
 describe('SiteMapPlan marking colours', () => {
   it('should draw every run orange, reference points black, and no other utility colour anywhere', async () => {
     const { container } = render(
-      <FluentProvider theme={webLightTheme}>
-        <SiteMapPlan map={mapWithEveryRunKind()} units="imperial" />
-      </FluentProvider>,
-      { wrapper: WithQueries },
+      <SiteMapPlan map={mapWithEveryRunKind()} units="imperial" locale="en-US" />
     );
     await screen.findByText('East fence');
     const runStrokes = Array.from(container.querySelectorAll('[data-run-id] [data-role="run-stroke"]'));
@@ -81,10 +68,7 @@ describe('SiteMapPlan marking colours', () => {
 
 function renderMap(map = buildSiteMap(), props: Partial<Parameters<typeof SiteMapPlan>[0]> = {}) {
   return render(
-    <FluentProvider theme={webLightTheme}>
-      <SiteMapPlan map={map} units="imperial" {...props} />
-    </FluentProvider>,
-    { wrapper: WithQueries },
+    <SiteMapPlan map={map} units="imperial" locale="en-US" {...props} />
   );
 }
 
@@ -186,9 +170,7 @@ describe('SiteMapPlan tapping a run, shallow runs and ties', () => {
     expect(selected).toEqual(['run-1']);
 
     rerender(
-      <FluentProvider theme={webLightTheme}>
-        <SiteMapPlan map={map} units="imperial" selectedRunId="run-1" shallowRunIds={new Set(['run-1'])} />
-      </FluentProvider>,
+      <SiteMapPlan map={map} units="imperial" locale="en-US" selectedRunId="run-1" shallowRunIds={new Set(['run-1'])} />,
     );
     expect(container.querySelector('[data-run-id="run-1"]')!.getAttribute('data-selected')).toBe('true');
     expect(container.querySelector('[data-run-id="run-1"] [data-role="highlight"]')).not.toBeNull();
@@ -217,9 +199,7 @@ describe('SiteMapPlan tapping a run, shallow runs and ties', () => {
     await screen.findByText('East fence');
     expect(container.querySelectorAll('[data-tie]').length).toBe(0);
     rerender(
-      <FluentProvider theme={webLightTheme}>
-        <SiteMapPlan map={map} units="metric" showTies />
-      </FluentProvider>,
+      <SiteMapPlan map={map} units="metric" locale="en-US" showTies />,
     );
     const ties = Array.from(container.querySelectorAll('[data-tie]'));
     expect(ties.length).toBe(2);

@@ -1,5 +1,3 @@
-import { Button, makeStyles, Tooltip, tokens } from '@fluentui/react-components';
-import { Add24Regular, ArrowMaximize24Regular, Subtract24Regular } from '@fluentui/react-icons';
 import { select } from 'd3-selection';
 import { zoom, zoomIdentity, type ZoomBehavior, type ZoomTransform } from 'd3-zoom';
 import { useCallback, useEffect, useId, useLayoutEffect, useRef, useState } from 'react';
@@ -10,11 +8,15 @@ import type { SiteMap } from '@domain/locate/site-map.schema';
 import { FEATURE_FILL, FEATURE_LABEL, FEATURE_STROKE, INK, PAPER, REFERENCE_INK, RUN_STROKES, runStyleKey, scaleDash, type LegendKey } from '@drawings/marking-palette';
 
 import { MarkingLegend } from '../../../components/marking-legend';
+import { PlainButton } from '../../../components/plain/controls';
+import { AddIcon, MaximizeIcon, SubtractIcon } from '../../../components/plain/icons';
+import { scaleBarFor } from '../../../lib/scale-bar';
 import { formatLength, type LengthSystem } from '../../../lib/units';
-import { scaleBarFor } from '../../plan';
 import { placeMapLabels, type Box, type MapLabelRequest } from '../utils/map-labels';
 import type { PlanPosition } from '../utils/my-position';
 import { ACCURACY_SHADE, COMPASS_RING, OVERLAY_PAPER_MAP } from '../../../config/canvas-theme';
+
+import styles from './site-map-plan.module.css';
 
 /** Screen pixels per print point for run strokes (as the plan editor). */
 const SCREEN_SCALE = 1.9;
@@ -49,38 +51,6 @@ export function siteMapLegendKeys(map: SiteMap): LegendKey[] {
   return order.filter((k) => keys.has(k));
 }
 
-const useStyles = makeStyles({
-  figure: { margin: 0, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
-  frame: {
-    position: 'relative',
-    width: '100%',
-    height: 'min(62vh, 560px)',
-    minHeight: '320px',
-    overflow: 'hidden',
-    borderRadius: tokens.borderRadiusLarge,
-    backgroundColor: PAPER,
-    border: `${tokens.strokeWidthThin} solid ${tokens.colorNeutralStroke2}`,
-  },
-  svg: { display: 'block', width: '100%', height: '100%', touchAction: 'none', userSelect: 'none' },
-  zoomButtons: {
-    position: 'absolute',
-    right: tokens.spacingHorizontalS,
-    bottom: tokens.spacingVerticalS,
-    display: 'flex',
-    flexDirection: 'column',
-    gap: tokens.spacingVerticalXS,
-  },
-  zoomButton: { minWidth: '48px', minHeight: '48px', boxShadow: tokens.shadow4 },
-  legend: {
-    display: 'flex',
-    flexWrap: 'wrap',
-    gap: tokens.spacingHorizontalL,
-    color: tokens.colorNeutralForeground2,
-    fontSize: tokens.fontSizeBase200,
-  },
-  empty: { color: tokens.colorNeutralForeground2 },
-});
-
 type SiteMapPlanProps = {
   map: SiteMap;
   units: LengthSystem;
@@ -93,8 +63,8 @@ type SiteMapPlanProps = {
   showTies?: boolean;
   /** The viewer's phone position on the plan, drawn as a dot in its accuracy circle. */
   myPosition?: PlanPosition;
-  /** The installer's locale for the legend's spelling (a public page); else the signed-in company's. */
-  locale?: string;
+  /** The legend's spelling: the installer's locale on a public page, the signed-in company's in the app. */
+  locale: string | null | undefined;
 };
 
 /** The min depth as the label of a run on the map. */
@@ -177,7 +147,6 @@ function reservedBoxes(size: { width: number; height: number }): Box[] {
  * where they fit, the least important left out when there is no room.
  */
 export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRunIds, showTies = false, myPosition, locale }: SiteMapPlanProps) {
-  const styles = useStyles();
   const titleId = useId();
   const svgRef = useRef<SVGSVGElement>(null);
   const zoomRef = useRef<ZoomBehavior<SVGSVGElement, unknown> | undefined>(undefined);
@@ -349,7 +318,8 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
 
   return (
     <figure className={styles.figure}>
-      <div className={styles.frame}>
+      {/* The drawings' paper: the map stays light in a dark theme. */}
+      <div className={styles.frame} style={{ backgroundColor: PAPER }}>
         <svg
           ref={svgRef}
           className={styles.svg}
@@ -447,7 +417,7 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
                     <path d={`M ${sx(p.x) - 7} ${sy(p.y) - 7} L ${sx(p.x) - 7} ${sy(p.y) + 7} L ${sx(p.x) + 7} ${sy(p.y) + 7} Z`} fill={REFERENCE_INK} />
                   </g>
                 ) : (
-                  <circle cx={sx(p.x)} cy={sy(p.y)} r={5} fill={tokens.colorNeutralForeground1} />
+                  <circle cx={sx(p.x)} cy={sy(p.y)} r={5} fill={INK} />
                 )}
               </g>
             );
@@ -513,26 +483,23 @@ export function SiteMapPlan({ map, units, selectedRunId, onSelectRun, shallowRun
           </g>
         </svg>
         <div className={styles.zoomButtons}>
-          <Tooltip content="Zoom in" relationship="label">
-            <Button className={styles.zoomButton} icon={<Add24Regular />} onClick={() => zoomBy(1.6)} />
-          </Tooltip>
-          <Tooltip content="Zoom out" relationship="label">
-            <Button className={styles.zoomButton} icon={<Subtract24Regular />} onClick={() => zoomBy(1 / 1.6)} />
-          </Tooltip>
-          <Tooltip content="Show the whole site" relationship="label">
-            <Button
-              className={styles.zoomButton}
-              icon={<ArrowMaximize24Regular />}
-              onClick={() => {
-                hasUserMoved.current = false;
-                fit();
-              }}
-            />
-          </Tooltip>
+          {/* Named by aria-label, with the browser's own tooltip (title) for a mouse. */}
+          <PlainButton className={styles.zoomButton} icon={<AddIcon />} aria-label="Zoom in" title="Zoom in" onClick={() => zoomBy(1.6)} />
+          <PlainButton className={styles.zoomButton} icon={<SubtractIcon />} aria-label="Zoom out" title="Zoom out" onClick={() => zoomBy(1 / 1.6)} />
+          <PlainButton
+            className={styles.zoomButton}
+            icon={<MaximizeIcon />}
+            aria-label="Show the whole site"
+            title="Show the whole site"
+            onClick={() => {
+              hasUserMoved.current = false;
+              fit();
+            }}
+          />
         </div>
       </div>
       <figcaption className={styles.legend}>
-        <MarkingLegend keys={legendKeys} {...(locale ? { locale } : {})} />
+        <MarkingLegend keys={legendKeys} locale={locale} />
         {myPosition && <span>Black dot in a dashed circle: where your phone puts you, and how far off that may be.</span>}
         <span>Each run is labelled with its shallowest recorded depth. Pinch or scroll to zoom, drag to move; labels that do not fit are shown when you zoom in.</span>
         {runs.length < map.runs.length && (
