@@ -414,13 +414,16 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
       spots: landmarkSpots(
         f.shape,
         f.points.map((p) => ({ x: sx(p.x), y: sy(p.y) })),
-        12,
+        { text: f.name, fontSize: 12 },
         size,
       ),
     })),
   ];
   const labels = model.showLabels
-    ? layoutLabels(labelRequests, size, controlBoxes(size, bar.pixels, controls, { hint: Boolean(hint), buttonCount: extraButtons ? 4 : 3 }))
+    ? layoutLabels(labelRequests, size, {
+        blocked: controlBoxes(size, bar.pixels, controls, { hint: Boolean(hint), buttonCount: extraButtons ? 4 : 3 }),
+        lines: model.runs.map((run) => run.points.map((p) => ({ x: sx(p.x), y: sy(p.y) }))),
+      })
     : new Map<string, PlacedLabel>();
   const image = model.image;
   const imageBox = image ? imagePlanBox(image.widthPx, image.heightPx, image.placement) : undefined;
@@ -451,18 +454,12 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
           {(model.features ?? []).map((f) => {
             const pts = f.points.map((p) => `${sx(p.x)},${sy(p.y)}`).join(' ');
             const width = (f.kind === 'fence' || f.kind === 'wall' || f.kind === 'house' ? 2 : 1.3) * (f.isSelected ? 2 : 1);
-            const placed = labels.get(`feature:${f.id}`);
             return (
               <g key={f.id} data-feature-id={f.id} role="graphics-symbol" aria-label={f.name}>
                 {f.shape === 'polygon' ? (
                   <polygon points={pts} fill={FEATURE_FILL} fillOpacity={0.7} stroke={FEATURE_STROKE} strokeWidth={width} />
                 ) : (
                   <polyline points={pts} fill="none" stroke={FEATURE_STROKE} strokeWidth={width + 1} strokeDasharray={f.kind === 'path' ? '8 4' : undefined} />
-                )}
-                {placed && (
-                  <text {...placed} fontSize={12} fontStyle="italic" fill={FEATURE_LABEL} stroke={HALO} strokeWidth={3} paintOrder="stroke">
-                    {f.name}
-                  </text>
                 )}
               </g>
             );
@@ -517,6 +514,20 @@ export function PlanCanvas({ model, onTap, onDragEnd, onZoom, label, fitKey, hin
             ))}
           </g>
         )}
+        {/* Landmarks' names over the runs (a name prefers a spot no run crosses), under items and reference
+            points; hidden from assistive technology, which reads each landmark's own name above. */}
+        <g data-layer="feature-names" pointerEvents="none" aria-hidden="true">
+          {(model.features ?? []).map((f) => {
+            const placed = labels.get(`feature:${f.id}`);
+            return (
+              placed && (
+                <text key={f.id} data-name-of={f.id} {...placed} fontSize={12} fontStyle="italic" fill={FEATURE_LABEL} stroke={HALO} strokeWidth={3} paintOrder="stroke">
+                  {f.name}
+                </text>
+              )
+            );
+          })}
+        </g>
         <g data-layer="reference-points">
           {model.references.map((ref) => (
             <g key={ref.id} data-hit="reference" data-id={ref.id} role="graphics-symbol" aria-label={`Reference point ${ref.label}`}>

@@ -23,8 +23,12 @@ const GAP = 15;
  */
 export const EDGE_PX = 4;
 
+function labelWidth(label: Pick<LabelBase, 'text' | 'fontSize'>): number {
+  return label.text.length * label.fontSize * EM_PER_CHAR;
+}
+
 export function labelBox(label: Pick<LabelBase, 'text' | 'fontSize'>, placed: PlacedLabel): Box {
-  const width = label.text.length * label.fontSize * EM_PER_CHAR;
+  const width = labelWidth(label);
   const left = placed.textAnchor === 'start' ? placed.x : placed.textAnchor === 'end' ? placed.x - width : placed.x - width / 2;
   return { left, right: left + width, top: placed.y - label.fontSize, bottom: placed.y + 3 };
 }
@@ -84,6 +88,34 @@ function centroidOf(points: readonly ScreenPoint[]): ScreenPoint {
   return { x: cx / (3 * area), y: cy / (3 * area) };
 }
 
+/** Whether the segment a–b passes through the box (Liang–Barsky clipping of the segment to the box). */
+function segmentCrossesBox(a: ScreenPoint, b: ScreenPoint, box: Box): boolean {
+  const dx = b.x - a.x;
+  const dy = b.y - a.y;
+  let t0 = 0;
+  let t1 = 1;
+  for (const [p, q] of [
+    [-dx, a.x - box.left],
+    [dx, box.right - a.x],
+    [-dy, a.y - box.top],
+    [dy, box.bottom - a.y],
+  ] as const) {
+    if (p === 0) {
+      if (q < 0) return false;
+      continue;
+    }
+    const t = q / p;
+    if (p < 0) t0 = Math.max(t0, t);
+    else t1 = Math.min(t1, t);
+    if (t0 > t1) return false;
+  }
+  return true;
+}
+
+function crossesAnyLine(box: Box, lines: readonly (readonly ScreenPoint[])[]): boolean {
+  return lines.some((line) => line.slice(1).some((p, i) => segmentCrossesBox(line[i]!, p, box)));
+}
+
 /** Whether a point lies inside a polygon (even-odd ray cast). */
 function isInside(p: ScreenPoint, polygon: readonly ScreenPoint[]): boolean {
   let inside = false;
@@ -95,29 +127,45 @@ function isInside(p: ScreenPoint, polygon: readonly ScreenPoint[]): boolean {
 }
 
 /**
- * Where a landmark's name may go, screen pixels, best first. An area (house, patio, pool): centred on its
- * centroid, then a line above or below that; when the centroid is off screen, the same around the middle
- * of the part in view (if that lies inside the area); then just outside its outline, right, left, above,
- * below. A line (fence, path, water line): just above it,
- * then just below, at its middle, then farther along each way, so that a name finds room beside the
- * line and never hides it.
+ * Where a landmark's name may go, screen pixels, best first. An area (house, patio, pool): centred on
+ * its centroid, then a line above or below that, and the same around the middle of the part in view (if
+ * that lies inside the area; first, when the centroid is off screen), each moved sideways as far as the
+ * frame needs while it stays over the area (a long name near the edge); then just outside its outline,
+ * right, left, above, below. A line (fence, path, water line): just above it, then just below, at its
+ * middle, then farther along each way, so that a name finds room beside the line and never hides it.
  */
-export function landmarkSpots(shape: 'polygon' | 'line', points: readonly ScreenPoint[], fontSize: number, view: { width: number; height: number }): PlacedLabel[] {
+export function landmarkSpots(
+  shape: 'polygon' | 'line',
+  points: readonly ScreenPoint[],
+  label: Pick<LabelBase, 'text' | 'fontSize'>,
+  view: { width: number; height: number },
+): PlacedLabel[] {
   if (points.length === 0) return [];
+  const { fontSize } = label;
   const middle = fontSize / 3;
   if (shape === 'polygon') {
-    const anchors = [centroidOf(points)];
+    const centroid = centroidOf(points);
+    const anchors = [centroid];
     const xs = points.map((p) => Math.min(Math.max(p.x, 0), view.width));
     const ys = points.map((p) => Math.min(Math.max(p.y, 0), view.height));
     const visibleMiddle = { x: (Math.min(...xs) + Math.max(...xs)) / 2, y: (Math.min(...ys) + Math.max(...ys)) / 2 };
-    if (Math.hypot(visibleMiddle.x - anchors[0]!.x, visibleMiddle.y - anchors[0]!.y) > fontSize && isInside(visibleMiddle, points)) anchors.push(visibleMiddle);
+    if (Math.hypot(visibleMiddle.x - centroid.x, visibleMiddle.y - centroid.y) > fontSize && isInside(visibleMiddle, points)) {
+      const isCentroidInView = centroid.x >= 0 && centroid.x <= view.width && centroid.y >= 0 && centroid.y <= view.height;
+      if (isCentroidInView) anchors.push(visibleMiddle);
+      else anchors.unshift(visibleMiddle);
+    }
+    const box = { left: Math.min(...points.map((p) => p.x)), right: Math.max(...points.map((p) => p.x)), top: Math.min(...points.map((p) => p.y)), bottom: Math.max(...points.map((p) => p.y)) };
+    const halfWidth = labelWidth(label) / 2;
+    const fitX = (x: number): number => {
+      const shifted = Math.min(Math.max(x, EDGE_PX + halfWidth), view.width - EDGE_PX - halfWidth);
+      return shifted >= box.left && shifted <= box.right ? shifted : x;
+    };
     const inside = anchors.flatMap((a) => [
-      { x: a.x, y: a.y + middle, textAnchor: 'middle' as const },
-      { x: a.x, y: a.y + middle - fontSize - 4, textAnchor: 'middle' as const },
-      { x: a.x, y: a.y + middle + fontSize + 4, textAnchor: 'middle' as const },
+      { x: fitX(a.x), y: a.y + middle, textAnchor: 'middle' as const },
+      { x: fitX(a.x), y: a.y + middle - fontSize - 4, textAnchor: 'middle' as const },
+      { x: fitX(a.x), y: a.y + middle + fontSize + 4, textAnchor: 'middle' as const },
     ]);
     // A small area (a tree, a spa, a bed) has no room inside for its name: then beside its outline.
-    const box = { left: Math.min(...points.map((p) => p.x)), right: Math.max(...points.map((p) => p.x)), top: Math.min(...points.map((p) => p.y)), bottom: Math.max(...points.map((p) => p.y)) };
     const centre = { x: (box.left + box.right) / 2, y: (box.top + box.bottom) / 2 };
     const beside: PlacedLabel[] = [
       { x: box.right + 4, y: centre.y + middle, textAnchor: 'start' },
@@ -136,16 +184,25 @@ export function landmarkSpots(shape: 'polygon' | 'line', points: readonly Screen
   });
 }
 
+export type LayoutOptions = {
+  /** The controls laid over the plan (zoom buttons, hint, north arrow, scale bar): no name goes under them. */
+  blocked?: readonly Box[];
+  /** The cable runs, screen polylines: a landmark's name takes a spot off them when it has one. */
+  lines?: readonly (readonly ScreenPoint[])[];
+};
+
 /**
  * Places each name: the first of its spots (around its symbol, or a landmark's own) that lies inside the
- * frame (less EDGE_PX), off every `blocked` box (the controls laid over the plan: zoom buttons, hint,
- * north arrow, scale bar) and clear of every symbol and of the names placed before it (greedy, in the
- * order given, so put the most important first). A name with no clear spot is left out of the map: names
- * written over each other, or under a button, can be read by nobody, and zooming in (names are laid out
- * again in screen pixels) or tapping the symbol shows it. A pinned name (the selected item or landmark)
- * is placed all the same, first, on a spot off the controls when it has one.
+ * frame (less EDGE_PX), off every `blocked` box and clear of every symbol and of the names placed before
+ * it (greedy, in the order given, so put the most important first); a landmark's name prefers a clear
+ * spot that no run crosses (the runs are the record; the landmark only orients). A name with no clear
+ * spot is left out of the map: names written over each other, or under a button, can be read by nobody,
+ * and zooming in (names are laid out again in screen pixels) or tapping the symbol shows it. A pinned
+ * name (the selected item or landmark) is placed all the same, first, on a spot off the controls when it
+ * has one.
  */
-export function layoutLabels(labels: readonly LabelRequest[], view: { width: number; height: number }, blocked: readonly Box[] = []): Map<string, PlacedLabel> {
+export function layoutLabels(labels: readonly LabelRequest[], view: { width: number; height: number }, options: LayoutOptions = {}): Map<string, PlacedLabel> {
+  const { blocked = [], lines = [] } = options;
   const symbols: Box[] = labels.flatMap((l) => ('spots' in l ? [] : [{ left: l.x - SYMBOL_HALF, right: l.x + SYMBOL_HALF, top: l.y - SYMBOL_HALF, bottom: l.y + SYMBOL_HALF }]));
   const taken: Box[] = [];
   const out = new Map<string, PlacedLabel>();
@@ -157,10 +214,11 @@ export function layoutLabels(labels: readonly LabelRequest[], view: { width: num
       return b.left >= EDGE_PX && b.right <= view.width - EDGE_PX && b.top >= EDGE_PX && b.bottom <= view.height - EDGE_PX;
     });
     const usable = inView.filter((c) => !blocked.some((box) => boxesOverlap(labelBox(label, c), box)));
-    const clear = usable.find((c) => {
+    const clearSpots = usable.filter((c) => {
       const b = labelBox(label, c);
       return !taken.some((t) => boxesOverlap(b, t)) && !symbols.some((s) => boxesOverlap(b, s));
     });
+    const clear = 'spots' in label && lines.length > 0 ? (clearSpots.find((c) => !crossesAnyLine(labelBox(label, c), lines)) ?? clearSpots[0]) : clearSpots[0];
     const chosen = clear ?? (label.isPinned ? (usable[0] ?? inView[0] ?? candidates[0]) : undefined);
     if (!chosen) continue;
     out.set(label.id, chosen);
