@@ -50,6 +50,24 @@ if (typeof window.ResizeObserver !== 'function') {
   Object.defineProperty(window, 'ResizeObserver', { writable: true, value: NoResizeObserver });
 }
 
+// jsdom lays nothing out: offsetParent is null for every element and the body measures 0 x 0, which
+// Tabster (Fluent's focus manager) reads as "display: none" and "in a hidden frame". It then finds
+// nothing focusable in an opened dialog, Fluent focuses the dialog's surface instead of its first field
+// (a browser focuses the field), and Tabster, which activates a modal only when focus lands inside it,
+// hides the open dialog with aria-hidden 250 ms later (a test that took longer than that to reach the
+// dialog's field failed). Here an element in the page outside any `hidden` element has its parent as
+// offsetParent, and the body measures as the window does.
+Object.defineProperty(HTMLElement.prototype, 'offsetParent', {
+  configurable: true,
+  get(this: HTMLElement): Element | null {
+    if (!this.isConnected || this === this.ownerDocument.body || this.closest('[hidden]')) return null;
+    return this.parentElement;
+  },
+});
+HTMLBodyElement.prototype.getBoundingClientRect = function bodyRect(this: HTMLBodyElement): DOMRect {
+  return new DOMRect(0, 0, window.innerWidth, window.innerHeight);
+};
+
 // jsdom's Blob (and File) has no arrayBuffer(); the photo picker reads a file's first bytes with it to
 // tell HEIC from JPEG. FileReader, which jsdom has, gives the same bytes.
 if (typeof Blob.prototype.arrayBuffer !== 'function') {
