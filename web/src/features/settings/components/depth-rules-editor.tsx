@@ -33,7 +33,14 @@ const useStyles = makeStyles({
 
 const BASIS_LABELS: Record<DepthRule['basis'], string> = { code: 'Code table', common_practice: 'Common practice', company: 'Company rule' };
 
-const keyOf = (rule: Pick<DepthRule, 'method' | 'location'>) => `${rule.method}/${rule.location}`;
+/** One rule per method × location × circuit class (the domain's table holds at most one of each). */
+const keyOf = (rule: Pick<DepthRule, 'method' | 'location' | 'circuit'>) => `${rule.method}/${rule.location}/${rule.circuit ?? 'any'}`;
+
+/** Which circuits a rule is for, in the words of the trade (NEC Table 300.5 parts column 5 off at 30 V). */
+const CIRCUIT_LABELS: Record<NonNullable<DepthRule['circuit']>, string> = {
+  up_to_30v: 'circuits up to 30 V',
+  over_30v: 'circuits over 30 V (70 V and 100 V lines)',
+};
 
 type DepthRulesEditorProps = { rules: CompanyDepthRulesResponse; canChange: boolean };
 
@@ -121,7 +128,7 @@ export function DepthRulesEditor({ rules, canChange }: DepthRulesEditorProps) {
         {parsed.map(({ rule, error }) => {
           const key = keyOf(rule);
           const fallback = defaults.get(key);
-          const label = `${METHOD_LABELS[rule.method]}, ${LOCATION_LABELS[rule.location].toLowerCase()}`;
+          const label = `${METHOD_LABELS[rule.method]}, ${LOCATION_LABELS[rule.location].toLowerCase()}${rule.circuit ? `, ${CIRCUIT_LABELS[rule.circuit]}` : ''}`;
           return (
             <li key={key} className={styles.rule}>
               <div className={styles.name}>
