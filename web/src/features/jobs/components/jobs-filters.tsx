@@ -74,9 +74,9 @@ export function JobsFilters({ params, onChange, showSort }: JobsFiltersProps) {
         />
       </Field>
       <Field label="Status" className={styles.select}>
+        {/* Fluent's clear button does not work with multiselect: ticking the statuses off again clears it. */}
         <Combobox
           multiselect
-          clearable
           className={styles.control}
           placeholder="Any status"
           selectedOptions={params.status}
