@@ -157,6 +157,11 @@ describe('the built web app, precompressed (issue 17: fast on a weak signal)', (
       expect(String(res.headers['content-security-policy']), path).toContain("script-src 'self'");
       expect(brotliDecompressSync(res.body).toString(), path).toBe(LOCATE);
     }
+    // The view's data starts with the page: one preload of the API address, the token encoded as the page's fetch encodes it.
+    expect((await get('/locate/Ab_9-xY', 'br')).headers.link).toBe('</api/locate/Ab_9-xY>; rel=preload; as=fetch; crossorigin=use-credentials');
+    expect((await get('/locate/a%20b%3E', 'br')).headers.link).toBe('</api/locate/a%20b%3E>; rel=preload; as=fetch; crossorigin=use-credentials');
+    expect((await get('/locate.html', 'br')).headers.link).toBeUndefined();
+    expect((await get('/jobs', 'br')).headers.link).toBeUndefined();
     const gzip = await get('/locate/some-token', 'gzip');
     expect(gzip.headers['content-encoding']).toBe('gzip');
     expect(gunzipSync(gzip.body).toString()).toBe(LOCATE);

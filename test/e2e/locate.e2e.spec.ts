@@ -111,6 +111,11 @@ describe('locate view on a phone: touch, position, labels, print (issue 15)', ()
     const page = await context.newPage();
     const errors: string[] = [];
     page.on('pageerror', (error) => errors.push(error.message));
+    // The page's data: started by the answer's Link preload, taken by the page's own fetch (one open logged).
+    const viewRequests: string[] = [];
+    page.on('request', (request) => {
+      if (new URL(request.url()).pathname === `/api/locate/${token}`) viewRequests.push(request.url());
+    });
     await page.goto(`${baseUrl}${locatePath}`);
     const map = page.getByTestId('locate-map');
     await map.scrollIntoViewIfNeeded();
@@ -203,6 +208,7 @@ describe('locate view on a phone: touch, position, labels, print (issue 15)', ()
     expect(pages).toHaveLength(1);
     expect(pages[0]!.replace(/\s+/g, '')).toContain(INSTALLER_PHONE.replace(/\s+/g, ''));
 
+    expect(viewRequests).toHaveLength(1);
     expect(errors).toEqual([]);
     await context.close();
   }, 120_000);

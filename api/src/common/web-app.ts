@@ -71,9 +71,32 @@ export function serveWebApp(app: NestExpressApplication, dir: string): void {
   app.use((req: Request, res: Response, next: NextFunction) => {
     const isPageRequest = (req.method === 'GET' || req.method === 'HEAD') && !/^\/api(\/|$)/.test(req.path);
     if (!isPageRequest) return next();
-    if (LOCATE_PAGE.test(req.path)) sendPage(req, res, '/locate.html', locateHtml, copies, next);
-    else sendPage(req, res, '/index.html', indexHtml, copies, next);
+    if (LOCATE_PAGE.test(req.path)) {
+      const preload = locateDataPreload(req.path);
+      if (preload) res.setHeader('Link', preload);
+      sendPage(req, res, '/locate.html', locateHtml, copies, next);
+    } else {
+      sendPage(req, res, '/index.html', indexHtml, copies, next);
+    }
   });
+}
+
+/**
+ * The `Link` header that starts the locate view's own data request with the page: the browser fetches
+ * `/api/locate/<token>` while it downloads the page's scripts, and the page's `fetch` of the same address
+ * (features/locate/api/get-locate-view.ts, credentials included) takes that answer instead of asking
+ * again, so the open is logged and counted once. A header rather than a tag in the page, so the page stays
+ * one precompressed file for every token. None for a path that does not decode.
+ */
+export function locateDataPreload(path: string): string | undefined {
+  let token: string;
+  try {
+    token = decodeURIComponent(path.replace(/^\/locate\//, '').replace(/\/$/, ''));
+  } catch {
+    return undefined;
+  }
+  if (!token) return undefined;
+  return `</api/locate/${encodeURIComponent(token)}>; rel=preload; as=fetch; crossorigin=use-credentials`;
 }
 
 /** Relative paths (`/assets/index-abc.js.br`) of every `.br` and `.gz` file under `root`. */

@@ -35,7 +35,7 @@ describe('Locate view', () => {
     expect(screen.getByRole('link', { name: /E-mail office@gardensound.test/ })).toHaveAttribute('href', 'mailto:office@gardensound.test');
     expect(screen.queryByRole('navigation', { name: 'Main' })).not.toBeInTheDocument();
 
-    const map = screen.getByRole('img', { name: /Site plan/ });
+    const map = await screen.findByRole('img', { name: /Site plan/ });
     // Labels are placed once the map has fitted the site to its frame.
     expect(await within(map).findByText('Run A: min 12 in')).toBeInTheDocument();
     expect(within(map).getByText('Wall entry: Garage wall')).toBeInTheDocument();
@@ -81,7 +81,7 @@ describe('Locate view', () => {
     expect(items.map((li) => li.id)).toEqual(['locate-run-run-2', 'locate-run-run-1']);
     expect(within(items[0]!).getByText(/Shallower than the depth rule: 4 in where the rule asks 6 in/)).toBeInTheDocument();
 
-    const map = screen.getByRole('img', { name: /Site plan/ });
+    const map = await screen.findByRole('img', { name: /Site plan/ });
     expect(await within(map).findByText('⚠ Run B: min 4 in')).toBeInTheDocument();
     expect(map.querySelectorAll('[data-tie]').length).toBe(0);
     await user.click(screen.getByRole('switch', { name: 'Show taped ties on the map' }));
@@ -121,7 +121,7 @@ describe('Locate view', () => {
     const { user } = renderLocate('tok');
     await user.click(await screen.findByRole('button', { name: 'Show my position' }, { timeout: 15_000 }));
     expect(watchPosition.mock.calls[0]![2]).toMatchObject({ enableHighAccuracy: true });
-    const map = screen.getByRole('img', { name: /Site plan/ });
+    const map = await screen.findByRole('img', { name: /Site plan/ });
     expect(map.querySelector('[data-role="my-position"] [data-role="dot"]')).not.toBeNull();
     expect(screen.getByText('Your phone puts you within about 13 ft 1 in of the black dot.')).toBeInTheDocument();
     expect(screen.getByText(/never in place of the taped ties/)).toBeInTheDocument();

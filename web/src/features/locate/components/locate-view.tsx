@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import { type DateStyle, formatDate as formatWorkDate, spell } from '@domain/format/date-time';
 import { formatToleranceZone } from '@domain/format/length';
 
@@ -14,7 +14,7 @@ import { useMyPosition } from '../hooks/use-my-position';
 import { geoJsonToKml, kmlFileName } from '../utils/kml';
 
 import styles from './locate-view.module.css';
-import { depthLabel, SiteMapPlan } from './site-map-plan';
+import { depthLabel, SiteMapPlan, SiteMapPlanPlaceholder } from './site-map-plan';
 
 /** Class names joined, the falsy ones left out. */
 function cx(...names: (string | false | undefined)[]): string {
@@ -229,6 +229,27 @@ function MyPositionControl({ view, position }: { view: LocateViewResponse; posit
   );
 }
 
+/**
+ * False for the first frame, true from the next task on. The map (label placement, pan and zoom, its
+ * measuring) is the heaviest part of the page to draw: drawn one task after the rest, the cautions and
+ * the installer's number show first and a slow phone's main thread is never held by one long task
+ * (issue 17). Its frame keeps the map's place meanwhile, so nothing moves.
+ */
+function useAfterFirstFrame(): boolean {
+  const [after, setAfter] = useState(false);
+  useEffect(() => {
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    const frame = requestAnimationFrame(() => {
+      timer = setTimeout(() => setAfter(true), 0);
+    });
+    return () => {
+      cancelAnimationFrame(frame);
+      if (timer !== undefined) clearTimeout(timer);
+    };
+  }, []);
+  return after;
+}
+
 /** The contractor's view of a site: cautions first, then who installed it, the map and the runs. */
 export function LocateView({ view }: { view: LocateViewResponse }) {
   const [selectedRunId, setSelectedRunId] = useState<string | undefined>();
@@ -238,6 +259,7 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
   const shallowRunIds = useMemo(() => new Set(view.runs.filter((r) => r.isShallow).map((r) => r.id)), [view.runs]);
   const hasTies = view.map.items.some((item) => item.position !== null && item.ties.length > 0);
   const position = useMyPosition(view.map.frame);
+  const mapShown = useAfterFirstFrame();
   // The installer's zone and locale, as on its packets (a visitor has no company of their own).
   const dateStyle = useMemo(() => companyDateStyle({ timeZone: view.timeZone, locale: view.locale }), [view.timeZone, view.locale]);
 
@@ -278,16 +300,20 @@ export function LocateView({ view }: { view: LocateViewResponse }) {
         )}
         <div className={styles.mapLayout}>
           <div className={styles.mapMain}>
-            <SiteMapPlan
-              map={view.map}
-              units={view.units}
-              locale={view.locale}
-              selectedRunId={selectedRunId}
-              onSelectRun={selectFromMap}
-              shallowRunIds={shallowRunIds}
-              showTies={showTies}
-              myPosition={position.state.status === 'on' ? position.state.position : undefined}
-            />
+            {mapShown ? (
+              <SiteMapPlan
+                map={view.map}
+                units={view.units}
+                locale={view.locale}
+                selectedRunId={selectedRunId}
+                onSelectRun={selectFromMap}
+                shallowRunIds={shallowRunIds}
+                showTies={showTies}
+                myPosition={position.state.status === 'on' ? position.state.position : undefined}
+              />
+            ) : (
+              <SiteMapPlanPlaceholder />
+            )}
           </div>
           {hasTies && (
             <div className={styles.mapSide}>

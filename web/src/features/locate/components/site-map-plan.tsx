@@ -140,6 +140,15 @@ function reservedBoxes(size: { width: number; height: number }): Box[] {
   ];
 }
 
+/** The map's empty frame, the size of the map: what stands in its place until it is drawn. */
+export function SiteMapPlanPlaceholder() {
+  return (
+    <div className={styles.figure} aria-hidden="true">
+      <div className={styles.frame} style={{ backgroundColor: PAPER }} />
+    </div>
+  );
+}
+
 /**
  * The site plan, from plan coordinates (metres, x right, y up), panned and pinch-zoomed with d3-zoom
  * (touch, mouse wheel and drag, and the +/−/fit buttons). Lines and symbols keep their screen size; a
