@@ -46,6 +46,16 @@ const useStyles = makeStyles({
     ':hover': { textDecorationLine: 'underline' },
   },
   ellipsis: { overflow: 'hidden', textOverflow: 'ellipsis', whiteSpace: 'nowrap' },
+  // A job's title is how people tell jobs apart ("Back yard sound, patio and spa"): up to two lines
+  // before it is cut, so two jobs on one property do not read the same.
+  twoLines: {
+    display: '-webkit-box',
+    WebkitLineClamp: 2,
+    WebkitBoxOrient: 'vertical',
+    overflow: 'hidden',
+    overflowWrap: 'anywhere',
+    paddingBlock: tokens.spacingVerticalXS,
+  },
   stack: { display: 'flex', flexDirection: 'column', minWidth: 0 },
   muted: { color: tokens.colorNeutralForeground3 },
   stale: { opacity: 0.6 },
@@ -104,7 +114,7 @@ export function JobsTable({ jobs, sort, onSortChange, isPhone, isStale = false, 
         compare: serverSorted,
         renderHeaderCell: () => 'Job',
         renderCell: (job) => (
-          <Link to={paths.job.getHref(job.id)} className={mergeClasses(styles.link, styles.ellipsis)}>
+          <Link to={paths.job.getHref(job.id)} className={mergeClasses(styles.link, styles.twoLines)} title={job.title}>
             {job.title}
           </Link>
         ),
