@@ -27,6 +27,22 @@ function options(style: DateStyle): { locale: string; timeZone: string } {
 /** ICU puts a narrow no-break space before AM/PM; plain text (CSV, e-mail, PDF text) reads better with a space. */
 const plainSpaces = (text: string) => text.replace(/[\u202f\u00a0]/g, ' ');
 
+/**
+ * One formatter per locale, zone and kind, made once: making an `Intl.DateTimeFormat` (ICU loads the
+ * zone's rules) costs far more than formatting with it, and a screen or a packet formats many dates in
+ * the same few styles. Bounded by the locales and zones in use.
+ */
+const formatters = new Map<string, Intl.DateTimeFormat>();
+function formatter(locale: string, options: Intl.DateTimeFormatOptions & { timeZone: string }): Intl.DateTimeFormat {
+  const key = `${locale}|${options.timeZone}|${options.hour === undefined ? 'date' : 'date-time'}`;
+  let found = formatters.get(key);
+  if (!found) {
+    found = new Intl.DateTimeFormat(locale, options);
+    formatters.set(key, found);
+  }
+  return found;
+}
+
 /** A calendar date: `Dec 2, 2026` in en-US. `—` when there is none; unreadable input is returned as given. */
 export function formatDate(iso: string | Date | null | undefined, style: DateStyle = {}): string {
   if (iso === null || iso === undefined || iso === '') return '—';
@@ -35,7 +51,7 @@ export function formatDate(iso: string | Date | null | undefined, style: DateSty
   const date = dateOnly ? new Date(Date.UTC(Number(dateOnly[1]), Number(dateOnly[2]) - 1, Number(dateOnly[3]))) : new Date(iso);
   if (Number.isNaN(date.getTime())) return String(iso);
   return plainSpaces(
-    new Intl.DateTimeFormat(locale, { year: 'numeric', month: 'short', day: 'numeric', timeZone: dateOnly ? 'UTC' : timeZone }).format(date),
+    formatter(locale, { year: 'numeric', month: 'short', day: 'numeric', timeZone: dateOnly ? 'UTC' : timeZone }).format(date),
   );
 }
 
@@ -46,7 +62,7 @@ export function formatDateTime(iso: string | Date | null | undefined, style: Dat
   const date = new Date(iso);
   if (Number.isNaN(date.getTime())) return String(iso);
   return plainSpaces(
-    new Intl.DateTimeFormat(locale, {
+    formatter(locale, {
       year: 'numeric',
       month: 'short',
       day: 'numeric',
