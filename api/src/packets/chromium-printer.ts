@@ -25,24 +25,30 @@ export interface PrintRequest {
   isDraft?: boolean;
   /** Called with every URL the page tried to load and was refused (for logs and tests). */
   onBlockedRequest?: (url: string) => void;
-  /**
-   * Called once the page is laid out and Chromium has been asked for the PDF: from then on Chromium
-   * works alone until the file is ready, so a caller may use its own thread meanwhile (the packet
-   * draws its drawings while the page-numbering draft prints). Earlier, the page's loading still needs
-   * this process (every request of the page is answered from here).
-   */
-  onPrinting?: () => void;
+}
+
+/**
+ * A change made in place to a loaded page's elements (those `selector` matches): Chromium lays the
+ * page out for print when it prints, so a page edited before its print prints as the HTML it has then.
+ */
+export interface PageEdit {
+  selector: string;
+  /** Their text (textContent): e.g. the contents' page numbers, in cells of a fixed width. */
+  text?: string;
+  /** Their content as markup (innerHTML): our own markup only (a drawing's SVG), never a user's text. */
+  markup?: string;
+  /** A class of theirs exchanged for another: `[from, to]`. */
+  swapClass?: readonly [string, string];
 }
 
 /** A page loaded with its HTML (fonts decoded), ready to print; closed by its owner. */
 export interface LoadedPage {
   /**
-   * Sets the text of the elements `selector` matches, in place (no reload): for text whose box has a
-   * fixed size, such as the contents' page numbers, so nothing else on the page moves. Resolves with how
-   * many elements were set.
+   * Makes the edits in place (no reload), in order. Resolves with how many elements each edit changed
+   * (a swapClass counts only elements that had the `from` class).
    */
-  setTexts(texts: readonly { selector: string; text: string }[]): Promise<number>;
-  /** Prints the page as it is now (see {@link PrintRequest.onPrinting}). */
+  edit(edits: readonly PageEdit[]): Promise<number[]>;
+  /** Prints the page as it is now. */
   print(): Promise<Buffer>;
   close(): Promise<void>;
 }
@@ -97,7 +103,7 @@ async function openBlankPage(browser: Browser): Promise<Page> {
  *
  * Opening a page (a new renderer) takes a few hundred milliseconds, so one blank page is kept open
  * ahead: each load takes it and opens the next one while it loads. A page is never given new HTML
- * (only its texts set in place, see {@link LoadedPage.setTexts}).
+ * (only edited in place, see {@link LoadedPage.edit}).
  */
 export class ChromiumPrinter {
   private browser: Promise<Browser> | undefined;
@@ -116,7 +122,7 @@ export class ChromiumPrinter {
 
   /**
    * One turn of the printer (`concurrency` counts these) for `work`, which may use more than one page
-   * at once: the packet loads its final page while its page-numbering draft is still printing.
+   * at once: the packet loads its final page while its page-numbering draft prints beside it.
    */
   async session<T>(work: (pages: PrintSession) => Promise<T>): Promise<T> {
     await this.acquire();
@@ -157,14 +163,17 @@ export class ChromiumPrinter {
       throw error;
     }
     return {
-      setTexts: async (texts) =>
-        Number(
-          await page.evaluate(
-            `(() => { let n = 0; for (const t of ${JSON.stringify(texts)}) for (const el of document.querySelectorAll(t.selector)) { el.textContent = t.text; n += 1; } return n; })()`,
-          ),
-        ),
+      edit: async (edits) => {
+        // A string expression (the API is compiled without the DOM library); the edits travel as JSON.
+        const counts = await page.evaluate(
+          `(${JSON.stringify(edits)}).map((e) => { let n = 0; for (const el of document.querySelectorAll(e.selector)) {` +
+            ` if (e.swapClass) { if (!el.classList.replace(e.swapClass[0], e.swapClass[1])) continue; }` +
+            ` if (e.markup !== undefined) el.innerHTML = e.markup; if (e.text !== undefined) el.textContent = e.text; n += 1; } return n; })`,
+        );
+        return (counts as unknown[]).map(Number);
+      },
       print: async () => {
-        const printing = page.pdf({
+        const pdf = await page.pdf({
           // The fonts were awaited after loading; puppeteer's own wait would cost another round trip.
           waitForFonts: false,
           printBackground: true,
@@ -177,9 +186,7 @@ export class ChromiumPrinter {
           footerTemplate: request.footerTemplate,
           timeout: this.options.pdfTimeoutMs,
         });
-        // page.pdf() has sent Page.printToPDF before its first await: Chromium is printing now.
-        request.onPrinting?.();
-        return Buffer.from(await printing);
+        return Buffer.from(pdf);
       },
       close: () => page.close().catch(() => undefined),
     };

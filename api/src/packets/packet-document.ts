@@ -13,7 +13,7 @@ import type { Orientation } from '../drawings/paper.js';
 import { drawJobDepthProfile, drawJobSchematic, drawJobSitePlan, jobTitleBlock } from '../drawings/job-drawings.js';
 import { colourKeyNote, RUN_ORANGE } from '../drawings/marking-palette.js';
 import { createNodeSvgCanvas } from '../drawings/node-svg-window.js';
-import { type ChromiumPrinter } from './chromium-printer.js';
+import { type ChromiumPrinter, type LoadedPage, type PageEdit } from './chromium-printer.js';
 import { readPdfFacts, readPdfLayout, withDocumentInfo } from './pdf-document-info.js';
 
 /**
@@ -196,7 +196,12 @@ const OUTSIDE_FONT: Record<string, string> = { '≤': '&lt;=', '≥': '&gt;=', '
 export function renderPacketHtml(parts: PacketHtmlParts): string {
   const a = loadAssets();
   const vm = { ...parts.vm, photos: parts.vm.photos.filter((p) => INLINE_IMAGE.test(p.dataUri)) };
-  return renderTemplate(a, vm, parts).replace(/[≤≥√→]/g, (c) => OUTSIDE_FONT[c] ?? c);
+  return printableHtml(renderTemplate(a, vm, parts));
+}
+
+/** Escaped HTML (the packet's, or a part of it) with the characters outside the fonts spelled out. */
+function printableHtml(html: string): string {
+  return html.replace(/[≤≥√→]/g, (c) => OUTSIDE_FONT[c] ?? c);
 }
 
 function renderTemplate(a: PacketAssets, vm: PacketViewModel, parts: PacketHtmlParts): string {
@@ -224,8 +229,6 @@ export function renderFooterTemplate(vm: PacketViewModel): string {
   );
 }
 
-const noop = (): void => undefined;
-
 /** Stands in for a one-page drawing in the first pass. */
 const PAGE_PLACEHOLDER = '<svg xmlns="http://www.w3.org/2000/svg" width="1in" height="1in"></svg>';
 
@@ -251,16 +254,25 @@ export interface RenderedPacket {
 /** The contents' page-number cells, one per section id (packet.html.hbs `data-toc-page`). */
 const TOC_PAGE_CELL = /<span class="toc-page" data-toc-page="([a-z0-9-]+)">[^<]*<\/span>/g;
 
+/** The drawings that fill a page of their own, by the id of their section (packet.html.hbs). */
+const PAGE_DRAWINGS = [
+  { section: 'site-plan', drawing: 'sitePlan' },
+  { section: 'ties', drawing: 'ties' },
+  { section: 'wiring', drawing: 'schematic' },
+] as const;
+
 /**
  * The whole packet pipeline: view model → drawings → HTML → PDF, in one turn of the printer.
  *
  * Page numbers for the contents come from a first print (photos and drawings replaced by empty boxes of
  * the same size, which is cheap) whose named destinations, read with pdf.js, give each section's page.
- * The drawings are drawn while Chromium prints that draft; then the final HTML, its contents' numbers
- * still dashes, loads into a second page while the draft is read. The numbers are written into that
- * page in place: their cells have a fixed width (print.css `.toc-page`) and the contents page a fixed
- * layout, so nothing moves, and one final print suffices. The final print's own destinations are
- * checked against the numbers it carries (printed once more, fully, should they ever differ).
+ * The final page does not wait for it, nor for the drawings: it loads at once (photos and all, the bulk
+ * of Chromium's work), its site plan, ties sheet and schematic still empty and its contents' numbers
+ * still dashes, while Chromium prints the draft beside it and this thread draws. The drawings and the
+ * numbers are then written into that page in place: each drawing fills its own page (sized to it) and
+ * the numbers' cells have a fixed width (print.css `.toc-page`) on a contents page of a fixed layout,
+ * so nothing else moves, and one final print suffices. The final print's own destinations are checked
+ * against the numbers it carries (printed once more, fully, should they ever differ).
  */
 export async function renderPacket(
   printer: ChromiumPrinter,
@@ -284,16 +296,21 @@ export async function renderPacket(
   const locale = input.snapshot.settings.locale ?? null;
   // The first pass only needs to know where pages break. The site plan, ties sheet and schematic each
   // fill exactly one page of their own (sized to it: see drawPacketDrawings), so empty placeholders
-  // stand in for them and they are drawn while Chromium prints the draft; depth profiles share pages
-  // and are cheap, so the draft has their real sizes.
+  // stand in for them; depth profiles share pages and are cheap, so they are drawn first and the
+  // draft has their real sizes.
   const profiles = drawPacketProfiles(input.snapshot, draft);
+  // The photos the packet prints (renderPacketHtml keeps inline images only): the draft has as many frames.
+  const photos = draft.photos.filter((p) => INLINE_IMAGE.test(p.dataUri));
+  const placeholders = { sitePlan: PAGE_PLACEHOLDER, ties: PAGE_PLACEHOLDER, schematic: PAGE_PLACEHOLDER };
   const firstHtml = renderPacketHtml({
-    vm: { ...draft, photos: draft.photos.map((p) => ({ ...p, dataUri: PLACEHOLDER_IMAGE })) },
-    drawings: { sitePlan: PAGE_PLACEHOLDER, ties: PAGE_PLACEHOLDER, schematic: PAGE_PLACEHOLDER, profiles: profiles.map((p) => ({ ...p, svg: emptySvgLike(p.svg) })) },
+    vm: { ...draft, photos: photos.map((p) => ({ ...p, dataUri: PLACEHOLDER_IMAGE })) },
+    drawings: { ...placeholders, profiles: profiles.map((p) => ({ ...p, svg: emptySvgLike(p.svg) })) },
     qrSvg,
     logoDataUri: input.logoDataUri,
     locale,
   });
+  // The final page as it loads: the same placeholders (on portrait pages) until the drawings are in.
+  const loadedHtml = renderPacketHtml({ vm: draft, drawings: { ...placeholders, profiles }, qrSvg, logoDataUri: input.logoDataUri, locale });
   const numbersFrom = (layout: { destinations: Map<string, number> }) =>
     Object.fromEntries(draft.toc.map((entry) => [entry.id, layout.destinations.get(entry.id)]).filter(([, page]) => page !== undefined)) as Record<string, number>;
   /** The final HTML with these numbers in the contents (the template's own text for a section without one). */
@@ -301,59 +318,59 @@ export async function renderPacket(
     html.replace(TOC_PAGE_CELL, (cell: string, id: string) => cell.replace(/>[^<]*<\/span>$/, `>${numbers[id] ?? '–'}</span>`));
 
   return printer.session(async (pages) => {
-    let isPrinting!: () => void;
-    const draftPrinting = new Promise<void>((resolve) => (isPrinting = resolve));
-    const firstPrint = pages.print({ html: firstHtml, footerTemplate, isDraft: true, onBlockedRequest: input.onBlockedRequest, onPrinting: isPrinting });
-    // A rejected draft is awaited below; until then keep it from counting as unhandled.
-    firstPrint.catch(() => undefined);
-    // The draft page loads through this process (each of its requests is answered here), so drawing now
-    // would hold it up: the drawings are drawn once Chromium prints the draft on its own (or it failed).
-    await Promise.race([draftPrinting, firstPrint.then(noop, noop)]);
-    const drawings = { ...(await drawPacketDrawings(input.snapshot, draft, input.planImage, { withProfiles: false })), profiles };
-    stage('drawings');
-    // The final page loads (photos and all, the bulk of Chromium's work) while the draft is read.
-    const dashed = renderPacketHtml({ vm: draft, drawings, qrSvg, logoDataUri: input.logoDataUri, locale });
-    const loading = pages.load({ html: dashed, footerTemplate, onBlockedRequest: input.onBlockedRequest });
+    // The final page first (it is the longer way to a PDF), then the draft beside it. Both pages load
+    // without this thread: their requests are data: URIs, which Chromium serves itself.
+    const loading = pages.load({ html: loadedHtml, footerTemplate, onBlockedRequest: input.onBlockedRequest });
+    const firstPrint = pages.print({ html: firstHtml, footerTemplate, isDraft: true, onBlockedRequest: input.onBlockedRequest });
+    // Both are awaited below (a failure closes the other's page); until then keep them from counting as unhandled.
     loading.catch(() => undefined);
-    let pageNumbers: Record<string, number>;
+    firstPrint.catch(() => undefined);
+    let page: LoadedPage | undefined;
     try {
-      pageNumbers = numbersFrom(await readPdfLayout(await firstPrint));
-    } catch (error) {
-      await (await loading.catch(() => undefined))?.close();
-      throw error;
-    }
-    stage('first print');
-    const page = await loading;
-    stage('final load');
-    let printed: Buffer;
-    try {
-      const cells = draft.toc.map((entry) => ({ selector: `[data-toc-page="${entry.id}"]`, text: String(pageNumbers[entry.id] ?? '–') }));
-      const set = await page.setTexts(cells);
-      if (set !== cells.length) throw new Error(`the contents have ${set} page-number cells for ${cells.length} sections`);
-      printed = await page.print();
+      const drawings = { ...(await drawPacketDrawings(input.snapshot, draft, input.planImage, { withProfiles: false })), profiles };
+      stage('drawings');
+      // The record's HTML, contents' numbers still dashes: what the final page is once edited.
+      const dashed = renderPacketHtml({ vm: draft, drawings, qrSvg, logoDataUri: input.logoDataUri, locale });
+      let pageNumbers = numbersFrom(await readPdfLayout(await firstPrint));
+      stage('first print');
+      page = await loading;
+      stage('final load');
+      const sections = PAGE_DRAWINGS.filter(({ section }) => draft.num[section]);
+      const edits: PageEdit[] = [
+        ...sections.flatMap(({ section, drawing }) => [
+          { selector: `#${section} > .drawing`, markup: printableHtml(drawings[drawing]) },
+          ...(drawings.orientation?.[drawing] === 'landscape' ? [{ selector: `#${section}`, swapClass: ['page-portrait', 'page-landscape'] as const }] : []),
+        ]),
+        ...draft.toc.map((entry) => ({ selector: `[data-toc-page="${entry.id}"]`, text: String(pageNumbers[entry.id] ?? '–') })),
+      ];
+      const edited = await page.edit(edits);
+      if (edited.some((n) => n !== 1)) throw new Error(`the final page's edits changed ${edited.join(', ')} elements, not one each`);
+      let printed = await page.print();
+      stage('final print');
+      let html = withNumbers(dashed, pageNumbers);
+      let vm = buildPacketViewModel({ ...input, pageNumbers });
+      // One pdf.js opening of the final print gives its pages, destinations and Chromium's information
+      // dictionary; labelling it appends to the bytes without moving a page, so it is not read again.
+      let facts = await readPdfFacts(printed);
+      const printedNumbers = numbersFrom(facts.layout);
+      if (!Object.entries(printedNumbers).every(([id, n]) => pageNumbers[id] === n)) {
+        // Should a drawing have taken more than its page after all, the contents are printed again with
+        // the pages the final print has (once: the contents page's layout is fixed, so it cannot move).
+        pageNumbers = printedNumbers;
+        html = withNumbers(dashed, pageNumbers);
+        vm = buildPacketViewModel({ ...input, pageNumbers });
+        printed = await pages.print({ html, footerTemplate, onBlockedRequest: input.onBlockedRequest });
+        facts = await readPdfFacts(printed);
+        stage('reprint');
+      }
+      const pdf = await withDocumentInfo(printed, packetDocumentInfo(vm, input.snapshot), input.snapshot.issuedAt, facts.info);
+      stage('document info');
+      return { pdf, pageCount: facts.layout.pageCount, html, drawings };
     } finally {
-      await page.close();
+      // Whichever way this ends, neither page stays open (a failed load has closed its own).
+      await (page ?? (await loading.catch(() => undefined)))?.close();
+      await firstPrint.catch(() => undefined);
     }
-    stage('final print');
-    let html = withNumbers(dashed, pageNumbers);
-    let vm = buildPacketViewModel({ ...input, pageNumbers });
-    // One pdf.js opening of the final print gives its pages, destinations and Chromium's information
-    // dictionary; labelling it appends to the bytes without moving a page, so it is not read again.
-    let facts = await readPdfFacts(printed);
-    const printedNumbers = numbersFrom(facts.layout);
-    if (!Object.entries(printedNumbers).every(([id, n]) => pageNumbers[id] === n)) {
-      // Should a drawing have taken more than its page after all, the contents are printed again with
-      // the pages the final print has (once: the contents page's layout is fixed, so it cannot move).
-      pageNumbers = printedNumbers;
-      html = withNumbers(dashed, pageNumbers);
-      vm = buildPacketViewModel({ ...input, pageNumbers });
-      printed = await pages.print({ html, footerTemplate, onBlockedRequest: input.onBlockedRequest });
-      facts = await readPdfFacts(printed);
-      stage('reprint');
-    }
-    const pdf = await withDocumentInfo(printed, packetDocumentInfo(vm, input.snapshot), input.snapshot.issuedAt, facts.info);
-    stage('document info');
-    return { pdf, pageCount: facts.layout.pageCount, html, drawings };
   });
 }
 
