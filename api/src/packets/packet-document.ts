@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -195,8 +196,17 @@ const OUTSIDE_FONT: Record<string, string> = { '≤': '&lt;=', '≥': '&gt;=', '
 
 export function renderPacketHtml(parts: PacketHtmlParts): string {
   const a = loadAssets();
-  const vm = { ...parts.vm, photos: parts.vm.photos.filter((p) => INLINE_IMAGE.test(p.dataUri)) };
-  return printableHtml(renderTemplate(a, vm, parts));
+  const photos = parts.vm.photos.filter((p) => INLINE_IMAGE.test(p.dataUri));
+  // The photos' data URIs (megabytes) go in after the template: Handlebars builds its output by
+  // concatenation and escapes each value with a regular expression, and with them inside the packet
+  // took about twice as long (on the way to the final page's load). Each stands in as a token no text
+  // can spell (a fresh nonce), replaced by its URI as Handlebars escapes it: of the characters an inline
+  // image's URI may have (INLINE_IMAGE), Handlebars escapes only "=".
+  const nonce = randomUUID().replaceAll('-', '');
+  const vm = { ...parts.vm, photos: photos.map((p, i) => ({ ...p, dataUri: `data:image/jpeg;base64,${nonce}${i}x` })) };
+  return printableHtml(renderTemplate(a, vm, parts)).replace(new RegExp(`data:image/jpeg;base64,${nonce}(\\d+)x`, 'g'), (_token, i: string) =>
+    photos[Number(i)]!.dataUri.replaceAll('=', '&#x3D;'),
+  );
 }
 
 /** Escaped HTML (the packet's, or a part of it) with the characters outside the fonts spelled out. */
@@ -345,10 +355,12 @@ export async function renderPacket(
       ];
       const edited = await page.edit(edits);
       if (edited.some((n) => n !== 1)) throw new Error(`the final page's edits changed ${edited.join(', ')} elements, not one each`);
-      let printed = await page.print();
-      stage('final print');
+      const printing = page.print();
+      // The record's HTML and view model while Chromium prints.
       let html = withNumbers(dashed, pageNumbers);
       let vm = buildPacketViewModel({ ...input, pageNumbers });
+      let printed = await printing;
+      stage('final print');
       // One pdf.js opening of the final print gives its pages, destinations and Chromium's information
       // dictionary; labelling it appends to the bytes without moving a page, so it is not read again.
       let facts = await readPdfFacts(printed);
