@@ -5,7 +5,7 @@ import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 
 import { loadLocateView } from './features/locate/api/get-locate-view';
-import { LocateErrorBoundary, LocatePage } from './features/locate/components/locate-page';
+import { LocateErrorBoundary, LocatePage, settledState } from './features/locate/components/locate-page';
 
 /**
  * The public locate view's own entry (locate.html, issue 17): the page a stranger opens once, from a
@@ -18,13 +18,20 @@ if (!container) throw new Error('locate.html has no #root element');
 
 // `/locate/<token>`: the token is the rest of the path (the server answers nothing else with this page).
 const token = decodeURIComponent(window.location.pathname.replace(/^\/locate\//, '').replace(/\/$/, ''));
-// Asked before the first render, so the request runs while React draws the frame.
-const view = loadLocateView(token);
+/** How long the first render waits for an answer already on its way before drawing the loading frame. */
+const FRAME_AFTER_MS = 150;
 
-createRoot(container).render(
-  <StrictMode>
-    <LocateErrorBoundary>
-      <LocatePage view={view} />
-    </LocateErrorBoundary>
-  </StrictMode>,
+// Asked at once (the server's Link header has usually started it with the page, so it is often in by
+// now); the first render waits for it a moment, then draws the loading frame if it has not come.
+const view = loadLocateView(token);
+const early = Promise.race([settledState(view), new Promise<undefined>((resolve) => setTimeout(resolve, FRAME_AFTER_MS))]);
+
+void early.then((initial) =>
+  createRoot(container).render(
+    <StrictMode>
+      <LocateErrorBoundary>
+        <LocatePage view={view} initial={initial} />
+      </LocateErrorBoundary>
+    </StrictMode>,
+  ),
 );

@@ -21,25 +21,33 @@ function Frame({ installer, children }: { installer?: string; children: ReactNod
   );
 }
 
-type LocateState = { status: 'pending' } | { status: 'ready'; view: LocateViewResponse } | { status: 'unavailable'; reason: ReturnType<typeof unavailableReason> };
+export type LocateState = { status: 'pending' } | { status: 'ready'; view: LocateViewResponse } | { status: 'unavailable'; reason: ReturnType<typeof unavailableReason> };
+
+/** The page's state from the settled request for the link's view. */
+export function settledState(view: Promise<LocateViewResponse>): Promise<LocateState> {
+  return view.then(
+    (answer): LocateState => ({ status: 'ready', view: answer }),
+    (error: unknown): LocateState => ({ status: 'unavailable', reason: unavailableReason(error) }),
+  );
+}
 
 /**
  * The public locate page (locate.html): a contractor with the link sees what is buried at the site, and
  * how deep. `view` is the request for the link's view, started before the first render (locate-main.tsx)
  * so the frame draws at once on a weak signal and the map follows; a refused link is a page of its own.
+ * `initial`: the answer when it came before the first render (the page's Link preload), drawn at once
+ * instead of a loading frame that would show for an instant.
  */
-export function LocatePage({ view }: { view: Promise<LocateViewResponse> }) {
-  const [state, setState] = useState<LocateState>({ status: 'pending' });
+export function LocatePage({ view, initial }: { view: Promise<LocateViewResponse>; initial?: LocateState }) {
+  const [state, setState] = useState<LocateState>(initial ?? { status: 'pending' });
   useEffect(() => {
+    if (initial && initial.status !== 'pending') return;
     let current = true;
-    view.then(
-      (answer) => current && setState({ status: 'ready', view: answer }),
-      (error: unknown) => current && setState({ status: 'unavailable', reason: unavailableReason(error) }),
-    );
+    void settledState(view).then((settled) => current && setState(settled));
     return () => {
       current = false;
     };
-  }, [view]);
+  }, [view, initial]);
 
   if (state.status === 'pending') {
     return (

@@ -199,4 +199,13 @@ describe('Locate view', () => {
     expect(await screen.findByRole('heading', { name: 'Before you dig' })).toBeInTheDocument();
     expect(screen.queryByRole('progressbar')).not.toBeInTheDocument();
   });
+
+  it('should draw an answer that came before the first render at once, with no loading frame', () => {
+    const view = buildLocateView('early');
+    window.history.replaceState(null, '', '/locate/early');
+    render(<LocatePage view={Promise.resolve(view)} initial={{ status: 'ready', view }} />);
+    expect(screen.getByRole('heading', { name: 'Before you dig' })).toBeInTheDocument();
+    expect(screen.getByText('Buried cables · Garden Sound Co')).toBeInTheDocument();
+    expect(screen.queryByRole('progressbar')).not.toBeInTheDocument();
+  });
 });
