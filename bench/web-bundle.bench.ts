@@ -59,8 +59,16 @@ function withStaticImports(key: string, files: Set<string>): void {
   for (const imported of chunk.imports ?? []) withStaticImports(imported, files);
 }
 
+// What each built script holds (web/vite.config.ts, `chunkContents`): a route module grouped into a
+// first-screen chunk with others (`firstScreenChunks`) has no manifest key of its own.
+const contents = JSON.parse(readFileSync(join(dist, '.vite/chunk-contents.json'), 'utf8')) as Record<string, { sources: string[] }>;
+
 function manifestKey(module: string): string {
-  const key = Object.keys(manifest).find((k) => new RegExp(`(^|/)src/${module}\\.(tsx|ts|jsx|js)$`).test(k));
+  const pattern = new RegExp(`(^|/)src/${module}\\.(tsx|ts|jsx|js)$`);
+  const own = Object.keys(manifest).find((k) => pattern.test(k));
+  if (own) return own;
+  const file = Object.keys(contents).find((f) => contents[f]!.sources.some((source) => pattern.test(source)));
+  const key = file && Object.keys(manifest).find((k) => manifest[k]!.file === file);
   if (!key) throw new Error(`route module ${module} is not in the Vite manifest (was it renamed? update ROUTES)`);
   return key;
 }

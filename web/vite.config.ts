@@ -5,7 +5,7 @@ import { promisify } from 'node:util';
 import { brotliCompress, constants, gzip } from 'node:zlib';
 
 import react from '@vitejs/plugin-react';
-import { defineConfig, type Plugin } from 'vite';
+import { defineConfig, type Plugin, type Rolldown } from 'vite';
 import { VitePWA } from 'vite-plugin-pwa';
 
 const repoRoot = fileURLToPath(new URL('..', import.meta.url));
@@ -86,6 +86,121 @@ function chunkContents(): Plugin {
   };
 }
 
+/**
+ * The signed-in pages' scripts in a handful of files (issue 17): left to itself the bundler splits the
+ * first screen into one chunk per set of routes sharing a module, about 80 files for Today and 100 for a
+ * job page (10-600 KB each), and every one is a request over HTTP/1.1 (six at a time) and a
+ * `<link rel="modulepreload">` the page adds at 4x CPU slowdown. Here the modules are grouped by the
+ * first screen that needs them, from the static import graph (`buildEnd`, before the chunks are made):
+ *
+ * - `react`: React itself, shared with the public locate page;
+ * - `locate-shared`: what the locate page and the app's first screens both import (no Fluent UI: the
+ *   locate page's own graph holds none, test/e2e/locate-bundle.e2e.spec.ts);
+ * - `start`: main.tsx and the root route (session, router, query cache, Fluent's provider);
+ * - `frame`: the signed-in frame (app root and protected routes: header, navigation);
+ * - `pages`: what Today and the job page share; `today`, `job`: each page's own code.
+ *
+ * Today then loads about seven scripts, a job page about eight. Modules no first screen needs (plan
+ * editor, drawings, dialogs behind a button, other routes) keep the bundler's own splitting, and a
+ * route that needs part of a group loads the group.
+ */
+function firstScreenChunks(): { plugin: Plugin; groups: Rolldown.CodeSplittingGroup[] } {
+  const groupOf = new Map<string, string>();
+  const src = (path: string) => resolve(appRoot, path);
+  const isReact = (id: string) => /[\\/]node_modules[\\/](react|react-dom|scheduler)[\\/]/.test(id);
+  const isOurs = (id: string) => !id.includes('/node_modules/') && !id.startsWith('\0');
+  const plugin: Plugin = {
+    name: 'loamline-first-screen-chunks',
+    apply: 'build',
+    async buildEnd() {
+      // Fluent's `@fluentui/react-components` re-exports every component package; followed as it is, it
+      // would put all of them on the first screen. Our modules' named imports from it are followed to
+      // the package that exports each name instead.
+      const barrel = await this.resolve('@fluentui/react-components', src('src/main.tsx'));
+      const packageOf = new Map<string, string>();
+      const packageId = new Map<string, string>();
+      if (barrel) {
+        const text = await readFile(barrel.id, 'utf8');
+        for (const [, names, from] of text.matchAll(/export\s*\{([^}]*)\}\s*from\s*"([^"]+)"/g)) {
+          for (const name of names!.replace(/\/\/[^\n]*/g, '').split(',')) {
+            const exported = name.trim().split(/\s+as\s+/).pop()!;
+            if (exported) packageOf.set(exported, from!);
+          }
+        }
+        for (const from of new Set(packageOf.values())) {
+          const resolved = await this.resolve(from, barrel.id);
+          if (resolved) packageId.set(from, resolved.id);
+        }
+      }
+      const importsOf = (id: string): string[] => {
+        const info = this.getModuleInfo(id);
+        if (!info) return [];
+        if (!barrel || !isOurs(id) || !info.importedIds.includes(barrel.id)) return info.importedIds;
+        const named = new Set<string>();
+        for (const [, names] of (info.code ?? '').matchAll(/import\s*\{([^}]*)\}\s*from\s*["']@fluentui\/react-components["']/g)) {
+          for (const name of names!.split(',')) {
+            const imported = name.trim().replace(/^type\s+/, '').split(/\s+as\s+/)[0]!;
+            const from = packageOf.get(imported);
+            if (from && packageId.has(from)) named.add(packageId.get(from)!);
+          }
+        }
+        return [...info.importedIds.filter((next) => next !== barrel.id), ...named];
+      };
+      const reach = (roots: string[], outside: Set<string> = new Set()) => {
+        const seen = new Set<string>();
+        const queue = roots.filter((id) => this.getModuleInfo(id));
+        while (queue.length > 0) {
+          const id = queue.pop()!;
+          if (seen.has(id) || outside.has(id)) continue;
+          seen.add(id);
+          queue.push(...importsOf(id));
+        }
+        return seen;
+      };
+      const locate = reach([src('locate.html')]);
+      const start = reach([src('index.html'), src('src/app/routes/root.tsx')]);
+      const signIn = reach([src('src/app/routes/auth/sign-in.tsx')], start);
+      const frame = reach([src('src/app/routes/app/root.tsx'), src('src/app/routes/app/protected.tsx')], new Set([...start, ...signIn]));
+      const before = new Set([...start, ...signIn, ...frame]);
+      const today = reach([src('src/app/routes/app/home.tsx')], before);
+      const job = reach([src('src/app/routes/app/job.tsx')], before);
+      // What the frame loads by itself once a page shows (the account menu, the runners that send queued
+      // photos and job changes) is one chunk of its own, `later`: left in the job page's group it would
+      // download the whole job page on Today. (The office's work queue, which Today loads lazily, keeps
+      // the bundler's splitting.)
+      // (What the start loads lazily, the toaster and the service worker's helper, is loaded on the
+      // sign-in page too, so it stays out of this group.)
+      const lazyRoots = [...frame].flatMap((id) => this.getModuleInfo(id)?.dynamicallyImportedIds ?? []);
+      const later = reach(lazyRoots, new Set([...before, ...today]));
+      groupOf.clear();
+      const assign = (ids: Iterable<string>, name: string) => {
+        for (const id of ids) {
+          if (groupOf.has(id)) continue;
+          groupOf.set(id, isReact(id) ? 'react' : locate.has(id) ? 'locate-shared' : name);
+        }
+      };
+      assign(start, 'start');
+      assign(signIn, 'sign-in');
+      assign(frame, 'frame');
+      assign([...today].filter((id) => job.has(id)), 'pages');
+      assign(today, 'today');
+      assign(later, 'later');
+      assign(job, 'job');
+      // React is shared with the locate page whether or not a first screen reaches it first.
+      for (const id of locate) if (isReact(id)) groupOf.set(id, 'react');
+    },
+  };
+  // Highest priority first: a group's modules take their own dependencies along (the bundler's default),
+  // so the groups nearer the root claim theirs before a later group could.
+  const order = ['react', 'locate-shared', 'start', 'sign-in', 'frame', 'pages', 'today', 'later', 'job'];
+  const groups = order.map((name, i) => ({
+    name,
+    priority: order.length - i,
+    test: (id: string) => groupOf.get(id) === name,
+  }));
+  return { plugin, groups };
+}
+
 async function listFiles(dir: string): Promise<string[]> {
   const files: string[] = [];
   for (const entry of await readdir(dir)) {
@@ -161,8 +276,10 @@ const pwa = VitePWA({
   devOptions: { enabled: false },
 });
 
+const firstScreen = firstScreenChunks();
+
 export default defineConfig({
-  plugins: [react(), pwa, precompress(), chunkContents()],
+  plugins: [react(), pwa, precompress(), chunkContents(), firstScreen.plugin],
   resolve: {
     alias: { '@domain': domain, '@drawings': drawings },
   },
@@ -183,6 +300,7 @@ export default defineConfig({
       // Two pages: the app, and the public locate view on its own (issue 17: React and the locate view
       // only, no Fluent UI, router or query cache; api/src/common/web-app.ts answers /locate/* with it).
       input: { index: resolve(appRoot, 'index.html'), locate: resolve(appRoot, 'locate.html') },
+      output: { codeSplitting: { groups: firstScreen.groups } },
     },
   },
 });
