@@ -336,6 +336,7 @@ export async function renderPacket(
     loading.catch(() => undefined);
     firstPrint.catch(() => undefined);
     let page: LoadedPage | undefined;
+    let closing: Promise<void> | undefined;
     try {
       const drawings = { ...(await drawPacketDrawings(input.snapshot, draft, input.planImage, { withProfiles: false })), profiles };
       stage('drawings');
@@ -360,6 +361,8 @@ export async function renderPacket(
       let html = withNumbers(dashed, pageNumbers);
       let vm = buildPacketViewModel({ ...input, pageNumbers });
       let printed = await printing;
+      // The page (photos and all) goes while its print is read.
+      closing = page.close();
       stage('final print');
       // One pdf.js opening of the final print gives its pages, destinations and Chromium's information
       // dictionary; labelling it appends to the bytes without moving a page, so it is not read again.
@@ -380,7 +383,7 @@ export async function renderPacket(
       return { pdf, pageCount: facts.layout.pageCount, html, drawings };
     } finally {
       // Whichever way this ends, neither page stays open (a failed load has closed its own).
-      await (page ?? (await loading.catch(() => undefined)))?.close();
+      await (closing ?? (page ?? (await loading.catch(() => undefined)))?.close());
       await firstPrint.catch(() => undefined);
     }
   });
