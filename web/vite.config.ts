@@ -168,9 +168,11 @@ function firstScreenChunks(): { plugin: Plugin; groups: Rolldown.CodeSplittingGr
       // photos and job changes) is one chunk of its own, `later`: left in the job page's group it would
       // download the whole job page on Today. (The office's work queue, which Today loads lazily, keeps
       // the bundler's splitting.)
-      // (What the start loads lazily, the toaster and the service worker's helper, is loaded on the
-      // sign-in page too, so it stays out of this group.)
-      const lazyRoots = [...frame].flatMap((id) => this.getModuleInfo(id)?.dynamicallyImportedIds ?? []);
+      // Only what those two route modules load lazily: the phone menu's drawer (app shell) waits for a
+      // tap, and what the start loads lazily (the toaster, the service worker's helper) is loaded on the
+      // sign-in page too, so both stay out of this group.
+      const frameRoutes = [src('src/app/routes/app/root.tsx'), src('src/app/routes/app/protected.tsx')];
+      const lazyRoots = frameRoutes.flatMap((id) => this.getModuleInfo(id)?.dynamicallyImportedIds ?? []);
       const later = reach(lazyRoots, new Set([...before, ...today]));
       groupOf.clear();
       const assign = (ids: Iterable<string>, name: string) => {
