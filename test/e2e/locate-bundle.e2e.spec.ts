@@ -52,6 +52,14 @@ describe('the locate page’s scripts (built web app)', () => {
     }
   });
 
+  it('should hold no zod and none of the session or API-client code (a stranger’s map needs neither)', () => {
+    // Building zod's schemas at module load took a phone 200-300 ms of the page's blocking time (issue 17):
+    // the page's fetch is lib/public-api.ts, and it imports the API's schemas for their types only.
+    expect([...packages].filter((p) => p === 'zod' || p.startsWith('@zod/'))).toEqual([]);
+    expect(sources.filter((s) => s.startsWith('web/src/lib/session') || s.startsWith('web/src/lib/api-client'))).toEqual([]);
+    expect(sources).toContain('web/src/lib/public-api.ts');
+  });
+
   it('should not be loaded by the app: the app’s entry shares no locate-only code', () => {
     const app = staticScripts('index.html');
     expect([...app].flatMap((file) => contents[file]?.sources ?? []).filter((s) => s.includes('locate-main') || s.includes('locate-page'))).toEqual([]);

@@ -1,4 +1,4 @@
-import { telHref } from '@domain/company/company-profile.schema';
+import { telHref } from '@domain/company/phone';
 
 import styles from './installer-card.module.css';
 import { CallIcon, MailIcon } from './plain/icons';

@@ -1,42 +1,12 @@
 import { z } from 'zod';
 import { SessionResponseSchema } from '@domain/auth/auth.schema';
 
+import { ApiError, isApiError } from './api-error';
 import { clearSession, getAccessToken, getSessionState, setSession, type Session } from './session';
 import { refreshAcrossTabs } from './session-sync';
 
-/** One problem with a request field, as the API's validation pipe reports it. */
-export type ApiIssue = { path: string; message: string };
-
-/**
- * A request that did not succeed: a non-2xx answer from the API, an answer we could not read, or
- * no answer at all (`status` 0).
- */
-export class ApiError extends Error {
-  readonly status: number;
-  readonly code: string | undefined;
-  readonly issues: readonly ApiIssue[];
-  /** With `VERSION_CONFLICT`: the version the job has reached on the server. */
-  readonly currentVersion: number | undefined;
-
-  constructor(init: {
-    status: number;
-    message: string;
-    code?: string;
-    issues?: readonly ApiIssue[];
-    currentVersion?: number;
-  }) {
-    super(init.message);
-    this.name = 'ApiError';
-    this.status = init.status;
-    this.code = init.code;
-    this.issues = init.issues ?? [];
-    this.currentVersion = init.currentVersion;
-  }
-}
-
-export function isApiError(error: unknown): error is ApiError {
-  return error instanceof ApiError;
-}
+// Defined without zod or the session (the public locate page throws it too); the app imports it from here.
+export { ApiError, type ApiIssue, isApiError } from './api-error';
 
 // The API's error body: Nest's `{ statusCode, error, message }` plus our `code` and `issues`.
 // Nest sends `message` as a list for some built-in errors, so both shapes are accepted.

@@ -139,8 +139,5 @@ export interface InstallerContact {
   licenceNumbers: string[];
 }
 
-/** A `tel:` link for a printed phone number: digits and a leading + only. */
-export function telHref(phone: string): string {
-  const digits = phone.replace(/[^\d+]/g, '');
-  return `tel:${digits.startsWith('+') ? `+${digits.slice(1).replace(/\+/g, '')}` : digits.replace(/\+/g, '')}`;
-}
+// A `tel:` link for a printed phone number (in a schema-free module: the public locate page uses it).
+export { telHref } from './phone.js';

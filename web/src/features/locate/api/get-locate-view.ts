@@ -1,12 +1,28 @@
-import { type LocateViewResponse, LocateViewResponseSchema } from '@domain/locate/locate-link.schema';
+import type { LocateViewResponse } from '@domain/locate/locate-link.schema';
 
-import { apiRequest, isApiError } from '../../../lib/api-client';
+import { ApiError, isApiError } from '../../../lib/api-error';
+import { getPublicJson } from '../../../lib/public-api';
 
 export type { LocateViewResponse };
 
-/** The public locate view for a link's token. No session: whoever holds the link may read it. */
-export function getLocateView(token: string, { signal }: { signal?: AbortSignal } = {}): Promise<LocateViewResponse> {
-  return apiRequest(`/api/locate/${encodeURIComponent(token)}`, LocateViewResponseSchema, { signal, auth: false });
+/**
+ * The public locate view for a link's token. No session: whoever holds the link may read it. The page
+ * loads neither zod nor the session code (issue 17: building the schemas alone cost a phone 200-300 ms),
+ * so in production the answer is taken as the API's own schema types it; in development and tests it is
+ * checked against `LocateViewResponseSchema` (loaded only then) and an answer that does not fit fails
+ * as api-client.ts fails it.
+ */
+export async function getLocateView(token: string, { signal }: { signal?: AbortSignal } = {}): Promise<LocateViewResponse> {
+  const answer = await getPublicJson(`/api/locate/${encodeURIComponent(token)}`, { signal });
+  if (import.meta.env.DEV) return checkedInDevelopment(answer);
+  return answer as LocateViewResponse;
+}
+
+async function checkedInDevelopment(answer: unknown): Promise<LocateViewResponse> {
+  const { LocateViewResponseSchema } = await import('@domain/locate/locate-link.schema');
+  const parsed = LocateViewResponseSchema.safeParse(answer);
+  if (parsed.success) return parsed.data;
+  throw new ApiError({ status: 200, code: 'UNEXPECTED_RESPONSE', message: 'The server sent an answer this app does not understand.' });
 }
 
 /** Waits between tries of a request that failed on the way (1 s, then 2 s), as the app's queries do. */
