@@ -19,6 +19,8 @@ const BOX = { width: 400, height: 120 };
 const useStyles = makeStyles({
   pads: { display: 'grid', gap: tokens.spacingVerticalL, '@media (min-width: 720px)': { gridTemplateColumns: '1fr 1fr' } },
   pad: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
+  // A finger-sized field, as in the app's forms.
+  name: { minHeight: '48px' },
   canvas: {
     width: '100%',
     aspectRatio: `${BOX.width} / ${BOX.height}`,
@@ -174,7 +176,7 @@ function SignaturePadField({ jobId, role, canSign, defaultName, saved }: PadFiel
       ) : canSign ? (
         <>
           <Field label="Name" required>
-            <Input value={name} maxLength={120} onChange={(_e, data) => setName(data.value)} />
+            <Input className={styles.name} value={name} maxLength={120} onChange={(_e, data) => setName(data.value)} />
           </Field>
           <canvas ref={canvasRef} className={styles.canvas} aria-label={`${ROLE_LABELS[role]} signs here with a finger`} />
           <Text size={200} className={styles.hint}>

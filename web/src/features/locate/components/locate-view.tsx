@@ -60,7 +60,7 @@ function Cautions({ view }: { view: LocateViewResponse }) {
           </Text>
         </li>
       </ul>
-      <Text>{view.cautionSummary}</Text>
+      {/* The answer's one-paragraph summary (cautionSummary) says what the points above say: not repeated. */}
       <details>
         <summary>
           <Text weight="semibold">All locate steps and safety cautions</Text>

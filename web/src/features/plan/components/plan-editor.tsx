@@ -68,7 +68,8 @@ const useStyles = makeStyles({
   canvas: { height: '46dvh', minHeight: '320px', '@media (min-width: 1024px)': { height: 'calc(100dvh - 260px)', minHeight: '420px' } },
   side: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM, minWidth: 0 },
   header: { display: 'flex', alignItems: 'center', gap: tokens.spacingHorizontalS, marginBlockEnd: tokens.spacingVerticalM, minWidth: 0 },
-  title: { margin: 0, minWidth: 0 },
+  // The job's whole title (on a phone over two lines rather than cut off).
+  title: { margin: 0, minWidth: 0, overflowWrap: 'anywhere' },
   back: {
     display: 'inline-flex',
     alignItems: 'center',
@@ -388,7 +389,7 @@ export function PlanEditor({ data, site, actor }: PlanEditorProps) {
         <Link to={paths.job.getHref(job.id)} className={styles.back} aria-label={`Back to the job ${job.title}`}>
           <ArrowLeft24Regular aria-hidden />
         </Link>
-        <Text as="h2" size={500} weight="semibold" className={styles.title} truncate wrap={false}>
+        <Text as="h2" size={500} weight="semibold" className={styles.title}>
           Plan: {job.title}
         </Text>
       </header>
