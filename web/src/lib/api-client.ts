@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { SessionResponseSchema } from '@domain/auth/auth.schema';
 
 import { ApiError, isApiError } from './api-error';
+import { readBody, timedFetch } from './timed-fetch';
 import { clearSession, getAccessToken, getSessionState, setSession, type Session } from './session';
 import { refreshAcrossTabs } from './session-sync';
 
@@ -167,31 +168,7 @@ async function send(path: string, options: ApiRequestOptions, accessToken: strin
     requestBody = JSON.stringify(body);
   }
 
-  const timeout = new AbortController();
-  const timer = setTimeout(() => timeout.abort(), timeoutMs);
-  const onCallerAbort = () => timeout.abort();
-  signal?.addEventListener('abort', onCallerAbort, { once: true });
-
-  try {
-    return await fetch(path, {
-      ...init,
-      headers: requestHeaders,
-      body: requestBody,
-      credentials: 'include',
-      signal: timeout.signal,
-    });
-  } catch (cause) {
-    // Let TanStack Query see its own cancellations as aborts, not as failures.
-    if (signal?.aborted) throw cause;
-    throw new ApiError({
-      status: 0,
-      code: timeout.signal.aborted ? 'TIMEOUT' : 'NETWORK_ERROR',
-      message: timeout.signal.aborted ? 'The server took too long to answer.' : 'Cannot reach the server.',
-    });
-  } finally {
-    clearTimeout(timer);
-    signal?.removeEventListener('abort', onCallerAbort);
-  }
+  return timedFetch(path, { ...init, headers: requestHeaders, body: requestBody }, { signal, timeoutMs });
 }
 
 function isNativeBody(body: unknown): body is BodyInit {
@@ -202,18 +179,6 @@ function isNativeBody(body: unknown): body is BodyInit {
     body instanceof ArrayBuffer ||
     typeof body === 'string'
   );
-}
-
-async function readBody(response: Response): Promise<unknown> {
-  const text = await response.text();
-  if (text === '') return undefined;
-  const contentType = response.headers.get('Content-Type') ?? '';
-  if (!contentType.includes('json')) return text;
-  try {
-    return JSON.parse(text) as unknown;
-  } catch {
-    return text;
-  }
 }
 
 function toApiError(response: Response, payload: unknown): ApiError {

@@ -1,4 +1,5 @@
 import { ApiError } from './api-error';
+import { readBody, timedFetch } from './timed-fetch';
 
 /**
  * A GET of a public endpoint of our API, for a page without a session (the public locate page, issue 17):
@@ -9,27 +10,8 @@ import { ApiError } from './api-error';
  * api-client.ts does: the status for a non-2xx answer, 0 for no answer or one later than `timeoutMs`.
  */
 export async function getPublicJson(path: string, { signal, timeoutMs = 15_000 }: { signal?: AbortSignal; timeoutMs?: number } = {}): Promise<unknown> {
-  const timeout = new AbortController();
-  const timer = setTimeout(() => timeout.abort(), timeoutMs);
-  const onCallerAbort = () => timeout.abort();
-  signal?.addEventListener('abort', onCallerAbort, { once: true });
-  let response: Response;
-  let text: string;
-  try {
-    response = await fetch(path, { headers: { Accept: 'application/json' }, credentials: 'include', signal: timeout.signal });
-    text = await response.text();
-  } catch (cause) {
-    if (signal?.aborted) throw cause;
-    throw new ApiError({
-      status: 0,
-      code: timeout.signal.aborted ? 'TIMEOUT' : 'NETWORK_ERROR',
-      message: timeout.signal.aborted ? 'The server took too long to answer.' : 'Cannot reach the server.',
-    });
-  } finally {
-    clearTimeout(timer);
-    signal?.removeEventListener('abort', onCallerAbort);
-  }
-  const body = readJson(text, response.headers.get('Content-Type') ?? '');
+  const response = await timedFetch(path, { headers: { Accept: 'application/json' } }, { signal, timeoutMs });
+  const body = await readBody(response);
   if (response.ok) return body;
   // The API's error body (`{ message, code }`, message sometimes a list); anything else keeps the status.
   const { message, code } = (typeof body === 'object' && body !== null ? body : {}) as { message?: unknown; code?: unknown };
@@ -39,14 +21,4 @@ export async function getPublicJson(path: string, { signal, timeoutMs = 15_000 }
     message: said || response.statusText || `Request failed with status ${response.status}.`,
     code: typeof code === 'string' ? code : undefined,
   });
-}
-
-function readJson(text: string, contentType: string): unknown {
-  if (text === '') return undefined;
-  if (!contentType.includes('json')) return text;
-  try {
-    return JSON.parse(text) as unknown;
-  } catch {
-    return text;
-  }
 }
