@@ -2,19 +2,12 @@ import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import type { CompanyDepthRulesResponse, CompanyProfileResponse } from '@domain/company/company-profile.schema';
 import { DEFAULT_DEPTH_RULES } from '@domain/depth/depth-rules';
-import type { CompanySettingsResponse, MyPreferencesResponse } from '@domain/settings/settings.schema';
 
 import { buildSessionUser } from '../../../testing/data';
 import { apiErrorResponse, mockApi, type MockRequest } from '../../../testing/mock-api';
 import { jsonResponse, renderApp } from '../../../testing/render-app';
+import { IMPERIAL_PREFERENCES, IMPERIAL_SETTINGS } from '../testing-fixtures';
 
-const SETTINGS: CompanySettingsResponse = { lengthUnits: 'imperial', gaugeUnits: 'awg', paperSize: 'letter', updatedAt: '2026-04-01T09:00:00.000Z' };
-const PREFERENCES: MyPreferencesResponse = {
-  lengthUnits: null,
-  gaugeUnits: null,
-  company: { lengthUnits: 'imperial', gaugeUnits: 'awg', timeZone: 'America/Denver', locale: 'en-US' },
-  effective: { length: 'imperial', gauge: 'awg' },
-};
 const PROFILE: CompanyProfileResponse = {
   tradeName: 'Larchwhistle Garden Audio',
   phone: '(555) 010-0131',
@@ -31,8 +24,8 @@ const DEPTH: CompanyDepthRulesResponse = { table: DEFAULT_DEPTH_RULES, isDefault
 
 function api(profile: () => CompanyProfileResponse, patch?: (request: MockRequest) => Response | Promise<Response>) {
   mockApi({
-    'GET /api/company/settings': () => jsonResponse(SETTINGS),
-    'GET /api/me/preferences': () => jsonResponse(PREFERENCES),
+    'GET /api/company/settings': () => jsonResponse(IMPERIAL_SETTINGS),
+    'GET /api/me/preferences': () => jsonResponse(IMPERIAL_PREFERENCES),
     'GET /api/company/profile': () => jsonResponse(profile()),
     'GET /api/company/depth-rules': () => jsonResponse(DEPTH),
     ...(patch ? { 'PATCH /api/company/profile': patch } : {}),

@@ -2,27 +2,20 @@ import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import type { CompanyDepthRulesResponse, UpdateDepthRulesInput } from '@domain/company/company-profile.schema';
 import { DEFAULT_DEPTH_RULES } from '@domain/depth/depth-rules';
-import type { CompanySettingsResponse, MyPreferencesResponse } from '@domain/settings/settings.schema';
 
 import { buildSessionUser } from '../../../testing/data';
 import { mockApi, type MockRequest } from '../../../testing/mock-api';
 import { jsonResponse, renderApp } from '../../../testing/render-app';
+import { IMPERIAL_PREFERENCES, IMPERIAL_SETTINGS } from '../testing-fixtures';
 
-const SETTINGS: CompanySettingsResponse = { lengthUnits: 'imperial', gaugeUnits: 'awg', paperSize: 'letter', updatedAt: '2026-04-01T09:00:00.000Z' };
-const PREFERENCES: MyPreferencesResponse = {
-  lengthUnits: null,
-  gaugeUnits: null,
-  company: { lengthUnits: 'imperial', gaugeUnits: 'awg', timeZone: 'America/Denver', locale: 'en-US' },
-  effective: { length: 'imperial', gauge: 'awg' },
-};
 
 describe('Depth rules editor', () => {
   it('should give each circuit class of a method and location its own field, and change only the rule typed into', async () => {
     const puts: MockRequest[] = [];
     let current: CompanyDepthRulesResponse = { table: DEFAULT_DEPTH_RULES, isDefault: true, defaults: DEFAULT_DEPTH_RULES };
     mockApi({
-      'GET /api/company/settings': () => jsonResponse(SETTINGS),
-      'GET /api/me/preferences': () => jsonResponse(PREFERENCES),
+      'GET /api/company/settings': () => jsonResponse(IMPERIAL_SETTINGS),
+      'GET /api/me/preferences': () => jsonResponse(IMPERIAL_PREFERENCES),
       'GET /api/company/profile': () => jsonResponse({}, 404),
       'GET /api/company/depth-rules': () => jsonResponse(current),
       'PUT /api/company/depth-rules': (request) => {
@@ -51,6 +44,7 @@ describe('Depth rules editor', () => {
     // Compared field by field (the answer's fields may come in another order).
     const same = (a: object, b: object) => JSON.stringify(Object.entries(a).sort()) === JSON.stringify(Object.entries(b).sort());
     const changed = sent.filter((rule, i) => !same(rule, DEFAULT_DEPTH_RULES.rules[i]!));
+    // 30 in = 0.762 m: 1 in is exactly 25.4 mm (international yard and pound agreement, 1959; NIST SP 811 B.8).
     expect(changed).toEqual([expect.objectContaining({ method: 'direct_burial', location: 'general', circuit: 'over_30v', minCoverM: 0.762, basis: 'company' })]);
   }, 60_000);
 });
