@@ -129,16 +129,21 @@ describe('the built web app, precompressed (issue 17: fast on a weak signal)', (
     expect(res.headers['content-encoding']).toBeUndefined();
   });
 
+  /** `path` answers the page `html` as a page: brotli when asked, revalidated, under the Content-Security-Policy. */
+  async function expectHtmlPage(path: string, html: string) {
+    const res = await get(path, 'gzip, deflate, br');
+    expect(res.status, path).toBe(200);
+    expect(res.headers['content-type'], path).toMatch(/^text\/html/);
+    expect(res.headers['content-encoding'], path).toBe('br');
+    expect(varyNames(res), path).toContain('accept-encoding');
+    expect(res.headers['cache-control'], path).toBe('no-cache');
+    expect(String(res.headers['content-security-policy']), path).toContain("script-src 'self'");
+    expect(brotliDecompressSync(res.body).toString(), path).toBe(html);
+  }
+
   it('should send index.html for a client route, compressed, with no-cache and the Content-Security-Policy', async () => {
     for (const path of ['/', '/jobs', '/jobs/4f1c', '/locate', '/locate/some-token/more', '/index.html']) {
-      const res = await get(path, 'gzip, deflate, br');
-      expect(res.status, path).toBe(200);
-      expect(res.headers['content-type'], path).toMatch(/^text\/html/);
-      expect(res.headers['content-encoding'], path).toBe('br');
-      expect(varyNames(res), path).toContain('accept-encoding');
-      expect(res.headers['cache-control'], path).toBe('no-cache');
-      expect(String(res.headers['content-security-policy']), path).toContain("script-src 'self'");
-      expect(brotliDecompressSync(res.body).toString(), path).toBe(INDEX);
+      await expectHtmlPage(path, INDEX);
     }
     const plain = await get('/jobs');
     expect(plain.headers['content-encoding']).toBeUndefined();
@@ -148,14 +153,7 @@ describe('the built web app, precompressed (issue 17: fast on a weak signal)', (
 
   it('should send locate.html, not the app, for a locate link: compressed, with no-cache and the Content-Security-Policy', async () => {
     for (const path of ['/locate/some-token', '/locate/Ab_9-xY/', '/locate.html']) {
-      const res = await get(path, 'gzip, deflate, br');
-      expect(res.status, path).toBe(200);
-      expect(res.headers['content-type'], path).toMatch(/^text\/html/);
-      expect(res.headers['content-encoding'], path).toBe('br');
-      expect(varyNames(res), path).toContain('accept-encoding');
-      expect(res.headers['cache-control'], path).toBe('no-cache');
-      expect(String(res.headers['content-security-policy']), path).toContain("script-src 'self'");
-      expect(brotliDecompressSync(res.body).toString(), path).toBe(LOCATE);
+      await expectHtmlPage(path, LOCATE);
     }
     // The view's data starts with the page: one preload of the API address, the token encoded as the page's fetch encodes it.
     expect((await get('/locate/Ab_9-xY', 'br')).headers.link).toBe('</api/locate/Ab_9-xY>; rel=preload; as=fetch; crossorigin=use-credentials');
