@@ -60,7 +60,7 @@ function precompress(): Plugin {
 /**
  * Writes `dist/.vite/chunk-contents.json`: for every built script, the npm packages and the source files
  * bundled into it. Vite's manifest names only chunks; this says what is inside them, so a test can check
- * that the public locate page's scripts hold no Fluent UI, router or query cache
+ * that the public locate page's and the sign-in page's scripts hold no Fluent UI, router or query cache
  * (test/e2e/locate-bundle.e2e.spec.ts). Not served: the server skips `.vite/`.
  */
 function chunkContents(): Plugin {
@@ -93,9 +93,11 @@ function chunkContents(): Plugin {
  * `<link rel="modulepreload">` the page adds at 4x CPU slowdown. Here the modules are grouped by the
  * first screen that needs them, from the static import graph (`buildEnd`, before the chunks are made):
  *
- * - `react`: React itself, shared with the public locate page;
- * - `locate-shared`: what the locate page and the app's first screens both import (no Fluent UI: the
- *   locate page's own graph holds none, test/e2e/locate-bundle.e2e.spec.ts);
+ * - `react`: React itself, shared with the public locate page and the sign-in page;
+ * - `public-shared`, `locate-shared`, `sign-in-shared`: what the two pages of their own (locate.html,
+ *   sign-in.html) both import, and what each of them shares with the app's first screens (no Fluent UI:
+ *   neither page's graph holds any, test/e2e/locate-bundle.e2e.spec.ts); what only one page needs stays
+ *   in its entry's chunk;
  * - `start`: main.tsx and the root route (session, router, query cache, Fluent's provider);
  * - `frame`: the signed-in frame (app root and protected routes: header, navigation);
  * - `pages`: what Today and the job page share; `today`, `job`: each page's own code.
@@ -158,10 +160,13 @@ function firstScreenChunks(): { plugin: Plugin; groups: Rolldown.CodeSplittingGr
         return seen;
       };
       const locate = reach([src('locate.html')]);
+      const signInPage = reach([src('sign-in.html')]);
+      const publicPages = new Set([...locate, ...signInPage]);
+      const publicGroup = (id: string) =>
+        locate.has(id) && signInPage.has(id) ? 'public-shared' : locate.has(id) ? 'locate-shared' : signInPage.has(id) ? 'sign-in-shared' : undefined;
       const start = reach([src('index.html'), src('src/app/routes/root.tsx')]);
-      const signIn = reach([src('src/app/routes/auth/sign-in.tsx')], start);
-      const frame = reach([src('src/app/routes/app/root.tsx'), src('src/app/routes/app/protected.tsx')], new Set([...start, ...signIn]));
-      const before = new Set([...start, ...signIn, ...frame]);
+      const frame = reach([src('src/app/routes/app/root.tsx'), src('src/app/routes/app/protected.tsx')], start);
+      const before = new Set([...start, ...frame]);
       const today = reach([src('src/app/routes/app/home.tsx')], before);
       const job = reach([src('src/app/routes/app/job.tsx')], before);
       // What the frame loads by itself once a page shows (the account menu, the runners that send queued
@@ -178,23 +183,24 @@ function firstScreenChunks(): { plugin: Plugin; groups: Rolldown.CodeSplittingGr
       const assign = (ids: Iterable<string>, name: string) => {
         for (const id of ids) {
           if (groupOf.has(id)) continue;
-          groupOf.set(id, isReact(id) ? 'react' : locate.has(id) ? 'locate-shared' : name);
+          groupOf.set(id, isReact(id) ? 'react' : publicGroup(id) ?? name);
         }
       };
       assign(start, 'start');
-      assign(signIn, 'sign-in');
       assign(frame, 'frame');
       assign([...today].filter((id) => job.has(id)), 'pages');
       assign(today, 'today');
       assign(later, 'later');
       assign(job, 'job');
-      // React is shared with the locate page whether or not a first screen reaches it first.
-      for (const id of locate) if (isReact(id)) groupOf.set(id, 'react');
+      // React is shared with the public pages whether or not a first screen reaches it first; what the two
+      // public pages share with each other (and no first screen) is one chunk too, not one per module.
+      for (const id of publicPages) if (isReact(id)) groupOf.set(id, 'react');
+      for (const id of locate) if (signInPage.has(id) && !groupOf.has(id)) groupOf.set(id, 'public-shared');
     },
   };
   // Highest priority first: a group's modules take their own dependencies along (the bundler's default),
   // so the groups nearer the root claim theirs before a later group could.
-  const order = ['react', 'locate-shared', 'start', 'sign-in', 'frame', 'pages', 'today', 'later', 'job'];
+  const order = ['react', 'public-shared', 'locate-shared', 'sign-in-shared', 'start', 'frame', 'pages', 'today', 'later', 'job'];
   const groups = order.map((name, i) => ({
     name,
     priority: order.length - i,
@@ -259,16 +265,26 @@ const pwa = VitePWA({
     globPatterns: ['**/*.{js,css,html,svg,png,woff2,webmanifest,wasm}'],
     // The public locate page is not: it shows nothing without its /api answer, which the worker never
     // keeps, and the stranger it is for never installs the app (its scripts are precached with the rest).
+    // The sign-in page (sign-in.html) is: a lead whose session ended with no signal still gets it.
     globIgnores: ['locate.html'],
     // The largest route chunk (the plan editor with elkjs) is above Workbox's 2 MiB default.
     maximumFileSizeToCacheInBytes: 8 * 1024 * 1024,
     // A reload of any client-side route with no signal gets the precached shell…
     navigateFallback: '/index.html',
-    // …but never for the API, nor for the public locate view's own links (`/locate/<token>`), which the
-    // server answers with locate.html, a page of its own.
-    navigateFallbackDenylist: [/^\/api(\/|$)/, /^\/locate\//],
-    // Nothing at run time: /api answers are never kept by the worker (see above).
-    runtimeCaching: [],
+    // …but never for the API, nor for the public locate view's own links (`/locate/<token>`) or the sign-in
+    // page (`/sign-in`, with or without a query), which the server answers with locate.html and sign-in.html,
+    // pages of their own.
+    navigateFallbackDenylist: [/^\/api(\/|$)/, /^\/locate\//, /^\/sign-in\/?(\?|$)/],
+    // /sign-in from the network (the server's sign-in.html, so a new build's page is used at once), or with
+    // no signal the precached sign-in.html: a lead whose session ended offline sees the sign-in page, not
+    // the browser's offline error. Nothing else at run time: /api answers are never kept by the worker.
+    runtimeCaching: [
+      {
+        urlPattern: ({ request, url }) => request.mode === 'navigate' && /^\/sign-in\/?$/.test(url.pathname),
+        handler: 'NetworkOnly',
+        options: { precacheFallback: { fallbackURL: '/sign-in.html' } },
+      },
+    ],
     cleanupOutdatedCaches: true,
     // One file: no workbox-<hash>.js beside sw.js for the server to keep fresh.
     inlineWorkboxRuntime: true,
@@ -299,9 +315,10 @@ export default defineConfig({
     // dist/.vite/manifest.json: which chunks each route module pulls in (read by bench/web-bundle.bench.ts).
     manifest: true,
     rolldownOptions: {
-      // Two pages: the app, and the public locate view on its own (issue 17: React and the locate view
-      // only, no Fluent UI, router or query cache; api/src/common/web-app.ts answers /locate/* with it).
-      input: { index: resolve(appRoot, 'index.html'), locate: resolve(appRoot, 'locate.html') },
+      // Three pages: the app, and two pages of their own (issue 17: React and one view only, no Fluent UI,
+      // router, query cache, zod or session): the public locate view and the sign-in page
+      // (api/src/common/web-app.ts answers /locate/<token> and /sign-in with them).
+      input: { index: resolve(appRoot, 'index.html'), locate: resolve(appRoot, 'locate.html'), 'sign-in': resolve(appRoot, 'sign-in.html') },
       output: { codeSplitting: { groups: firstScreen.groups } },
     },
   },

@@ -163,6 +163,8 @@ export function ensureWebBuilt() {
       join(root, 'web/src'),
       join(root, 'web/public'),
       join(root, 'web/index.html'),
+      join(root, 'web/locate.html'),
+      join(root, 'web/sign-in.html'),
       join(root, 'web/vite.config.ts'),
       join(root, 'web/tsconfig.json'),
       join(root, 'api/src/domain'),

@@ -8,11 +8,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { createCompany, type TestCompany } from '../support/fixtures.js';
 
-// A stand-in web build (index.html, locate.html and one hashed asset), served by the API as `npm start` serves web/dist.
+// A stand-in web build (index.html, locate.html, sign-in.html and one hashed asset), served by the API as `npm start` serves web/dist.
 const WEB_DIST_DIR = mkdtempSync(join(tmpdir(), 'loamline-web-dist-'));
 mkdirSync(join(WEB_DIST_DIR, 'assets'));
 writeFileSync(join(WEB_DIST_DIR, 'index.html'), '<!doctype html><html><body><div id="root"></div><script type="module" src="/assets/index-abc.js"></script></body></html>');
 writeFileSync(join(WEB_DIST_DIR, 'locate.html'), '<!doctype html><html><body><div id="root"></div><script type="module" src="/assets/locate-abc.js"></script></body></html>');
+writeFileSync(join(WEB_DIST_DIR, 'sign-in.html'), '<!doctype html><html><body><div id="root"></div><script type="module" src="/assets/sign-in-abc.js"></script></body></html>');
 writeFileSync(join(WEB_DIST_DIR, 'assets', 'index-abc.js'), 'console.log("app")');
 
 /** The directives of a Content-Security-Policy header, by name. */
@@ -67,8 +68,8 @@ describe('security of the HTTP surface', () => {
       expect(csp.get('connect-src')).toEqual(["'self'"]);
     });
 
-    it('should have no inline script in the pages’ source that such a policy would block (the app and the locate view)', () => {
-      for (const page of ['index.html', 'locate.html']) {
+    it('should have no inline script in the pages’ source that such a policy would block (the app, the locate view, sign-in)', () => {
+      for (const page of ['index.html', 'locate.html', 'sign-in.html']) {
         const html = readFileSync(join(import.meta.dirname, '../../web', page), 'utf8');
         const scripts = [...html.matchAll(/<script\b([^>]*)>([\s\S]*?)<\/script>/gi)];
         expect(scripts.length, page).toBeGreaterThan(0);

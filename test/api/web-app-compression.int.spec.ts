@@ -9,19 +9,21 @@ import type { NestExpressApplication } from '@nestjs/platform-express';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 // A stand-in web build as `vite build` writes it (web/vite.config.ts, `precompress`): a hashed script and
-// stylesheet with their .br and .gz copies, a hashed image with none, index.html and the public locate
-// view's own page, locate.html.
+// stylesheet with their .br and .gz copies, a hashed image with none, index.html and the two pages of their
+// own: the public locate view's, locate.html, and the sign-in page, sign-in.html.
 const WEB_DIST_DIR = mkdtempSync(join(tmpdir(), 'loamline-web-compress-'));
 const SCRIPT = `export const rows = [${Array.from({ length: 400 }, (_, i) => `{"run":${i},"depth":"18 in"}`).join(',')}];\n`;
 const STYLE = `.row{margin:0;padding:0}\n`.repeat(200);
 const INDEX = `<!doctype html><html><head><script type="module" src="/assets/index-Ab12Cd34.js"></script></head><body><div id="root"></div>${'<!-- - -->'.repeat(150)}</body></html>`;
 const LOCATE = `<!doctype html><html><head><script type="module" src="/assets/locate-Ij90Kl12.js"></script></head><body><div id="root"></div>${'<!-- + -->'.repeat(150)}</body></html>`;
+const SIGN_IN = `<!doctype html><html><head><script type="module" src="/assets/sign-in-Mn34Op56.js"></script></head><body><div id="root"></div>${'<!-- * -->'.repeat(150)}</body></html>`;
 mkdirSync(join(WEB_DIST_DIR, 'assets'));
 for (const [name, text] of [
   ['assets/index-Ab12Cd34.js', SCRIPT],
   ['assets/index-Ef56Gh78.css', STYLE],
   ['index.html', INDEX],
   ['locate.html', LOCATE],
+  ['sign-in.html', SIGN_IN],
 ] as const) {
   writeFileSync(join(WEB_DIST_DIR, name), text);
   writeFileSync(join(WEB_DIST_DIR, `${name}.br`), brotliCompressSync(text));
@@ -142,7 +144,7 @@ describe('the built web app, precompressed (issue 17: fast on a weak signal)', (
   }
 
   it('should send index.html for a client route, compressed, with no-cache and the Content-Security-Policy', async () => {
-    for (const path of ['/', '/jobs', '/jobs/4f1c', '/locate', '/locate/some-token/more', '/index.html']) {
+    for (const path of ['/', '/jobs', '/jobs/4f1c', '/locate', '/locate/some-token/more', '/sign-in/more', '/sign-inside', '/index.html']) {
       await expectHtmlPage(path, INDEX);
     }
     const plain = await get('/jobs');
@@ -169,6 +171,23 @@ describe('the built web app, precompressed (issue 17: fast on a weak signal)', (
     expect(plain.body.toString()).toBe(LOCATE);
     // The locate view's data stays the API's: JSON, never the page.
     const api = await get('/api/locate/some-token', 'br, gzip');
+    expect(api.headers['content-type']).toMatch(/^application\/json/);
+  });
+
+  it('should send sign-in.html, not the app, for the sign-in page with or without a query: compressed, with no-cache and the Content-Security-Policy', async () => {
+    for (const path of ['/sign-in', '/sign-in/', `/sign-in?${new URLSearchParams({ next: '/jobs/4f1c?section=runs', expired: '1' })}`, '/sign-in.html']) {
+      await expectHtmlPage(path, SIGN_IN);
+    }
+    expect((await get('/sign-in', 'br')).headers.link).toBeUndefined();
+    const gzip = await get('/sign-in?next=%2Fjobs', 'gzip');
+    expect(gzip.headers['content-encoding']).toBe('gzip');
+    expect(gunzipSync(gzip.body).toString()).toBe(SIGN_IN);
+    const plain = await get('/sign-in');
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    expect(plain.headers['cache-control']).toBe('no-cache');
+    expect(plain.body.toString()).toBe(SIGN_IN);
+    // The sign-in request itself stays the API's.
+    const api = await get('/api/auth/sign-in', 'br, gzip');
     expect(api.headers['content-type']).toMatch(/^application\/json/);
   });
 

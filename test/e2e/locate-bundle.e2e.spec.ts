@@ -7,8 +7,9 @@ import { describe, expect, it } from 'vitest';
 import { root } from '../../scripts/lib/setup.mjs';
 
 /*
- * The public locate view is a page of its own (issue 17): a stranger's phone on a weak signal loads React
- * and the locate view only. Read from the build the e2e server serves (web/dist): Vite's manifest says
+ * The public locate view and the sign-in page are pages of their own (issue 17): a stranger's phone on a
+ * weak signal loads React and the locate view only, a crew lead's phone React and the sign-in form only.
+ * Read from the build the e2e server serves (web/dist): Vite's manifest says
  * which scripts the page loads (its entry and every chunk that imports statically), and
  * .vite/chunk-contents.json (web/vite.config.ts, `chunkContents`) what is bundled into each.
  */
@@ -63,5 +64,42 @@ describe('the locate page’s scripts (built web app)', () => {
   it('should not be loaded by the app: the app’s entry shares no locate-only code', () => {
     const app = staticScripts('index.html');
     expect([...app].flatMap((file) => contents[file]?.sources ?? []).filter((s) => s.includes('locate-main') || s.includes('locate-page'))).toEqual([]);
+  });
+});
+
+/** npm packages of the app's shell: Fluent UI, its styling and focus runtimes, the router, the query cache, zod. */
+const isShellPackage = (p: string) =>
+  p.startsWith('@fluentui/') || p.startsWith('@griffel/') || p === 'tabster' || p === 'react-router' || p.startsWith('@tanstack/') || p === 'zod' || p.startsWith('@zod/');
+
+describe('the sign-in page’s scripts (built web app)', () => {
+  const signIn = staticScripts('sign-in.html');
+  const packages = new Set([...signIn].flatMap((file) => contents[file]?.packages ?? []));
+  const sources = [...signIn].flatMap((file) => contents[file]?.sources ?? []);
+
+  it('should be the sign-in entry with React and the form, and nothing of the app shell, zod or the session', () => {
+    expect(manifest['sign-in.html']?.isEntry).toBe(true);
+    for (const file of signIn) expect(contents[file], file).toBeDefined();
+    expect(packages).toContain('react-dom');
+    expect(sources).toContain('web/src/sign-in-main.tsx');
+    expect(sources).toContain('web/src/features/auth/components/sign-in-page.tsx');
+    // Its requests are public-api.ts's (no token, no refresh; the app restores the session after it).
+    expect(sources).toContain('web/src/lib/public-api.ts');
+    expect([...packages].filter(isShellPackage)).toEqual([]);
+    expect(sources.filter((s) => s.startsWith('web/src/app/') || s === 'web/src/main.tsx')).toEqual([]);
+    expect(sources.filter((s) => s.startsWith('web/src/lib/session') || s.startsWith('web/src/lib/api-client') || s.includes('restore-session'))).toEqual([]);
+    // Nor anything of the locate view, nor anything loaded later.
+    expect(sources.filter((s) => s.includes('/locate/') || s.includes('locate-main'))).toEqual([]);
+    for (const file of signIn) {
+      const chunk = Object.values(manifest).find((c) => c.file === file)!;
+      expect(chunk.dynamicImports ?? [], file).toEqual([]);
+    }
+  });
+
+  it('should not be loaded by the app, nor by the locate page', () => {
+    const app = staticScripts('index.html');
+    const locate = staticScripts('locate.html');
+    for (const files of [app, locate]) {
+      expect([...files].flatMap((file) => contents[file]?.sources ?? []).filter((s) => s.includes('sign-in-main') || s.includes('sign-in-page'))).toEqual([]);
+    }
   });
 });

@@ -6,7 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { darkTheme, lightTheme } from './app/theme';
 
 /*
- * locate.css gives the locate page (no Fluent UI, so no FluentProvider) the theme's token variables that
+ * locate.css gives the locate and sign-in pages (no Fluent UI, so no FluentProvider) the theme's token variables that
  * the shared components read; they must be the values FluentProvider sets in the app (app/theme.ts).
  */
 /** A file of web/src (this file's folder; jsdom's import.meta.url is no file: URL). */
@@ -39,7 +39,7 @@ describe('locate.css (the locate page’s theme without Fluent UI)', () => {
 
   it('should define every token variable the shared plain-CSS components read', () => {
     const used = new Set<string>();
-    for (const file of ['./components/plain/controls.module.css', './components/plain/text.module.css', './components/installer-card.module.css', './components/marking-legend.module.css', './features/locate/components/locate-view.module.css', './features/locate/components/site-map-plan.module.css']) {
+    for (const file of ['./components/plain/controls.module.css', './components/plain/text.module.css', './components/installer-card.module.css', './components/marking-legend.module.css', './features/locate/components/locate-view.module.css', './features/locate/components/site-map-plan.module.css', './features/auth/components/sign-in-page.module.css']) {
       for (const [, name] of source(file).matchAll(/var\(--([A-Za-z0-9]+)\)/g)) used.add(name!);
     }
     expect([...used].filter((name) => !light.has(name))).toEqual([]);

@@ -12,7 +12,7 @@ export const IMMUTABLE_CACHE_CONTROL = 'public, max-age=31536000, immutable';
  * worker (a cached `sw.js` would hold a phone on an old version; browsers cap its HTTP cache at a day
  * anyway, but `no-cache` makes the update check immediate) and the web app manifest.
  */
-const ALWAYS_REVALIDATE = new Set(['/index.html', '/locate.html', '/sw.js', '/manifest.webmanifest']);
+const ALWAYS_REVALIDATE = new Set(['/index.html', '/locate.html', '/sign-in.html', '/sw.js', '/manifest.webmanifest']);
 
 /** The Cache-Control for a built file at `path` (`/assets/…`, `/sw.js`, `/favicon.svg` …). */
 export function cacheControlFor(path: string): string {
@@ -26,13 +26,17 @@ const SUFFIX: Record<Encoding, string> = { br: '.br', gzip: '.gz' };
 
 /** The public locate view's links (`/locate/<token>`): answered with the build's own small page for it. */
 const LOCATE_PAGE = /^\/locate\/[^/]+\/?$/;
+/** The sign-in page (`/sign-in`, any query): a small page of its own too, not the app. */
+const SIGN_IN_PAGE = /^\/sign-in\/?$/;
 
 /**
  * Serves the built single-page app from `dir` on the same port as the API: hashed assets with a long,
  * immutable cache lifetime, and `index.html` (never cached without asking) for any other GET outside
  * `/api` so client-side routes survive a reload — except a locate link, `/locate/<token>`, which gets
  * `locate.html`: the public locate view as a page of its own, without the app's shell (issue 17: a
- * stranger's phone on a weak signal loads only what that view needs), with the same cache rules.
+ * stranger's phone on a weak signal loads only what that view needs), and the sign-in page, `/sign-in`
+ * with any query, which gets `sign-in.html` (two fields and a button, without Fluent UI, the router or
+ * the session code), with the same cache rules.
  *
  * The web build writes brotli (`.br`) and gzip (`.gz`) copies beside its text files (web/vite.config.ts,
  * `precompress`); a request whose `Accept-Encoding` allows one gets that copy with `Content-Encoding`,
@@ -45,6 +49,8 @@ export function serveWebApp(app: NestExpressApplication, dir: string): void {
   if (!existsSync(indexHtml)) throw new Error(`WEB_DIST_DIR has no index.html: ${root}`);
   const locateHtml = join(root, 'locate.html');
   if (!existsSync(locateHtml)) throw new Error(`WEB_DIST_DIR has no locate.html: ${root}`);
+  const signInHtml = join(root, 'sign-in.html');
+  if (!existsSync(signInHtml)) throw new Error(`WEB_DIST_DIR has no sign-in.html: ${root}`);
   // The build does not change while the server runs: list its compressed copies once.
   const copies = listCompressedCopies(root);
 
@@ -75,6 +81,8 @@ export function serveWebApp(app: NestExpressApplication, dir: string): void {
       const preload = locateDataPreload(req.path);
       if (preload) res.setHeader('Link', preload);
       sendPage(req, res, '/locate.html', locateHtml, copies, next);
+    } else if (SIGN_IN_PAGE.test(req.path)) {
+      sendPage(req, res, '/sign-in.html', signInHtml, copies, next);
     } else {
       sendPage(req, res, '/index.html', indexHtml, copies, next);
     }

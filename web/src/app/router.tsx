@@ -1,6 +1,6 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { useMemo, type ComponentType } from 'react';
-import { createBrowserRouter, RouterProvider, type LoaderFunction, type RouteObject } from 'react-router';
+import { createBrowserRouter, redirectDocument, RouterProvider, type LoaderFunction, type RouteObject } from 'react-router';
 
 import { paths } from '../config/paths';
 
@@ -42,7 +42,9 @@ export function createAppRoutes(queryClient: QueryClient, beforeLoaders?: Promis
       // Shown only for the moment the first route modules load; blank rather than a flashing spinner.
       HydrateFallback: () => null,
       children: [
-        { path: paths.signIn.path, lazy: () => import('./routes/auth/sign-in').then(load) },
+        // Not a route of the app: the sign-in page is a page of its own (web/sign-in.html, issue 17). Any
+        // client-side navigation that still arrives here becomes a full page load of that page.
+        { path: paths.signIn.path, loader: ({ request }) => redirectDocument(new URL(request.url).pathname + new URL(request.url).search) },
         { path: paths.acceptInvitation.path, lazy: () => import('./routes/auth/accept-invitation').then(load) },
         { path: paths.signUp.path, lazy: () => import('./routes/auth/sign-up').then(load) },
         { path: paths.signUpVerify.path, lazy: () => import('./routes/auth/sign-up-verify').then(load) },

@@ -10,10 +10,22 @@ export const paths = {
     path: '/status',
     getHref: () => '/status',
   },
+  /**
+   * A page of its own, not a route of the app (web/sign-in.html, issue 17): reach it with a full page load
+   * (`window.location`, `<Link reloadDocument>`, `redirectDocument`), never a client-side navigation.
+   */
   signIn: {
     path: '/sign-in',
-    /** `next`: where to go after signing in (a path in this app, with its query). */
-    getHref: (next?: string) => (next && next !== '/' ? `/sign-in?${new URLSearchParams({ next })}` : '/sign-in'),
+    /**
+     * `next`: where to go after signing in (a path in this app, with its query); `expired`: the session
+     * ended under the user (the page says so).
+     */
+    getHref: (next?: string, { expired = false }: { expired?: boolean } = {}) => {
+      const query = new URLSearchParams();
+      if (next && next !== '/') query.set('next', next);
+      if (expired) query.set('expired', '1');
+      return query.size > 0 ? `/sign-in?${query}` : '/sign-in';
+    },
   },
   signUp: {
     path: '/sign-up',

@@ -1,11 +1,11 @@
 /**
- * The few icons of the pages without Fluent UI (the public locate view): the same drawings as Fluent's
+ * The few icons of the pages without Fluent UI (the public locate view, the sign-in page): the same drawings as Fluent's
  * icons of these names (@fluentui/react-icons, MIT), written out as paths, because each of Fluent's icon
  * components brings its styling runtime (Griffel) with it. Decorative: name the control, not the icon.
  */
-type IconProps = { size?: 20 | 24; className?: string };
+type IconProps = { size?: 12 | 16 | 20 | 24; className?: string };
 
-function icon(viewBox: 20 | 24, d: string) {
+function icon(viewBox: 12 | 20 | 24, d: string) {
   return function Icon({ size = viewBox, className }: IconProps) {
     return (
       <svg className={className} width={size} height={size} viewBox={`0 0 ${viewBox} ${viewBox}`} fill="currentColor" aria-hidden="true" focusable="false">
@@ -48,4 +48,26 @@ export const CallIcon = icon(
 export const MailIcon = icon(
   20,
   'M15.5 4A2.5 2.5 0 0 1 18 6.5v8a2.5 2.5 0 0 1-2.5 2.5h-11A2.5 2.5 0 0 1 2 14.5v-8A2.5 2.5 0 0 1 4.5 4zM17 7.96l-6.75 3.97a.5.5 0 0 1-.42.04l-.08-.04L3 7.96v6.54c0 .83.67 1.5 1.5 1.5h11c.83 0 1.5-.67 1.5-1.5zM15.5 5h-11C3.67 5 3 5.67 3 6.5v.3l7 4.12 7-4.12v-.3c0-.83-.67-1.5-1.5-1.5',
+);
+
+// The sign-in page's: the password box's show/hide button, the message bars' and a field error's marks.
+export const EyeIcon = icon(
+  20,
+  'M3.26 11.6A7 7 0 0 1 10 6c3.2 0 6.06 2.33 6.74 5.6a.5.5 0 0 0 .98-.2A8 8 0 0 0 10 5a8 8 0 0 0-7.72 6.4.5.5 0 0 0 .98.2M10 8a3.5 3.5 0 1 0 0 7 3.5 3.5 0 0 0 0-7m-2.5 3.5a2.5 2.5 0 1 1 5 0 2.5 2.5 0 0 1-5 0',
+);
+export const EyeOffIcon = icon(
+  20,
+  'M2.85 2.15a.5.5 0 1 0-.7.7l3.5 3.5a8 8 0 0 0-3.37 5.05.5.5 0 1 0 .98.2 7 7 0 0 1 3.1-4.53l1.6 1.59a3.5 3.5 0 1 0 4.88 4.89l4.3 4.3a.5.5 0 0 0 .71-.7zm9.27 10.68a2.5 2.5 0 1 1-3.45-3.45zm-2-4.83 3.38 3.38A3.5 3.5 0 0 0 10.12 8M10 6q-.86 0-1.67.21l-.8-.8A8 8 0 0 1 10 5c3.7 0 6.94 2.67 7.72 6.4a.5.5 0 0 1-.98.2A7 7 0 0 0 10 6',
+);
+export const InfoFilledIcon = icon(
+  20,
+  'M18 10a8 8 0 1 0-16 0 8 8 0 0 0 16 0M9.5 8.91a.5.5 0 0 1 1 0v4.69a.5.5 0 0 1-1 0V8.9m-.25-2.16a.75.75 0 1 1 1.5 0 .75.75 0 0 1-1.5 0',
+);
+export const DismissCircleFilledIcon = icon(
+  20,
+  'M10 2a8 8 0 1 1 0 16 8 8 0 0 1 0-16M7.8 7.11a.5.5 0 0 0-.63.06l-.06.07a.5.5 0 0 0 .06.64L9.3 10l-2.12 2.12-.06.07a.5.5 0 0 0 .06.64l.07.06c.2.13.47.11.64-.06L10 10.7l2.12 2.12.07.06c.2.13.46.11.64-.06l.06-.07a.5.5 0 0 0-.06-.64L10.7 10l2.12-2.12.06-.07a.5.5 0 0 0-.06-.64l-.07-.06a.5.5 0 0 0-.64.06L10 9.3 7.88 7.17z',
+);
+export const ErrorCircleFilledIcon = icon(
+  12,
+  'M6 11A5 5 0 1 0 6 1a5 5 0 0 0 0 10m-.75-2.75a.75.75 0 1 1 1.5 0 .75.75 0 0 1-1.5 0m.26-4.84a.5.5 0 0 1 .98 0l.01.09v2.59a.5.5 0 0 1-1 0V3.41',
 );

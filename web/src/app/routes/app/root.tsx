@@ -63,7 +63,7 @@ export default function AppRoot() {
             </Suspense>
           </>
         ) : (
-          <Link to={paths.signIn.getHref(currentPathOf(location))} className={styles.signIn}>
+          <Link to={paths.signIn.getHref(currentPathOf(location))} reloadDocument className={styles.signIn}>
             Sign in
           </Link>
         )

@@ -48,7 +48,7 @@ export default function SignUpVerifyRoute() {
           </MessageBarBody>
         </MessageBar>
         <div className={styles.actions}>
-          <Link to={paths.signIn.getHref()} className={styles.link}>
+          <Link to={paths.signIn.getHref()} reloadDocument className={styles.link}>
             Sign in
           </Link>
           {!alreadyDone && (

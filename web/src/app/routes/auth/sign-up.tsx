@@ -30,7 +30,7 @@ function SignInInstead() {
   return (
     <Text as="p" block className={styles.footer}>
       Already have an account?{' '}
-      <Link to={paths.signIn.getHref()} className={styles.link}>
+      <Link to={paths.signIn.getHref()} reloadDocument className={styles.link}>
         Sign in
       </Link>
     </Text>

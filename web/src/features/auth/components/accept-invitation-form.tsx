@@ -94,7 +94,7 @@ export function AcceptInvitationForm({ token, invitation, onAccepted, onLinkNotV
             {isEmailTaken ? (
               <>
                 There is already an account for {invitation.email}.{' '}
-                <Link to={paths.signIn.getHref()} className={styles.link}>
+                <Link to={paths.signIn.getHref()} reloadDocument className={styles.link}>
                   Sign in
                 </Link>{' '}
                 instead.

@@ -49,7 +49,7 @@ export function ForgotPasswordForm({ initialEmail = '' }: ForgotPasswordFormProp
           </MessageBarBody>
         </MessageBar>
         <div className={styles.links}>
-          <Link to={paths.signIn.getHref()} className={styles.link}>
+          <Link to={paths.signIn.getHref()} reloadDocument className={styles.link}>
             Back to sign in
           </Link>
         </div>
@@ -88,7 +88,7 @@ export function ForgotPasswordForm({ initialEmail = '' }: ForgotPasswordFormProp
         Send me a reset link
       </Button>
       <div className={styles.links}>
-        <Link to={paths.signIn.getHref()} className={styles.link}>
+        <Link to={paths.signIn.getHref()} reloadDocument className={styles.link}>
           Back to sign in
         </Link>
       </div>

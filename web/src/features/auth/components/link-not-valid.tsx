@@ -66,7 +66,7 @@ export function LinkNotValid({ kind }: LinkNotValidProps) {
             Send me a new link
           </Link>
         )}
-        <Link to={paths.signIn.getHref()} className={kind === 'reset' ? styles.secondary : styles.primary}>
+        <Link to={paths.signIn.getHref()} reloadDocument className={kind === 'reset' ? styles.secondary : styles.primary}>
           Go to sign in
         </Link>
         {kind === 'invitation' && (

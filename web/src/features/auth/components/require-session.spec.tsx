@@ -1,22 +1,33 @@
-import { screen } from '@testing-library/react';
-import { describe, expect, it } from 'vitest';
+import { screen, waitFor } from '@testing-library/react';
+import { afterEach, describe, expect, it, vi } from 'vitest';
 
 import { buildSessionResponse, buildSessionUser, buildUserResponse, buildPage } from '../../../testing/data';
 import { apiErrorResponse, mockApi } from '../../../testing/mock-api';
+import { pageLoad } from '../../../lib/page-load';
+import { resetSession } from '../../../lib/session';
 import { jsonResponse, renderApp } from '../../../testing/render-app';
+import { requireUser } from '../utils/require-user';
 
 const admin = buildSessionUser('admin');
 const noLocalMail = () => jsonResponse({ captured: false, destination: 'smtp://mail.relay.example:587' });
 
 describe('the signed-in area', () => {
-  it('should send a signed-out visitor to sign-in with the way back', async () => {
+  afterEach(() => vi.restoreAllMocks());
+
+  it('should send a signed-out visitor to sign-in with the way back, as a full page load (sign-in.html)', async () => {
     mockApi({ 'POST /api/auth/refresh': () => apiErrorResponse(401, { message: 'No session.', code: 'SESSION_ENDED' }) });
+    resetSession();
 
-    const { router } = renderApp({ url: '/users?sort=name', signedInAs: 'unknown' });
-
-    expect(await screen.findByRole('heading', { name: 'Sign in' })).toBeInTheDocument();
-    expect(router.state.location.pathname).toBe('/sign-in');
-    expect(router.state.location.search).toBe(`?${new URLSearchParams({ next: '/users?sort=name' })}`);
+    // The route loaders' guard: a document redirect, which React Router follows with a full page load.
+    const redirect = await requireUser(new Request('http://localhost/users?sort=name')).then(
+      () => undefined,
+      (thrown: unknown) => thrown,
+    );
+    expect(redirect).toBeInstanceOf(Response);
+    const response = redirect as Response;
+    expect(response.status).toBe(302);
+    expect(response.headers.get('X-Remix-Reload-Document')).toBe('true');
+    expect(response.headers.get('Location')).toBe(`/sign-in?${new URLSearchParams({ next: '/users?sort=name' })}`);
   });
 
   it('should restore the session from the refresh cookie after a reload', async () => {
@@ -41,11 +52,16 @@ describe('the signed-in area', () => {
       'GET /api/outbox/status': noLocalMail,
     });
 
-    const { router } = renderApp({ url: '/users', signedInAs: admin });
+    const load = vi.spyOn(pageLoad, 'replace').mockImplementation(() => undefined);
 
-    expect(await screen.findByRole('heading', { name: 'Sign in' })).toBeInTheDocument();
-    expect(screen.getByText(/Your session ended/)).toBeInTheDocument();
-    expect(router.state.location.pathname).toBe('/sign-in');
-    expect(new URLSearchParams(router.state.location.search).get('next')).toBe('/users');
+    renderApp({ url: '/users', signedInAs: admin });
+
+    // The sign-in page is a page of its own: a full page load, saying why and with the way back.
+    await waitFor(() => expect(load).toHaveBeenCalled());
+    const url = new URL(load.mock.calls[0]![0], 'http://localhost');
+    expect(url.pathname).toBe('/sign-in');
+    expect(url.searchParams.get('next')).toBe('/users');
+    expect(url.searchParams.get('expired')).toBe('1');
+    expect(screen.queryByRole('heading', { name: 'Users' })).not.toBeInTheDocument();
   });
 });

@@ -61,7 +61,7 @@ export function ResetPasswordForm({ token }: { token: string }) {
             Your password is changed. For your safety you are signed out everywhere; sign in with the new password.
           </MessageBarBody>
         </MessageBar>
-        <Link to={paths.signIn.getHref()} className={styles.primaryLink}>
+        <Link to={paths.signIn.getHref()} reloadDocument className={styles.primaryLink}>
           Sign in
         </Link>
       </div>

@@ -12,10 +12,10 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { SignOut20Regular } from '@fluentui/react-icons';
-import { useNavigate } from 'react-router';
 import { ROLE_LABELS } from '@domain/auth/roles';
 
 import { paths } from '../../../config/paths';
+import { pageLoad } from '../../../lib/page-load';
 import type { SessionUser } from '../../../lib/session';
 import { useSignOut } from '../api/sign-out';
 
@@ -51,12 +51,12 @@ type UserMenuProps = { user: SessionUser };
 /** The signed-in person (name, role, company) and the way to sign out, in the header. */
 export function UserMenu({ user }: UserMenuProps) {
   const styles = useStyles();
-  const navigate = useNavigate();
   const signOut = useSignOut();
 
   const handleSignOut = () => {
     signOut.mutate(undefined, {
-      onSettled: () => void navigate(paths.signIn.getHref(), { replace: true }),
+      // The sign-in page is a page of its own (web/sign-in.html): a full page load.
+      onSettled: () => pageLoad.replace(paths.signIn.getHref()),
     });
   };
 

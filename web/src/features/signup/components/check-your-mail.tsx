@@ -1,6 +1,7 @@
 import { makeStyles, MessageBar, MessageBarBody, Spinner, Text, tokens } from '@fluentui/react-components';
 import { Link } from 'react-router';
 
+import { paths } from '../../../config/paths';
 import { useSignupMail } from '../api/get-signup-mail';
 
 const useStyles = makeStyles({
@@ -77,7 +78,7 @@ export function CheckYourMail({ email, message, receipt, mailCaptured }: CheckYo
                 </Link>
               )}
               {!verifyLink && signInLink && (
-                <Link to="/sign-in" className={styles.action}>
+                <Link to={paths.signIn.getHref()} reloadDocument className={styles.action}>
                   Go to sign in
                 </Link>
               )}

@@ -118,12 +118,4 @@ describe('Create a company page', () => {
     expect(screen.getByText(/Ask ops@operator.example/)).toBeInTheDocument();
     expect(screen.queryByRole('button', { name: 'Create the company' })).not.toBeInTheDocument();
   });
-
-  it('should point the sign-in page to sign-up when no company exists yet', async () => {
-    mockApi({ 'GET /api/signup/status': () => jsonResponse({ ...open, hasCompanies: false }) });
-    renderApp({ url: '/sign-in', signedInAs: null });
-
-    expect(await screen.findByText('No company exists on this server yet.')).toBeInTheDocument();
-    expect(screen.getByRole('link', { name: 'Create the first company' })).toHaveAttribute('href', '/sign-up');
-  });
 });
