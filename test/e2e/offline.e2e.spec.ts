@@ -234,6 +234,30 @@ describe('a crew lead records with no signal (issue 17)', () => {
     await context.close();
   });
 
+  it('should show the sign-in page with no signal once the app is installed (the precached sign-in.html), not the browser’s offline error', async () => {
+    const context = await browser.newContext(PHONE);
+    const page = await context.newPage();
+    await page.goto(`${baseUrl}/sign-in`);
+    await signIn(page, company.users.lead.email);
+    await page.getByRole('heading', { name: 'Today' }).waitFor();
+    // The app registers its worker once loaded and idle; it precaches the build, sign-in.html included.
+    await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
+    await expect
+      .poll(() => page.evaluate(async () => (await caches.keys()).length > 0 && !!(await caches.match('/sign-in.html', { ignoreSearch: true }))), { timeout: 30_000 })
+      .toBe(true);
+
+    // The session ends with no signal: the app sends the lead to sign-in, a page of its own.
+    await context.setOffline(true);
+    await page.goto(`${baseUrl}/sign-in?${new URLSearchParams({ next: '/jobs', expired: '1' })}`);
+    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+    await page.getByText('Your session ended. Sign in again to carry on where you were.').waitFor();
+    await page.getByLabel(/^E-mail/).fill(company.users.lead.email);
+    await page.getByLabel(/^Password/).fill(TEST_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByText(/Cannot reach the server\. Check your connection and try again\./).waitFor();
+    await context.close();
+  });
+
   it('should open the conflict dialog when the office changed the job meanwhile, and lose neither change', async () => {
     const { jobId, title } = await startedJob();
     const { context, page } = await openJobOnPhone(jobId, title);
