@@ -2,7 +2,7 @@ import type { SignupStatusResponse } from '@domain/signup/signup.schema';
 import { useEffect, useId, useState, type FormEvent, type InputHTMLAttributes, type ReactNode } from 'react';
 
 import { LogoMark } from '../../../components/logo';
-import { DismissCircleFilledIcon, ErrorCircleFilledIcon, EyeIcon, EyeOffIcon, InfoFilledIcon } from '../../../components/plain/icons';
+import { DiamondDismissFilled12Icon, DiamondDismissFilled20Icon, EyeIcon, EyeOffIcon, InfoFilledIcon } from '../../../components/plain/icons';
 import { paths } from '../../../config/paths';
 import { isApiError } from '../../../lib/api-error';
 import { describeRequestError, fieldErrorsFromApi, type FieldErrors } from '../../../lib/describe-error';
@@ -128,7 +128,7 @@ export function SignInPage({ next, expired, signupStatus, go }: SignInPageProps)
 
 /** Fluent's MessageBar (multiline), info or error, as plain markup. */
 function Notice({ intent, className, children }: { intent: 'info' | 'error'; className?: string; children: ReactNode }) {
-  const Icon = intent === 'error' ? DismissCircleFilledIcon : InfoFilledIcon;
+  const Icon = intent === 'error' ? DiamondDismissFilled20Icon : InfoFilledIcon;
   return (
     <div role="group" className={[styles.messageBar, intent === 'error' ? styles.messageBarError : styles.messageBarInfo, className].filter(Boolean).join(' ')}>
       <span className={styles.messageBarIcon}>
@@ -231,7 +231,7 @@ function TextField({ label, error, input, after }: { label: string; error?: stri
       {error && (
         <div id={messageId} role="alert" className={styles.validationMessage}>
           <span className={styles.validationIcon}>
-            <ErrorCircleFilledIcon />
+            <DiamondDismissFilled12Icon />
           </span>
           {error}
         </div>
