@@ -198,7 +198,7 @@ describe('accessibility scan (axe-core) of the lead’s and the homeowner’s pa
     expect(report, `\n${report.join('\n')}`).toEqual([]);
   }, 300_000);
 
-  it('should find no serious or critical violation on the homeowner’s pages and the public locate view', async () => {
+  it('should find no serious or critical violation on the homeowner’s pages, the public locate view and the sign-in page', async () => {
     const context = await browser.newContext(PHONE);
     const page = await signIn(context, baseUrl, company.users.homeowner.email);
     const report = await scanRoutes(page, baseUrl, [
@@ -210,6 +210,29 @@ describe('accessibility scan (axe-core) of the lead’s and the homeowner’s pa
     const stranger = await browser.newContext(PHONE);
     const phone = await stranger.newPage();
     report.push(...(await scanRoutes(phone, baseUrl, [{ path: locatePath, ready: (p) => p.locator('[data-testid="locate-map"] [data-label]').first().waitFor() }])));
+    // The sign-in page is a page of its own without Fluent UI (web/sign-in.html): its notice, and its
+    // field errors and error bar after a refused attempt.
+    report.push(
+      ...(await scanRoutes(phone, baseUrl, [
+        {
+          path: '/sign-in?expired=1',
+          ready: (p) => p.getByText('Your session ended. Sign in again to carry on where you were.').waitFor(),
+          then: {
+            label: 'refused, then empty boxes sent',
+            within: 'main',
+            act: async (p: Page) => {
+              await p.getByLabel(/^E-mail/).fill('nobody@scan.example');
+              await p.getByLabel(/^Password/).fill('not-the-password');
+              await p.getByRole('button', { name: 'Sign in' }).tap();
+              await p.getByText(/do not match an account/).waitFor();
+              await p.getByLabel(/^Password/).fill('');
+              await p.getByRole('button', { name: 'Sign in' }).tap();
+              await p.getByText('Enter your password.').waitFor();
+            },
+          },
+        },
+      ])),
+    );
     await stranger.close();
     expect(report, `\n${report.join('\n')}`).toEqual([]);
   }, 180_000);
