@@ -94,10 +94,12 @@ function chunkContents(): Plugin {
  * first screen that needs them, from the static import graph (`buildEnd`, before the chunks are made):
  *
  * - `react`: React itself, shared with the public locate page and the sign-in page;
- * - `public-shared`, `locate-shared`, `sign-in-shared`: what the two pages of their own (locate.html,
- *   sign-in.html) both import, and what each of them shares with the app's first screens (no Fluent UI:
- *   neither page's graph holds any, test/e2e/locate-bundle.e2e.spec.ts); what only one page needs stays
- *   in its entry's chunk;
+ * - `public-shared`: what the two pages of their own (locate.html, sign-in.html) share with the app's
+ *   first screens or with each other, in one chunk (no Fluent UI: neither page's graph holds any,
+ *   test/e2e/locate-bundle.e2e.spec.ts). One rather than one per page: the app's start then loads one
+ *   script for it, as it did when only the locate page had one (the sign-in page carries the locate
+ *   page's few KB of units code for it, about 6 KB compressed); what only one page needs stays in its
+ *   entry's chunk;
  * - `start`: main.tsx and the root route (session, router, query cache, Fluent's provider);
  * - `frame`: the signed-in frame (app root and protected routes: header, navigation);
  * - `pages`: what Today and the job page share; `today`, `job`: each page's own code.
@@ -162,8 +164,6 @@ function firstScreenChunks(): { plugin: Plugin; groups: Rolldown.CodeSplittingGr
       const locate = reach([src('locate.html')]);
       const signInPage = reach([src('sign-in.html')]);
       const publicPages = new Set([...locate, ...signInPage]);
-      const publicGroup = (id: string) =>
-        locate.has(id) && signInPage.has(id) ? 'public-shared' : locate.has(id) ? 'locate-shared' : signInPage.has(id) ? 'sign-in-shared' : undefined;
       const start = reach([src('index.html'), src('src/app/routes/root.tsx')]);
       const frame = reach([src('src/app/routes/app/root.tsx'), src('src/app/routes/app/protected.tsx')], start);
       const before = new Set([...start, ...frame]);
@@ -183,7 +183,7 @@ function firstScreenChunks(): { plugin: Plugin; groups: Rolldown.CodeSplittingGr
       const assign = (ids: Iterable<string>, name: string) => {
         for (const id of ids) {
           if (groupOf.has(id)) continue;
-          groupOf.set(id, isReact(id) ? 'react' : publicGroup(id) ?? name);
+          groupOf.set(id, isReact(id) ? 'react' : publicPages.has(id) ? 'public-shared' : name);
         }
       };
       assign(start, 'start');
@@ -200,7 +200,7 @@ function firstScreenChunks(): { plugin: Plugin; groups: Rolldown.CodeSplittingGr
   };
   // Highest priority first: a group's modules take their own dependencies along (the bundler's default),
   // so the groups nearer the root claim theirs before a later group could.
-  const order = ['react', 'public-shared', 'locate-shared', 'sign-in-shared', 'start', 'frame', 'pages', 'today', 'later', 'job'];
+  const order = ['react', 'public-shared', 'start', 'frame', 'pages', 'today', 'later', 'job'];
   const groups = order.map((name, i) => ({
     name,
     priority: order.length - i,

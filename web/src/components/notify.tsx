@@ -6,8 +6,8 @@ import type { ToastRequest } from './toaster';
 const loadToaster = () => import('./toaster');
 const ToasterSurface = lazy(() => loadToaster().then(({ ToasterSurface }) => ({ default: ToasterSurface })));
 
-// Nothing about toasts loads until the first one is asked for: a page that never shows one (the public
-// locate view, the sign-in page) never downloads the toaster's chunk (issue 17, fast on a weak signal).
+// Nothing about toasts loads until the first one is asked for: a page of the app that never shows one
+// never downloads the toaster's chunk (issue 17, fast on a weak signal).
 let isWanted = false;
 const listeners = new Set<() => void>();
 

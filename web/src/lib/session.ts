@@ -19,8 +19,8 @@ export type Session = {
 /**
  * - `unknown`: the app has just started and has not yet asked the server whether the refresh cookie
  *   still holds a session.
- * - `signed-out`: no session; `reason` says whether one just ended under the user (so the sign-in page
- *   can explain why they are there).
+ * - `signed-out`: no session; `reason` says whether one just ended under the user (RequireSession then
+ *   sends them to the sign-in page with `expired=1`, so it can explain why they are there).
  */
 export type SessionState =
   | { status: 'unknown' }

@@ -69,8 +69,9 @@ type AuthLayoutProps = {
 };
 
 /**
- * The frame for the pages around signing in (sign-in, invitation, password reset): the product name
- * and one card, nothing that needs a session.
+ * The frame for the pages around signing in (invitation, password reset, sign-up): the product name
+ * and one card, nothing that needs a session. The sign-in page itself is a page of its own drawn the
+ * same way without Fluent UI (features/auth/components/sign-in-page.module.css): change both together.
  */
 export function AuthLayout({ title, description, children }: AuthLayoutProps) {
   const styles = useStyles();
