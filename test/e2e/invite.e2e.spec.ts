@@ -114,6 +114,11 @@ describe('invitations and sessions in the browser', () => {
     const url = new URL(page.url());
     expect(`${url.pathname}${url.search}`).toBe('/users?from=bookmark');
 
+    // Signed in, the sign-in page (a page of its own) sends the visitor straight on to `next`.
+    await page.goto(`${baseUrl}/sign-in?${new URLSearchParams({ next: '/users?from=sign-in' })}`);
+    await page.waitForURL((u) => u.pathname === '/users' && u.search === '?from=sign-in');
+    await page.getByRole('heading', { name: 'Users', exact: true }).waitFor();
+
     // Signing out ends the session: the protected page sends the visitor to sign-in again.
     await page.getByRole('button', { name: `Account: ${company.users.admin.name}` }).click();
     await page.getByRole('menuitem', { name: 'Sign out' }).click();
