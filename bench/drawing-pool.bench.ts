@@ -44,7 +44,7 @@ async function withLoopDelay(work: () => Promise<unknown>): Promise<{ wallMs: nu
   return { wallMs, p99Ms: histogram.percentile(99) / 1e6, maxMs: histogram.max / 1e6 };
 }
 
-const config = { get: (key: string) => ({ DRAWING_THREADS: 1, DRAWING_CACHE_MB: 64 })[key] } as unknown as ConfigService<never, true>;
+const config = { get: (key: string) => ({ DRAWING_THREADS: 1, DRAWING_THREADS_START: 'at-start', DRAWING_CACHE_MB: 64 })[key] } as unknown as ConfigService<never, true>;
 const renderer = new DrawingRenderer(config as never);
 await renderer.onModuleInit();
 // Warm both paths (module loading, JIT) before measuring.

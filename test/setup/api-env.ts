@@ -38,4 +38,7 @@ Object.assign(process.env, {
   LOG_FORMAT: 'text',
   // Queued mail and renders are picked up within half a second (pg-boss's floor) instead of a second.
   QUEUE_POLL_INTERVAL_SECONDS: '0.5',
+  // Each file starts its own app and most draw nothing: a drawing thread loads its layout and SVG
+  // libraries (about 1.7 s of CPU) only when a file first asks for a drawing.
+  DRAWING_THREADS_START: 'on-demand',
 });

@@ -40,6 +40,34 @@ describe(WorkerPool.name, { timeout: 60_000 }, () => {
     }
   });
 
+  it('should start no thread before the first task when on demand, then only as many as tasks need', async () => {
+    const pool = new WorkerPool<Task, Out>(script, { threads: 2, taskTimeoutMs: 10_000, maxQueue: 10, name: 'test pool', start: 'on-demand' });
+    try {
+      expect(pool.threads).toBe(0);
+      expect((await pool.run({ n: 1 })).doubled).toBe(2);
+      expect(pool.threads).toBe(1);
+      // One after another, the started thread is free each time: no second thread.
+      expect((await pool.run({ n: 2 })).doubled).toBe(4);
+      expect(pool.threads).toBe(1);
+      // Three at once: a second thread starts, and no more than the pool's two.
+      const results = await Promise.all([3, 4, 5].map((n) => pool.run({ n, spinMs: 50 })));
+      expect(results.map((r) => r.doubled)).toEqual([6, 8, 10]);
+      expect(pool.threads).toBe(2);
+      expect(new Set(results.map((r) => r.threadId)).size).toBe(2);
+    } finally {
+      await pool.close();
+    }
+  });
+
+  it('should start every thread with the pool by default', async () => {
+    const pool = new WorkerPool<Task, Out>(script, { threads: 2, taskTimeoutMs: 10_000, maxQueue: 10, name: 'test pool' });
+    try {
+      expect(pool.threads).toBe(2);
+    } finally {
+      await pool.close();
+    }
+  });
+
   it('should fail only the task whose worker failed, times out or exits, and replace that worker', async () => {
     const pool = new WorkerPool<Task, Out>(script, { threads: 1, taskTimeoutMs: 2000, maxQueue: 10, name: 'test pool' });
     try {

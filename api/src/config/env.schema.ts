@@ -130,6 +130,11 @@ export const EnvSchema = z.object({
   UPLOAD_MAX_CONCURRENT_PER_USER: z.coerce.number().int().min(1).max(100).default(2),
   /** Worker threads that lay out and draw job drawings (SVG) off the event loop. */
   DRAWING_THREADS: z.coerce.number().int().min(1).max(16).default(1),
+  /**
+   * When those threads start: `at-start` (with the API, so the first drawing finds one ready) or
+   * `on-demand` (at the first drawing; the tests' many short-lived apps, most of which draw nothing).
+   */
+  DRAWING_THREADS_START: z.enum(['at-start', 'on-demand']).default('at-start'),
   /** Memory for finished drawings kept for repeated requests, MB (0 turns the cache off). */
   DRAWING_CACHE_MB: z.coerce.number().int().min(0).max(4096).default(64),
 }).superRefine((env, ctx) => {

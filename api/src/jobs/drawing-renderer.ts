@@ -37,19 +37,21 @@ export class DrawingRenderer implements OnModuleInit, OnApplicationShutdown {
   private cachedBytes = 0;
   private readonly inFlight = new Map<string, Promise<string>>();
   private readonly threads: number;
+  private readonly threadsStart: 'at-start' | 'on-demand';
   private readonly maxCacheBytes: number;
   private hits = 0;
   private misses = 0;
 
   constructor(config: ConfigService<Env, true>) {
     this.threads = config.get('DRAWING_THREADS', { infer: true });
+    this.threadsStart = config.get('DRAWING_THREADS_START', { infer: true });
     this.maxCacheBytes = config.get('DRAWING_CACHE_MB', { infer: true }) * 1024 * 1024;
   }
 
   async onModuleInit(): Promise<void> {
     const script = await workerScriptUrl(new URL('./drawing.worker.js', import.meta.url));
     // A schematic of the largest seeded job lays out in well under a second; 30 s means a runaway.
-    this.pool = new WorkerPool<DrawingTask, string>(script, { threads: this.threads, taskTimeoutMs: 30_000, maxQueue: 1000, name: 'drawing pool' });
+    this.pool = new WorkerPool<DrawingTask, string>(script, { threads: this.threads, taskTimeoutMs: 30_000, maxQueue: 1000, name: 'drawing pool', start: this.threadsStart === 'on-demand' ? 'on-demand' : 'at-once' });
   }
 
   async onApplicationShutdown(): Promise<void> {
