@@ -1,5 +1,5 @@
 import { readdir, readFile, stat, writeFile } from 'node:fs/promises';
-import { join, resolve } from 'node:path';
+import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { promisify } from 'node:util';
 import { brotliCompress, constants, gzip } from 'node:zlib';
@@ -102,12 +102,17 @@ function chunkContents(): Plugin {
  *   entry's chunk;
  * - `start`: main.tsx and the root route (session, router, query cache, Fluent's provider);
  * - `frame`: the signed-in frame (app root and protected routes: header, navigation);
- * - `pages`: what Today and the job page share; `today`, `job`: each page's own code.
+ * - `pages`: what Today and the job page share; `today`, `job`: each page's own code;
+ * - `later`: what the frame loads once a page shows (account menu, the runners that send queued
+ *   changes), and `job-later`: the part of it the job page needs on its first screen too.
  *
  * Today then loads about seven scripts, a job page about eight. Modules no first screen needs (plan
  * editor, drawings, dialogs behind a button, other routes) keep the bundler's own splitting, and a
  * route that needs part of a group loads the group.
  */
+/** A feature's public surface, `src/features/<name>/index.ts`: re-exports only (eslint.config.js). */
+const FEATURE_INDEX = /[\\/]src[\\/]features[\\/][^\\/]+[\\/]index\.tsx?$/;
+
 function firstScreenChunks(): { plugin: Plugin; groups: Rolldown.CodeSplittingGroup[] } {
   const groupOf = new Map<string, string>();
   const src = (path: string) => resolve(appRoot, path);
@@ -136,19 +141,73 @@ function firstScreenChunks(): { plugin: Plugin; groups: Rolldown.CodeSplittingGr
           if (resolved) packageId.set(from, resolved.id);
         }
       }
+      // Our features' public `index.ts` files re-export each name from the module that defines it; followed
+      // as they are, Today importing one jobs query from `features/jobs` would reach every jobs component
+      // (forms, dialogs, react-hook-form) and put the job page's code on Today's first screen. Named
+      // imports from a feature's index are followed to the modules that export those names.
+      const featureIndex = new Map<string, Map<string, string>>();
+      for (const id of this.getModuleIds()) {
+        if (!isOurs(id) || !FEATURE_INDEX.test(id)) continue;
+        const exportsFrom = new Map<string, string>();
+        for (const [, names, from] of (await readFile(id, 'utf8')).matchAll(/export\s*\{([^}]*)\}\s*from\s*['"]([^'"]+)['"]/g)) {
+          const target = (await this.resolve(from!, id))?.id;
+          if (!target) continue;
+          for (const name of names!.replace(/\/\/[^\n]*/g, '').split(',')) {
+            const exported = name.trim().replace(/^type\s+/, '').split(/\s+as\s+/).pop()!;
+            if (exported) exportsFrom.set(exported, target);
+          }
+        }
+        featureIndex.set(id, exportsFrom);
+      }
+      /** The modules behind `names` imported from our module `id`'s import of `specifier`, if it is a feature index. */
+      const throughIndex = (id: string, specifier: string, names: string) => {
+        const exportsFrom = featureIndex.get(resolve(dirname(id), specifier, 'index.ts')) ?? featureIndex.get(resolve(dirname(id), specifier, 'index.tsx'));
+        if (!exportsFrom) return undefined;
+        const targets: string[] = [];
+        for (const name of names.split(',')) {
+          const imported = name.trim().replace(/^type\s+/, '').split(/\s+as\s+/)[0]!;
+          if (!imported) continue;
+          const target = exportsFrom.get(imported);
+          // A name the index does not list as re-exported: follow the whole index, as before.
+          if (!target) return undefined;
+          targets.push(target);
+        }
+        return { index: exportsFrom, targets };
+      };
       const importsOf = (id: string): string[] => {
         const info = this.getModuleInfo(id);
         if (!info) return [];
-        if (!barrel || !isOurs(id) || !info.importedIds.includes(barrel.id)) return info.importedIds;
+        if (!isOurs(id)) return info.importedIds;
+        const code = info.code ?? '';
+        let imported = info.importedIds;
         const named = new Set<string>();
-        for (const [, names] of (info.code ?? '').matchAll(/import\s*\{([^}]*)\}\s*from\s*["']@fluentui\/react-components["']/g)) {
-          for (const name of names!.split(',')) {
-            const imported = name.trim().replace(/^type\s+/, '').split(/\s+as\s+/)[0]!;
-            const from = packageOf.get(imported);
-            if (from && packageId.has(from)) named.add(packageId.get(from)!);
+        if (barrel && imported.includes(barrel.id)) {
+          for (const [, names] of code.matchAll(/import\s*\{([^}]*)\}\s*from\s*["']@fluentui\/react-components["']/g)) {
+            for (const name of names!.split(',')) {
+              const importedName = name.trim().replace(/^type\s+/, '').split(/\s+as\s+/)[0]!;
+              const from = packageOf.get(importedName);
+              if (from && packageId.has(from)) named.add(packageId.get(from)!);
+            }
           }
+          imported = imported.filter((next) => next !== barrel.id);
         }
-        return [...info.importedIds.filter((next) => next !== barrel.id), ...named];
+        if (imported.some((next) => featureIndex.has(next))) {
+          // Each feature index this module imports, and whether every import of it was named ones it re-exports.
+          const precise = new Map<string, boolean>();
+          for (const [statement, names, specifier] of code.matchAll(/import\s*(?:\{([^}]*)\}\s*from\s*)?["']([^"']+)["']/g)) {
+            if (!specifier!.startsWith('.')) continue;
+            const index = [...featureIndex.keys()].find((key) => dirname(key) === resolve(dirname(id), specifier!));
+            if (!index) continue;
+            const through = names === undefined || /import\s*\*/.test(statement) ? undefined : throughIndex(id, specifier!, names);
+            if (!through) precise.set(index, false);
+            else {
+              if (!precise.has(index)) precise.set(index, true);
+              for (const target of through.targets) named.add(target);
+            }
+          }
+          imported = imported.filter((next) => !precise.get(next));
+        }
+        return [...imported, ...named];
       };
       const reach = (roots: string[], outside: Set<string> = new Set()) => {
         const seen = new Set<string>();
@@ -190,6 +249,9 @@ function firstScreenChunks(): { plugin: Plugin; groups: Rolldown.CodeSplittingGr
       assign(frame, 'frame');
       assign([...today].filter((id) => job.has(id)), 'pages');
       assign(today, 'today');
+      // What the frame's later code and the job page both need (the job writer, the ties editor, site
+      // writes): its own chunk, so the job page's first screen does not wait for the rest of `later`.
+      assign([...later].filter((id) => job.has(id)), 'job-later');
       assign(later, 'later');
       assign(job, 'job');
       // React is shared with the public pages whether or not a first screen reaches it first; what the two
@@ -200,7 +262,7 @@ function firstScreenChunks(): { plugin: Plugin; groups: Rolldown.CodeSplittingGr
   };
   // Highest priority first: a group's modules take their own dependencies along (the bundler's default),
   // so the groups nearer the root claim theirs before a later group could.
-  const order = ['react', 'public-shared', 'start', 'frame', 'pages', 'today', 'later', 'job'];
+  const order = ['react', 'public-shared', 'start', 'frame', 'pages', 'today', 'job-later', 'later', 'job'];
   const groups = order.map((name, i) => ({
     name,
     priority: order.length - i,
@@ -320,6 +382,10 @@ export default defineConfig({
       // (api/src/common/web-app.ts answers /locate/<token> and /sign-in with them).
       input: { index: resolve(appRoot, 'index.html'), locate: resolve(appRoot, 'locate.html'), 'sign-in': resolve(appRoot, 'sign-in.html') },
       output: { codeSplitting: { groups: firstScreen.groups } },
+      // A feature's public `index.ts` only re-exports: declared free of side effects, an import through it
+      // goes straight to the chunk of the module that defines the name, and Today importing one jobs query
+      // does not load the chunk of every module the index re-exports (the job page's).
+      treeshake: { moduleSideEffects: (id: string) => !FEATURE_INDEX.test(id) },
     },
   },
 });
